@@ -1,0 +1,14 @@
+/// <reference types="astro/client" />
+
+declare namespace App {
+  interface Locals {
+    /** Always set by the middleware; null when nobody is signed in. */
+    user: {
+      id: string;
+      name: string;
+      email: string;
+      role: import('./lib/server/auth/roles').Role;
+    } | null;
+    session: { id: string; expiresAt: Date } | null;
+  }
+}

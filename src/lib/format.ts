@@ -1,0 +1,13 @@
+/** Display formatting shared by pages, islands and the PDF; money is integer minor units. */
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+export function formatDate(value: Date | number | null | undefined): string {
+  if (value === null || value === undefined) return '—';
+  return dateFormat.format(value instanceof Date ? value : new Date(value));
+}
+
+export function formatMoney(minor: number, currency: string): string {
+  const digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+  return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 10 ** digits);
+}

@@ -1,0 +1,23 @@
+import type { Role } from './server/auth/roles';
+
+export interface NavItem {
+  href: string;
+  label: string;
+}
+
+/** What each role sees in the top bar; the guard, not the menu, decides access. */
+export function navigationFor(role: Role | null): NavItem[] {
+  switch (role) {
+    case 'client':
+      return [{ href: '/briefs', label: 'My briefs' }];
+    case 'engineer':
+      return [{ href: '/desk', label: 'Desk' }];
+    case 'admin':
+      return [
+        { href: '/desk', label: 'Desk' },
+        { href: '/admin/users', label: 'People' },
+      ];
+    case null:
+      return [];
+  }
+}

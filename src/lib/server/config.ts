@@ -1,0 +1,51 @@
+/**
+ * The server's settings, read once from Astro's typed environment. The only
+ * place (with the config files) that knows where settings come from.
+ */
+import {
+  BETTER_AUTH_SECRET,
+  DATABASE_AUTH_TOKEN,
+  DATABASE_URL,
+  MAIL_FAKE_SMTP_PORT,
+  MAIL_FROM,
+  PUBLIC_BASE_URL,
+  RATE_LIMIT_DISABLED,
+  SEED_DEMO,
+  SMTP_URL,
+  UPLOAD_DIR,
+} from 'astro:env/server';
+import { DEFAULT_DATABASE_URL } from './db/connect';
+
+const production = import.meta.env.PROD;
+
+/** `1`, `true` or `yes` switch a flag on; the README documents `SEED_DEMO=1`. */
+const flag = (value: string | undefined) => /^(1|true|yes)$/i.test(value ?? '');
+
+// A development-only secret: sessions signed with it are worthless outside this machine.
+const DEV_SECRET = 'railwright-development-secret-not-for-production-use';
+
+function authSecret(): string {
+  if (BETTER_AUTH_SECRET && BETTER_AUTH_SECRET.length >= 32) return BETTER_AUTH_SECRET;
+  if (production) {
+    throw new Error(
+      'Railwright will not start in production without BETTER_AUTH_SECRET (at least 32 characters). ' +
+        'Generate one with `openssl rand -hex 32` and set it in the environment.',
+    );
+  }
+  return DEV_SECRET;
+}
+
+export const config = {
+  production,
+  databaseUrl: DATABASE_URL ?? DEFAULT_DATABASE_URL,
+  databaseAuthToken: DATABASE_AUTH_TOKEN,
+  authSecret: authSecret(),
+  /** Where links in e-mails point; falls back to the request's own origin. */
+  publicBaseUrl: PUBLIC_BASE_URL,
+  smtpUrl: SMTP_URL ?? `smtp://127.0.0.1:${MAIL_FAKE_SMTP_PORT}`,
+  mailFrom: MAIL_FROM,
+  uploadDir: UPLOAD_DIR ?? 'data/uploads',
+  seedDemo: flag(SEED_DEMO),
+  /** For load benchmarks only: the sign-in and evaluate limits stop counting. */
+  rateLimitDisabled: flag(RATE_LIMIT_DISABLED),
+} as const;

@@ -1,0 +1,34 @@
+import { sql } from 'drizzle-orm';
+import type { Database } from './db/connect';
+
+export interface RateRule {
+  /** Most requests allowed in one window. */
+  max: number;
+  windowMs: number;
+}
+
+export type RateVerdict = { allowed: true } | { allowed: false; retryAfterSeconds: number };
+
+/**
+ * Fixed-window counter in the database, so every app instance behind a proxy
+ * shares one count. One atomic upsert per call: no read-then-write race.
+ */
+export async function consumeRate(db: Database, key: string, rule: RateRule, now = Date.now()): Promise<RateVerdict> {
+  const windowStart = now - (now % rule.windowMs);
+  const rows = await db.all<{ count: number; window_start: number }>(sql`
+    INSERT INTO rate_limit (key, window_start, count) VALUES (${key}, ${windowStart}, 1)
+    ON CONFLICT (key) DO UPDATE SET
+      count = CASE WHEN rate_limit.window_start < ${windowStart} THEN 1 ELSE rate_limit.count + 1 END,
+      window_start = CASE WHEN rate_limit.window_start < ${windowStart} THEN ${windowStart} ELSE rate_limit.window_start END
+    RETURNING count, window_start`);
+  const row = rows[0];
+  if (!row || row.count <= rule.max) return { allowed: true };
+  return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((row.window_start + rule.windowMs - now) / 1000)) };
+}
+
+export const RATE_RULES = {
+  /** Per address and e-mail: enough for typing mistakes, too few for guessing. */
+  signInPerAccount: { max: 8, windowMs: 10 * 60_000 },
+  /** Per address across all e-mails: stops one machine trying many accounts. */
+  signInPerAddress: { max: 60, windowMs: 10 * 60_000 },
+} satisfies Record<string, RateRule>;

@@ -1,0 +1,42 @@
+import { defineMiddleware, sequence } from 'astro:middleware';
+import { auth } from '~/lib/server/auth';
+import { isRole } from '~/lib/server/auth/roles';
+import { config } from '~/lib/server/config';
+import { databaseReady } from '~/lib/server/db';
+import { limitSignInApi } from '~/lib/server/sign-in-limit';
+import { apiError } from '~/lib/server/http';
+import { isCrossOriginWrite, securityHeaders } from '~/lib/server/security';
+
+const HEADERS = securityHeaders(config.production);
+const allowedOrigins = config.publicBaseUrl ? [new URL(config.publicBaseUrl).origin] : [];
+
+const hardening = defineMiddleware(async (context, next) => {
+  context.locals.user = null;
+  context.locals.session = null;
+  if (isCrossOriginWrite(context.request, context.url, allowedOrigins)) {
+    return apiError(403, 'cross_origin', { message: 'This request came from another site and was refused.' });
+  }
+  await databaseReady;
+  const response = await next();
+  for (const [name, value] of Object.entries(HEADERS)) {
+    if (!response.headers.has(name)) response.headers.set(name, value);
+  }
+  return response;
+});
+
+const signInLimit = defineMiddleware(async (context, next) => {
+  const refused = await limitSignInApi(context);
+  return refused ?? next();
+});
+
+const session = defineMiddleware(async (context, next) => {
+  if (context.url.pathname.startsWith('/_astro/')) return next();
+  const found = await auth.api.getSession({ headers: context.request.headers });
+  if (found && isRole(found.user.role) && !found.user.banned) {
+    context.locals.user = { id: found.user.id, name: found.user.name, email: found.user.email, role: found.user.role };
+    context.locals.session = { id: found.session.id, expiresAt: found.session.expiresAt };
+  }
+  return next();
+});
+
+export const onRequest = sequence(hardening, signInLimit, session);

@@ -1,0 +1,8 @@
+import type { APIRoute } from 'astro';
+import { auth } from '~/lib/server/auth';
+import { redirectWithCookies } from '~/lib/server/auth/form-actions';
+
+export const POST: APIRoute = async ({ request }) => {
+  const result = await auth.api.signOut({ headers: request.headers, returnHeaders: true }).catch(() => null);
+  return redirectWithCookies('/', result?.headers ?? new Headers());
+};
