@@ -1,12 +1,4 @@
-export {
-  startMailCatcher,
-  DEFAULT_SMTP_PORT,
-  DEFAULT_HTTP_PORT,
-  DEFAULT_DIR,
-  DEFAULT_SIZE_LIMIT,
-  type MailCatcher,
-  type MailCatcherOptions,
-} from './src/server.ts';
+export { startMailCatcher, type MailCatcher, type MailCatcherOptions } from './src/server.ts';
 export { mailCatcherOptionsFromEnv } from './src/env.ts';
 export { MessageStore } from './src/message-store.ts';
 export type { StoredMessage, StoredAttachment, MessageSummary, AttachmentSummary, MailAddress } from './src/stored-message.ts';
