@@ -1,7 +1,7 @@
 import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { mailCatcherOptionsFromEnv, startMailCatcher } from '../mail-catcher/index.ts';
-import { DEFAULT_PORT, DEFAULT_WEBHOOK_SECRET, startStripeFake, stripeFakeOptionsFromEnv } from '../stripe-fake/index.ts';
+import { startStripeFake, stripeFakeOptionsFromEnv } from '../stripe-fake/index.ts';
 
 export interface FakesOptions {
   /** Payment stand-in port; default STRIPE_FAKE_PORT or 12111. 0 picks a free port. */
@@ -27,6 +27,9 @@ export interface Fakes {
   smtpUrl: string;
   /** The mail catcher's HTTP API (messages under /messages). */
   mailApiUrl: string;
+  /** Where events are posted (null: recorded only) and the secret they are signed with, for the app's STRIPE_WEBHOOK_SECRET. */
+  webhookUrl: string | null;
+  webhookSecret: string;
   close(): Promise<void>;
 }
 
@@ -34,28 +37,32 @@ type Env = Record<string, string | undefined>;
 
 /** Starts the payment stand-in and the mail catcher; options win over the environment, which wins over defaults. */
 export async function startFakes(options: FakesOptions = {}, env: Env = process.env): Promise<Fakes> {
-  const stripeFromEnv = stripeFakeOptionsFromEnv(env, DEFAULT_PORT);
-  const mailFromEnv = mailCatcherOptionsFromEnv(env);
+  const stripeSettings = stripeFakeOptionsFromEnv(env);
+  const mailSettings = mailCatcherOptionsFromEnv(env);
   const log = options.log ?? (() => {});
+  const webhookUrl = options.webhookUrl === undefined ? stripeSettings.webhookUrl : options.webhookUrl;
+  const webhookSecret = options.webhookSecret ?? stripeSettings.webhookSecret;
   const stripe = await startStripeFake({
-    ...stripeFromEnv,
-    port: options.stripePort ?? stripeFromEnv.port ?? DEFAULT_PORT,
-    webhookUrl: options.webhookUrl === undefined ? stripeFromEnv.webhookUrl ?? null : options.webhookUrl,
-    webhookSecret: options.webhookSecret ?? stripeFromEnv.webhookSecret ?? DEFAULT_WEBHOOK_SECRET,
+    host: stripeSettings.host,
+    port: options.stripePort ?? stripeSettings.port,
+    webhookUrl,
+    webhookSecret,
     log: (line) => log(`[payments] ${line}`),
   });
   try {
     const mail = await startMailCatcher({
-      ...mailFromEnv,
-      ...(options.smtpPort === undefined ? {} : { smtpPort: options.smtpPort }),
-      ...(options.mailHttpPort === undefined ? {} : { httpPort: options.mailHttpPort }),
-      ...(options.mailDir === undefined ? {} : { dir: options.mailDir }),
+      host: mailSettings.host,
+      smtpPort: options.smtpPort ?? mailSettings.smtpPort,
+      httpPort: options.mailHttpPort ?? mailSettings.httpPort,
+      dir: options.mailDir ?? mailSettings.dir,
       log: (line) => log(`[mail] ${line}`),
     });
     return {
       stripeUrl: stripe.url,
       smtpUrl: mail.smtpUrl,
       mailApiUrl: mail.apiUrl,
+      webhookUrl,
+      webhookSecret,
       close: async () => {
         await Promise.all([stripe.close(), mail.close()]);
       },
@@ -67,14 +74,12 @@ export async function startFakes(options: FakesOptions = {}, env: Env = process.
 }
 
 async function main(): Promise<void> {
-  const stripeFromEnv = stripeFakeOptionsFromEnv(process.env, DEFAULT_PORT);
   const fakes = await startFakes({ log: (line) => console.error(line) });
-  const secret = stripeFromEnv.webhookSecret ?? DEFAULT_WEBHOOK_SECRET;
   console.log(
     [
       'Local stand-ins running (Ctrl+C stops both):',
       `  payments  STRIPE_API_BASE=${fakes.stripeUrl}   checkout pages ${fakes.stripeUrl}/checkout/:id`,
-      `            events ${stripeFromEnv.webhookUrl ? `→ ${stripeFromEnv.webhookUrl}, signed with ${secret}` : 'recorded only (STRIPE_FAKE_WEBHOOK_URL is empty)'}`,
+      `            events ${fakes.webhookUrl ? `→ ${fakes.webhookUrl}, signed with ${fakes.webhookSecret}` : 'recorded only (STRIPE_FAKE_WEBHOOK_URL is empty)'}`,
       `  mail      SMTP_URL=${fakes.smtpUrl}   messages at ${fakes.mailApiUrl}/messages`,
     ].join('\n'),
   );

@@ -1,6 +1,13 @@
-import { DEFAULT_DIR, DEFAULT_HTTP_PORT, DEFAULT_SMTP_PORT, type MailCatcherOptions } from './server.ts';
+import { DEFAULT_DIR, DEFAULT_HTTP_PORT, DEFAULT_SMTP_PORT } from './server.ts';
 
 type Env = Record<string, string | undefined>;
+
+export interface MailCatcherSettings {
+  smtpPort: number;
+  httpPort: number;
+  dir: string;
+  host: string;
+}
 
 function portFromEnv(env: Env, name: string, fallback: number): number {
   const raw = env[name];
@@ -12,8 +19,8 @@ function portFromEnv(env: Env, name: string, fallback: number): number {
   return port;
 }
 
-/** The catcher's settings from MAIL_FAKE_SMTP_PORT, MAIL_FAKE_HTTP_PORT, MAIL_FAKE_DIR and MAIL_FAKE_HOST. */
-export function mailCatcherOptionsFromEnv(env: Env): MailCatcherOptions {
+/** The catcher's settings from MAIL_FAKE_SMTP_PORT, MAIL_FAKE_HTTP_PORT, MAIL_FAKE_DIR and MAIL_FAKE_HOST, defaults filled in. */
+export function mailCatcherOptionsFromEnv(env: Env): MailCatcherSettings {
   return {
     smtpPort: portFromEnv(env, 'MAIL_FAKE_SMTP_PORT', DEFAULT_SMTP_PORT),
     httpPort: portFromEnv(env, 'MAIL_FAKE_HTTP_PORT', DEFAULT_HTTP_PORT),

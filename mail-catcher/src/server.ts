@@ -9,7 +9,7 @@ import { createSmtpReceiver } from './smtp-receiver.ts';
 export const DEFAULT_SMTP_PORT = 2525;
 export const DEFAULT_HTTP_PORT = 2526;
 export const DEFAULT_DIR = 'data/mail-catcher';
-export const DEFAULT_SIZE_LIMIT = 25 * 1024 * 1024;
+const DEFAULT_SIZE_LIMIT = 25 * 1024 * 1024;
 
 export interface MailCatcherOptions {
   /** 0 picks a free port; read the chosen one from the result. Default 2525. */

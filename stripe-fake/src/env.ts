@@ -1,11 +1,18 @@
-import type { StripeFakeOptions } from './server.ts';
+import { DEFAULT_PORT, DEFAULT_WEBHOOK_SECRET } from './server.ts';
 
 /** The app's webhook route on the development server. */
-export const DEFAULT_WEBHOOK_URL = 'http://127.0.0.1:4321/api/v1/payments/webhook';
+const DEFAULT_WEBHOOK_URL = 'http://127.0.0.1:4321/api/v1/payments/webhook';
 
 type Env = Record<string, string | undefined>;
 
-export function portFromEnv(env: Env, name: string, fallback: number): number {
+export interface StripeFakeSettings {
+  port: number;
+  host: string;
+  webhookUrl: string | null;
+  webhookSecret: string;
+}
+
+function portFromEnv(env: Env, name: string, fallback: number): number {
   const raw = env[name];
   if (raw === undefined || raw === '') return fallback;
   const port = Number(raw);
@@ -16,24 +23,18 @@ export function portFromEnv(env: Env, name: string, fallback: number): number {
 }
 
 /**
- * The stand-in's settings from the environment: STRIPE_FAKE_PORT, STRIPE_FAKE_HOST,
- * STRIPE_FAKE_WEBHOOK_URL (empty for none) and STRIPE_WEBHOOK_SECRET.
+ * The stand-in's settings from STRIPE_FAKE_PORT, STRIPE_FAKE_HOST, STRIPE_FAKE_WEBHOOK_URL
+ * (set it empty for no deliveries) and STRIPE_WEBHOOK_SECRET, with the defaults filled in.
  */
-export function stripeFakeOptionsFromEnv(env: Env, fallbackPort: number): StripeFakeOptions {
+export function stripeFakeOptionsFromEnv(env: Env): StripeFakeSettings {
   const webhookUrl = env['STRIPE_FAKE_WEBHOOK_URL'] ?? DEFAULT_WEBHOOK_URL;
-  if (webhookUrl !== '') {
-    try {
-      new URL(webhookUrl);
-    } catch {
-      throw new Error(`STRIPE_FAKE_WEBHOOK_URL must be an absolute URL such as ${DEFAULT_WEBHOOK_URL}, got '${webhookUrl}'.`);
-    }
+  if (webhookUrl !== '' && !URL.canParse(webhookUrl)) {
+    throw new Error(`STRIPE_FAKE_WEBHOOK_URL must be an absolute URL such as ${DEFAULT_WEBHOOK_URL}, got '${webhookUrl}'.`);
   }
-  const options: StripeFakeOptions = {
-    port: portFromEnv(env, 'STRIPE_FAKE_PORT', fallbackPort),
+  return {
+    port: portFromEnv(env, 'STRIPE_FAKE_PORT', DEFAULT_PORT),
     host: env['STRIPE_FAKE_HOST'] || '127.0.0.1',
     webhookUrl: webhookUrl === '' ? null : webhookUrl,
+    webhookSecret: env['STRIPE_WEBHOOK_SECRET'] || DEFAULT_WEBHOOK_SECRET,
   };
-  const secret = env['STRIPE_WEBHOOK_SECRET'];
-  if (secret) options.webhookSecret = secret;
-  return options;
 }

@@ -13,7 +13,7 @@ import { WebhookDispatcher } from './webhook-dispatcher.ts';
 
 export const DEFAULT_PORT = 12111;
 export const DEFAULT_WEBHOOK_SECRET = 'whsec_railwright_dev';
-export const DEFAULT_RETRY_DELAYS_MS = [500, 1000, 2000, 4000] as const;
+const DEFAULT_RETRY_DELAYS_MS = [500, 1000, 2000, 4000] as const;
 
 export interface StripeFakeOptions {
   /** 0 picks a free port; read the chosen one from the result. Default 12111. */
@@ -93,7 +93,6 @@ export async function startStripeFake(options: StripeFakeOptions = {}): Promise<
     idempotency: new IdempotencyStore(),
     // Set once the port is known; no request can arrive before that.
     baseUrl: '',
-    log,
   };
   const server = createServer((request, response) => {
     route(services, request, response).catch((error: unknown) => {

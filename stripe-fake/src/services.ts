@@ -8,5 +8,4 @@ export interface FakeServices {
   events: EventLog;
   idempotency: IdempotencyStore;
   baseUrl: string;
-  log: (line: string) => void;
 }

@@ -57,11 +57,28 @@ describe('startFakes', () => {
       MAIL_FAKE_HTTP_PORT: String(httpPort),
       MAIL_FAKE_DIR: dir,
       STRIPE_FAKE_WEBHOOK_URL: '',
+      STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
     });
     try {
+      expect(fakes.webhookUrl).toBeNull();
+      expect(fakes.webhookSecret).toBe('whsec_from_env');
       expect(fakes.stripeUrl).toBe(`http://127.0.0.1:${stripePort}`);
       expect(fakes.smtpUrl).toBe(`smtp://127.0.0.1:${smtpPort}`);
       expect(fakes.mailApiUrl).toBe(`http://127.0.0.1:${httpPort}`);
+    } finally {
+      await fakes.close();
+    }
+  });
+
+  it('lets options win over the environment, and defaults the webhook to the dev server', async () => {
+    const fakes = await startFakes({ stripePort: 0, smtpPort: 0, mailHttpPort: 0, mailDir: dir, webhookSecret: 'whsec_option' }, {
+      STRIPE_FAKE_PORT: '1',
+      STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
+    });
+    try {
+      expect(fakes.stripeUrl).not.toBe('http://127.0.0.1:1');
+      expect(fakes.webhookSecret).toBe('whsec_option');
+      expect(fakes.webhookUrl).toBe('http://127.0.0.1:4321/api/v1/payments/webhook');
     } finally {
       await fakes.close();
     }
