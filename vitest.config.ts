@@ -26,6 +26,18 @@ export default getViteConfig({
           globalSetup: ['tests/integration/global-setup.ts'],
         },
       },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+          globalSetup: ['tests/integration/global-setup.ts'],
+        },
+      },
     ],
   },
 });

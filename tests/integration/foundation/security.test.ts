@@ -1,0 +1,68 @@
+import { describe, expect, inject, test } from 'vitest';
+import { DEMO, Visitor } from '../../support/client';
+
+const baseUrl = inject('baseUrl');
+
+describe('security on every answer', () => {
+  test.each(['/', '/sign-in', '/api/health', '/no-such-page'])('%s carries the security headers', async (path) => {
+    const response = await new Visitor(baseUrl).request(path);
+    const csp = response.headers.get('content-security-policy') ?? '';
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("default-src 'self'");
+    expect(response.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(response.headers.get('referrer-policy')).toBe('strict-origin-when-cross-origin');
+  });
+
+  test('an unknown page answers 404 with our page', async () => {
+    const response = await new Visitor(baseUrl).request('/no-such-page');
+    expect(response.status).toBe(404);
+    expect(await response.text()).toContain('Nothing here');
+  });
+
+  test('session cookies are httpOnly and SameSite=Lax, Secure in production', async () => {
+    const response = await fetch(new URL('/api/auth/sign-in/email', baseUrl), {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl },
+      body: JSON.stringify({ email: DEMO.client, password: 'railwright-demo' }),
+    });
+    const cookie = response.headers.getSetCookie().find((c) => c.includes('session_token')) ?? '';
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    // The built server runs as production: cookies are Secure and __Secure- prefixed.
+    expect(cookie).toMatch(/Secure/);
+    expect(cookie.startsWith('__Secure-')).toBe(true);
+  });
+
+  test('a state-changing request from another site is refused before anything runs', async () => {
+    const visitor = await new Visitor(baseUrl).signIn(DEMO.admin);
+    const response = await visitor.request('/admin/users', {
+      method: 'POST',
+      headers: { origin: 'https://attacker.example', 'content-type': 'application/x-www-form-urlencoded' },
+      body: 'userId=x&role=admin',
+    });
+    expect(response.status).toBe(403);
+    expect((await response.json()).error).toBe('cross_origin');
+    // Sandboxed frames and some redirects send `Origin: null`; that is not our site either.
+    const opaque = await visitor.request('/sign-out', { method: 'POST', headers: { origin: 'null' } });
+    expect(opaque.status).toBe(403);
+    expect((await visitor.request('/admin/users')).status).toBe(200);
+  });
+
+  test('sign-in is rate-limited per account and address', async () => {
+    const visitor = new Visitor(baseUrl);
+    const email = `limited-${Date.now()}@example.test`;
+    const statuses: number[] = [];
+    for (let i = 0; i < 10; i++) {
+      const response = await visitor.request('/api/auth/sign-in/email', { method: 'POST', json: { email, password: 'wrong-password' } });
+      statuses.push(response.status);
+    }
+    expect(statuses.slice(0, 8).every((s) => s === 401)).toBe(true);
+    expect(statuses.slice(8)).toEqual([429, 429]);
+    const limited = await visitor.request('/api/auth/sign-in/email', { method: 'POST', json: { email, password: 'wrong-password' } });
+    expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(0);
+    // The form page counts the same attempts and says so in words.
+    const form = await visitor.form('/sign-in', { email, password: 'wrong-password' });
+    expect(form.status).toBe(429);
+    expect(await form.text()).toContain('Too many attempts');
+  });
+});
