@@ -1,7 +1,9 @@
 import { count } from 'drizzle-orm';
 import type { Auth } from '../auth/create-auth';
 import type { Database } from '../db/connect';
-import { account, brief, clientProfile, rateCard, stateChange, user } from '../db/schema';
+import { defaultCatalog } from '../../engine/catalog';
+import { catalogToRows } from '../catalog-rows';
+import { account, brief, clientProfile, deviceClass, rateCard, stateChange, user } from '../db/schema';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD } from './scenario';
 import { lifecycleTo } from './lifecycle';
 
@@ -34,6 +36,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
       if (person.company) await tx.insert(clientProfile).values({ userId: id, company: person.company });
     }
     await tx.insert(rateCard).values({ ...DEMO_RATE_CARD, updatedBy: idOf('admin') });
+    await tx.insert(deviceClass).values(catalogToRows(defaultCatalog));
 
     for (const item of DEMO_BRIEFS) {
       const ownerId = idOf(item.owner);
