@@ -1,0 +1,41 @@
+// Entry point: design every topology for a brief and rank the options.
+import type { Brief } from './brief.ts';
+import { defaultCatalog, type Catalog } from './catalog.ts';
+import { makeContext, type Context } from './context.ts';
+import { assemble } from './assemble.ts';
+import type { Design } from './design.ts';
+import { compareOptions } from './scoring.ts';
+import { topologyIds, type Evaluation, type TopologyId } from './types.ts';
+import { designShunt } from './topologies/shunt.ts';
+import { designLinear } from './topologies/linear.ts';
+import { designLinearPredrop } from './topologies/linear-predrop.ts';
+import { designBuck } from './topologies/buck.ts';
+import { designBoost } from './topologies/boost.ts';
+import { designBuckBoost } from './topologies/buck-boost.ts';
+import { designBuckLinear } from './topologies/buck-linear.ts';
+
+export const DEFAULT_SEED = 0x5eed2026;
+
+const designers: Record<TopologyId, (ctx: Context) => Design> = {
+  shunt: designShunt,
+  linear: designLinear,
+  'linear-predrop': designLinearPredrop,
+  buck: designBuck,
+  boost: designBoost,
+  'buck-boost': designBuckBoost,
+  'buck+linear': designBuckLinear,
+};
+
+/** Each topology gets its own stream so its Monte Carlo does not depend on which others ran. */
+function topologySeed(seed: number, index: number): number {
+  return (seed + Math.imul(index + 1, 0x9e3779b9)) >>> 0;
+}
+
+export function evaluate(brief: Brief, catalog: Catalog = defaultCatalog): Evaluation {
+  const ctx = makeContext(brief, catalog);
+  const seed = brief.overrides.seed ?? DEFAULT_SEED;
+  const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
+  options.sort(compareOptions);
+  const best = options[0];
+  return { recommended: best && best.feasible ? best.topology : null, options };
+}

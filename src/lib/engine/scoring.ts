@@ -1,0 +1,54 @@
+// Sub-scores 0–100 and the weighted score; the ordering rule of the option list.
+import type { Brief } from './brief.ts';
+import { topologyIds, type Option, type SubScores } from './types.ts';
+
+const clamp = (v: number) => Math.min(100, Math.max(0, v));
+
+export interface ScoreInputs {
+  efficiencyNominal: number;
+  efficiencyWorst: number;
+  totalMaxW: number;
+  /** Smallest (Tj,max − Tj)/(Tj,max − Ta) over the parts with a junction; 1 when there are none. */
+  thermalMargin: number;
+  heatsinkRequired: boolean;
+  heatsinkImpractical: boolean;
+  partCount: number;
+  rippleVpp: number;
+  rippleLimitVpp: number;
+  costCents: number;
+}
+
+export function subScores(s: ScoreInputs): SubScores {
+  const ratio = s.rippleLimitVpp / Math.max(s.rippleVpp, s.rippleLimitVpp * 1e-3);
+  return {
+    efficiency: clamp(100 * (0.6 * s.efficiencyNominal + 0.4 * s.efficiencyWorst)),
+    heat: clamp(
+      100 * (0.5 * Math.min(1, Math.max(0, s.thermalMargin)) + 0.5 / (1 + s.totalMaxW)) -
+        (s.heatsinkRequired ? 15 : 0) -
+        (s.heatsinkImpractical ? 25 : 0),
+    ),
+    partCount: clamp(100 * (1 - (s.partCount - 2) / 20)),
+    // Ripple at the limit scores 50, ten times below it 75, a hundred times below 100.
+    noise: clamp(50 + 25 * Math.log10(ratio)),
+    cost: clamp(100 / (1 + s.costCents / 300)),
+  };
+}
+
+export function weightedScore(sub: SubScores, weights: Brief['weights']): number {
+  const total = weights.efficiency + weights.heat + weights.partCount + weights.noise + weights.cost;
+  const sum =
+    sub.efficiency * weights.efficiency +
+    sub.heat * weights.heat +
+    sub.partCount * weights.partCount +
+    sub.noise * weights.noise +
+    sub.cost * weights.cost;
+  // One decimal: enough to rank, and stable to print.
+  return Math.round((sum / total) * 10) / 10;
+}
+
+/** Feasible before infeasible, then higher score, then the fixed topology order. */
+export function compareOptions(a: Option, b: Option): number {
+  if (a.feasible !== b.feasible) return a.feasible ? -1 : 1;
+  if (a.score !== b.score) return b.score - a.score;
+  return topologyIds.indexOf(a.topology) - topologyIds.indexOf(b.topology);
+}

@@ -1,0 +1,63 @@
+// Buck converter to just above the rail, then a linear post-regulator that rejects the
+// switching ripple: efficiency close to a switcher's, noise close to a linear regulator's.
+import type { Context } from '../context.ts';
+import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
+import { Trace } from '../trace.ts';
+import { buckStage } from './buck.ts';
+import { chooseRegulatorClass, regulatorStage } from './regulator-stage.ts';
+
+/** Headroom kept above the post-regulator's dropout (common practice: a few hundred mV). */
+export const POST_REG_MARGIN_V = 0.3;
+
+export function designBuckLinear(ctx: Context): Design {
+  const { brief } = ctx;
+  const trace = new Trace();
+  const refs = new Refs();
+  const { iMin, iTyp, iMax, v: vTarget } = brief.output;
+
+  // The post-regulator class is chosen for a nearby intermediate rail; low dropout wins when it fits.
+  const probe = { vTrough: vTarget + 2.5, vMax: vTarget + 2.5, rippleVpp: 0, rippleIsHf: true };
+  const cls = chooseRegulatorClass(ctx, probe, vTarget, iMax, brief.overrides.linearClass).cls;
+  const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = Vout + Vdropout + margin', {
+    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'],
+  }, vTarget + cls.dropoutV + POST_REG_MARGIN_V, 'V');
+
+  // Divider current of the post-regulator loads the buck; estimate it from the class.
+  const iExtra = Math.max(cls.minLoadA, 100e-6) + cls.iAdjMaxA + cls.iqA;
+  const buck = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: brief.input.vMax }, vBusTarget, { iMin: iMin + iExtra, iTyp: iTyp + iExtra, iMax: iMax + iExtra }, brief.noise.maxRippleVpp * 10 ** (cls.psrrHfDb / 20), false, 'hybrid.buck');
+  // The bus tolerance comes from the buck's own feedback spread.
+  const busLow = buck.vOut * (1 - buck.stage.vFbTolerance - 0.02);
+  const busHigh = buck.vOut * (1 + buck.stage.vFbTolerance + 0.02);
+  const reg = regulatorStage(ctx, refs, trace, { vTrough: busLow - buck.rippleVpp / 2, vMax: busHigh, rippleVpp: buck.rippleVpp, rippleIsHf: true }, vTarget, iMax, cls.id);
+  const issues = [...buck.issues, ...reg.issues.filter((i) => i.code !== 'class-unknown')];
+  issues.push(info('hybrid', `The buck stage makes ${buck.vOut.toFixed(2)} V; ${reg.regRef} drops ${(buck.vOut - reg.vOut).toFixed(2)} V and rejects the switching ripple.`));
+
+  const operate = (vIn: number, iOut: number): OperatingPoint => {
+    const iBus = reg.inputCurrent(iOut);
+    const p = buck.point(vIn, iBus);
+    return {
+      regulates: p.d <= buck.stage.dMax && vIn > buck.vOut,
+      pInW: p.pInW,
+      pOutW: reg.vOut * iOut,
+      stress: { ...buck.stress(vIn, iBus), ...reg.stress(buck.vOut, iOut) },
+    };
+  };
+  const faultStress = { ...buck.stress(brief.input.vMax, reg.cls.iLimitA), ...reg.faultStress(buck.vOut) };
+  return {
+    topology: 'buck+linear',
+    label: `Buck converter with linear post-regulator (${reg.cls.label})`,
+    parts: [...buck.parts, ...reg.parts],
+    issues,
+    trace,
+    operate,
+    fault: { regulates: false, pInW: buck.point(brief.input.vMax, reg.cls.iLimitA).pInW, pOutW: 0, stress: faultStress },
+    output: reg.output,
+    rippleVpp: reg.rippleOutVpp,
+    assumptions: {
+      ...buck.assumptions,
+      ...reg.assumptions,
+      [`${reg.regRef}.vRef`]: { value: reg.cls.vRefV, unit: 'V' },
+      [`${reg.regRef}.psrrHf`]: { value: reg.cls.psrrHfDb, unit: 'dB' },
+    },
+  };
+}

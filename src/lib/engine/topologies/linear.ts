@@ -1,0 +1,68 @@
+// Three-terminal linear regulator straight from the input.
+import type { Context } from '../context.ts';
+import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
+import { Trace } from '../trace.ts';
+import { regulatorStage } from './regulator-stage.ts';
+
+export function designLinear(ctx: Context): Design {
+  const { brief } = ctx;
+  const trace = new Trace();
+  const refs = new Refs();
+  const { vMax } = brief.input;
+  const stage = regulatorStage(
+    ctx,
+    refs,
+    trace,
+    { vTrough: ctx.vInTrough, vMax, rippleVpp: brief.input.rippleVpp, rippleIsHf: false },
+    brief.output.v,
+    brief.output.iMax,
+    brief.overrides.linearClass,
+  );
+  const issues = [...stage.issues];
+  trace.add(
+    `${stage.regRef}.pmax`,
+    'Regulator worst dissipation',
+    'P = (vInMax − Vout)·(iOutMax + Idivider) + vInMax·Iq',
+    {
+      vInMax: [vMax, 'V'],
+      Vout: [stage.vOut, 'V'],
+      iOutMax: [brief.output.iMax, 'A'],
+      Idivider: [stage.divider?.iDivider ?? 0, 'A'],
+      Iq: [stage.cls.iqA, 'A'],
+    },
+    stage.stress(vMax, brief.output.iMax)[stage.regRef]!.w,
+    'W',
+  );
+  if (stage.cls.kind === 'adjustable') {
+    issues.push(info('min-load', `The divider draws ${((stage.divider?.iDivider ?? 0) * 1e3).toFixed(1)} mA so the regulator always has its minimum load.`));
+  }
+  issues.push(info('fault-protected', `${stage.regRef} limits current and shuts down when overheated, so a shorted output is survived; the heatsink is sized for normal operation.`));
+
+  const operate = (vIn: number, iOut: number): OperatingPoint => {
+    const iIn = stage.inputCurrent(iOut);
+    return {
+      regulates: vIn >= stage.vOut + stage.cls.dropoutV,
+      pInW: vIn * iIn,
+      pOutW: stage.vOut * iOut,
+      stress: stage.stress(vIn, iOut),
+    };
+  };
+  const fault: OperatingPoint = {
+    regulates: false,
+    pInW: vMax * stage.cls.iLimitA,
+    pOutW: 0,
+    stress: stage.faultStress(vMax),
+  };
+  return {
+    topology: 'linear',
+    label: `Linear regulator (${stage.cls.label})`,
+    parts: stage.parts,
+    issues,
+    trace,
+    operate,
+    fault,
+    output: stage.output,
+    rippleVpp: stage.rippleOutVpp,
+    assumptions: stage.assumptions,
+  };
+}

@@ -1,0 +1,171 @@
+// Series resistor feeding a Zener that holds the rail.
+import type { Context } from '../context.ts';
+import { forced } from '../context.ts';
+import { Refs, atLeast, blocker, caution, info, makePart, resistorPart, type Design, type OperatingPoint } from '../design.ts';
+import { snap } from '../eseries.ts';
+import { Trace } from '../trace.ts';
+import type { Issue } from '../types.ts';
+import { dynamicImpedance, seriesFor, seriesForPower, testCurrent, zenerVoltage } from '../zeners.ts';
+
+export interface ShuntSolution {
+  vOut: number;
+  iZener: number;
+  iSeries: number;
+}
+
+/**
+ * Operating point with the Zener modelled as its knee voltage plus rz: Vz(I) = Vk + rz·I, where
+ * Vk = Vz,nom − rz·Iz,test so the nominal voltage holds at the test current. With rz = 0 this is
+ * the textbook Iz = (Vin − Vz)/Rs − Iout.
+ */
+export function solveShunt(vIn: number, iOut: number, rs: number, vKnee: number, rz: number): ShuntSolution {
+  const iz = (vIn - vKnee - iOut * rs) / (rs + rz);
+  if (iz <= 0) {
+    // The Zener starves: the load takes all the current and the output sags.
+    const vOut = Math.max(0, vIn - iOut * rs);
+    return { vOut, iZener: 0, iSeries: (vIn - vOut) / rs };
+  }
+  const vOut = vKnee + rz * iz;
+  return { vOut, iZener: iz, iSeries: iz + iOut };
+}
+
+export function designShunt(ctx: Context): Design {
+  const { brief, catalog } = ctx;
+  const trace = new Trace();
+  const issues: Issue[] = [];
+  const refs = new Refs();
+  const { vMax, vNom } = brief.input;
+  const { iMin, iMax } = brief.output;
+  const rsRef = refs.next('R');
+  const dzRef = refs.next('D');
+
+  const vz = forced(ctx, dzRef) ?? zenerVoltage(brief.output.v);
+  trace.add('shunt.vz', 'Zener voltage (E24 nearest the rail)', 'Vz = E24(Vout)', { Vout: [brief.output.v, 'V'] }, vz, 'V');
+  let candidates = seriesFor(catalog, vz);
+  if (candidates.length === 0) {
+    issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
+    candidates = [...catalog.zenerSeries].sort((a, b) => b.vMaxV - a.vMaxV).slice(0, 1);
+  }
+
+  // Try each power series from the smallest: its knee current sets Rs, Rs sets the Zener's worst power.
+  let series = candidates[0]!;
+  let rs = 1;
+  let pzWorst = 0;
+  for (const s of candidates) {
+    const rsIdeal = (ctx.vInTrough - vz) / (iMax + s.kneeCurrentA);
+    rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), brief.overrides.resistorSeries ?? 'E24', 'down');
+    const rzS = dynamicImpedance(s, vz);
+    const knee = vz - rzS * testCurrent(s, vz);
+    const worst = solveShunt(vMax, iMin, rs, knee, rzS);
+    pzWorst = worst.vOut * worst.iZener;
+    series = s;
+    if (s === seriesForPower(candidates, pzWorst)) break;
+  }
+  const rz = dynamicImpedance(series, vz);
+  const iTest = testCurrent(series, vz);
+  const vKnee = vz - rz * iTest;
+  const rsTolerance = brief.overrides.resistorSeries === 'E96' ? 0.01 : 0.05;
+
+  trace.add(
+    'shunt.rs',
+    'Series resistor, snapped down so the Zener never starves',
+    'Rs = (vInTrough − Vz) / (iOutMax + IzKnee)',
+    { vInTrough: [ctx.vInTrough, 'V'], Vz: [vz, 'V'], iOutMax: [iMax, 'A'], IzKnee: [series.kneeCurrentA, 'A'] },
+    rs,
+    'Ω',
+  );
+  trace.add('shunt.rz', 'Zener dynamic impedance (typical)', 'rz = f(Vz) from the series table', { Vz: [vz, 'V'] }, rz, 'Ω');
+  const worst = solveShunt(vMax, iMin, rs, vKnee, rz);
+  trace.add(
+    'shunt.iz',
+    'Zener worst current (highest input, lightest load)',
+    'Iz = (vInMax − Vk − iOutMin·Rs) / (Rs + rz)',
+    { vInMax: [vMax, 'V'], Vk: [vKnee, 'V'], iOutMin: [iMin, 'A'], Rs: [rs, 'Ω'], rz: [rz, 'Ω'] },
+    worst.iZener,
+    'A',
+  );
+  trace.add('shunt.pz', 'Zener worst power', 'Pz = Vz·Iz', { Vz: [worst.vOut, 'V'], Iz: [worst.iZener, 'A'] }, pzWorst, 'W');
+  trace.add(
+    'shunt.prs.fault',
+    'Series resistor power with the output shorted',
+    'P = vInMax² / Rs',
+    { vInMax: [vMax, 'V'], Rs: [rs, 'Ω'] },
+    (vMax * vMax) / rs,
+    'W',
+  );
+
+  if (ctx.vInTrough <= vz) {
+    issues.push(blocker('headroom', `The lowest input (${ctx.vInTrough.toFixed(2)} V at the ripple trough) must exceed the Zener voltage ${vz} V.`));
+  }
+  const starved = solveShunt(ctx.vInTrough, iMax, rs, vKnee, rz);
+  if (starved.iZener < series.kneeCurrentA * 0.999) {
+    issues.push(blocker('zener-starved', `At the lowest input and highest load the Zener carries only ${(starved.iZener * 1e3).toFixed(2)} mA, below its knee.`));
+  }
+  issues.push(
+    info('light-load', 'A shunt regulator draws the same input current at every load; the Zener absorbs what the load does not take.'),
+  );
+  if (vMax * vMax / rs > 1) {
+    issues.push(caution('short-circuit', `A shorted output puts ${(vMax * vMax / rs).toFixed(2)} W into ${rsRef}; it is rated for that case.`));
+  }
+
+  const lineGain = rz / (rs + rz);
+  const rippleVpp = trace.add(
+    'shunt.ripple',
+    'Output ripple (line regulation times input ripple)',
+    'ΔVout = ΔVin · rz/(Rs + rz)',
+    { ΔVin: [brief.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rs: [rs, 'Ω'] },
+    brief.input.rippleVpp * lineGain,
+    'V',
+  );
+
+  const parts = [
+    resistorPart(rsRef, 'series-resistor', rs, rsTolerance, brief.overrides.resistorSeries ?? 'E24'),
+    makePart({
+      ref: dzRef,
+      role: 'zener',
+      part: series.label,
+      value: vz,
+      unit: 'V',
+      ratingW: series.powerW,
+      tolerance: series.tolerance,
+      costCents: series.costCents,
+      thermal: { thetaJcCW: series.thetaJaCW, thetaJaCW: series.thetaJaCW, tjMaxC: series.tjMaxC, heatsinkable: false, protectedInFault: false },
+    }),
+  ];
+
+  const operate = (vIn: number, iOut: number): OperatingPoint => {
+    const s = solveShunt(vIn, iOut, rs, vKnee, rz);
+    const vRs = vIn - s.vOut;
+    return {
+      regulates: s.iZener > 0,
+      pInW: vIn * s.iSeries,
+      pOutW: s.vOut * iOut,
+      stress: { [rsRef]: { w: vRs * s.iSeries, v: vRs }, [dzRef]: { w: s.vOut * s.iZener, v: s.vOut } },
+    };
+  };
+  const fault: OperatingPoint = {
+    regulates: false,
+    pInW: (vMax * vMax) / rs,
+    pOutW: 0,
+    stress: { [rsRef]: { w: (vMax * vMax) / rs, v: vMax }, [dzRef]: { w: 0, v: 0 } },
+  };
+
+  // Output spread: Zener tolerance, Rs tolerance, and the line/load corners through rz.
+  const zTol = series.tolerance;
+  const output = {
+    params: [
+      { name: 'Vz', nominal: vz, lo: vz * (1 - zTol), hi: vz * (1 + zTol) },
+      { name: 'Rs', nominal: rs, lo: rs * (1 - rsTolerance), hi: rs * (1 + rsTolerance) },
+      { name: 'vIn', nominal: vNom, lo: ctx.vInTrough, hi: vMax },
+      { name: 'iOut', nominal: brief.output.iTyp, lo: iMin, hi: iMax },
+    ],
+    f: (x: Float64Array) => solveShunt(x[2]!, x[3]!, x[1]!, x[0]! - rz * iTest, rz).vOut,
+  };
+
+  const assumptions = {
+    [`${dzRef}.rz`]: { value: rz, unit: 'Ω' },
+    [`${dzRef}.vKnee`]: { value: vKnee, unit: 'V' },
+    [`${dzRef}.iTest`]: { value: iTest, unit: 'A' },
+  };
+  return { topology: 'shunt', label: 'Zener shunt regulator', parts, issues, trace, operate, fault, output, rippleVpp, assumptions };
+}

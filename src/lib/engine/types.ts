@@ -1,0 +1,140 @@
+// The engine's result types: the JSON contract of the evaluate answer (names are stable).
+
+export const topologyIds = ['shunt', 'linear', 'linear-predrop', 'buck', 'boost', 'buck-boost', 'buck+linear'] as const;
+export type TopologyId = (typeof topologyIds)[number];
+
+export const componentRoles = [
+  'series-resistor',
+  'zener',
+  'regulator',
+  'feedback-lower',
+  'feedback-upper',
+  'pass-transistor',
+  'standoff-zener',
+  'bias-resistor',
+  'sense-resistor',
+  'inductor',
+  'switch',
+  'diode',
+  'input-capacitor',
+  'output-capacitor',
+  'bypass-capacitor',
+  'protection-diode',
+  'heatsink',
+] as const;
+export type ComponentRole = (typeof componentRoles)[number];
+
+export type Severity = 'blocker' | 'caution' | 'info';
+
+export interface Issue {
+  code: string;
+  severity: Severity;
+  message: string;
+}
+
+export interface Quantity {
+  value: number;
+  unit: string;
+}
+
+export interface TraceEntry {
+  id: string;
+  label: string;
+  equation: string;
+  inputs: Record<string, Quantity>;
+  result: Quantity;
+}
+
+export interface Component {
+  ref: string;
+  role: ComponentRole;
+  /** Part value in `unit`; null for parts identified by class alone (regulators, transistors). */
+  value: number | null;
+  unit: string | null;
+  ratingW: number | null;
+  ratingV: number | null;
+  tolerance: number | null;
+  /** Catalog class or a short description of the part. */
+  part: string;
+  /** Parts in a series string sharing the value (value is the string's total); 1 otherwise. */
+  quantity: number;
+  costCents: number;
+}
+
+export interface PartDissipation {
+  ref: string;
+  role: ComponentRole;
+  maxW: number;
+  faultW: number;
+}
+
+export interface Junction {
+  ref: string;
+  tjC: number;
+  tjMaxC: number;
+  heatsink: boolean;
+}
+
+export interface Histogram {
+  min: number;
+  max: number;
+  counts: number[];
+}
+
+export interface MonteCarloResult {
+  draws: number;
+  seed: number;
+  mean: number;
+  sigma: number;
+  fractionInTolerance: number;
+  histogram: Histogram;
+}
+
+export interface Curves {
+  /** Efficiency at iTyp and total dissipation at iMax; null where the option cannot run at that input. */
+  vIn: number[];
+  efficiency: (number | null)[];
+  dissipationW: (number | null)[];
+}
+
+export interface SubScores {
+  efficiency: number;
+  heat: number;
+  partCount: number;
+  noise: number;
+  cost: number;
+}
+
+export interface Caution {
+  code: string;
+  message: string;
+}
+
+export interface Option {
+  topology: TopologyId;
+  label: string;
+  feasible: boolean;
+  score: number;
+  subScores: SubScores;
+  issues: Issue[];
+  efficiency: { nominal: number; worst: number };
+  dissipation: { totalMaxW: number; parts: PartDissipation[] };
+  heatsink: { required: boolean; maxThetaSaCW: number | null };
+  junctions: Junction[];
+  partCount: number;
+  costCents: number;
+  outputRippleVpp: number;
+  vOutRange: { min: number; max: number };
+  monteCarlo: MonteCarloResult;
+  components: Component[];
+  curves: Curves;
+  cautions: Caution[];
+  /** Typical device parameters behind the figures: typical — confirm against the chosen part's data. */
+  assumptions: Record<string, Quantity>;
+  trace: TraceEntry[];
+}
+
+export interface Evaluation {
+  recommended: TopologyId | null;
+  options: Option[];
+}

@@ -1,0 +1,51 @@
+// Zener choice: E24 voltages inside a series' range, power series by the twice-the-dissipation
+// rule, and the dynamic impedance at the working point.
+import type { Catalog, ZenerSeries } from './catalog.ts';
+import { snap } from './eseries.ts';
+import { RATING_FACTOR } from './ratings.ts';
+
+/** The E24 voltage nearest the target (Zener voltages follow E24, common practice). */
+export function zenerVoltage(target: number): number {
+  return snap(Math.max(target, 1e-3), 'E24', 'nearest');
+}
+
+/** The E24 voltage at or above the target. */
+export function zenerVoltageUp(target: number): number {
+  return snap(Math.max(target, 1e-3), 'E24', 'up');
+}
+
+/** Dynamic impedance by voltage, interpolated log-log between the series' points. */
+export function dynamicImpedance(series: ZenerSeries, vz: number): number {
+  const pts = series.rzPoints;
+  const first = pts[0]!;
+  const last = pts[pts.length - 1]!;
+  if (vz <= first.v) return first.ohm;
+  if (vz >= last.v) return last.ohm * (vz / last.v);
+  for (let i = 1; i < pts.length; i += 1) {
+    const a = pts[i - 1]!;
+    const b = pts[i]!;
+    if (vz <= b.v) {
+      if (a.ohm <= 0 || b.ohm <= 0) return a.ohm + ((b.ohm - a.ohm) * (vz - a.v)) / (b.v - a.v);
+      const t = Math.log(vz / a.v) / Math.log(b.v / a.v);
+      return Math.exp(Math.log(a.ohm) + t * Math.log(b.ohm / a.ohm));
+    }
+  }
+  return last.ohm;
+}
+
+/** Test current convention of the series: a quarter of the rated power (from memory of data sheets). */
+export function testCurrent(series: ZenerSeries, vz: number): number {
+  return series.powerW / (4 * vz);
+}
+
+/** Series that offer this voltage, smallest power first. */
+export function seriesFor(catalog: Catalog, vz: number): ZenerSeries[] {
+  return catalog.zenerSeries
+    .filter((s) => vz >= s.vMinV * (1 - 1e-9) && vz <= s.vMaxV * (1 + 1e-9))
+    .sort((a, b) => a.powerW - b.powerW);
+}
+
+/** The smallest series whose rating is at least twice the worst power; the largest when none is. */
+export function seriesForPower(candidates: ZenerSeries[], worstW: number): ZenerSeries | null {
+  return candidates.find((s) => s.powerW >= RATING_FACTOR * worstW) ?? candidates[candidates.length - 1] ?? null;
+}
