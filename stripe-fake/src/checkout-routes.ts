@@ -19,11 +19,12 @@ function showClosed(response: ServerResponse, record: SessionRecord, status: num
 }
 
 async function pay(services: FakeServices, request: IncomingMessage, response: ServerResponse, record: SessionRecord): Promise<void> {
+  const form = new URLSearchParams(await readBody(request, FORM_LIMIT_BYTES));
+  // Checked after the body has arrived: a second pay posted meanwhile must not charge again.
   if (record.session.status !== 'open') {
     showClosed(response, record, 409);
     return;
   }
-  const form = new URLSearchParams(await readBody(request, FORM_LIMIT_BYTES));
   const outcome = payWithCard(services.state, record, form.get('card_number') ?? '');
   if (outcome.kind === 'refused') {
     sendHtml(response, 400, checkoutPage(record, outcome.message));

@@ -17,6 +17,7 @@ function page(title: string, body: string): string {
   body { font-family: system-ui, sans-serif; margin: 0; background: #f4f5f7; color: #1c1f24; }
   main { max-width: 30rem; margin: 2rem auto; background: #fff; border-radius: 8px; padding: 1.5rem 2rem; box-shadow: 0 1px 3px #0002; }
   .banner { background: #fff3c4; border: 1px solid #e0c050; border-radius: 6px; padding: .5rem .75rem; font-size: .9rem; }
+  h1 { font-size: 1.35rem; margin: 1rem 0 0; }
   .amount { font-size: 2rem; font-weight: 700; margin: .25rem 0 1rem; }
   table { width: 100%; border-collapse: collapse; margin-bottom: 1rem; }
   td { padding: .25rem 0; } td.sum { text-align: right; }

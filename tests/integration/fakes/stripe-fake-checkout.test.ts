@@ -196,6 +196,16 @@ describe('a successful payment', () => {
     expect(await response.text()).toContain('This payment is complete.');
   });
 
+  it('charges once when the pay form is posted twice at the same time', async () => {
+    const twice = await newSession('twice');
+    const statuses = (await Promise.all([pay(twice, SUCCESS_CARD), pay(twice, SUCCESS_CARD)])).map((response) => response.status);
+    expect(statuses.sort()).toEqual([303, 409]);
+    const completed = (await deliveries()).filter(
+      (delivery) => delivery.type === 'checkout.session.completed' && (delivery.event.data.object as { id: string }).id === twice.id,
+    );
+    expect(completed).toHaveLength(1);
+  });
+
   it('redelivers an event unchanged on request', async () => {
     const delivery = await deliveryOf('checkout.session.completed', session.id);
     const response = await fetch(`${fake.url}/__fake/events/${delivery?.id}/redeliver`, { method: 'POST' });
