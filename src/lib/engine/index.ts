@@ -4,4 +4,5 @@ export { briefSchema, briefIssues, noiseClassDefaults, defaultWeights, noiseClas
 export { catalogSchema, defaultCatalog, type Catalog } from './catalog.ts';
 export { formatSi, parseSi } from './units.ts';
 export { E_SERIES, snap, type SeriesName } from './eseries.ts';
+export { toSpiceNetlist, type SpiceCorner } from './spice.ts';
 export * from './types.ts';

@@ -217,6 +217,10 @@ export function buckStage(
     [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
   };
   if (!sync) assumptions[`${dRef}.vf`] = { value: stage.diodeVfV, unit: 'V' };
+  if (post) {
+    assumptions[`${post.inductorRef}.dcr`] = { value: post.dcrOhm, unit: 'Ω' };
+    assumptions[`${post.capRef}.esr`] = { value: post.esrOhm, unit: 'Ω' };
+  }
   const output = feedbackModel(stage, fb, post?.dcrOhm ?? 0, load.iMin, load.iTyp, load.iMax);
   return { stage, fsw, vOut, inductor, cout, post, parts, issues, switchRef, rippleVpp, output, assumptions, point, stress, faultStress };
 }

@@ -31,17 +31,23 @@ export function soaAllowedW(dev: PassDeviceClass, vce: number): number {
   return dev.soaPowerW * (vce / dev.soaKneeV) ** slope;
 }
 
-export function choosePassDevice(ctx: Context): { dev: PassDeviceClass; issue: Issue | null } {
-  const kind = ctx.brief.overrides.passDevice ?? 'npn';
-  const needV = SEMICONDUCTOR_VOLTAGE_FACTOR * ctx.brief.input.vMax;
-  const ofKind = ctx.catalog.passDevices.filter((d) => d.kind === kind).sort((a, b) => a.vMaxV - b.vMaxV);
-  const pool = ofKind.length > 0 ? ofKind : [...ctx.catalog.passDevices].sort((a, b) => a.vMaxV - b.vMaxV);
-  const fit = pool.find((d) => d.vMaxV >= needV && d.iMaxA >= ctx.brief.output.iMax * LIMIT_RATIO);
+/**
+ * The cheapest device (of the engineer's kind, if chosen) rated for the input with margin whose
+ * safe-operating-area hint carries a sustained short: about vInMax at the limit current.
+ */
+export function choosePassDevice(ctx: Context, faultA: number): { dev: PassDeviceClass; issue: Issue | null } {
+  const kind = ctx.brief.overrides.passDevice;
+  const { vMax } = ctx.brief.input;
+  const needV = SEMICONDUCTOR_VOLTAGE_FACTOR * vMax;
+  const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
+  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
+  const rated = pool.filter((d) => d.vMaxV >= needV && d.iMaxA >= faultA);
+  const fit = rated.find((d) => soaAllowedW(d, vMax) >= vMax * faultA) ?? rated[0];
   if (fit) return { dev: fit, issue: null };
-  const biggest = pool[pool.length - 1]!;
+  const biggest = pool.slice().sort((a, b) => b.vMaxV - a.vMaxV)[0]!;
   return {
     dev: biggest,
-    issue: blocker('pass-voltage', `The pass device must be rated ${needV.toFixed(0)} V and ${(ctx.brief.output.iMax * LIMIT_RATIO).toFixed(2)} A; the largest in the catalog is ${biggest.vMaxV} V, ${biggest.iMaxA} A.`),
+    issue: blocker('pass-voltage', `The pass device must be rated ${needV.toFixed(0)} V and ${faultA.toFixed(2)} A; the largest in the catalog is ${biggest.vMaxV} V, ${biggest.iMaxA} A.`),
   };
 }
 
@@ -55,12 +61,6 @@ export function designLinearPredrop(ctx: Context): Design {
   const series = brief.overrides.resistorSeries ?? 'E96';
 
   const qRef = refs.next('Q');
-  const { dev, issue: devIssue } = choosePassDevice(ctx);
-  if (devIssue) issues.push(devIssue);
-  const npn = dev.kind === 'npn';
-  const gain = npn ? dev.gainMin : Number.POSITIVE_INFINITY;
-  const vc = dev.vControlV;
-
   const adjustable = catalog.linearRegulators
     .filter((c) => c.kind === 'adjustable')
     .sort((a, b) => a.iOutMaxA - b.iOutMaxA || (a.vDiffMaxV ?? 0) - (b.vDiffMaxV ?? 0));
@@ -68,6 +68,11 @@ export function designLinearPredrop(ctx: Context): Design {
   const cls = forcedCls ?? adjustable.find((c) => c.iOutMaxA >= iMax) ?? adjustable[adjustable.length - 1] ?? catalog.linearRegulators[0]!;
   const r1 = brief.overrides.r1Ohm ?? snap(cls.vRefV / Math.max(cls.minLoadA, DIVIDER_MIN_A), series, 'down');
   const iPathMax = iMax + cls.vRefV / r1 + cls.iAdjTypA;
+  const { dev, issue: devIssue } = choosePassDevice(ctx, LIMIT_RATIO * iPathMax);
+  if (devIssue) issues.push(devIssue);
+  const npn = dev.kind === 'npn';
+  const gain = npn ? dev.gainMin : Number.POSITIVE_INFINITY;
+  const vc = dev.vControlV;
 
   // Standoff: the regulator keeps dropout + margin at full load after the sense resistor takes
   // its share, with the limit LIMIT_RATIO above the full-load current.
@@ -122,9 +127,11 @@ export function designLinearPredrop(ctx: Context): Design {
     issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
     zSeries = catalog.zenerSeries.slice(0, 1);
   }
-  const knee = Math.max(...zSeries.map((s) => s.kneeCurrentA));
-  const iBias = Math.max(BIAS_MIN_A, 1.5 * (ibNormal + knee));
-  const rbIdeal = (ctx.vInTrough - (vOut + vz)) / iBias;
+  const knee = Math.min(...zSeries.map((s) => s.kneeCurrentA));
+  const iBias = Math.max(BIAS_MIN_A, 1.5 * ibNormal + knee);
+  // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
+  const rbDrop = ctx.vInTrough - (vOut + vz) > 0 ? ctx.vInTrough - (vOut + vz) : Math.max(1, vMax - vOut - vz);
+  const rbIdeal = rbDrop / iBias;
   const rb = forced(ctx, rbRef) ?? snap(atLeast(rbIdeal, 1), 'E24', 'down');
   trace.add('predrop.rb', 'Bias resistor', 'Rb = (vInTrough − (Vout + Vz)) / Ibias', {
     vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Ibias: [iBias, 'A'],
@@ -152,7 +159,7 @@ export function designLinearPredrop(ctx: Context): Design {
     issues.push(blocker('zener-feed', `The standoff Zener feeds ${(zNormal.iz * 1e3).toFixed(1)} mA into the output at the highest input, more than the divider and the lightest load draw; the regulator cannot sink it.`));
   }
 
-  const vceFault = vMax - (vz - vc);
+  const vceFault = Math.max(0, vMax - (vz - vc));
   const pFault = trace.add('predrop.pq.fault', 'Pass device dissipation with the output shorted', 'P = (vInMax − (Vz − Vbe))·Ifault', {
     vInMax: [vMax, 'V'], Vz: [vz, 'V'], Vbe: [vc, 'V'], Ifault: [iFault, 'A'],
   }, vceFault * iFault, 'W');

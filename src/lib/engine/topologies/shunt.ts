@@ -1,7 +1,7 @@
 // Series resistor feeding a Zener that holds the rail.
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { Refs, atLeast, blocker, caution, info, makePart, resistorPart, type Design, type OperatingPoint } from '../design.ts';
+import { Refs, atLeast, blocker, info, makePart, resistorPart, type Design, type OperatingPoint } from '../design.ts';
 import { snap } from '../eseries.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
@@ -52,7 +52,9 @@ export function designShunt(ctx: Context): Design {
   let rs = 1;
   let pzWorst = 0;
   for (const s of candidates) {
-    const rsIdeal = (ctx.vInTrough - vz) / (iMax + s.kneeCurrentA);
+    // Without headroom (a blocker below) Rs is sized from the highest input so the figures stay sane.
+    const drop = ctx.vInTrough > vz ? ctx.vInTrough - vz : vMax > vz ? vMax - vz : vz;
+    const rsIdeal = drop / (iMax + s.kneeCurrentA);
     rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), brief.overrides.resistorSeries ?? 'E24', 'down');
     const rzS = dynamicImpedance(s, vz);
     const knee = vz - rzS * testCurrent(s, vz);
@@ -104,8 +106,8 @@ export function designShunt(ctx: Context): Design {
   issues.push(
     info('light-load', 'A shunt regulator draws the same input current at every load; the Zener absorbs what the load does not take.'),
   );
-  if (vMax * vMax / rs > 1) {
-    issues.push(caution('short-circuit', `A shorted output puts ${(vMax * vMax / rs).toFixed(2)} W into ${rsRef}; it is rated for that case.`));
+  if ((vMax * vMax) / rs > 1) {
+    issues.push(info('short-circuit', `A shorted output puts ${(vMax * vMax / rs).toFixed(2)} W into ${rsRef}; it is rated for that case.`));
   }
 
   const lineGain = rz / (rs + rz);

@@ -128,6 +128,7 @@ export interface PostFilter {
   inductorRef: string;
   capRef: string;
   dcrOhm: number;
+  esrOhm: number;
   attenuation: number;
   issues: Issue[];
 }
@@ -150,5 +151,5 @@ export function postFilter(refs: Refs, trace: Trace, catalog: Catalog, fsw: numb
     L: [chosen.henries, 'H'], C: [cap.farads, 'F'], ESR: [cap.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.sqrt(cap.esrOhm ** 2 + xc * xc) / Math.sqrt(cap.esrOhm ** 2 + (xl - xc) ** 2), '');
   issues.push(info('post-filter', `An LC post-filter (${lRef}, ${cap.part.ref}) attenuates the switching ripple by ${(20 * Math.log10(1 / attenuation)).toFixed(0)} dB for this quiet rail.`));
-  return { parts: [chosen.part, cap.part], inductorRef: lRef, capRef: cap.part.ref, dcrOhm: chosen.dcrOhm, attenuation, issues };
+  return { parts: [chosen.part, cap.part], inductorRef: lRef, capRef: cap.part.ref, dcrOhm: chosen.dcrOhm, esrOhm: cap.esrOhm, attenuation, issues };
 }

@@ -1,0 +1,183 @@
+// SPICE netlist export (ngspice dialect) of a designed option, with generic behavioural models
+// carrying the catalog's typical parameters. A netlist describes one operating corner.
+import { defaultCatalog, type Catalog } from './catalog.ts';
+import type { Component, Option } from './types.ts';
+import { buckPoint } from './topologies/buck.ts';
+
+export interface SpiceCorner {
+  vIn: number;
+  iOut: number;
+}
+
+/** Thermal voltage at 27 °C, the simulator's default temperature. */
+const VT = 0.025865;
+/** Transconductance of the behavioural error amplifier, A/V: large enough that its error is µV. */
+const ERROR_GM = 100;
+/** Open-loop transient: switching periods simulated and the tail averaged. */
+export const BUCK_PERIODS = 300;
+export const BUCK_AVERAGE_PERIODS = 50;
+
+const num = (x: number) => Number(x.toPrecision(9)).toString();
+
+function byRole(option: Option, role: Component['role']): Component[] {
+  return option.components.filter((c) => c.role === role);
+}
+
+function assumed(option: Option, key: string, fallback: number): number {
+  return option.assumptions[key]?.value ?? fallback;
+}
+
+/**
+ * Regulator as a behavioural pass element: a transconductance from the input to the output holds
+ * the sensed voltage at the reference (floating: OUT − ADJ; ground-referenced: FB), plus the
+ * adjust-pin and ground-pin currents. Ideal above dropout: the corners simulated keep headroom.
+ */
+function regulatorLines(option: Option, regRef: string, inNode: string, catalog: Catalog): string[] {
+  const u = option.components.find((c) => c.ref === regRef)!;
+  const cls = catalog.linearRegulators.find((c) => c.label === u.part);
+  const vRef = assumed(option, `${regRef}.vRef`, cls?.vRefV ?? 1.25);
+  const iAdj = assumed(option, `${regRef}.iAdj`, 0);
+  const iq = assumed(option, `${regRef}.iq`, 0);
+  const lower = byRole(option, 'feedback-lower')[0];
+  const upper = byRole(option, 'feedback-upper')[0];
+  const lines: string[] = [];
+  if (!cls || cls.kind === 'fixed' || !lower || !upper) {
+    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - V(out)`);
+  } else if (cls.kind === 'adjustable') {
+    // Floating reference between OUT and ADJ; R1 across it, R2 from ADJ to ground.
+    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - (V(out) - V(adj))`);
+    lines.push(`I${regRef}adj ${inNode} adj DC ${num(iAdj)}`);
+    lines.push(`R${lower.ref} out adj ${num(lower.value ?? 0)}`, `R${upper.ref} adj 0 ${num(upper.value ?? 0)}`);
+  } else {
+    // Ground-referenced feedback: R2 from OUT to FB, R1 from FB to ground.
+    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - V(adj)`);
+    lines.push(`I${regRef}fb adj 0 DC ${num(iAdj)}`);
+    lines.push(`R${upper.ref} out adj ${num(upper.value ?? 0)}`, `R${lower.ref} adj 0 ${num(lower.value ?? 0)}`);
+  }
+  lines.push(`G${regRef} ${inNode} out e_${regRef} 0 ${ERROR_GM}`);
+  if (iq > 0) lines.push(`I${regRef}q ${inNode} 0 DC ${num(iq)}`);
+  return lines;
+}
+
+function zenerModel(name: string, vKnee: number, rz: number, iNear: number): string {
+  // Sharp breakdown (NBV small) at the knee plus rz in series reproduces Vz(I) = Vk + rz·I.
+  return `.model ${name} D(BV=${num(vKnee)} IBV=${num(Math.max(iNear, 1e-6))} NBV=0.05 RS=${num(Math.max(rz, 1e-3))})`;
+}
+
+function shunt(option: Option, corner: SpiceCorner): string[] {
+  const rs = byRole(option, 'series-resistor')[0]!;
+  const dz = byRole(option, 'zener')[0]!;
+  const vKnee = assumed(option, `${dz.ref}.vKnee`, dz.value ?? 0);
+  const rz = assumed(option, `${dz.ref}.rz`, 0);
+  const iTest = assumed(option, `${dz.ref}.iTest`, 5e-3);
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
+    `D${dz.ref} 0 out DZ`,
+    zenerModel('DZ', vKnee, rz, iTest),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
+}
+
+function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const reg = byRole(option, 'regulator')[0]!;
+  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog), `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
+}
+
+function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const q = byRole(option, 'pass-transistor')[0]!;
+  const dz = byRole(option, 'standoff-zener')[0]!;
+  const rs = byRole(option, 'sense-resistor')[0]!;
+  const rb = byRole(option, 'bias-resistor')[0]!;
+  const reg = byRole(option, 'regulator')[0]!;
+  const dev = catalog.passDevices.find((d) => d.label === q.part);
+  const vc = assumed(option, `${q.ref}.vControl`, dev?.vControlV ?? 0.7);
+  const rz = assumed(option, `${dz.ref}.rz`, 0);
+  const iNominal = Math.max(corner.iOut, 1e-3);
+  const device =
+    dev?.kind === 'nmos'
+      ? [`M${q.ref} in b e e NHV`, `.model NHV NMOS(LEVEL=1 VTO=${num(vc - 0.5)} KP=${num((2 * iNominal) / 0.25)})`]
+      : [`Q${q.ref} in b e QHV`, `.model QHV NPN(BF=${num(dev?.gainMin ?? 10)} IS=${num(iNominal * Math.exp(-vc / VT))})`];
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    ...device,
+    `R${rb.ref} in b ${num(rb.value ?? 0)}`,
+    `D${dz.ref} out b DZ`,
+    zenerModel('DZ', (dz.value ?? 0) - rz * 5e-3, rz, 5e-3),
+    `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
+    ...regulatorLines(option, reg.ref, 'rin', catalog),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
+}
+
+function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const sw = byRole(option, 'switch')[0]!;
+  const stage = catalog.switchers.find((s) => s.label === sw.part);
+  if (!stage) throw new Error(`The catalog has no switcher stage "${sw.part}".`);
+  const [l1, l2] = byRole(option, 'inductor');
+  const couts = byRole(option, 'output-capacitor');
+  const c1 = couts[0]!;
+  const fsw = assumed(option, `${sw.ref}.fsw`, stage.fswDefaultHz);
+  const rds = assumed(option, `${sw.ref}.rdsOn`, stage.rdsOnOhm);
+  const dcr = assumed(option, `${l1!.ref}.dcr`, 0);
+  const esr = assumed(option, `${c1.ref}.esr`, 0);
+  const henries = l1!.value ?? 0;
+  const lower = byRole(option, 'feedback-lower')[0]!;
+  const upper = byRole(option, 'feedback-upper')[0]!;
+  const vOut = stage.vFbV * (1 + (upper.value ?? 0) / (lower.value ?? 1));
+  const p = buckPoint({ ...stage, rdsOnOhm: rds }, corner.vIn, vOut, corner.iOut, fsw, henries, dcr);
+  const period = 1 / fsw;
+  const edge = period / 200;
+  const ton = Math.max(0, p.d * period - edge);
+  const lines = [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    // Open loop at the engine's duty cycle; pulse width is measured between the edges' midpoints.
+    `Vg g 0 PULSE(0 1 0 ${num(edge)} ${num(edge)} ${num(ton)} ${num(period)})`,
+    `S1 in sw g 0 SWHI`,
+    `.model SWHI SW(VT=0.5 VH=0 RON=${num(rds)} ROFF=1e7)`,
+  ];
+  if (stage.rectification === 'sync') {
+    lines.push(`S2 sw 0 0 g SWLO`, `.model SWLO SW(VT=-0.5 VH=0 RON=${num(rds)} ROFF=1e7)`);
+  } else {
+    const vf = assumed(option, `${byRole(option, 'diode')[0]?.ref ?? 'D1'}.vf`, stage.diodeVfV);
+    lines.push(`Dcatch 0 sw DCATCH`, `.model DCATCH D(IS=${num(Math.max(corner.iOut, 1e-3) * Math.exp(-vf / VT))} N=1)`);
+  }
+  lines.push(
+    `L${l1!.ref} sw nl ${num(henries)} IC=${num(corner.iOut)}`,
+    `Vsense nl nl2 DC 0`,
+    `RL${l1!.ref} nl2 out ${num(dcr)}`,
+    `C${c1.ref} out nc1 ${num(c1.value ?? 0)} IC=${num(vOut)}`,
+    `RESR${c1.ref} nc1 0 ${num(Math.max(esr, 1e-6))}`,
+  );
+  let load = 'out';
+  if (l2 && couts[1]) {
+    const c2 = couts[1];
+    lines.push(
+      `L${l2.ref} out nf ${num(l2.value ?? 0)} IC=${num(corner.iOut)}`,
+      `RL${l2.ref} nf rail ${num(assumed(option, `${l2.ref}.dcr`, 0.01))}`,
+      `C${c2.ref} rail nc2 ${num(c2.value ?? 0)} IC=${num(vOut)}`,
+      `RESR${c2.ref} nc2 0 ${num(Math.max(assumed(option, `${c2.ref}.esr`, esr), 1e-6))}`,
+    );
+    load = 'rail';
+  }
+  lines.push(`Iload ${load} 0 DC ${num(corner.iOut)}`, `.tran ${num(period / 100)} ${num(BUCK_PERIODS * period)} 0 ${num(period / 100)} uic`);
+  return lines;
+}
+
+/** The netlist of an option at a corner; null for topologies without an export yet. */
+export function toSpiceNetlist(option: Option, corner: SpiceCorner, catalog: Catalog = defaultCatalog): string | null {
+  const body =
+    option.topology === 'shunt'
+      ? shunt(option, corner)
+      : option.topology === 'linear'
+        ? linear(option, corner, catalog)
+        : option.topology === 'linear-predrop'
+          ? predrop(option, corner, catalog)
+          : option.topology === 'buck'
+            ? buck(option, corner, catalog)
+            : null;
+  if (body === null) return null;
+  return [`* ${option.label} at ${num(corner.vIn)} V in, ${num(corner.iOut)} A out (generic models, typical parameters)`, ...body, '.end', ''].join('\n');
+}
