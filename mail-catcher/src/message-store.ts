@@ -15,7 +15,7 @@ export function newMessageId(now = Date.now()): string {
   return `${String(now).padStart(13, '0')}-${String(sequence).padStart(4, '0')}-${randomBytes(3).toString('hex')}`;
 }
 
-export function isMessageId(id: string): boolean {
+function isMessageId(id: string): boolean {
   return ID_PATTERN.test(id);
 }
 

@@ -9,7 +9,7 @@ import { newId } from './ids.ts';
 import type { FakeServices } from './services.ts';
 
 /** Used when a request names no version; it is the version the SDK in this repository pins. */
-export const DEFAULT_API_VERSION = '2026-10-28.endive';
+const DEFAULT_API_VERSION = '2026-10-28.endive';
 
 const BODY_LIMIT_BYTES = 1024 * 1024;
 

@@ -7,14 +7,14 @@ import type { LineItem, SessionRecord } from './objects.ts';
 import { createRefund } from './refunds.ts';
 import type { FakeServices } from './services.ts';
 
-export interface ApiRequest {
+interface ApiRequest {
   params: ParamHash;
   origin: EventOrigin;
   /** The path's captured ids, in order. */
   ids: string[];
 }
 
-export interface ApiResult {
+interface ApiResult {
   status: number;
   body: unknown;
 }

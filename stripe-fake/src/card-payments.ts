@@ -7,13 +7,13 @@ export const SUCCESS_CARD = '4242424242424242';
 export const DECLINE_CARD = '4000000000000002';
 export const DECLINE_MESSAGE = 'Your card was declined.';
 
-export type PaymentOutcome =
+type PaymentOutcome =
   | { kind: 'paid'; paymentIntent: PaymentIntent }
   | { kind: 'declined'; paymentIntent: PaymentIntent }
   | { kind: 'refused'; message: string };
 
 /** Card numbers may be typed in groups of four; only spaces are tolerated. */
-export function normaliseCardNumber(input: string): string {
+function normaliseCardNumber(input: string): string {
   return input.replace(/\s+/g, '');
 }
 

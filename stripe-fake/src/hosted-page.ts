@@ -1,7 +1,7 @@
 import { formatMinorUnits } from './currency.ts';
 import type { SessionRecord } from './objects.ts';
 
-export function escapeHtml(text: string): string {
+function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (char) => `&#${char.charCodeAt(0)};`);
 }
 

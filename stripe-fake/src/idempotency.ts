@@ -8,7 +8,7 @@ interface SavedResponse {
   savedAt: number;
 }
 
-export interface Replay {
+interface Replay {
   status: number;
   body: string;
 }

@@ -33,7 +33,6 @@ export interface StripeFakeOptions {
 export interface StripeFake {
   /** The base URL, e.g. http://127.0.0.1:12111; point the SDK's host and port at it. */
   url: string;
-  host: string;
   port: number;
   close(): Promise<void>;
 }
@@ -110,7 +109,6 @@ export async function startStripeFake(options: StripeFakeOptions = {}): Promise<
   services.baseUrl = `http://${host}:${address.port}`;
   return {
     url: services.baseUrl,
-    host,
     port: address.port,
     close: () =>
       new Promise<void>((resolve, reject) => {

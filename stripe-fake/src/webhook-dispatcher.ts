@@ -1,7 +1,7 @@
 import { unixNow } from './ids.ts';
 import { signatureHeader } from './webhook-signature.ts';
 
-export interface DeliveryAttempt {
+interface DeliveryAttempt {
   at: string;
   status: number | null;
   error: string | null;
@@ -16,7 +16,7 @@ export interface Delivery {
   delivered: boolean;
 }
 
-export interface WebhookTarget {
+interface WebhookTarget {
   url: string;
   secret: string;
   /** Waits before each retry; their count is the number of retries after the first attempt. */
@@ -33,10 +33,6 @@ export class WebhookDispatcher {
   private closed = false;
 
   constructor(private readonly target: WebhookTarget) {}
-
-  get url(): string {
-    return this.target.url;
-  }
 
   deliver(delivery: Delivery): void {
     void this.attempt(delivery, 0);
