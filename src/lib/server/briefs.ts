@@ -1,25 +1,38 @@
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { canMove, type Actor } from '../brief-states';
 import { db } from './db';
-import { brief, BRIEF_STATUSES, clientProfile, user, type BriefStatus } from './db/schema';
+import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from './db/schema';
 import { isStaff, type SignedInUser } from './guard';
 
 export interface BriefListQuery {
   status?: BriefStatus | undefined;
   q?: string | undefined;
+  ownerId?: string | undefined;
   page?: number;
   pageSize?: number;
+  sort?: BriefSort;
 }
+
+export const BRIEF_SORTS = ['updated', '-updated', 'submitted', '-submitted', 'title', '-title'] as const;
+export type BriefSort = (typeof BRIEF_SORTS)[number];
 
 export function isBriefStatus(value: unknown): value is BriefStatus {
   return typeof value === 'string' && (BRIEF_STATUSES as readonly string[]).includes(value);
 }
 
-/** Clients see their own briefs only; staff see every brief. Newest activity first. */
+function orderFor(sort: BriefSort) {
+  const column = sort.endsWith('title') ? brief.title : sort.endsWith('submitted') ? brief.submittedAt : brief.updatedAt;
+  // A leading '-' means newest/last first, the usual default for dates.
+  return sort.startsWith('-') ? [desc(column), desc(brief.id)] : [column, brief.id];
+}
+
+/** Clients see their own briefs only; staff see every brief. Newest activity first by default. */
 export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {}) {
   const page = Math.max(1, query.page ?? 1);
   const pageSize = Math.min(100, Math.max(1, query.pageSize ?? 25));
   const where: SQL[] = [];
   if (!isStaff(viewer)) where.push(eq(brief.ownerId, viewer.id));
+  else if (query.ownerId) where.push(eq(brief.ownerId, query.ownerId));
   if (query.status) where.push(eq(brief.status, query.status));
   if (query.q) {
     const pattern = `%${query.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
@@ -37,6 +50,7 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
         id: brief.id,
         title: brief.title,
         status: brief.status,
+        ownerId: brief.ownerId,
         recommendedTopology: brief.recommendedTopology,
         summary: brief.summary,
         submittedAt: brief.submittedAt,
@@ -48,7 +62,7 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
       .innerJoin(user, eq(user.id, brief.ownerId))
       .leftJoin(clientProfile, eq(clientProfile.userId, brief.ownerId))
       .where(condition)
-      .orderBy(desc(brief.updatedAt), desc(brief.id))
+      .orderBy(...orderFor(query.sort ?? '-updated'))
       .limit(pageSize)
       .offset((page - 1) * pageSize),
     db
@@ -59,4 +73,79 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
       .where(condition),
   ]);
   return { rows, total: Number(totals[0]?.n ?? 0), page, pageSize };
+}
+
+export type BriefRow = typeof brief.$inferSelect;
+
+/**
+ * The brief if this viewer may see it, else null — the caller answers 404 either
+ * way, so a client never learns that another client's brief exists.
+ */
+export async function findBriefFor(viewer: SignedInUser, id: string): Promise<BriefRow | null> {
+  const [row] = await db.select().from(brief).where(eq(brief.id, id)).limit(1);
+  if (!row) return null;
+  if (!isStaff(viewer) && row.ownerId !== viewer.id) return null;
+  return row;
+}
+
+export async function briefDetail(row: BriefRow) {
+  const [files, history, owner] = await Promise.all([
+    db
+      .select({
+        id: briefFile.id,
+        kind: briefFile.kind,
+        name: briefFile.originalName,
+        mimeType: briefFile.mimeType,
+        sizeBytes: briefFile.sizeBytes,
+        loadSummary: briefFile.loadSummary,
+        createdAt: briefFile.createdAt,
+      })
+      .from(briefFile)
+      .where(eq(briefFile.briefId, row.id))
+      .orderBy(briefFile.createdAt),
+    db
+      .select({ from: stateChange.fromStatus, to: stateChange.toStatus, at: stateChange.createdAt, by: user.name, note: stateChange.note })
+      .from(stateChange)
+      .leftJoin(user, eq(user.id, stateChange.actorId))
+      .where(and(eq(stateChange.subjectType, 'brief'), eq(stateChange.subjectId, row.id)))
+      .orderBy(stateChange.createdAt),
+    db
+      .select({ name: user.name, email: user.email, company: clientProfile.company })
+      .from(user)
+      .leftJoin(clientProfile, eq(clientProfile.userId, user.id))
+      .where(eq(user.id, row.ownerId))
+      .limit(1),
+  ]);
+  return { ...row, owner: owner[0] ?? null, files, history };
+}
+
+export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wrong_state'; message: string };
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * Moves a brief to a new state and records who did it, inside the caller's
+ * transaction. The update is conditional on the state read, so two racing
+ * moves cannot both win.
+ */
+export async function moveBrief(
+  tx: Tx,
+  row: BriefRow,
+  to: BriefStatus,
+  actor: Actor,
+  actorId: string | null,
+  note = '',
+  extra: Partial<typeof brief.$inferInsert> = {},
+): Promise<MoveOutcome> {
+  if (!canMove(row.status, to, actor)) {
+    return { ok: false, reason: 'wrong_state', message: `A brief that is ${row.status} cannot move to ${to}.` };
+  }
+  const [updated] = await tx
+    .update(brief)
+    .set({ status: to, updatedAt: new Date(), ...extra })
+    .where(and(eq(brief.id, row.id), eq(brief.status, row.status)))
+    .returning();
+  if (!updated) return { ok: false, reason: 'wrong_state', message: 'The brief changed state meanwhile; reload and try again.' };
+  await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId, note });
+  return { ok: true, row: updated };
 }

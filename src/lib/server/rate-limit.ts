@@ -31,4 +31,6 @@ export const RATE_RULES = {
   signInPerAccount: { max: 8, windowMs: 10 * 60_000 },
   /** Per address across all e-mails: stops one machine trying many accounts. */
   signInPerAddress: { max: 60, windowMs: 10 * 60_000 },
+  /** Generous enough for a wizard re-ranking as someone types; stops a script hammering the engine. */
+  evaluatePerAddress: { max: 600, windowMs: 60_000 },
 } satisfies Record<string, RateRule>;

@@ -4,6 +4,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { BRIEF_STATUSES, type BriefStatus } from '../../brief-status';
 import { user } from './auth-schema';
 
 export * from './auth-schema';
@@ -17,20 +18,7 @@ const updatedAt = () =>
     .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`)
     .$onUpdateFn(() => new Date());
 
-export const BRIEF_STATUSES = [
-  'draft',
-  'submitted',
-  'in-review',
-  'quoted',
-  'accepted',
-  'deposit-paid',
-  'in-design',
-  'delivered',
-  'declined',
-  'expired',
-  'cancelled',
-] as const;
-export type BriefStatus = (typeof BRIEF_STATUSES)[number];
+export { BRIEF_STATUSES, type BriefStatus };
 
 export const QUOTE_STATUSES = ['draft', 'sent', 'accepted', 'deposit-paid', 'expired', 'withdrawn'] as const;
 export type QuoteStatus = (typeof QUOTE_STATUSES)[number];

@@ -1,0 +1,41 @@
+import type { APIRoute } from 'astro';
+import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/brief-requests';
+import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/server/brief-actions';
+import { briefDetailJson, briefJson } from '~/lib/server/brief-json';
+import { briefDetail, findBriefFor, type BriefRow } from '~/lib/server/briefs';
+import { ANY_ROLE, guardApi, isStaff } from '~/lib/server/guard';
+import { apiError, invalid, json, notFound, readJson } from '~/lib/server/http';
+import { zodIssues } from '~/lib/server/validation';
+
+export const GET: APIRoute = async (context) => {
+  const gate = guardApi(context, ANY_ROLE);
+  if (!gate.ok) return gate.response;
+  const row = await findBriefFor(gate.user, context.params.id ?? '');
+  if (!row) return notFound();
+  return json(briefDetailJson(await briefDetail(row)));
+};
+
+function answer(result: ActionResult<BriefRow>): Response {
+  if (result.ok) return json(briefJson(result.value));
+  if (result.status === 400) return invalid(result.error, result.issues);
+  return apiError(result.status, result.status === 409 ? 'wrong_state' : 'forbidden', { message: result.message });
+}
+
+/** Owners edit their drafts (or submit / cancel); staff move the state. */
+export const PATCH: APIRoute = async (context) => {
+  const body = await readJson(context.request);
+  if (!body.ok) return body.response;
+  const gate = guardApi(context, ANY_ROLE);
+  if (!gate.ok) return gate.response;
+  const row = await findBriefFor(gate.user, context.params.id ?? '');
+  if (!row) return notFound();
+
+  if (isStaff(gate.user)) {
+    const parsed = staffBriefPatchSchema.safeParse(body.value);
+    if (!parsed.success) return invalid('invalid_body', zodIssues(parsed.error));
+    return answer(await moveAsStaff(gate.user, row, parsed.data.status, parsed.data.note));
+  }
+  const parsed = clientBriefPatchSchema.safeParse(body.value);
+  if (!parsed.success) return invalid('invalid_body', zodIssues(parsed.error));
+  return answer(await editOwnBrief(gate.user, row, parsed.data));
+};

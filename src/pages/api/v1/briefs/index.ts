@@ -1,0 +1,42 @@
+import type { APIRoute } from 'astro';
+import { briefListQuerySchema, createBriefSchema } from '~/lib/brief-requests';
+import { createBrief } from '~/lib/server/brief-actions';
+import { briefJson } from '~/lib/server/brief-json';
+import { listBriefs } from '~/lib/server/briefs';
+import { ANY_ROLE, guardApi } from '~/lib/server/guard';
+import { apiError, invalid, json } from '~/lib/server/http';
+import { parseBody, zodIssues } from '~/lib/server/validation';
+
+export const GET: APIRoute = async (context) => {
+  const query = briefListQuerySchema.safeParse(Object.fromEntries(context.url.searchParams));
+  if (!query.success) return invalid('invalid_query', zodIssues(query.error));
+  const gate = guardApi(context, ANY_ROLE);
+  if (!gate.ok) return gate.response;
+  const { status, q, client, page, pageSize, sort } = query.data;
+  const list = await listBriefs(gate.user, { status, q, ownerId: client, page, pageSize, sort });
+  return json({
+    items: list.rows.map((row) => ({
+      id: row.id,
+      title: row.title,
+      status: row.status,
+      client: { id: row.ownerId, name: row.clientName, company: row.company },
+      recommendedTopology: row.recommendedTopology,
+      summary: row.summary,
+      submittedAt: row.submittedAt?.toISOString() ?? null,
+      updatedAt: row.updatedAt.toISOString(),
+    })),
+    total: list.total,
+    page: list.page,
+    pageSize: list.pageSize,
+  });
+};
+
+export const POST: APIRoute = async (context) => {
+  const body = await parseBody(context.request, createBriefSchema);
+  if (!body.ok) return body.response;
+  const gate = guardApi(context, ['client']);
+  if (!gate.ok) return gate.response;
+  const created = await createBrief(gate.user, body.value);
+  if (!created.ok) return created.status === 400 ? invalid(created.error, created.issues) : apiError(created.status, 'wrong_state', { message: created.message });
+  return json(briefJson(created.value), 201, { location: `/api/v1/briefs/${created.value.id}` });
+};

@@ -1,0 +1,16 @@
+import type { APIRoute } from 'astro';
+import { briefIssues, briefSchema, evaluate } from '~/lib/engine';
+import { currentCatalog } from '~/lib/server/catalog';
+import { invalid, json, readJson, tooMany } from '~/lib/server/http';
+import { limitEvaluate } from '~/lib/server/evaluate-limit';
+
+/** Ranks the options for a brief; anyone may call it (rate-limited), nothing is stored. */
+export const POST: APIRoute = async (context) => {
+  const limited = await limitEvaluate(context.clientAddress);
+  if (!limited.allowed) return tooMany(limited.retryAfterSeconds);
+  const body = await readJson(context.request, 32 * 1024);
+  if (!body.ok) return body.response;
+  const parsed = briefSchema.safeParse(body.value);
+  if (!parsed.success) return invalid('invalid_brief', briefIssues(parsed.error));
+  return json(evaluate(parsed.data, await currentCatalog()));
+};
