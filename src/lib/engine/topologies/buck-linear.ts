@@ -4,7 +4,7 @@ import type { Context } from '../context.ts';
 import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
 import { Trace } from '../trace.ts';
 import { buckStage } from './buck.ts';
-import { chooseRegulatorClass, regulatorStage } from './regulator-stage.ts';
+import { checkClass, chooseRegulatorClass, regulatorStage } from './regulator-stage.ts';
 
 /** Headroom kept above the post-regulator's dropout (common practice: a few hundred mV). */
 export const POST_REG_MARGIN_V = 0.3;
@@ -15,9 +15,14 @@ export function designBuckLinear(ctx: Context): Design {
   const refs = new Refs();
   const { iMin, iTyp, iMax, v: vTarget } = brief.output;
 
-  // The post-regulator class is chosen for a nearby intermediate rail; low dropout wins when it fits.
+  // The post-regulator only has to drop its own headroom: of the classes that fit a nearby
+  // intermediate rail, the lowest dropout wastes least.
   const probe = { vTrough: vTarget + 2.5, vMax: vTarget + 2.5, rippleVpp: 0, rippleIsHf: true };
-  const cls = chooseRegulatorClass(ctx, probe, vTarget, iMax, brief.overrides.linearClass).cls;
+  const fitting = ctx.catalog.linearRegulators
+    .filter((c) => checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget))
+    .sort((a, b) => a.dropoutV - b.dropoutV);
+  const forcedCls = ctx.catalog.linearRegulators.find((c) => c.id === brief.overrides.linearClass);
+  const cls = forcedCls ?? fitting[0] ?? chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls;
   const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = Vout + Vdropout + margin', {
     Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'],
   }, vTarget + cls.dropoutV + POST_REG_MARGIN_V, 'V');
