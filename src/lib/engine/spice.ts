@@ -60,7 +60,8 @@ function regulatorLines(option: Option, regRef: string, inNode: string, catalog:
 }
 
 function zenerModel(name: string, vKnee: number, rz: number, iNear: number): string {
-  // Sharp breakdown (NBV small) at the knee plus rz in series reproduces Vz(I) = Vk + rz·I.
+  // A steep breakdown (NBV 0.05: about 3 mV per decade of current) at the knee, with rz in series,
+  // reproduces Vz(I) = Vk + rz·I exactly at IBV and within millivolts across the working range.
   return `.model ${name} D(BV=${num(vKnee)} IBV=${num(Math.max(iNear, 1e-6))} NBV=0.05 RS=${num(Math.max(rz, 1e-3))})`;
 }
 
