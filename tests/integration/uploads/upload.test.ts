@@ -107,6 +107,15 @@ describe('refused uploads', () => {
     expect(body.message).toContain('Accepted: PDF, PNG, JPEG, WebP and GIF files');
   });
 
+  test.each([
+    ['a zip archive named .pdf', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0, 8, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0]), 'schematics.pdf', 'datasheet', 'ZIP'],
+    ['an HTML page named .csv as a load log', new TextEncoder().encode('<!doctype html><script>alert(1)</script>'), 'log.csv', 'load-log', 'markup'],
+    ['a PDF declared as a load log', fixture('datasheet.pdf'), 'log.csv', 'load-log', 'A load log must be a CSV text file'],
+  ])('%s: 415', async (_case, bytes, name, kind, said) => {
+    const body = await expectRefusal(() => upload(owner, soil, { bytes, name, kind }), 415);
+    expect(body.message).toContain(said);
+  });
+
   test('an SVG named .png: 415', async () => {
     const svg = new TextEncoder().encode('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>');
     const body = await expectRefusal(() => upload(owner, soil, { bytes: svg, name: 'logo.png', kind: 'photo', type: 'image/png' }), 415);
@@ -167,6 +176,21 @@ describe('refused uploads', () => {
       { path: 'file', message: 'Choose a file to upload (the form field "file").' },
       { path: 'kind', message: 'Choose a kind: schematic, datasheet, photo, load-log, other.' },
     ]);
+  });
+
+  test('two files in one upload: 400', async () => {
+    const form = uploadForm({ bytes: fixture('datasheet.pdf'), name: 'a.pdf' });
+    form.append('file', new Blob([fixture('photo.png') as Uint8Array<ArrayBuffer>]), 'b.png');
+    const body = await expectRefusal(() => owner.request(`/api/v1/briefs/${soil}/files`, { method: 'POST', body: form }), 400);
+    expect(body.issues).toEqual([{ path: 'file', message: 'Send one file per upload.' }]);
+  });
+
+  test('a multipart body that does not parse: 400', async () => {
+    const body = await expectRefusal(
+      () => owner.request(`/api/v1/briefs/${soil}/files`, { method: 'POST', headers: { 'content-type': 'multipart/form-data; boundary=abc' }, body: 'not multipart at all' }),
+      400,
+    );
+    expect(body).toEqual({ error: 'invalid_upload', issues: [{ path: '', message: 'The upload could not be read as multipart/form-data.' }] });
   });
 
   test('a load log that cannot be reduced: 400 with the reducer’s message', async () => {

@@ -61,12 +61,11 @@ export async function readUploadForm(request: Request): Promise<UploadForm> {
 
   const issues: FieldIssue[] = [];
   const files = form.getAll('file');
-  const file = files[0];
-  if (files.length > 1) issues.push({ path: 'file', message: 'Send one file per upload.' });
-  else if (!(file instanceof File)) issues.push({ path: 'file', message: 'Choose a file to upload (the form field "file").' });
+  const file = files.length === 1 && files[0] instanceof File ? files[0] : null;
+  if (!file) issues.push({ path: 'file', message: files.length > 1 ? 'Send one file per upload.' : 'Choose a file to upload (the form field "file").' });
   const kindValue = form.get('kind');
   const kind = kindSchema.safeParse(kindValue === null || kindValue === '' ? undefined : kindValue);
   if (!kind.success) issues.push({ path: 'kind', message: kind.error.issues[0]?.message ?? 'Choose a valid kind.' });
-  if (issues.length > 0 || !(file instanceof File) || !kind.success) return { ok: false, response: invalid('invalid_upload', issues) };
+  if (!file || !kind.success) return { ok: false, response: invalid('invalid_upload', issues) };
   return { ok: true, file, kind: kind.data };
 }
