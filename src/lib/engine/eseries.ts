@@ -41,21 +41,24 @@ export function snap(value: number, series: SeriesName, mode: SnapMode = 'neares
   const table = E_SERIES[series];
   const decade = Math.floor(Math.log10(value));
   // Candidates from the decade below to the decade above cover every edge case of rounding.
-  let best = Number.NaN;
+  let bestM = 1;
+  let bestD = decade;
   let bestScore = Number.POSITIVE_INFINITY;
   for (let d = decade - 1; d <= decade + 1; d += 1) {
+    const scale = 10 ** d;
     for (const m of table) {
-      const candidate = scaled(m, d);
+      const candidate = m * scale;
       if (mode === 'down' && candidate > value * (1 + SLACK)) continue;
       if (mode === 'up' && candidate < value * (1 - SLACK)) continue;
-      const score = Math.abs(Math.log(candidate / value));
-      if (score < bestScore) {
-        bestScore = score;
-        best = candidate;
+      const ratio = candidate > value ? candidate / value : value / candidate;
+      if (ratio < bestScore) {
+        bestScore = ratio;
+        bestM = m;
+        bestD = d;
       }
     }
   }
-  return best;
+  return scaled(bestM, bestD);
 }
 
 /** The series members between lo and hi (inclusive), in ascending order. */

@@ -56,5 +56,9 @@ export function dividerModel(
       { name: 'Iadj', nominal: iAdjTyp, lo: iAdjMin, hi: iAdjMax },
     ],
     f: (x: Float64Array) => x[0]! * (1 + x[2]! / x[1]!) + x[3]! * x[2]!,
+    batch: (c, out) => {
+      const [vr, a, b, ia] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
+      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * (1 + b[i]! / a[i]!) + ia[i]! * b[i]!;
+    },
   };
 }

@@ -149,6 +149,7 @@ export function regulatorStage(
     output = {
       params: [{ name: 'Vout', nominal: cls.vRefV, lo: cls.vRefV * (1 - cls.vRefTolerance), hi: cls.vRefV * (1 + cls.vRefTolerance) }],
       f: (x: Float64Array) => x[0]!,
+      batch: (c, out) => out.set(c[0]!),
     };
   } else {
     r1Ref = refs.next('R');

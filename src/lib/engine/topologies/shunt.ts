@@ -18,6 +18,12 @@ export interface ShuntSolution {
  * Vk = Vz,nom − rz·Iz,test so the nominal voltage holds at the test current. With rz = 0 this is
  * the textbook Iz = (Vin − Vz)/Rs − Iout.
  */
+/** Output voltage alone, without allocating (the Monte Carlo calls it per draw). */
+export function shuntVout(vIn: number, iOut: number, rs: number, vKnee: number, rz: number): number {
+  const iz = (vIn - vKnee - iOut * rs) / (rs + rz);
+  return iz <= 0 ? Math.max(0, vIn - iOut * rs) : vKnee + rz * iz;
+}
+
 export function solveShunt(vIn: number, iOut: number, rs: number, vKnee: number, rz: number): ShuntSolution {
   const iz = (vIn - vKnee - iOut * rs) / (rs + rz);
   if (iz <= 0) {
@@ -161,7 +167,11 @@ export function designShunt(ctx: Context): Design {
       { name: 'vIn', nominal: vNom, lo: ctx.vInTrough, hi: vMax },
       { name: 'iOut', nominal: brief.output.iTyp, lo: iMin, hi: iMax },
     ],
-    f: (x: Float64Array) => solveShunt(x[2]!, x[3]!, x[1]!, x[0]! - rz * iTest, rz).vOut,
+    f: (x: Float64Array) => shuntVout(x[2]!, x[3]!, x[1]!, x[0]! - rz * iTest, rz),
+    batch: (c: readonly Float64Array[], out: Float64Array) => {
+      const [z, r, v, i] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
+      for (let k = 0; k < out.length; k += 1) out[k] = shuntVout(v[k]!, i[k]!, r[k]!, z[k]! - rz * iTest, rz);
+    },
   };
 
   const assumptions = {

@@ -120,6 +120,10 @@ export function feedbackModel(stage: SwitcherClass, fb: FeedbackParts, dcrAfterF
       { name: 'iOut', nominal: iTyp, lo: iMin, hi: iMax },
     ],
     f: (x: Float64Array) => x[0]! * (1 + x[2]! / x[1]!) - x[3]! * dcrAfterFb,
+    batch: (c, out) => {
+      const [vr, a, b, io] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
+      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * (1 + b[i]! / a[i]!) - io[i]! * dcrAfterFb;
+    },
   };
 }
 
