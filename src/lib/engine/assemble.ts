@@ -4,7 +4,7 @@ import type { Context } from './context.ts';
 import { CURVE_POINTS, curveInputs, normalCorners } from './corners.ts';
 import { blocker, caution, makePart, type Design, type DesignPart, type OperatingPoint } from './design.ts';
 import { hazardousVoltage, hotSurfaces, mainsScope, storedEnergy, HOT_RESISTOR_W, type HotPart } from './cautions.ts';
-import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, rateResistor } from './ratings.ts';
+import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, ZENER_POWER_W, rateResistor, ratingFor } from './ratings.ts';
 import { subScores, weightedScore } from './scoring.ts';
 import { airflowFactor, assessThermal } from './thermal.ts';
 import { extremeValues, monteCarlo } from './tolerance.ts';
@@ -80,7 +80,10 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     } else if (ZENER_ROLES.has(p.role) && p.ratingW !== null) {
       const worst = Math.max(s.maxW, s.faultW);
       if (p.ratingW < RATING_FACTOR * worst) {
-        issues.push(blocker('rating', `${p.ref} would dissipate ${worst.toFixed(2)} W; the largest Zener series (${p.ratingW} W) is less than twice that.`));
+        const needed = ratingFor(ZENER_POWER_W, worst);
+        issues.push(
+          blocker('rating', `${p.ref} would dissipate ${worst.toFixed(2)} W and needs a ${needed === null ? `${(2 * worst).toFixed(1)} W` : `${needed} W`} Zener; the catalog's largest fitting series is ${p.ratingW} W.`),
+        );
       }
     } else if (p.role === 'pass-transistor' && p.ratingV !== null && p.ratingV < SEMICONDUCTOR_VOLTAGE_FACTOR * Math.max(s.maxV, s.faultV)) {
       issues.push(blocker('rating', `${p.ref} is rated ${p.ratingV} V but sees up to ${Math.max(s.maxV, s.faultV).toFixed(0)} V.`));

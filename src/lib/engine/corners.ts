@@ -14,10 +14,6 @@ export function normalCorners(brief: Brief): Corner[] {
   return out;
 }
 
-export function nominalCorner(brief: Brief): Corner {
-  return { vIn: brief.input.vNom, iOut: brief.output.iTyp };
-}
-
 export const CURVE_POINTS = 20;
 
 /** Input voltages for the charts: CURVE_POINTS evenly spaced from vMin to vMax. */

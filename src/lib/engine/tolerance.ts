@@ -60,7 +60,7 @@ export function monteCarlo(
   const n = model.params.length;
   const buffer = scratchFor((n + 1) * draws);
   const columns: Float64Array[] = [];
-  // The mulberry32 generator of prng.ts, inlined: this loop is the engine's hot spot. Column by
+  // mulberry32, a small seeded generator, inlined: this loop is the engine's hot spot. Column by
   // column, so each parameter's draws come from consecutive numbers of one seeded stream.
   let state = seed >>> 0;
   for (let j = 0; j < n; j += 1) {

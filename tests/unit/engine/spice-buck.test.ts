@@ -36,15 +36,27 @@ function average(time: number[], y: number[], t0: number): number {
   return area / (time[time.length - 1]! - t0);
 }
 
-function peakToPeak(time: number[], y: number[], t0: number): number {
-  let lo = Number.POSITIVE_INFINITY;
-  let hi = Number.NEGATIVE_INFINITY;
-  for (let k = 0; k < time.length; k += 1) {
-    if (time[k]! < t0) continue;
-    lo = Math.min(lo, y[k]!);
-    hi = Math.max(hi, y[k]!);
+/**
+ * Peak-to-peak within each of the last `periods` switching periods, averaged: the open-loop LC
+ * rings slowly around its operating point, and a window spanning many periods would add that
+ * ringing to the switching ripple.
+ */
+function ripplePerPeriod(time: number[], y: number[], period: number, periods: number): number {
+  const end = time[time.length - 1]!;
+  let sum = 0;
+  for (let p = 0; p < periods; p += 1) {
+    const from = end - (p + 1) * period;
+    const to = end - p * period;
+    let lo = Number.POSITIVE_INFINITY;
+    let hi = Number.NEGATIVE_INFINITY;
+    for (let k = 0; k < time.length; k += 1) {
+      if (time[k]! < from || time[k]! > to) continue;
+      lo = Math.min(lo, y[k]!);
+      hi = Math.max(hi, y[k]!);
+    }
+    sum += hi - lo;
   }
-  return hi - lo;
+  return sum / periods;
 }
 
 const buck = evaluate(
@@ -67,12 +79,17 @@ describe('buck design against an ngspice switching transient', () => {
     expect(toSpiceNetlist(buck, { vIn: 12, iOut: 0.5 })).toMatch(/^S2 /m);
   });
 
-  test('highest input, full load: average output within 2 %, inductor ripple within 10 % of the engine', async () => {
+  test('highest input, full load: average output within 2 %, inductor ripple within 10 %, output ripple bounded', async () => {
     const w = await transient(toSpiceNetlist(buck, { vIn: 14, iOut: 1 })!);
     const t0 = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / fsw;
     expect(Math.abs(average(w.time, w.vOut, t0) - vOutEngine)).toBeLessThanOrEqual(0.02 * vOutEngine);
     const ripple = traced('buck.dil');
-    expect(Math.abs(peakToPeak(w.time, w.iL, t0) - ripple)).toBeLessThanOrEqual(0.1 * ripple);
+    expect(Math.abs(ripplePerPeriod(w.time, w.iL, 1 / fsw, 10) - ripple)).toBeLessThanOrEqual(0.1 * ripple);
+    // Output ripple ΔIL/(8·fsw·C) + ΔIL·ESR adds two peaks that do not coincide in time, so the
+    // engine's figure is an upper bound: at or above the simulated ripple, and within 30 % of it.
+    const simulated = ripplePerPeriod(w.time, w.vOut, 1 / fsw, 10);
+    expect(traced('buck.ripple')).toBeGreaterThanOrEqual(simulated);
+    expect(traced('buck.ripple')).toBeLessThanOrEqual(1.3 * simulated);
     // Average inductor current is the load current (capacitor charge balance, Erickson & Maksimović ch. 2 — from memory).
     expect(Math.abs(average(w.time, w.iL, t0) - 1)).toBeLessThanOrEqual(0.02);
   });
@@ -83,6 +100,6 @@ describe('buck design against an ngspice switching transient', () => {
     expect(Math.abs(average(w.time, w.vOut, t0) - vOutEngine)).toBeLessThanOrEqual(0.02 * vOutEngine);
     const d = traced('buck.d.nom');
     const ripple = ((12 - vOutEngine) * d) / (fsw * henries);
-    expect(Math.abs(peakToPeak(w.time, w.iL, t0) - ripple)).toBeLessThanOrEqual(0.1 * ripple);
+    expect(Math.abs(ripplePerPeriod(w.time, w.iL, 1 / fsw, 10) - ripple)).toBeLessThanOrEqual(0.1 * ripple);
   });
 });
