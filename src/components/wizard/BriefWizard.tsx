@@ -80,19 +80,27 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     }
   }, [signedInAtStart, draft, reset]);
 
-  const ensureDraft = useCallback(async (): Promise<string> => {
-    if (draftId) return draftId;
-    const current = getValues();
-    const response = await fetch('/api/v1/briefs', {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ title: current.title.trim() || undefined, notes: current.notes, spec: current.spec, submit: false }),
-    });
-    if (!response.ok) throw new Error('The draft could not be saved.');
-    const created = (await response.json()) as { id: string };
-    setDraftId(created.id);
-    window.history.replaceState(null, '', `/briefs/new?draft=${created.id}`);
-    return created.id;
+  // One creation at a time: autosave and submit may both ask for the draft at once.
+  const creating = useRef<Promise<string> | null>(null);
+  const ensureDraft = useCallback((): Promise<string> => {
+    if (draftId) return Promise.resolve(draftId);
+    creating.current ??= (async () => {
+      const current = getValues();
+      const response = await fetch('/api/v1/briefs', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ title: current.title.trim() || undefined, notes: current.notes, spec: current.spec, submit: false }),
+      });
+      if (!response.ok) {
+        creating.current = null;
+        throw new Error('The draft could not be saved.');
+      }
+      const created = (await response.json()) as { id: string };
+      setDraftId(created.id);
+      window.history.replaceState(null, '', `/briefs/new?draft=${created.id}`);
+      return created.id;
+    })();
+    return creating.current;
   }, [draftId, getValues]);
 
   // Autosave: to the server when signed in, to this browser otherwise.
@@ -183,14 +191,14 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     requestAnimationFrame(() => headingRef.current?.focus());
   }
 
-  async function submit() {
+  async function submit(justSignedIn = false) {
     setSubmitError(null);
     if (!(await trigger())) {
       const firstBad = WIZARD_STEPS.findIndex((s) => s.fields.some((f) => form.getFieldState(f as FieldPath<WizardInput>).invalid));
       if (firstBad >= 0) setStep(firstBad);
       return;
     }
-    if (!signedIn) {
+    if (!signedIn && !justSignedIn) {
       setAskAccount(true);
       return;
     }
@@ -429,15 +437,6 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                   {submitError}
                 </p>
               )}
-              {askAccount && !signedIn && (
-                <InlineAccount
-                  onSignedIn={() => {
-                    setSignedIn(true);
-                    setAskAccount(false);
-                    void submit();
-                  }}
-                />
-              )}
             </div>
           )}
 
@@ -455,6 +454,17 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
             </span>
           </div>
         </form>
+        {current.id === 'review' && askAccount && !signedIn && (
+          <div className="mt-4">
+            <InlineAccount
+              onSignedIn={() => {
+                setSignedIn(true);
+                setAskAccount(false);
+                void submit(true);
+              }}
+            />
+          </div>
+        )}
       </div>
       <aside className="lg:sticky lg:top-4 lg:self-start">
         <LiveRanking state={ranking} />

@@ -8,7 +8,7 @@ export function securityHeaders(production: boolean): Record<string, string> {
     "script-src 'self' 'unsafe-inline'",
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
-    "font-src 'self'",
+    "font-src 'self' data:",
     "connect-src 'self'",
     "form-action 'self' " + (production ? 'https:' : 'http: https:'),
     "frame-ancestors 'none'",
