@@ -1,0 +1,28 @@
+import type { APIRoute } from 'astro';
+import { revisionRequestSchema } from '~/lib/revision-requests';
+import { findBriefFor } from '~/lib/server/briefs';
+import { guardApi, STAFF } from '~/lib/server/guard';
+import { apiError, invalid, json, notFound } from '~/lib/server/http';
+import { listRevisions, revisionJson, saveRevision } from '~/lib/server/revisions';
+import { parseBody } from '~/lib/server/validation';
+
+export const GET: APIRoute = async (context) => {
+  const gate = guardApi(context, STAFF);
+  if (!gate.ok) return gate.response;
+  const row = await findBriefFor(gate.user, context.params.id ?? '');
+  if (!row) return notFound();
+  const items = await listRevisions(row.id);
+  return json({ items: items.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) });
+};
+
+export const POST: APIRoute = async (context) => {
+  const body = await parseBody(context.request, revisionRequestSchema, 'invalid_revision');
+  if (!body.ok) return body.response;
+  const gate = guardApi(context, STAFF);
+  if (!gate.ok) return gate.response;
+  const row = await findBriefFor(gate.user, context.params.id ?? '');
+  if (!row) return notFound();
+  const saved = await saveRevision(row, gate.user.id, body.value);
+  if (!saved.ok) return saved.status === 400 ? invalid(saved.error, saved.issues) : apiError(saved.status, 'wrong_state', { message: saved.message });
+  return json(revisionJson(saved.value), 201);
+};
