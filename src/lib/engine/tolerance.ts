@@ -87,16 +87,14 @@ export function monteCarlo(
   }
   const mean = sum / draws;
   let squares = 0;
-  for (let i = 0; i < draws; i += 1) {
-    const d = out[i]! - mean;
-    squares += d * d;
-  }
-  const counts = new Array<number>(HISTOGRAM_BINS).fill(0);
+  const counts = new Int32Array(HISTOGRAM_BINS);
   const width = range.max - range.min;
+  const perBin = width > 0 ? HISTOGRAM_BINS / width : 0;
   for (let i = 0; i < draws; i += 1) {
-    const k = width > 0 ? Math.floor(((out[i]! - range.min) / width) * HISTOGRAM_BINS) : 0;
-    const bin = Math.min(HISTOGRAM_BINS - 1, Math.max(0, k));
-    counts[bin]! += 1;
+    const v = out[i]!;
+    squares += (v - mean) * (v - mean);
+    const k = Math.floor((v - range.min) * perBin);
+    counts[k < 0 ? 0 : k >= HISTOGRAM_BINS ? HISTOGRAM_BINS - 1 : k]! += 1;
   }
   return {
     draws,
@@ -104,6 +102,6 @@ export function monteCarlo(
     mean,
     sigma: draws > 1 ? Math.sqrt(squares / (draws - 1)) : 0,
     fractionInTolerance: inside / draws,
-    histogram: { min: range.min, max: range.max, counts },
+    histogram: { min: range.min, max: range.max, counts: Array.from(counts) },
   };
 }

@@ -144,8 +144,8 @@ export function designBoost(ctx: Context): Design {
   if (post) parts.push(...post.parts);
   issues.push(caution('no-short-protection', `A boost stage connects the input to the output through ${inductor.part.ref}${sync ? '' : ` and ${dRef}`}; a shorted output is limited only by the source. Fit a fuse or an input current limit rated below ${inductor.isatA} A.`));
 
-  const stress = (vIn: number, iOut: number): Record<string, PartStress> => {
-    const p = point(vIn, iOut);
+  const stress = (vIn: number, iOut: number, at?: BoostPoint): Record<string, PartStress> => {
+    const p = at ?? point(vIn, iOut);
     const s: Record<string, PartStress> = {
       [uRef]: { w: p.switchW, v: vOut },
       [inductor.part.ref]: { w: p.dcrW, v: vOut },
@@ -177,7 +177,7 @@ export function designBoost(ctx: Context): Design {
     trace,
     operate: (vIn, iOut): OperatingPoint => {
       const p = point(vIn, iOut);
-      return { regulates: vIn < vOut && p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut) };
+      return { regulates: vIn < vOut && p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
     },
     fault: { regulates: false, pInW: vMax * faultA, pOutW: 0, stress: faultStress },
     output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, brief.output.iMin, brief.output.iTyp, iMax),

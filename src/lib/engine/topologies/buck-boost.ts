@@ -100,8 +100,8 @@ export function designBuckBoost(ctx: Context): Design {
     ...fb.parts,
     ...(post?.parts ?? []),
   ];
-  const stress = (vIn: number, iOut: number): Record<string, PartStress> => {
-    const p = point(vIn, iOut);
+  const stress = (vIn: number, iOut: number, at?: ReturnType<typeof point>): Record<string, PartStress> => {
+    const p = at ?? point(vIn, iOut);
     const s: Record<string, PartStress> = {
       [uRef]: { w: p.switchW, v: Math.max(vIn, vOut) },
       [inductor.part.ref]: { w: p.dcrW, v: Math.max(vIn, vOut) },
@@ -131,7 +131,7 @@ export function designBuckBoost(ctx: Context): Design {
     trace,
     operate: (vIn, iOut): OperatingPoint => {
       const p = point(vIn, iOut);
-      return { regulates: !p.boost || p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut) };
+      return { regulates: !p.boost || p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
     },
     fault: { regulates: false, pInW: lim * lim * (2 * stage.rdsOnOhm + inductor.dcrOhm), pOutW: 0, stress: faultStress },
     output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, brief.output.iMin, brief.output.iTyp, iMax),

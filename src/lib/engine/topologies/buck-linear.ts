@@ -44,7 +44,7 @@ export function designBuckLinear(ctx: Context): Design {
       regulates: p.d <= buck.stage.dMax && vIn > buck.vOut,
       pInW: p.pInW,
       pOutW: reg.vOut * iOut,
-      stress: { ...buck.stress(vIn, iBus), ...reg.stress(buck.vOut, iOut) },
+      stress: Object.assign(buck.stress(vIn, iBus, p), reg.stress(buck.vOut, iOut)),
     };
   };
   const faultStress = { ...buck.stress(brief.input.vMax, reg.cls.iLimitA), ...reg.faultStress(buck.vOut) };

@@ -84,7 +84,8 @@ export interface BuckStage {
   output: ToleranceModel;
   assumptions: Record<string, Quantity>;
   point(vIn: number, iOut: number): BuckPoint;
-  stress(vIn: number, iOut: number): Record<string, PartStress>;
+  /** Part stresses; pass the operating point when it is already computed. */
+  stress(vIn: number, iOut: number, at?: BuckPoint): Record<string, PartStress>;
   faultStress(vIn: number): Record<string, PartStress>;
 }
 
@@ -178,8 +179,8 @@ export function buckStage(
   issues.push(info('fault-protected', `${stage.label} limits its switch current and shuts down when overheated; a shorted output is survived.`));
 
   const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm);
-  const stress = (vIn: number, iOut: number): Record<string, PartStress> => {
-    const p = point(vIn, iOut);
+  const stress = (vIn: number, iOut: number, at?: BuckPoint): Record<string, PartStress> => {
+    const p = at ?? point(vIn, iOut);
     const s: Record<string, PartStress> = {
       [switchRef]: { w: p.switchW, v: vIn },
       [inductor.part.ref]: { w: p.dcrW, v: vIn },
@@ -236,7 +237,7 @@ export function designBuck(ctx: Context): Design {
   }, nominal.d, '');
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = b.point(vIn, iOut);
-    return { regulates: p.d <= b.stage.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut) };
+    return { regulates: p.d <= b.stage.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
   };
   const lim = b.stage.iSwitchMaxA;
   const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(brief.input.vMax) };
