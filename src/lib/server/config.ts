@@ -12,6 +12,9 @@ import {
   RATE_LIMIT_DISABLED,
   SEED_DEMO,
   SMTP_URL,
+  STRIPE_API_BASE,
+  STRIPE_SECRET_KEY,
+  STRIPE_WEBHOOK_SECRET,
   UPLOAD_DIR,
 } from 'astro:env/server';
 import { DEFAULT_DATABASE_URL } from './db/connect';
@@ -35,6 +38,22 @@ function authSecret(): string {
   return DEV_SECRET;
 }
 
+/**
+ * Payment settings. Development and tests talk to the local stand-in with test
+ * keys; production must name its own keys (an unset STRIPE_API_BASE means the
+ * real service).
+ */
+function paymentSettings() {
+  if (production) {
+    return { secretKey: STRIPE_SECRET_KEY ?? null, webhookSecret: STRIPE_WEBHOOK_SECRET ?? null, apiBase: STRIPE_API_BASE ?? null };
+  }
+  return {
+    secretKey: STRIPE_SECRET_KEY ?? 'sk_test_railwright_dev',
+    webhookSecret: STRIPE_WEBHOOK_SECRET ?? 'whsec_railwright_dev',
+    apiBase: STRIPE_API_BASE ?? 'http://127.0.0.1:12111',
+  };
+}
+
 export const config = {
   production,
   databaseUrl: DATABASE_URL ?? DEFAULT_DATABASE_URL,
@@ -48,4 +67,5 @@ export const config = {
   seedDemo: flag(SEED_DEMO),
   /** For load benchmarks only: the sign-in and evaluate limits stop counting. */
   rateLimitDisabled: flag(RATE_LIMIT_DISABLED),
+  payments: paymentSettings(),
 } as const;

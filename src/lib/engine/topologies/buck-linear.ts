@@ -23,9 +23,12 @@ export function designBuckLinear(ctx: Context): Design {
     .sort((a, b) => a.dropoutV - b.dropoutV);
   const forcedCls = ctx.catalog.linearRegulators.find((c) => c.id === brief.overrides.linearClass);
   const cls = forcedCls ?? fitting[0] ?? chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls;
-  const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = Vout + Vdropout + margin', {
-    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'],
-  }, vTarget + cls.dropoutV + POST_REG_MARGIN_V, 'V');
+  // The bus itself is only as exact as the buck's feedback (plus 2 % for its divider), so its
+  // set point is raised until even its low extreme leaves the post-regulator its headroom.
+  const busSpread = Math.max(...ctx.catalog.switchers.map((s) => s.vFbTolerance)) + 0.02;
+  const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = (Vout + Vdropout + margin) / (1 − spread)', {
+    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'], spread: [busSpread, ''],
+  }, (vTarget + cls.dropoutV + POST_REG_MARGIN_V) / (1 - busSpread), 'V');
 
   // Divider current of the post-regulator loads the buck; estimate it from the class.
   const iExtra = Math.max(cls.minLoadA, 100e-6) + cls.iAdjMaxA + cls.iqA;

@@ -1,0 +1,24 @@
+import type { APIRoute } from 'astro';
+import { apiError, json } from '~/lib/server/http';
+import { paymentProvider, PaymentsNotConfigured, webhookSecret } from '~/lib/server/payments/provider';
+import { applyPaymentEvent } from '~/lib/server/payments/webhook';
+
+const MAX_EVENT_BYTES = 256 * 1024;
+
+/** Signed events from the payment provider: verified with the SDK, applied once each. */
+export const POST: APIRoute = async ({ request }) => {
+  const signature = request.headers.get('stripe-signature');
+  if (!signature) return apiError(400, 'missing_signature', { message: 'The Stripe-Signature header is missing.' });
+  if (Number(request.headers.get('content-length') ?? 0) > MAX_EVENT_BYTES) return apiError(413, 'body_too_large');
+  const body = await request.text();
+  let event;
+  try {
+    event = paymentProvider().webhooks.constructEvent(body, signature, webhookSecret());
+  } catch (error) {
+    if (error instanceof PaymentsNotConfigured) return apiError(503, 'payments_not_configured', { message: error.message });
+    // Bad signature or a timestamp outside the tolerance (replayed later).
+    return apiError(400, 'bad_signature', { message: 'The event signature does not verify.' });
+  }
+  const outcome = await applyPaymentEvent(event);
+  return json({ received: true, outcome });
+};
