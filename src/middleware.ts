@@ -24,10 +24,7 @@ const hardening = defineMiddleware(async (context, next) => {
   return response;
 });
 
-const signInLimit = defineMiddleware(async (context, next) => {
-  const refused = await limitSignInApi(context);
-  return refused ?? next();
-});
+const signInLimit = defineMiddleware((context, next) => limitSignInApi(context, next));
 
 const session = defineMiddleware(async (context, next) => {
   if (context.url.pathname.startsWith('/_astro/')) return next();

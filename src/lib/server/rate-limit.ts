@@ -26,11 +26,22 @@ export async function consumeRate(db: Database, key: string, rule: RateRule, now
   return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((row.window_start + rule.windowMs - now) / 1000)) };
 }
 
+/** Whether `key` has used up its window, without counting this call. */
+export async function peekRate(db: Database, key: string, rule: RateRule, now = Date.now()): Promise<RateVerdict> {
+  const windowStart = now - (now % rule.windowMs);
+  const rows = await db.all<{ count: number; window_start: number }>(
+    sql`SELECT count, window_start FROM rate_limit WHERE key = ${key} AND window_start >= ${windowStart}`,
+  );
+  const row = rows[0];
+  if (!row || row.count < rule.max) return { allowed: true };
+  return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((row.window_start + rule.windowMs - now) / 1000)) };
+}
+
 export const RATE_RULES = {
-  /** Per address and e-mail: enough for typing mistakes, too few for guessing. */
+  /** Failed sign-ins per address and e-mail: enough for typing mistakes, too few for guessing. */
   signInPerAccount: { max: 8, windowMs: 10 * 60_000 },
-  /** Per address across all e-mails: stops one machine trying many accounts. */
-  signInPerAddress: { max: 60, windowMs: 10 * 60_000 },
+  /** Failed sign-ins per address across all e-mails: stops one machine trying many accounts. */
+  signInPerAddress: { max: 40, windowMs: 10 * 60_000 },
   /** Generous enough for a wizard re-ranking as someone types; stops a script hammering the engine. */
   evaluatePerAddress: { max: 600, windowMs: 60_000 },
 } satisfies Record<string, RateRule>;

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { connect } from '../../../src/lib/server/db/connect';
 import { migrateDatabase } from '../../../src/lib/server/db/migrate';
-import { consumeRate } from '../../../src/lib/server/rate-limit';
+import { consumeRate, peekRate } from '../../../src/lib/server/rate-limit';
 
 const url = `file:${path.join(mkdtempSync(path.join(tmpdir(), 'rw-rate-')), 'rate.db')}`;
 const { db, client } = connect(url);
@@ -29,5 +29,18 @@ describe('database-backed fixed-window limiter', () => {
   test('concurrent attempts are all counted (one atomic upsert each)', async () => {
     const verdicts = await Promise.all(Array.from({ length: 20 }, () => consumeRate(db, 'burst', rule, t0 + 5_000)));
     expect(verdicts.filter((v) => v.allowed)).toHaveLength(3);
+  });
+});
+
+describe('peeking at a window', () => {
+  const rule = { max: 2, windowMs: 60_000 };
+  const t0 = 1_800_000_000_000;
+  test('peeking counts nothing; it refuses once the window is used up, and a new window frees it', async () => {
+    expect((await peekRate(db, 'peek', rule, t0)).allowed).toBe(true);
+    await consumeRate(db, 'peek', rule, t0);
+    expect((await peekRate(db, 'peek', rule, t0)).allowed).toBe(true);
+    await consumeRate(db, 'peek', rule, t0);
+    expect(await peekRate(db, 'peek', rule, t0 + 15_000)).toEqual({ allowed: false, retryAfterSeconds: 45 });
+    expect((await peekRate(db, 'peek', rule, t0 + 60_000)).allowed).toBe(true);
   });
 });
