@@ -3,7 +3,8 @@
  * between states. Each action is one transaction; routes only translate.
  */
 import { eq } from 'drizzle-orm';
-import { briefIssues, briefSchema, evaluate, type Evaluation } from '../engine';
+import { briefIssues, briefSchema, evaluate } from '../engine';
+import { summarise } from '../brief-summary';
 import type { BriefStatus } from '../brief-status';
 import type { CreateBrief } from '../brief-requests';
 import { moveBrief, type BriefRow } from './briefs';
@@ -18,22 +19,6 @@ export type ActionResult<T> =
   | { ok: true; value: T }
   | { ok: false; status: 400; error: string; issues: FieldIssue[] }
   | { ok: false; status: 403 | 409; message: string };
-
-/** The headline figures the desk shows for a brief, from the engine's recommendation. */
-export function summarise(result: Evaluation) {
-  const best = result.options.find((o) => o.topology === result.recommended) ?? result.options[0];
-  if (!best) return null;
-  return {
-    topology: best.topology,
-    feasible: best.feasible,
-    score: best.score,
-    efficiencyNominal: best.efficiency.nominal,
-    dissipationMaxW: best.dissipation.totalMaxW,
-    partCount: best.partCount,
-    costCents: best.costCents,
-    feasibleCount: result.options.filter((o) => o.feasible).length,
-  };
-}
 
 /** Full check of a spec at submission; issue paths are prefixed with `spec.` as the body has them. */
 async function validateForSubmission(spec: unknown) {

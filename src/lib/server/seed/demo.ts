@@ -1,9 +1,12 @@
 import { count } from 'drizzle-orm';
 import type { Auth } from '../auth/create-auth';
 import type { Database } from '../db/connect';
+import { summarise } from '../../brief-summary';
+import { briefSchema } from '../../engine/brief';
 import { defaultCatalog } from '../../engine/catalog';
+import { evaluate } from '../../engine/evaluate';
 import { catalogToRows } from '../catalog-rows';
-import { account, brief, clientProfile, deviceClass, rateCard, stateChange, user } from '../db/schema';
+import { account, brief, clientProfile, designRevision, deviceClass, rateCard, stateChange, user } from '../db/schema';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD } from './scenario';
 import { lifecycleTo } from './lifecycle';
 
@@ -43,17 +46,36 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
       const briefId = crypto.randomUUID();
       const submittedAt = item.submittedDaysAgo === undefined ? null : new Date(now - item.submittedDaysAgo * DAY);
       const createdAt = new Date((submittedAt?.getTime() ?? now - DAY) - 2 * 3_600_000);
+      // Submitted briefs carry the engine's verdict, as they would after a real submission.
+      const spec = submittedAt ? briefSchema.parse(item.spec) : item.spec;
+      const result = submittedAt ? evaluate(briefSchema.parse(item.spec), defaultCatalog) : null;
       await tx.insert(brief).values({
         id: briefId,
         ownerId,
         title: item.title,
         status: item.status,
-        spec: item.spec,
+        spec,
         notes: item.notes,
         submittedAt,
+        recommendedTopology: result?.recommended ?? null,
+        summary: result ? summarise(result) : null,
         createdAt,
         updatedAt: createdAt,
       });
+      if (result && item.revisionNote && result.recommended) {
+        await tx.insert(designRevision).values({
+          briefId,
+          number: 1,
+          authorId: engineerId,
+          topology: result.recommended,
+          weights: briefSchema.parse(item.spec).weights,
+          overrides: briefSchema.parse(item.spec).overrides,
+          input: spec,
+          result,
+          note: item.revisionNote,
+          createdAt: new Date((submittedAt?.getTime() ?? now) + 4 * 3_600_000),
+        });
+      }
       const steps = lifecycleTo(item.status);
       let at = submittedAt?.getTime() ?? createdAt.getTime();
       for (const [index, step] of steps.entries()) {

@@ -33,6 +33,8 @@ export interface DemoBrief {
   notes: string;
   /** Days before the seed time that the brief was submitted (drafts have none). */
   submittedDaysAgo?: number;
+  /** The engineer's note on revision 1, for briefs that have been reviewed. */
+  revisionNote?: string;
   spec: BriefInput;
 }
 
@@ -43,6 +45,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     title: 'Soil-moisture node, 3.3 V from one Li-ion cell',
     status: 'deposit-paid',
     submittedDaysAgo: 12,
+    revisionNote: 'Buck-boost keeps 3.3 V across the whole discharge; quiescent current checked for the sleep budget.',
     notes: 'Node sleeps most of the time; radio bursts of about 120 mA every 15 minutes. Cell runs from 4.2 V down to 3.0 V.',
     spec: {
       input: { vMin: 3.0, vNom: 3.7, vMax: 4.2, rippleVpp: 0, source: 'battery' },
@@ -70,6 +73,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     title: 'Bench meter analog front-end, quiet 12 V',
     status: 'quoted',
     submittedDaysAgo: 6,
+    revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
     notes: 'Feeds a 24-bit ADC reference buffer and op-amps; the ripple budget is tight.',
     spec: {
       input: { vMin: 16, vNom: 18, vMax: 20, rippleVpp: 1.2, source: 'rectified' },
@@ -84,6 +88,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     title: 'PLC I/O card, 5 V at 1.5 A from the 24 V bus',
     status: 'in-review',
     submittedDaysAgo: 3,
+    revisionNote: 'First pass as briefed; check the load-dump clamp level with the client before quoting.',
     notes: 'Cabinet reaches 55 °C in summer. The 24 V bus sags to 18 V during motor starts and reaches 30 V on load dump clamps.',
     spec: {
       input: { vMin: 18, vNom: 24, vMax: 30, rippleVpp: 0.5, source: 'bus' },
