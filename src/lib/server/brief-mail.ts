@@ -28,7 +28,7 @@ export async function notifySubmitted(row: BriefRow): Promise<void> {
           `${who} submitted a supply brief: ${row.title}.`,
           summary?.topology ? `The engine's first pick is ${summary.topology}; review it before anything is promised.` : 'No option is feasible as briefed; it needs an engineer’s look.',
           '',
-          `Open it: ${appUrl(`/briefs/${row.id}`)}`,
+          `Open it: ${appUrl(`/desk/briefs/${row.id}`)}`,
         ].join('\n'),
         relatedId: row.id,
       }),

@@ -1,5 +1,6 @@
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import { canMove, type Actor } from '../brief-states';
+import type { BriefSummary } from '../brief-summary';
 import { db } from './db';
 import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from './db/schema';
 import { isStaff, type SignedInUser } from './guard';
@@ -73,6 +74,37 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
       .where(condition),
   ]);
   return { rows, total: Number(totals[0]?.n ?? 0), page, pageSize };
+}
+
+export type BriefList = Awaited<ReturnType<typeof listBriefs>>;
+
+/** The list answer of `GET /api/v1/briefs`, also handed to the desk table as its first page. */
+export function briefListJson(list: BriefList) {
+  return {
+    items: list.rows.map((row) => ({
+      id: row.id,
+      title: row.title,
+      status: row.status,
+      client: { id: row.ownerId, name: row.clientName, company: row.company },
+      recommendedTopology: row.recommendedTopology,
+      summary: row.summary as BriefSummary | null,
+      submittedAt: row.submittedAt?.toISOString() ?? null,
+      updatedAt: row.updatedAt.toISOString(),
+    })),
+    total: list.total,
+    page: list.page,
+    pageSize: list.pageSize,
+  };
+}
+
+/** Everyone who has a brief, for the desk's client filter. */
+export async function listBriefOwners() {
+  return db
+    .selectDistinct({ id: user.id, name: user.name, company: clientProfile.company })
+    .from(brief)
+    .innerJoin(user, eq(user.id, brief.ownerId))
+    .leftJoin(clientProfile, eq(clientProfile.userId, brief.ownerId))
+    .orderBy(clientProfile.company, user.name);
 }
 
 export type BriefRow = typeof brief.$inferSelect;

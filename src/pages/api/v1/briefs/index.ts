@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { briefListQuerySchema, createBriefSchema } from '~/lib/brief-requests';
 import { createBrief } from '~/lib/server/brief-actions';
 import { briefJson } from '~/lib/server/brief-json';
-import { listBriefs } from '~/lib/server/briefs';
+import { briefListJson, listBriefs } from '~/lib/server/briefs';
 import { ANY_ROLE, guardApi } from '~/lib/server/guard';
 import { apiError, invalid, json } from '~/lib/server/http';
 import { parseBody, zodIssues } from '~/lib/server/validation';
@@ -14,21 +14,7 @@ export const GET: APIRoute = async (context) => {
   if (!gate.ok) return gate.response;
   const { status, q, client, page, pageSize, sort } = query.data;
   const list = await listBriefs(gate.user, { status, q, ownerId: client, page, pageSize, sort });
-  return json({
-    items: list.rows.map((row) => ({
-      id: row.id,
-      title: row.title,
-      status: row.status,
-      client: { id: row.ownerId, name: row.clientName, company: row.company },
-      recommendedTopology: row.recommendedTopology,
-      summary: row.summary,
-      submittedAt: row.submittedAt?.toISOString() ?? null,
-      updatedAt: row.updatedAt.toISOString(),
-    })),
-    total: list.total,
-    page: list.page,
-    pageSize: list.pageSize,
-  });
+  return json(briefListJson(list));
 };
 
 export const POST: APIRoute = async (context) => {

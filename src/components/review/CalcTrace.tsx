@@ -1,0 +1,68 @@
+import type { Option, Quantity } from '~/lib/engine/types';
+import { formatSi } from '~/lib/engine/units';
+import { TYPICAL_NOTE } from '~/lib/review-words';
+
+/** Dimensionless quantities (duty cycle, ratios) read as plain numbers. */
+function quantity(q: Quantity): string {
+  return q.unit ? formatSi(q.value, q.unit, 4) : String(Number(q.value.toPrecision(4)));
+}
+
+/**
+ * The chosen option's calculation trace as a calculation sheet: each line
+ * names the figure, states the equation, substitutes the inputs and gives the result.
+ */
+export function CalcTrace({ option }: { option: Option }) {
+  const assumptions = Object.entries(option.assumptions);
+  return (
+    <div className="calc-sheet">
+      <ol className="flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card">
+        {option.trace.map((entry, index) => (
+          <li key={entry.id} className="grid gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_1fr_auto]" data-trace={entry.id}>
+            <span className="font-mono text-ink-faint">{index + 1}.</span>
+            <div>
+              <p className="font-semibold">{entry.label}</p>
+              <p className="mt-0.5 font-mono text-ink">{entry.equation}</p>
+              {Object.keys(entry.inputs).length > 0 && (
+                <p className="mt-0.5 text-ink-soft">
+                  where{' '}
+                  {Object.entries(entry.inputs).map(([name, q], k, all) => (
+                    <span key={name} className="whitespace-nowrap">
+                      <span className="font-mono">{name}</span> = {quantity(q)}
+                      {k < all.length - 1 ? '; ' : ''}
+                    </span>
+                  ))}
+                </p>
+              )}
+            </div>
+            <p className="font-mono font-bold tabular-nums sm:text-right">= {quantity(entry.result)}</p>
+          </li>
+        ))}
+      </ol>
+      {assumptions.length > 0 && (
+        <div className="mt-4 overflow-x-auto rounded-lg border border-rule bg-card">
+          <table className="notebook">
+            <caption className="px-3 py-2 text-left text-sm font-semibold text-ink-soft">Device parameters used: {TYPICAL_NOTE}</caption>
+            <thead>
+              <tr>
+                <th scope="col">Parameter</th>
+                <th scope="col" className="num">Value</th>
+                <th scope="col">Standing</th>
+              </tr>
+            </thead>
+            <tbody>
+              {assumptions.map(([name, q]) => (
+                <tr key={name}>
+                  <th scope="row" className="font-mono font-normal">
+                    {name}
+                  </th>
+                  <td className="num">{quantity(q)}</td>
+                  <td className="text-ink-soft">{TYPICAL_NOTE}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,88 @@
+import { useState } from 'react';
+import type { TopologyId } from '~/lib/engine/types';
+import { formatDate } from '~/lib/format';
+import { TOPOLOGY_NAMES } from '~/lib/option-words';
+
+export interface RevisionSummary {
+  id: string;
+  number: number;
+  topology: string;
+  note: string;
+  createdAt: string;
+  author: string | null;
+}
+
+const selectClass = 'rounded-md border border-ink/25 bg-card px-3 py-2 text-sm';
+
+/** Saved revisions, newest first, each with its sheet and exports; any two can be compared. */
+export function RevisionList({ briefId, revisions }: { briefId: string; revisions: RevisionSummary[] }) {
+  const [a, setA] = useState(revisions[1]?.id ?? '');
+  const [b, setB] = useState(revisions[0]?.id ?? '');
+  const known = (id: string) => revisions.some((r) => r.id === id);
+  const left = known(a) ? a : (revisions[1]?.id ?? '');
+  const right = known(b) ? b : (revisions[0]?.id ?? '');
+  return (
+    <section aria-labelledby="revisions-heading">
+      <h2 id="revisions-heading" className="text-xl font-bold">
+        Revisions
+      </h2>
+      {revisions.length === 0 ? (
+        <p className="mt-2 text-sm text-ink-soft">No revision saved yet. Adjust, re-run, choose an option and save it with a note.</p>
+      ) : (
+        <ol className="mt-3 flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card" aria-label="Saved revisions, newest first">
+          {revisions.map((r) => (
+            <li key={r.id} className="grid gap-1 p-3 text-sm sm:grid-cols-[5rem_1fr_auto]" data-revision={r.number}>
+              <span className="font-bold">Rev. {r.number}</span>
+              <div>
+                <p className="font-semibold">{TOPOLOGY_NAMES[r.topology as TopologyId] ?? r.topology}</p>
+                <p className="text-ink-soft">
+                  {formatDate(Date.parse(r.createdAt))}
+                  {r.author ? ` · ${r.author}` : ''}
+                </p>
+                {r.note && <p className="mt-1 whitespace-pre-line">“{r.note}”</p>}
+              </div>
+              <div className="flex flex-col gap-1 sm:items-end">
+                <a href={`/desk/briefs/${briefId}/revisions/${r.id}`} className="font-semibold">
+                  Calculation sheet and netlist
+                  <span className="sr-only"> of revision {r.number}</span>
+                </a>
+                <a href={`/api/v1/revisions/${r.id}/parts.csv`} download>
+                  Part list (CSV)<span className="sr-only"> of revision {r.number}</span>
+                </a>
+              </div>
+            </li>
+          ))}
+        </ol>
+      )}
+      {revisions.length >= 2 && (
+        <form method="get" action={`/desk/briefs/${briefId}/compare`} className="mt-3 flex flex-wrap items-end gap-2" aria-label="Compare two revisions">
+          <div className="flex flex-col gap-1">
+            <label htmlFor="compare-a" className="text-sm font-semibold">
+              Compare
+            </label>
+            <select id="compare-a" name="a" value={left} onChange={(e) => setA(e.target.value)} className={selectClass}>
+              {revisions.map((r) => (
+                <option key={r.id} value={r.id}>
+                  Revision {r.number}
+                </option>
+              ))}
+            </select>
+          </div>
+          <div className="flex flex-col gap-1">
+            <label htmlFor="compare-b" className="text-sm font-semibold">
+              with
+            </label>
+            <select id="compare-b" name="b" value={right} onChange={(e) => setB(e.target.value)} className={selectClass}>
+              {revisions.map((r) => (
+                <option key={r.id} value={r.id}>
+                  Revision {r.number}
+                </option>
+              ))}
+            </select>
+          </div>
+          <button className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60">Compare side by side</button>
+        </form>
+      )}
+    </section>
+  );
+}

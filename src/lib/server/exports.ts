@@ -1,0 +1,98 @@
+/**
+ * Exports of a saved revision: the chosen design as a SPICE netlist and its
+ * part list as CSV. Both read the revision's stored result, never a re-run.
+ */
+import { eq } from 'drizzle-orm';
+import Papa from 'papaparse';
+import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '../engine';
+import { componentValue } from '../review-figures';
+import { ROLE_NAMES, TYPICAL_NOTE } from '../review-words';
+import { TOPOLOGY_NAMES } from '../option-words';
+import { currentCatalog } from './catalog';
+import { db } from './db';
+import { brief, designRevision, rateCard } from './db/schema';
+
+export async function findRevisionWithBrief(id: string) {
+  const [row] = await db
+    .select({ revision: designRevision, briefTitle: brief.title })
+    .from(designRevision)
+    .innerJoin(brief, eq(brief.id, designRevision.briefId))
+    .where(eq(designRevision.id, id))
+    .limit(1);
+  return row ?? null;
+}
+
+export type RevisionWithBrief = NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>;
+
+/** The currency parts costs are kept in: the rate card's. */
+export async function partsCurrency(): Promise<string> {
+  const [row] = await db.select({ currency: rateCard.currency }).from(rateCard).limit(1);
+  return row?.currency ?? 'EUR';
+}
+
+export function chosenOf(found: RevisionWithBrief): Option | null {
+  const result = found.revision.result as Evaluation;
+  return result.options.find((o) => o.topology === found.revision.topology) ?? null;
+}
+
+/** The netlist describes the nominal input at the typical load: the point an engineer measures first. */
+export function nominalCorner(input: unknown): SpiceCorner {
+  const brief = input as { input: { vNom: number }; output: { iTyp: number } };
+  return { vIn: brief.input.vNom, iOut: brief.output.iTyp };
+}
+
+export function exportFileName(title: string, number: number, extension: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .replace(/[^\w\s-]/g, '')
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_-]+/g, '-')
+    .slice(0, 60);
+  return `${slug || 'brief'}-rev${number}.${extension}`;
+}
+
+const oneLine = (text: string) => text.replace(/[\r\n]+/g, ' ');
+
+export type NetlistOutcome = { ok: true; text: string } | { ok: false; message: string };
+
+export async function revisionNetlist(found: RevisionWithBrief): Promise<NetlistOutcome> {
+  const option = chosenOf(found);
+  if (!option) return { ok: false, message: 'This revision holds no design for its chosen topology.' };
+  const corner = nominalCorner(found.revision.input);
+  const body = toSpiceNetlist(option, corner, await currentCatalog());
+  if (body === null) {
+    return {
+      ok: false,
+      message: `No netlist export exists yet for a ${TOPOLOGY_NAMES[option.topology].toLowerCase()}; save a revision with a shunt, linear, pre-drop or buck design to export one.`,
+    };
+  }
+  const header = [
+    `* Railwright — ${oneLine(found.briefTitle)}, revision ${found.revision.number}: ${TOPOLOGY_NAMES[option.topology]}`,
+    `* Device models use typical parameters (${TYPICAL_NOTE}).`,
+    ...option.cautions.map((c) => `* CAUTION: ${oneLine(c.message)}`),
+  ];
+  return { ok: true, text: `${header.join('\n')}\n${body}` };
+}
+
+export function partListCsv(option: Option, currency: string): string {
+  const dissipation = new Map(option.dissipation.parts.map((p) => [p.ref, p]));
+  const rows = option.components.map((c) => ({
+    ref: c.ref,
+    role: ROLE_NAMES[c.role],
+    part: c.part,
+    value: c.value ?? '',
+    unit: c.unit ?? '',
+    value_text: componentValue(c),
+    quantity: c.quantity,
+    rating_w: c.ratingW ?? '',
+    rating_v: c.ratingV ?? '',
+    tolerance: c.tolerance ?? '',
+    worst_w: dissipation.get(c.ref)?.maxW ?? '',
+    fault_w: dissipation.get(c.ref)?.faultW ?? '',
+    cost_minor: c.costCents,
+    currency,
+  }));
+  // Part labels come from the editable catalog: a cell that looks like a formula is neutralised.
+  return Papa.unparse(rows, { escapeFormulae: true, newline: '\r\n' }) + '\r\n';
+}

@@ -1,0 +1,20 @@
+import type { APIRoute } from 'astro';
+import { guardApi, STAFF } from '~/lib/server/guard';
+import { apiError, invalid, json } from '~/lib/server/http';
+import { compareQuerySchema, compareRevisions } from '~/lib/server/revision-compare';
+import { zodIssues } from '~/lib/server/validation';
+
+/** What changed between two revisions of a brief: inputs and the chosen options' key figures. */
+export const GET: APIRoute = async (context) => {
+  const query = compareQuerySchema.safeParse(Object.fromEntries(context.url.searchParams));
+  if (!query.success) return invalid('invalid_query', zodIssues(query.error));
+  const gate = guardApi(context, STAFF);
+  if (!gate.ok) return gate.response;
+  const compared = await compareRevisions(query.data.a, query.data.b);
+  if (!compared.ok) {
+    return compared.status === 404
+      ? apiError(404, 'not_found', { message: compared.message })
+      : invalid('invalid_query', [{ path: 'b', message: compared.message }]);
+  }
+  return json(compared.value);
+};
