@@ -1,0 +1,105 @@
+/**
+ * `npm run bench` — the product's figures in one run, as a table;
+ * `npm run bench -- --json` also prints them as one JSON object on the last line.
+ * Budgets from quality.md are checked; a missed one makes the exit code 1.
+ */
+import { engineMc100kMs, engineMedianMs, engineRate } from './engine';
+import { evaluateRate, loadRun } from './http';
+import { pageJsGzipBytes } from './js-budget';
+import { lighthouseScores, type PageScore } from './lighthouse';
+import { signedInCookie, startBenchServer } from './server';
+
+const wantJson = process.argv.includes('--json');
+const skipLighthouse = process.argv.includes('--no-lighthouse');
+const log = (line: string) => console.error(line);
+
+log('Engine, in-process…');
+const engineMs = engineMedianMs();
+const mc100kMs = engineMc100kMs();
+const inProcessRate = engineRate(5);
+
+log('Starting the built server…');
+const server = await startBenchServer();
+const results: Record<string, unknown> = {};
+try {
+  const base = server.baseUrl;
+  const engineerCookie = await signedInCookie(base, 'engineer@demo.railwright.test');
+  const clientCookie = await signedInCookie(base, 'client@demo.railwright.test');
+  const briefs = (await (await fetch(`${base}/api/v1/briefs?status=submitted`, { headers: { cookie: engineerCookie } })).json()) as { items: { id: string }[] };
+  const reviewId = briefs.items[0]?.id;
+
+  log('JavaScript per page…');
+  const pages: { name: string; path: string; cookie?: string; public: boolean }[] = [
+    { name: 'front', path: '/', public: true },
+    { name: 'sign-in', path: '/sign-in', public: true },
+    { name: 'sign-up', path: '/sign-up', public: true },
+    { name: 'forgot-password', path: '/forgot-password', public: true },
+    { name: 'wizard', path: '/briefs/new', public: false },
+    { name: 'client home', path: '/briefs', cookie: clientCookie, public: false },
+    { name: 'desk', path: '/desk', cookie: engineerCookie, public: false },
+    ...(reviewId ? [{ name: 'review', path: `/desk/briefs/${reviewId}`, cookie: engineerCookie, public: false }] : []),
+  ];
+  const jsKb: Record<string, number> = {};
+  for (const page of pages) {
+    const response = await fetch(`${base}${page.path}`, { headers: page.cookie ? { cookie: page.cookie } : {} });
+    jsKb[page.name] = response.ok ? pageJsGzipBytes(await response.text()) / 1024 : Number.NaN;
+  }
+  const publicPageJsKb = Math.max(...pages.filter((p) => p.public).map((p) => jsKb[p.name] ?? 0));
+  const maxIslandJsGzipKb = Math.max(...Object.values(jsKb).filter(Number.isFinite));
+
+  log('Evaluate route throughput (concurrency 2)…');
+  const http = await evaluateRate(base);
+
+  let lighthouse: PageScore[] = [];
+  if (!skipLighthouse) {
+    log('Lighthouse…');
+    lighthouse = await lighthouseScores([
+      { name: 'front', url: `${base}/` },
+      { name: 'wizard', url: `${base}/briefs/new` },
+      ...(reviewId ? [{ name: 'review', url: `${base}/desk/briefs/${reviewId}`, cookie: engineerCookie }] : []),
+    ]);
+  }
+
+  log('Load: 200 connections, 20 s…');
+  const load = await loadRun(base, clientCookie);
+
+  Object.assign(results, {
+    engineMedianMs: round(engineMs, 3),
+    engineMc100kMs: round(mc100kMs, 3),
+    engineRatePerS: round(inProcessRate, 1),
+    httpRatePerS: round(http.rate, 1),
+    httpToEngineRatio: round(http.rate / inProcessRate, 3),
+    maxIslandJsGzipKb: round(maxIslandJsGzipKb, 1),
+    publicPageJsKb: round(publicPageJsKb, 1),
+    pageJsGzipKb: Object.fromEntries(Object.entries(jsKb).map(([k, v]) => [k, round(v, 1)])),
+    lighthouse,
+    loadRequests: load.requests,
+    loadRps: round(load.rps, 0),
+    loadErrors: load.errors + load.fivexx,
+    loadNon2xx: load.non2xx,
+    loadP99Ms: load.p99Ms,
+  });
+} finally {
+  await server.stop();
+}
+
+function round(x: number, digits: number): number {
+  return Number.isFinite(x) ? Number(x.toFixed(digits)) : -1;
+}
+
+const r = results as Record<string, number> & { lighthouse: PageScore[] };
+const budgets: [string, string, boolean][] = [
+  ['engine, one full evaluation (median)', `${r.engineMedianMs} ms  (< 5)`, r.engineMedianMs < 5],
+  ['engine, 100 000 Monte Carlo draws', `${r.engineMc100kMs} ms  (< 25)`, r.engineMc100kMs < 25],
+  ['evaluate over HTTP / in-process rate', `${r.httpToEngineRatio}  (${r.httpRatePerS}/s vs ${r.engineRatePerS}/s; ≥ 0.7)`, r.httpToEngineRatio >= 0.7],
+  ['largest page JavaScript (gzip)', `${r.maxIslandJsGzipKb} KB  (< 120)`, r.maxIslandJsGzipKb < 120],
+  ['public pages JavaScript', `${r.publicPageJsKb} KB  (0)`, r.publicPageJsKb === 0],
+  ['load: errors and 5xx', `${r.loadErrors}  (${r.loadRequests} requests, ${r.loadRps}/s, p99 ${r.loadP99Ms} ms; 0)`, r.loadErrors === 0],
+  ...r.lighthouse.map((s): [string, string, boolean] => [`lighthouse ${s.page}`, `performance ${s.performance}, accessibility ${s.accessibility}  (≥ 95 each)`, (s.performance ?? 0) >= 95 && (s.accessibility ?? 0) >= 95]),
+];
+const width = Math.max(...budgets.map(([name]) => name.length));
+console.log('\nRailwright benchmark\n');
+for (const [name, figure, ok] of budgets) console.log(`${ok ? 'ok  ' : 'MISS'}  ${name.padEnd(width)}  ${figure}`);
+console.log(`\npage JavaScript (KB gzip): ${Object.entries(results.pageJsGzipKb as Record<string, number>).map(([k, v]) => `${k} ${v}`).join(', ')}`);
+if (wantJson) console.log(JSON.stringify(results));
+if (budgets.some(([, , ok]) => !ok)) process.exitCode = 1;
