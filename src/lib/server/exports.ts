@@ -52,7 +52,14 @@ export function exportFileName(title: string, number: number, extension: string)
   return `${slug || 'brief'}-rev${number}.${extension}`;
 }
 
-const oneLine = (text: string) => text.replace(/[\r\n]+/g, ' ');
+const ASCII_FOR: Record<string, string> = { '—': '-', '–': '-', '−': '-', '½': '1/2', '·': '*', '²': '^2', 'θ': 'theta', '°': 'deg', 'Ω': 'ohm', 'µ': 'u', '’': "'", '“': '"', '”': '"', '≤': '<=', '≥': '>=', '×': 'x', '…': '...' };
+
+/** One ASCII line: the simulator reads its deck byte by byte, and other characters change how it parses. */
+function deckLine(text: string): string {
+  return text
+    .replace(/[\r\n]+/g, ' ')
+    .replace(/[^\x20-\x7e]/g, (c) => ASCII_FOR[c] ?? c.normalize('NFKD').replace(/[^\x20-\x7e]/g, ''));
+}
 
 export type NetlistOutcome = { ok: true; text: string } | { ok: false; message: string };
 
@@ -68,10 +75,10 @@ export async function revisionNetlist(found: RevisionWithBrief): Promise<Netlist
     };
   }
   const header = [
-    `* Railwright — ${oneLine(found.briefTitle)}, revision ${found.revision.number}: ${TOPOLOGY_NAMES[option.topology]}`,
+    `* Railwright - ${found.briefTitle}, revision ${found.revision.number}: ${TOPOLOGY_NAMES[option.topology]}`,
     `* Device models use typical parameters (${TYPICAL_NOTE}).`,
-    ...option.cautions.map((c) => `* CAUTION: ${oneLine(c.message)}`),
-  ];
+    ...option.cautions.map((c) => `* CAUTION: ${c.message}`),
+  ].map(deckLine);
   return { ok: true, text: `${header.join('\n')}\n${body}` };
 }
 
