@@ -27,6 +27,8 @@ export default defineConfig({
       STRIPE_API_BASE: envField.string({ context: 'server', access: 'secret', optional: true }),
       STRIPE_WEBHOOK_SECRET: envField.string({ context: 'server', access: 'secret', optional: true }),
       MAIL_FAKE_SMTP_PORT: envField.number({ context: 'server', access: 'secret', default: 2525 }),
+      // The local mail catcher's HTTP API, when there is one: the admin mail log then shows what it received.
+      MAIL_FAKE_HTTP_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
       RATE_LIMIT_DISABLED: envField.string({ context: 'server', access: 'secret', optional: true }),
     },
   },

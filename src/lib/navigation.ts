@@ -16,6 +16,8 @@ export function navigationFor(role: Role | null): NavItem[] {
       return [
         { href: '/desk', label: 'Desk' },
         { href: '/admin/users', label: 'People' },
+        { href: '/admin/rate-card', label: 'Rate card' },
+        { href: '/admin/mail', label: 'Mail log' },
       ];
     case null:
       return [];

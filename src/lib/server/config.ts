@@ -6,6 +6,7 @@ import {
   BETTER_AUTH_SECRET,
   DATABASE_AUTH_TOKEN,
   DATABASE_URL,
+  MAIL_FAKE_HTTP_URL,
   MAIL_FAKE_SMTP_PORT,
   MAIL_FROM,
   PUBLIC_BASE_URL,
@@ -63,6 +64,8 @@ export const config = {
   publicBaseUrl: PUBLIC_BASE_URL,
   smtpUrl: SMTP_URL ?? `smtp://127.0.0.1:${MAIL_FAKE_SMTP_PORT}`,
   mailFrom: MAIL_FROM,
+  /** The local mail catcher's HTTP API (development and tests only); unset in production. */
+  mailCatcherUrl: MAIL_FAKE_HTTP_URL,
   uploadDir: UPLOAD_DIR ?? 'data/uploads',
   seedDemo: flag(SEED_DEMO),
   /** For load benchmarks only: the sign-in and evaluate limits stop counting. */

@@ -5,6 +5,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { BRIEF_STATUSES, type BriefStatus } from '../../brief-status';
+import { QUOTE_LINE_KINDS } from '../../pricing';
 import { user } from './auth-schema';
 
 export * from './auth-schema';
@@ -156,7 +157,7 @@ export const quote = sqliteTable(
   (t) => [uniqueIndex('quote_year_sequence_idx').on(t.year, t.sequence), index('quote_brief_idx').on(t.briefId)],
 );
 
-export const QUOTE_LINE_KINDS = ['design', 'hv-review', 'parts', 'prototype', 'test-report', 'other'] as const;
+export { QUOTE_LINE_KINDS };
 
 export const quoteLine = sqliteTable(
   'quote_line',

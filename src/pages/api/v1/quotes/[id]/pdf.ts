@@ -1,0 +1,20 @@
+import type { APIRoute } from 'astro';
+import { ANY_ROLE, guardApi } from '~/lib/server/guard';
+import { notFound } from '~/lib/server/http';
+import { quotePdfName } from '~/lib/server/pdf/render';
+import { findQuoteFor, quotePdf } from '~/lib/server/quotes';
+
+export const GET: APIRoute = async (context) => {
+  const gate = guardApi(context, ANY_ROLE);
+  if (!gate.ok) return gate.response;
+  const view = await findQuoteFor(gate.user, context.params.id ?? '');
+  if (!view) return notFound();
+  const pdf = await quotePdf(view);
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      'content-type': 'application/pdf',
+      'content-disposition': `${context.url.searchParams.has('download') ? 'attachment' : 'inline'}; filename="${quotePdfName(view.quote.number)}"`,
+      'cache-control': 'private, no-store',
+    },
+  });
+};
