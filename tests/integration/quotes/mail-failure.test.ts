@@ -1,0 +1,68 @@
+import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
+import { startAppServer, type AppServer } from '../../support/app-server';
+import { freePort } from '../../support/ports';
+import { DEMO, Visitor } from '../../support/client';
+import { railUnderReview } from './helpers';
+
+const mailApiUrl = inject('mailApiUrl');
+const baseUrl = inject('baseUrl');
+
+// A second app whose SMTP server is a closed port, so every send fails; it
+// also reads the running mail catcher, so its mail log shows what that received.
+let broken: AppServer;
+beforeAll(async () => {
+  broken = await startAppServer({ SMTP_URL: `smtp://127.0.0.1:${await freePort()}`, MAIL_FAKE_HTTP_URL: mailApiUrl });
+});
+afterAll(async () => {
+  await broken?.stop();
+});
+
+describe('when the mail server refuses', () => {
+  test('sending answers 502 with the reason, nothing is marked sent, and the retry is allowed', async () => {
+    const rail = await railUnderReview(broken.baseUrl);
+    const drafted = await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } });
+    const quote = await drafted.json();
+
+    for (const attempt of [1, 2]) {
+      const send = await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' });
+      expect(send.status, `attempt ${attempt}`).toBe(502);
+      const body = await send.json();
+      expect(body.error).toBe('mail_failed');
+      expect(body.message).toContain(rail.email);
+      expect(body.message).toContain('still a draft');
+    }
+    expect((await (await rail.engineer.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('draft');
+    expect((await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('in-review');
+
+    // The builder shows the failure; the admin's mail log has both failed attempts.
+    const builder = await (await rail.engineer.request(`/desk/quotes/${quote.id}`)).text();
+    expect(builder).toContain('The last attempt to send failed');
+    const admin = await new Visitor(broken.baseUrl).signIn(DEMO.admin);
+    const log = await (await admin.request('/admin/mail')).text();
+    expect(log.split(`Quote ${quote.number}:`).length - 1).toBe(2);
+    expect(log).toContain('Failed');
+  });
+
+  test('the mail log also lists what the catcher received, with its attachments for download', async () => {
+    // A quote sent by the working app lands in the catcher the broken app reads.
+    const rail = await railUnderReview(baseUrl);
+    const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
+    expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
+    const [message] = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
+
+    const admin = await new Visitor(broken.baseUrl).signIn(DEMO.admin);
+    const page = await (await admin.request('/admin/mail')).text();
+    expect(page).toContain('Received by the local mail catcher');
+    expect(page).toContain(`Quote ${quote.number}:`);
+    const link = `/admin/mail?message=${encodeURIComponent(message.id)}&attachment=0`;
+    expect(page).toContain(`href="${link.replace('&', '&#38;')}"`);
+    const download = await admin.request(link);
+    expect(download.status).toBe(200);
+    expect(download.headers.get('content-type')).toBe('application/pdf');
+    expect(Buffer.from(await download.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+
+    const engineer = await new Visitor(broken.baseUrl).signIn(DEMO.engineer);
+    expect((await engineer.request('/admin/mail')).status).toBe(403);
+    expect((await admin.request('/admin/mail?message=..%2F..%2Fetc&attachment=0')).status).toBe(404);
+  });
+});
