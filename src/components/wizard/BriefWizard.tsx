@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
 import { Controller, useForm, useWatch, type FieldPath } from 'react-hook-form';
 import { noiseClasses } from '~/lib/engine/brief';
 import { formatSi } from '~/lib/engine/units';
@@ -7,12 +7,14 @@ import type { LoadSummary } from '~/lib/load-log';
 import { AIRFLOW_WORDS, NOISE_CLASS_WORDS, rippleDefault, SOURCE_TYPICAL, startingBrief, type SourceKind } from '~/lib/wizard-defaults';
 import { WIZARD_STEPS, wizardFormSchema, type WizardInput, type WizardOutput } from '~/lib/wizard-form';
 import { FieldShell, inputClass } from '../react/FieldShell';
-import { InlineAccount } from './InlineAccount';
 import { LiveRanking } from './LiveRanking';
-import { LoadLogPlot } from './LoadLogPlot';
 import { SiNumberField } from './SiNumberField';
 import { guessKind, uploadFile, type UploadKind } from './uploads';
 import { useLiveRanking } from './useLiveRanking';
+
+// Shown only to some visitors at some moments: loaded when first needed.
+const InlineAccount = lazy(() => import('./InlineAccount').then((m) => ({ default: m.InlineAccount })));
+const LoadLogPlot = lazy(() => import('./LoadLogPlot').then((m) => ({ default: m.LoadLogPlot })));
 
 interface Props {
   signedIn: boolean;
@@ -397,7 +399,9 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                           <p className="tabular-nums">
                             {item.loadSummary.samples} samples over {formatSi(item.loadSummary.durationS, 's')}: min {formatSi(item.loadSummary.iMinA, 'A')}, mean {formatSi(item.loadSummary.iTypA, 'A')}, RMS {formatSi(item.loadSummary.iRmsA, 'A')}, peak {formatSi(item.loadSummary.iMaxA, 'A')}
                           </p>
-                          <LoadLogPlot summary={item.loadSummary} />
+                          <Suspense fallback={null}>
+                            <LoadLogPlot summary={item.loadSummary} />
+                          </Suspense>
                           <button type="button" className="mt-1 font-semibold text-copper-700 underline" onClick={() => item.loadSummary && useLoadFigures(item.loadSummary)}>
                             Use these figures for the load
                           </button>
@@ -456,13 +460,15 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
         </form>
         {current.id === 'review' && askAccount && !signedIn && (
           <div className="mt-4">
-            <InlineAccount
-              onSignedIn={() => {
-                setSignedIn(true);
-                setAskAccount(false);
-                void submit(true);
-              }}
-            />
+            <Suspense fallback={<p className="text-sm text-ink-soft">Loading the sign-up form…</p>}>
+              <InlineAccount
+                onSignedIn={() => {
+                  setSignedIn(true);
+                  setAskAccount(false);
+                  void submit(true);
+                }}
+              />
+            </Suspense>
           </div>
         )}
       </div>
