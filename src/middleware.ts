@@ -7,7 +7,7 @@ import { limitSignInApi } from '~/lib/server/sign-in-limit';
 import { apiError } from '~/lib/server/http';
 import { isCrossOriginWrite, securityHeaders } from '~/lib/server/security';
 
-const HEADERS = securityHeaders(config.production);
+const HEADERS = securityHeaders(config.production, config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined);
 const allowedOrigins = config.publicBaseUrl ? [new URL(config.publicBaseUrl).origin] : [];
 
 const hardening = defineMiddleware(async (context, next) => {

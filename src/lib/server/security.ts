@@ -1,6 +1,7 @@
 /** Response headers and origin rules applied to every answer (quality.md, Security). */
 
-export function securityHeaders(production: boolean): Record<string, string> {
+/** `checkoutOrigin`: where the pay-deposit form may send the browser on (the provider's hosted page). */
+export function securityHeaders(production: boolean, checkoutOrigin = 'https://checkout.stripe.com'): Record<string, string> {
   const csp = [
     "default-src 'self'",
     // Astro's island loader is an inline module script; hashing it per build is
@@ -10,7 +11,7 @@ export function securityHeaders(production: boolean): Record<string, string> {
     "img-src 'self' data: blob:",
     "font-src 'self' data:",
     "connect-src 'self'",
-    "form-action 'self' " + (production ? 'https:' : 'http: https:'),
+    `form-action 'self' ${checkoutOrigin}`,
     "frame-ancestors 'none'",
     "base-uri 'self'",
     "object-src 'none'",
