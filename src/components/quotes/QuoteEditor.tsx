@@ -171,7 +171,7 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
               return (
                 <tr key={l.key}>
                   <td>
-                    <select aria-label={label('Kind')} className={small()} value={l.kind} onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}>
+                    <select aria-label={label('Kind')} className={`${small()} min-w-36`} value={l.kind} onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}>
                       {QUOTE_LINE_KINDS.map((k) => (
                         <option key={k} value={k}>{KIND_WORDS[k]}</option>
                       ))}

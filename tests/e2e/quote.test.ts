@@ -1,0 +1,83 @@
+import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { DEMO } from '../support/client';
+import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
+
+const baseUrl = inject('baseUrl');
+const mailApiUrl = inject('mailApiUrl');
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('a quote from the engineer’s desk to the client’s acceptance', () => {
+  test('the engineer drafts, edits and sends; the client opens the e-mailed link and accepts', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const errors: string[] = [];
+
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const engineer = await desk.newPage();
+    engineer.on('pageerror', (e) => errors.push(e.message));
+    await signInThroughForm(engineer, baseUrl, DEMO.engineer);
+    await engineer.goto(`${baseUrl}/desk/quotes/new?revisionId=${rail.revisionId}`);
+    await engineer.getByLabel('Units to build').fill('2');
+    await engineer.getByRole('button', { name: 'Draft the quote' }).click();
+    await engineer.waitForURL(/\/desk\/quotes\/[0-9a-f-]{36}$/);
+    const number = ((await engineer.getByRole('heading', { level: 1 }).textContent()) ?? '').replace('Quote ', '').trim();
+    expect(number).toMatch(/^RW-\d{4}-\d{4}$/);
+
+    // Add a fixed-price line; the preview follows at once, the stored totals after saving.
+    await engineer.getByRole('button', { name: 'Add a line' }).click();
+    const row = (await engineer.getByRole('textbox', { name: /^Description, line/ }).count());
+    await engineer.getByRole('textbox', { name: `Description, line ${row}` }).fill('Enclosure cut-outs and labels');
+    await engineer.getByRole('textbox', { name: `Unit price, line ${row}` }).fill('40.00');
+    await expect.poll(() => engineer.getByText('Unsaved changes').count()).toBe(1);
+    await engineer.getByRole('button', { name: 'Save draft' }).click();
+    await engineer.getByText('Saved. The totals below are the stored ones.').waitFor();
+    await screenshot(engineer, 'quote-builder');
+
+    await engineer.getByRole('button', { name: `Send to ${rail.email}` }).click();
+    await engineer.waitForURL(/\?sent=1$/);
+    await engineer.getByText(`Quote ${number} was e-mailed to ${rail.email}`).waitFor();
+    await desk.close();
+
+    // The e-mail as received, and its link.
+    const [message] = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
+    expect(message.subject).toContain(number);
+    const full = await (await fetch(`${mailApiUrl}/messages/${message.id}`)).json();
+    const link = /https?:\/\/\S+\/quotes\/[0-9a-f-]{36}/.exec(full.text)?.[0];
+    expect(link).toBeTruthy();
+
+    const phone = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const client = await phone.newPage();
+    client.on('pageerror', (e) => errors.push(e.message));
+    await client.goto(link!);
+    await client.waitForURL(/\/sign-in/);
+    await client.getByLabel('E-mail').fill(rail.email);
+    await client.getByLabel('Password').fill(CLIENT_PASSWORD);
+    await client.getByRole('button', { name: 'Sign in' }).click();
+    await client.waitForURL(link!);
+    await client.getByRole('heading', { name: `Quote ${number}` }).waitFor();
+    const deposit = client.getByRole('region', { name: 'Deposit' });
+    await expect(deposit.textContent()).resolves.toContain('Payment opens once the quote is accepted.');
+    expect(await client.getByText('Enclosure cut-outs and labels').count()).toBe(1);
+    expect(await client.getByText('confirm against the chosen part’s data').count()).toBeGreaterThan(0);
+    expect(await client.getByRole('link', { name: /Download the PDF/ }).getAttribute('href')).toMatch(/\/pdf\?download$/);
+    await screenshot(client, 'quote-client-phone');
+
+    await client.getByRole('button', { name: `Accept quote ${number}` }).click();
+    await client.getByText(`quote ${number} is accepted`).waitFor();
+    await expect(client.getByRole('region', { name: 'Acceptance' }).textContent()).resolves.toContain('Accepted on');
+    expect(await client.getByRole('button', { name: /Accept quote/ }).count()).toBe(0);
+    await screenshot(client, 'quote-client-accepted');
+    await phone.close();
+
+    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('accepted');
+    expect(errors).toEqual([]);
+  });
+});
