@@ -1,4 +1,4 @@
-import { count } from 'drizzle-orm';
+import { count, eq } from 'drizzle-orm';
 import type { Auth } from '../auth/create-auth';
 import type { Database } from '../db/connect';
 import { summarise } from '../../brief-summary';
@@ -6,11 +6,51 @@ import { briefSchema } from '../../engine/brief';
 import { defaultCatalog } from '../../engine/catalog';
 import { evaluate } from '../../engine/evaluate';
 import { catalogToRows } from '../catalog-rows';
-import { account, brief, clientProfile, designRevision, deviceClass, rateCard, stateChange, user } from '../db/schema';
-import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD } from './scenario';
+import { account, brief, clientProfile, designRevision, deviceClass, payment, quote, rateCard, stateChange, user } from '../db/schema';
+import { draftQuote } from '../quotes-core';
+import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';
 
 const DAY = 86_400_000;
+
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
+
+/**
+ * The quote of a demo brief, drafted the way the quote builder drafts one, then
+ * taken as far as the scenario says: sent, or accepted with its deposit paid.
+ */
+async function seedQuote(
+  tx: Tx,
+  p: { briefId: string; finalStatus: DemoBrief['status']; revisionId: string; engineerId: string; ownerId: string; plan: 'sent' | 'deposit-paid'; at: Date },
+) {
+  // Drafting needs a brief still under review; the scenario's state is restored right after.
+  await tx.update(brief).set({ status: 'in-review' }).where(eq(brief.id, p.briefId));
+  const drafted = await draftQuote(tx, { revisionId: p.revisionId, createdBy: p.engineerId, now: p.at });
+  if (!drafted.ok) throw new Error(`Demo quote could not be drafted: ${drafted.message}`);
+  await tx.update(brief).set({ status: p.finalStatus }).where(eq(brief.id, p.briefId));
+  const sentAt = new Date(p.at.getTime() + 3_600_000);
+  const steps: [string, string, string | null, Date][] = [['draft', 'sent', p.engineerId, sentAt]];
+  if (p.plan === 'deposit-paid') {
+    const acceptedAt = new Date(sentAt.getTime() + DAY);
+    const paidAt = new Date(acceptedAt.getTime() + 600_000);
+    steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
+    await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.quote.id));
+    await tx.insert(payment).values({
+      quoteId: drafted.quote.id,
+      checkoutSessionId: `cs_demo_${drafted.quote.id.slice(0, 8)}`,
+      paymentIntentId: `pi_demo_${drafted.quote.id.slice(0, 8)}`,
+      amountMinor: drafted.quote.depositMinor,
+      currency: drafted.quote.currency,
+      status: 'paid',
+      paidAt,
+    });
+  } else {
+    await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.quote.id));
+  }
+  for (const [from, to, actorId, at] of steps) {
+    await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: drafted.quote.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
+  }
+}
 
 /**
  * Seeds the demo scenario into an empty database, all in one transaction.
@@ -63,7 +103,10 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
         updatedAt: createdAt,
       });
       if (result && item.revisionNote && result.recommended) {
+        const revisionId = crypto.randomUUID();
+        const revisedAt = new Date((submittedAt?.getTime() ?? now) + 4 * 3_600_000);
         await tx.insert(designRevision).values({
+          id: revisionId,
           briefId,
           number: 1,
           authorId: engineerId,
@@ -73,8 +116,9 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           input: spec,
           result,
           note: item.revisionNote,
-          createdAt: new Date((submittedAt?.getTime() ?? now) + 4 * 3_600_000),
+          createdAt: revisedAt,
         });
+        if (item.quote) await seedQuote(tx, { briefId, finalStatus: item.status, revisionId, engineerId, ownerId, plan: item.quote, at: new Date(revisedAt.getTime() + DAY) });
       }
       const steps = lifecycleTo(item.status);
       let at = submittedAt?.getTime() ?? createdAt.getTime();

@@ -35,6 +35,8 @@ export interface DemoBrief {
   submittedDaysAgo?: number;
   /** The engineer's note on revision 1, for briefs that have been reviewed. */
   revisionNote?: string;
+  /** How far the quote of revision 1 has gone: sent to the client, or accepted and its deposit paid. */
+  quote?: 'sent' | 'deposit-paid';
   spec: BriefInput;
 }
 
@@ -46,6 +48,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     status: 'deposit-paid',
     submittedDaysAgo: 12,
     revisionNote: 'Buck-boost keeps 3.3 V across the whole discharge; quiescent current checked for the sleep budget.',
+    quote: 'deposit-paid',
     notes: 'Node sleeps most of the time; radio bursts of about 120 mA every 15 minutes. Cell runs from 4.2 V down to 3.0 V.',
     spec: {
       input: { vMin: 3.0, vNom: 3.7, vMax: 4.2, rippleVpp: 0, source: 'battery' },
@@ -74,6 +77,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     status: 'quoted',
     submittedDaysAgo: 6,
     revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
+    quote: 'sent',
     notes: 'Feeds a 24-bit ADC reference buffer and op-amps; the ripple budget is tight.',
     spec: {
       input: { vMin: 16, vNom: 18, vMax: 20, rippleVpp: 1.2, source: 'rectified' },
