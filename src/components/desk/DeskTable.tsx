@@ -2,6 +2,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import type { briefListJson } from '~/lib/server/briefs';
 import { BRIEF_STATUSES } from '~/lib/brief-status';
+import { ES1_DC_LIMIT_V } from '~/lib/engine/cautions';
 import { formatSi } from '~/lib/engine/units';
 import { formatDate, formatMoney } from '~/lib/format';
 import { percent, TOPOLOGY_NAMES } from '~/lib/option-words';
@@ -82,9 +83,16 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
       column.accessor('title', {
         header: 'Title',
         cell: (c) => (
-          <a href={`/desk/briefs/${c.row.original.id}`} className="font-semibold">
-            {c.getValue()}
-          </a>
+          <>
+            <a href={`/desk/briefs/${c.row.original.id}`} className="font-semibold">
+              {c.getValue()}
+            </a>
+            {(c.row.original.highestV ?? 0) > ES1_DC_LIMIT_V && (
+              <span className="mt-1 flex w-fit items-center gap-1 rounded border border-stop-700/30 bg-stop-50 px-1.5 text-xs font-bold text-stop-700">
+                <span aria-hidden="true">⚡</span>Hazardous voltage, up to {formatSi(c.row.original.highestV!, 'V')}
+              </span>
+            )}
+          </>
         ),
       }),
       column.accessor('status', { header: 'State', enableSorting: false, cell: (c) => <StateBadge table={BRIEF_STATE_LOOK} state={c.getValue()} /> }),

@@ -52,10 +52,10 @@ export function CalcTrace({ option }: { option: Option }) {
             <tbody>
               {assumptions.map(([name, q]) => (
                 <tr key={name}>
-                  <th scope="row" className="font-mono font-normal">
+                  <th scope="row" className="border-b border-rule font-mono font-normal text-ink">
                     {name}
                   </th>
-                  <td className="num">{quantity(q)}</td>
+                  <td className="num whitespace-nowrap">{quantity(q)}</td>
                   <td className="text-ink-soft">{TYPICAL_NOTE}</td>
                 </tr>
               ))}

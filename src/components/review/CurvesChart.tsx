@@ -51,6 +51,7 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
                 dash: look.dash,
                 width: o.feasible ? 2.5 : 1.5,
                 spanGaps: false,
+                points: { show: false },
                 value: (_u: uPlot, v: number | null) => (v === null ? '—' : spec.text(v)),
               };
             }),

@@ -68,10 +68,17 @@ export function OptionCard({ option, rank, rippleLimitVpp, currency, chosen, onC
           </ul>
         </details>
       )}
-      <label className="mt-3 flex cursor-pointer items-center gap-2 text-sm font-semibold">
-        <input type="radio" name="chosen-topology" checked={chosen} onChange={onChoose} className="size-4 accent-copper-700" />
-        {chosen ? 'Chosen for the revision' : `Choose ${TOPOLOGY_NAMES[option.topology]}`}
-      </label>
+      <div className="mt-3 flex flex-wrap items-center gap-x-3 gap-y-1 text-sm">
+        <label className="flex cursor-pointer items-center gap-2 font-semibold">
+          <input type="radio" name="chosen-topology" checked={chosen} onChange={onChoose} className="size-4 accent-copper-700" />
+          Choose {TOPOLOGY_NAMES[option.topology]}
+        </label>
+        {chosen && (
+          <span className="font-bold text-copper-700">
+            <span aria-hidden="true">✓ </span>chosen for the revision
+          </span>
+        )}
+      </div>
     </article>
   );
 }

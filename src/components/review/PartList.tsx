@@ -35,16 +35,16 @@ export function PartList({ option, currency }: { option: Option; currency: strin
             const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null].filter(Boolean).join(', ');
             return (
               <tr key={c.ref}>
-                <th scope="row" className="font-mono">
+                <th scope="row" className="border-b border-rule font-mono text-ink">
                   {c.ref}
                 </th>
                 <td>{ROLE_NAMES[c.role]}</td>
                 <td>{c.part}</td>
-                <td className="num">{componentValue(c)}</td>
-                <td className="num">{rating || '—'}</td>
+                <td className="num whitespace-nowrap">{componentValue(c)}</td>
+                <td className="num whitespace-nowrap">{rating || '—'}</td>
                 <td className="num">{pct(c.tolerance)}</td>
-                <td className="num">{p ? dash(p.maxW, 'W') : '—'}</td>
-                <td className="num">{p ? dash(p.faultW, 'W') : '—'}</td>
+                <td className="num whitespace-nowrap">{p ? dash(p.maxW, 'W') : '—'}</td>
+                <td className="num whitespace-nowrap">{p ? dash(p.faultW, 'W') : '—'}</td>
                 <td className="num">{formatMoney(c.costCents, currency)}</td>
               </tr>
             );

@@ -38,7 +38,7 @@ export function SpreadChart({ option, target, tolerance }: Props) {
           ],
           legend: { show: false },
           cursor: { drag: { x: false, y: false } },
-          series: [{}, { label: 'Draws', stroke: '#86421b', fill: 'rgba(192, 103, 47, 0.55)', width: 1, ...(bars ? { paths: bars } : {}) }],
+          series: [{}, { label: 'Draws', stroke: '#86421b', fill: 'rgba(192, 103, 47, 0.55)', width: 1, points: { show: false }, ...(bars ? { paths: bars } : {}) }],
           hooks: {
             // The band is drawn under the bars so the spread reads against the limits.
             drawClear: [

@@ -1,5 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import type uPlot from 'uplot';
+// The stylesheet is small and goes with the page's CSS; only the library's script waits for a chart.
+import 'uplot/dist/uPlot.min.css';
+import './charts.css';
 
 export type ChartBuilder = (lib: typeof uPlot, width: number) => { options: uPlot.Options; data: uPlot.AlignedData };
 
@@ -18,8 +21,8 @@ export function UPlotChart({ build, label }: Props) {
     let chart: uPlot | null = null;
     let observer: ResizeObserver | null = null;
     let cancelled = false;
-    Promise.all([import('uplot'), import('uplot/dist/uPlot.min.css')])
-      .then(([module]) => {
+    import('uplot')
+      .then((module) => {
         const el = box.current;
         if (cancelled || !el) return;
         const lib = module.default;
@@ -37,7 +40,7 @@ export function UPlotChart({ build, label }: Props) {
   }, [build]);
 
   return (
-    <div ref={box} role="img" aria-label={label} className="w-full min-h-8">
+    <div ref={box} role="img" aria-label={label} className="rw-chart min-h-8 w-full">
       {failed && <p className="text-sm text-stop-700">The chart could not be drawn; the figures are listed below it.</p>}
     </div>
   );

@@ -58,6 +58,8 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
         updatedAt: brief.updatedAt,
         clientName: user.name,
         company: clientProfile.company,
+        // The highest voltage on the rail, so the desk can flag hazardous ones before a brief is opened.
+        highestV: sql<number | null>`max(coalesce(json_extract(${brief.spec}, '$.input.vMax'), 0), coalesce(json_extract(${brief.spec}, '$.output.v'), 0))`,
       })
       .from(brief)
       .innerJoin(user, eq(user.id, brief.ownerId))
@@ -88,6 +90,7 @@ export function briefListJson(list: BriefList) {
       client: { id: row.ownerId, name: row.clientName, company: row.company },
       recommendedTopology: row.recommendedTopology,
       summary: row.summary as BriefSummary | null,
+      highestV: typeof row.highestV === 'number' && row.highestV > 0 ? row.highestV : null,
       submittedAt: row.submittedAt?.toISOString() ?? null,
       updatedAt: row.updatedAt.toISOString(),
     })),

@@ -44,7 +44,7 @@ export function nominalCorner(input: unknown): SpiceCorner {
 export function exportFileName(title: string, number: number, extension: string): string {
   const slug = title
     .normalize('NFKD')
-    .replace(/[^\w\s-]/g, '')
+    .replace(/[^\w\s-]/g, ' ')
     .trim()
     .toLowerCase()
     .replace(/[\s_-]+/g, '-')

@@ -1,7 +1,7 @@
 /** Two saved revisions of one brief side by side, for the compare page and its API. */
 import { z } from 'zod';
 import type { Evaluation } from '../engine';
-import { figureRows, inputChanges } from '../review-compare';
+import { chosenOption, figureRows, inputChanges } from '../review-compare';
 import { findRevisionWithBrief, partsCurrency } from './exports';
 
 export const compareQuerySchema = z.object({
@@ -33,6 +33,8 @@ async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevi
     b: { id: right.id, number: right.number, topology: right.topology, note: right.note, createdAt: right.createdAt },
     inputs: inputChanges(left, right),
     figures: figureRows(left, right, currency),
+    /** Both designs' safety cautions: a comparison shows designs too. */
+    cautions: [...(chosenOption(left)?.cautions ?? []), ...(chosenOption(right)?.cautions ?? [])],
   };
 }
 

@@ -1,0 +1,126 @@
+import { readFile } from 'node:fs/promises';
+import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { DEMO } from '../support/client';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const LAPTOP = { width: 1440, height: 900 };
+
+/** The options in the order the page shows them, best first. */
+async function ranking(page: Page): Promise<string[]> {
+  return page.getByRole('list', { name: 'Options, best first' }).locator('article[data-topology]').evaluateAll((cards) => cards.map((c) => c.getAttribute('data-topology') ?? ''));
+}
+
+async function chartsDrawn(page: Page): Promise<void> {
+  // uPlot is loaded on demand; three canvases appear once it has drawn.
+  await expect.poll(() => page.locator('figure canvas').count(), { timeout: 15_000 }).toBeGreaterThanOrEqual(3);
+}
+
+describe('an engineer reviews a brief', () => {
+  test('opens the submitted high-voltage brief from the desk, re-weights and overrides, saves two revisions, compares them and downloads the netlist', async () => {
+    const context = await browser.newContext({ viewport: LAPTOP, acceptDownloads: true });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+
+    await signInThroughForm(page, baseUrl, DEMO.engineer);
+    await page.goto(`${baseUrl}/desk`);
+    await page.getByLabel('State').selectOption('submitted');
+    const row = page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' });
+    await row.waitFor();
+    await expect.poll(() => page.locator('tbody tr').count()).toBe(1);
+    await page.getByRole('button', { name: /Title/ }).click();
+    await expect.poll(() => page.url()).toContain('sort=title');
+    await screenshot(page, 'desk-submitted');
+    await row.click();
+
+    await page.getByRole('heading', { name: 'Detector bias, 150 V from a 300–350 V supply', level: 1 }).waitFor();
+    const cautions = page.getByRole('note', { name: /Cautions/ }).first();
+    await expect.poll(() => cautions.textContent()).toContain('above the 60 V ES1 limit');
+    expect(await cautions.textContent()).toContain('defer to local electrical codes and licensed practice');
+    await chartsDrawn(page);
+    const before = await ranking(page);
+    expect(before).toHaveLength(7);
+    await screenshot(page, 'review-high-voltage');
+
+    // A much heavier cost weight and a forced pass device: re-run, and the order changes.
+    await page.getByLabel('Parts cost weight').fill('10');
+    await page.getByLabel('Pass device').selectOption('nmos');
+    await expect.poll(() => page.getByText('Changed since the last run').count()).toBe(1);
+    await page.getByRole('button', { name: 'Re-run the engine' }).click();
+    await expect.poll(() => ranking(page), { timeout: 10_000 }).not.toEqual(before);
+    await page.getByText('The options below reflect these choices.').waitFor();
+
+    await page.getByLabel('Choose Linear with high-voltage pre-drop').check();
+    await page.getByLabel('Note for the record').fill('Pre-drop on an N-MOSFET; parts cost weighs most for this lab.');
+    await page.getByRole('button', { name: 'Save revision' }).click();
+    await page.getByText(/Revision 1 saved: Linear with high-voltage pre-drop/).waitFor();
+
+    await page.getByLabel('Standoff voltage').fill('15');
+    await page.getByRole('button', { name: 'Re-run the engine' }).click();
+    await page.getByText('The options below reflect these choices.').waitFor();
+    await page.getByLabel('Note for the record').fill('Higher standoff for more regulator headroom.');
+    await page.getByRole('button', { name: 'Save revision' }).click();
+    await page.getByText(/Revision 2 saved/).waitFor();
+    await expect.poll(() => page.locator('[data-revision]').count()).toBe(2);
+    await screenshot(page, 'review-high-voltage-saved');
+
+    await page.getByLabel('Compare', { exact: true }).selectOption({ label: 'Revision 1' });
+    await page.getByLabel('with', { exact: true }).selectOption({ label: 'Revision 2' });
+    await page.getByRole('button', { name: 'Compare side by side' }).click();
+    await page.getByRole('heading', { name: 'Compare revisions' }).waitFor();
+    const inputs = page.locator('table[data-compare="inputs"]');
+    expect(await inputs.textContent()).toContain('overrides.standoffV');
+    expect(await inputs.textContent()).not.toContain('weights.cost');
+    await screenshot(page, 'review-compare');
+
+    await page.getByRole('link', { name: 'Calculation sheet 2' }).click();
+    await page.getByRole('heading', { name: 'Calculation', exact: true }).waitFor();
+    await screenshot(page, 'review-sheet');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download SPICE netlist (.cir)' }).click()]);
+    expect(download.suggestedFilename()).toBe('detector-bias-150-v-from-a-300-350-v-supply-rev2.cir');
+    const netlist = await readFile((await download.path())!, 'utf8');
+    expect(netlist).toContain('NMOS');
+    expect(netlist).toContain('* CAUTION: This supply works at up to 350 V DC');
+    expect(netlist.trimEnd().endsWith('.end')).toBe(true);
+
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  test('reads the quiet low-voltage brief: spread against its tight band, part list and calculation trace', async () => {
+    const context = await browser.newContext({ viewport: LAPTOP });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await signInThroughForm(page, baseUrl, DEMO.engineer);
+    await page.goto(`${baseUrl}/desk?q=Bench`);
+    await page.getByRole('link', { name: 'Bench meter analog front-end, quiet 12 V' }).click();
+    await page.getByRole('heading', { name: 'Ways to build it, best first' }).waitFor();
+    await chartsDrawn(page);
+    const spread = page.getByRole('figure', { name: /Output-voltage spread/ });
+    expect(await spread.textContent()).toMatch(/within the tolerance band/);
+    const trace = page.locator('[data-trace]');
+    expect(await trace.count()).toBeGreaterThan(5);
+    expect(await page.getByRole('table', { name: /Part list/ }).textContent()).toContain('typical — confirm against the chosen part’s data');
+    await screenshot(page, 'review-quiet');
+
+    // Keyboard: the weight fields are reachable and a typed value re-runs on Enter.
+    await page.getByLabel('Quietness weight').focus();
+    await page.keyboard.press('Control+A');
+    await page.keyboard.type('9');
+    await page.keyboard.press('Enter');
+    await page.getByText('The options below reflect these choices.').waitFor();
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
