@@ -11,7 +11,7 @@ export type CheckoutOutcome =
 
 type QuoteRow = typeof quote.$inferSelect;
 
-/** The quote if this client owns it (staff never pay), else null → 404. */
+/** The quote if this client owns it and it has been sent (drafts stay with the consultancy), else null → 404. */
 export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): Promise<QuoteRow | null> {
   if (isStaff(viewer)) return null;
   const [row] = await db
@@ -20,7 +20,7 @@ export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): 
     .innerJoin(brief, eq(brief.id, quote.briefId))
     .where(and(eq(quote.id, quoteId), eq(brief.ownerId, viewer.id)))
     .limit(1);
-  return row?.quote ?? null;
+  return row && row.quote.status !== 'draft' ? row.quote : null;
 }
 
 /**
