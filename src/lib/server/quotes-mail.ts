@@ -11,7 +11,6 @@ const escape = (value: string) => value.replace(/[&<>"']/g, (c) => `&#${c.charCo
 export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): OutgoingMail {
   const { quote } = view;
   const money = (minor: number) => formatMoney(minor, quote.currency);
-  const firstName = view.client.name.split(/\s+/)[0] || view.client.name;
   const design = view.design ? `${view.design.topologyName}, revision ${view.revision.number}` : `revision ${view.revision.number}`;
   const figures: [string, string][] = [
     ['Design', design],
@@ -24,7 +23,7 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
     : 'The quote sets out the safety points that apply to every supply rail; please read them before anyone builds or tests it.';
 
   const text = [
-    `Dear ${firstName},`,
+    `Dear ${view.client.name},`,
     '',
     `Thank you for your brief “${view.brief.title}”. Our quote ${quote.number} is attached as a PDF.`,
     '',
@@ -45,7 +44,7 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
   const html = `<!doctype html><html><body style="margin:0;padding:24px;background:#faf8f4;font-family:Manrope,Helvetica,Arial,sans-serif;color:#1e2329;font-size:15px;line-height:1.5">
 <div style="max-width:560px;margin:0 auto;background:#ffffff;border:1px solid #e4dfd6;border-radius:8px;padding:28px">
 <p style="margin:0 0 18px;font-size:20px;font-weight:800;color:#86421b">${escape(FIRM.name)}</p>
-<p>Dear ${escape(firstName)},</p>
+<p>Dear ${escape(view.client.name)},</p>
 <p>Thank you for your brief “${escape(view.brief.title)}”. Our quote <strong>${escape(quote.number)}</strong> is attached as a PDF.</p>
 <table style="border-collapse:collapse;width:100%;margin:12px 0 18px">${figures
     .map(([label, value]) => `<tr><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;color:#4a525c">${escape(label)}</td><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;text-align:right;font-weight:700">${escape(value)}</td></tr>`)
