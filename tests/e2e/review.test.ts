@@ -1,4 +1,5 @@
 import { readFile } from 'node:fs/promises';
+import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, screenshot, signInThroughForm } from './browser';
@@ -23,6 +24,17 @@ async function ranking(page: Page): Promise<string[]> {
 async function chartsDrawn(page: Page): Promise<void> {
   // uPlot is loaded on demand; three canvases appear once it has drawn.
   await expect.poll(() => page.locator('figure canvas').count(), { timeout: 15_000 }).toBeGreaterThanOrEqual(3);
+}
+
+/** Gzipped size of every script the page loads, dynamic imports included, in KB. */
+async function scriptKb(page: Page, load: () => Promise<void>): Promise<number> {
+  const bodies: Promise<Buffer>[] = [];
+  page.on('response', (response) => {
+    if (response.request().resourceType() === 'script') bodies.push(response.body());
+  });
+  await load();
+  const sizes = await Promise.all(bodies);
+  return sizes.reduce((sum, body) => sum + gzipSync(body).length, 0) / 1024;
 }
 
 describe('an engineer reviews a brief', () => {
@@ -121,6 +133,26 @@ describe('an engineer reviews a brief', () => {
     await page.keyboard.press('Enter');
     await page.getByText('The options below reflect these choices.').waitFor();
     expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  test('the desk and the review each ship under 120 KB of gzipped JavaScript, the chart library included', async () => {
+    const context = await browser.newContext({ viewport: LAPTOP });
+    const page = await context.newPage();
+    await signInThroughForm(page, baseUrl, DEMO.engineer);
+    const desk = await scriptKb(page, async () => {
+      await page.goto(`${baseUrl}/desk?q=Detector`, { waitUntil: 'networkidle' });
+    });
+    const href = await page.getByRole('link', { name: /Detector bias/ }).getAttribute('href');
+    const reviewPage = await context.newPage();
+    const review = await scriptKb(reviewPage, async () => {
+      await reviewPage.goto(`${baseUrl}${href}`, { waitUntil: 'networkidle' });
+      await chartsDrawn(reviewPage);
+    });
+    expect(desk).toBeGreaterThan(60);
+    expect(desk).toBeLessThan(120);
+    expect(review).toBeGreaterThan(desk);
+    expect(review).toBeLessThan(120);
     await context.close();
   });
 });

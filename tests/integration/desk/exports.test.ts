@@ -22,8 +22,13 @@ interface Chosen {
   components: { ref: string; value: number | null; part: string }[];
 }
 
-async function revisionOf(key: string, title: string, topology: string) {
-  const briefId = await submittedBrief(baseUrl, key, title);
+// One brief per demo rail, shared by the tests: every test brief lengthens the desk other tests read.
+const briefs = new Map<string, Promise<string>>();
+const TITLES: Record<string, string> = { 'detector-hv': 'Export test: 150 V bias', 'controller-24v': 'Export test: PLC card' };
+
+async function revisionOf(key: string, topology: string) {
+  if (!briefs.has(key)) briefs.set(key, submittedBrief(baseUrl, key, TITLES[key]!));
+  const briefId = await briefs.get(key)!;
   const revision = await saveRevision(engineer, briefId, { topology, note: `Export check, ${topology}` });
   const chosen: Chosen = revision.result.options.find((o: Chosen) => o.topology === topology);
   return { revision, chosen };
@@ -49,7 +54,7 @@ const within2 = (simulated: number, design: number) => expect(Math.abs(simulated
 
 describe('netlist export', () => {
   test('the high-voltage pre-drop design simulates to its output voltage, and the file carries the cautions', async () => {
-    const { revision, chosen } = await revisionOf('detector-hv', 'Export test: 150 V bias', 'linear-predrop');
+    const { revision, chosen } = await revisionOf('detector-hv', 'linear-predrop');
     const response = await engineer.request(`/api/v1/revisions/${revision.id}/netlist.cir`);
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe('text/plain; charset=utf-8');
@@ -69,7 +74,7 @@ describe('netlist export', () => {
   });
 
   test('the buck design of the 24 V card averages to its output voltage in a switching transient', async () => {
-    const { revision, chosen } = await revisionOf('controller-24v', 'Export test: PLC card', 'buck');
+    const { revision, chosen } = await revisionOf('controller-24v', 'buck');
     const text = await (await engineer.request(`/api/v1/revisions/${revision.id}/netlist.cir`)).text();
     expect(text).toContain('.tran');
     const wave = await simulate(text);
@@ -77,7 +82,7 @@ describe('netlist export', () => {
   });
 
   test('a topology without a netlist export is a 409 that says which ones have one', async () => {
-    const { revision } = await revisionOf('controller-24v', 'Export test: boost refused', 'boost');
+    const { revision } = await revisionOf('controller-24v', 'boost');
     const response = await engineer.request(`/api/v1/revisions/${revision.id}/netlist.cir`);
     expect(response.status).toBe(409);
     expect((await response.json()).message).toMatch(/No netlist export exists yet for a boost .*shunt, linear, pre-drop or buck/);
@@ -87,7 +92,7 @@ describe('netlist export', () => {
 
 describe('part list export', () => {
   test('one CSV row per part of the chosen design, with values in SI units and costs in minor units', async () => {
-    const { revision, chosen } = await revisionOf('detector-hv', 'Export test: CSV', 'linear-predrop');
+    const { revision, chosen } = await revisionOf('detector-hv', 'linear-predrop');
     const response = await engineer.request(`/api/v1/revisions/${revision.id}/parts.csv`);
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');

@@ -1,13 +1,21 @@
-import { describe, expect, inject, test } from 'vitest';
+import { beforeAll, describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
 import { saveRevision, submittedBrief } from './helpers';
 
 const baseUrl = inject('baseUrl');
+const mailApiUrl = inject('mailApiUrl');
+// Few briefs of our own: every test brief lengthens the desk other tests read.
+let plcId: string;
+let movingId: string;
+beforeAll(async () => {
+  plcId = await submittedBrief(baseUrl, 'controller-24v', 'Review test: 5 V from 24 V');
+  movingId = await submittedBrief(baseUrl, 'detector-hv', 'Review test: detector bias on the move');
+});
 
 describe('revisions compared side by side', () => {
   test('the comparison lists the changed inputs and the key figures of both chosen options', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const briefId = await submittedBrief(baseUrl, 'controller-24v', 'Compare test: 5 V from 24 V');
+    const briefId = plcId;
     const one = await saveRevision(engineer, briefId, { note: 'As briefed' });
     const two = await saveRevision(engineer, briefId, {
       topology: 'buck-boost',
@@ -45,10 +53,8 @@ describe('revisions compared side by side', () => {
 
   test('revisions of two briefs, unknown ones and missing parameters are refused with a reason', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const first = await submittedBrief(baseUrl, 'controller-24v', 'Compare test: brief A');
-    const second = await submittedBrief(baseUrl, 'controller-24v', 'Compare test: brief B');
-    const a = await saveRevision(engineer, first, {});
-    const b = await saveRevision(engineer, second, {});
+    const a = await saveRevision(engineer, plcId, {});
+    const b = await saveRevision(engineer, movingId, {});
     const mixed = await engineer.request(`/api/v1/revisions/compare?a=${a.id}&b=${b.id}`);
     expect(mixed.status).toBe(400);
     expect((await mixed.json()).issues[0].message).toBe('Compare two revisions of the same brief.');
@@ -62,7 +68,7 @@ describe('revisions compared side by side', () => {
 describe('state moves and internal notes on the review page', () => {
   test('an engineer moves a brief with a reason through the page form; the history records who and why', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const briefId = await submittedBrief(baseUrl, 'detector-hv', 'Move test: detector bias');
+    const briefId = movingId;
     const moved = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', status: 'in-review', note: 'Taking this one' });
     expect(moved.status).toBe(303);
     expect(moved.headers.get('location')).toBe(`/desk/briefs/${briefId}?done=moved`);
@@ -81,7 +87,7 @@ describe('state moves and internal notes on the review page', () => {
 
   test('notes are kept for staff through the API and the page, and never reach the client', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const briefId = await submittedBrief(baseUrl, 'controller-24v', 'Notes test: PLC card');
+    const briefId = plcId;
     const secret = 'Margin is thin; ask about the cabinet fan before quoting.';
     const posted = await engineer.request(`/api/v1/briefs/${briefId}/notes`, { method: 'POST', json: { body: secret } });
     expect(posted.status).toBe(201);
@@ -99,5 +105,17 @@ describe('state moves and internal notes on the review page', () => {
     expect(JSON.stringify(await (await owner.request(`/api/v1/briefs/${briefId}`)).json())).not.toContain('cabinet fan');
     expect(await (await owner.request(`/briefs/${briefId}`)).text()).not.toContain('cabinet fan');
     expect((await owner.request(`/api/v1/briefs/${briefId}/notes`)).status).toBe(403);
+  });
+});
+
+describe('the arrival e-mail', () => {
+  test('tells the engineers about a submitted brief with a link to its review page', async () => {
+    const briefId = plcId;
+    const list = await (await fetch(`${mailApiUrl}/messages?to=${DEMO.engineer}`)).json();
+    const summary = (Array.isArray(list) ? list : list.messages).find((m: { subject: string }) => m.subject === 'New brief: Review test: 5 V from 24 V');
+    const message = await (await fetch(`${mailApiUrl}/messages/${summary.id}`)).json();
+    expect(message.text).toContain(`${baseUrl}/desk/briefs/${briefId}`);
+    const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
+    expect((await engineer.request(`/desk/briefs/${briefId}`)).status).toBe(200);
   });
 });
