@@ -81,3 +81,27 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     expect(errors).toEqual([]);
   });
 });
+
+describe('the admin’s prices and mail', () => {
+  test('the rate card reads as a form of labelled figures and the mail log shows a sent quote with its PDF', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
+    expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
+
+    const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const page = await context.newPage();
+    await signInThroughForm(page, baseUrl, DEMO.admin);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Rate card' }).click();
+    await page.getByRole('heading', { name: 'Rate card', level: 1 }).waitFor();
+    expect(await page.getByLabel('Hourly rate').inputValue()).toBe('115.00');
+    expect(await page.getByLabel('Buck (step-down) switcher').inputValue()).toBe('12');
+    await screenshot(page, 'admin-rate-card');
+
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mail log' }).click();
+    const summary = page.getByText(`Quote ${quote.number}: ${'Valve manifold, 12 V at 2 A from the 24 V bus'}`).first();
+    await summary.click();
+    expect(await page.getByRole('link', { name: `Railwright-quote-${quote.number}.pdf` }).getAttribute('href')).toBe(`/api/v1/quotes/${quote.id}/pdf`);
+    await screenshot(page, 'admin-mail-log');
+    await context.close();
+  });
+});
