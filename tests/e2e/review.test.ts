@@ -28,13 +28,14 @@ async function chartsDrawn(page: Page): Promise<void> {
 
 /** Gzipped size of every script the page loads, dynamic imports included, in KB. */
 async function scriptKb(page: Page, load: () => Promise<void>): Promise<number> {
-  const bodies: Promise<Buffer>[] = [];
-  page.on('response', (response) => {
-    if (response.request().resourceType() === 'script') bodies.push(response.body());
+  const urls = new Set<string>();
+  page.on('request', (request) => {
+    if (request.resourceType() === 'script') urls.add(request.url());
   });
   await load();
-  const sizes = await Promise.all(bodies);
-  return sizes.reduce((sum, body) => sum + gzipSync(body).length, 0) / 1024;
+  // Fetched again after the page settled: a navigation may drop the browser's copy of a body.
+  const bodies = await Promise.all([...urls].map(async (url) => (await page.request.get(url)).body()));
+  return bodies.reduce((sum, body) => sum + gzipSync(body).length, 0) / 1024;
 }
 
 describe('an engineer reviews a brief', () => {
@@ -50,6 +51,7 @@ describe('an engineer reviews a brief', () => {
     const row = page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' });
     await row.waitFor();
     await expect.poll(() => page.locator('tbody tr').count()).toBe(1);
+    await page.getByText('Hazardous voltage: 350 V').waitFor();
     await page.getByRole('button', { name: /Title/ }).click();
     await expect.poll(() => page.url()).toContain('sort=title');
     await screenshot(page, 'desk-submitted');

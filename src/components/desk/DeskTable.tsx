@@ -83,21 +83,21 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
       column.accessor('title', {
         header: 'Title',
         cell: (c) => (
-          <>
+          <div className="min-w-52">
             <a href={`/desk/briefs/${c.row.original.id}`} className="font-semibold">
               {c.getValue()}
             </a>
             {(c.row.original.highestV ?? 0) > ES1_DC_LIMIT_V && (
-              <span className="mt-1 flex w-fit items-center gap-1 rounded border border-stop-700/30 bg-stop-50 px-1.5 text-xs font-bold text-stop-700">
-                <span aria-hidden="true">⚡</span>Hazardous voltage, up to {formatSi(c.row.original.highestV!, 'V')}
+              <span className="mt-1 flex w-fit items-center gap-1 whitespace-nowrap rounded border border-stop-700/30 bg-stop-50 px-1.5 text-xs font-bold text-stop-700">
+                <span aria-hidden="true">⚡</span>Hazardous voltage: {formatSi(c.row.original.highestV!, 'V')}
               </span>
             )}
-          </>
+          </div>
         ),
       }),
       column.accessor('status', { header: 'State', enableSorting: false, cell: (c) => <StateBadge table={BRIEF_STATE_LOOK} state={c.getValue()} /> }),
-      column.accessor('submittedAt', { id: 'submitted', header: 'Submitted', cell: (c) => formatDate(c.getValue() ? Date.parse(c.getValue()!) : null) }),
-      column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => formatDate(Date.parse(c.getValue())) }),
+      column.accessor('submittedAt', { id: 'submitted', header: 'Submitted', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue() ? Date.parse(c.getValue()!) : null)}</span> }),
+      column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => <span className="whitespace-nowrap">{formatDate(Date.parse(c.getValue()))}</span> }),
       column.accessor('recommendedTopology', {
         header: 'Recommended',
         enableSorting: false,

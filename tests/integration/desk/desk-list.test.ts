@@ -11,6 +11,7 @@ interface Item {
   submittedAt: string | null;
   updatedAt: string;
   summary: { topology: string; feasibleCount: number } | null;
+  highestV: number | null;
 }
 
 async function list(visitor: Visitor, query: string): Promise<{ items: Item[]; total: number; page: number; pageSize: number }> {
@@ -27,6 +28,8 @@ describe('the desk list', () => {
     expect(submitted.items.every((b) => b.status === 'submitted')).toBe(true);
     expect(submitted.items.map((b) => b.title)).toContain('Detector bias, 150 V from a 300–350 V supply');
     expect(submitted.items.map((b) => b.title)).not.toContain('PLC I/O card, 5 V at 1.5 A from the 24 V bus');
+    // The 350 V input is flagged on the desk before anyone opens the brief (ES1 limit of IEC 62368-1: 60 V DC).
+    expect(submitted.items.find((b) => b.title.startsWith('Detector bias'))!.highestV).toBe(350);
 
     const harrow = (await list(engineer, 'q=Harrowgate')).items.find((b) => b.title === 'PLC I/O card, 5 V at 1.5 A from the 24 V bus')!;
     expect(harrow.client.company).toBe('Harrowgate Controls');
