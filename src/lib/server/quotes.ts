@@ -2,7 +2,7 @@
  * What engineers and clients do to quotes: draft, edit while draft, render,
  * send, accept. Each action is one transaction; routes and pages only translate.
  */
-import { and, eq } from 'drizzle-orm';
+import { and, eq, isNull, lt, or } from 'drizzle-orm';
 import { formatDate } from '../format';
 import { quoteTotals, withQuantity, type QuotePatch } from '../pricing';
 import { moveBrief } from './briefs';
@@ -90,6 +90,9 @@ export async function createQuote(staff: SignedInUser, revisionId: string, quant
 }
 
 const DAY_MS = 86_400_000;
+/** A send that has not finished in this long is taken to have died (a crashed process); it may be retried. */
+const SEND_CLAIM_MS = 120_000;
+const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.sendingSince, new Date(now.getTime() - SEND_CLAIM_MS)));
 
 /** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
 export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<QuoteResult<QuoteView>> {
@@ -121,13 +124,13 @@ export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new 
         ...(validUntil ? { validUntil } : {}),
         updatedAt: now,
       })
-      .where(and(eq(quote.id, view.quote.id), eq(quote.status, 'draft')))
+      .where(and(eq(quote.id, view.quote.id), eq(quote.status, 'draft'), notBeingSent(now)))
       .returning();
     if (!row) return null;
     await writeLines(tx, row.id, lines, taxRateBp, depositBp);
     return row;
   });
-  if (!updated) return wrong('The quote was sent meanwhile; reload it.');
+  if (!updated) return wrong('The quote is being sent or was sent meanwhile; reload it.');
   return reload(updated.id);
 }
 
@@ -151,15 +154,27 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
   if (view.quote.totalMinor <= 0) return wrong('The quote totals nothing; add priced lines before sending it.');
   if (view.quote.validUntil.getTime() < now.getTime()) return wrong(`The validity date ${formatDate(view.quote.validUntil)} has passed; set a new one before sending.`);
 
-  const asSent: QuoteView = { ...view, status: 'sent', quote: { ...view.quote, status: 'sent', sentAt: now } };
-  const pdf = await quotePdf(asSent);
-  const mailed = await mailer.send(quoteMail(asSent, pdf, quotePageUrl(view.quote.id)));
+  // Claim the send first: a second click or a second engineer gets a 409 rather than a second e-mail.
+  const [claimed] = await db
+    .update(quote)
+    .set({ sendingSince: now })
+    .where(and(eq(quote.id, view.quote.id), eq(quote.status, 'draft'), notBeingSent(now)))
+    .returning({ id: quote.id });
+  if (!claimed) return wrong('This quote is being sent right now; reload in a moment to see the outcome.');
+
+  // Read again under the claim, so the PDF shows exactly what is stored as sent.
+  const current = (await loadQuoteView(db, view.quote.id)) ?? view;
+  const asSent: QuoteView = { ...current, status: 'sent', quote: { ...current.quote, status: 'sent', sentAt: now } };
+  const mailed = await quotePdf(asSent)
+    .then((pdf) => mailer.send(quoteMail(asSent, pdf, quotePageUrl(view.quote.id))))
+    .catch((err: unknown) => ({ ok: false as const, error: err instanceof Error ? err.message : String(err) }));
   if (!mailed.ok) {
+    await db.update(quote).set({ sendingSince: null }).where(eq(quote.id, view.quote.id));
     return { ok: false, status: 502, message: `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.` };
   }
 
   const marked = await db.transaction(async (tx) => {
-    const sent = await moveQuote(tx, view.quote, 'sent', staff.id, { sentAt: now });
+    const sent = await moveQuote(tx, current.quote, 'sent', staff.id, { sentAt: now, sendingSince: null });
     if (!sent) return false;
     const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
     // The mail is out, so the quote is sent whatever happened to the brief meanwhile.

@@ -157,6 +157,18 @@ describe('editing, sending and accepting', () => {
     expect(log).toContain(`/api/v1/quotes/${quote.id}/pdf`);
   });
 
+  test('two sends at once mail the client once: the second is told the quote is being sent', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const quote = await draft(rail.engineer, rail.revisionId);
+    const other = await new Visitor(baseUrl).signIn(DEMO.admin);
+    const answers = await Promise.all([
+      rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' }),
+      other.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' }),
+    ]);
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
+    expect(await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()).toHaveLength(1);
+  });
+
   test('accept: not before it is sent, only by its client, not twice → 409s; the brief moves to accepted', async () => {
     const rail = await railUnderReview(baseUrl);
     const quote = await draft(rail.engineer, rail.revisionId);

@@ -150,6 +150,8 @@ export const quote = sqliteTable(
       .notNull()
       .references(() => user.id),
     sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
+    /** Set while one request is e-mailing the quote, so a second click cannot mail it twice. */
+    sendingSince: integer('sending_since', { mode: 'timestamp_ms' }),
     acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

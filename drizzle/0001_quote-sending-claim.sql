@@ -1,0 +1,1 @@
+ALTER TABLE `quote` ADD `sending_since` integer;
