@@ -15,6 +15,8 @@ process.env.PUBLIC_BASE_URL ??= `http://localhost:${port}`;
 const fakes = await startFakes({ webhookUrl: `http://127.0.0.1:${port}/api/v1/payments/webhook` });
 process.env.STRIPE_API_BASE ??= fakes.stripeUrl;
 process.env.SMTP_URL ??= fakes.smtpUrl;
+process.env.MAIL_FAKE_HTTP_URL ??= fakes.mailApiUrl;
+process.env.STRIPE_WEBHOOK_SECRET ??= fakes.webhookSecret;
 
 const { url, db, client, auth } = scriptContext();
 await migrateDatabase(db, client, url);

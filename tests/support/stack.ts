@@ -28,6 +28,7 @@ export async function startStack() {
       PORT: String(appPort),
       PUBLIC_BASE_URL: `http://127.0.0.1:${appPort}`,
       SMTP_URL: fakes.smtpUrl,
+      MAIL_FAKE_HTTP_URL: fakes.mailApiUrl,
       STRIPE_API_BASE: fakes.stripeUrl,
       STRIPE_SECRET_KEY: TEST_STRIPE_KEY,
       STRIPE_WEBHOOK_SECRET: TEST_WEBHOOK_SECRET,

@@ -72,6 +72,19 @@ describe('briefs API', () => {
     expect((await new Visitor(baseUrl).request('/api/v1/briefs')).status).toBe(401);
   });
 
+  test('a brief reads with its quotes (sent ones only, for the client) and, for staff, its revisions', async () => {
+    const client = await new Visitor(baseUrl).signIn(DEMO.client);
+    const mine = await (await client.request('/api/v1/briefs?q=Soil-moisture')).json();
+    const detail = await (await client.request(`/api/v1/briefs/${mine.items[0].id}`)).json();
+    expect(detail.quotes).toHaveLength(1);
+    expect(detail.quotes[0]).toMatchObject({ status: 'deposit-paid', currency: 'EUR' });
+    expect(detail.quotes[0].number).toMatch(/^RW-\d{4}-\d{4}$/);
+    expect(detail).not.toHaveProperty('revisions');
+    const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
+    const staffView = await (await engineer.request(`/api/v1/briefs/${mine.items[0].id}`)).json();
+    expect(staffView.revisions[0]).toMatchObject({ number: 1, topology: 'buck-boost' });
+  });
+
   test('another client’s brief is 404 — read and write alike', async () => {
     const owner = await new Visitor(baseUrl).signIn(DEMO.otherClient);
     const theirs = (await (await owner.request('/api/v1/briefs')).json()).items[0];

@@ -47,6 +47,7 @@ function highVoltageView(): QuoteView {
     createdBy: 'e',
     sentAt: now,
     acceptedAt: null,
+    sendingSince: null,
     createdAt: now,
     updatedAt: now,
   };

@@ -6,13 +6,24 @@ import { briefDetail, findBriefFor, type BriefRow } from '~/lib/server/briefs';
 import { ANY_ROLE, guardApi, isStaff } from '~/lib/server/guard';
 import { apiError, invalid, json, notFound, readJson } from '~/lib/server/http';
 import { zodIssues } from '~/lib/server/validation';
+import { quotesOfBrief } from '~/lib/server/quotes';
+import { listRevisions } from '~/lib/server/revisions';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
   if (!gate.ok) return gate.response;
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
-  return json(briefDetailJson(await briefDetail(row)));
+  const staff = isStaff(gate.user);
+  const [detail, quotes, revisions] = await Promise.all([briefDetail(row), quotesOfBrief(row.id), staff ? listRevisions(row.id) : Promise.resolve([])]);
+  return json({
+    ...briefDetailJson(detail),
+    // Clients see a quote once it is sent; drafts stay with the consultancy.
+    quotes: quotes
+      .filter((q) => staff || q.status !== 'draft')
+      .map((q) => ({ id: q.id, number: q.number, status: q.status, currency: q.currency, totalMinor: q.totalMinor, depositMinor: q.depositMinor, sentAt: q.sentAt?.toISOString() ?? null })),
+    ...(staff ? { revisions: revisions.map((r) => ({ id: r.id, number: r.number, topology: r.topology, note: r.note, author: r.author, createdAt: r.createdAt.toISOString() })) } : {}),
+  });
 };
 
 function answer(result: ActionResult<BriefRow>): Response {
