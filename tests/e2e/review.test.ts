@@ -50,7 +50,10 @@ describe('an engineer reviews a brief', () => {
     await page.getByLabel('State').selectOption('submitted');
     const row = page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' });
     await row.waitFor();
+    await expect.poll(() => page.locator('tbody tr').filter({ hasNotText: 'Submitted' }).count()).toBe(0);
+    await page.getByLabel('Search').fill('Aster');
     await expect.poll(() => page.locator('tbody tr').count()).toBe(1);
+    await expect.poll(() => page.url()).toContain('q=Aster');
     await page.getByText('Hazardous voltage: 350 V').waitFor();
     await page.getByRole('button', { name: /Title/ }).click();
     await expect.poll(() => page.url()).toContain('sort=title');
