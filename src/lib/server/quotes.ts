@@ -2,7 +2,7 @@
  * What engineers and clients do to quotes: draft, edit while draft, render,
  * send, accept. Each action is one transaction; routes and pages only translate.
  */
-import { and, eq, isNull, lt, or } from 'drizzle-orm';
+import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
 import { formatDate } from '../format';
 import { quoteTotals, withQuantity, type QuotePatch } from '../pricing';
 import { moveBrief } from './briefs';
@@ -50,6 +50,15 @@ export async function findQuoteFor(viewer: SignedInUser, id: string, { ownDrafts
 
 export async function quotesOfBrief(briefId: string): Promise<QuoteRow[]> {
   return db.select().from(quote).where(eq(quote.briefId, briefId)).orderBy(quote.createdAt);
+}
+
+/** The newest quote of each brief (sent ones only unless `includeDrafts`), for list pages. */
+export async function latestQuotes(briefIds: readonly string[], includeDrafts = false): Promise<Map<string, QuoteRow>> {
+  if (briefIds.length === 0) return new Map();
+  const rows = await db.select().from(quote).where(inArray(quote.briefId, [...briefIds])).orderBy(quote.createdAt);
+  const latest = new Map<string, QuoteRow>();
+  for (const row of rows) if (includeDrafts || row.status !== 'draft') latest.set(row.briefId, row);
+  return latest;
 }
 
 export function quoteJson(view: QuoteView) {

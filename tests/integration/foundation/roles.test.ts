@@ -115,3 +115,12 @@ describe('accounts', () => {
     expect((await visitor.request('/briefs')).status).toBe(303);
   });
 });
+
+describe('client home', () => {
+  test('lists the client’s briefs with their state and, once sent, the quote', async () => {
+    const client = await new Visitor(baseUrl).signIn(DEMO.client);
+    const html = await (await client.request('/briefs')).text();
+    expect(html).toMatch(/Quote RW-\d{4}-\d{4}/);
+    expect(html).toContain('Deposit paid');
+  });
+});

@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { payment } from '../db/schema';
 
@@ -9,6 +9,13 @@ export async function depositState(quoteId: string): Promise<{ paid: PaymentRow 
   const [paid] = await db.select().from(payment).where(and(eq(payment.quoteId, quoteId), eq(payment.status, 'paid'))).limit(1);
   const [latest] = await db.select().from(payment).where(eq(payment.quoteId, quoteId)).orderBy(desc(payment.createdAt)).limit(1);
   return { paid: paid ?? null, latest: latest ?? null };
+}
+
+/** Paid deposits of several quotes at once, by quote id (for lists). */
+export async function paidDeposits(quoteIds: readonly string[]): Promise<Map<string, PaymentRow>> {
+  if (quoteIds.length === 0) return new Map();
+  const rows = await db.select().from(payment).where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.status, 'paid')));
+  return new Map(rows.map((row) => [row.quoteId, row]));
 }
 
 /** What the client is told on coming back from the hosted checkout (the `payment` query value). */
