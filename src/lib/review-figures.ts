@@ -10,8 +10,6 @@ import { percent } from './option-words';
 export interface Figure {
   key: string;
   label: string;
-  /** The number compared between revisions; null where the option has none. */
-  value: number | null;
   text: string;
   /** Rests on typical device parameters. */
   typical: boolean;
@@ -40,24 +38,23 @@ export function componentValue(c: Pick<Component, 'value' | 'unit' | 'quantity'>
 
 export function keyFigures(option: Option, rippleLimitVpp: number, currency: string): Figure[] {
   const hot = hottestPart(option);
-  const f = (key: string, label: string, value: number | null, text: string, typical = true): Figure => ({ key, label, value, text, typical });
+  const f = (key: string, label: string, text: string, typical = true): Figure => ({ key, label, text, typical });
   return [
-    f('score', 'Score', option.score, option.score.toFixed(1), false),
-    f('efficiencyNominal', 'Efficiency, nominal', option.efficiency.nominal, percent(option.efficiency.nominal, 1)),
-    f('efficiencyWorst', 'Efficiency, worst', option.efficiency.worst, percent(option.efficiency.worst, 1)),
-    f('dissipationMaxW', 'Worst dissipation', option.dissipation.totalMaxW, formatSi(option.dissipation.totalMaxW, 'W')),
-    f('hottestW', 'Hottest part', hot?.maxW ?? null, hot ? `${hot.ref}, ${formatSi(hot.maxW, 'W')}` : '—'),
-    f('heatsinkThetaSa', 'Heatsink', option.heatsink.required ? option.heatsink.maxThetaSaCW : null, heatsinkText(option)),
-    f('partCount', 'Part count', option.partCount, String(option.partCount), false),
+    f('score', 'Score', option.score.toFixed(1), false),
+    f('efficiencyNominal', 'Efficiency, nominal', percent(option.efficiency.nominal, 1)),
+    f('efficiencyWorst', 'Efficiency, worst', percent(option.efficiency.worst, 1)),
+    f('dissipationMaxW', 'Worst dissipation', formatSi(option.dissipation.totalMaxW, 'W')),
+    f('hottestW', 'Hottest part', hot ? `${hot.ref}, ${formatSi(hot.maxW, 'W')}` : '—'),
+    f('heatsinkThetaSa', 'Heatsink', heatsinkText(option)),
+    f('partCount', 'Part count', String(option.partCount), false),
     f(
       'rippleVpp',
       'Ripple vs limit',
-      option.outputRippleVpp,
       `${formatSi(option.outputRippleVpp, 'Vpp')} of ${formatSi(rippleLimitVpp, 'Vpp')}${option.outputRippleVpp > rippleLimitVpp ? ' — over the limit' : ''}`,
     ),
-    f('vOutMin', 'Output, lowest', option.vOutRange.min, formatSi(option.vOutRange.min, 'V', 4)),
-    f('vOutMax', 'Output, highest', option.vOutRange.max, formatSi(option.vOutRange.max, 'V', 4)),
-    f('inTolerance', 'Monte Carlo within tolerance', option.monteCarlo.fractionInTolerance, percent(option.monteCarlo.fractionInTolerance, 1)),
-    f('costCents', 'Parts cost', option.costCents, formatMoney(option.costCents, currency)),
+    f('vOutMin', 'Output, lowest', formatSi(option.vOutRange.min, 'V', 4)),
+    f('vOutMax', 'Output, highest', formatSi(option.vOutRange.max, 'V', 4)),
+    f('inTolerance', 'Monte Carlo within tolerance', percent(option.monteCarlo.fractionInTolerance, 1)),
+    f('costCents', 'Parts cost', formatMoney(option.costCents, currency)),
   ];
 }

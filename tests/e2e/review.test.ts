@@ -91,6 +91,13 @@ describe('an engineer reviews a brief', () => {
     await expect.poll(() => page.locator('[data-revision]').count()).toBe(2);
     await screenshot(page, 'review-high-voltage-saved');
 
+    // Starting again from revision 1 brings back its choices: standoff empty, N-MOSFET kept.
+    await page.locator('[data-revision="1"]').getByRole('link', { name: /Start from its choices/ }).click();
+    await page.getByText('Choices of revision 1.', { exact: false }).waitFor();
+    expect(await page.getByLabel('Standoff voltage').inputValue()).toBe('');
+    expect(await page.getByLabel('Pass device').inputValue()).toBe('nmos');
+    expect(await page.getByLabel('Parts cost weight').inputValue()).toBe('10');
+
     await page.getByLabel('Compare', { exact: true }).selectOption({ label: 'Revision 1' });
     await page.getByLabel('with', { exact: true }).selectOption({ label: 'Revision 2' });
     await page.getByRole('button', { name: 'Compare side by side' }).click();

@@ -49,6 +49,9 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
                 <a href={`/api/v1/revisions/${r.id}/parts.csv`} download>
                   Part list (CSV)<span className="sr-only"> of revision {r.number}</span>
                 </a>
+                <a href={`/desk/briefs/${briefId}?from=${r.id}#adjust-heading`}>
+                  Start from its choices<span className="sr-only"> (revision {r.number})</span>
+                </a>
               </div>
             </li>
           ))}

@@ -7,15 +7,16 @@ import { briefDetail, type BriefRow } from './briefs';
 import { currentCatalog } from './catalog';
 import { partsCurrency } from './exports';
 import { listNotes } from './notes';
-import { findRevision, listRevisions } from './revisions';
+import { listRevisions } from './revisions';
 
-export async function reviewPageData(row: BriefRow) {
+/** `fromRevisionId` starts the form from that revision's choices instead of the latest one's. */
+export async function reviewPageData(row: BriefRow, fromRevisionId: string | null = null) {
   const [detail, revisions, notes, catalog, currency] = await Promise.all([briefDetail(row), listRevisions(row.id), listNotes(row.id), currentCatalog(), partsCurrency()]);
   const spec = briefSchema.safeParse(row.spec);
-  const latest = revisions[0] ? await findRevision(row.id, revisions[0].id) : null;
-  const weights = (latest?.weights ?? (spec.success ? spec.data.weights : {})) as Record<string, unknown>;
-  const overrides = (latest?.overrides ?? {}) as Record<string, unknown>;
-  // Start from the latest revision's choices, re-run on today's catalog, so a re-run changes only what the engineer changes.
+  const base = revisions.find((r) => r.id === fromRevisionId) ?? revisions[0] ?? null;
+  const weights = (base?.weights ?? (spec.success ? spec.data.weights : {})) as Record<string, unknown>;
+  const overrides = (base?.overrides ?? {}) as Record<string, unknown>;
+  // Start from that revision's choices, re-run on today's catalog, so a re-run changes only what the engineer changes.
   const start = spec.success ? briefWithChoices(row.spec, { weights, overrides }) : null;
   const result = start?.success ? evaluate(start.data, catalog) : null;
   return {
@@ -24,8 +25,8 @@ export async function reviewPageData(row: BriefRow) {
     spec: spec.success ? spec.data : null,
     result,
     form: formFrom(weights, overrides),
-    topology: (latest?.topology as TopologyId | undefined) ?? null,
-    startedFrom: latest?.number ?? null,
+    topology: (base?.topology as TopologyId | undefined) ?? null,
+    startedFrom: base?.number ?? null,
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, topology: r.topology, note: r.note, createdAt: r.createdAt.toISOString(), author: r.author })),
     linearClasses: catalog.linearRegulators.map((c) => ({ id: c.id, label: c.label })),
     currency,
