@@ -1,4 +1,5 @@
 // Safety cautions shown wherever a design is shown and in the PDF.
+import { formatSi } from './units.ts';
 import type { Brief } from './brief.ts';
 import type { Caution } from './types.ts';
 
@@ -48,7 +49,7 @@ export function storedEnergy(caps: readonly ChargedCapacitor[]): Caution[] {
     const b = bleederFor(c);
     out.push({
       code: 'stored-energy',
-      message: `${c.ref} stores ${joules.toPrecision(2)} J at ${c.volts.toFixed(0)} V (½·C·V²). Fit a bleeder (about ${b.ohms.toPrecision(2)} Ω, ${b.watts.toPrecision(2)} W) so it discharges within ${DISCHARGE_TIME_S} s, and check it is discharged before touching the circuit.`,
+      message: `${c.ref} stores ${formatSi(joules, 'J', 2)} at ${c.volts.toFixed(0)} V (½·C·V²). Fit a bleeder (about ${formatSi(b.ohms, 'Ω', 2)}, ${formatSi(b.watts, 'W', 2)}) so it discharges within ${DISCHARGE_TIME_S} s, and check it is discharged before touching the circuit.`,
     });
   }
   return out;
