@@ -32,6 +32,6 @@ export async function lighthouseScores(pages: { name: string; url: string; cooki
     }
     return scores;
   } finally {
-    await chrome.kill();
+    chrome.kill();
   }
 }
