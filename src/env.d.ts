@@ -10,5 +10,7 @@ declare namespace App {
       role: import('./lib/server/auth/roles').Role;
     } | null;
     session: { id: string; expiresAt: Date } | null;
+    /** Set when a request failed: the reference shown to the person and written to the log. */
+    errorId?: string;
   }
 }

@@ -4,7 +4,8 @@ import { isRole } from '~/lib/server/auth/roles';
 import { config } from '~/lib/server/config';
 import { databaseReady } from '~/lib/server/db';
 import { limitSignInApi } from '~/lib/server/sign-in-limit';
-import { apiError } from '~/lib/server/http';
+import { apiError, internalError } from '~/lib/server/http';
+import { logFailure } from '~/lib/server/log';
 import { isCrossOriginWrite, securityHeaders } from '~/lib/server/security';
 
 const HEADERS = securityHeaders(config.production, config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined);
@@ -17,7 +18,18 @@ const hardening = defineMiddleware(async (context, next) => {
     return apiError(403, 'cross_origin', { message: 'This request came from another site and was refused.' });
   }
   await databaseReady;
-  const response = await next();
+  let response: Response;
+  try {
+    response = await next();
+  } catch (error) {
+    const errorId = logFailure(error, { method: context.request.method, path: context.url.pathname });
+    if (context.url.pathname.startsWith('/api/')) {
+      response = internalError(errorId);
+    } else {
+      context.locals.errorId = errorId;
+      response = await context.rewrite('/500');
+    }
+  }
   for (const [name, value] of Object.entries(HEADERS)) {
     if (!response.headers.has(name)) response.headers.set(name, value);
   }

@@ -15,6 +15,10 @@ export function apiError(status: number, error: string, extra: Record<string, un
   return json({ error, ...extra }, status, headers);
 }
 
+/** A 500 that says what to quote to us, and nothing of the internals. */
+export const internalError = (errorId: string, message = 'Something went wrong on our side.') =>
+  apiError(500, 'internal_error', { errorId, message: `${message} If it keeps happening, quote reference ${errorId}.` });
+
 export const unauthorized = () => apiError(401, 'not_signed_in', { message: 'Sign in to continue.' });
 export const forbidden = () => apiError(403, 'forbidden', { message: 'Your role does not allow this.' });
 export const notFound = () => apiError(404, 'not_found', { message: 'Nothing here, or it is not yours.' });

@@ -1,5 +1,6 @@
 /** GET /api/v1/files/:id — the file's bytes as an attachment, for its brief's owner and staff. */
 import type { APIRoute } from 'astro';
+import { logFailure } from '~/lib/server/log';
 import { ANY_ROLE, guardApi } from '~/lib/server/guard';
 import { apiError, notFound } from '~/lib/server/http';
 import { findFileFor, uploadStore } from '~/lib/server/uploads';
@@ -12,8 +13,8 @@ export const GET: APIRoute = async (context) => {
   if (!file) return notFound();
   const bytes = await uploadStore.get(file.storageKey);
   if (!bytes) {
-    console.error(`Upload ${file.id} has a row but no bytes under key ${file.storageKey}.`);
-    return apiError(500, 'file_missing', { message: 'The file’s contents are missing from storage; ask an engineer to restore it.' });
+    const errorId = logFailure(new Error('upload bytes missing'), { fileId: file.id, storageKey: file.storageKey });
+    return apiError(500, 'file_missing', { errorId, message: `The file’s contents are missing from storage; ask an engineer to restore it (reference ${errorId}).` });
   }
   return new Response(bytes, {
     status: 200,
