@@ -16,7 +16,7 @@ export function InlineAccount({ onSignedIn }: Props) {
 
   const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) => setValues((v) => ({ ...v, [key]: event.target.value }));
 
-  async function submit(event: React.FormEvent) {
+  async function submit(event: React.SyntheticEvent<HTMLFormElement>) {
     event.preventDefault();
     setFailure(null);
     const parsed = mode === 'sign-up' ? signUpSchema.safeParse(values) : signInSchema.safeParse(values);

@@ -17,13 +17,23 @@ afterAll(async () => {
   await server?.stop();
 });
 
-function logLineWith(errorId: string): Record<string, unknown> | undefined {
+function logLineNow(errorId: string): Record<string, unknown> | undefined {
   return server
     .output()
     .split('\n')
     .filter((line) => line.startsWith('{'))
     .map((line) => JSON.parse(line) as Record<string, unknown>)
     .find((entry) => entry.errorId === errorId);
+}
+
+/** The server's output reaches this process a moment after its answer does. */
+async function logLineWith(errorId: string): Promise<Record<string, unknown> | undefined> {
+  for (let i = 0; i < 40; i++) {
+    const entry = logLineNow(errorId);
+    if (entry) return entry;
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  return undefined;
 }
 
 describe('server errors', () => {
@@ -40,7 +50,7 @@ describe('server errors', () => {
     expect(body.errorId).toMatch(/^[0-9a-f]{8}$/);
     expect(body.message).toContain(body.errorId);
     expect(JSON.stringify(body)).not.toMatch(/SyntaxError|at .+\.m?js/);
-    const logged = logLineWith(body.errorId);
+    const logged = await logLineWith(body.errorId);
     expect(logged?.level).toBe(50);
     expect(logged?.path).toBe(`/api/v1/briefs/${created.id}`);
     expect(JSON.stringify(logged?.err)).toContain('JSON');
@@ -51,7 +61,7 @@ describe('server errors', () => {
     expect(html).toContain('Something went wrong on our side');
     const reference = /Reference: <span[^>]*>([0-9a-f]{8})</.exec(html)?.[1];
     expect(reference).toBeDefined();
-    expect(logLineWith(reference ?? '')).toBeDefined();
+    expect(await logLineWith(reference ?? '')).toBeDefined();
     expect(html).not.toMatch(/SyntaxError|node_modules|at .+\.m?js:\d+/);
   });
 
@@ -67,6 +77,6 @@ describe('server errors', () => {
     expect(response.status).toBe(500);
     const body = await response.json();
     expect(body.error).toBe('file_missing');
-    expect(logLineWith(body.errorId)).toMatchObject({ fileId: uploaded.id });
+    expect(await logLineWith(body.errorId)).toMatchObject({ fileId: uploaded.id });
   });
 });

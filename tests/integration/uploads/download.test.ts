@@ -77,6 +77,8 @@ describe('downloads', () => {
     rmSync(path.join(uploadDir, row.storageKey));
     const response = await owner.request(`/api/v1/files/${id}`);
     expect(response.status).toBe(500);
-    expect(await response.json()).toEqual({ error: 'file_missing', message: 'The file’s contents are missing from storage; ask an engineer to restore it.' });
+    const body = await response.json();
+    expect(body).toEqual({ error: 'file_missing', errorId: expect.stringMatching(/^[0-9a-f]{8}$/), message: expect.stringContaining('missing from storage') });
+    expect(body.message).toContain(body.errorId);
   });
 });
