@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/scenario';
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -12,6 +13,21 @@ export function launchBrowser(): Promise<Browser> {
     executablePath: CHROMIUM_PATH,
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
   });
+}
+
+/** One browser for a test file: launched before its tests, closed after them. */
+export function useBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error('The browser is not running yet.');
+    return browser;
+  };
 }
 
 export async function screenshot(page: Page, name: string): Promise<string> {

@@ -1,18 +1,11 @@
-import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { describe, expect, inject, test } from 'vitest';
+import { useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
 import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = useBrowser();
 
 describe('the deposit', () => {
   test('the client accepts from the e-mailed link, is declined once, pays with the test card and sees the deposit paid; the receipt is in the mail log', async () => {
@@ -23,7 +16,7 @@ describe('the deposit', () => {
     const full = await (await fetch(`${mailApiUrl}/messages/${message.id}`)).json();
     const link = /https?:\/\/\S+\/quotes\/[0-9a-f-]{36}/.exec(full.text)?.[0] ?? '';
 
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -56,7 +49,7 @@ describe('the deposit', () => {
     expect(await page.getByText('Deposit paid', { exact: true }).count()).toBeGreaterThan(0);
     await context.close();
 
-    const admin = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const admin = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const adminPage = await admin.newPage();
     await signInThroughForm(adminPage, baseUrl, DEMO.admin);
     await adminPage.goto(`${baseUrl}/admin/mail`);
@@ -71,7 +64,7 @@ describe('the deposit', () => {
     const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
     await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' });
     await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' });
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, rail.email, CLIENT_PASSWORD);
     await page.goto(`${baseUrl}/quotes/${quote.id}`);

@@ -1,26 +1,18 @@
-import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { describe, expect, inject, test } from 'vitest';
+import { useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
 import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = useBrowser();
 
 describe('a quote from the engineer’s desk to the client’s acceptance', () => {
   test('the engineer drafts, edits and sends; the client opens the e-mailed link and accepts', async () => {
     const rail = await railUnderReview(baseUrl);
     const errors: string[] = [];
 
-    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const desk = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const engineer = await desk.newPage();
     engineer.on('pageerror', (e) => errors.push(e.message));
     await signInThroughForm(engineer, baseUrl, DEMO.engineer);
@@ -53,7 +45,7 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     const link = /https?:\/\/\S+\/quotes\/[0-9a-f-]{36}/.exec(full.text)?.[0];
     expect(link).toBeTruthy();
 
-    const phone = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const phone = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const client = await phone.newPage();
     client.on('pageerror', (e) => errors.push(e.message));
     await client.goto(link!);
@@ -88,7 +80,7 @@ describe('the admin’s prices and mail', () => {
     const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
 
-    const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, DEMO.admin);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Rate card' }).click();

@@ -1,18 +1,12 @@
 import { readFile } from 'node:fs/promises';
 import { gzipSync } from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { describe, expect, inject, test } from 'vitest';
+import type { Page } from 'playwright-core';
+import { useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
 
 const baseUrl = inject('baseUrl');
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = useBrowser();
 
 const LAPTOP = { width: 1440, height: 900 };
 
@@ -40,7 +34,7 @@ async function scriptKb(page: Page, load: () => Promise<void>): Promise<number> 
 
 describe('an engineer reviews a brief', () => {
   test('opens the submitted high-voltage brief from the desk, re-weights and overrides, saves two revisions, compares them and downloads the netlist', async () => {
-    const context = await browser.newContext({ viewport: LAPTOP, acceptDownloads: true });
+    const context = await browser().newContext({ viewport: LAPTOP, acceptDownloads: true });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -122,7 +116,7 @@ describe('an engineer reviews a brief', () => {
   });
 
   test('reads the quiet low-voltage brief: spread against its tight band, part list and calculation trace', async () => {
-    const context = await browser.newContext({ viewport: LAPTOP });
+    const context = await browser().newContext({ viewport: LAPTOP });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -149,7 +143,7 @@ describe('an engineer reviews a brief', () => {
   });
 
   test('the desk and the review each ship under 120 KB of gzipped JavaScript, the chart library included', async () => {
-    const context = await browser.newContext({ viewport: LAPTOP });
+    const context = await browser().newContext({ viewport: LAPTOP });
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, DEMO.engineer);
     const desk = await scriptKb(page, async () => {

@@ -1,20 +1,12 @@
-import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, signInThroughForm } from './browser';
+import { describe, expect, inject, test } from 'vitest';
+import { useBrowser, screenshot, signInThroughForm } from './browser';
 
 const baseUrl = inject('baseUrl');
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = useBrowser();
 
 describe('each role in the browser', () => {
   test('the front page reads without JavaScript and invites a brief', async () => {
-    const context = await browser.newContext({ javaScriptEnabled: false });
+    const context = await browser().newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
     await page.goto(baseUrl);
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain('designed for its worst day');
@@ -28,7 +20,7 @@ describe('each role in the browser', () => {
     ['engineer', 'engineer@demo.railwright.test', '/desk', ['Desk'], ['My briefs', 'People']],
     ['admin', 'admin@demo.railwright.test', '/desk', ['Desk', 'People'], ['My briefs']],
   ] as const)('the %s signs in and sees their own navigation', async (role, email, home, shown, hidden) => {
-    const context = await browser.newContext({ viewport: role === 'client' ? { width: 390, height: 844 } : { width: 1366, height: 900 } });
+    const context = await browser().newContext({ viewport: role === 'client' ? { width: 390, height: 844 } : { width: 1366, height: 900 } });
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, email);
     expect(new URL(page.url()).pathname).toBe(home);
@@ -40,7 +32,7 @@ describe('each role in the browser', () => {
   });
 
   test('a client who opens an engineer page gets the 403 page', async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, 'client@demo.railwright.test');
     const response = await page.goto(`${baseUrl}/desk`);
@@ -51,7 +43,7 @@ describe('each role in the browser', () => {
   });
 
   test('an admin changes a role with the keyboard-usable form', async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, 'admin@demo.railwright.test');
     await page.goto(`${baseUrl}/admin/users`);

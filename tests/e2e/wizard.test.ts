@@ -1,16 +1,10 @@
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot } from './browser';
+import { describe, expect, inject, test } from 'vitest';
+import type { Page } from 'playwright-core';
+import { useBrowser, screenshot } from './browser';
 
 const baseUrl = inject('baseUrl');
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = useBrowser();
 
 const fixture = (name: string) => path.resolve('tests/fixtures/e2e', name);
 
@@ -31,7 +25,7 @@ describe('a new client describes a rail', () => {
     ['phone', { width: 390, height: 844 }],
     ['laptop', { width: 1366, height: 900 }],
   ] as const)('fills the wizard at %s width, sees the ranking react, attaches files, signs up at submit and finds the brief', async (label, viewport) => {
-    const context = await browser.newContext({ viewport });
+    const context = await browser().newContext({ viewport });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -102,7 +96,7 @@ describe('a new client describes a rail', () => {
   });
 
   test('a signed-in client’s draft is saved to the server and restored after leaving', async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail').fill('client@demo.railwright.test');

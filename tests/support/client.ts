@@ -19,7 +19,17 @@ export class Visitor {
       headers.set('content-type', 'application/json');
       body = JSON.stringify(init.json);
     }
-    const response = await fetch(new URL(path, this.baseUrl), { ...init, headers, body: body ?? null, redirect: 'manual' });
+    const send = () => fetch(new URL(path, this.baseUrl), { ...init, headers, body: body ?? null, redirect: 'manual' });
+    let response: Response;
+    try {
+      response = await send();
+    } catch (error) {
+      // A kept-alive connection the server closed just as it was reused: a browser retries a
+      // read once on a fresh connection, and so does this client. Writes are never retried.
+      const code = (error as { cause?: { code?: string } }).cause?.code;
+      if (code !== 'ECONNRESET' || (init.method && init.method !== 'GET')) throw error;
+      response = await send();
+    }
     for (const cookie of response.headers.getSetCookie()) {
       const [pair] = cookie.split(';');
       const eq = pair?.indexOf('=') ?? -1;
