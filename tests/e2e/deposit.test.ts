@@ -46,7 +46,9 @@ describe('the deposit', () => {
     await screenshot(page, 'deposit-paid');
 
     await page.goto(`${baseUrl}/briefs/${rail.briefId}`);
-    expect(await page.getByText('Deposit paid', { exact: true }).count()).toBeGreaterThan(0);
+    // The state badge beside the title, and the last step of the history.
+    expect(await page.locator('h1 + span').textContent()).toContain('Deposit paid');
+    expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain('Accepted → Deposit paid');
     await context.close();
 
     const admin = await browser().newContext({ viewport: { width: 1366, height: 900 } });

@@ -84,7 +84,8 @@ describe('a new client describes a rail', () => {
 
     await page.waitForURL(/\/briefs\/[^/?]+\?submitted=1$/, { timeout: 20_000 });
     await page.getByRole('heading', { name: `Valve driver 5 V (${label})` }).waitFor();
-    expect(await page.getByText('Submitted', { exact: true }).count()).toBeGreaterThan(0);
+    expect(await page.locator('h1 + span').textContent()).toContain('Submitted');
+    expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain('Draft → Submitted');
     expect(await page.getByRole('link', { name: 'node-load-log.csv' }).count()).toBe(1);
     expect(await page.getByRole('link', { name: 'node-schematic.pdf' }).count()).toBe(1);
     await screenshot(page, `wizard-${label}-submitted`);
