@@ -17,6 +17,7 @@ export function navigationFor(role: Role | null): NavItem[] {
         { href: '/desk', label: 'Desk' },
         { href: '/admin/users', label: 'People' },
         { href: '/admin/rate-card', label: 'Rate card' },
+        { href: '/admin/catalog', label: 'Catalog' },
         { href: '/admin/mail', label: 'Mail log' },
       ];
     case null:

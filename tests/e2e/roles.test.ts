@@ -61,3 +61,18 @@ describe('each role in the browser', () => {
     await context.close();
   });
 });
+
+describe('the admin’s device catalog', () => {
+  test('lists the typical parameters and opens one for editing', async () => {
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
+    const page = await context.newPage();
+    await signInThroughForm(page, baseUrl, 'admin@demo.railwright.test');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Catalog' }).click();
+    await page.getByRole('heading', { name: 'Device catalog' }).waitFor();
+    const thermal = page.locator('details', { hasText: 'Thermal assumptions' });
+    await thermal.getByText('Thermal assumptions', { exact: true }).click();
+    expect(await thermal.getByLabel('Parameters (JSON, SI units)').inputValue()).toContain('tjMarginK');
+    await screenshot(page, 'admin-catalog');
+    await context.close();
+  });
+});

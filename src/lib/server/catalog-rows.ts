@@ -33,8 +33,8 @@ export function catalogToRows(catalog: Catalog): DeviceClassRow[] {
   return rows;
 }
 
-/** Rebuilds and validates the catalog from rows in insertion order; throws a zod error naming the bad field. */
-export function rowsToCatalog(rows: readonly DeviceClassRow[]): Catalog {
+/** The catalog's shape from rows in insertion order, not yet checked. */
+export function draftFromRows(rows: readonly DeviceClassRow[]): Record<string, unknown> {
   const draft: Record<string, unknown> = {};
   for (const kind of LIST_KINDS) draft[kind] = [];
   for (const row of rows) {
@@ -42,5 +42,10 @@ export function rowsToCatalog(rows: readonly DeviceClassRow[]): Catalog {
     if (Array.isArray(list)) list.push(row.params);
     else draft[row.kind] = row.params;
   }
-  return catalogSchema.parse(draft);
+  return draft;
+}
+
+/** Rebuilds and validates the catalog; throws a zod error naming the bad field. */
+export function rowsToCatalog(rows: readonly DeviceClassRow[]): Catalog {
+  return catalogSchema.parse(draftFromRows(rows));
 }

@@ -1,6 +1,6 @@
-import { sql } from 'drizzle-orm';
-import { defaultCatalog, type Catalog } from '../engine/catalog';
-import { rowsToCatalog } from './catalog-rows';
+import { eq, sql } from 'drizzle-orm';
+import { catalogSchema, defaultCatalog, type Catalog } from '../engine/catalog';
+import { draftFromRows, rowsToCatalog } from './catalog-rows';
 import { db } from './db';
 import { deviceClass } from './db/schema';
 
@@ -20,4 +20,37 @@ export async function currentCatalog(now = Date.now()): Promise<Catalog> {
 
 export function forgetCatalog(): void {
   cached = null;
+}
+
+export type CatalogEdit = { ok: true } | { ok: false; message: string };
+
+/**
+ * An admin's edit of one device class: the whole catalog is rebuilt and checked
+ * with the engine's schema before anything is written, so a bad figure never
+ * reaches an evaluation.
+ */
+export async function updateDeviceClass(id: string, paramsJson: string, adminId: string): Promise<CatalogEdit> {
+  let params: unknown;
+  try {
+    params = JSON.parse(paramsJson);
+  } catch {
+    return { ok: false, message: 'The parameters are not valid JSON; check commas, quotes and brackets.' };
+  }
+  const rows = await db.select().from(deviceClass).orderBy(sql`rowid`);
+  const target = rows.find((row) => row.id === id);
+  if (!target) return { ok: false, message: 'That device class no longer exists.' };
+  const edited = rows.map((row) => (row.id === id ? { ...row, params } : row));
+  const checked = catalogSchema.safeParse(draftFromRows(edited));
+  if (!checked.success) {
+    const issue = checked.error.issues[0];
+    return { ok: false, message: `Not saved: ${issue?.path.slice(2).join('.') || 'the parameters'} — ${issue?.message ?? 'invalid'}.` };
+  }
+  const name = typeof (params as { label?: unknown }).label === 'string' ? (params as { label: string }).label : target.name;
+  await db.update(deviceClass).set({ params, name, updatedBy: adminId, updatedAt: new Date() }).where(eq(deviceClass.id, id));
+  forgetCatalog();
+  return { ok: true };
+}
+
+export async function listDeviceClasses() {
+  return db.select().from(deviceClass).orderBy(sql`rowid`);
 }
