@@ -30,6 +30,11 @@ export function useBrowser(): () => Browser {
   };
 }
 
+/** Astro drops an island's `ssr` attribute once it has hydrated: until then clicks reach plain HTML. */
+export async function islandsReady(page: Page): Promise<void> {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 30_000 });
+}
+
 export async function screenshot(page: Page, name: string): Promise<string> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const file = path.join(SCREENSHOT_DIR, `${name}.png`);

@@ -1,5 +1,5 @@
 import { describe, expect, inject, test } from 'vitest';
-import { useBrowser, screenshot, signInThroughForm } from './browser';
+import { islandsReady, useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
 import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
 
@@ -20,6 +20,7 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     await engineer.getByLabel('Units to build').fill('2');
     await engineer.getByRole('button', { name: 'Draft the quote' }).click();
     await engineer.waitForURL(/\/desk\/quotes\/[0-9a-f-]{36}$/);
+    await islandsReady(engineer);
     const number = ((await engineer.getByRole('heading', { level: 1 }).textContent()) ?? '').replace('Quote ', '').trim();
     expect(number).toMatch(/^RW-\d{4}-\d{4}$/);
 

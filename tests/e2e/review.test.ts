@@ -2,7 +2,7 @@ import { readFile } from 'node:fs/promises';
 import { gzipSync } from 'node:zlib';
 import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
-import { useBrowser, screenshot, signInThroughForm } from './browser';
+import { islandsReady, useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
 
 const baseUrl = inject('baseUrl');
@@ -41,6 +41,7 @@ describe('an engineer reviews a brief', () => {
 
     await signInThroughForm(page, baseUrl, DEMO.engineer);
     await page.goto(`${baseUrl}/desk`);
+    await islandsReady(page);
     await page.getByLabel('State').selectOption('submitted');
     const row = page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' });
     await row.waitFor();
@@ -55,6 +56,7 @@ describe('an engineer reviews a brief', () => {
     await row.click();
 
     await page.getByRole('heading', { name: 'Detector bias, 150 V from a 300–350 V supply', level: 1 }).waitFor();
+    await islandsReady(page);
     const cautions = page.getByRole('note', { name: /Cautions/ }).first();
     await expect.poll(() => cautions.textContent()).toContain('above the 60 V ES1 limit');
     expect(await cautions.textContent()).toContain('defer to local electrical codes and licensed practice');
@@ -124,6 +126,7 @@ describe('an engineer reviews a brief', () => {
     await page.goto(`${baseUrl}/desk?q=Bench`);
     await page.getByRole('link', { name: 'Bench meter analog front-end, quiet 12 V' }).click();
     await page.getByRole('heading', { name: 'Ways to build it, best first' }).waitFor();
+    await islandsReady(page);
     await chartsDrawn(page);
     const spread = page.getByRole('figure', { name: /Output-voltage spread/ });
     expect(await spread.textContent()).toMatch(/within the tolerance band/);

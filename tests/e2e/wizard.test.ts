@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
-import { useBrowser, screenshot } from './browser';
+import { islandsReady, useBrowser, screenshot } from './browser';
 
 const baseUrl = inject('baseUrl');
 const browser = useBrowser();
@@ -31,6 +31,7 @@ describe('a new client describes a rail', () => {
     page.on('pageerror', (e) => errors.push(e.message));
 
     await page.goto(`${baseUrl}/briefs/new`);
+    await islandsReady(page);
     await page.getByRole('heading', { name: /Step 1 of 7: Source/ }).waitFor();
     await page.getByLabel('What feeds the rail?').selectOption('bus');
     await page.getByRole('button', { name: 'Use typical figures for this source' }).click();
@@ -105,6 +106,7 @@ describe('a new client describes a rail', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(/\/briefs$/);
     await page.goto(`${baseUrl}/briefs/new`);
+    await islandsReady(page);
     await page.getByRole('button', { name: 'Next' }).click();
     await fill(page, 'Name of the rail', 'Draft that survives');
     await fill(page, 'Output voltage', '3.3');
@@ -113,6 +115,7 @@ describe('a new client describes a rail', () => {
     const url = page.url();
     await page.goto(`${baseUrl}/briefs`);
     await page.goto(url);
+    await islandsReady(page);
     await page.getByRole('button', { name: /Rail/ }).click();
     expect(await page.getByLabel('Name of the rail').inputValue()).toBe('Draft that survives');
     expect(await page.getByLabel('Output voltage').inputValue()).toBe('3.3');
