@@ -6,6 +6,7 @@
 import { engineMc100kMs, engineMedianMs, engineRate } from './engine';
 import { evaluateRate, loadRun } from './http';
 import { pageJsGzipBytes } from './js-budget';
+import { pdfMedianMs } from './pdf';
 import { lighthouseScores, type PageScore } from './lighthouse';
 import { signedInCookie, startBenchServer } from './server';
 
@@ -29,6 +30,7 @@ interface Results {
   maxIslandJsGzipKb: number;
   publicPageJsKb: number;
   pageJsGzipKb: Record<string, number>;
+  pdfMedianMs: number;
   lighthouse: PageScore[];
   loadRequests: number;
   loadRps: number;
@@ -63,6 +65,9 @@ try {
   const publicPageJsKb = Math.max(...pages.filter((p) => p.public).map((p) => jsKb[p.name] ?? 0));
   const maxIslandJsGzipKb = Math.max(...Object.values(jsKb).filter(Number.isFinite));
 
+  log('Quote PDF, warm…');
+  const pdfMs = await pdfMedianMs(server.databaseUrl);
+
   log('Evaluate route throughput (concurrency 2)…');
   const http = await evaluateRate(base);
 
@@ -87,6 +92,7 @@ try {
     httpToEngineRatio: round(http.rate / inProcessRate, 3),
     maxIslandJsGzipKb: round(maxIslandJsGzipKb, 1),
     publicPageJsKb: round(publicPageJsKb, 1),
+    pdfMedianMs: round(pdfMs, 1),
     pageJsGzipKb: Object.fromEntries(Object.entries(jsKb).map(([k, v]) => [k, round(v, 1)])),
     lighthouse,
     loadRequests: load.requests,
@@ -110,6 +116,7 @@ const budgets: [string, string, boolean][] = [
   ['engine, 100 000 Monte Carlo draws', `${r.engineMc100kMs} ms  (< 25)`, r.engineMc100kMs < 25],
   ['evaluate over HTTP / in-process rate', `${r.httpToEngineRatio}  (${r.httpRatePerS}/s vs ${r.engineRatePerS}/s; ≥ 0.7)`, r.httpToEngineRatio >= 0.7],
   ['largest page JavaScript (gzip)', `${r.maxIslandJsGzipKb} KB  (< 120)`, r.maxIslandJsGzipKb < 120],
+  ['quote PDF, warm (median)', `${r.pdfMedianMs} ms  (< 200)`, r.pdfMedianMs < 200],
   ['public pages JavaScript', `${r.publicPageJsKb} KB  (0)`, r.publicPageJsKb === 0],
   ['load: errors and 5xx', `${r.loadErrors}  (${r.loadRequests} requests, ${r.loadRps}/s, p99 ${r.loadP99Ms} ms; 0)`, r.loadErrors === 0],
   ...r.lighthouse.map((s): [string, string, boolean] => [`lighthouse ${s.page}`, `performance ${s.performance}, accessibility ${s.accessibility}  (≥ 95 each)`, (s.performance ?? 0) >= 95 && (s.accessibility ?? 0) >= 95]),
