@@ -59,33 +59,29 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
       )}
       {revisions.length >= 2 && (
         <form method="get" action={`/desk/briefs/${briefId}/compare`} className="mt-3 flex flex-wrap items-end gap-2" aria-label="Compare two revisions">
-          <div className="flex flex-col gap-1">
-            <label htmlFor="compare-a" className="text-sm font-semibold">
-              Compare
-            </label>
-            <select id="compare-a" name="a" value={left} onChange={(e) => setA(e.target.value)} className={selectClass}>
-              {revisions.map((r) => (
-                <option key={r.id} value={r.id}>
-                  Revision {r.number}
-                </option>
-              ))}
-            </select>
-          </div>
-          <div className="flex flex-col gap-1">
-            <label htmlFor="compare-b" className="text-sm font-semibold">
-              with
-            </label>
-            <select id="compare-b" name="b" value={right} onChange={(e) => setB(e.target.value)} className={selectClass}>
-              {revisions.map((r) => (
-                <option key={r.id} value={r.id}>
-                  Revision {r.number}
-                </option>
-              ))}
-            </select>
-          </div>
+          <RevisionSelect id="compare-a" name="a" label="Compare" value={left} onChange={setA} revisions={revisions} />
+          <RevisionSelect id="compare-b" name="b" label="with" value={right} onChange={setB} revisions={revisions} />
           <button className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60">Compare side by side</button>
         </form>
       )}
     </section>
+  );
+}
+
+/** One side of the compare form: a labelled choice among the brief's revisions. */
+function RevisionSelect(props: { id: string; name: string; label: string; value: string; onChange: (id: string) => void; revisions: readonly { id: string; number: number }[] }) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={props.id} className="text-sm font-semibold">
+        {props.label}
+      </label>
+      <select id={props.id} name={props.name} value={props.value} onChange={(e) => props.onChange(e.target.value)} className={selectClass}>
+        {props.revisions.map((r) => (
+          <option key={r.id} value={r.id}>
+            Revision {r.number}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }
