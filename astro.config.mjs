@@ -3,11 +3,12 @@ import { defineConfig, envField } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
+import engineWorker from './src/integrations/engine-worker';
 
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react()],
+  integrations: [react(), engineWorker()],
   // Origin checks are done in our own middleware for every state-changing request
   // (API included), so Astro's form-only check is left off to avoid two answers.
   security: { checkOrigin: false },
@@ -30,6 +31,8 @@ export default defineConfig({
       // The local mail catcher's HTTP API, when there is one: the admin mail log then shows what it received.
       MAIL_FAKE_HTTP_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
       RATE_LIMIT_DISABLED: envField.string({ context: 'server', access: 'secret', optional: true }),
+      // Engine threads for the evaluate route; unset means one per core but one, 0 keeps it on the event loop.
+      ENGINE_THREADS: envField.number({ context: 'server', access: 'secret', optional: true, int: true, min: 0, max: 64 }),
     },
   },
 });

@@ -9,7 +9,8 @@ export async function startBenchServer(): Promise<AppServer> {
     execFileSync(process.execPath, ['node_modules/astro/astro.js', 'build'], { stdio: 'inherit' });
   }
   // Limits off: the benchmark is one address hammering the server on purpose.
-  return startAppServer({ RATE_LIMIT_DISABLED: '1' });
+  // One engine thread, matching the one thread the in-process rate is measured on.
+  return startAppServer({ RATE_LIMIT_DISABLED: '1', ENGINE_THREADS: '1' });
 }
 
 export async function signedInCookie(baseUrl: string, email: string): Promise<string> {

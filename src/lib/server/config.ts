@@ -6,6 +6,7 @@ import {
   BETTER_AUTH_SECRET,
   DATABASE_AUTH_TOKEN,
   DATABASE_URL,
+  ENGINE_THREADS,
   MAIL_FAKE_HTTP_URL,
   MAIL_FAKE_SMTP_PORT,
   MAIL_FROM,
@@ -71,4 +72,6 @@ export const config = {
   /** For load benchmarks only: the sign-in and evaluate limits stop counting. */
   rateLimitDisabled: flag(RATE_LIMIT_DISABLED),
   payments: paymentSettings(),
+  /** Engine threads for the evaluate route; undefined means one per core but one. */
+  engineThreads: ENGINE_THREADS,
 } as const;

@@ -11,6 +11,11 @@ export function json(body: unknown, status = 200, headers: Record<string, string
   return new Response(JSON.stringify(body), { status, headers: { ...JSON_HEADERS, ...headers } });
 }
 
+/** An answer whose JSON is already made (the engine threads serialize their own results). */
+export function jsonBytes(utf8: Uint8Array<ArrayBuffer>, status = 200): Response {
+  return new Response(utf8, { status, headers: JSON_HEADERS });
+}
+
 export function apiError(status: number, error: string, extra: Record<string, unknown> = {}, headers: Record<string, string> = {}): Response {
   return json({ error, ...extra }, status, headers);
 }
