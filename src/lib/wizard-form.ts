@@ -2,12 +2,16 @@
  * The wizard's form: a title and notes around the engine's brief schema, and
  * which fields each step owns (for per-step validation).
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { briefSchema } from './engine/brief';
 
 export const wizardFormSchema = z.object({
-  title: z.string().trim().min(1, { error: 'Give the rail a short name, e.g. “Sensor board 3.3 V”.' }).max(160, { error: 'Keep the name under 160 characters.' }),
-  notes: z.string().max(8_000, { error: 'Keep the notes under 8 000 characters.' }),
+  title: z.string().check(
+    z.trim(),
+    z.minLength(1, { error: 'Give the rail a short name, e.g. “Sensor board 3.3 V”.' }),
+    z.maxLength(160, { error: 'Keep the name under 160 characters.' }),
+  ),
+  notes: z.string().check(z.maxLength(8_000, { error: 'Keep the notes under 8 000 characters.' })),
   spec: briefSchema,
 });
 
