@@ -1,9 +1,9 @@
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
-import { canMove, type Actor } from '../brief-states';
 import type { BriefSummary } from '../brief-summary';
 import { db } from './db';
 import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from './db/schema';
 import { isStaff, type SignedInUser } from './guard';
+import { expireLapsedQuotes } from './quote-expiry';
 
 export interface BriefListQuery {
   status?: BriefStatus | undefined;
@@ -29,6 +29,7 @@ function orderFor(sort: BriefSort) {
 
 /** Clients see their own briefs only; staff see every brief. Newest activity first by default. */
 export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {}) {
+  await expireLapsedQuotes();
   const page = Math.max(1, query.page ?? 1);
   const pageSize = Math.min(100, Math.max(1, query.pageSize ?? 25));
   const where: SQL[] = [];
@@ -117,6 +118,7 @@ export type BriefRow = typeof brief.$inferSelect;
  * way, so a client never learns that another client's brief exists.
  */
 export async function findBriefFor(viewer: SignedInUser, id: string): Promise<BriefRow | null> {
+  await expireLapsedQuotes();
   const [row] = await db.select().from(brief).where(eq(brief.id, id)).limit(1);
   if (!row) return null;
   if (!isStaff(viewer) && row.ownerId !== viewer.id) return null;
@@ -152,35 +154,4 @@ export async function briefDetail(row: BriefRow) {
       .limit(1),
   ]);
   return { ...row, owner: owner[0] ?? null, files, history };
-}
-
-export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wrong_state'; message: string };
-
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
-
-/**
- * Moves a brief to a new state and records who did it, inside the caller's
- * transaction. The update is conditional on the state read, so two racing
- * moves cannot both win.
- */
-export async function moveBrief(
-  tx: Tx,
-  row: BriefRow,
-  to: BriefStatus,
-  actor: Actor,
-  actorId: string | null,
-  note = '',
-  extra: Partial<typeof brief.$inferInsert> = {},
-): Promise<MoveOutcome> {
-  if (!canMove(row.status, to, actor)) {
-    return { ok: false, reason: 'wrong_state', message: `A brief that is ${row.status} cannot move to ${to}.` };
-  }
-  const [updated] = await tx
-    .update(brief)
-    .set({ status: to, updatedAt: new Date(), ...extra })
-    .where(and(eq(brief.id, row.id), eq(brief.status, row.status)))
-    .returning();
-  if (!updated) return { ok: false, reason: 'wrong_state', message: 'The brief changed state meanwhile; reload and try again.' };
-  await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId, note });
-  return { ok: true, row: updated };
 }

@@ -5,7 +5,8 @@
 import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
 import { formatDate } from '../format';
 import { quoteTotals, withQuantity, type QuotePatch } from '../pricing';
-import { moveBrief } from './briefs';
+import { moveBrief } from './brief-moves';
+import { expireLapsedQuotes } from './quote-expiry';
 import { db } from './db';
 import { brief, quote } from './db/schema';
 import { isStaff, type SignedInUser } from './guard';
@@ -41,6 +42,7 @@ export const quotePageUrl = (id: string) => appUrl(`/quotes/${id}`);
  * (not sent yet) rather than 404, without showing the draft's content.
  */
 export async function findQuoteFor(viewer: SignedInUser, id: string, { ownDrafts = false } = {}): Promise<QuoteView | null> {
+  await expireLapsedQuotes();
   const view = await loadQuoteView(db, id);
   if (!view) return null;
   if (isStaff(viewer)) return view;

@@ -53,10 +53,10 @@ export function pdfText(pdf: Uint8Array): string {
 }
 
 /** Runs one SQL statement against the test server's database, to stand in for the passing of time. */
-export async function execSql(databaseUrl: string, statement: string, args: (string | number)[]): Promise<void> {
+export async function execSql(databaseUrl: string, statement: string, args: (string | number)[]): Promise<Record<string, unknown>[]> {
   const db = createClient({ url: databaseUrl });
   try {
-    await db.execute({ sql: statement, args });
+    return (await db.execute({ sql: statement, args })).rows as Record<string, unknown>[];
   } finally {
     db.close();
   }

@@ -190,7 +190,7 @@ describe('editing, sending and accepting', () => {
     expect((await twice.json()).message).toContain('accepted already');
   });
 
-  test('accept after the validity date is a 409 and the quote reads as expired', async () => {
+  test('after the validity date the quote and its brief expire; accepting is a 409', async () => {
     const rail = await railUnderReview(baseUrl);
     const quote = await draft(rail.engineer, rail.revisionId);
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
@@ -200,7 +200,24 @@ describe('editing, sending and accepting', () => {
     expect(late.status).toBe(409);
     expect((await late.json()).message).toContain('expired');
     expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('expired');
+    const briefNow = await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json();
+    expect(briefNow.status).toBe('expired');
+    expect(JSON.stringify(briefNow)).toContain(`Quote ${quote.number} lapsed on`);
+    const [stored] = await execSql(databaseUrl, 'SELECT status FROM quote WHERE id = ?', [quote.id]);
+    expect(stored?.status).toBe('expired');
+  });
+
+  test('an older quote lapsing leaves the brief open while a newer sent quote stands', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const first = await draft(rail.engineer, rail.revisionId);
+    expect((await rail.engineer.request(`/api/v1/quotes/${first.id}/send`, { method: 'POST' })).status).toBe(200);
+    expect((await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`, { method: 'PATCH', json: { status: 'in-review', note: 'New quantity' } })).status).toBe(200);
+    const second = await draft(rail.engineer, rail.revisionId, 5);
+    expect((await rail.engineer.request(`/api/v1/quotes/${second.id}/send`, { method: 'POST' })).status).toBe(200);
+    await execSql(databaseUrl, 'UPDATE quote SET valid_until = ? WHERE id = ?', [Date.now() - 60_000, first.id]);
+    expect((await (await rail.client.request(`/api/v1/quotes/${first.id}`)).json()).status).toBe('expired');
     expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('quoted');
+    expect((await rail.client.request(`/api/v1/quotes/${second.id}/accept`, { method: 'POST' })).status).toBe(200);
   });
 
   test('the client’s quote page shows the quote, cautions, the deposit and accepts without JavaScript', async () => {

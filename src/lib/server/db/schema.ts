@@ -156,7 +156,12 @@ export const quote = sqliteTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex('quote_year_sequence_idx').on(t.year, t.sequence), index('quote_brief_idx').on(t.briefId)],
+  (t) => [
+    uniqueIndex('quote_year_sequence_idx').on(t.year, t.sequence),
+    index('quote_brief_idx').on(t.briefId),
+    // The lapsed-quote sweep runs before every brief or quote read.
+    index('quote_status_valid_until_idx').on(t.status, t.validUntil),
+  ],
 );
 
 export { QUOTE_LINE_KINDS };

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import { moveBrief } from '../briefs';
+import { moveBrief } from '../brief-moves';
 import { db } from '../db';
 import { brief, payment, quote, stateChange, webhookEvent } from '../db/schema';
 import { sendReceipt } from './receipt';

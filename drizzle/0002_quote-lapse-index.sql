@@ -1,0 +1,1 @@
+CREATE INDEX `quote_status_valid_until_idx` ON `quote` (`status`,`valid_until`);
