@@ -12,8 +12,8 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 }
 
 /** An answer whose JSON is already made (the engine threads serialize their own results). */
-export function jsonBytes(utf8: Uint8Array<ArrayBuffer>, status = 200): Response {
-  return new Response(utf8, { status, headers: JSON_HEADERS });
+export function jsonText(text: string, status = 200): Response {
+  return new Response(text, { status, headers: JSON_HEADERS });
 }
 
 export function apiError(status: number, error: string, extra: Record<string, unknown> = {}, headers: Record<string, string> = {}): Response {

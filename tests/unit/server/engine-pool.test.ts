@@ -14,7 +14,7 @@ import { buildEngineWorker } from '../../../src/integrations/engine-worker';
 import { DEMO_BRIEFS } from '../../../src/lib/server/seed/scenario';
 
 const briefs: Brief[] = DEMO_BRIEFS.map((b) => briefSchema.parse(b.spec));
-const decode = (bytes: Uint8Array) => JSON.parse(new TextDecoder().decode(bytes));
+const decode = (json: string) => JSON.parse(json);
 let dir: string;
 let workerFile: string;
 
@@ -26,11 +26,11 @@ beforeAll(async () => {
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('engine threads', () => {
-  test('each answer is the main-thread evaluation, byte for byte, with jobs in flight together', async () => {
+  test('each answer is the main-thread evaluation, character for character, with jobs in flight together', async () => {
     const pool = new EnginePool({ workerFile, size: 2 });
     try {
       const answers = await Promise.all(briefs.map((brief) => pool.evaluateJson(brief, defaultCatalog)));
-      answers.forEach((bytes, i) => expect(new TextDecoder().decode(bytes)).toBe(JSON.stringify(evaluate(briefs[i]!, defaultCatalog))));
+      answers.forEach((json, i) => expect(json).toBe(JSON.stringify(evaluate(briefs[i]!, defaultCatalog))));
     } finally {
       await pool.close();
     }

@@ -44,11 +44,9 @@ function enginePool(): EnginePool | null {
   return pool;
 }
 
-const utf8 = new TextEncoder();
-
-/** The evaluation of `brief` as UTF-8 JSON, ready to be the body of the answer. */
-export async function evaluateToJson(brief: Brief): Promise<Uint8Array<ArrayBuffer>> {
+/** The evaluation of `brief` as JSON text, ready to be the body of the answer. */
+export async function evaluateToJson(brief: Brief): Promise<string> {
   const catalog = await currentCatalog();
   const threads = enginePool();
-  return threads ? threads.evaluateJson(brief, catalog) : utf8.encode(JSON.stringify(evaluate(brief, catalog)));
+  return threads ? threads.evaluateJson(brief, catalog) : JSON.stringify(evaluate(brief, catalog));
 }

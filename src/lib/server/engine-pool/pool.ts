@@ -29,7 +29,7 @@ export class EngineBusyError extends Error {
 interface Pending {
   brief: Brief;
   catalog: Catalog;
-  resolve: (json: Uint8Array<ArrayBuffer>) => void;
+  resolve: (json: string) => void;
   reject: (error: Error) => void;
 }
 
@@ -60,11 +60,11 @@ export class EnginePool {
     return this.slots.length;
   }
 
-  /** The evaluation of `brief` against `catalog`, as the UTF-8 JSON the API answers with. */
-  evaluateJson(brief: Brief, catalog: Catalog): Promise<Uint8Array<ArrayBuffer>> {
+  /** The evaluation of `brief` against `catalog`, as the JSON text the API answers with. */
+  evaluateJson(brief: Brief, catalog: Catalog): Promise<string> {
     if (this.closed) return Promise.reject(new Error('The engine pool is closed.'));
     if (this.queue.length >= this.maxQueue) return Promise.reject(new EngineBusyError());
-    return new Promise<Uint8Array<ArrayBuffer>>((resolve, reject) => {
+    return new Promise<string>((resolve, reject) => {
       this.queue.push({ brief, catalog, resolve, reject });
       this.dispatch();
     });

@@ -10,5 +10,5 @@ export interface EngineJob {
   catalogVersion: number;
 }
 
-/** `json` is the evaluation as UTF-8 JSON, its buffer transferred rather than copied. */
-export type EngineReply = { id: number; ok: true; json: Uint8Array<ArrayBuffer> } | { id: number; ok: false; message: string; stack?: string };
+/** `json` is the evaluation's JSON text; turning it into bytes is left to the main thread, which has time to spare. */
+export type EngineReply = { id: number; ok: true; json: string } | { id: number; ok: false; message: string; stack?: string };

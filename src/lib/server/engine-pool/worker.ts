@@ -1,6 +1,6 @@
 /**
  * An engine thread: evaluates briefs off the server's event loop and answers
- * with the evaluation already serialized to bytes, so the main thread only writes them.
+ * with the evaluation already serialized, so the main thread only writes it out.
  * Built to `dist/server/engine-worker.mjs` by the engine-worker integration.
  */
 import { parentPort } from 'node:worker_threads';
@@ -8,7 +8,6 @@ import type { Catalog } from '../../engine/catalog';
 import { evaluate } from '../../engine/evaluate';
 import type { EngineJob, EngineReply } from './protocol';
 
-const utf8 = new TextEncoder();
 let catalog: Catalog | null = null;
 let catalogVersion = -1;
 
@@ -22,11 +21,11 @@ parentPort?.on('message', (job: EngineJob) => {
     reply = { id: job.id, ok: false, message: `Engine thread has catalog version ${catalogVersion}, job needs ${job.catalogVersion}.` };
   } else {
     try {
-      reply = { id: job.id, ok: true, json: utf8.encode(JSON.stringify(evaluate(job.brief, catalog))) };
+      reply = { id: job.id, ok: true, json: JSON.stringify(evaluate(job.brief, catalog)) };
     } catch (error) {
       const failure = error instanceof Error ? error : new Error(String(error));
       reply = { id: job.id, ok: false, message: failure.message, ...(failure.stack ? { stack: failure.stack } : {}) };
     }
   }
-  parentPort?.postMessage(reply, reply.ok ? [reply.json.buffer] : []);
+  parentPort?.postMessage(reply);
 });

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { briefIssues, briefSchema } from '~/lib/engine';
 import { EngineBusyError, evaluateToJson } from '~/lib/server/engine-pool';
-import { apiError, invalid, jsonBytes, readJson, tooMany } from '~/lib/server/http';
+import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/server/http';
 import { limitEvaluate } from '~/lib/server/evaluate-limit';
 
 /** Ranks the options for a brief; anyone may call it (rate-limited), nothing is stored. */
@@ -13,7 +13,7 @@ export const POST: APIRoute = async (context) => {
   const parsed = briefSchema.safeParse(body.value);
   if (!parsed.success) return invalid('invalid_brief', briefIssues(parsed.error));
   try {
-    return jsonBytes(await evaluateToJson(parsed.data));
+    return jsonText(await evaluateToJson(parsed.data));
   } catch (error) {
     if (!(error instanceof EngineBusyError)) throw error;
     return apiError(503, 'busy', { message: 'The engine is at capacity. Try again in a second.' }, { 'retry-after': '1' });
