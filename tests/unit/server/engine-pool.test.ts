@@ -72,10 +72,10 @@ describe('engine threads', () => {
   test('past the queue limit new work is refused at once', async () => {
     const pool = new EnginePool({ workerFile, size: 1, maxQueue: 1 });
     try {
-      const running = pool.evaluateJson(briefs[0]!, defaultCatalog);
-      const queued = pool.evaluateJson(briefs[1]!, defaultCatalog);
-      await expect(pool.evaluateJson(briefs[2]!, defaultCatalog)).rejects.toBeInstanceOf(EngineBusyError);
-      await Promise.all([running, queued]);
+      // Two jobs go to the thread, one waits in the queue, the fourth is refused.
+      const accepted = briefs.slice(0, 3).map((brief) => pool.evaluateJson(brief, defaultCatalog));
+      await expect(pool.evaluateJson(briefs[3]!, defaultCatalog)).rejects.toBeInstanceOf(EngineBusyError);
+      await Promise.all(accepted);
     } finally {
       await pool.close();
     }

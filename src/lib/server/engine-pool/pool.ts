@@ -33,11 +33,20 @@ interface Pending {
   reject: (error: Error) => void;
 }
 
+type Job = Pending & { id: number; timer: NodeJS.Timeout };
+
 interface Slot {
   worker: Worker;
   seenCatalog: number;
-  job: (Pending & { id: number; timer: NodeJS.Timeout }) | null;
+  jobs: Map<number, Job>;
 }
+
+/**
+ * Jobs handed to one thread at a time: two, so that the next job is already in
+ * the thread's own queue when it finishes one, instead of waiting for the main
+ * thread to notice and send it (the main thread is often busy writing answers).
+ */
+const IN_FLIGHT_PER_THREAD = 2;
 
 export class EnginePool {
   private readonly slots: Slot[] = [];
@@ -80,7 +89,7 @@ export class EnginePool {
     const worker = new Worker(this.options.workerFile);
     // Idle threads must not keep a stopping server alive.
     worker.unref();
-    const slot: Slot = { worker, seenCatalog: -1, job: null };
+    const slot: Slot = { worker, seenCatalog: -1, jobs: new Map() };
     worker.on('message', (reply: EngineReply) => this.settle(slot, reply));
     worker.on('error', (error) => this.replace(slot, error));
     worker.on('exit', (code) => this.replace(slot, new Error(`An engine thread stopped with code ${code}.`)));
@@ -88,9 +97,9 @@ export class EnginePool {
   }
 
   private dispatch(): void {
-    for (const slot of this.slots) {
-      if (this.queue.length === 0) return;
-      if (slot.job) continue;
+    while (this.queue.length > 0) {
+      const slot = this.leastBusy();
+      if (!slot) return;
       const pending = this.queue.shift()!;
       const id = this.nextJobId++;
       const catalogVersion = this.versionOf(pending.catalog);
@@ -100,33 +109,40 @@ export class EnginePool {
         slot.seenCatalog = catalogVersion;
       }
       const timer = setTimeout(() => this.replace(slot, new Error(`An evaluation ran longer than ${this.timeoutMs} ms.`)), this.timeoutMs);
-      slot.job = { ...pending, id, timer };
+      slot.jobs.set(id, { ...pending, id, timer });
       slot.worker.ref();
       slot.worker.postMessage(message);
     }
   }
 
+  private leastBusy(): Slot | null {
+    let best: Slot | null = null;
+    for (const slot of this.slots) {
+      if (slot.jobs.size < IN_FLIGHT_PER_THREAD && (!best || slot.jobs.size < best.jobs.size)) best = slot;
+    }
+    return best;
+  }
+
   private settle(slot: Slot, reply: EngineReply): void {
-    const job = slot.job;
-    if (!job || job.id !== reply.id) return;
+    const job = slot.jobs.get(reply.id);
+    if (!job) return;
     clearTimeout(job.timer);
-    slot.job = null;
-    slot.worker.unref();
+    slot.jobs.delete(reply.id);
+    if (slot.jobs.size === 0) slot.worker.unref();
     if (reply.ok) job.resolve(reply.json);
     else job.reject(Object.assign(new Error(`The engine failed: ${reply.message}`), { stack: reply.stack }));
     this.dispatch();
   }
 
-  /** A thread that failed, hung or stopped: fail its job, start a fresh thread in its place. */
+  /** A thread that failed, hung or stopped: fail the jobs it held, start a fresh thread in its place. */
   private replace(slot: Slot, error: Error): void {
     const index = this.slots.indexOf(slot);
     if (index < 0) return;
-    const job = slot.job;
-    slot.job = null;
-    if (job) {
+    for (const job of slot.jobs.values()) {
       clearTimeout(job.timer);
       job.reject(error);
     }
+    slot.jobs.clear();
     slot.worker.removeAllListeners();
     slot.worker.on('error', () => undefined);
     // The thread may already be gone; terminating twice is harmless.
