@@ -145,6 +145,26 @@ describe('an engineer reviews a brief', () => {
     await context.close();
   });
 
+  test('on a phone the review fits the screen and wakes when scrolled to', async () => {
+    const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await signInThroughForm(page, baseUrl, DEMO.engineer);
+    await page.goto(`${baseUrl}/desk?q=Aster`);
+    await page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' }).click();
+    await page.getByRole('heading', { name: 'Ways to build it, best first' }).waitFor();
+    // Long equations and figure lists wrap instead of widening the page.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.getByRole('heading', { name: 'Ways to build it, best first' }).scrollIntoViewIfNeeded();
+    await islandsReady(page);
+    await chartsDrawn(page);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await screenshot(page, 'review-phone');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   test('the desk and the review each ship under 120 KB of gzipped JavaScript, the chart library included', async () => {
     const context = await browser().newContext({ viewport: LAPTOP });
     const page = await context.newPage();

@@ -1,3 +1,4 @@
+import { Fragment } from 'react';
 import type { Option, Quantity } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
 import { TYPICAL_NOTE } from '~/lib/review-words';
@@ -17,19 +18,23 @@ export function CalcTrace({ option }: { option: Option }) {
     <div className="calc-sheet">
       <ol className="flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card">
         {option.trace.map((entry, index) => (
-          <li key={entry.id} className="grid gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_1fr_auto]" data-trace={entry.id}>
+          <li key={entry.id} className="grid grid-cols-1 gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_minmax(0,1fr)_auto]" data-trace={entry.id}>
             <span className="font-mono text-ink-faint">{index + 1}.</span>
             <div>
               <p className="font-semibold">{entry.label}</p>
-              <p className="mt-0.5 font-mono text-ink">{entry.equation}</p>
+              {/* Long equations wrap anywhere rather than widen the page on a phone. */}
+              <p className="mt-0.5 font-mono text-ink [overflow-wrap:anywhere]">{entry.equation}</p>
               {Object.keys(entry.inputs).length > 0 && (
                 <p className="mt-0.5 text-ink-soft">
                   where{' '}
                   {Object.entries(entry.inputs).map(([name, q], k, all) => (
-                    <span key={name} className="whitespace-nowrap">
-                      <span className="font-mono">{name}</span> = {quantity(q)}
-                      {k < all.length - 1 ? '; ' : ''}
-                    </span>
+                    <Fragment key={name}>
+                      <span className="whitespace-nowrap">
+                        <span className="font-mono">{name}</span> = {quantity(q)}
+                        {k < all.length - 1 ? ';' : ''}
+                      </span>
+                      {k < all.length - 1 ? ' ' : ''}
+                    </Fragment>
                   ))}
                 </p>
               )}
