@@ -2,6 +2,7 @@
 // carrying the catalog's typical parameters. A netlist describes one operating corner.
 import { defaultCatalog, type Catalog } from './catalog.ts';
 import type { Component, Option } from './types.ts';
+import { boostPoint } from './topologies/boost.ts';
 import { buckPoint } from './topologies/buck.ts';
 
 export interface SpiceCorner {
@@ -113,58 +114,88 @@ function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): string[
   ];
 }
 
-function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+/** What every switcher netlist needs: the stage, its assumed figures, the power inductor and output capacitors. */
+function switcherParts(option: Option, catalog: Catalog) {
   const sw = byRole(option, 'switch')[0]!;
   const stage = catalog.switchers.find((s) => s.label === sw.part);
   if (!stage) throw new Error(`The catalog has no switcher stage "${sw.part}".`);
   const [l1, l2] = byRole(option, 'inductor');
   const couts = byRole(option, 'output-capacitor');
-  const c1 = couts[0]!;
-  const fsw = assumed(option, `${sw.ref}.fsw`, stage.fswDefaultHz);
-  const rds = assumed(option, `${sw.ref}.rdsOn`, stage.rdsOnOhm);
-  const dcr = assumed(option, `${l1!.ref}.dcr`, 0);
-  const esr = assumed(option, `${c1.ref}.esr`, 0);
-  const henries = l1!.value ?? 0;
   const lower = byRole(option, 'feedback-lower')[0]!;
   const upper = byRole(option, 'feedback-upper')[0]!;
-  const vOut = stage.vFbV * (1 + (upper.value ?? 0) / (lower.value ?? 1));
-  const p = buckPoint({ ...stage, rdsOnOhm: rds }, corner.vIn, vOut, corner.iOut, fsw, henries, dcr);
-  const period = 1 / fsw;
-  const edge = period / 200;
-  const ton = Math.max(0, p.d * period - edge);
-  const lines = [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    // Open loop at the engine's duty cycle; pulse width is measured between the edges' midpoints.
-    `Vg g 0 PULSE(0 1 0 ${num(edge)} ${num(edge)} ${num(ton)} ${num(period)})`,
-    `S1 in sw g 0 SWHI`,
-    `.model SWHI SW(VT=0.5 VH=0 RON=${num(rds)} ROFF=1e7)`,
-  ];
-  if (stage.rectification === 'sync') {
-    lines.push(`S2 sw 0 0 g SWLO`, `.model SWLO SW(VT=-0.5 VH=0 RON=${num(rds)} ROFF=1e7)`);
-  } else {
-    const vf = assumed(option, `${byRole(option, 'diode')[0]?.ref ?? 'D1'}.vf`, stage.diodeVfV);
-    lines.push(`Dcatch 0 sw DCATCH`, `.model DCATCH D(IS=${num(Math.max(corner.iOut, 1e-3) * Math.exp(-vf / VT))} N=1)`);
-  }
-  lines.push(
-    `L${l1!.ref} sw nl ${num(henries)} IC=${num(corner.iOut)}`,
-    `Vsense nl nl2 DC 0`,
-    `RL${l1!.ref} nl2 out ${num(dcr)}`,
-    `C${c1.ref} out nc1 ${num(c1.value ?? 0)} IC=${num(vOut)}`,
-    `RESR${c1.ref} nc1 0 ${num(Math.max(esr, 1e-6))}`,
-  );
+  const fsw = assumed(option, `${sw.ref}.fsw`, stage.fswDefaultHz);
+  return {
+    stage,
+    l1: l1!,
+    l2,
+    couts,
+    fsw,
+    rds: assumed(option, `${sw.ref}.rdsOn`, stage.rdsOnOhm),
+    dcr: assumed(option, `${l1!.ref}.dcr`, 0),
+    esr: assumed(option, `${couts[0]!.ref}.esr`, 0),
+    henries: l1!.value ?? 0,
+    vOut: stage.vFbV * (1 + (upper.value ?? 0) / (lower.value ?? 1)),
+    period: 1 / fsw,
+    vf: assumed(option, `${byRole(option, 'diode')[0]?.ref ?? 'D1'}.vf`, stage.diodeVfV),
+  };
+}
+type SwitcherParts = ReturnType<typeof switcherParts>;
+
+/** Open loop at the engine's duty cycle; pulse width is measured between the edges' midpoints. */
+function gateDrive(net: SwitcherParts, d: number): string {
+  const edge = net.period / 200;
+  return `Vg g 0 PULSE(0 1 0 ${num(edge)} ${num(edge)} ${num(Math.max(0, d * net.period - edge))} ${num(net.period)})`;
+}
+
+const SWITCH_ON_HIGH = (rds: number) => `.model SWHI SW(VT=0.5 VH=0 RON=${num(rds)} ROFF=1e7)`;
+const SWITCH_ON_LOW = (rds: number) => `.model SWLO SW(VT=-0.5 VH=0 RON=${num(rds)} ROFF=1e7)`;
+const diodeModel = (name: string, iA: number, vf: number) => `.model ${name} D(IS=${num(Math.max(iA, 1e-3) * Math.exp(-vf / VT))} N=1)`;
+
+/** Output capacitor with its ESR at `out`, the optional LC post-filter, the load and the transient. */
+function outputStage(option: Option, net: SwitcherParts, corner: SpiceCorner): string[] {
+  const c1 = net.couts[0]!;
+  const lines = [`C${c1.ref} out nc1 ${num(c1.value ?? 0)} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
   let load = 'out';
-  if (l2 && couts[1]) {
-    const c2 = couts[1];
+  const c2 = net.couts[1];
+  if (net.l2 && c2) {
     lines.push(
-      `L${l2.ref} out nf ${num(l2.value ?? 0)} IC=${num(corner.iOut)}`,
-      `RL${l2.ref} nf rail ${num(assumed(option, `${l2.ref}.dcr`, 0.01))}`,
-      `C${c2.ref} rail nc2 ${num(c2.value ?? 0)} IC=${num(vOut)}`,
-      `RESR${c2.ref} nc2 0 ${num(Math.max(assumed(option, `${c2.ref}.esr`, esr), 1e-6))}`,
+      `L${net.l2.ref} out nf ${num(net.l2.value ?? 0)} IC=${num(corner.iOut)}`,
+      `RL${net.l2.ref} nf rail ${num(assumed(option, `${net.l2.ref}.dcr`, 0.01))}`,
+      `C${c2.ref} rail nc2 ${num(c2.value ?? 0)} IC=${num(net.vOut)}`,
+      `RESR${c2.ref} nc2 0 ${num(Math.max(assumed(option, `${c2.ref}.esr`, net.esr), 1e-6))}`,
     );
     load = 'rail';
   }
-  lines.push(`Iload ${load} 0 DC ${num(corner.iOut)}`, `.tran ${num(period / 100)} ${num(BUCK_PERIODS * period)} 0 ${num(period / 100)} uic`);
+  lines.push(`Iload ${load} 0 DC ${num(corner.iOut)}`, `.tran ${num(net.period / 100)} ${num(BUCK_PERIODS * net.period)} 0 ${num(net.period / 100)} uic`);
   return lines;
+}
+
+function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  const p = buckPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
+  const lines = [`V1 in 0 DC ${num(corner.vIn)}`, gateDrive(net, p.d), `S1 in sw g 0 SWHI`, SWITCH_ON_HIGH(net.rds)];
+  if (net.stage.rectification === 'sync') lines.push(`S2 sw 0 0 g SWLO`, SWITCH_ON_LOW(net.rds));
+  else lines.push(`Dcatch 0 sw DCATCH`, diodeModel('DCATCH', corner.iOut, net.vf));
+  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(corner.iOut)}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 out ${num(net.dcr)}`);
+  return [...lines, ...outputStage(option, net, corner)];
+}
+
+/** Boost: the inductor from the input to the switch node, a low-side switch, the rectifier to the output. */
+function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  const p = boostPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
+  const lines = [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    gateDrive(net, p.d),
+    `Vsense in nl DC 0`,
+    `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(p.inductorA)}`,
+    `RL${net.l1.ref} nl2 sw ${num(net.dcr)}`,
+    `S1 sw 0 g 0 SWHI`,
+    SWITCH_ON_HIGH(net.rds),
+  ];
+  if (net.stage.rectification === 'sync') lines.push(`S2 sw out 0 g SWLO`, SWITCH_ON_LOW(net.rds));
+  else lines.push(`Drect sw out DRECT`, diodeModel('DRECT', corner.iOut, net.vf));
+  return [...lines, ...outputStage(option, net, corner)];
 }
 
 /** The netlist of an option at a corner; null for topologies without an export yet. */
@@ -178,7 +209,9 @@ export function toSpiceNetlist(option: Option, corner: SpiceCorner, catalog: Cat
           ? predrop(option, corner, catalog)
           : option.topology === 'buck'
             ? buck(option, corner, catalog)
-            : null;
+            : option.topology === 'boost'
+              ? boost(option, corner, catalog)
+              : null;
   if (body === null) return null;
   return [`* ${option.label} at ${num(corner.vIn)} V in, ${num(corner.iOut)} A out (generic models, typical parameters)`, ...body, '.end', ''].join('\n');
 }

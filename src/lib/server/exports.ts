@@ -71,7 +71,7 @@ export async function revisionNetlist(found: RevisionWithBrief): Promise<Netlist
   if (body === null) {
     return {
       ok: false,
-      message: `No netlist export exists yet for a ${TOPOLOGY_NAMES[option.topology].toLowerCase()}; save a revision with a shunt, linear, pre-drop or buck design to export one.`,
+      message: `No netlist export exists yet for a ${TOPOLOGY_NAMES[option.topology].toLowerCase()}; save a revision with a shunt, linear, pre-drop, buck or boost design to export one.`,
     };
   }
   const header = [

@@ -82,10 +82,10 @@ describe('netlist export', () => {
   });
 
   test('a topology without a netlist export is a 409 that says which ones have one', async () => {
-    const { revision } = await revisionOf('controller-24v', 'boost');
+    const { revision } = await revisionOf('controller-24v', 'buck-boost');
     const response = await engineer.request(`/api/v1/revisions/${revision.id}/netlist.cir`);
     expect(response.status).toBe(409);
-    expect((await response.json()).message).toMatch(/No netlist export exists yet for a boost .*shunt, linear, pre-drop or buck/);
+    expect((await response.json()).message).toMatch(/No netlist export exists yet for a buck-boost .*shunt, linear, pre-drop, buck or boost/);
     expect((await engineer.request('/api/v1/revisions/no-such-revision/netlist.cir')).status).toBe(404);
   });
 });
