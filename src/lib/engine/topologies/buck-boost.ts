@@ -1,5 +1,6 @@
 // Four-switch buck-boost: steps down when the input is above the output and up when below, so it
 // regulates an input range that straddles the output.
+import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import { chooseCapacitor } from '../capacitors.ts';
@@ -19,6 +20,33 @@ import {
   switchingFrequency,
 } from './switcher.ts';
 
+export interface BuckBoostPoint {
+  d: number;
+  /** Average inductor current. */
+  il: number;
+  rippleA: number;
+  switchW: number;
+  dcrW: number;
+  pInW: number;
+  pOutW: number;
+  /** True when the boost leg switches (input at or below the output). */
+  boost: boolean;
+}
+
+/**
+ * Above the output the buck leg switches while the boost leg's top switch stays on; at or below
+ * it the boost leg switches while the buck leg's top switch stays on: two switches always carry
+ * the inductor current.
+ */
+export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number): BuckBoostPoint {
+  if (vIn > vOut) {
+    const p = buckPoint({ ...stage, rdsOnOhm: 2 * stage.rdsOnOhm }, vIn, vOut, iOut, fsw, henries, dcrOhm);
+    return { d: p.d, il: iOut, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: false };
+  }
+  const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcrOhm, 2);
+  return { d: p.d, il: p.inductorA, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: true };
+}
+
 export function designBuckBoost(ctx: Context): Design {
   const { brief, catalog } = ctx;
   const trace = new Trace();
@@ -30,9 +58,6 @@ export function designBuckBoost(ctx: Context): Design {
   const uRef = refs.next('U');
   const fb = switcherFeedback(ctx, refs, trace, stage, brief.output.v, 'buckboost');
   const vOut = fb.divider.vOut;
-  // In buck mode the boost leg's top switch stays on; in boost mode the buck leg's top switch does:
-  // two switches always carry the inductor current.
-  const buckLeg = { ...stage, rdsOnOhm: 2 * stage.rdsOnOhm };
   const vLow = ctx.vInTrough;
 
   const dBuck = Math.min(1, vOut / vMax);
@@ -45,17 +70,9 @@ export function designBuckBoost(ctx: Context): Design {
   }, Math.max(lBuck, lBoost, 1e-9), 'H');
   const lRef = refs.next('L');
   const provisional = chooseInductor(lRef, catalog, lWanted, ilBoost * 1.15, forced(ctx, lRef)).chosen;
-  const mode = (vIn: number) => (vIn > vOut ? 'buck' : 'boost');
-  const pointWith = (henries: number, dcr: number) => (vIn: number, iOut: number) => {
-    if (mode(vIn) === 'buck') {
-      const p = buckPoint(buckLeg, vIn, vOut, iOut, fsw, henries, dcr);
-      return { d: p.d, il: iOut, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: false };
-    }
-    const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcr, 2);
-    return { d: p.d, il: p.inductorA, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: true };
-  };
+  const pointWith = (henries: number, dcr: number) => (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, henries, dcr);
   const pre = pointWith(provisional.henries, provisional.dcrOhm);
-  const peakAt = (p: ReturnType<typeof pre>) => p.il + p.rippleA / 2;
+  const peakAt = (p: BuckBoostPoint) => p.il + p.rippleA / 2;
   const peak = Math.max(peakAt(pre(vLow, iMax)), peakAt(pre(vMax, iMax)));
   const { chosen: inductor, issue: lIssue } = chooseInductor(lRef, catalog, lWanted, peak, forced(ctx, lRef));
   if (lIssue) issues.push(lIssue);
@@ -74,7 +91,7 @@ export function designBuckBoost(ctx: Context): Design {
   const cNeed = room > 0 ? Math.max((iMax * (lowP.boost ? lowP.d : 0)) / (fsw * room), highP.rippleA / (8 * fsw * room)) : Number.MAX_VALUE;
   const cout = chooseOutputCapacitor(refs.next('C'), catalog, cNeed, vOut);
   if (cout.issue) issues.push(cout.issue);
-  const rippleOf = (p: ReturnType<typeof point>) =>
+  const rippleOf = (p: BuckBoostPoint) =>
     p.boost ? boostRipple(iMax, p.d, p.il + p.rippleA / 2, fsw, cout.farads, cout.esrOhm) : buckRipple(p.rippleA, fsw, cout.farads, cout.esrOhm);
   const rippleStage = trace.add('buckboost.ripple', 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
     Cout: [cout.farads, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
@@ -100,7 +117,7 @@ export function designBuckBoost(ctx: Context): Design {
     ...fb.parts,
     ...(post?.parts ?? []),
   ];
-  const stress = (vIn: number, iOut: number, at?: ReturnType<typeof point>): Record<string, PartStress> => {
+  const stress = (vIn: number, iOut: number, at?: BuckBoostPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
     const s: Record<string, PartStress> = {
       [uRef]: { w: p.switchW, v: Math.max(vIn, vOut) },
