@@ -31,7 +31,8 @@ export interface BoostPoint {
 
 /**
  * Continuous conduction. D = 1 − η·Vin/Vout with η the power-path efficiency (by energy balance),
- * IL = Iout/(1 − D), ΔIL = Vin·D/(fsw·L).
+ * IL = Iout/(1 − D). While the low-side switch conducts the inductor sees the input less the drop
+ * across the n = pathSwitches switches in its path and its winding: ΔIL = (Vin − IL·(n·Rds + DCR))·D/(fsw·L).
  */
 export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, pathSwitches = 1): BoostPoint {
   const sync = stage.rectification === 'sync';
@@ -46,7 +47,7 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
   for (let k = 0; k < 8; k += 1) {
     d = Math.min(0.99, Math.max(0, 1 - (eta * vIn) / vOut));
     il = iOut / (1 - d);
-    ripple = (vIn * d) / (fsw * henries);
+    ripple = (Math.max(0, vIn - il * (pathSwitches * stage.rdsOnOhm + dcrOhm)) * d) / (fsw * henries);
     const irms2 = il * il + (ripple * ripple) / 12;
     sw = irms2 * stage.rdsOnOhm * (d + (pathSwitches - 1));
     rect = sync ? irms2 * stage.rdsOnOhm * (1 - d) : stage.diodeVfV * iOut;

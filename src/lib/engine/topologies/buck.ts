@@ -36,7 +36,9 @@ export interface BuckPoint {
  * Steady state in continuous conduction. D = Vout/(η·Vin) with η the power-path efficiency
  * (switch conduction, catch diode, inductor DCR): by energy balance those losses set the
  * volt-seconds on the inductor. Switching, gate-drive and controller losses come from the input
- * without changing D. ΔIL = (Vin − Vout)·D/(fsw·L).
+ * without changing D. While the high-side switch conducts the inductor sees the input less the
+ * output and the conduction drop across that switch and its winding:
+ * ΔIL = (Vin − Vout − Iout·(Rds + DCR))·D/(fsw·L).
  */
 export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number): BuckPoint {
   const sync = stage.rectification === 'sync';
@@ -50,7 +52,7 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
   let dcr = 0;
   for (let k = 0; k < 8; k += 1) {
     d = Math.min(1, vOut / (eta * vIn));
-    ripple = (Math.max(0, vIn - vOut) * d) / (fsw * henries);
+    ripple = (Math.max(0, vIn - vOut - iOut * (stage.rdsOnOhm + dcrOhm)) * d) / (fsw * henries);
     const irms2 = iOut * iOut + (ripple * ripple) / 12;
     hs = irms2 * stage.rdsOnOhm * d;
     ls = sync ? irms2 * stage.rdsOnOhm * (1 - d) : 0;
@@ -119,8 +121,8 @@ export function buckStage(
   const peak = load.iMax + worstPoint.rippleA / 2;
   const { chosen: inductor, issue: lIssue } = chooseInductor(lRef, catalog, lWanted, peak, forced(ctx, lRef));
   if (lIssue) issues.push(lIssue);
-  trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = (vInMax − Vout)·D/(fsw·L)', {
-    vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], D: [worstPoint.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
+  trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = (vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
+    vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], iOutMax: [load.iMax, 'A'], Rds: [stage.rdsOnOhm, 'Ω'], DCR: [first.chosen.dcrOhm, 'Ω'], D: [worstPoint.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
   }, worstPoint.rippleA, 'A');
   trace.add(`${idPrefix}.ipk`, 'Peak switch and inductor current', 'Ipk = iOutMax + ΔIL/2', { iOutMax: [load.iMax, 'A'], ΔIL: [worstPoint.rippleA, 'A'] }, peak, 'A');
   if (peak > stage.iSwitchMaxA) issues.push(blocker('current', `The peak current ${peak.toFixed(2)} A exceeds the ${stage.iSwitchMaxA} A switch of ${stage.label}.`));
