@@ -12,8 +12,8 @@ export interface SpiceCorner {
 
 /** Thermal voltage at 27 °C, the simulator's default temperature. */
 const VT = 0.025865;
-/** Transconductance of the behavioural error amplifier, A/V: large enough that its error is µV. */
-const ERROR_GM = 100;
+/** Transconductance of the behavioural error amplifier, A/V: its error is 10 µV per ampere delivered. */
+const ERROR_GM = 1e5;
 /** Open-loop transient: switching periods simulated and the tail averaged. */
 export const BUCK_PERIODS = 300;
 export const BUCK_AVERAGE_PERIODS = 50;
@@ -147,6 +147,12 @@ function gateDrive(net: SwitcherParts, d: number): string {
   return `Vg g 0 PULSE(0 1 0 ${num(edge)} ${num(edge)} ${num(Math.max(0, d * net.period - edge))} ${num(net.period)})`;
 }
 
+/**
+ * Each period starts with the on-time, where the inductor current is at its valley: starting there
+ * rather than at the average keeps the open-loop LC from ringing through the run.
+ */
+const valley = (average: number, rippleA: number) => average - rippleA / 2;
+
 const SWITCH_ON_HIGH = (rds: number) => `.model SWHI SW(VT=0.5 VH=0 RON=${num(rds)} ROFF=1e7)`;
 const SWITCH_ON_LOW = (rds: number) => `.model SWLO SW(VT=-0.5 VH=0 RON=${num(rds)} ROFF=1e7)`;
 const diodeModel = (name: string, iA: number, vf: number) => `.model ${name} D(IS=${num(Math.max(iA, 1e-3) * Math.exp(-vf / VT))} N=1)`;
@@ -176,7 +182,7 @@ function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const lines = [`V1 in 0 DC ${num(corner.vIn)}`, gateDrive(net, p.d), `S1 in sw g 0 SWHI`, SWITCH_ON_HIGH(net.rds)];
   if (net.stage.rectification === 'sync') lines.push(`S2 sw 0 0 g SWLO`, SWITCH_ON_LOW(net.rds));
   else lines.push(`Dcatch 0 sw DCATCH`, diodeModel('DCATCH', corner.iOut, net.vf));
-  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(corner.iOut)}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 out ${num(net.dcr)}`);
+  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(valley(corner.iOut, p.rippleA))}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 out ${num(net.dcr)}`);
   return [...lines, ...outputStage(option, net, corner)];
 }
 
@@ -188,7 +194,7 @@ function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] 
     `V1 in 0 DC ${num(corner.vIn)}`,
     gateDrive(net, p.d),
     `Vsense in nl DC 0`,
-    `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(p.inductorA)}`,
+    `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(valley(p.inductorA, p.rippleA))}`,
     `RL${net.l1.ref} nl2 sw ${num(net.dcr)}`,
     `S1 sw 0 g 0 SWHI`,
     SWITCH_ON_HIGH(net.rds),
