@@ -3,6 +3,7 @@
 import { defaultCatalog, type Catalog } from './catalog.ts';
 import type { Component, Option } from './types.ts';
 import { boostPoint } from './topologies/boost.ts';
+import { buckBoostPoint } from './topologies/buck-boost.ts';
 import { buckPoint } from './topologies/buck.ts';
 
 export interface SpiceCorner {
@@ -28,19 +29,28 @@ function assumed(option: Option, key: string, fallback: number): number {
   return option.assumptions[key]?.value ?? fallback;
 }
 
+/** The regulator's class, figures and divider: the feedback resistors listed after it (a switcher's come before). */
+function regulatorParts(option: Option, regRef: string, catalog: Catalog) {
+  const at = option.components.findIndex((c) => c.ref === regRef);
+  const after = option.components.slice(at);
+  const cls = catalog.linearRegulators.find((c) => c.label === option.components[at]!.part);
+  return {
+    cls,
+    vRef: assumed(option, `${regRef}.vRef`, cls?.vRefV ?? 1.25),
+    iAdj: assumed(option, `${regRef}.iAdj`, 0),
+    iq: assumed(option, `${regRef}.iq`, 0),
+    lower: after.find((c) => c.role === 'feedback-lower'),
+    upper: after.find((c) => c.role === 'feedback-upper'),
+  };
+}
+
 /**
  * Regulator as a behavioural pass element: a transconductance from the input to the output holds
  * the sensed voltage at the reference (floating: OUT − ADJ; ground-referenced: FB), plus the
  * adjust-pin and ground-pin currents. Ideal above dropout: the corners simulated keep headroom.
  */
 function regulatorLines(option: Option, regRef: string, inNode: string, catalog: Catalog): string[] {
-  const u = option.components.find((c) => c.ref === regRef)!;
-  const cls = catalog.linearRegulators.find((c) => c.label === u.part);
-  const vRef = assumed(option, `${regRef}.vRef`, cls?.vRefV ?? 1.25);
-  const iAdj = assumed(option, `${regRef}.iAdj`, 0);
-  const iq = assumed(option, `${regRef}.iq`, 0);
-  const lower = byRole(option, 'feedback-lower')[0];
-  const upper = byRole(option, 'feedback-upper')[0];
+  const { cls, vRef, iAdj, iq, lower, upper } = regulatorParts(option, regRef, catalog);
   const lines: string[] = [];
   if (!cls || cls.kind === 'fixed' || !lower || !upper) {
     lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - V(out)`);
@@ -157,33 +167,42 @@ const SWITCH_ON_HIGH = (rds: number) => `.model SWHI SW(VT=0.5 VH=0 RON=${num(rd
 const SWITCH_ON_LOW = (rds: number) => `.model SWLO SW(VT=-0.5 VH=0 RON=${num(rds)} ROFF=1e7)`;
 const diodeModel = (name: string, iA: number, vf: number) => `.model ${name} D(IS=${num(Math.max(iA, 1e-3) * Math.exp(-vf / VT))} N=1)`;
 
-/** Output capacitor with its ESR at `out`, the optional LC post-filter, the load and the transient. */
-function outputStage(option: Option, net: SwitcherParts, corner: SpiceCorner): string[] {
+/** Output capacitor with its ESR at `node`, then the optional LC post-filter; the load connects to `rail`. */
+function outputNetwork(option: Option, net: SwitcherParts, node: string, iOut: number): { lines: string[]; rail: string } {
   const c1 = net.couts[0]!;
-  const lines = [`C${c1.ref} out nc1 ${num(c1.value ?? 0)} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
-  let load = 'out';
+  const lines = [`C${c1.ref} ${node} nc1 ${num(c1.value ?? 0)} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
   const c2 = net.couts[1];
-  if (net.l2 && c2) {
-    lines.push(
-      `L${net.l2.ref} out nf ${num(net.l2.value ?? 0)} IC=${num(corner.iOut)}`,
-      `RL${net.l2.ref} nf rail ${num(assumed(option, `${net.l2.ref}.dcr`, 0.01))}`,
-      `C${c2.ref} rail nc2 ${num(c2.value ?? 0)} IC=${num(net.vOut)}`,
-      `RESR${c2.ref} nc2 0 ${num(Math.max(assumed(option, `${c2.ref}.esr`, net.esr), 1e-6))}`,
-    );
-    load = 'rail';
-  }
-  lines.push(`Iload ${load} 0 DC ${num(corner.iOut)}`, `.tran ${num(net.period / 100)} ${num(BUCK_PERIODS * net.period)} 0 ${num(net.period / 100)} uic`);
+  if (!net.l2 || !c2) return { lines, rail: node };
+  lines.push(
+    `L${net.l2.ref} ${node} nf ${num(net.l2.value ?? 0)} IC=${num(iOut)}`,
+    `RL${net.l2.ref} nf rail ${num(assumed(option, `${net.l2.ref}.dcr`, 0.01))}`,
+    `C${c2.ref} rail nc2 ${num(c2.value ?? 0)} IC=${num(net.vOut)}`,
+    `RESR${c2.ref} nc2 0 ${num(Math.max(assumed(option, `${c2.ref}.esr`, net.esr), 1e-6))}`,
+  );
+  return { lines, rail: 'rail' };
+}
+
+/** The converter's output network, the load on its rail and the transient. */
+function loadedOutput(option: Option, net: SwitcherParts, corner: SpiceCorner): string[] {
+  const { lines, rail } = outputNetwork(option, net, 'out', corner.iOut);
+  return [...lines, `Iload ${rail} 0 DC ${num(corner.iOut)}`, transientLine(net)];
+}
+
+const transientLine = (net: SwitcherParts) => `.tran ${num(net.period / 100)} ${num(BUCK_PERIODS * net.period)} 0 ${num(net.period / 100)} uic`;
+
+/** Buck power stage from `in` to the capacitor at `node`, carrying iOut on average. */
+function buckStageLines(net: SwitcherParts, vIn: number, iOut: number, node: string): string[] {
+  const p = buckPoint({ ...net.stage, rdsOnOhm: net.rds }, vIn, net.vOut, iOut, net.fsw, net.henries, net.dcr);
+  const lines = [`V1 in 0 DC ${num(vIn)}`, gateDrive(net, p.d), `S1 in sw g 0 SWHI`, SWITCH_ON_HIGH(net.rds)];
+  if (net.stage.rectification === 'sync') lines.push(`S2 sw 0 0 g SWLO`, SWITCH_ON_LOW(net.rds));
+  else lines.push(`Dcatch 0 sw DCATCH`, diodeModel('DCATCH', iOut, net.vf));
+  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(valley(iOut, p.rippleA))}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 ${node} ${num(net.dcr)}`);
   return lines;
 }
 
 function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const net = switcherParts(option, catalog);
-  const p = buckPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
-  const lines = [`V1 in 0 DC ${num(corner.vIn)}`, gateDrive(net, p.d), `S1 in sw g 0 SWHI`, SWITCH_ON_HIGH(net.rds)];
-  if (net.stage.rectification === 'sync') lines.push(`S2 sw 0 0 g SWLO`, SWITCH_ON_LOW(net.rds));
-  else lines.push(`Dcatch 0 sw DCATCH`, diodeModel('DCATCH', corner.iOut, net.vf));
-  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(valley(corner.iOut, p.rippleA))}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 out ${num(net.dcr)}`);
-  return [...lines, ...outputStage(option, net, corner)];
+  return [...buckStageLines(net, corner.vIn, corner.iOut, 'out'), ...loadedOutput(option, net, corner)];
 }
 
 /** Boost: the inductor from the input to the switch node, a low-side switch, the rectifier to the output. */
@@ -201,23 +220,69 @@ function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] 
   ];
   if (net.stage.rectification === 'sync') lines.push(`S2 sw out 0 g SWLO`, SWITCH_ON_LOW(net.rds));
   else lines.push(`Drect sw out DRECT`, diodeModel('DRECT', corner.iOut, net.vf));
-  return [...lines, ...outputStage(option, net, corner)];
+  return [...lines, ...loadedOutput(option, net, corner)];
 }
 
-/** The netlist of an option at a corner; null for topologies without an export yet. */
-export function toSpiceNetlist(option: Option, corner: SpiceCorner, catalog: Catalog = defaultCatalog): string | null {
-  const body =
-    option.topology === 'shunt'
-      ? shunt(option, corner)
-      : option.topology === 'linear'
-        ? linear(option, corner, catalog)
-        : option.topology === 'linear-predrop'
-          ? predrop(option, corner, catalog)
-          : option.topology === 'buck'
-            ? buck(option, corner, catalog)
-            : option.topology === 'boost'
-              ? boost(option, corner, catalog)
-              : null;
-  if (body === null) return null;
+/**
+ * Four-switch buck-boost: S1/S2 are the buck leg from the input to sw1, S3/S4 the boost leg from sw2
+ * to the output, the inductor between. The leg the engine's mode switches follows the gate; the
+ * other leg holds its top switch on (gate `on`) and its bottom switch off.
+ */
+function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  const p = buckBoostPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
+  const held = { top: 'on 0 SWHI', bottom: '0 on SWHI' };
+  const pwm = { top: 'g 0 SWHI', bottom: '0 g SWLO' };
+  const buckLeg = p.boost ? held : pwm;
+  const boostLeg = p.boost ? { top: pwm.bottom, bottom: pwm.top } : held;
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    gateDrive(net, p.d),
+    `Von on 0 DC 1`,
+    `S1 in sw1 ${buckLeg.top}`,
+    `S2 sw1 0 ${buckLeg.bottom}`,
+    `Vsense sw1 nl DC 0`,
+    `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(valley(p.il, p.rippleA))}`,
+    `RL${net.l1.ref} nl2 sw2 ${num(net.dcr)}`,
+    `S3 sw2 0 ${boostLeg.bottom}`,
+    `S4 sw2 out ${boostLeg.top}`,
+    SWITCH_ON_HIGH(net.rds),
+    SWITCH_ON_LOW(net.rds),
+    ...loadedOutput(option, net, corner),
+  ];
+}
+
+/**
+ * Buck to the intermediate rail `bus`, then the post-regulator from `bus` to `out`. The buck carries
+ * the regulator's input current: the load, its divider, adjust-pin and ground-pin currents.
+ */
+function buckLinear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  const reg = byRole(option, 'regulator')[0]!;
+  const r = regulatorParts(option, reg.ref, catalog);
+  const iBus = corner.iOut + (r.lower ? r.vRef / (r.lower.value ?? 1) : 0) + r.iAdj + r.iq;
+  const bus = outputNetwork(option, net, 'bus', iBus);
+  return [
+    ...buckStageLines(net, corner.vIn, iBus, 'bus'),
+    ...bus.lines,
+    ...regulatorLines(option, reg.ref, bus.rail, catalog),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    transientLine(net),
+  ];
+}
+
+const BODIES: Record<Option['topology'], (option: Option, corner: SpiceCorner, catalog: Catalog) => string[]> = {
+  shunt,
+  linear,
+  'linear-predrop': predrop,
+  buck,
+  boost,
+  'buck-boost': buckBoost,
+  'buck+linear': buckLinear,
+};
+
+/** The netlist of an option at a corner. */
+export function toSpiceNetlist(option: Option, corner: SpiceCorner, catalog: Catalog = defaultCatalog): string {
+  const body = BODIES[option.topology](option, corner, catalog);
   return [`* ${option.label} at ${num(corner.vIn)} V in, ${num(corner.iOut)} A out (generic models, typical parameters)`, ...body, '.end', ''].join('\n');
 }

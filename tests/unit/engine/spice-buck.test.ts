@@ -27,7 +27,7 @@ describe('buck design against an ngspice switching transient', () => {
   });
 
   test('highest input, full load: average output within 2 %, inductor ripple within 10 %, output ripple bounded', async () => {
-    const w = await transient(sim, toSpiceNetlist(buck, { vIn: 14, iOut: 1 })!);
+    const w = await transient(sim, toSpiceNetlist(buck, { vIn: 14, iOut: 1 }));
     const t0 = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / fsw;
     expect(Math.abs(average(w.time, w.vOut, t0) - vOutEngine)).toBeLessThanOrEqual(0.02 * vOutEngine);
     const ripple = traced('buck.dil');
@@ -42,7 +42,7 @@ describe('buck design against an ngspice switching transient', () => {
   });
 
   test('nominal corner: average output within 2 %, ripple ΔIL = (Vin − Vout)·D/(fsw·L) within 10 %', async () => {
-    const w = await transient(sim, toSpiceNetlist(buck, { vIn: 12, iOut: 0.5 })!);
+    const w = await transient(sim, toSpiceNetlist(buck, { vIn: 12, iOut: 0.5 }));
     const t0 = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / fsw;
     expect(Math.abs(average(w.time, w.vOut, t0) - vOutEngine)).toBeLessThanOrEqual(0.02 * vOutEngine);
     const d = traced('buck.d.nom');

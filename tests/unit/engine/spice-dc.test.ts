@@ -48,7 +48,7 @@ describe('shunt design against ngspice', () => {
   const rz = shunt.assumptions[`${dz}.rz`]!.value;
 
   test.each(corners)('output voltage and Zener current at $vIn V, $iOut A', async (corner) => {
-    const op = await operatingPoint(toSpiceNetlist(shunt, corner)!);
+    const op = await operatingPoint(toSpiceNetlist(shunt, corner));
     const engine = solveShunt(corner.vIn, corner.iOut, rs, vKnee, rz);
     within2(op['v(out)']!, engine.vOut);
     // The source current is the series-resistor current; the Zener takes what the load does not.
@@ -72,7 +72,7 @@ describe('linear design against ngspice', () => {
   });
 
   test.each(corners)('output voltage, input current and divider current at $vIn V, $iOut A', async (corner) => {
-    const op = await operatingPoint(toSpiceNetlist(linear, corner)!);
+    const op = await operatingPoint(toSpiceNetlist(linear, corner));
     const vOut = dividerVout(vRef, r1, r2, iAdj);
     within2(op['v(out)']!, vOut);
     // Input current = load + divider (Vref/R1) + adjust-pin current + quiescent current.
@@ -100,7 +100,7 @@ describe('linear design with pre-drop against ngspice', () => {
     { vIn: 280, iOut: 0.02 },
     { vIn: 320, iOut: 0.005 },
   ])('output voltage at $vIn V, $iOut A', async (corner) => {
-    const op = await operatingPoint(toSpiceNetlist(hv, corner)!);
+    const op = await operatingPoint(toSpiceNetlist(hv, corner));
     within2(op['v(out)']!, dividerVout(vRef, r1, r2, iAdj));
   });
 });

@@ -19,6 +19,8 @@ export interface Waves {
   time: number[];
   vOut: number[];
   iL: number[];
+  /** Any other vector by the simulator's name for it, such as v(bus). */
+  wave(name: string): number[];
 }
 
 export async function transient(sim: Simulation, netlist: string): Promise<Waves> {
@@ -27,7 +29,7 @@ export async function transient(sim: Simulation, netlist: string): Promise<Waves
   expect(sim.getError().filter((m) => /error|no convergence|abort|timestep too small/i.test(m))).toEqual([]);
   if (result.dataType !== 'real') throw new Error('expected a real transient result');
   const wave = (name: string) => result.data.find((d) => d.name === name)!.values;
-  return { time: wave('time'), vOut: wave('v(out)'), iL: wave('i(vsense)') };
+  return { time: wave('time'), vOut: wave('v(out)'), iL: wave('i(vsense)'), wave };
 }
 
 /** Time average over [t0, end] by the trapezoid rule (the simulator's steps are not uniform). */
