@@ -68,12 +68,6 @@ export async function revisionNetlist(found: RevisionWithBrief): Promise<Netlist
   if (!option) return { ok: false, message: 'This revision holds no design for its chosen topology.' };
   const corner = nominalCorner(found.revision.input);
   const body = toSpiceNetlist(option, corner, await currentCatalog());
-  if (body === null) {
-    return {
-      ok: false,
-      message: `No netlist export exists yet for a ${TOPOLOGY_NAMES[option.topology].toLowerCase()}; save a revision with a shunt, linear, pre-drop, buck or boost design to export one.`,
-    };
-  }
   const header = [
     `* Railwright - ${found.briefTitle}, revision ${found.revision.number}: ${TOPOLOGY_NAMES[option.topology]}`,
     `* Device models use typical parameters (${TYPICAL_NOTE}).`,

@@ -81,11 +81,20 @@ describe('netlist export', () => {
     within2(tailAverage(wave('time'), wave('v(out)'), 0.15), chosen.monteCarlo.mean);
   });
 
-  test('a topology without a netlist export is a 409 that says which ones have one', async () => {
-    const { revision } = await revisionOf('controller-24v', 'buck-boost');
+  test('the four-switch buck-boost design of the 24 V card downloads and averages to its output voltage', async () => {
+    const { revision, chosen } = await revisionOf('controller-24v', 'buck-boost');
     const response = await engineer.request(`/api/v1/revisions/${revision.id}/netlist.cir`);
-    expect(response.status).toBe(409);
-    expect((await response.json()).message).toMatch(/No netlist export exists yet for a buck-boost .*shunt, linear, pre-drop, buck or boost/);
+    expect(response.status).toBe(200);
+    const text = await response.text();
+    expect(text).toMatch(/^\* Railwright - Export test: PLC card, revision \d+: Buck-boost switcher\n/);
+    // 24 V in is above the 5 V output: the buck leg switches and the boost leg's top switch is held on.
+    expect(text).toMatch(/^S1 in sw1 g 0 SWHI$/m);
+    expect(text).toMatch(/^S4 sw2 out on 0 SWHI$/m);
+    const wave = await simulate(text);
+    within2(tailAverage(wave('time'), wave('v(out)'), 0.15), chosen.monteCarlo.mean);
+  });
+
+  test('a revision that does not exist is a 404', async () => {
     expect((await engineer.request('/api/v1/revisions/no-such-revision/netlist.cir')).status).toBe(404);
   });
 });

@@ -69,8 +69,7 @@ const ROWS: Row[] = [
   { method: 'POST', file: 'api/v1/quotes/[id]/checkout.ts', path: () => `/api/v1/quotes/${ids.quote}/checkout`, expect: [401, 409, 404, 403, 403] },
   { method: 'GET', file: 'api/v1/quotes/[id]/pdf.ts', path: () => `/api/v1/quotes/${ids.quote}/pdf`, expect: [401, 200, 404, 200, 200] },
   { method: 'POST', file: 'api/v1/quotes/[id]/send.ts', path: () => `/api/v1/quotes/${ids.quote}/send`, expect: [401, 403, 403, 409, 409] },
-  // Client A's revision is a buck-boost, which has no netlist export: staff get the 409 that says so.
-  { method: 'GET', file: 'api/v1/revisions/[id]/netlist.cir.ts', path: () => `/api/v1/revisions/${ids.revision}/netlist.cir`, expect: [401, 403, 403, 409, 409] },
+  { method: 'GET', file: 'api/v1/revisions/[id]/netlist.cir.ts', path: () => `/api/v1/revisions/${ids.revision}/netlist.cir`, expect: [401, 403, 403, 200, 200] },
   { method: 'GET', file: 'api/v1/revisions/[id]/parts.csv.ts', path: () => `/api/v1/revisions/${ids.revision}/parts.csv`, expect: [401, 403, 403, 200, 200] },
   { method: 'GET', file: 'api/v1/revisions/compare.ts', path: () => `/api/v1/revisions/compare?a=${ids.revision}&b=${ids.revision}`, expect: [401, 403, 403, 200, 200] },
   { method: 'POST', file: 'quotes/[id]/pay.ts', path: () => `/quotes/${ids.quote}/pay`, expect: [303, 303, 404, 404, 404] },
