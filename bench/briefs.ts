@@ -1,8 +1,8 @@
 /** A fixed, varied set of briefs for every benchmark: the demo rails plus a few corners of the range. */
-import { briefSchema, type Brief, type BriefInput } from '../src/lib/engine/brief';
+import { railSpecSchema, type RailSpec, type RailSpecInput } from '../src/lib/engine/rail-spec';
 import { DEMO_BRIEFS } from '../src/lib/server/seed/scenario';
 
-const EXTRA: BriefInput[] = [
+const EXTRA: RailSpecInput[] = [
   {
     input: { vMin: 4.5, vNom: 5, vMax: 5.5, rippleVpp: 0.05, source: 'adapter' },
     output: { v: 3.3, tolerance: 0.05, iMin: 0.001, iTyp: 0.05, iMax: 0.25 },
@@ -23,5 +23,5 @@ const EXTRA: BriefInput[] = [
   },
 ];
 
-export const BENCH_BRIEF_INPUTS: BriefInput[] = [...DEMO_BRIEFS.map((b) => b.spec), ...EXTRA];
-export const BENCH_BRIEFS: Brief[] = BENCH_BRIEF_INPUTS.map((b) => briefSchema.parse(b));
+export const BENCH_BRIEF_INPUTS: RailSpecInput[] = [...DEMO_BRIEFS.map((b) => b.spec), ...EXTRA];
+export const BENCH_BRIEFS: RailSpec[] = BENCH_BRIEF_INPUTS.map((b) => railSpecSchema.parse(b));

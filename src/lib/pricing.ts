@@ -5,7 +5,7 @@
  * units; rates are basis points; line quantities are thousandths.
  */
 import { z } from 'zod';
-import type { Brief } from './engine/brief';
+import type { RailSpec } from './engine/rail-spec';
 import type { Evaluation, Option, TopologyId } from './engine/types';
 import { topologyIds } from './engine/types';
 import { TOPOLOGY_NAMES } from './option-words';
@@ -129,7 +129,7 @@ export function chosenOption(result: Evaluation, topology: string): Option | nul
   return result.options.find((o) => o.topology === topology) ?? null;
 }
 
-export function designFacts(revision: { topology: string; number: number; input: Brief; result: Evaluation }): DesignFacts | null {
+export function designFacts(revision: { topology: string; number: number; input: RailSpec; result: Evaluation }): DesignFacts | null {
   const option = chosenOption(revision.result, revision.topology);
   if (!option) return null;
   const { input, output, noise } = revision.input;

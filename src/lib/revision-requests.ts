@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { briefSchema } from './engine/brief';
+import { railSpecSchema } from './engine/rail-spec';
 import { topologyIds } from './engine/types';
 
 /** What an engineer sends to save a revision: the choices on top of the client's brief. */
@@ -17,7 +17,7 @@ export type RevisionRequest = z.infer<typeof revisionRequestSchema>;
 /** The brief with the engineer's weights and overrides in place, checked as one brief. */
 export function briefWithChoices(spec: unknown, choices: Pick<RevisionRequest, 'weights' | 'overrides'>) {
   const base = (spec && typeof spec === 'object' ? spec : {}) as Record<string, unknown>;
-  return briefSchema.safeParse({
+  return railSpecSchema.safeParse({
     ...base,
     ...(choices.weights !== undefined ? { weights: choices.weights } : {}),
     ...(choices.overrides !== undefined ? { overrides: choices.overrides } : {}),

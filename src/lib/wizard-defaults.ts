@@ -3,9 +3,9 @@
  * client who is not a power specialist begins from something typical.
  * Typical values only — the client replaces them with their own.
  */
-import { noiseClassDefaults, type BriefInput, type NoiseClass } from './engine/brief';
+import { noiseClassDefaults, type RailSpecInput, type NoiseClass } from './engine/rail-spec';
 
-export type SourceKind = BriefInput['input']['source'];
+export type SourceKind = RailSpecInput['input']['source'];
 
 export const SOURCE_TYPICAL: Record<SourceKind, { vMin: number; vNom: number; vMax: number; rippleVpp: number; hint: string }> = {
   battery: { vMin: 3.0, vNom: 3.7, vMax: 4.2, rippleVpp: 0, hint: 'One Li-ion cell: 4.2 V full, about 3.0 V empty.' },
@@ -31,7 +31,7 @@ export const AIRFLOW_WORDS = {
   'forced-air': 'A fan moves air over it',
 } as const;
 
-export function startingBrief(): BriefInput {
+export function startingBrief(): RailSpecInput {
   const source = SOURCE_TYPICAL.adapter;
   return {
     input: { vMin: source.vMin, vNom: source.vNom, vMax: source.vMax, rippleVpp: source.rippleVpp, source: 'adapter' },

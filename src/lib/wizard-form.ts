@@ -3,7 +3,7 @@
  * which fields each step owns (for per-step validation).
  */
 import { z } from 'zod/mini';
-import { briefSchema } from './engine/brief';
+import { railSpecSchema } from './engine/rail-spec';
 
 export const wizardFormSchema = z.object({
   title: z.string().check(
@@ -12,7 +12,7 @@ export const wizardFormSchema = z.object({
     z.maxLength(160, { error: 'Keep the name under 160 characters.' }),
   ),
   notes: z.string().check(z.maxLength(8_000, { error: 'Keep the notes under 8 000 characters.' })),
-  spec: briefSchema,
+  spec: railSpecSchema,
 });
 
 export type WizardInput = z.input<typeof wizardFormSchema>;

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { Brief } from '~/lib/engine/brief';
+import type { RailSpec } from '~/lib/engine/rail-spec';
 import type { Evaluation, TopologyId } from '~/lib/engine/types';
 import { TOPOLOGY_NAMES } from '~/lib/option-words';
 import { AdjustPanel } from './AdjustPanel';
@@ -14,7 +14,7 @@ import { SpreadChart } from './SpreadChart';
 
 interface Props {
   briefId: string;
-  spec: Brief;
+  spec: RailSpec;
   initialForm: ChoicesForm;
   initialTopology: TopologyId | null;
   initialResult: Evaluation;

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
 import { Controller, useForm, useWatch, type FieldPath } from 'react-hook-form';
-import { noiseClasses } from '~/lib/engine/brief';
+import { noiseClasses } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
 import type { LoadSummary } from '~/lib/load-log';
 import { AIRFLOW_WORDS, NOISE_CLASS_WORDS, rippleDefault, SOURCE_TYPICAL, startingBrief, type SourceKind } from '~/lib/wizard-defaults';

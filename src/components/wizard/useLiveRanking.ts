@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { briefSchema } from '~/lib/engine/brief';
+import { railSpecSchema } from '~/lib/engine/rail-spec';
 import type { Evaluation } from '~/lib/engine/types';
 import type { RankingState } from './LiveRanking';
 
@@ -12,7 +12,7 @@ export function useLiveRanking(spec: unknown): RankingState {
   const key = JSON.stringify(spec);
 
   useEffect(() => {
-    const parsed = briefSchema.safeParse(spec);
+    const parsed = railSpecSchema.safeParse(spec);
     if (!parsed.success) {
       const first = parsed.error.issues[0];
       setState({ kind: 'incomplete', message: first ? `To rank the options: ${first.message}` : 'The brief is not complete yet.' });

@@ -37,10 +37,10 @@ function toComponent(p: DesignPart): Component {
 }
 
 export function assemble(design: Design, ctx: Context, seed: number): Option {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const issues: Issue[] = [...design.issues];
   const trace = design.trace;
-  const corners = normalCorners(brief);
+  const corners = normalCorners(spec);
   const points = corners.map((c) => design.operate(c.vIn, c.iOut));
   const parts = design.parts.map((p) => ({ ...p }));
 
@@ -92,7 +92,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
 
   // Thermal: each part with a junction, at its worst normal dissipation, or the fault one when
   // nothing protects it in a short.
-  const airflow = airflowFactor(brief, catalog);
+  const airflow = airflowFactor(spec, catalog);
   const junctions: Junction[] = [];
   const surfaces: HotPart[] = [];
   const sinks: DesignPart[] = [];
@@ -104,7 +104,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     if (!p.thermal) continue;
     const s = stresses.get(p.ref)!;
     const power = Math.max(s.maxW, p.thermal.protectedInFault ? 0 : s.faultW);
-    const forcedSink = brief.overrides.heatsinkThetaSaCW;
+    const forcedSink = spec.overrides.heatsinkThetaSaCW;
     const t = assessThermal(p.thermal, power, ctx.ambientC, airflow, catalog, p.thermal.heatsinkable ? forcedSink : undefined);
     trace.add(`${p.ref}.tj`, `${p.ref} junction temperature`, t.sinkThetaCW === null ? 'Tj = Ta + P·θJA' : 'Tj = Ta + P·(θJC + θCS + θSA)', {
       Ta: [ctx.ambientC, '°C'], P: [power, 'W'], θJA: [p.thermal.thetaJaCW * airflow, 'K/W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θSA: [(t.sinkThetaCW ?? 0) * airflow, 'K/W'],
@@ -133,7 +133,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   }
 
   // Efficiency and dissipation.
-  const nominal = design.operate(brief.input.vNom, brief.output.iTyp);
+  const nominal = design.operate(spec.input.vNom, spec.output.iTyp);
   const effNominal = efficiencyOf(nominal);
   let effWorst = 1;
   let totalMaxW = 0;
@@ -150,19 +150,19 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   }
 
   // Output spread: extreme values over the tolerance box, Monte Carlo inside it, ripple on top.
-  const band = { lo: brief.output.v * (1 - brief.output.tolerance), hi: brief.output.v * (1 + brief.output.tolerance) };
+  const band = { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
   const eva = extremeValues(design.output);
   const half = design.rippleVpp / 2;
   const vOutRange = { min: eva.min - half, max: eva.max + half };
   trace.add('vout.min', 'Lowest output (extreme values, less half the ripple)', 'Vmin = min over tolerance corners − ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
   trace.add('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
-  const draws = brief.overrides.mcDraws ?? 10_000;
+  const draws = spec.overrides.mcDraws ?? 10_000;
   const mc = monteCarlo(design.output, draws, seed, band, eva);
   if (vOutRange.min < band.lo || vOutRange.max > band.hi) {
     issues.push(blocker('tolerance', `The worst-case output ${vOutRange.min.toFixed(3)}–${vOutRange.max.toFixed(3)} V leaves the rail's ${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V.`));
   }
-  if (design.rippleVpp > brief.noise.maxRippleVpp) {
-    issues.push(blocker('ripple', `The output ripple ${(design.rippleVpp * 1e3).toFixed(2)} mV exceeds the rail's ${(brief.noise.maxRippleVpp * 1e3).toFixed(2)} mV limit.`));
+  if (design.rippleVpp > spec.noise.maxRippleVpp) {
+    issues.push(blocker('ripple', `The output ripple ${(design.rippleVpp * 1e3).toFixed(2)} mV exceeds the rail's ${(spec.noise.maxRippleVpp * 1e3).toFixed(2)} mV limit.`));
   }
 
   // Cautions.
@@ -175,21 +175,21 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     });
   const hotResistors = parts.filter((p) => p.rateAsResistor && stresses.get(p.ref)!.maxW > HOT_RESISTOR_W).map((p) => p.ref);
   const cautions: Caution[] = [
-    hazardousVoltage(brief, vOutRange.max),
+    hazardousVoltage(spec, vOutRange.max),
     ...storedEnergy(caps),
     hotSurfaces(surfaces, hotResistors),
-    mainsScope(brief),
+    mainsScope(spec),
   ].filter((c): c is Caution => c !== null);
   for (const c of cautions) issues.push({ code: c.code, severity: 'caution', message: c.message });
 
   // Curves for the charts.
-  const curveLoad = brief.output.iTyp > 0 ? brief.output.iTyp : brief.output.iMax;
-  const vIns = curveInputs(brief);
+  const curveLoad = spec.output.iTyp > 0 ? spec.output.iTyp : spec.output.iMax;
+  const vIns = curveInputs(spec);
   const efficiency: (number | null)[] = new Array<number | null>(CURVE_POINTS);
   const dissipationW: (number | null)[] = new Array<number | null>(CURVE_POINTS);
   vIns.forEach((vIn, k) => {
     const typ = design.operate(vIn, curveLoad);
-    const max = design.operate(vIn, brief.output.iMax);
+    const max = design.operate(vIn, spec.output.iMax);
     efficiency[k] = typ.regulates ? efficiencyOf(typ) : null;
     dissipationW[k] = max.regulates ? max.pInW - max.pOutW : null;
   });
@@ -209,7 +209,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     heatsinkImpractical: impractical,
     partCount,
     rippleVpp: design.rippleVpp,
-    rippleLimitVpp: brief.noise.maxRippleVpp,
+    rippleLimitVpp: spec.noise.maxRippleVpp,
     costCents,
   });
 
@@ -217,7 +217,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     topology: design.topology,
     label: design.label,
     feasible: !issues.some((i) => i.severity === 'blocker'),
-    score: weightedScore(sub, brief.weights),
+    score: weightedScore(sub, spec.weights),
     subScores: sub,
     issues,
     efficiency: { nominal: effNominal, worst: effWorst },

@@ -1,6 +1,6 @@
 // Safety cautions shown wherever a design is shown and in the PDF.
 import { formatSi } from './units.ts';
-import type { Brief } from './brief.ts';
+import type { RailSpec } from './rail-spec.ts';
 import type { Caution } from './types.ts';
 
 /** ES1 limit for DC voltage in IEC 62368-1: above 60 V DC a source is no longer ordinary-person safe. */
@@ -25,8 +25,8 @@ export interface HotPart {
   surfaceC: number;
 }
 
-export function hazardousVoltage(brief: Brief, vOutMax: number): Caution | null {
-  const worst = Math.max(brief.input.vMax, vOutMax);
+export function hazardousVoltage(spec: RailSpec, vOutMax: number): Caution | null {
+  const worst = Math.max(spec.input.vMax, vOutMax);
   if (worst <= ES1_DC_LIMIT_V) return null;
   return {
     code: 'hazardous-voltage',
@@ -68,8 +68,8 @@ export function hotSurfaces(parts: readonly HotPart[], hotResistors: readonly st
   };
 }
 
-export function mainsScope(brief: Brief): Caution | null {
-  if (brief.input.source !== 'rectified') return null;
+export function mainsScope(spec: RailSpec): Caution | null {
+  if (spec.input.source !== 'rectified') return null;
   return {
     code: 'mains-scope',
     message: 'The input is rectified mains: isolation, fusing, inrush and surge protection upstream of this regulator are outside what this engine designs. Have them designed to the applicable standard.',

@@ -1,25 +1,25 @@
-// Figures every designer derives from the brief in the same way.
-import type { Brief } from './brief.ts';
+// Figures every designer derives from the spec in the same way.
+import type { RailSpec } from './rail-spec.ts';
 import type { Catalog } from './catalog.ts';
 
 export interface Context {
-  brief: Brief;
+  spec: RailSpec;
   catalog: Catalog;
   /** Lowest instantaneous input: the trough vMin − rippleVpp/2, what headroom checks use. */
   vInTrough: number;
   ambientC: number;
 }
 
-export function makeContext(brief: Brief, catalog: Catalog): Context {
+export function makeContext(spec: RailSpec, catalog: Catalog): Context {
   return {
-    brief,
+    spec,
     catalog,
-    vInTrough: brief.input.vMin - brief.input.rippleVpp / 2,
-    ambientC: brief.overrides.ambientC ?? brief.thermal.ambientMaxC,
+    vInTrough: spec.input.vMin - spec.input.rippleVpp / 2,
+    ambientC: spec.overrides.ambientC ?? spec.thermal.ambientMaxC,
   };
 }
 
 /** A part value the engineer forced by reference designator, if any. */
 export function forced(ctx: Context, ref: string): number | undefined {
-  return ctx.brief.overrides.parts?.[ref];
+  return ctx.spec.overrides.parts?.[ref];
 }

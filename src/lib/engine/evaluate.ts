@@ -1,5 +1,5 @@
-// Entry point: design every topology for a brief and rank the options.
-import type { Brief } from './brief.ts';
+// Entry point: design every topology for a spec and rank the options.
+import type { RailSpec } from './rail-spec.ts';
 import { defaultCatalog, type Catalog } from './catalog.ts';
 import { makeContext, type Context } from './context.ts';
 import { assemble } from './assemble.ts';
@@ -31,9 +31,9 @@ function topologySeed(seed: number, index: number): number {
   return (seed + Math.imul(index + 1, 0x9e3779b9)) >>> 0;
 }
 
-export function evaluate(brief: Brief, catalog: Catalog = defaultCatalog): Evaluation {
-  const ctx = makeContext(brief, catalog);
-  const seed = brief.overrides.seed ?? DEFAULT_SEED;
+export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Evaluation {
+  const ctx = makeContext(spec, catalog);
+  const seed = spec.overrides.seed ?? DEFAULT_SEED;
   const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
   options.sort(compareOptions);
   const best = options[0];

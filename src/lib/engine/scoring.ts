@@ -1,5 +1,5 @@
 // Sub-scores 0–100 and the weighted score; the ordering rule of the option list.
-import type { Brief } from './brief.ts';
+import type { RailSpec } from './rail-spec.ts';
 import { topologyIds, type Option, type SubScores } from './types.ts';
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
@@ -34,7 +34,7 @@ export function subScores(s: ScoreInputs): SubScores {
   };
 }
 
-export function weightedScore(sub: SubScores, weights: Brief['weights']): number {
+export function weightedScore(sub: SubScores, weights: RailSpec['weights']): number {
   const total = weights.efficiency + weights.heat + weights.partCount + weights.noise + weights.cost;
   const sum =
     sub.efficiency * weights.efficiency +

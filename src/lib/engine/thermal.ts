@@ -1,7 +1,7 @@
 // Thermal resistance chain after the JEDEC JESD51 definitions: θJA junction-to-ambient,
 // θJC junction-to-case, θCS case-to-sink (interface), θSA sink-to-ambient.
 import type { Catalog } from './catalog.ts';
-import type { Brief } from './brief.ts';
+import type { RailSpec } from './rail-spec.ts';
 
 /** Tj = Ta + P·Σθ. */
 export function junctionTemperature(ambientC: number, powerW: number, thetasCW: readonly number[]): number {
@@ -39,8 +39,8 @@ export interface ThermalResult {
 }
 
 /** Air and enclosure change the convective part of θJA and θSA (typical factors from the catalog). */
-export function airflowFactor(brief: Brief, catalog: Catalog): number {
-  return catalog.thermal.airflowFactor[brief.thermal.airflow];
+export function airflowFactor(spec: RailSpec, catalog: Catalog): number {
+  return catalog.thermal.airflowFactor[spec.thermal.airflow];
 }
 
 /**

@@ -3,7 +3,7 @@
  * between states. Each action is one transaction; routes only translate.
  */
 import { eq } from 'drizzle-orm';
-import { briefIssues, briefSchema, evaluate } from '../engine';
+import { railSpecIssues, railSpecSchema, evaluate } from '../engine';
 import { summarise } from '../brief-summary';
 import type { BriefStatus } from '../brief-status';
 import type { CreateBrief } from '../brief-requests';
@@ -23,9 +23,9 @@ export type ActionResult<T> =
 
 /** Full check of a spec at submission; issue paths are prefixed with `spec.` as the body has them. */
 async function validateForSubmission(spec: unknown) {
-  const parsed = briefSchema.safeParse(spec);
+  const parsed = railSpecSchema.safeParse(spec);
   if (!parsed.success) {
-    return { ok: false as const, issues: briefIssues(parsed.error).map((i) => ({ ...i, path: i.path ? `spec.${i.path}` : 'spec' })) };
+    return { ok: false as const, issues: railSpecIssues(parsed.error).map((i) => ({ ...i, path: i.path ? `spec.${i.path}` : 'spec' })) };
   }
   const result = evaluate(parsed.data, await currentCatalog());
   return { ok: true as const, spec: parsed.data, result };

@@ -5,7 +5,7 @@
  * same way the quote builder does.
  */
 import { and, eq, sql } from 'drizzle-orm';
-import type { Brief } from '../engine/brief';
+import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from '../pricing';
 import { brief, designRevision, quote, quoteLine, stateChange } from './db/schema';
@@ -74,7 +74,7 @@ export async function draftQuote(db: Db, request: DraftRequest): Promise<DraftOu
   const card = await readRateCard(db);
   if (!card) return { ok: false, status: 409, message: 'There is no rate card yet; an admin sets one on the rate card page.' };
   const revision = found.revision;
-  const facts = designFacts({ topology: revision.topology, number: revision.number, input: revision.input as Brief, result: revision.result as Evaluation });
+  const facts = designFacts({ topology: revision.topology, number: revision.number, input: revision.input as RailSpec, result: revision.result as Evaluation });
   if (!facts) return { ok: false, status: 409, message: `Revision ${revision.number} holds no design for ${revision.topology}.` };
   const lines = draftLines(card, facts, quantity);
   const year = now.getUTCFullYear();

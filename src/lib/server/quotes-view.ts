@@ -3,7 +3,7 @@
  * quote page, the builder and the API all present this view.
  */
 import { eq } from 'drizzle-orm';
-import type { Brief } from '../engine/brief';
+import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
 import { TOPOLOGY_NAMES, percent } from '../option-words';
@@ -49,7 +49,7 @@ export function statusAt(row: Pick<QuoteRow, 'status' | 'validUntil'>, now = new
 const SOURCES: Record<string, string> = { battery: 'battery', adapter: 'mains adapter', rectified: 'rectified mains', bus: 'DC bus' };
 const AIRFLOW: Record<string, string> = { enclosed: 'enclosed, no airflow', 'still-air': 'still air', 'forced-air': 'forced air' };
 
-export function requirementRows(spec: Brief): Row[] {
+export function requirementRows(spec: RailSpec): Row[] {
   const { input, output, noise, thermal } = spec;
   const tolerance = `${(output.tolerance * 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })} %`;
   return [
@@ -131,7 +131,7 @@ export async function loadQuoteView(db: Db, quoteId: string, now = new Date()): 
     brief: { id: found.brief.id, title: found.brief.title, status: found.brief.status, ownerId: found.brief.ownerId },
     client: found.client,
     revision: { id: found.revision.id, number: found.revision.number, topology: found.revision.topology, note: found.revision.note },
-    requirements: requirementRows(found.revision.input as Brief),
+    requirements: requirementRows(found.revision.input as RailSpec),
     design: option ? designSummary(option) : null,
   };
 }

@@ -1,5 +1,5 @@
 /** What the review page needs for its first paint, gathered from the lib modules (never over HTTP). */
-import { evaluate, briefSchema, type TopologyId } from '../engine';
+import { evaluate, railSpecSchema, type TopologyId } from '../engine';
 import { briefWithChoices } from '../revision-requests';
 import { movesFor } from '../brief-states';
 import { formFrom } from '../review-choices';
@@ -12,7 +12,7 @@ import { listRevisions } from './revisions';
 /** `fromRevisionId` starts the form from that revision's choices instead of the latest one's. */
 export async function reviewPageData(row: BriefRow, fromRevisionId: string | null = null) {
   const [detail, revisions, notes, catalog, currency] = await Promise.all([briefDetail(row), listRevisions(row.id), listNotes(row.id), currentCatalog(), partsCurrency()]);
-  const spec = briefSchema.safeParse(row.spec);
+  const spec = railSpecSchema.safeParse(row.spec);
   const base = revisions.find((r) => r.id === fromRevisionId) ?? revisions[0] ?? null;
   const weights = (base?.weights ?? (spec.success ? spec.data.weights : {})) as Record<string, unknown>;
   const overrides = (base?.overrides ?? {}) as Record<string, unknown>;

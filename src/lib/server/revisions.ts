@@ -1,5 +1,5 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
-import { briefIssues, evaluate, type Evaluation } from '../engine';
+import { railSpecIssues, evaluate, type Evaluation } from '../engine';
 import { briefWithChoices, type RevisionRequest } from '../revision-requests';
 import type { BriefRow } from './briefs';
 import { currentCatalog } from './catalog';
@@ -19,7 +19,7 @@ const DESIGNABLE = new Set(['submitted', 'in-review', 'quoted', 'accepted', 'dep
 export async function saveRevision(row: BriefRow, authorId: string, request: RevisionRequest): Promise<ActionResult<RevisionRow>> {
   if (!DESIGNABLE.has(row.status)) return { ok: false, status: 409, message: `A brief that is ${row.status} takes no new revisions.` };
   const parsed = briefWithChoices(row.spec, request);
-  if (!parsed.success) return { ok: false, status: 400, error: 'invalid_revision', issues: briefIssues(parsed.error) };
+  if (!parsed.success) return { ok: false, status: 400, error: 'invalid_revision', issues: railSpecIssues(parsed.error) };
   const result: Evaluation = evaluate(parsed.data, await currentCatalog());
   const topology = request.topology ?? result.recommended ?? result.options[0]?.topology;
   if (!topology) return { ok: false, status: 400, error: 'invalid_revision', issues: [{ path: 'topology', message: 'No option to choose.' }] };

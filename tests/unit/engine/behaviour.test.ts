@@ -1,8 +1,8 @@
 // What a practitioner expects the engine to choose (common practice of supply design).
 import { describe, expect, test } from 'vitest';
-import { briefSchema, defaultCatalog, evaluate, type BriefInput, type Option } from '~/lib/engine/index.ts';
+import { railSpecSchema, defaultCatalog, evaluate, type RailSpecInput, type Option } from '~/lib/engine/index.ts';
 
-const run = (input: BriefInput) => evaluate(briefSchema.parse(input));
+const run = (input: RailSpecInput) => evaluate(railSpecSchema.parse(input));
 const pick = (options: Option[], id: Option['topology']) => options.find((o) => o.topology === id)!;
 const codes = (o: Option) => o.issues.map((i) => i.code);
 
@@ -79,7 +79,7 @@ describe('low headroom', () => {
     expect(linear.components.find((c) => c.role === 'regulator')!.part).toBe(ldo.label);
     // The same rail forced onto the classic class is blocked on headroom.
     const forced = evaluate(
-      briefSchema.parse({
+      railSpecSchema.parse({
         input: { vMin: 4.75, vNom: 5, vMax: 5.25, source: 'bus' },
         output: { v: 3.3, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
         noise: { class: 'digital' },

@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog, type Catalog, type SwitcherClass } from '~/lib/engine/catalog.ts';
-import { briefSchema, evaluate } from '~/lib/engine/index.ts';
+import { railSpecSchema, evaluate } from '~/lib/engine/index.ts';
 import { CAPACITOR_V, RESISTOR_POWER_W, rateResistor, ratingFor } from '~/lib/engine/ratings.ts';
 import { assessThermal, junctionTemperature, maxSinkTheta } from '~/lib/engine/thermal.ts';
 import { designDivider, dividerVout } from '~/lib/engine/topologies/feedback.ts';
@@ -30,7 +30,7 @@ describe('adjustable regulator: Vout = Vref·(1 + R2/R1) + Iadj·R2', () => {
   });
 
   test('the engine’s linear option on a 12 V → 5 V rail uses these values (trace entries match the hand figures)', () => {
-    const brief = briefSchema.parse({
+    const brief = railSpecSchema.parse({
       input: { vMin: 9, vNom: 12, vMax: 15, source: 'adapter' },
       output: { v: 5, tolerance: 0.08, iMin: 0.01, iTyp: 0.1, iMax: 0.3 },
       noise: { class: 'digital' },
@@ -124,7 +124,7 @@ describe('Zener shunt regulator (Horowitz & Hill, The Art of Electronics, ch. 1 
     ...defaultCatalog,
     zenerSeries: defaultCatalog.zenerSeries.map((s) => ({ ...s, kneeCurrentA: 1e-3, rzPoints: [{ v: 1, ohm: 0 }] })),
   };
-  const brief = briefSchema.parse({
+  const brief = railSpecSchema.parse({
     input: { vMin: 10, vNom: 12, vMax: 14, source: 'adapter' },
     output: { v: 5.1, tolerance: 0.1, iMin: 0.005, iTyp: 0.01, iMax: 0.02 },
     noise: { class: 'digital' },

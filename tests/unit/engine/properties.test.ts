@@ -2,12 +2,12 @@
 // feasible options hold the rail's tolerance; any invalid brief is rejected with field paths.
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { briefIssues, briefSchema, evaluate, type BriefInput, type Evaluation } from '~/lib/engine/index.ts';
+import { railSpecIssues, railSpecSchema, evaluate, type RailSpecInput, type Evaluation } from '~/lib/engine/index.ts';
 
 const voltage = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true, noDefaultInfinity: true });
 
 /** Valid briefs across the product's range: 1–1500 V in, 0.5 V–3 kV out, µA to tens of A. */
-const validBrief: fc.Arbitrary<BriefInput> = fc
+const validBrief: fc.Arbitrary<RailSpecInput> = fc
   .record({
     vNom: voltage(1, 1500),
     spreadLo: fc.double({ min: 0, max: 0.4, noNaN: true }),
@@ -49,7 +49,7 @@ describe('any valid brief', () => {
   test('gives finite numbers, the same JSON twice, feasible options first, and feasible ranges inside the tolerance', () => {
     fc.assert(
       fc.property(validBrief, (input) => {
-        const brief = briefSchema.parse(input);
+        const brief = railSpecSchema.parse(input);
         const a: Evaluation = evaluate(brief);
         expect(nonFinitePaths(a)).toEqual([]);
         expect(JSON.stringify(evaluate(brief))).toBe(JSON.stringify(a));
@@ -101,10 +101,10 @@ describe('any invalid brief', () => {
       fc.property(validBrief, fc.constantFrom(...mutations), (input, mutation) => {
         const broken = structuredClone(input) as Record<string, any>;
         mutation.apply(broken);
-        const result = briefSchema.safeParse(broken);
+        const result = railSpecSchema.safeParse(broken);
         expect(result.success).toBe(false);
         if (result.success) return;
-        const issues = briefIssues(result.error);
+        const issues = railSpecIssues(result.error);
         expect(issues.map((i) => i.path)).toContain(mutation.path);
         for (const i of issues) expect(i.message.length).toBeGreaterThan(10);
       }),
@@ -113,7 +113,7 @@ describe('any invalid brief', () => {
   });
 
   test('messages are in plain words', () => {
-    const r = briefSchema.safeParse({
+    const r = railSpecSchema.safeParse({
       input: { vMin: 14, vNom: 12, vMax: 15, source: 'adapter' },
       output: { v: 5, tolerance: 0.05, iMin: 0, iTyp: 0.1, iMax: 0.2 },
       noise: { class: 'digital' },
@@ -121,12 +121,12 @@ describe('any invalid brief', () => {
     });
     expect(r.success).toBe(false);
     if (!r.success) {
-      expect(briefIssues(r.error)).toEqual([{ path: 'input.vMin', message: 'The lowest input voltage must not exceed the nominal one.' }]);
+      expect(railSpecIssues(r.error)).toEqual([{ path: 'input.vMin', message: 'The lowest input voltage must not exceed the nominal one.' }]);
     }
   });
 
   test('defaults fill the optional fields: ripple 0, the noise class limit, the default weights', () => {
-    const b = briefSchema.parse({
+    const b = railSpecSchema.parse({
       input: { vMin: 10, vNom: 12, vMax: 14, source: 'adapter' },
       output: { v: 5, tolerance: 0.05, iMin: 0, iTyp: 0.1, iMax: 0.2 },
       noise: { class: 'precision' },

@@ -2,7 +2,7 @@
 // operating points of the shunt and linear designs the engine produced, at their corners.
 import { Simulation, type ResultType } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { briefSchema, evaluate, toSpiceNetlist, type Option } from '~/lib/engine/index.ts';
+import { railSpecSchema, evaluate, toSpiceNetlist, type Option } from '~/lib/engine/index.ts';
 import { solveShunt } from '~/lib/engine/topologies/shunt.ts';
 import { dividerVout } from '~/lib/engine/topologies/feedback.ts';
 
@@ -25,7 +25,7 @@ async function operatingPoint(netlist: string): Promise<Record<string, number>> 
 /** Agreement bar of the product's quality plan: DC operating points within 2 %. */
 const within2 = (sim: number, engine: number) => expect(Math.abs(sim - engine)).toBeLessThanOrEqual(0.02 * Math.abs(engine));
 
-const brief = briefSchema.parse({
+const brief = railSpecSchema.parse({
   input: { vMin: 10, vNom: 12, vMax: 14, source: 'adapter' },
   output: { v: 5.1, tolerance: 0.15, iMin: 0.005, iTyp: 0.01, iMax: 0.02 },
   noise: { class: 'digital' },
@@ -83,7 +83,7 @@ describe('linear design against ngspice', () => {
 
 describe('linear design with pre-drop against ngspice', () => {
   const hv = evaluate(
-    briefSchema.parse({
+    railSpecSchema.parse({
       input: { vMin: 280, vNom: 300, vMax: 320, source: 'bus' },
       output: { v: 150, tolerance: 0.1, iMin: 0.005, iTyp: 0.01, iMax: 0.02 },
       noise: { class: 'sensor' },

@@ -1,11 +1,11 @@
 // Reading switching transients from eecircuit-engine (ngspice in WebAssembly) for the switcher checks.
 import type { Simulation } from 'eecircuit-engine';
 import { expect } from 'vitest';
-import { briefSchema, evaluate, type BriefInput, type Option } from '~/lib/engine/index.ts';
+import { railSpecSchema, evaluate, type RailSpecInput, type Option } from '~/lib/engine/index.ts';
 
 /** The engine's design of `topology` for a brief, with the figures the switcher checks read. */
-export function switcherDesign(brief: BriefInput, topology: Option['topology']) {
-  const option = evaluate(briefSchema.parse(brief)).options.find((o) => o.topology === topology)!;
+export function switcherDesign(brief: RailSpecInput, topology: Option['topology']) {
+  const option = evaluate(railSpecSchema.parse(brief)).options.find((o) => o.topology === topology)!;
   const sw = option.components.find((c) => c.role === 'switch')!.ref;
   return {
     option,

@@ -3,7 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, test } from 'vitest';
-import { briefSchema, evaluate } from '../../../src/lib/engine';
+import { railSpecSchema, evaluate } from '../../../src/lib/engine';
 import { defaultCatalog } from '../../../src/lib/engine/catalog';
 import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/pricing';
 import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
@@ -16,7 +16,7 @@ const card = rateCardSchema.parse(DEMO_RATE_CARD);
 
 /** A 150 V bias rail from a 300–350 V supply: hazardous voltage and stored energy. */
 function highVoltageView(): QuoteView {
-  const input = briefSchema.parse({
+  const input = railSpecSchema.parse({
     input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
     output: { v: 150, tolerance: 0.02, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
     noise: { class: 'sensor', maxRippleVpp: 0.01 },

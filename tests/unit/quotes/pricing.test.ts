@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import type { Evaluation, Option } from '../../../src/lib/engine/types';
-import type { Brief } from '../../../src/lib/engine/brief';
+import type { RailSpec } from '../../../src/lib/engine/rail-spec';
 import {
   designFacts,
   divRound,
@@ -90,7 +90,7 @@ describe('rounding in minor units', () => {
 describe('design facts from a revision', () => {
   const option = (over: Partial<Option>) => ({ topology: 'linear', heatsink: { required: false, maxThetaSaCW: null }, partCount: 5, costCents: 300, ...over }) as Option;
   const spec = (vMax: number, vOut: number, ripple: number) =>
-    ({ input: { vMin: vMax * 0.8, vNom: vMax * 0.9, vMax, rippleVpp: 0, source: 'bus' }, output: { v: vOut, tolerance: 0.02, iMin: 0, iTyp: 0.1, iMax: 0.2 }, noise: { class: 'sensor', maxRippleVpp: ripple } }) as Brief;
+    ({ input: { vMin: vMax * 0.8, vNom: vMax * 0.9, vMax, rippleVpp: 0, source: 'bus' }, output: { v: vOut, tolerance: 0.02, iMin: 0, iTyp: 0.1, iMax: 0.2 }, noise: { class: 'sensor', maxRippleVpp: ripple } }) as RailSpec;
   const result = (o: Option): Evaluation => ({ recommended: o.topology, options: [o] });
 
   test('above 60 V on either side is high voltage; 1 mV ripple or less is a tight noise limit', () => {

@@ -6,14 +6,14 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { briefSchema, type Brief } from '../../../src/lib/engine/brief';
+import { railSpecSchema, type RailSpec } from '../../../src/lib/engine/rail-spec';
 import { defaultCatalog, type Catalog } from '../../../src/lib/engine/catalog';
 import { evaluate } from '../../../src/lib/engine/evaluate';
 import { EngineBusyError, EnginePool } from '../../../src/lib/server/engine-pool/pool';
 import { buildEngineWorker } from '../../../src/integrations/engine-worker';
 import { DEMO_BRIEFS } from '../../../src/lib/server/seed/scenario';
 
-const briefs: Brief[] = DEMO_BRIEFS.map((b) => briefSchema.parse(b.spec));
+const briefs: RailSpec[] = DEMO_BRIEFS.map((b) => railSpecSchema.parse(b.spec));
 const decode = (json: string) => JSON.parse(json);
 let dir: string;
 let workerFile: string;
@@ -53,7 +53,7 @@ describe('engine threads', () => {
   test('a job that throws fails alone; the thread goes on serving', async () => {
     const pool = new EnginePool({ workerFile, size: 1 });
     try {
-      await expect(pool.evaluateJson({} as Brief, defaultCatalog)).rejects.toThrow(/The engine failed/);
+      await expect(pool.evaluateJson({} as RailSpec, defaultCatalog)).rejects.toThrow(/The engine failed/);
       expect(decode(await pool.evaluateJson(briefs[1]!, defaultCatalog)).options.length).toBeGreaterThan(0);
     } finally {
       await pool.close();

@@ -67,16 +67,16 @@ export function boostRipple(iOut: number, d: number, peakA: number, fsw: number,
 }
 
 export function designBoost(ctx: Context): Design {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const { vMax } = brief.input;
-  const { iMax } = brief.output;
-  const { stage, issues } = chooseSwitcher(ctx, 'boost', brief.output.v);
+  const { vMax } = spec.input;
+  const { iMax } = spec.output;
+  const { stage, issues } = chooseSwitcher(ctx, 'boost', spec.output.v);
   const fsw = switchingFrequency(ctx, stage, issues);
   const sync = stage.rectification === 'sync';
   const uRef = refs.next('U');
-  const fb = switcherFeedback(ctx, refs, trace, stage, brief.output.v, 'boost');
+  const fb = switcherFeedback(ctx, refs, trace, stage, spec.output.v, 'boost');
   const vOut = fb.divider.vOut;
   if (vMax >= vOut) {
     issues.push(blocker('step-up-only', `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`));
@@ -101,7 +101,7 @@ export function designBoost(ctx: Context): Design {
   if (low.d > stage.dMax) issues.push(blocker('duty', `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${stage.dMax * 100} %.`));
   if (peak > stage.iSwitchMaxA) issues.push(blocker('current', `The peak current ${peak.toFixed(2)} A exceeds the ${stage.iSwitchMaxA} A switch of ${stage.label}.`));
 
-  const budget = RIPPLE_BUDGET * brief.noise.maxRippleVpp;
+  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
   const esrGuess = catalog.capacitors[0]!.esrOhm;
   const room = budget - peak * esrGuess;
   const cout = chooseOutputCapacitor(refs.next('C'), catalog, room > 0 ? (iMax * low.d) / (fsw * room) : Number.MAX_VALUE, vOut);
@@ -109,7 +109,7 @@ export function designBoost(ctx: Context): Design {
   const rippleStage = trace.add('boost.ripple', 'Converter output ripple', 'ΔV = Iout·D/(fsw·Cout) + Ipk·ESR', {
     Iout: [iMax, 'A'], D: [low.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.farads, 'F'], Ipk: [peak, 'A'], ESR: [cout.esrOhm, 'Ω'],
   }, boostRipple(iMax, low.d, peak, fsw, cout.farads, cout.esrOhm), 'V');
-  const quiet = brief.noise.class === 'precision' || brief.noise.class === 'rf';
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
   const post = quiet || rippleStage > budget ? postFilter(refs, trace, catalog, fsw, vOut, iMax, cout.farads, 'boost') : null;
   if (post) issues.push(...post.issues);
 
@@ -181,7 +181,7 @@ export function designBoost(ctx: Context): Design {
       return { regulates: vIn < vOut && p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
     },
     fault: { regulates: false, pInW: vMax * faultA, pOutW: 0, stress: faultStress },
-    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, brief.output.iMin, brief.output.iTyp, iMax),
+    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, spec.output.iMin, spec.output.iTyp, iMax),
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
     assumptions: {
       [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },

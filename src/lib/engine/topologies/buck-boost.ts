@@ -48,15 +48,15 @@ export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, 
 }
 
 export function designBuckBoost(ctx: Context): Design {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const { vMax } = brief.input;
-  const { iMax } = brief.output;
-  const { stage, issues } = chooseSwitcher(ctx, 'buck-boost', brief.output.v);
+  const { vMax } = spec.input;
+  const { iMax } = spec.output;
+  const { stage, issues } = chooseSwitcher(ctx, 'buck-boost', spec.output.v);
   const fsw = switchingFrequency(ctx, stage, issues);
   const uRef = refs.next('U');
-  const fb = switcherFeedback(ctx, refs, trace, stage, brief.output.v, 'buckboost');
+  const fb = switcherFeedback(ctx, refs, trace, stage, spec.output.v, 'buckboost');
   const vOut = fb.divider.vOut;
   const vLow = ctx.vInTrough;
 
@@ -83,7 +83,7 @@ export function designBuckBoost(ctx: Context): Design {
   }
   trace.add('buckboost.ipk', 'Peak inductor current', 'Ipk = IL + ΔIL/2 (worst end of the range)', { IL: [pre(vLow, iMax).il, 'A'] }, peak, 'A');
 
-  const budget = RIPPLE_BUDGET * brief.noise.maxRippleVpp;
+  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
   const lowP = point(vLow, iMax);
   const highP = point(vMax, iMax);
   const esrGuess = catalog.capacitors[0]!.esrOhm;
@@ -96,7 +96,7 @@ export function designBuckBoost(ctx: Context): Design {
   const rippleStage = trace.add('buckboost.ripple', 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
     Cout: [cout.farads, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
-  const quiet = brief.noise.class === 'precision' || brief.noise.class === 'rf';
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
   const post = quiet || rippleStage > budget ? postFilter(refs, trace, catalog, fsw, vOut, iMax, cout.farads, 'buckboost') : null;
   if (post) issues.push(...post.issues);
   const cin = chooseCapacitor(refs.next('C'), 'input-capacitor', 10e-6, vMax, catalog);
@@ -151,7 +151,7 @@ export function designBuckBoost(ctx: Context): Design {
       return { regulates: !p.boost || p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
     },
     fault: { regulates: false, pInW: lim * lim * (2 * stage.rdsOnOhm + inductor.dcrOhm), pOutW: 0, stress: faultStress },
-    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, brief.output.iMin, brief.output.iTyp, iMax),
+    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, spec.output.iMin, spec.output.iTyp, iMax),
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
     assumptions: {
       [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },

@@ -10,10 +10,10 @@ import { checkClass, chooseRegulatorClass, regulatorStage } from './regulator-st
 export const POST_REG_MARGIN_V = 0.3;
 
 export function designBuckLinear(ctx: Context): Design {
-  const { brief } = ctx;
+  const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const { iMin, iTyp, iMax, v: vTarget } = brief.output;
+  const { iMin, iTyp, iMax, v: vTarget } = spec.output;
 
   // The post-regulator only has to drop its own headroom: of the classes that fit a nearby
   // intermediate rail, the lowest dropout wastes least.
@@ -21,7 +21,7 @@ export function designBuckLinear(ctx: Context): Design {
   const fitting = ctx.catalog.linearRegulators
     .filter((c) => checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget))
     .sort((a, b) => a.dropoutV - b.dropoutV);
-  const forcedCls = ctx.catalog.linearRegulators.find((c) => c.id === brief.overrides.linearClass);
+  const forcedCls = ctx.catalog.linearRegulators.find((c) => c.id === spec.overrides.linearClass);
   const cls = forcedCls ?? fitting[0] ?? chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls;
   // The bus itself is only as exact as the buck's feedback (plus 2 % for its divider), so its
   // set point is raised until even its low extreme leaves the post-regulator its headroom.
@@ -32,7 +32,7 @@ export function designBuckLinear(ctx: Context): Design {
 
   // Divider current of the post-regulator loads the buck; estimate it from the class.
   const iExtra = Math.max(cls.minLoadA, 100e-6) + cls.iAdjMaxA + cls.iqA;
-  const buck = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: brief.input.vMax }, vBusTarget, { iMin: iMin + iExtra, iTyp: iTyp + iExtra, iMax: iMax + iExtra }, brief.noise.maxRippleVpp * 10 ** (cls.psrrHfDb / 20), false, 'hybrid.buck');
+  const buck = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, vBusTarget, { iMin: iMin + iExtra, iTyp: iTyp + iExtra, iMax: iMax + iExtra }, spec.noise.maxRippleVpp * 10 ** (cls.psrrHfDb / 20), false, 'hybrid.buck');
   // The bus tolerance comes from the buck's own feedback spread.
   const busLow = buck.vOut * (1 - buck.stage.vFbTolerance - 0.02);
   const busHigh = buck.vOut * (1 + buck.stage.vFbTolerance + 0.02);
@@ -50,7 +50,7 @@ export function designBuckLinear(ctx: Context): Design {
       stress: Object.assign(buck.stress(vIn, iBus, p), reg.stress(buck.vOut, iOut)),
     };
   };
-  const faultStress = { ...buck.stress(brief.input.vMax, reg.cls.iLimitA), ...reg.faultStress(buck.vOut) };
+  const faultStress = { ...buck.stress(spec.input.vMax, reg.cls.iLimitA), ...reg.faultStress(buck.vOut) };
   return {
     topology: 'buck+linear',
     label: `Buck converter with linear post-regulator (${reg.cls.label})`,
@@ -58,7 +58,7 @@ export function designBuckLinear(ctx: Context): Design {
     issues,
     trace,
     operate,
-    fault: { regulates: false, pInW: buck.point(brief.input.vMax, reg.cls.iLimitA).pInW, pOutW: 0, stress: faultStress },
+    fault: { regulates: false, pInW: buck.point(spec.input.vMax, reg.cls.iLimitA).pInW, pOutW: 0, stress: faultStress },
     output: reg.output,
     rippleVpp: reg.rippleOutVpp,
     assumptions: {

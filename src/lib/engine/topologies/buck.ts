@@ -102,7 +102,7 @@ export function buckStage(
   allowPostFilter: boolean,
   idPrefix: string,
 ): BuckStage {
-  const { catalog, brief } = ctx;
+  const { catalog, spec } = ctx;
   const { stage, issues } = chooseSwitcher(ctx, 'buck', vTarget);
   const fsw = switchingFrequency(ctx, stage, issues);
   const sync = stage.rectification === 'sync';
@@ -143,7 +143,7 @@ export function buckStage(
     ΔIL: [worstPoint.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.farads, 'F'], ESR: [cout.esrOhm, 'Ω'],
   }, buckRipple(worstPoint.rippleA, fsw, cout.farads, cout.esrOhm), 'V');
 
-  const quiet = brief.noise.class === 'precision' || brief.noise.class === 'rf';
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
   const post = allowPostFilter && (quiet || rippleStage > budget) ? postFilter(refs, trace, catalog, fsw, vOut, load.iMax, cout.farads, idPrefix) : null;
   if (post) issues.push(...post.issues);
   const rippleVpp = rippleStage * (post?.attenuation ?? 1);
@@ -229,20 +229,20 @@ export function buckStage(
 }
 
 export function designBuck(ctx: Context): Design {
-  const { brief } = ctx;
+  const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const b = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: brief.input.vMax }, brief.output.v, brief.output, brief.noise.maxRippleVpp, true, 'buck');
-  const nominal = b.point(brief.input.vNom, brief.output.iTyp);
+  const b = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buck');
+  const nominal = b.point(spec.input.vNom, spec.output.iTyp);
   trace.add('buck.d.nom', 'Duty cycle at the nominal corner', 'D = Vout/(η·Vin)', {
-    Vout: [b.vOut, 'V'], η: [nominal.pInW > 0 ? nominal.pOutW / nominal.pInW : 0, ''], Vin: [brief.input.vNom, 'V'],
+    Vout: [b.vOut, 'V'], η: [nominal.pInW > 0 ? nominal.pOutW / nominal.pInW : 0, ''], Vin: [spec.input.vNom, 'V'],
   }, nominal.d, '');
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = b.point(vIn, iOut);
     return { regulates: p.d <= b.stage.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
   };
   const lim = b.stage.iSwitchMaxA;
-  const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(brief.input.vMax) };
+  const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) };
   return {
     topology: 'buck',
     label: `Buck converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'catch diode'})${b.post ? ' with post-filter' : ''}`,

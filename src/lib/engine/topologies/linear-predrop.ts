@@ -36,8 +36,8 @@ export function soaAllowedW(dev: PassDeviceClass, vce: number): number {
  * safe-operating-area hint carries a sustained short: about vInMax at the limit current.
  */
 export function choosePassDevice(ctx: Context, faultA: number): { dev: PassDeviceClass; issue: Issue | null } {
-  const kind = ctx.brief.overrides.passDevice;
-  const { vMax } = ctx.brief.input;
+  const kind = ctx.spec.overrides.passDevice;
+  const { vMax } = ctx.spec.input;
   const needV = SEMICONDUCTOR_VOLTAGE_FACTOR * vMax;
   const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
   const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
@@ -52,21 +52,21 @@ export function choosePassDevice(ctx: Context, faultA: number): { dev: PassDevic
 }
 
 export function designLinearPredrop(ctx: Context): Design {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const trace = new Trace();
   const refs = new Refs();
   const issues: Issue[] = [];
-  const { vMax } = brief.input;
-  const { iMax, v: vTarget } = brief.output;
-  const series = brief.overrides.resistorSeries ?? 'E96';
+  const { vMax } = spec.input;
+  const { iMax, v: vTarget } = spec.output;
+  const series = spec.overrides.resistorSeries ?? 'E96';
 
   const qRef = refs.next('Q');
   const adjustable = catalog.linearRegulators
     .filter((c) => c.kind === 'adjustable')
     .sort((a, b) => a.iOutMaxA - b.iOutMaxA || (a.vDiffMaxV ?? 0) - (b.vDiffMaxV ?? 0));
-  const forcedCls = adjustable.find((c) => c.id === brief.overrides.linearClass);
+  const forcedCls = adjustable.find((c) => c.id === spec.overrides.linearClass);
   const cls = forcedCls ?? adjustable.find((c) => c.iOutMaxA >= iMax) ?? adjustable[adjustable.length - 1] ?? catalog.linearRegulators[0]!;
-  const r1 = brief.overrides.r1Ohm ?? snap(cls.vRefV / Math.max(cls.minLoadA, DIVIDER_MIN_A), series, 'down');
+  const r1 = spec.overrides.r1Ohm ?? snap(cls.vRefV / Math.max(cls.minLoadA, DIVIDER_MIN_A), series, 'down');
   const iPathMax = iMax + cls.vRefV / r1 + cls.iAdjTypA;
   const { dev, issue: devIssue } = choosePassDevice(ctx, LIMIT_RATIO * iPathMax);
   if (devIssue) issues.push(devIssue);
@@ -78,7 +78,7 @@ export function designLinearPredrop(ctx: Context): Design {
   // its share, with the limit LIMIT_RATIO above the full-load current.
   const need = (cls.dropoutV + HEADROOM_MARGIN_V) * (LIMIT_RATIO / (LIMIT_RATIO - 1)) + vc;
   const dzRef = refs.next('D');
-  const vz = forced(ctx, dzRef) ?? (brief.overrides.standoffV !== undefined ? zenerVoltage(brief.overrides.standoffV) : zenerVoltageUp(need));
+  const vz = forced(ctx, dzRef) ?? (spec.overrides.standoffV !== undefined ? zenerVoltage(spec.overrides.standoffV) : zenerVoltageUp(need));
   trace.add('predrop.vz', 'Standoff Zener voltage', 'Vz ≥ (Vdropout + margin)·k/(k − 1) + Vbe', {
     Vdropout: [cls.dropoutV, 'V'],
     margin: [HEADROOM_MARGIN_V, 'V'],
@@ -148,14 +148,14 @@ export function designLinearPredrop(ctx: Context): Design {
     const ib = npn ? Math.max(0, i) / gain : 0;
     return { i: Math.max(0, i), iRb, ib, iz: Math.max(0, iRb - ib) };
   };
-  const zNormal = pathCurrent(vMax, brief.output.iMin);
+  const zNormal = pathCurrent(vMax, spec.output.iMin);
   const izFault = Math.max(0, (vMax - vz) / rb - iFault / gain);
   const pzWorst = vz * Math.max(zNormal.iz, izFault);
   const zener = seriesForPower(zSeries, pzWorst) ?? catalog.zenerSeries[0]!;
   trace.add('predrop.pz', 'Standoff Zener worst power (output shorted)', 'Pz = Vz·(vInMax − Vz)/Rb', {
     Vz: [vz, 'V'], vInMax: [vMax, 'V'], Rb: [rb, 'Ω'],
   }, vz * izFault, 'W');
-  if (zNormal.iz > brief.output.iMin + iDiv) {
+  if (zNormal.iz > spec.output.iMin + iDiv) {
     issues.push(blocker('zener-feed', `The standoff Zener feeds ${(zNormal.iz * 1e3).toFixed(1)} mA into the output at the highest input, more than the divider and the lightest load draw; the regulator cannot sink it.`));
   }
 
@@ -229,10 +229,10 @@ export function designLinearPredrop(ctx: Context): Design {
   const fault: OperatingPoint = { regulates: false, pInW: vMax * (iFault + izFault), pOutW: 0, stress: faultStress };
 
   // Input ripple reaches the regulator only through Rb and the Zener's rz.
-  const rippleAtReg = brief.input.rippleVpp * (rz / (rb + rz));
+  const rippleAtReg = spec.input.rippleVpp * (rz / (rb + rz));
   const psrr = cls.psrrDb;
   const rippleVpp = trace.add('predrop.ripple', 'Output ripple', 'ΔVout = ΔVin·rz/(Rb + rz)·10^(−PSRR/20)', {
-    ΔVin: [brief.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rb: [rb, 'Ω'], PSRR: [psrr, 'dB'],
+    ΔVin: [spec.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rb: [rb, 'Ω'], PSRR: [psrr, 'dB'],
   }, rippleAtReg * 10 ** (-psrr / 20), 'V');
   issues.push(info('pass-rating', `${qRef} is rated ${dev.vMaxV} V for a ${vMax} V input and heat-sunk for the shorted-output case.`));
 

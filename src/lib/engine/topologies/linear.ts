@@ -5,18 +5,18 @@ import { Trace } from '../trace.ts';
 import { regulatorStage } from './regulator-stage.ts';
 
 export function designLinear(ctx: Context): Design {
-  const { brief } = ctx;
+  const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const { vMax } = brief.input;
+  const { vMax } = spec.input;
   const stage = regulatorStage(
     ctx,
     refs,
     trace,
-    { vTrough: ctx.vInTrough, vMax, rippleVpp: brief.input.rippleVpp, rippleIsHf: false },
-    brief.output.v,
-    brief.output.iMax,
-    brief.overrides.linearClass,
+    { vTrough: ctx.vInTrough, vMax, rippleVpp: spec.input.rippleVpp, rippleIsHf: false },
+    spec.output.v,
+    spec.output.iMax,
+    spec.overrides.linearClass,
   );
   const issues = [...stage.issues];
   trace.add(
@@ -26,11 +26,11 @@ export function designLinear(ctx: Context): Design {
     {
       vInMax: [vMax, 'V'],
       Vout: [stage.vOut, 'V'],
-      iOutMax: [brief.output.iMax, 'A'],
+      iOutMax: [spec.output.iMax, 'A'],
       Idivider: [stage.divider?.iDivider ?? 0, 'A'],
       Iq: [stage.cls.iqA, 'A'],
     },
-    stage.stress(vMax, brief.output.iMax)[stage.regRef]!.w,
+    stage.stress(vMax, spec.output.iMax)[stage.regRef]!.w,
     'W',
   );
   if (stage.cls.kind === 'adjustable') {

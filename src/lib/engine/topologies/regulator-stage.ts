@@ -58,12 +58,12 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
   if (cls.kind !== 'fixed' && vOut < cls.vRefV) {
     out.push(blocker('below-reference', `${cls.label} cannot regulate below its ${cls.vRefV} V reference.`));
   }
-  if (cls.kind === 'fixed' && cls.vRefTolerance > ctx.brief.output.tolerance) {
-    out.push(blocker('tolerance', `${cls.label} holds ±${cls.vRefTolerance * 100} %, wider than the rail's ±${ctx.brief.output.tolerance * 100} %.`));
+  if (cls.kind === 'fixed' && cls.vRefTolerance > ctx.spec.output.tolerance) {
+    out.push(blocker('tolerance', `${cls.label} holds ±${cls.vRefTolerance * 100} %, wider than the rail's ±${ctx.spec.output.tolerance * 100} %.`));
   }
   if (!cls.heatsinkable) {
     const p = (input.vMax - vOut) * (iMax + Math.max(cls.minLoadA, DIVIDER_MIN_A));
-    const tj = junctionTemperature(ctx.ambientC, p, [cls.thetaJaCW * ctx.catalog.thermal.airflowFactor[ctx.brief.thermal.airflow]]);
+    const tj = junctionTemperature(ctx.ambientC, p, [cls.thetaJaCW * ctx.catalog.thermal.airflowFactor[ctx.spec.thermal.airflow]]);
     if (tj > cls.tjMaxC - ctx.catalog.thermal.tjMarginK) {
       out.push(blocker('thermal', `${cls.label} cannot take a heatsink and would reach ${tj.toFixed(0)} °C.`));
     }
@@ -119,7 +119,7 @@ export function regulatorStage(
   iMax: number,
   forcedClassId: string | undefined,
 ): RegulatorStage {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const choice = chooseRegulatorClass(ctx, input, vTarget, iMax, forcedClassId);
   const cls = choice.cls;
   const issues: Issue[] = [...choice.failures];
@@ -127,7 +127,7 @@ export function regulatorStage(
     issues.push(info('class-unknown', `The catalog has no regulator class "${forcedClassId}"; the engine chose ${cls.label}.`));
   }
   const regRef = refs.next('U');
-  const series: SeriesName = brief.overrides.resistorSeries ?? 'E96';
+  const series: SeriesName = spec.overrides.resistorSeries ?? 'E96';
   const rTol = series === 'E96' ? 0.01 : 0.05;
   const parts: DesignPart[] = [
     makePart({
@@ -155,7 +155,7 @@ export function regulatorStage(
     r1Ref = refs.next('R');
     r2Ref = refs.next('R');
     const iDivMin = Math.max(cls.minLoadA, DIVIDER_MIN_A);
-    divider = designDivider(vTarget, cls.vRefV, cls.iAdjTypA, iDivMin, series, brief.overrides.r1Ohm ?? forced(ctx, r1Ref), forced(ctx, r2Ref));
+    divider = designDivider(vTarget, cls.vRefV, cls.iAdjTypA, iDivMin, series, spec.overrides.r1Ohm ?? forced(ctx, r1Ref), forced(ctx, r2Ref));
     trace.add(
       `${regRef}.r1`,
       'R1 so the divider alone carries the minimum load',
@@ -185,7 +185,7 @@ export function regulatorStage(
   }
   const vOut = divider?.vOut ?? cls.vRefV;
 
-  const quiet = brief.noise.class === 'precision' || brief.noise.class === 'rf';
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
   const bypass = cls.kind === 'adjustable' && (input.rippleVpp > 0 || quiet);
   const psrr = input.rippleIsHf ? cls.psrrHfDb : bypass ? cls.psrrBypassDb : cls.psrrDb;
   const rippleOutVpp = trace.add(

@@ -36,17 +36,17 @@ export function solveShunt(vIn: number, iOut: number, rs: number, vKnee: number,
 }
 
 export function designShunt(ctx: Context): Design {
-  const { brief, catalog } = ctx;
+  const { spec, catalog } = ctx;
   const trace = new Trace();
   const issues: Issue[] = [];
   const refs = new Refs();
-  const { vMax, vNom } = brief.input;
-  const { iMin, iMax } = brief.output;
+  const { vMax, vNom } = spec.input;
+  const { iMin, iMax } = spec.output;
   const rsRef = refs.next('R');
   const dzRef = refs.next('D');
 
-  const vz = forced(ctx, dzRef) ?? zenerVoltage(brief.output.v);
-  trace.add('shunt.vz', 'Zener voltage (E24 nearest the rail)', 'Vz = E24(Vout)', { Vout: [brief.output.v, 'V'] }, vz, 'V');
+  const vz = forced(ctx, dzRef) ?? zenerVoltage(spec.output.v);
+  trace.add('shunt.vz', 'Zener voltage (E24 nearest the rail)', 'Vz = E24(Vout)', { Vout: [spec.output.v, 'V'] }, vz, 'V');
   let candidates = seriesFor(catalog, vz);
   if (candidates.length === 0) {
     issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
@@ -61,7 +61,7 @@ export function designShunt(ctx: Context): Design {
     // Without headroom (a blocker below) Rs is sized from the highest input so the figures stay sane.
     const drop = ctx.vInTrough > vz ? ctx.vInTrough - vz : vMax > vz ? vMax - vz : vz;
     const rsIdeal = drop / (iMax + s.kneeCurrentA);
-    rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), brief.overrides.resistorSeries ?? 'E24', 'down');
+    rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), spec.overrides.resistorSeries ?? 'E24', 'down');
     const rzS = dynamicImpedance(s, vz);
     const knee = vz - rzS * testCurrent(s, vz);
     const worst = solveShunt(vMax, iMin, rs, knee, rzS);
@@ -72,7 +72,7 @@ export function designShunt(ctx: Context): Design {
   const rz = dynamicImpedance(series, vz);
   const iTest = testCurrent(series, vz);
   const vKnee = vz - rz * iTest;
-  const rsTolerance = brief.overrides.resistorSeries === 'E96' ? 0.01 : 0.05;
+  const rsTolerance = spec.overrides.resistorSeries === 'E96' ? 0.01 : 0.05;
 
   trace.add(
     'shunt.rs',
@@ -121,13 +121,13 @@ export function designShunt(ctx: Context): Design {
     'shunt.ripple',
     'Output ripple (line regulation times input ripple)',
     'ΔVout = ΔVin · rz/(Rs + rz)',
-    { ΔVin: [brief.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rs: [rs, 'Ω'] },
-    brief.input.rippleVpp * lineGain,
+    { ΔVin: [spec.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rs: [rs, 'Ω'] },
+    spec.input.rippleVpp * lineGain,
     'V',
   );
 
   const parts = [
-    resistorPart(rsRef, 'series-resistor', rs, rsTolerance, brief.overrides.resistorSeries ?? 'E24'),
+    resistorPart(rsRef, 'series-resistor', rs, rsTolerance, spec.overrides.resistorSeries ?? 'E24'),
     makePart({
       ref: dzRef,
       role: 'zener',
@@ -165,7 +165,7 @@ export function designShunt(ctx: Context): Design {
       { name: 'Vz', nominal: vz, lo: vz * (1 - zTol), hi: vz * (1 + zTol) },
       { name: 'Rs', nominal: rs, lo: rs * (1 - rsTolerance), hi: rs * (1 + rsTolerance) },
       { name: 'vIn', nominal: vNom, lo: ctx.vInTrough, hi: vMax },
-      { name: 'iOut', nominal: brief.output.iTyp, lo: iMin, hi: iMax },
+      { name: 'iOut', nominal: spec.output.iTyp, lo: iMin, hi: iMax },
     ],
     f: (x: Float64Array) => shuntVout(x[2]!, x[3]!, x[1]!, x[0]! - rz * iTest, rz),
     batch: (c: readonly Float64Array[], out: Float64Array) => {

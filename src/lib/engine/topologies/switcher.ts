@@ -25,7 +25,7 @@ const FB_LOWER_OHM = 10e3;
 
 export function chooseSwitcher(ctx: Context, converter: SwitcherClass['converter'], vOut: number): { stage: SwitcherClass; issues: Issue[] } {
   const pool = ctx.catalog.switchers.filter((s) => s.converter === converter);
-  const { vMax } = ctx.brief.input;
+  const { vMax } = ctx.spec.input;
   const fits = (s: SwitcherClass) => vMax <= s.vInMaxV && ctx.vInTrough >= s.vInMinV && vOut <= s.vOutMaxV;
   const stage = pool.find(fits) ?? [...pool].sort((a, b) => b.vInMaxV - a.vInMaxV)[0];
   if (!stage) return { stage: ctx.catalog.switchers[0]!, issues: [blocker('no-class', `The catalog has no ${converter} stage.`)] };
@@ -37,7 +37,7 @@ export function chooseSwitcher(ctx: Context, converter: SwitcherClass['converter
 }
 
 export function switchingFrequency(ctx: Context, stage: SwitcherClass, issues: Issue[]): number {
-  const wanted = ctx.brief.overrides.fswHz ?? stage.fswDefaultHz;
+  const wanted = ctx.spec.overrides.fswHz ?? stage.fswDefaultHz;
   const fsw = Math.min(stage.fswMaxHz, Math.max(stage.fswMinHz, wanted));
   if (fsw !== wanted) issues.push(info('fsw-clamped', `${stage.label} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`));
   return fsw;
@@ -90,7 +90,7 @@ export interface FeedbackParts {
 }
 
 export function switcherFeedback(ctx: Context, refs: Refs, trace: Trace, stage: SwitcherClass, vTarget: number, idPrefix: string): FeedbackParts {
-  const series = ctx.brief.overrides.resistorSeries ?? 'E96';
+  const series = ctx.spec.overrides.resistorSeries ?? 'E96';
   const tolerance = series === 'E96' ? 0.01 : 0.05;
   const r1Ref = refs.next('R');
   const r2Ref = refs.next('R');

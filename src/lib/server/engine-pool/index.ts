@@ -8,7 +8,7 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Brief } from '../../engine/brief';
+import type { RailSpec } from '../../engine/rail-spec';
 import { evaluate } from '../../engine/evaluate';
 import { currentCatalog } from '../catalog';
 import { config } from '../config';
@@ -45,7 +45,7 @@ function enginePool(): EnginePool | null {
 }
 
 /** The evaluation of `brief` as JSON text, ready to be the body of the answer. */
-export async function evaluateToJson(brief: Brief): Promise<string> {
+export async function evaluateToJson(brief: RailSpec): Promise<string> {
   const catalog = await currentCatalog();
   const threads = enginePool();
   return threads ? threads.evaluateJson(brief, catalog) : JSON.stringify(evaluate(brief, catalog));

@@ -5,7 +5,7 @@
  * checks and writes, and the threads do the arithmetic and the serialization.
  */
 import { Worker } from 'node:worker_threads';
-import type { Brief } from '../../engine/brief';
+import type { RailSpec } from '../../engine/rail-spec';
 import type { Catalog } from '../../engine/catalog';
 import type { EngineJob, EngineReply } from './protocol';
 
@@ -27,7 +27,7 @@ export class EngineBusyError extends Error {
 }
 
 interface Pending {
-  brief: Brief;
+  brief: RailSpec;
   catalog: Catalog;
   resolve: (json: string) => void;
   reject: (error: Error) => void;
@@ -70,7 +70,7 @@ export class EnginePool {
   }
 
   /** The evaluation of `brief` against `catalog`, as the JSON text the API answers with. */
-  evaluateJson(brief: Brief, catalog: Catalog): Promise<string> {
+  evaluateJson(brief: RailSpec, catalog: Catalog): Promise<string> {
     if (this.closed) return Promise.reject(new Error('The engine pool is closed.'));
     if (this.queue.length >= this.maxQueue) return Promise.reject(new EngineBusyError());
     return new Promise<string>((resolve, reject) => {

@@ -1,10 +1,10 @@
 /** Messages between the server and its engine threads. */
-import type { Brief } from '../../engine/brief';
+import type { RailSpec } from '../../engine/rail-spec';
 import type { Catalog } from '../../engine/catalog';
 
 export interface EngineJob {
   id: number;
-  brief: Brief;
+  brief: RailSpec;
   /** Sent only when this thread has not seen this catalog version yet. */
   catalog?: Catalog;
   catalogVersion: number;

@@ -2,7 +2,7 @@ import { count, eq } from 'drizzle-orm';
 import type { Auth } from '../auth/create-auth';
 import type { Database } from '../db/connect';
 import { summarise } from '../../brief-summary';
-import { briefSchema } from '../../engine/brief';
+import { railSpecSchema } from '../../engine/rail-spec';
 import { defaultCatalog } from '../../engine/catalog';
 import { evaluate } from '../../engine/evaluate';
 import { catalogToRows } from '../catalog-rows';
@@ -87,8 +87,8 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
       const submittedAt = item.submittedDaysAgo === undefined ? null : new Date(now - item.submittedDaysAgo * DAY);
       const createdAt = new Date((submittedAt?.getTime() ?? now - DAY) - 2 * 3_600_000);
       // Submitted briefs carry the engine's verdict, as they would after a real submission.
-      const spec = submittedAt ? briefSchema.parse(item.spec) : item.spec;
-      const result = submittedAt ? evaluate(briefSchema.parse(item.spec), defaultCatalog) : null;
+      const spec = submittedAt ? railSpecSchema.parse(item.spec) : item.spec;
+      const result = submittedAt ? evaluate(railSpecSchema.parse(item.spec), defaultCatalog) : null;
       await tx.insert(brief).values({
         id: briefId,
         ownerId,
@@ -111,8 +111,8 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           number: 1,
           authorId: engineerId,
           topology: result.recommended,
-          weights: briefSchema.parse(item.spec).weights,
-          overrides: briefSchema.parse(item.spec).overrides,
+          weights: railSpecSchema.parse(item.spec).weights,
+          overrides: railSpecSchema.parse(item.spec).overrides,
           input: spec,
           result,
           note: item.revisionNote,

@@ -2,7 +2,7 @@
  * The demo scenario: fictional clients and rails, for the demo only.
  * Specs follow the engine's brief schema (SI units, tolerances as fractions).
  */
-import type { BriefInput } from '../../engine/brief';
+import type { RailSpecInput } from '../../engine/rail-spec';
 import type { BriefStatus } from '../db/schema';
 import type { Role } from '../auth/roles';
 
@@ -37,7 +37,7 @@ export interface DemoBrief {
   revisionNote?: string;
   /** How far the quote of revision 1 has gone: sent to the client, or accepted and its deposit paid. */
   quote?: 'sent' | 'deposit-paid';
-  spec: BriefInput;
+  spec: RailSpecInput;
 }
 
 export const DEMO_BRIEFS: DemoBrief[] = [

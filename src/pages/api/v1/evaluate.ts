@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { briefIssues, briefSchema } from '~/lib/engine';
+import { railSpecIssues, railSpecSchema } from '~/lib/engine';
 import { EngineBusyError, evaluateToJson } from '~/lib/server/engine-pool';
 import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/server/http';
 import { limitEvaluate } from '~/lib/server/evaluate-limit';
@@ -10,8 +10,8 @@ export const POST: APIRoute = async (context) => {
   if (!limited.allowed) return tooMany(limited.retryAfterSeconds);
   const body = await readJson(context.request, 32 * 1024);
   if (!body.ok) return body.response;
-  const parsed = briefSchema.safeParse(body.value);
-  if (!parsed.success) return invalid('invalid_brief', briefIssues(parsed.error));
+  const parsed = railSpecSchema.safeParse(body.value);
+  if (!parsed.success) return invalid('invalid_brief', railSpecIssues(parsed.error));
   try {
     return jsonText(await evaluateToJson(parsed.data));
   } catch (error) {

@@ -1,4 +1,4 @@
-// The supply brief: one zod schema shared by the wizard form, the API and the engine (browser-safe).
+// The rail spec: what a brief asks of the supply. One zod schema shared by the wizard form, the API and the engine (browser-safe).
 // Written with zod's tree-shakable build, since the wizard ships it to the browser.
 import { z } from 'zod/mini';
 
@@ -94,7 +94,7 @@ const overridesSchema = z.strictObject({
   seed: z.optional(whole('The seed', 0, 0xffffffff, { min: 'The seed must not be negative.', max: 'The seed must fit in 32 bits.' })),
 });
 
-export const briefSchema = z
+export const railSpecSchema = z
   .strictObject({
     input: inputSchema,
     output: outputSchema,
@@ -115,16 +115,16 @@ export const briefSchema = z
     }),
   );
 
-export type Brief = z.infer<typeof briefSchema>;
-export type BriefInput = z.input<typeof briefSchema>;
+export type RailSpec = z.infer<typeof railSpecSchema>;
+export type RailSpecInput = z.input<typeof railSpecSchema>;
 
-export interface BriefIssue {
+export interface RailSpecIssue {
   path: string;
   message: string;
 }
 
 /** Flattens a zod error into `{ path: 'input.vMin', message }` entries for a 400 answer. */
-export function briefIssues(error: z.core.$ZodError): BriefIssue[] {
+export function railSpecIssues(error: z.core.$ZodError): RailSpecIssue[] {
   return error.issues.flatMap((issue) => {
     const base = issue.path.map(String);
     if (issue.code === 'unrecognized_keys') {
