@@ -4,6 +4,7 @@
  */
 import { parseSi } from './engine/units';
 import { WEIGHT_KEYS, type WeightKey } from './review-words';
+import type { AgreedRequirement } from './agreed-requirement';
 
 export const NUMBER_OVERRIDES = {
   r1Ohm: { label: 'R1 (feedback, lower)', unit: 'Ω', hint: 'Linear designs; the upper resistor is solved from it.' },
@@ -23,6 +24,15 @@ export const CHOICE_OVERRIDES = {
 } as const;
 export type ChoiceOverride = keyof typeof CHOICE_OVERRIDES;
 
+/** The requirement as agreed with the client, where it departs from the brief (empty = as briefed). */
+export const REQUIREMENT_FIELDS = {
+  outputV: { label: 'Output voltage', unit: 'V', hint: 'Only when the client agrees to another rail voltage.' },
+  tolerancePct: { label: 'Output tolerance', unit: '%', hint: 'e.g. 2 for ±2 %, when the client accepts a wider band.' },
+  maxRippleVpp: { label: 'Ripple limit', unit: 'Vpp', hint: 'e.g. 20m, when the client accepts more ripple.' },
+} as const;
+export type RequirementField = keyof typeof REQUIREMENT_FIELDS;
+export const REQUIREMENT_KEYS = Object.keys(REQUIREMENT_FIELDS) as RequirementField[];
+
 export interface ForcedPart {
   ref: string;
   value: string;
@@ -33,11 +43,13 @@ export interface ChoicesForm {
   numbers: Record<NumberOverride, string>;
   picks: Record<ChoiceOverride, string>;
   parts: ForcedPart[];
+  requirement: Record<RequirementField, string>;
 }
 
 export interface Choices {
   weights: Record<WeightKey, number>;
   overrides: Record<string, unknown>;
+  requirement: AgreedRequirement;
 }
 
 export interface FormIssue {
@@ -47,14 +59,20 @@ export interface FormIssue {
 
 const text = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? String(v) : typeof v === 'string' ? v : '');
 
-/** The form filled from saved choices (a revision's weights and overrides). */
-export function formFrom(weights: Record<string, unknown>, overrides: Record<string, unknown>): ChoicesForm {
+/** The form filled from saved choices (a revision's weights, overrides and agreed requirement). */
+export function formFrom(weights: Record<string, unknown>, overrides: Record<string, unknown>, agreed: AgreedRequirement = {}): ChoicesForm {
   const parts = overrides.parts && typeof overrides.parts === 'object' ? Object.entries(overrides.parts as Record<string, unknown>) : [];
   return {
     weights: Object.fromEntries(WEIGHT_KEYS.map((k) => [k, text(weights[k])])) as ChoicesForm['weights'],
     numbers: Object.fromEntries(Object.keys(NUMBER_OVERRIDES).map((k) => [k, text(overrides[k])])) as ChoicesForm['numbers'],
     picks: Object.fromEntries(Object.keys(CHOICE_OVERRIDES).map((k) => [k, text(overrides[k])])) as ChoicesForm['picks'],
     parts: parts.map(([ref, value]) => ({ ref, value: text(value) })),
+    requirement: {
+      outputV: text(agreed.outputV),
+      // Four significant figures: 0.02 shows as 2, not 2.0000000000000004.
+      tolerancePct: agreed.tolerance === undefined ? '' : String(Number((agreed.tolerance * 100).toPrecision(4))),
+      maxRippleVpp: text(agreed.maxRippleVpp),
+    },
   };
 }
 
@@ -84,5 +102,14 @@ export function choicesFrom(form: ChoicesForm): { ok: true; value: Choices } | {
     else parts[p.ref.trim().toUpperCase()] = value;
   });
   if (Object.keys(parts).length > 0) overrides.parts = parts;
-  return issues.length > 0 ? { ok: false, issues } : { ok: true, value: { weights, overrides } };
+  const requirement: AgreedRequirement = {};
+  for (const key of REQUIREMENT_KEYS) {
+    const typed = form.requirement[key].trim();
+    if (!typed) continue;
+    const value = parseSi(typed.replace(/\s*%$/, ''));
+    if (value === null) issues.push({ path: `requirement.${key}`, message: `“${typed}” is not a number; write e.g. 3.3, 2 or 20m.` });
+    else if (key === 'tolerancePct') requirement.tolerance = value / 100;
+    else requirement[key] = value;
+  }
+  return issues.length > 0 ? { ok: false, issues } : { ok: true, value: { weights, overrides, requirement } };
 }

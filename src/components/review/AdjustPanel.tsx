@@ -1,7 +1,9 @@
 import type { SyntheticEvent } from 'react';
 import { describedBy, FieldShell, inputClass } from '../react/FieldShell';
 import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review-words';
-import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, type ChoicesForm, type FormIssue } from '~/lib/review-choices';
+import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, REQUIREMENT_FIELDS, REQUIREMENT_KEYS, type ChoicesForm, type FormIssue, type RequirementField } from '~/lib/review-choices';
+import type { RailSpec } from '~/lib/engine/rail-spec';
+import { formatSi } from '~/lib/engine/units';
 
 interface Props {
   form: ChoicesForm;
@@ -11,12 +13,20 @@ interface Props {
   dirty: boolean;
   issues: FormIssue[];
   linearClasses: { id: string; label: string }[];
+  /** The client's brief: its figures are what an empty requirement field means. */
+  briefed: RailSpec;
+}
+
+function briefedValue(spec: RailSpec, key: RequirementField): string {
+  if (key === 'outputV') return formatSi(spec.output.v, 'V');
+  if (key === 'tolerancePct') return `±${Number((spec.output.tolerance * 100).toPrecision(4))} %`;
+  return formatSi(spec.noise.maxRippleVpp, 'Vpp');
 }
 
 const selectClass = 'w-full rounded-md border border-ink/25 bg-card px-3 py-2 text-base';
 
 /** Weights and overrides; re-running ranks the options again without saving anything. */
-export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, linearClasses }: Props) {
+export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, linearClasses, briefed }: Props) {
   const errorAt = (path: string) => issues.find((i) => i.path === path)?.message;
   const known = new Set([
     ...WEIGHT_KEYS.map((k) => `weights.${k}`),
@@ -24,6 +34,7 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
     ...Object.keys(CHOICE_OVERRIDES).map((k) => `overrides.${k}`),
     ...form.parts.map((_, k) => `overrides.parts.${k}`),
     ...form.parts.map((p) => `overrides.parts.${p.ref.trim().toUpperCase()}`),
+    ...REQUIREMENT_KEYS.map((k) => `requirement.${k}`),
   ]);
   const other = issues.filter((i) => !known.has(i.path));
   const submit = (event: SyntheticEvent) => {
@@ -115,6 +126,34 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
                   aria-invalid={error ? true : undefined}
                   aria-describedby={describedBy(id, spec.hint, error)}
                   onChange={(e) => onChange({ ...form, numbers: { ...form.numbers, [key]: e.target.value } })}
+                  className={`${inputClass(error)} tabular-nums`}
+                />
+              </FieldShell>
+            );
+          })}
+        </div>
+      </fieldset>
+
+      <fieldset className="mt-5">
+        <legend className="text-sm font-bold text-ink-soft">Requirement agreed with the client (leave empty to design to the brief)</legend>
+        <p className="mt-1 text-sm text-ink-soft">Change these only with the client’s agreement: the revision, the quote and its PDF state the requirement the design meets.</p>
+        <div className="mt-2 grid gap-3 sm:grid-cols-3">
+          {REQUIREMENT_KEYS.map((key) => {
+            const id = `requirement-${key}`;
+            const field = REQUIREMENT_FIELDS[key];
+            const hint = `Brief: ${briefedValue(briefed, key)}. ${field.hint}`;
+            const error = errorAt(`requirement.${key}`);
+            return (
+              <FieldShell key={key} id={id} label={field.label} unit={field.unit} hint={hint} error={error}>
+                <input
+                  id={id}
+                  inputMode="decimal"
+                  autoComplete="off"
+                  spellCheck={false}
+                  value={form.requirement[key]}
+                  aria-invalid={error ? true : undefined}
+                  aria-describedby={describedBy(id, hint, error)}
+                  onChange={(e) => onChange({ ...form, requirement: { ...form.requirement, [key]: e.target.value } })}
                   className={`${inputClass(error)} tabular-nums`}
                 />
               </FieldShell>

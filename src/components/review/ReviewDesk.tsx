@@ -6,6 +6,7 @@ import { AdjustPanel } from './AdjustPanel';
 import { CalcTrace } from './CalcTrace';
 import { CautionPanel } from './CautionPanel';
 import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review-choices';
+import { AGREED_FIELD_PATHS, withAgreedRequirement } from '~/lib/agreed-requirement';
 import { CurvesChart } from './CurvesChart';
 import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';
@@ -62,10 +63,11 @@ export default function ReviewDesk(props: Props) {
       const response = await fetch('/api/v1/evaluate', {
         method: 'POST',
         headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ ...spec, ...choices.value }),
+        body: JSON.stringify({ ...withAgreedRequirement(spec, choices.value.requirement), weights: choices.value.weights, overrides: choices.value.overrides }),
       });
       if (!response.ok) {
-        setIssues(await readIssues(response, 'The engine could not run with these choices.'));
+        const problems = await readIssues(response, 'The engine could not run with these choices.');
+        setIssues(problems.map((p) => ({ ...p, path: AGREED_FIELD_PATHS[p.path] ?? p.path })));
         return;
       }
       const next = (await response.json()) as Evaluation;
@@ -113,7 +115,7 @@ export default function ReviewDesk(props: Props) {
     <div className="flex flex-col gap-8">
       {option && <CautionPanel cautions={option.cautions} heading={`Cautions for the ${TOPOLOGY_NAMES[option.topology].toLowerCase()}`} />}
 
-      <AdjustPanel form={form} onChange={setForm} onRun={rerun} running={running} dirty={dirty} issues={issues} linearClasses={linearClasses} />
+      <AdjustPanel form={form} onChange={setForm} onRun={rerun} running={running} dirty={dirty} issues={issues} linearClasses={linearClasses} briefed={spec} />
 
       <section aria-labelledby="options-heading">
         <div className="flex flex-wrap items-baseline justify-between gap-2">

@@ -4,6 +4,7 @@
  */
 import { eq } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
+import { agreedRequirementOf } from '../agreed-requirement';
 import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
 import { TOPOLOGY_NAMES, percent } from '../option-words';
@@ -49,16 +50,38 @@ export function statusAt(row: Pick<QuoteRow, 'status' | 'validUntil'>, now = new
 const SOURCES: Record<string, string> = { battery: 'battery', adapter: 'mains adapter', rectified: 'rectified mains', bus: 'DC bus' };
 const AIRFLOW: Record<string, string> = { enclosed: 'enclosed, no airflow', 'still-air': 'still air', 'forced-air': 'forced air' };
 
-export function requirementRows(spec: RailSpec): Row[] {
+const tolerancePct = (t: number) => `${(t * 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })} %`;
+
+/**
+ * The rail the design meets. Where the engineer and the client agreed to depart from the brief
+ * (see agreed-requirement.ts), the row says so and keeps the brief's figure beside it.
+ */
+export function requirementRows(spec: RailSpec, briefed: unknown = spec): Row[] {
   const { input, output, noise, thermal } = spec;
-  const tolerance = `${(output.tolerance * 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })} %`;
+  const agreed = agreedRequirementOf(briefed, spec);
+  const was = (text: string) => ` — agreed with the client (brief: ${text})`;
+  const original = briefed as RailSpec;
+  const outputChanged = agreed.outputV !== undefined || agreed.tolerance !== undefined;
+  const ambientC = spec.overrides.ambientC;
   return [
     { label: 'Input supply', value: `${formatSi(input.vMin, 'V')} to ${formatSi(input.vMax, 'V')}, nominal ${formatSi(input.vNom, 'V')} (${SOURCES[input.source] ?? input.source})` },
     { label: 'Input ripple', value: input.rippleVpp > 0 ? formatSi(input.rippleVpp, 'Vpp') : 'none stated' },
-    { label: 'Output', value: `${formatSi(output.v, 'V')} ± ${tolerance}` },
+    {
+      label: 'Output',
+      value: `${formatSi(output.v, 'V')} ± ${tolerancePct(output.tolerance)}${outputChanged ? was(`${formatSi(original.output.v, 'V')} ± ${tolerancePct(original.output.tolerance)}`) : ''}`,
+    },
     { label: 'Load current', value: `${formatSi(output.iMin, 'A')} min, ${formatSi(output.iTyp, 'A')} typical, ${formatSi(output.iMax, 'A')} max` },
-    { label: 'Ripple limit', value: `${formatSi(noise.maxRippleVpp, 'Vpp')} (${noise.class} load)` },
-    { label: 'Ambient', value: `up to ${thermal.ambientMaxC} °C, ${AIRFLOW[thermal.airflow] ?? thermal.airflow}` },
+    {
+      label: 'Ripple limit',
+      value: `${formatSi(noise.maxRippleVpp, 'Vpp')} (${noise.class} load)${agreed.maxRippleVpp !== undefined ? was(formatSi(original.noise.maxRippleVpp, 'Vpp')) : ''}`,
+    },
+    {
+      label: 'Ambient',
+      value:
+        ambientC !== undefined && ambientC !== thermal.ambientMaxC
+          ? `up to ${ambientC} °C, ${AIRFLOW[thermal.airflow] ?? thermal.airflow}${was(`${thermal.ambientMaxC} °C`)}`
+          : `up to ${thermal.ambientMaxC} °C, ${AIRFLOW[thermal.airflow] ?? thermal.airflow}`,
+    },
   ];
 }
 
@@ -131,7 +154,7 @@ export async function loadQuoteView(db: Db, quoteId: string, now = new Date()): 
     brief: { id: found.brief.id, title: found.brief.title, status: found.brief.status, ownerId: found.brief.ownerId },
     client: found.client,
     revision: { id: found.revision.id, number: found.revision.number, topology: found.revision.topology, note: found.revision.note },
-    requirements: requirementRows(found.revision.input as RailSpec),
+    requirements: requirementRows(found.revision.input as RailSpec, found.brief.spec),
     design: option ? designSummary(option) : null,
   };
 }

@@ -1,6 +1,7 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { railSpecIssues, evaluate, type Evaluation } from '../engine';
 import { briefWithChoices, type RevisionRequest } from '../revision-requests';
+import { agreedRequirementOf } from '../agreed-requirement';
 import type { BriefRow } from './briefs';
 import { currentCatalog } from './catalog';
 import { db } from './db';
@@ -49,8 +50,9 @@ export async function saveRevision(row: BriefRow, authorId: string, request: Rev
   return { ok: true, value: saved };
 }
 
-export async function listRevisions(briefId: string) {
-  return db
+/** A brief's revisions, newest first, each with the requirement it was designed to where that departs from the brief. */
+export async function listRevisions(row: Pick<BriefRow, 'id' | 'spec'>) {
+  const rows = await db
     .select({
       id: designRevision.id,
       number: designRevision.number,
@@ -60,11 +62,13 @@ export async function listRevisions(briefId: string) {
       author: user.name,
       weights: designRevision.weights,
       overrides: designRevision.overrides,
+      input: designRevision.input,
     })
     .from(designRevision)
     .leftJoin(user, eq(user.id, designRevision.authorId))
-    .where(eq(designRevision.briefId, briefId))
+    .where(eq(designRevision.briefId, row.id))
     .orderBy(desc(designRevision.number));
+  return rows.map(({ input, ...r }) => ({ ...r, requirement: agreedRequirementOf(row.spec, input) }));
 }
 
 export async function findRevision(briefId: string, revisionId: string): Promise<RevisionRow | null> {

@@ -15,7 +15,7 @@ export const GET: APIRoute = async (context) => {
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
   const staff = isStaff(gate.user);
-  const [detail, quotes, revisions] = await Promise.all([briefDetail(row), quotesOfBrief(row.id), staff ? listRevisions(row.id) : Promise.resolve([])]);
+  const [detail, quotes, revisions] = await Promise.all([briefDetail(row), quotesOfBrief(row.id), staff ? listRevisions(row) : Promise.resolve([])]);
   return json({
     ...briefDetailJson(detail),
     // Clients see a quote once it is sent; drafts stay with the consultancy.

@@ -11,7 +11,7 @@ export const GET: APIRoute = async (context) => {
   if (!gate.ok) return gate.response;
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
-  const items = await listRevisions(row.id);
+  const items = await listRevisions(row);
   return json({ items: items.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) });
 };
 
