@@ -33,9 +33,64 @@ const linearRegulatorSchema = z
     heatsinkable: z.boolean(),
     psrrDb: nonNeg,
     psrrBypassDb: nonNeg,
-    /** Ripple rejection near switching frequencies (100 kHz–1 MHz), where it is much lower. */
+    /** Ripple rejection at 1 MHz and above; below it the rejection rises 20 dB/decade up to psrrDb (single-pole loop gain). */
     psrrHfDb: nonNeg,
     costCents: cents,
+    /** Dearer selections of the same class with a tighter initial reference, cheapest first. */
+    refGrades: z.array(z.object({ tolerance: pos, extraCents: cents }).strict()),
+    /** Reference drift over temperature, ppm/K (box method). */
+    vRefDriftPpmK: nonNeg,
+    /** Output change from no load to the class's rated current, fraction of Vout. */
+    loadRegulation: nonNeg,
+    /** Output change per volt of input change, fraction of Vout per V. */
+    lineRegulationPerV: nonNeg,
+    /** Output capacitance the loop needs, and the ESR window it is stable in (esrMaxOhm null: no upper limit). */
+    coutMinF: pos,
+    esrMinOhm: nonNeg,
+    esrMaxOhm: pos.nullable(),
+    /** Output noise density at unity gain (the reference's own noise), V/√Hz. */
+    noiseDensityVrtHz: nonNeg,
+    source: z.string().min(1),
+  })
+  .strict();
+
+const resistorGradeSchema = z
+  .object({
+    id: z.string().min(1),
+    label: z.string().min(1),
+    tolerance: pos,
+    /** Temperature coefficient, ppm/K. */
+    tcrPpmK: nonNeg,
+    /** The E-series the grade is stocked in. */
+    series: z.enum(['E24', 'E96', 'E192']),
+    /** Extra cost per resistor over a 1 % thick-film part of the same power rating. */
+    extraCents: cents,
+    source: z.string().min(1),
+  })
+  .strict();
+
+const shuntReferenceSchema = z
+  .object({
+    id: z.string().min(1),
+    label: z.string().min(1),
+    vRefV: pos,
+    vRefTolerance: pos,
+    refGrades: z.array(z.object({ tolerance: pos, extraCents: cents }).strict()),
+    vRefDriftPpmK: nonNeg,
+    /** Current into the reference input. */
+    iRefA: nonNeg,
+    /** Cathode current range in which it regulates. */
+    iKMinA: pos,
+    iKMaxA: pos,
+    /** Largest cathode voltage. */
+    vKaMaxV: pos,
+    /** Dynamic impedance of the closed loop, Ω. */
+    zKaOhm: nonNeg,
+    powerW: pos,
+    thetaJaCW: pos,
+    tjMaxC: num,
+    costCents: cents,
+    source: z.string().min(1),
   })
   .strict();
 
@@ -70,11 +125,14 @@ const passDeviceSchema = z
     thetaJcCW: pos,
     thetaJaCW: pos,
     tjMaxC: num,
-    /** Safe-operating-area hint: the DC power allowed up to soaKneeV and at vMaxV (second breakdown). */
+    /** Safe-operating-area hint at a 25 °C case: the DC power allowed up to soaKneeV and at vMaxV (second breakdown). */
     soaPowerW: pos,
     soaKneeV: pos,
     soaPowerAtVMaxW: pos,
+    /** Time for the junction-to-case transient impedance to reach θJC; shorter pulses are allowed more power. */
+    thermalTauS: pos,
     costCents: cents,
+    source: z.string().min(1),
   })
   .strict();
 
@@ -125,6 +183,8 @@ export const catalogSchema = z
     version: z.string().min(1),
     linearRegulators: z.array(linearRegulatorSchema).min(1),
     zenerSeries: z.array(zenerSeriesSchema).min(1),
+    shuntReferences: z.array(shuntReferenceSchema).min(1),
+    resistorGrades: z.array(resistorGradeSchema).min(1),
     passDevices: z.array(passDeviceSchema).min(1),
     switchers: z.array(switcherSchema).min(1),
     capacitors: z.array(capacitorFamilySchema).min(1),
@@ -163,6 +223,8 @@ export type Catalog = z.infer<typeof catalogSchema>;
 export type LinearRegulatorClass = Catalog['linearRegulators'][number];
 export type ZenerSeries = Catalog['zenerSeries'][number];
 export type PassDeviceClass = Catalog['passDevices'][number];
+export type ResistorGrade = Catalog['resistorGrades'][number];
+export type ShuntReference = Catalog['shuntReferences'][number];
 export type SwitcherClass = Catalog['switchers'][number];
 export type CapacitorFamily = Catalog['capacitors'][number];
 
@@ -211,6 +273,15 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 25,
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.005,
+      lineRegulationPerV: 0.0002,
+      coutMinF: 1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 0.4e-6,
+      source: 'common practice: the classic adjustable three-terminal regulator; drift, regulation and noise from memory',
     },
     {
       id: 'adj-1a5',
@@ -235,6 +306,15 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 45,
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.005,
+      lineRegulationPerV: 0.0002,
+      coutMinF: 1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 0.4e-6,
+      source: 'common practice: the classic adjustable three-terminal regulator; drift, regulation and noise from memory',
     },
     {
       id: 'adj-hv-1a5',
@@ -259,6 +339,15 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 120,
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.005,
+      lineRegulationPerV: 0.0002,
+      coutMinF: 1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 0.4e-6,
+      source: 'common practice: the classic adjustable three-terminal regulator; drift, regulation and noise from memory',
     },
     {
       id: 'ldo-adj-1a',
@@ -283,6 +372,81 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 70,
       psrrHfDb: 40,
       costCents: 60,
+      refGrades: [{ tolerance: 0.01, extraCents: 15 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.003,
+      lineRegulationPerV: 0.0002,
+      coutMinF: 10e-6,
+      esrMinOhm: 0.1,
+      esrMaxOhm: 10,
+      noiseDensityVrtHz: 0.3e-6,
+      source: 'from memory: typical of 1 A adjustable LDOs with a PNP pass device, stable only inside an output ESR window',
+    },
+    {
+      id: 'ldo-prec-0a5',
+      label: 'Precision low-dropout adjustable regulator, 0.5 A',
+      kind: 'ldo',
+      vRefV: 1.2,
+      vRefTolerance: 0.01,
+      iAdjTypA: 10e-9,
+      iAdjMaxA: 50e-9,
+      minLoadA: 0,
+      dropoutV: 0.35,
+      vDiffMaxV: null,
+      vInMaxV: 20,
+      iqA: 0.2e-3,
+      iOutMaxA: 0.5,
+      iLimitA: 0.8,
+      thetaJcCW: 10,
+      thetaJaCW: 60,
+      tjMaxC: 125,
+      heatsinkable: true,
+      psrrDb: 70,
+      psrrBypassDb: 75,
+      psrrHfDb: 40,
+      costCents: 95,
+      refGrades: [{ tolerance: 0.005, extraCents: 40 }],
+      vRefDriftPpmK: 20,
+      loadRegulation: 0.001,
+      lineRegulationPerV: 0.00005,
+      coutMinF: 2.2e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 0.05e-6,
+      source: 'from memory: typical of precision, low-noise, ceramic-stable LDOs (±1 % and ±0.5 % selections)',
+    },
+    {
+      id: 'ldo-lowiq-0a2',
+      label: 'Low-quiescent low-dropout adjustable regulator, 0.2 A',
+      kind: 'ldo',
+      vRefV: 0.8,
+      vRefTolerance: 0.02,
+      iAdjTypA: 1e-9,
+      iAdjMaxA: 10e-9,
+      minLoadA: 0,
+      dropoutV: 0.25,
+      vDiffMaxV: null,
+      vInMaxV: 6,
+      iqA: 1e-6,
+      iOutMaxA: 0.2,
+      iLimitA: 0.35,
+      thetaJcCW: 50,
+      thetaJaCW: 200,
+      tjMaxC: 125,
+      heatsinkable: false,
+      psrrDb: 45,
+      psrrBypassDb: 45,
+      psrrHfDb: 15,
+      costCents: 30,
+      refGrades: [{ tolerance: 0.01, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.005,
+      lineRegulationPerV: 0.0005,
+      coutMinF: 1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 1e-6,
+      source: 'from memory: typical of µA-quiescent CMOS LDOs for battery loads',
     },
     ...[5, 3.3, 12].map((v) => ({
       id: `fixed-${String(v).replace('.', 'v')}`,
@@ -307,6 +471,15 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 60,
       psrrHfDb: 20,
       costCents: 30,
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.01,
+      lineRegulationPerV: 0.0005,
+      coutMinF: 0.1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 0.15e-6,
+      source: 'common practice: the classic fixed three-terminal regulator; drift, regulation and noise from memory',
     })),
   ],
   zenerSeries: [
@@ -350,7 +523,51 @@ export const defaultCatalog: Catalog = {
       costCents: 35,
     },
   ],
+  shuntReferences: [
+    {
+      id: 'shunt-ref-2v5',
+      label: 'Adjustable precision shunt reference, 2.5 V',
+      vRefV: 2.495,
+      vRefTolerance: 0.01,
+      refGrades: [{ tolerance: 0.005, extraCents: 6 }],
+      vRefDriftPpmK: 50,
+      iRefA: 4e-6,
+      iKMinA: 1e-3,
+      iKMaxA: 100e-3,
+      vKaMaxV: 36,
+      zKaOhm: 0.5,
+      powerW: 0.5,
+      thetaJaCW: 200,
+      tjMaxC: 125,
+      costCents: 8,
+      source: 'from memory: typical of the adjustable three-terminal shunt reference (±1 % and ±0.5 % selections)',
+    },
+  ],
+  resistorGrades: [
+    { id: 'thick-5', label: 'thick film, 5 %', tolerance: 0.05, tcrPpmK: 200, series: 'E24', extraCents: 0, source: 'common practice: general-purpose thick-film chip resistors' },
+    { id: 'thick-1', label: 'thick film, 1 %', tolerance: 0.01, tcrPpmK: 100, series: 'E96', extraCents: 0, source: 'common practice: 1 % thick film at the price of 5 %' },
+    { id: 'thin-0.5', label: 'thin film, 0.5 %', tolerance: 0.005, tcrPpmK: 50, series: 'E192', extraCents: 3, source: 'from memory: distributor prices for small quantities' },
+    { id: 'thin-0.1', label: 'thin film, 0.1 %', tolerance: 0.001, tcrPpmK: 25, series: 'E192', extraCents: 9, source: 'from memory: distributor prices for small quantities' },
+  ],
   passDevices: [
+    {
+      id: 'nmos-600-1a',
+      label: 'High-voltage N-MOSFET, 600 V, 1 A (small tab package)',
+      kind: 'nmos',
+      vMaxV: 600,
+      iMaxA: 1,
+      vControlV: 3.5,
+      gainMin: 1,
+      thetaJcCW: 3,
+      thetaJaCW: 80,
+      tjMaxC: 150,
+      soaPowerW: 35,
+      soaKneeV: 60,
+      soaPowerAtVMaxW: 6,
+      thermalTauS: 0.05,
+      costCents: 45,
+      source: 'from memory: typical of 1 A, 600 V MOSFETs in a small tab package; SOA at a 25 °C case',
+    },
     {
       id: 'npn-400',
       label: 'High-voltage NPN, 400 V, 4 A (tab package)',
@@ -365,7 +582,9 @@ export const defaultCatalog: Catalog = {
       soaPowerW: 75,
       soaKneeV: 40,
       soaPowerAtVMaxW: 8,
+      thermalTauS: 0.1,
       costCents: 60,
+      source: 'from memory: typical of tab-package high-voltage parts; SOA at a 25 °C case',
     },
     {
       id: 'npn-700',
@@ -381,7 +600,9 @@ export const defaultCatalog: Catalog = {
       soaPowerW: 50,
       soaKneeV: 40,
       soaPowerAtVMaxW: 5,
+      thermalTauS: 0.1,
       costCents: 90,
+      source: 'from memory: typical of tab-package high-voltage parts; SOA at a 25 °C case',
     },
     {
       id: 'nmos-600',
@@ -397,7 +618,9 @@ export const defaultCatalog: Catalog = {
       soaPowerW: 80,
       soaKneeV: 100,
       soaPowerAtVMaxW: 25,
+      thermalTauS: 0.1,
       costCents: 110,
+      source: 'from memory: typical of tab-package high-voltage parts; SOA at a 25 °C case',
     },
     {
       id: 'nmos-1000',
@@ -413,7 +636,9 @@ export const defaultCatalog: Catalog = {
       soaPowerW: 150,
       soaKneeV: 100,
       soaPowerAtVMaxW: 30,
+      thermalTauS: 0.1,
       costCents: 350,
+      source: 'from memory: typical of tab-package high-voltage parts; SOA at a 25 °C case',
     },
   ],
   switchers: [

@@ -49,6 +49,83 @@ export function extremeValues(model: ToleranceModel): { min: number; max: number
   return { min, max };
 }
 
+export type ToleranceRule = 'statistical' | 'worst-case';
+
+/** Reference temperature of initial tolerances, °C (data-sheet convention). */
+export const REFERENCE_TEMPERATURE_C = 25;
+/** Coldest ambient assumed when the brief gives only the hottest: indoor equipment (common practice). */
+export const COLD_AMBIENT_C = 0;
+/** Statistical acceptance: the ±3σ interval inside the band, a yield of at least 99.73 % (normal model). */
+export const SIGMA_LIMIT = 3;
+
+/** Largest departure from 25 °C a part sees between the cold ambient and the hot ambient plus its own rise. */
+export function temperatureSwingK(ambientMaxC: number, selfRiseK = 0): number {
+  return Math.max(ambientMaxC + Math.max(0, selfRiseK) - REFERENCE_TEMPERATURE_C, REFERENCE_TEMPERATURE_C - COLD_AMBIENT_C, 0);
+}
+
+/** A relative band ±rel about a nominal, as a parameter. */
+export function relativeParam(name: string, nominal: number, rel: number): ToleranceParam {
+  return { name, nominal, lo: nominal * (1 - rel), hi: nominal * (1 + rel) };
+}
+
+export interface ToleranceSummary {
+  nominal: number;
+  worstCase: { min: number; max: number };
+  /** First-order mean and root-sum-square sigma, each parameter uniform over its band (as the Monte Carlo draws). */
+  mean: number;
+  sigma: number;
+  /** mean ± 3σ, never wider than the worst case. */
+  statistical: { min: number; max: number };
+  /** Each parameter's half-swing of the output, largest first: what to tighten. */
+  contributions: { name: string; halfSwing: number }[];
+}
+
+/**
+ * Worst case over the box's vertices and a root-sum-square sigma from one-at-a-time swings about
+ * the box centre: 2ⁿ + 2n + 2 evaluations, cheap enough to run for every candidate of a search.
+ */
+export function analyseTolerance(model: ToleranceModel): ToleranceSummary {
+  const worstCase = extremeValues(model);
+  const n = model.params.length;
+  const centre = Float64Array.from(model.params, (p) => (p.lo + p.hi) / 2);
+  const mean = model.f(centre);
+  const contributions: { name: string; halfSwing: number }[] = [];
+  let variance = 0;
+  for (let j = 0; j < n; j += 1) {
+    const p = model.params[j]!;
+    const x = Float64Array.from(centre);
+    x[j] = p.hi;
+    const up = model.f(x);
+    x[j] = p.lo;
+    const half = Math.abs(up - model.f(x)) / 2;
+    contributions.push({ name: p.name, halfSwing: half });
+    // A uniform band of half-width a has σ = a/√3.
+    variance += (half * half) / 3;
+  }
+  contributions.sort((a, b) => b.halfSwing - a.halfSwing);
+  const sigma = Math.sqrt(variance);
+  return {
+    nominal: nominalValue(model),
+    worstCase,
+    mean,
+    sigma,
+    statistical: { min: Math.max(worstCase.min, mean - SIGMA_LIMIT * sigma), max: Math.min(worstCase.max, mean + SIGMA_LIMIT * sigma) },
+    contributions,
+  };
+}
+
+/** Which view puts the output inside the band: the worst case, only the 3σ interval (when the rule allows it), or neither. */
+export function toleranceVerdict(
+  summary: ToleranceSummary,
+  band: { lo: number; hi: number },
+  rule: ToleranceRule,
+  marginV = 0,
+): 'worst-case' | 'statistical' | 'fails' {
+  const inside = (r: { min: number; max: number }) => r.min - marginV >= band.lo && r.max + marginV <= band.hi;
+  if (inside(summary.worstCase)) return 'worst-case';
+  return rule === 'statistical' && inside(summary.statistical) ? 'statistical' : 'fails';
+}
+
 /** Seeded Monte Carlo of the output; the histogram spans [rangeMin, rangeMax] in equal bins. */
 export function monteCarlo(
   model: ToleranceModel,

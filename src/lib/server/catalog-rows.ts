@@ -12,7 +12,7 @@ export interface DeviceClassRow {
   params: unknown;
 }
 
-const LIST_KINDS = ['linearRegulators', 'zenerSeries', 'passDevices', 'switchers', 'capacitors'] as const;
+const LIST_KINDS = ['linearRegulators', 'zenerSeries', 'shuntReferences', 'resistorGrades', 'passDevices', 'switchers', 'capacitors'] as const;
 const SINGLE_KINDS = {
   version: 'Catalog version',
   inductors: 'Inductor family',

@@ -74,9 +74,9 @@ describe('low headroom', () => {
       thermal,
     });
     const linear = pick(result.options, 'linear');
-    const ldo = defaultCatalog.linearRegulators.find((c) => c.kind === 'ldo')!;
+    const chosen = linear.components.find((c) => c.role === 'regulator')!.part;
     expect(linear.feasible).toBe(true);
-    expect(linear.components.find((c) => c.role === 'regulator')!.part).toBe(ldo.label);
+    expect(defaultCatalog.linearRegulators.find((c) => c.label === chosen)!.kind).toBe('ldo');
     // The same rail forced onto the classic class is blocked on headroom.
     const forced = evaluate(
       railSpecSchema.parse({

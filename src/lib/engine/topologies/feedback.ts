@@ -1,9 +1,19 @@
 // Output-setting divider of a regulator: Vout = Vref·(1 + R2/R1) + Iadj·R2.
 // R1 sits across the reference (role feedback-lower), R2 carries Vout − Vref (role feedback-upper).
+import type { ResistorGrade } from '../catalog.ts';
 import type { SeriesName } from '../eseries.ts';
-import { snap } from '../eseries.ts';
+import { seriesRange, snap } from '../eseries.ts';
+import { formatSi } from '../units.ts';
 import { atLeast } from '../design.ts';
-import type { ToleranceModel } from '../tolerance.ts';
+import {
+  analyseTolerance,
+  relativeParam,
+  toleranceVerdict,
+  type ToleranceModel,
+  type ToleranceParam,
+  type ToleranceRule,
+  type ToleranceSummary,
+} from '../tolerance.ts';
 
 export interface Divider {
   r1: number;
@@ -37,7 +47,52 @@ export function designDivider(
   return { r1, r2, vOut: dividerVout(vRef, r1, r2, iAdj), iDivider: vRef / r1 };
 }
 
-/** Extreme-value / Monte Carlo model over the reference, both resistors and the adjust current. */
+/** Spreads of one divider design: relative half-widths, each a box the parts stay inside. */
+export interface DividerSpread {
+  /** Initial reference accuracy at 25 °C. */
+  vRefTolerance: number;
+  /** Reference drift over the temperature swing (ppm/K × K). */
+  vRefDrift: number;
+  /** Resistor tolerance plus TCR over the temperature swing. */
+  resistor: number;
+  iAdjMin: number;
+  iAdjMax: number;
+  iAdjTyp: number;
+  /** Further multiplicative spreads of the output (line and load regulation), nominal 1. */
+  extra: readonly ToleranceParam[];
+}
+
+/** Extreme-value / Monte Carlo model: Vout = (Vref·drift·(1 + R2/R1) + Iadj·R2) · Π extra. */
+export function dividerOutputModel(vRef: number, divider: Divider, spread: DividerSpread): ToleranceModel {
+  const { r1, r2 } = divider;
+  const params: ToleranceParam[] = [
+    relativeParam('Vref', vRef, spread.vRefTolerance),
+    relativeParam('Vref drift', 1, spread.vRefDrift),
+    relativeParam('R1', r1, spread.resistor),
+    relativeParam('R2', r2, spread.resistor),
+    { name: 'Iadj', nominal: spread.iAdjTyp, lo: spread.iAdjMin, hi: spread.iAdjMax },
+    ...spread.extra,
+  ];
+  const n = params.length;
+  return {
+    params,
+    f: (x: Float64Array) => {
+      let v = x[0]! * x[1]! * (1 + x[3]! / x[2]!) + x[4]! * x[3]!;
+      for (let j = 5; j < n; j += 1) v *= x[j]!;
+      return v;
+    },
+    batch: (c, out) => {
+      const [vr, dr, a, b, ia] = c as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * dr[i]! * (1 + b[i]! / a[i]!) + ia[i]! * b[i]!;
+      for (let j = 5; j < n; j += 1) {
+        const col = c[j]!;
+        for (let i = 0; i < out.length; i += 1) out[i]! *= col[i]!;
+      }
+    },
+  };
+}
+
+/** The reference, both resistors and the adjust current, without drift or regulation terms. */
 export function dividerModel(
   vRef: number,
   vRefTolerance: number,
@@ -47,18 +102,151 @@ export function dividerModel(
   iAdjMax: number,
   iAdjTyp: number,
 ): ToleranceModel {
-  const { r1, r2 } = divider;
-  return {
-    params: [
-      { name: 'Vref', nominal: vRef, lo: vRef * (1 - vRefTolerance), hi: vRef * (1 + vRefTolerance) },
-      { name: 'R1', nominal: r1, lo: r1 * (1 - resistorTolerance), hi: r1 * (1 + resistorTolerance) },
-      { name: 'R2', nominal: r2, lo: r2 * (1 - resistorTolerance), hi: r2 * (1 + resistorTolerance) },
-      { name: 'Iadj', nominal: iAdjTyp, lo: iAdjMin, hi: iAdjMax },
-    ],
-    f: (x: Float64Array) => x[0]! * (1 + x[2]! / x[1]!) + x[3]! * x[2]!,
-    batch: (c, out) => {
-      const [vr, a, b, ia] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
-      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * (1 + b[i]! / a[i]!) + ia[i]! * b[i]!;
-    },
+  return dividerOutputModel(vRef, divider, { vRefTolerance, vRefDrift: 0, resistor: resistorTolerance, iAdjMin, iAdjMax, iAdjTyp, extra: [] });
+}
+
+/**
+ * The pair (R1, R2) from one series whose nominal output lies closest to the target, with the
+ * divider current between iMin and iMax (ties go to the larger R1, the smaller current). Both
+ * resistors are searched: snapping R2 alone leaves up to half a series step of error.
+ */
+export function bestPair(
+  vTarget: number,
+  vRef: number,
+  iAdj: number,
+  iMin: number,
+  iMax: number,
+  series: SeriesName,
+  r1Forced?: number,
+  r2Forced?: number,
+): Divider {
+  const hiR1 = vRef / atLeast(iMin, 1e-12);
+  const r1s = r1Forced !== undefined ? [r1Forced] : seriesRange(series, vRef / atLeast(Math.max(iMax, iMin), 1e-12), hiR1);
+  if (r1s.length === 0) r1s.push(snap(atLeast(hiR1, 1e-3), series, 'down'));
+  let best: Divider | null = null;
+  let bestErr = Number.POSITIVE_INFINITY;
+  for (const r1 of r1s) {
+    const r2Ideal = atLeast((vTarget - vRef) / (vRef / r1 + iAdj), 1e-3);
+    const r2s = r2Forced !== undefined ? [r2Forced] : [snap(r2Ideal, series, 'down'), snap(r2Ideal, series, 'up')];
+    for (const r2 of r2s) {
+      const vOut = dividerVout(vRef, r1, r2, iAdj);
+      const err = Math.abs(vOut - vTarget);
+      // Relative slack keeps the choice stable against rounding between equal errors.
+      if (err < bestErr * (1 - 1e-9) || (err <= bestErr * (1 + 1e-9) && best !== null && r1 > best.r1)) {
+        best = { r1, r2, vOut, iDivider: vRef / r1 };
+        bestErr = err;
+      }
+    }
+  }
+  return best!;
+}
+
+export interface ReferenceGrade {
+  tolerance: number;
+  extraCents: number;
+}
+
+export interface DividerSearchInput {
+  vTarget: number;
+  vRef: number;
+  /** Reference selections, the standard one first (extraCents 0). */
+  refGrades: readonly ReferenceGrade[];
+  vRefDriftPpmK: number;
+  /** Current out of the adjust or feedback pin into R2 (negative for a bias current into the pin). */
+  iAdjTyp: number;
+  iAdjMin: number;
+  iAdjMax: number;
+  /** Divider current range through R1. */
+  iDividerMin: number;
+  iDividerMax: number;
+  band: { lo: number; hi: number };
+  rule: ToleranceRule;
+  /** Largest departure from 25 °C (see temperatureSwingK). */
+  tempSwingK: number;
+  /** Line and load regulation as multiplicative spreads, nominal 1. */
+  extra?: readonly ToleranceParam[];
+  /** Resistor grades from the catalog; the search keeps the cheapest that meets the band. */
+  grades: readonly ResistorGrade[];
+  /** Half the output ripple, kept clear of the band's edges. */
+  marginV?: number;
+  /** Engineer's forced values. */
+  r1Forced?: number;
+  r2Forced?: number;
+  /** Engineer's forced series: only grades stocked in it are tried. */
+  series?: SeriesName;
+}
+
+export interface DividerDesign extends Divider {
+  grade: ResistorGrade;
+  series: SeriesName;
+  refTolerance: number;
+  /** Extra cost of this choice over the standard reference and the cheapest grade (two resistors). */
+  extraCents: number;
+  model: ToleranceModel;
+  summary: ToleranceSummary;
+  verdict: 'worst-case' | 'statistical' | 'fails';
+  /** One sentence: what was chosen and why. */
+  why: string;
+}
+
+export interface DividerSearchResult {
+  /** Cheapest choice that meets the band (worst case first at equal cost); the tightest when none does. */
+  pick: DividerDesign;
+  /** Cheapest choice that meets the band in the worst case, when the pick only meets it statistically. */
+  worstCasePick: DividerDesign | null;
+}
+
+const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
+
+/** Resistor grade × reference grade, each with its best pair; a handful of candidates, each analysed analytically. */
+export function searchDivider(input: DividerSearchInput): DividerSearchResult {
+  const grades = input.grades
+    .filter((g) => input.series === undefined || g.series === input.series || (input.series === 'E96' && g.series === 'E192'))
+    .slice()
+    .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
+  const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
+  const pairs = new Map<SeriesName, Divider>();
+  const candidates: DividerDesign[] = [];
+  for (const grade of pool) {
+    // A forced E96 request keeps E96 values even in a finer grade.
+    const series: SeriesName = input.series === 'E96' ? 'E96' : grade.series;
+    let pair = pairs.get(series);
+    if (!pair) {
+      pair = bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced);
+      pairs.set(series, pair);
+    }
+    for (const ref of input.refGrades) {
+      const spread: DividerSpread = {
+        vRefTolerance: ref.tolerance,
+        vRefDrift: input.vRefDriftPpmK * 1e-6 * input.tempSwingK,
+        resistor: grade.tolerance + grade.tcrPpmK * 1e-6 * input.tempSwingK,
+        iAdjMin: input.iAdjMin,
+        iAdjMax: input.iAdjMax,
+        iAdjTyp: input.iAdjTyp,
+        extra: input.extra ?? [],
+      };
+      const model = dividerOutputModel(input.vRef, pair, spread);
+      const summary = analyseTolerance(model);
+      const verdict = toleranceVerdict(summary, input.band, input.rule, input.marginV ?? 0);
+      const extraCents = 2 * grade.extraCents + ref.extraCents;
+      const dominant = summary.contributions[0]?.name ?? 'Vref';
+      const view = verdict === 'statistical' ? '3σ' : 'worst case';
+      const range = verdict === 'statistical' ? summary.statistical : summary.worstCase;
+      const why =
+        `${series} ${formatSi(pair.r1, 'Ω', 3)} / ${formatSi(pair.r2, 'Ω', 3)} (${grade.label}) with the ${pct(ref.tolerance)} reference: ` +
+        `${range.min.toFixed(4)}–${range.max.toFixed(4)} V ${view}` +
+        (verdict === 'fails' ? `, outside ${input.band.lo.toFixed(4)}–${input.band.hi.toFixed(4)} V` : '') +
+        `; the largest term is ${dominant}.`;
+      candidates.push({ ...pair, grade, series, refTolerance: ref.tolerance, extraCents, model, summary, verdict, why });
+    }
+  }
+  const rank = (d: DividerDesign) => (d.verdict === 'worst-case' ? 0 : 1);
+  const passing = candidates.filter((d) => d.verdict !== 'fails').sort((a, b) => a.extraCents - b.extraCents || rank(a) - rank(b));
+  const width = (d: DividerDesign) => {
+    const r = input.rule === 'statistical' ? d.summary.statistical : d.summary.worstCase;
+    return Math.max(input.band.lo - r.min, r.max - input.band.hi);
   };
+  const pick = passing[0] ?? candidates.slice().sort((a, b) => width(a) - width(b) || a.extraCents - b.extraCents)[0]!;
+  const worstCasePick = pick.verdict === 'statistical' ? (passing.find((d) => d.verdict === 'worst-case') ?? null) : null;
+  return { pick, worstCasePick };
 }
