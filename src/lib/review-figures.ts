@@ -40,7 +40,7 @@ export function keyFigures(option: Option, rippleLimitVpp: number, currency: str
   const hot = hottestPart(option);
   const f = (key: string, label: string, text: string, typical = true): Figure => ({ key, label, text, typical });
   return [
-    f('score', 'Score', option.score.toFixed(1), false),
+    f('score', 'Score', option.score === null ? 'not ranked (infeasible)' : option.score.toFixed(1), false),
     f('efficiencyNominal', 'Efficiency, nominal', percent(option.efficiency.nominal, 1)),
     f('efficiencyWorst', 'Efficiency, worst', percent(option.efficiency.worst, 1)),
     f('dissipationMaxW', 'Worst dissipation', formatSi(option.dissipation.totalMaxW, 'W')),

@@ -7,8 +7,9 @@ import { hazardousVoltage, hotSurfaces, mainsScope, storedEnergy, HOT_RESISTOR_W
 import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, ZENER_POWER_W, rateResistor, ratingFor } from './ratings.ts';
 import { subScores, weightedScore } from './scoring.ts';
 import { airflowFactor, assessThermal } from './thermal.ts';
-import { extremeValues, monteCarlo } from './tolerance.ts';
-import type { Caution, Component, Issue, Junction, Option, PartDissipation } from './types.ts';
+import { analyseTolerance, monteCarlo, toleranceVerdict } from './tolerance.ts';
+import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation } from './types.ts';
+import { formatSi } from './units.ts';
 
 const ZENER_ROLES = new Set(['zener', 'standoff-zener']);
 
@@ -39,6 +40,7 @@ function toComponent(p: DesignPart): Component {
 export function assemble(design: Design, ctx: Context, seed: number): Option {
   const { spec, catalog } = ctx;
   const issues: Issue[] = [...design.issues];
+  const fixes: Fix[] = [...(design.fixes ?? [])];
   const trace = design.trace;
   const corners = normalCorners(spec);
   const points = corners.map((c) => design.operate(c.vIn, c.iOut));
@@ -72,7 +74,8 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
         p.ratingW = r.ratingW;
         p.ratingV = r.ratingV;
         p.quantity = r.count;
-        p.costCents = resistorCents(ctx, r.ratingW) * r.count;
+        // A designer's costCents on a resistor is its grade's extra cost per part.
+        p.costCents = (resistorCents(ctx, r.ratingW) + p.costCents) * r.count;
         if (r.count > 1) {
           issues.push(caution('resistor-string', `${p.ref} is a string of ${r.count} equal resistors (${((p.value ?? 0) / r.count).toPrecision(3)} Ω each) so no single resistor exceeds its limiting voltage.`));
         }
@@ -151,15 +154,38 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
 
   // Output spread: extreme values over the tolerance box, Monte Carlo inside it, ripple on top.
   const band = { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
-  const eva = extremeValues(design.output);
+  const spread = analyseTolerance(design.output);
+  const eva = spread.worstCase;
   const half = design.rippleVpp / 2;
   const vOutRange = { min: eva.min - half, max: eva.max + half };
   trace.add('vout.min', 'Lowest output (extreme values, less half the ripple)', 'Vmin = min over tolerance corners − ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
   trace.add('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
   const draws = spec.overrides.mcDraws ?? 10_000;
-  const mc = monteCarlo(design.output, draws, seed, band, eva);
-  if (vOutRange.min < band.lo || vOutRange.max > band.hi) {
-    issues.push(blocker('tolerance', `The worst-case output ${vOutRange.min.toFixed(3)}–${vOutRange.max.toFixed(3)} V leaves the rail's ${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V.`));
+  // The ripple rides on every draw, so the draw itself must sit half the ripple inside the band.
+  const mc = monteCarlo(design.output, draws, seed, { lo: band.lo + half, hi: band.hi - half }, eva);
+  const rule = spec.overrides.toleranceRule ?? 'statistical';
+  const verdict = toleranceVerdict(spread, band, rule, half);
+  const tolerance = {
+    worstCase: vOutRange,
+    statistical: { sigma: spread.sigma, yield: mc.fractionInTolerance },
+    rule: verdict === 'worst-case' ? ('worst-case' as const) : rule,
+  };
+  const bandText = `${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V`;
+  const worstText = `${vOutRange.min.toFixed(3)}–${vOutRange.max.toFixed(3)} V`;
+  const sigmaText = `mean ${spread.mean.toFixed(3)} V ± 3σ (σ = ${formatSi(spread.sigma, 'V', 3)})`;
+  if (verdict === 'statistical') {
+    issues.push(
+      caution('tolerance-statistical', `The worst-case output ${worstText} leaves the rail's ${bandText}; the statistical spread, ${sigmaText} plus half the ripple, stays inside (Monte Carlo yield ${(mc.fractionInTolerance * 100).toFixed(2)} %). A few units in a large batch may fall outside: test each, or require the worst-case rule.`),
+    );
+  } else if (verdict === 'fails') {
+    issues.push(blocker('tolerance', `The worst-case output ${worstText} leaves the rail's ${bandText}.`));
+    if (rule === 'worst-case' && toleranceVerdict(spread, band, 'statistical', half) === 'statistical') {
+      fixes.push({
+        code: 'tolerance',
+        change: 'accept the statistical rule (±3σ)',
+        message: `The statistical spread, ${sigmaText}, fits the rail's ${bandText}: with the statistical rule the option is feasible with a caution.`,
+      });
+    }
   }
   if (design.rippleVpp > spec.noise.maxRippleVpp) {
     issues.push(blocker('ripple', `The output ripple ${(design.rippleVpp * 1e3).toFixed(2)} mV exceeds the rail's ${(spec.noise.maxRippleVpp * 1e3).toFixed(2)} mV limit.`));
@@ -213,13 +239,15 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     costCents,
   });
 
+  const feasible = !issues.some((i) => i.severity === 'blocker');
   return {
     topology: design.topology,
     label: design.label,
-    feasible: !issues.some((i) => i.severity === 'blocker'),
-    score: weightedScore(sub, spec.weights),
+    feasible,
+    score: feasible ? weightedScore(sub, spec.weights) : null,
     subScores: sub,
     issues,
+    fixes,
     efficiency: { nominal: effNominal, worst: effWorst },
     dissipation: { totalMaxW, parts: dissipation },
     heatsink: { required: heatsinkRequired, maxThetaSaCW: maxThetaSa },
@@ -228,6 +256,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     costCents,
     outputRippleVpp: design.rippleVpp,
     vOutRange,
+    tolerance,
     monteCarlo: mc,
     components: components.map(toComponent),
     curves: { vIn: vIns, efficiency, dissipationW },

@@ -1,6 +1,6 @@
 // What every topology designer hands to the common assembly step (corners, ratings, thermal,
 // tolerance, cautions, scoring): the parts, an operating-point model and an output model.
-import type { Component, ComponentRole, Issue, Quantity, TopologyId } from './types.ts';
+import type { Component, ComponentRole, Fix, Issue, Quantity, TopologyId } from './types.ts';
 import type { ThermalPart } from './thermal.ts';
 import type { ToleranceModel } from './tolerance.ts';
 import type { Trace } from './trace.ts';
@@ -24,6 +24,8 @@ export interface DesignPart extends Component {
   thermal: (ThermalPart & { protectedInFault: boolean }) | null;
 }
 
+export type { Fix };
+
 export interface Design {
   topology: TopologyId;
   label: string;
@@ -37,6 +39,8 @@ export interface Design {
   rippleVpp: number;
   /** Typical device parameters the figures rest on (editable assumptions; used by the SPICE export). */
   assumptions: Record<string, Quantity>;
+  /** For each remaining blocker that a known change clears. */
+  fixes?: Fix[];
 }
 
 /** Hands out reference designators R1, R2, C1… in order, so composed designs never clash. */
@@ -80,14 +84,16 @@ export function makePart(init: PartInit): DesignPart {
   };
 }
 
-export function resistorPart(ref: string, role: ComponentRole, ohms: number, tolerance: number, series: string): DesignPart {
+/** gradeCents: a precision grade's extra cost per resistor, added to the power rating's price. */
+export function resistorPart(ref: string, role: ComponentRole, ohms: number, tolerance: number, series: string, gradeCents = 0): DesignPart {
   return makePart({
     ref,
     role,
-    part: `Resistor, ${series}, ${tolerance * 100} %`,
+    part: `Resistor, ${series}, ${Number((tolerance * 100).toPrecision(3))} %`,
     value: ohms,
     unit: 'Ω',
     tolerance,
+    costCents: gradeCents,
     rateAsResistor: true,
   });
 }

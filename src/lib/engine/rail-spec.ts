@@ -44,6 +44,9 @@ const outputSchema = z.strictObject({
   iMin: nonNegative('The lowest load current', 1000),
   iTyp: nonNegative('The typical load current', 1000),
   iMax: positive('The highest load current', 1000),
+  /** Load step the rail must ride through, A, and the output deviation it may cause, V. */
+  loadStep: z.optional(positive('The load step', 1000)),
+  maxStepDeviation: z.optional(positive('The allowed step deviation', 100)),
 });
 
 const noiseSchema = z.pipe(
@@ -54,11 +57,23 @@ const noiseSchema = z.pipe(
   z.transform((n) => ({ class: n.class, maxRippleVpp: n.maxRippleVpp ?? noiseClassDefaults[n.class] })),
 );
 
+/** The box the supply sits in: its inside air warms with everything dissipated in it. */
+const enclosureSchema = z.strictObject({
+  /** Outer surface that sheds heat to the room, cm² (the sides, top and front; not a face on a wall). */
+  surfaceCm2: positive('The enclosure surface', 1e6),
+  material: z._default(z.enum(['metal', 'plastic'], { error: 'The enclosure material must be metal or plastic.' }), 'metal'),
+  /** Other dissipation inside the same box (the load, other boards), W. */
+  otherW: z._default(nonNegative('The other dissipation in the enclosure', 1e4), 0),
+  /** Air a fan moves through the box, m³/h (with forced air). */
+  fanFlowM3h: z.optional(positive('The fan flow', 1e5)),
+});
+
 const thermalSchema = z.strictObject({
   ambientMaxC: ambient('The highest ambient temperature'),
   airflow: z.enum(['enclosed', 'still-air', 'forced-air'], {
     error: 'The airflow must be enclosed, still-air or forced-air.',
   }),
+  enclosure: z.optional(enclosureSchema),
 });
 
 const weight = (label: string, fallback: number) => z._default(nonNegative(label, 100), fallback);
@@ -85,6 +100,8 @@ const overridesSchema = z.strictObject({
   heatsinkThetaSaCW: z.optional(positive('The heatsink thermal resistance', 100)),
   ambientC: z.optional(ambient('The ambient temperature')),
   standoffV: z.optional(positive('The standoff voltage', 200)),
+  /** statistical: the ±3σ output may decide feasibility (with a caution); worst-case: only the extreme values may. */
+  toleranceRule: z.optional(z.enum(['statistical', 'worst-case'], { error: 'The tolerance rule must be statistical or worst-case.' })),
   parts: z.optional(
     z.record(z.string().check(z.regex(/^[A-Z]{1,3}[0-9]{1,3}$/, 'A part reference looks like R1 or HS1.')), positive('A forced part value', 1e12)),
   ),

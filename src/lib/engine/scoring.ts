@@ -46,9 +46,15 @@ export function weightedScore(sub: SubScores, weights: RailSpec['weights']): num
   return Math.round((sum / total) * 10) / 10;
 }
 
-/** Feasible before infeasible, then higher score, then the fixed topology order. */
+const blockers = (o: Option) => o.issues.filter((i) => i.severity === 'blocker').length;
+
+/**
+ * Feasible options by score, then every infeasible one (fewest blockers first); ties go to the
+ * simpler topology (the fixed order runs from simplest to most complex).
+ */
 export function compareOptions(a: Option, b: Option): number {
   if (a.feasible !== b.feasible) return a.feasible ? -1 : 1;
-  if (a.score !== b.score) return b.score - a.score;
+  if (a.score !== null && b.score !== null && a.score !== b.score) return b.score - a.score;
+  if (!a.feasible && blockers(a) !== blockers(b)) return blockers(a) - blockers(b);
   return topologyIds.indexOf(a.topology) - topologyIds.indexOf(b.topology);
 }

@@ -110,13 +110,33 @@ export interface Caution {
   message: string;
 }
 
+/** What would clear a blocker, and what it costs where that is known. */
+export interface Fix {
+  code: string;
+  change: string;
+  costCents?: number;
+  message: string;
+}
+
+/** Both views of the output spread, and which one decided feasibility. */
+export interface ToleranceView {
+  /** Extreme values over the parts' tolerance bands, with half the ripple on each side. */
+  worstCase: { min: number; max: number };
+  /** Root-sum-square sigma of the output, and the Monte Carlo fraction (ripple included) inside the band. */
+  statistical: { sigma: number; yield: number };
+  rule: 'worst-case' | 'statistical';
+}
+
 export interface Option {
   topology: TopologyId;
   label: string;
   feasible: boolean;
-  score: number;
+  /** Null for an infeasible option: it is not ranked against the feasible ones. */
+  score: number | null;
   subScores: SubScores;
   issues: Issue[];
+  /** For each blocker a different choice would clear: what to change and what it costs. */
+  fixes: Fix[];
   efficiency: { nominal: number; worst: number };
   dissipation: { totalMaxW: number; parts: PartDissipation[] };
   heatsink: { required: boolean; maxThetaSaCW: number | null };
@@ -125,6 +145,7 @@ export interface Option {
   costCents: number;
   outputRippleVpp: number;
   vOutRange: { min: number; max: number };
+  tolerance: ToleranceView;
   monteCarlo: MonteCarloResult;
   components: Component[];
   curves: Curves;
