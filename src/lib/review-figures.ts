@@ -2,7 +2,7 @@
  * The key figures of a designed option, read the same way by the option cards,
  * the revision comparison and the calculation sheet (browser-safe, pure).
  */
-import type { Component, Option } from './engine/types';
+import type { Component, Fix, Option } from './engine/types';
 import { formatSi } from './engine/units';
 import { formatMoney } from './format';
 import { percent } from './option-words';
@@ -30,6 +30,19 @@ export function heatsinkText(option: Pick<Option, 'heatsink'>): string {
   return `θSA ≤ ${formatSi(theta, 'K/W')}`;
 }
 
+/** Whether the output band is met, and by which view of the spread. */
+export function toleranceText(option: Pick<Option, 'issues' | 'tolerance'>): string {
+  if (option.issues.some((i) => i.severity === 'blocker' && i.code === 'tolerance')) return 'not met';
+  return option.tolerance.rule === 'worst-case' ? 'met in the worst case' : 'met statistically (±3σ) only';
+}
+
+/** A fix as one sentence: the change, and its cost where the engine knows it. */
+export function fixText(fix: Fix, currency: string): string {
+  if (fix.costCents === undefined) return fix.message;
+  const sign = fix.costCents < 0 ? '−' : '+';
+  return `${fix.message} (${sign}${formatMoney(Math.abs(fix.costCents), currency)})`;
+}
+
 export function componentValue(c: Pick<Component, 'value' | 'unit' | 'quantity'>): string {
   if (c.value === null || c.unit === null) return '—';
   const each = c.quantity > 1 ? ` (${c.quantity} × ${formatSi(c.value / c.quantity, c.unit)})` : '';
@@ -55,6 +68,7 @@ export function keyFigures(option: Option, rippleLimitVpp: number, currency: str
     f('vOutMin', 'Output, lowest', formatSi(option.vOutRange.min, 'V', 4)),
     f('vOutMax', 'Output, highest', formatSi(option.vOutRange.max, 'V', 4)),
     f('inTolerance', 'Monte Carlo within tolerance', percent(option.monteCarlo.fractionInTolerance, 1)),
+    f('toleranceRule', 'Tolerance', toleranceText(option), false),
     f('costCents', 'Parts cost', formatMoney(option.costCents, currency)),
   ];
 }

@@ -1,6 +1,6 @@
 import type { Option, Severity } from '~/lib/engine/types';
 import { feasibilityOf, headlineReason, TOPOLOGY_NAMES } from '~/lib/option-words';
-import { keyFigures } from '~/lib/review-figures';
+import { fixText, keyFigures } from '~/lib/review-figures';
 import { TYPICAL_NOTE } from '~/lib/review-words';
 import { FEASIBILITY_LOOK } from '~/lib/states';
 import { StateBadge } from '../react/StateBadge';
@@ -38,6 +38,16 @@ export function OptionCard({ option, rank, rippleLimitVpp, currency, chosen, onC
       </div>
       <p className="mt-0.5 text-xs text-ink-faint">{option.label}</p>
       {reason && <p className="mt-2 text-sm text-ink">{reason}</p>}
+      {option.fixes.length > 0 && (
+        <div className="mt-2 rounded-md bg-idle-50 px-3 py-2 text-sm" data-fixes>
+          <p className="font-semibold">What would make it buildable</p>
+          <ul className="mt-1 flex list-disc flex-col gap-0.5 pl-5">
+            {option.fixes.map((fix, k) => (
+              <li key={`${fix.code}-${k}`}>{fixText(fix, currency)}</li>
+            ))}
+          </ul>
+        </div>
+      )}
       <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1.5 text-sm">
         {keyFigures(option, rippleLimitVpp, currency)
           .filter((f) => f.key !== 'vOutMin' && f.key !== 'vOutMax')
