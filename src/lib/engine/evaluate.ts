@@ -12,7 +12,7 @@ import { designLinearPredrop } from './topologies/linear-predrop.ts';
 import { designBuck } from './topologies/buck.ts';
 import { designBoost } from './topologies/boost.ts';
 import { designBuckBoost } from './topologies/buck-boost.ts';
-import { designBuckLinear } from './topologies/buck-linear.ts';
+import { designSwitcherLinear } from './topologies/switcher-linear.ts';
 
 export const DEFAULT_SEED = 0x5eed2026;
 
@@ -23,7 +23,7 @@ const designers: Record<TopologyId, (ctx: Context) => Design> = {
   buck: designBuck,
   boost: designBoost,
   'buck-boost': designBuckBoost,
-  'buck+linear': designBuckLinear,
+  'buck+linear': designSwitcherLinear,
 };
 
 /** Each topology gets its own stream so its Monte Carlo does not depend on which others ran. */

@@ -55,7 +55,7 @@ describe('catalog as data', () => {
     broken.linearRegulators[0]!.dropoutV = Number.NaN;
     expect(catalogSchema.safeParse(broken).success).toBe(false);
     const negative = structuredClone(defaultCatalog);
-    negative.capacitors[0]!.esrOhm = -1;
+    negative.capacitors[0]!.cases[0]!.esrOhm = -1;
     expect(catalogSchema.safeParse(negative).success).toBe(false);
   });
 });

@@ -1,40 +1,67 @@
-// Step-up converter (synchronous or with an output diode).
+// Step-up converter (synchronous or with an output diode). The class and switching frequency are
+// searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { chooseCapacitor } from '../capacitors.ts';
-import { Refs, blocker, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { Refs, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { chooseInductor, coreLossW, inductorDcr, snapInductance } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
+import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
+import { inputCautions } from './switcher-input.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
-  chooseInductor,
-  chooseOutputCapacitor,
-  chooseSwitcher,
-  feedbackModel,
+  capacitorFindings,
+  classVoltageFindings,
+  dutyWindow,
+  finding,
+  hotStage,
+  inputBank,
+  onTimeFinding,
+  outputBank,
+  peakFinding,
   postFilter,
+  postFilterDcr,
+  railBand,
+  rippleReference,
+  stageRefs,
+  thermalFinding,
+  stageRippleLimit,
+  stepCapacitance,
   switcherFeedback,
-  switchingFrequency,
+  traceRds,
+  searchClasses,
+  sizingIssues,
+  traceStep,
+  type SizingBase,
+  type StageRefs,
 } from './switcher.ts';
 
 export interface BoostPoint {
+  mode: ConductionMode;
   d: number;
+  etaPath: number;
+  /** Average inductor (input) current. */
   inductorA: number;
+  /** ΔIL in continuous conduction; the peak (valley at zero) in DCM and bursts. */
   rippleA: number;
+  peakA: number;
   switchW: number;
   rectifierW: number;
   dcrW: number;
+  coreW: number;
   pInW: number;
   pOutW: number;
 }
 
 /**
- * Continuous conduction. D = 1 − η·Vin/Vout with η the power-path efficiency (by energy balance),
+ * Continuous conduction: D = 1 − η·Vin/Vout with η the power-path efficiency of the DC current (by energy balance),
  * IL = Iout/(1 − D). While the low-side switch conducts the inductor sees the input less the drop
  * across the n = pathSwitches switches in its path and its winding: ΔIL = (Vin − IL·(n·Rds + DCR))·D/(fsw·L).
+ * Below the boundary (IL < ΔIL/2) DCM for a diode stage, bursts or forced PWM as in the buck.
  */
-export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, pathSwitches = 1): BoostPoint {
+export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, pathSwitches = 1, coreLoss?: (rippleA: number) => number): BoostPoint {
   const sync = stage.rectification === 'sync';
   const pOut = vOut * iOut;
   let eta = 1;
@@ -52,18 +79,94 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
     sw = irms2 * stage.rdsOnOhm * (d + (pathSwitches - 1));
     rect = sync ? irms2 * stage.rdsOnOhm * (1 - d) : stage.diodeVfV * iOut;
     dcr = irms2 * dcrOhm;
-    eta = pOut > 0 ? pOut / (pOut + sw + rect + dcr) : 1;
+    // Only the DC current's drop costs volt-seconds; the ripple's RMS heats without shifting D.
+    const dcDrop = il * il * (stage.rdsOnOhm * (d + (pathSwitches - 1) + (sync ? 1 - d : 0)) + dcrOhm) + (sync ? 0 : stage.diodeVfV * iOut);
+    eta = pOut > 0 ? pOut / (pOut + dcDrop) : 1;
   }
-  const switching = 0.5 * vOut * il * (stage.riseS + stage.fallS) * fsw;
-  const gate = stage.qgC * stage.vDriveV * fsw * (sync ? 2 : 1);
-  const switchW = sw + (sync ? rect : 0) + switching + gate + stage.iqA * vIn;
+  const mode = conductionMode(stage, il, ripple / 2);
+  const share = burstShare(stage, il, ripple / 2);
+  let peak = il + ripple / 2;
+  if (mode === 'dcm' && vOut > vIn) {
+    d = boostDcmDuty(vIn, vOut, iOut, fsw, henries);
+    peak = (vIn * d) / (fsw * henries);
+    const d2 = Math.min(1 - d, (peak * henries * fsw) / (vOut - vIn));
+    const i2 = (peak * peak) / 3;
+    il = (peak * (d + d2)) / 2;
+    sw = i2 * stage.rdsOnOhm * (d + (pathSwitches - 1) * (d + d2));
+    rect = stage.diodeVfV * iOut;
+    dcr = i2 * (d + d2) * dcrOhm;
+    ripple = peak;
+    eta = pOut > 0 ? pOut / (pOut + sw + rect + dcr) : 1;
+  } else if (mode === 'burst') {
+    // Packets of ordinary cycles: the circulating ripple current flows only while switching.
+    const irms2 = il * il + (share * ripple * ripple) / 12;
+    sw = irms2 * stage.rdsOnOhm * (d + (pathSwitches - 1));
+    rect = sync ? irms2 * stage.rdsOnOhm * (1 - d) : rect;
+    dcr = irms2 * dcrOhm;
+  }
+  const cycle = cycleLosses(stage, vOut, mode === 'dcm' ? peak / 2 : il, fsw, sync ? 2 : 1);
+  const coreW = (coreLoss?.(ripple) ?? 0) * share;
+  const switchW = sw + (sync ? rect : 0) + share * sumCycle(cycle) + stage.iqA * vIn;
   const rectifierW = sync ? 0 : rect;
-  return { d, inductorA: il, rippleA: ripple, switchW, rectifierW, dcrW: dcr, pInW: pOut + switchW + rectifierW + dcr, pOutW: pOut };
+  return { mode, d, etaPath: eta, inductorA: il, rippleA: ripple, peakA: peak, switchW, rectifierW, dcrW: dcr, coreW, pInW: pOut + switchW + rectifierW + dcr + coreW, pOutW: pOut };
 }
 
-/** Boost output ripple: Iout·D/(fsw·Cout) + Ipk·ESR. */
+/** Boost output ripple: Iout·D/(fsw·Cout) + Ipk·ESR (Cout the capacitance left at the working bias). */
 export function boostRipple(iOut: number, d: number, peakA: number, fsw: number, capF: number, esrOhm: number): number {
   return (iOut * d) / (fsw * capF) + peakA * esrOhm;
+}
+
+interface BoostSizing extends SizingBase {
+  low: BoostPoint;
+  point(vIn: number, iOut: number): BoostPoint;
+}
+
+function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, vOut: number): BoostSizing {
+  const { catalog, spec } = ctx;
+  const { vMax } = spec.input;
+  const { iMax } = spec.output;
+  const vLow = ctx.vInTrough;
+  const dLow = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
+  const ilMax = iMax / (1 - dLow);
+  const lWanted = Math.max(1e-9, (vLow * dLow) / (fsw * RIPPLE_RATIO * rippleReference(base, ilMax)));
+  const forcedL = forced(ctx, r.l);
+  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
+  const cold = boostPoint(base, vLow, vOut, iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
+  const { stage, tjC } = hotStage(ctx, base, cold.switchW);
+  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, cold.peakA, base.iSwitchMaxA, forcedL);
+  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
+  const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, core);
+  const low = point(vLow, iMax);
+  const high = point(vMax, iMax);
+
+  const switchNodeV = vOut * (1 + spec.output.tolerance) + stage.diodeVfV;
+  const findings = classVoltageFindings(stage, vMax, vLow, vOut, switchNodeV, stage.vOutMaxV);
+  if (vMax >= vOut) findings.push(finding('step-up-only', `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`, 'a buck-boost stage, or an input that stays below the output'));
+  const peak = peakFinding(stage, low.peakA);
+  if (peak) findings.push(peak);
+  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
+  if (hot) findings.push(hot);
+  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  const window = dutyWindow(stage, fsw);
+  if (low.d > window.dMax) {
+    const need = (vOut * (1 - window.dMax)) / low.etaPath;
+    findings.push(finding('duty', `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz.`, `input ≥ ${need.toFixed(2)} V`));
+  }
+  if (vMax < vOut && (high.mode === 'ccm' || stage.lightLoad === 'forced-pwm')) {
+    const onTime = onTimeFinding(stage, fsw, high.d, `At ${vMax} V in`);
+    if (onTime) findings.push(onTime);
+  }
+  const budget = RIPPLE_BUDGET * stageRippleLimit(ctx, spec.noise.maxRippleVpp, true, vOut);
+  const cNeed = Math.max((iMax * low.d) / (fsw * (budget / 2)), stepCapacitance(ctx, fsw));
+  // Output capacitor RMS: Iout·√(D/(1 − D)) (common practice for the boost's pulsed output current).
+  const cout = outputBank(ctx, r.cout, cNeed, vOut, iMax * Math.sqrt(low.d / Math.max(1e-3, 1 - low.d)), budget / (2 * Math.max(low.peakA, 1e-9)));
+  // The boost draws a continuous input current: the input capacitor carries only ΔIL (RMS ΔIL/√12).
+  const cin = inputBank(ctx, r.cin, vMax, vLow, low.rippleA / 8, low.rippleA / Math.sqrt(12), fsw);
+  findings.push(...capacitorFindings(cout, cin));
+  const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
+  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
+  const nominal = point(Math.min(spec.input.vNom, vOut), spec.output.iTyp);
+  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
 }
 
 export function designBoost(ctx: Context): Design {
@@ -72,49 +175,52 @@ export function designBoost(ctx: Context): Design {
   const refs = new Refs();
   const { vMax } = spec.input;
   const { iMax } = spec.output;
-  const { stage, issues } = chooseSwitcher(ctx, 'boost', spec.output.v);
-  const fsw = switchingFrequency(ctx, stage, issues);
+  const r = stageRefs(refs);
+  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v));
+  const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
-  const uRef = refs.next('U');
-  const fb = switcherFeedback(ctx, refs, trace, stage, spec.output.v, 'boost');
+  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  const estimate = boostRipple(iMax, low.d, low.peakA, fsw, cout.effectiveF, cout.esrOhm);
+  const filtered = quiet || estimate > budget;
+  const fb = switcherFeedback(ctx, r, trace, stage, {
+    vTarget: spec.output.v, band: railBand(spec), load: spec.output, dcrAfterFb: filtered ? postFilterDcr(ctx, iMax) : 0, marginV: filtered ? 0 : estimate / 2,
+  }, 'boost');
   const vOut = fb.divider.vOut;
-  if (vMax >= vOut) {
-    issues.push(blocker('step-up-only', `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`));
-  }
+  const { issues, fixes } = sizingIssues(s);
 
   const vLow = ctx.vInTrough;
-  const dLow = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
-  const ilMax = iMax / (1 - dLow);
-  const lWanted = trace.add('boost.l', 'Inductance for the ripple ratio at the lowest input', 'L = Vin·D/(fsw·r·IL)', {
-    Vin: [vLow, 'V'], D: [dLow, ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], IL: [ilMax, 'A'],
-  }, Math.max(1e-9, (vLow * dLow) / (fsw * RIPPLE_RATIO * ilMax)), 'H');
-  const lRef = refs.next('L');
-  const first = chooseInductor(lRef, catalog, lWanted, ilMax * 1.15, forced(ctx, lRef));
-  const at = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, first.chosen.henries, first.chosen.dcrOhm);
-  const low = at(vLow, iMax);
-  const peak = low.inductorA + low.rippleA / 2;
-  const { chosen: inductor, issue: lIssue } = chooseInductor(lRef, catalog, lWanted, peak, forced(ctx, lRef));
-  if (lIssue) issues.push(lIssue);
-  const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm);
-  trace.add('boost.d', 'Duty cycle at the lowest input', 'D = 1 − η·Vin/Vout', { Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, low.d, '');
-  trace.add('boost.ipk', 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [low.d, ''], ΔIL: [low.rippleA, 'A'] }, peak, 'A');
-  if (low.d > stage.dMax) issues.push(blocker('duty', `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${stage.dMax * 100} %.`));
-  if (peak > stage.iSwitchMaxA) issues.push(blocker('current', `The peak current ${peak.toFixed(2)} A exceeds the ${stage.iSwitchMaxA} A switch of ${stage.label}.`));
-
-  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
-  const esrGuess = catalog.capacitors[0]!.esrOhm;
-  const room = budget - peak * esrGuess;
-  const cout = chooseOutputCapacitor(refs.next('C'), catalog, room > 0 ? (iMax * low.d) / (fsw * room) : Number.MAX_VALUE, vOut);
-  if (cout.issue) issues.push(cout.issue);
+  traceRds(trace, 'boost.rds', s.rds25, s.tjC, stage.rdsOnOhm);
+  trace.add('boost.l', 'Inductance for the ripple ratio at the lowest input', 'L = Vin·D/(fsw·r·Iref)', {
+    Vin: [vLow, 'V'], D: [Math.min(0.99, Math.max(0, 1 - vLow / spec.output.v)), ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, iMax / (1 - Math.min(0.99, Math.max(0, 1 - vLow / spec.output.v)))), 'A'],
+  }, s.lWanted, 'H');
+  const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  const worst = point(vLow, iMax);
+  if (worst.mode === 'ccm') {
+    trace.add('boost.d', 'Duty cycle at the lowest input', 'D = 1 − η·Vin/Vout', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
+    trace.add('boost.ipk', 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
+  } else {
+    trace.add('boost.d', 'Duty cycle at the lowest input (discontinuous conduction)', 'D = √(K·M·(M − 1)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
+      Vout: [vOut, 'V'], Vin: [vLow, 'V'], L: [inductor.henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iMax, 'A'],
+    }, worst.d, '');
+    trace.add('boost.ipk', 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');
+  }
+  trace.add('boost.cout', 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+  }, cout.effectiveF, 'F');
+  trace.add('boost.cout.rms', 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
   const rippleStage = trace.add('boost.ripple', 'Converter output ripple', 'ΔV = Iout·D/(fsw·Cout) + Ipk·ESR', {
-    Iout: [iMax, 'A'], D: [low.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.farads, 'F'], Ipk: [peak, 'A'], ESR: [cout.esrOhm, 'Ω'],
-  }, boostRipple(iMax, low.d, peak, fsw, cout.farads, cout.esrOhm), 'V');
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
-  const post = quiet || rippleStage > budget ? postFilter(refs, trace, catalog, fsw, vOut, iMax, cout.farads, 'boost') : null;
+    Iout: [iMax, 'A'], D: [worst.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], Ipk: [worst.peakA, 'A'], ESR: [cout.esrOhm, 'Ω'],
+  }, boostRipple(iMax, worst.d, worst.peakA, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  const step = traceStep(ctx, trace, 'boost.step', fsw, cout);
+  if (step) {
+    issues.push(step.issue);
+    if (step.fix) fixes.push(step.fix);
+  }
+  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, iMax, cout.effectiveF, 'boost') : null;
   if (post) issues.push(...post.issues);
 
-  const cin = chooseCapacitor(refs.next('C'), 'input-capacitor', 10e-6, vMax, catalog);
-  if (cin.issue) issues.push(cin.issue);
+  const uRef = r.u;
   const dRef = sync ? '' : refs.next('D');
   const parts: DesignPart[] = [
     makePart({
@@ -144,23 +250,24 @@ export function designBoost(ctx: Context): Design {
   }
   if (post) parts.push(...post.parts);
   issues.push(caution('no-short-protection', `A boost stage connects the input to the output through ${inductor.part.ref}${sync ? '' : ` and ${dRef}`}; a shorted output is limited only by the source. Fit a fuse or an input current limit rated below ${inductor.isatA} A.`));
+  issues.push(...inputCautions(ctx, { vMax, vTrough: vLow, cin, pInW: low.pInW, ratingV: stage.vInMaxV }));
 
   const stress = (vIn: number, iOut: number, at?: BoostPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const s: Record<string, PartStress> = {
+    const st: Record<string, PartStress> = {
       [uRef]: { w: p.switchW, v: vOut },
-      [inductor.part.ref]: { w: p.dcrW, v: vOut },
+      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: vOut },
       [cin.part.ref]: { w: 0, v: vIn },
       [cout.part.ref]: { w: 0, v: vOut },
       [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
       [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
     };
-    if (!sync) s[dRef] = { w: p.rectifierW, v: vOut };
+    if (!sync) st[dRef] = { w: p.rectifierW, v: vOut };
     if (post) {
-      s[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      s[post.capRef] = { w: 0, v: vOut };
+      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
+      st[post.capRef] = { w: 0, v: vOut };
     }
-    return s;
+    return st;
   };
   // Shorted output: the inductor current is limited by the fuse the caution asks for (≈ Isat).
   const faultA = inductor.isatA;
@@ -169,25 +276,31 @@ export function designBoost(ctx: Context): Design {
   faultStress[cout.part.ref] = { w: 0, v: 0 };
   faultStress[uRef] = { w: sync ? faultA * faultA * stage.rdsOnOhm : 0, v: vMax };
   if (!sync) faultStress[dRef] = { w: stage.diodeVfV * faultA, v: vMax };
+  const window = dutyWindow(stage, fsw);
 
   return {
     topology: 'boost',
     label: `Boost converter (${sync ? 'synchronous' : 'output diode'})${post ? ' with post-filter' : ''}`,
     parts,
     issues,
+    fixes,
     trace,
     operate: (vIn, iOut): OperatingPoint => {
       const p = point(vIn, iOut);
-      return { regulates: vIn < vOut && p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+      return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
     },
     fault: { regulates: false, pInW: vMax * faultA, pOutW: 0, stress: faultStress },
-    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, spec.output.iMin, spec.output.iTyp, iMax),
+    output: fb.output,
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
     assumptions: {
       [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },
       [`${uRef}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
+      [`${uRef}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
+      [`${uRef}.iLimit`]: { value: stage.iSwitchMaxA, unit: 'A' },
       [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
+      [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
       [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
+      [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
     },
   };
 }

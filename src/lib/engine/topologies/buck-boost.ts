@@ -1,110 +1,276 @@
-// Four-switch buck-boost: steps down when the input is above the output and up when below, so it
-// regulates an input range that straddles the output.
+// Four-switch buck-boost: steps down when the input is well above the output, up when below, and
+// switches both legs in between, so it regulates an input range that straddles the output.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { chooseCapacitor } from '../capacitors.ts';
-import { Refs, blocker, makePart, type Design, type OperatingPoint, type PartStress } from '../design.ts';
+import type { ChosenCapacitor } from '../capacitors.ts';
+import { Refs, type Fix, info, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
+import { cycleLosses, sumCycle } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
+import type { Issue, Quantity } from '../types.ts';
+import type { ToleranceModel } from '../tolerance.ts';
 import { boostPoint, boostRipple } from './boost.ts';
 import { buckPoint, buckRipple } from './buck.ts';
+import { inputCautions } from './switcher-input.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
-  chooseInductor,
-  chooseOutputCapacitor,
-  chooseSwitcher,
-  feedbackModel,
+  capacitorFindings,
+  classVoltageFindings,
+  dutyWindow,
+  finding,
+  hotStage,
+  inputBank,
+  onTimeFinding,
+  outputBank,
+  peakFinding,
   postFilter,
+  postFilterDcr,
+  railBand,
+  rippleReference,
+  stageRefs,
+  thermalFinding,
+  stageRippleLimit,
+  stepCapacitance,
   switcherFeedback,
-  switchingFrequency,
+  traceRds,
+  searchClasses,
+  sizingIssues,
+  traceStep,
+  type PostFilter,
+  type SizingBase,
+  type StageRefs,
 } from './switcher.ts';
 
+export type BuckBoostRegion = 'buck' | 'transition' | 'boost';
+
 export interface BuckBoostPoint {
+  region: BuckBoostRegion;
+  /** Duty of the leg that switches (the boost leg in the transition region). */
   d: number;
+  dBuck: number;
+  dBoost: number;
   /** Average inductor current. */
   il: number;
   rippleA: number;
+  peakA: number;
   switchW: number;
   dcrW: number;
+  coreW: number;
   pInW: number;
   pOutW: number;
-  /** True when the boost leg switches (input at or below the output). */
+  /** True when the boost leg switches (transition or boost region). */
   boost: boolean;
 }
 
 /**
- * Above the output the buck leg switches while the boost leg's top switch stays on; at or below
- * it the boost leg switches while the buck leg's top switch stays on: two switches always carry
- * the inductor current.
+ * Above the output the buck leg switches while the boost leg's top switch stays on; below it the
+ * boost leg switches while the buck leg's top switch stays on: two switches always carry the
+ * inductor current. Where the buck duty would pass the class's limit, or the boost duty fall
+ * below its minimum on-time, both legs switch (transition region): the buck leg at its limit D1,
+ * the boost leg at D2 = 1 − η·Vin·D1/Vout, so Vout = Vin·D1/(1 − D2); the inductor sees
+ * Vin − drop for D2·Ts, then Vin − Vout − drop until D1·Ts, then −Vout − drop.
  */
-export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number): BuckBoostPoint {
+export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, coreLoss?: (rippleA: number) => number): BuckBoostPoint {
+  const window = dutyWindow(stage, fsw);
   if (vIn > vOut) {
-    const p = buckPoint({ ...stage, rdsOnOhm: 2 * stage.rdsOnOhm }, vIn, vOut, iOut, fsw, henries, dcrOhm);
-    return { d: p.d, il: iOut, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: false };
+    const p = buckPoint({ ...stage, rdsOnOhm: 2 * stage.rdsOnOhm }, vIn, vOut, iOut, fsw, henries, dcrOhm, coreLoss);
+    if (p.d <= window.dMax) {
+      return { region: 'buck', d: p.d, dBuck: p.d, dBoost: 0, il: iOut, rippleA: p.rippleA, peakA: p.peakA, switchW: p.switchW, dcrW: p.dcrW, coreW: p.coreW, pInW: p.pInW, pOutW: p.pOutW, boost: false };
+    }
+  } else {
+    const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcrOhm, 2, coreLoss);
+    if (p.d >= window.dMin || p.mode !== 'ccm') {
+      return { region: 'boost', d: p.d, dBuck: 1, dBoost: p.d, il: p.inductorA, rippleA: p.rippleA, peakA: p.peakA, switchW: p.switchW, dcrW: p.dcrW, coreW: p.coreW, pInW: p.pInW, pOutW: p.pOutW, boost: true };
+    }
   }
-  const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcrOhm, 2);
-  return { d: p.d, il: p.inductorA, rippleA: p.rippleA, switchW: p.switchW, dcrW: p.dcrW, pInW: p.pInW, pOutW: p.pOutW, boost: true };
+  const pOut = vOut * iOut;
+  const d1 = Math.min(window.dMax, vOut / vIn);
+  let eta = 1;
+  let d2 = 0;
+  let il = iOut;
+  let peak = iOut;
+  let ripple = 0;
+  let conduction = 0;
+  let dcr = 0;
+  for (let k = 0; k < 8; k += 1) {
+    d2 = Math.min(0.99, Math.max(0, 1 - (eta * vIn * d1) / vOut));
+    // Inductor voltage over the three intervals, less the drop of the two conducting switches and
+    // the winding: u1, u2 are the current's rise after the first and second interval.
+    const drop = il * (2 * stage.rdsOnOhm + dcrOhm);
+    const u1 = ((vIn - drop) * d2) / (fsw * henries);
+    const u2 = u1 + ((vIn - vOut - drop) * (d1 - d2)) / (fsw * henries);
+    // The output takes the inductor current only after D2: its average there is Iout (charge
+    // balance), which fixes the starting current i0; the period average follows.
+    const i0 = (iOut - ((u1 + u2) * (d1 - d2) + u2 * (1 - d1)) / 2) / (1 - d2);
+    il = i0 + (u1 * d2 + (u1 + u2) * (d1 - d2) + u2 * (1 - d1)) / 2;
+    peak = i0 + Math.max(0, u1, u2);
+    ripple = Math.max(0, u1, u2) - Math.min(0, u1, u2);
+    const irms2 = il * il + (ripple * ripple) / 12;
+    conduction = irms2 * 2 * stage.rdsOnOhm;
+    dcr = irms2 * dcrOhm;
+    eta = pOut > 0 ? pOut / (pOut + il * il * (2 * stage.rdsOnOhm + dcrOhm)) : 1;
+  }
+  const cycles = sumCycle(cycleLosses(stage, vIn, il, fsw, 2)) + sumCycle(cycleLosses(stage, vOut, il, fsw, 2));
+  const coreW = coreLoss?.(ripple) ?? 0;
+  const switchW = conduction + cycles + stage.iqA * vIn;
+  return { region: 'transition', d: d2, dBuck: d1, dBoost: d2, il, rippleA: ripple, peakA: peak, switchW, dcrW: dcr, coreW, pInW: pOut + switchW + dcr + coreW, pOutW: pOut, boost: true };
 }
 
-export function designBuckBoost(ctx: Context): Design {
-  const { spec, catalog } = ctx;
-  const trace = new Trace();
-  const refs = new Refs();
-  const { vMax } = spec.input;
-  const { iMax } = spec.output;
-  const { stage, issues } = chooseSwitcher(ctx, 'buck-boost', spec.output.v);
-  const fsw = switchingFrequency(ctx, stage, issues);
-  const uRef = refs.next('U');
-  const fb = switcherFeedback(ctx, refs, trace, stage, spec.output.v, 'buckboost');
-  const vOut = fb.divider.vOut;
-  const vLow = ctx.vInTrough;
+/** Output ripple: pulsed output current in the boost and transition regions, triangular in the buck region. */
+export function buckBoostRipple(p: BuckBoostPoint, iOut: number, fsw: number, capF: number, esrOhm: number): number {
+  return p.boost ? boostRipple(iOut, p.dBoost, p.peakA, fsw, capF, esrOhm) : buckRipple(p.rippleA, fsw, capF, esrOhm);
+}
 
+interface Load {
+  iMin: number;
+  iTyp: number;
+  iMax: number;
+}
+
+interface BuckBoostSizing extends SizingBase {
+  low: BuckBoostPoint;
+  high: BuckBoostPoint;
+  point(vIn: number, iOut: number): BuckBoostPoint;
+}
+
+function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BuckBoostSizing {
+  const { catalog } = ctx;
+  const { vMax, vTrough: vLow } = input;
+  const iMax = load.iMax;
   const dBuck = Math.min(1, vOut / vMax);
-  const lBuck = (Math.max(0, vMax - vOut) * dBuck) / (fsw * RIPPLE_RATIO * iMax);
-  const dBoost = Math.max(0, 1 - vLow / vOut);
-  const ilBoost = iMax / (1 - Math.min(0.99, dBoost));
-  const lBoost = (vLow * dBoost) / (fsw * RIPPLE_RATIO * ilBoost);
-  const lWanted = trace.add('buckboost.l', 'Inductance for the ripple ratio at the worse end of the input range', 'L = max((vInMax − Vout)·D/(fsw·r·Iout), Vin,min·D/(fsw·r·IL))', {
-    vInMax: [vMax, 'V'], 'Vin,min': [vLow, 'V'], Vout: [vOut, 'V'], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''],
-  }, Math.max(lBuck, lBoost, 1e-9), 'H');
-  const lRef = refs.next('L');
-  const provisional = chooseInductor(lRef, catalog, lWanted, ilBoost * 1.15, forced(ctx, lRef)).chosen;
-  const pointWith = (henries: number, dcr: number) => (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, henries, dcr);
-  const pre = pointWith(provisional.henries, provisional.dcrOhm);
-  const peakAt = (p: BuckBoostPoint) => p.il + p.rippleA / 2;
-  const peak = Math.max(peakAt(pre(vLow, iMax)), peakAt(pre(vMax, iMax)));
-  const { chosen: inductor, issue: lIssue } = chooseInductor(lRef, catalog, lWanted, peak, forced(ctx, lRef));
-  if (lIssue) issues.push(lIssue);
-  const point = pointWith(inductor.henries, inductor.dcrOhm);
-  const lowEnd = point(vLow, iMax);
-  if (lowEnd.boost && lowEnd.d > stage.dMax) {
-    issues.push(blocker('duty', `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(lowEnd.d * 100).toFixed(0)} %; ${stage.label} reaches ${stage.dMax * 100} %.`));
-  }
-  trace.add('buckboost.ipk', 'Peak inductor current', 'Ipk = IL + ΔIL/2 (worst end of the range)', { IL: [pre(vLow, iMax).il, 'A'] }, peak, 'A');
+  const lBuck = (Math.max(0, vMax - vOut) * dBuck) / (fsw * RIPPLE_RATIO * rippleReference(base, iMax));
+  const dBoost = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
+  const ilBoost = iMax / (1 - dBoost);
+  const lBoost = (vLow * dBoost) / (fsw * RIPPLE_RATIO * rippleReference(base, ilBoost));
+  const lWanted = Math.max(lBuck, lBoost, 1e-9);
+  const forcedL = forced(ctx, r.l);
+  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
+  const coldAt = (vIn: number) => buckBoostPoint(base, vIn, vOut, iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
+  const coldLow = coldAt(vLow);
+  const coldHigh = coldAt(vMax);
+  const { stage, tjC } = hotStage(ctx, base, Math.max(coldLow.switchW, coldHigh.switchW));
+  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, Math.max(coldLow.peakA, coldHigh.peakA), base.iSwitchMaxA, forcedL);
+  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
+  const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, core);
+  const low = point(vLow, iMax);
+  const high = point(vMax, iMax);
 
-  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
-  const lowP = point(vLow, iMax);
-  const highP = point(vMax, iMax);
-  const esrGuess = catalog.capacitors[0]!.esrOhm;
-  const room = budget - peak * esrGuess;
-  const cNeed = room > 0 ? Math.max((iMax * (lowP.boost ? lowP.d : 0)) / (fsw * room), highP.rippleA / (8 * fsw * room)) : Number.MAX_VALUE;
-  const cout = chooseOutputCapacitor(refs.next('C'), catalog, cNeed, vOut);
-  if (cout.issue) issues.push(cout.issue);
-  const rippleOf = (p: BuckBoostPoint) =>
-    p.boost ? boostRipple(iMax, p.d, p.il + p.rippleA / 2, fsw, cout.farads, cout.esrOhm) : buckRipple(p.rippleA, fsw, cout.farads, cout.esrOhm);
-  const rippleStage = trace.add('buckboost.ripple', 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
-    Cout: [cout.farads, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
-  }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
+  const findings = classVoltageFindings(stage, vMax, vLow, vOut, Math.max(vMax, vOut * 1.05), stage.vOutMaxV);
+  const peak = peakFinding(stage, Math.max(low.peakA, high.peakA));
+  if (peak) findings.push(peak);
+  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
+  if (hot) findings.push(hot);
+  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  const window = dutyWindow(stage, fsw);
+  if (low.boost && low.dBoost > window.dMax) {
+    findings.push(finding('duty', `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(low.dBoost * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} %.`, `input ≥ ${((vOut * (1 - window.dMax) * low.pInW) / Math.max(low.pOutW, 1e-9)).toFixed(2)} V`));
+  }
+  if (high.region === 'buck') {
+    const onTime = onTimeFinding(stage, fsw, high.dBuck, `At ${vMax} V in`);
+    if (onTime) findings.push(onTime);
+  }
+  const budget = RIPPLE_BUDGET * rippleLimit;
+  const cNeed = Math.max(
+    low.boost ? (iMax * low.dBoost) / (fsw * (budget / 2)) : 0,
+    high.rippleA / (8 * fsw * (budget / 2)),
+    stepCapacitance(ctx, fsw),
+  );
+  const coutRms = low.boost ? iMax * Math.sqrt(low.dBoost / Math.max(1e-3, 1 - low.dBoost)) : high.rippleA / Math.sqrt(12);
+  const cout = outputBank(ctx, r.cout, cNeed, vOut, coutRms, budget / (2 * Math.max(low.peakA, high.peakA, 1e-9)));
+  const dHigh = high.dBuck;
+  const cinRms = Math.max(iMax * Math.sqrt(dHigh * (1 - dHigh)), low.rippleA / Math.sqrt(12));
+  const cin = inputBank(ctx, r.cin, vMax, vLow, iMax * dHigh * (1 - dHigh), cinRms, fsw);
+  findings.push(...capacitorFindings(cout, cin));
+  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents;
+  const nominal = point(Math.min(Math.max(ctx.spec.input.vNom, vLow), vMax), load.iTyp);
+  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, high, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
+}
+
+export interface BuckBoostStage {
+  stage: SwitcherClass;
+  fsw: number;
+  vOut: number;
+  inductor: ChosenInductor;
+  cout: ChosenCapacitor;
+  post: PostFilter | null;
+  parts: DesignPart[];
+  issues: Issue[];
+  fixes: Fix[];
+  switchRef: string;
+  rippleVpp: number;
+  output: ToleranceModel;
+  assumptions: Record<string, Quantity>;
+  point(vIn: number, iOut: number): BuckBoostPoint;
+  regulates(p: BuckBoostPoint): boolean;
+  stress(vIn: number, iOut: number, at?: BuckBoostPoint): Record<string, PartStress>;
+  faultStress(vIn: number): Record<string, PartStress>;
+}
+
+export function buckBoostStage(
+  ctx: Context,
+  refs: Refs,
+  trace: Trace,
+  input: { vTrough: number; vMax: number },
+  vTarget: number,
+  load: Load,
+  rippleLimit: number,
+  allowPostFilter: boolean,
+  idPrefix: string,
+  band: { lo: number; hi: number },
+): BuckBoostStage {
+  const { spec, catalog } = ctx;
+  const r = stageRefs(refs);
+  const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
+  const s = searchClasses(ctx, 'buck-boost', (stage, fsw) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit));
+  const { stage, fsw, inductor, cout, cin } = s;
+  const budget = RIPPLE_BUDGET * rippleLimit;
   const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
-  const post = quiet || rippleStage > budget ? postFilter(refs, trace, catalog, fsw, vOut, iMax, cout.farads, 'buckboost') : null;
+  const estimate = Math.max(buckBoostRipple(s.low, load.iMax, fsw, cout.effectiveF, cout.esrOhm), buckBoostRipple(s.high, load.iMax, fsw, cout.effectiveF, cout.esrOhm));
+  const filtered = allowPostFilter && (quiet || estimate > budget);
+  const fb = switcherFeedback(ctx, r, trace, stage, {
+    vTarget, band, load, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV: filtered ? 0 : estimate / 2,
+  }, idPrefix);
+  const vOut = fb.divider.vOut;
+  const { issues, fixes } = sizingIssues(s);
+  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
+  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the worse end of the input range', 'L = max((vInMax − Vout)·D/(fsw·r·Iref), Vin,min·D/(fsw·r·IL,ref))', {
+    vInMax: [input.vMax, 'V'], 'Vin,min': [input.vTrough, 'V'], Vout: [vTarget, 'V'], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''],
+  }, s.lWanted, 'H');
+  const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  const lowP = point(input.vTrough, load.iMax);
+  const highP = point(input.vMax, load.iMax);
+  const peak = Math.max(lowP.peakA, highP.peakA);
+  trace.add(`${idPrefix}.ipk`, 'Peak inductor current (worse end of the input range)', 'Ipk = max(IL + ΔIL/2) at Vin,min and vInMax', {
+    'IL(Vin,min)': [lowP.il, 'A'], 'ΔIL(Vin,min)': [lowP.rippleA, 'A'], 'IL(vInMax)': [highP.il, 'A'], 'ΔIL(vInMax)': [highP.rippleA, 'A'],
+  }, peak, 'A');
+  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+  }, cout.effectiveF, 'F');
+  const rippleOf = (p: BuckBoostPoint) => buckBoostRipple(p, load.iMax, fsw, cout.effectiveF, cout.esrOhm);
+  const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
+    Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
+  }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
+  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
+  if (step) {
+    issues.push(step.issue);
+    if (step.fix) fixes.push(step.fix);
+  }
+  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, load.iMax, cout.effectiveF, idPrefix) : null;
   if (post) issues.push(...post.issues);
-  const cin = chooseCapacitor(refs.next('C'), 'input-capacitor', 10e-6, vMax, catalog);
-  if (cin.issue) issues.push(cin.issue);
+  issues.push(...inputCautions(ctx, { vMax: input.vMax, vTrough: input.vTrough, cin, pInW: lowP.pInW, ratingV: stage.vInMaxV }));
+  const window = dutyWindow(stage, fsw);
+  if (spec.input.vNom > vOut) {
+    const nominal = point(spec.input.vNom, load.iTyp);
+    if (nominal.region === 'transition') {
+      issues.push(info('transition', `At ${spec.input.vNom} V in the buck duty would pass ${(window.dMax * 100).toFixed(0)} %, so both legs switch (buck leg at ${(nominal.dBuck * 100).toFixed(0)} %, boost leg at ${(nominal.dBoost * 100).toFixed(0)} %).`));
+    }
+  }
 
   const parts = [
     makePart({
-      ref: uRef,
+      ref: r.u,
       role: 'switch',
       part: stage.label,
       ratingV: stage.vInMaxV,
@@ -119,45 +285,79 @@ export function designBuckBoost(ctx: Context): Design {
   ];
   const stress = (vIn: number, iOut: number, at?: BuckBoostPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const s: Record<string, PartStress> = {
-      [uRef]: { w: p.switchW, v: Math.max(vIn, vOut) },
-      [inductor.part.ref]: { w: p.dcrW, v: Math.max(vIn, vOut) },
+    const st: Record<string, PartStress> = {
+      [r.u]: { w: p.switchW, v: Math.max(vIn, vOut) },
+      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: Math.max(vIn, vOut) },
       [cin.part.ref]: { w: 0, v: vIn },
       [cout.part.ref]: { w: 0, v: vOut },
       [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
       [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
     };
     if (post) {
-      s[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      s[post.capRef] = { w: 0, v: vOut };
+      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
+      st[post.capRef] = { w: 0, v: vOut };
     }
-    return s;
+    return st;
   };
   const lim = stage.iSwitchMaxA;
-  const faultStress = stress(vMax, 0);
-  faultStress[uRef] = { w: lim * lim * 2 * stage.rdsOnOhm, v: vMax };
-  faultStress[inductor.part.ref] = { w: lim * lim * inductor.dcrOhm, v: vMax };
-  faultStress[cout.part.ref] = { w: 0, v: 0 };
-  if (post) faultStress[post.capRef] = { w: 0, v: 0 };
-
+  const faultStress = (vIn: number): Record<string, PartStress> => {
+    const st = stress(vIn, 0);
+    st[r.u] = { w: lim * lim * 2 * stage.rdsOnOhm, v: vIn };
+    st[inductor.part.ref] = { w: lim * lim * inductor.dcrOhm, v: vIn };
+    st[cout.part.ref] = { w: 0, v: 0 };
+    if (post) st[post.capRef] = { w: 0, v: 0 };
+    return st;
+  };
   return {
-    topology: 'buck-boost',
-    label: `Four-switch buck-boost converter${post ? ' with post-filter' : ''}`,
+    stage,
+    fsw,
+    vOut,
+    inductor,
+    cout,
+    post,
     parts,
     issues,
+    fixes,
+    switchRef: r.u,
+    rippleVpp: rippleStage * (post?.attenuation ?? 1),
+    output: fb.output,
+    assumptions: {
+      [`${r.u}.fsw`]: { value: fsw, unit: 'Hz' },
+      [`${r.u}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
+      [`${r.u}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
+      [`${r.u}.iLimit`]: { value: lim, unit: 'A' },
+      [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
+      [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
+      [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
+      [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
+    },
+    point,
+    regulates: (p) => (p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax),
+    stress,
+    faultStress,
+  };
+}
+
+export function designBuckBoost(ctx: Context): Design {
+  const { spec } = ctx;
+  const trace = new Trace();
+  const refs = new Refs();
+  const b = buckBoostStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buckboost', railBand(spec));
+  const lim = b.stage.iSwitchMaxA;
+  return {
+    topology: 'buck-boost',
+    label: `Four-switch buck-boost converter${b.post ? ' with post-filter' : ''}`,
+    parts: b.parts,
+    issues: b.issues,
+    fixes: b.fixes,
     trace,
     operate: (vIn, iOut): OperatingPoint => {
-      const p = point(vIn, iOut);
-      return { regulates: !p.boost || p.d <= stage.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+      const p = b.point(vIn, iOut);
+      return { regulates: b.regulates(p), pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
     },
-    fault: { regulates: false, pInW: lim * lim * (2 * stage.rdsOnOhm + inductor.dcrOhm), pOutW: 0, stress: faultStress },
-    output: feedbackModel(stage, fb, post?.dcrOhm ?? 0, spec.output.iMin, spec.output.iTyp, iMax),
-    rippleVpp: rippleStage * (post?.attenuation ?? 1),
-    assumptions: {
-      [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },
-      [`${uRef}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
-      [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
-      [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
-    },
+    fault: { regulates: false, pInW: lim * lim * (2 * b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) },
+    output: b.output,
+    rippleVpp: b.rippleVpp,
+    assumptions: b.assumptions,
   };
 }

@@ -1,75 +1,185 @@
 // Step-down converter (synchronous or with a catch diode), optionally followed by an LC post-filter.
+// The class and switching frequency are searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { chooseCapacitor, type ChosenCapacitor } from '../capacitors.ts';
-import { Refs, blocker, info, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import type { ChosenCapacitor } from '../capacitors.ts';
+import { Refs, type Fix, info, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
+import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import type { ToleranceModel } from '../tolerance.ts';
+import { inputCautions } from './switcher-input.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
-  chooseInductor,
-  chooseOutputCapacitor,
-  chooseSwitcher,
-  feedbackModel,
+  capacitorFindings,
+  classVoltageFindings,
+  dutyWindow,
+  finding,
+  hotStage,
+  inputBank,
+  onTimeFinding,
+  outputBank,
+  peakFinding,
   postFilter,
+  postFilterDcr,
+  rippleReference,
+  railBand,
+  stageRefs,
+  thermalFinding,
+  stageRippleLimit,
+  stepCapacitance,
   switcherFeedback,
-  switchingFrequency,
-  type ChosenInductor,
+  traceRds,
+  searchClasses,
+  sizingIssues,
+  traceStep,
+  type Finding,
   type PostFilter,
+  type SizingBase,
+  type StageRefs,
 } from './switcher.ts';
 
 export interface BuckPoint {
+  mode: ConductionMode;
   d: number;
+  /** Power-path efficiency that sets D in continuous conduction (conduction losses only). */
+  etaPath: number;
+  /** Inductor ripple ΔIL in continuous conduction; the peak (valley at zero) in DCM and bursts. */
   rippleA: number;
+  peakA: number;
   switchW: number;
   diodeW: number;
   dcrW: number;
+  coreW: number;
   pInW: number;
   pOutW: number;
 }
 
 /**
- * Steady state in continuous conduction. D = Vout/(η·Vin) with η the power-path efficiency
- * (switch conduction, catch diode, inductor DCR): by energy balance those losses set the
- * volt-seconds on the inductor. Switching, gate-drive and controller losses come from the input
- * without changing D. While the high-side switch conducts the inductor sees the input less the
- * output and the conduction drop across that switch and its winding:
- * ΔIL = (Vin − Vout − Iout·(Rds + DCR))·D/(fsw·L).
+ * Steady state. In continuous conduction D = Vout/(η·Vin) with η the power-path efficiency of
+ * the DC current (switch and winding drops, catch diode): by energy balance those losses set the
+ * volt-seconds on the inductor; ΔIL = (Vin − Vout − Iout·(Rds + DCR))·D/(fsw·L). Below the
+ * boundary (Iout < ΔIL/2) a diode stage runs in DCM (Erickson & Maksimović ch. 5); a burst-mode
+ * class switches only a share Iout/(ΔIL/2) of the time, so its per-cycle losses scale with the load;
+ * a forced-PWM synchronous stage stays continuous.
+ * Switching, Coss, dead-time, gate, quiescent and core losses come from the input without
+ * changing D.
  */
-export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number): BuckPoint {
+export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, coreLoss?: (rippleA: number) => number): BuckPoint {
   const sync = stage.rectification === 'sync';
+  const switches = sync ? 2 : 1;
   const pOut = vOut * iOut;
   let eta = 1;
   let d = 0;
   let ripple = 0;
-  let hs = 0;
-  let ls = 0;
+  let conduction = 0;
   let diode = 0;
   let dcr = 0;
   for (let k = 0; k < 8; k += 1) {
     d = Math.min(1, vOut / (eta * vIn));
     ripple = (Math.max(0, vIn - vOut - iOut * (stage.rdsOnOhm + dcrOhm)) * d) / (fsw * henries);
     const irms2 = iOut * iOut + (ripple * ripple) / 12;
-    hs = irms2 * stage.rdsOnOhm * d;
-    ls = sync ? irms2 * stage.rdsOnOhm * (1 - d) : 0;
+    conduction = irms2 * stage.rdsOnOhm * (sync ? 1 : d);
     diode = sync ? 0 : stage.diodeVfV * iOut * (1 - d);
     dcr = irms2 * dcrOhm;
-    eta = pOut > 0 ? pOut / (pOut + hs + ls + diode + dcr) : 1;
+    // Only the DC current's drop costs volt-seconds; the ripple's RMS heats without shifting D.
+    const dcDrop = iOut * iOut * (stage.rdsOnOhm * (sync ? 1 : d) + dcrOhm);
+    eta = pOut > 0 ? pOut / (pOut + dcDrop + diode) : 1;
   }
-  const switching = 0.5 * vIn * iOut * (stage.riseS + stage.fallS) * fsw;
-  const gate = stage.qgC * stage.vDriveV * fsw * (sync ? 2 : 1);
-  const iq = stage.iqA * vIn;
-  const switchW = hs + ls + switching + gate + iq;
-  return { d, rippleA: ripple, switchW, diodeW: diode, dcrW: dcr, pInW: pOut + switchW + diode + dcr, pOutW: pOut };
+  const mode = conductionMode(stage, iOut, ripple / 2);
+  const share = burstShare(stage, iOut, ripple / 2);
+  let peak = iOut + ripple / 2;
+  if (mode === 'dcm' && vIn > vOut) {
+    d = buckDcmDuty(vIn, vOut, iOut, fsw, henries);
+    peak = ((vIn - vOut) * d) / (fsw * henries);
+    const d2 = Math.min(1 - d, (peak * henries * fsw) / vOut);
+    conduction = ((peak * peak) / 3) * stage.rdsOnOhm * d;
+    diode = stage.diodeVfV * iOut;
+    dcr = ((peak * peak) / 3) * (d + d2) * dcrOhm;
+    ripple = peak;
+    eta = pOut > 0 ? pOut / (pOut + conduction + diode + dcr) : 1;
+  } else if (mode === 'burst') {
+    // Packets of ordinary cycles: the circulating ripple current flows only while switching.
+    const irms2 = iOut * iOut + (share * ripple * ripple) / 12;
+    conduction = irms2 * stage.rdsOnOhm;
+    dcr = irms2 * dcrOhm;
+  }
+  const cycle = cycleLosses(stage, vIn, mode === 'dcm' ? peak / 2 : iOut, fsw, switches);
+  const coreW = (coreLoss?.(ripple) ?? 0) * share;
+  const switchW = conduction + share * sumCycle(cycle) + stage.iqA * vIn;
+  return { mode, d, etaPath: eta, rippleA: ripple, peakA: peak, switchW, diodeW: diode, dcrW: dcr, coreW, pInW: pOut + switchW + diode + dcr + coreW, pOutW: pOut };
 }
 
-/** Buck output ripple: ΔIL/(8·fsw·Cout) + ΔIL·ESR. */
+/** Buck output ripple: ΔIL/(8·fsw·Cout) + ΔIL·ESR (Cout the capacitance left at the working bias). */
 export function buckRipple(rippleA: number, fsw: number, capF: number, esrOhm: number): number {
   return rippleA / (8 * fsw * capF) + rippleA * esrOhm;
+}
+
+/** Largest D·(1 − D) over a duty range: the input capacitor's RMS factor peaks at D = 0.5. */
+function dutyStress(dA: number, dB: number): number {
+  const lo = Math.min(dA, dB);
+  const hi = Math.max(dA, dB);
+  return lo <= 0.5 && hi >= 0.5 ? 0.25 : Math.max(lo * (1 - lo), hi * (1 - hi));
+}
+
+interface Load {
+  iMin: number;
+  iTyp: number;
+  iMax: number;
+}
+
+export interface BuckSizing extends SizingBase {
+  high: BuckPoint;
+  low: BuckPoint;
+  point(vIn: number, iOut: number): BuckPoint;
+}
+
+/** Sizes one class at one frequency: inductor for the ripple, capacitors, and every limit check. */
+export function sizeBuck(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BuckSizing {
+  const { catalog } = ctx;
+  const d0 = Math.min(1, vOut / input.vMax);
+  const lWanted = (Math.max(0, input.vMax - vOut) * d0) / (fsw * RIPPLE_RATIO * rippleReference(base, load.iMax));
+  const forcedL = forced(ctx, r.l);
+  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
+  const cold = buckPoint(base, input.vMax, vOut, load.iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
+  const { stage, tjC } = hotStage(ctx, base, cold.switchW);
+  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, cold.peakA, base.iSwitchMaxA, forcedL);
+  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
+  const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, core);
+  const high = point(input.vMax, load.iMax);
+  const low = point(input.vTrough, load.iMax);
+
+  const findings: Finding[] = classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV);
+  const peak = peakFinding(stage, high.peakA);
+  if (peak) findings.push(peak);
+  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
+  if (hot) findings.push(hot);
+  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  if (high.mode === 'ccm' || stage.lightLoad === 'forced-pwm') {
+    const onTime = onTimeFinding(stage, fsw, high.d, `At ${input.vMax} V in`);
+    if (onTime) findings.push(onTime);
+  }
+  const window = dutyWindow(stage, fsw);
+  if (low.d > window.dMax || input.vTrough <= vOut) {
+    const need = vOut / (low.etaPath * window.dMax);
+    findings.push(finding('headroom', `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz (Dmax and the ${(stage.tOffMinS * 1e9).toFixed(0)} ns minimum off-time).`, `input ≥ ${need.toFixed(2)} V`));
+  }
+
+  const budget = RIPPLE_BUDGET * rippleLimit;
+  const cNeed = Math.max(high.rippleA / (8 * fsw * (budget / 2)), stepCapacitance(ctx, fsw));
+  const cout = outputBank(ctx, r.cout, cNeed, vOut, high.rippleA / Math.sqrt(12), budget / (2 * Math.max(high.rippleA, 1e-9)));
+  const stressFactor = dutyStress(low.d, high.d);
+  const cin = inputBank(ctx, r.cin, input.vMax, input.vTrough, load.iMax * stressFactor, load.iMax * Math.sqrt(stressFactor), fsw);
+  findings.push(...capacitorFindings(cout, cin));
+  const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
+  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
+  const vNominal = Math.min(Math.max(ctx.spec.input.vNom, input.vTrough), input.vMax);
+  const nominal = point(vNominal, load.iTyp);
+  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, high, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
 }
 
 export interface BuckStage {
@@ -81,6 +191,7 @@ export interface BuckStage {
   post: PostFilter | null;
   parts: DesignPart[];
   issues: Issue[];
+  fixes: Fix[];
   switchRef: string;
   rippleVpp: number;
   output: ToleranceModel;
@@ -97,63 +208,72 @@ export function buckStage(
   trace: Trace,
   input: { vTrough: number; vMax: number },
   vTarget: number,
-  load: { iMin: number; iTyp: number; iMax: number },
+  load: Load,
   rippleLimit: number,
   allowPostFilter: boolean,
   idPrefix: string,
+  band: { lo: number; hi: number },
 ): BuckStage {
   const { catalog, spec } = ctx;
-  const { stage, issues } = chooseSwitcher(ctx, 'buck', vTarget);
-  const fsw = switchingFrequency(ctx, stage, issues);
+  const r = stageRefs(refs);
+  const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
+  const s = searchClasses(ctx, 'buck', (stage, fsw) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit));
+  const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
-  const switchRef = refs.next('U');
-  const fb = switcherFeedback(ctx, refs, trace, stage, vTarget, idPrefix);
+  const budget = RIPPLE_BUDGET * rippleLimit;
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  const estimate = buckRipple(high.rippleA, fsw, cout.effectiveF, cout.esrOhm);
+  const filtered = allowPostFilter && (quiet || estimate > budget);
+  const fb = switcherFeedback(ctx, r, trace, stage, {
+    vTarget, band, load, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV: filtered ? 0 : estimate / 2,
+  }, idPrefix);
   const vOut = fb.divider.vOut;
-
-  // Inductor for the ripple ratio at the highest input, where ripple is largest.
-  const d0 = Math.min(1, vOut / input.vMax);
-  const lWanted = trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the highest input', 'L = (vInMax − Vout)·D/(fsw·r·iOutMax)', {
-    vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], D: [d0, ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], iOutMax: [load.iMax, 'A'],
-  }, (Math.max(0, input.vMax - vOut) * d0) / (fsw * RIPPLE_RATIO * load.iMax), 'H');
-  const lRef = refs.next('L');
-  const first = chooseInductor(lRef, catalog, lWanted, load.iMax * (1 + RIPPLE_RATIO / 2), forced(ctx, lRef));
-  const worstPoint = buckPoint(stage, input.vMax, vOut, load.iMax, fsw, first.chosen.henries, first.chosen.dcrOhm);
-  const peak = load.iMax + worstPoint.rippleA / 2;
-  const { chosen: inductor, issue: lIssue } = chooseInductor(lRef, catalog, lWanted, peak, forced(ctx, lRef));
-  if (lIssue) issues.push(lIssue);
-  trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = (vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
-    vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], iOutMax: [load.iMax, 'A'], Rds: [stage.rdsOnOhm, 'Ω'], DCR: [first.chosen.dcrOhm, 'Ω'], D: [worstPoint.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
-  }, worstPoint.rippleA, 'A');
-  trace.add(`${idPrefix}.ipk`, 'Peak switch and inductor current', 'Ipk = iOutMax + ΔIL/2', { iOutMax: [load.iMax, 'A'], ΔIL: [worstPoint.rippleA, 'A'] }, peak, 'A');
-  if (peak > stage.iSwitchMaxA) issues.push(blocker('current', `The peak current ${peak.toFixed(2)} A exceeds the ${stage.iSwitchMaxA} A switch of ${stage.label}.`));
-
-  const lowPoint = buckPoint(stage, input.vTrough, vOut, load.iMax, fsw, inductor.henries, inductor.dcrOhm);
-  if (lowPoint.d > stage.dMax || input.vTrough <= vOut) {
-    issues.push(blocker('headroom', `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(lowPoint.d * 100).toFixed(0)} %; ${stage.label} reaches ${stage.dMax * 100} %.`));
+  const { issues, fixes } = sizingIssues(s);
+  if (spec.overrides.fswHz !== undefined && spec.overrides.fswHz !== fsw) {
+    issues.push(info('fsw-clamped', `${stage.label} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`));
   }
 
-  // Output capacitor for half the ripple budget.
-  const budget = RIPPLE_BUDGET * rippleLimit;
-  const esrGuess = catalog.capacitors[0]!.esrOhm;
-  const capRoom = budget - worstPoint.rippleA * esrGuess;
-  const cWanted = capRoom > 0 ? worstPoint.rippleA / (8 * fsw * capRoom) : Number.MAX_VALUE;
-  const cout = chooseOutputCapacitor(refs.next('C'), catalog, cWanted, vOut);
-  if (cout.issue) issues.push(cout.issue);
+  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
+  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the highest input', 'L = (vInMax − Vout)·D/(fsw·r·Iref)', {
+    vInMax: [input.vMax, 'V'], Vout: [vTarget, 'V'], D: [Math.min(1, vTarget / input.vMax), ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, load.iMax), 'A'],
+  }, s.lWanted, 'H');
+  const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  const worst = point(input.vMax, load.iMax);
+  if (worst.mode === 'ccm') {
+    trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = (vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
+      vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], iOutMax: [load.iMax, 'A'], Rds: [stage.rdsOnOhm, 'Ω'], DCR: [inductor.dcrOhm, 'Ω'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
+    }, worst.rippleA, 'A');
+    trace.add(`${idPrefix}.ipk`, 'Peak switch and inductor current', 'Ipk = iOutMax + ΔIL/2', { iOutMax: [load.iMax, 'A'], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
+  } else {
+    trace.add(`${idPrefix}.dil`, 'Inductor peak current at the highest input (discontinuous conduction)', 'Ipk = (vInMax − Vout)·D/(fsw·L)', {
+      vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
+    }, worst.rippleA, 'A');
+  }
+  trace.add(`${idPrefix}.ton`, 'On-time at the highest input and full load', 'tON = D/fsw', { D: [worst.d, ''], fsw: [fsw, 'Hz'] }, worst.d / fsw, 's');
+  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+  }, cout.effectiveF, 'F');
   const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple', 'ΔV = ΔIL/(8·fsw·Cout) + ΔIL·ESR', {
-    ΔIL: [worstPoint.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.farads, 'F'], ESR: [cout.esrOhm, 'Ω'],
-  }, buckRipple(worstPoint.rippleA, fsw, cout.farads, cout.esrOhm), 'V');
+    ΔIL: [worst.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
+  }, buckRipple(worst.rippleA, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  const stressFactor = dutyStress(s.low.d, high.d);
+  trace.add(`${idPrefix}.cin.rms`, 'Input capacitor RMS current (worst duty over the input range)', 'Irms = iOutMax·√(D·(1 − D))', {
+    iOutMax: [load.iMax, 'A'], 'D·(1 − D)': [stressFactor, ''],
+  }, load.iMax * Math.sqrt(stressFactor), 'A');
+  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
+  if (step) {
+    issues.push(step.issue);
+    if (step.fix) fixes.push(step.fix);
+  }
 
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
-  const post = allowPostFilter && (quiet || rippleStage > budget) ? postFilter(refs, trace, catalog, fsw, vOut, load.iMax, cout.farads, idPrefix) : null;
+  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, load.iMax, cout.effectiveF, idPrefix) : null;
   if (post) issues.push(...post.issues);
   const rippleVpp = rippleStage * (post?.attenuation ?? 1);
 
-  const cin = chooseCapacitor(refs.next('C'), 'input-capacitor', 10e-6, input.vMax, catalog);
-  if (cin.issue) issues.push(cin.issue);
   const dRef = sync ? '' : refs.next('D');
   const parts: DesignPart[] = [
     makePart({
-      ref: switchRef,
+      ref: r.u,
       role: 'switch',
       part: stage.label,
       ratingV: stage.vInMaxV,
@@ -166,80 +286,99 @@ export function buckStage(
     ...fb.parts,
   ];
   if (!sync) {
+    const ratingV = pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * input.vMax);
     parts.push(
       makePart({
         ref: dRef,
         role: 'diode',
-        part: `Schottky catch diode, Vf ${stage.diodeVfV} V`,
-        ratingV: pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * input.vMax),
+        part: (ratingV ?? Infinity) > 200 ? `Ultrafast catch diode, Vf ${stage.diodeVfV} V` : `Schottky catch diode, Vf ${stage.diodeVfV} V`,
+        ratingV,
         costCents: catalog.diode.costCents * 3,
         thermal: { thetaJcCW: catalog.diode.thetaJaCW, thetaJaCW: catalog.diode.thetaJaCW, tjMaxC: catalog.diode.tjMaxC, heatsinkable: false, protectedInFault: true },
       }),
     );
   }
   if (post) parts.push(...post.parts);
-  issues.push(info('fault-protected', `${stage.label} limits its switch current and shuts down when overheated; a shorted output is survived.`));
+  const lim = stage.iSwitchMaxA;
+  if (inductor.survivesLimit) {
+    issues.push(info('fault-protected', `${stage.label} limits its switch current to about ${lim} A and shuts down when overheated; ${inductor.part.ref} (Isat ${inductor.isatA} A) stays out of saturation, so a shorted output is survived.`));
+  } else {
+    issues.push(caution('short-saturates', `A shorted output drives the switch to its ${lim} A limit, beyond ${inductor.part.ref}'s ${inductor.isatA} A saturation current: the short is not survived without an upstream fuse or a larger inductor.`));
+  }
+  issues.push(...inputCautions(ctx, { vMax: input.vMax, vTrough: input.vTrough, cin, pInW: high.pInW, ratingV: stage.vInMaxV }));
 
-  const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm);
   const stress = (vIn: number, iOut: number, at?: BuckPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const s: Record<string, PartStress> = {
-      [switchRef]: { w: p.switchW, v: vIn },
-      [inductor.part.ref]: { w: p.dcrW, v: vIn },
+    const st: Record<string, PartStress> = {
+      [r.u]: { w: p.switchW, v: vIn },
+      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: vIn },
       [cin.part.ref]: { w: 0, v: vIn },
       [cout.part.ref]: { w: 0, v: vOut },
       [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
       [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
     };
-    if (!sync) s[dRef] = { w: p.diodeW, v: vIn };
+    if (!sync) st[dRef] = { w: p.diodeW, v: vIn };
     if (post) {
-      s[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      s[post.capRef] = { w: 0, v: vOut };
+      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
+      st[post.capRef] = { w: 0, v: vOut };
     }
-    return s;
+    return st;
   };
+  // Shorted output: the switch runs at its current limit; the inductor carries it (saturated when Isat is lower).
   const faultStress = (vIn: number): Record<string, PartStress> => {
-    const s = stress(vIn, 0);
-    const lim = stage.iSwitchMaxA;
-    s[switchRef] = { w: lim * lim * stage.rdsOnOhm, v: vIn };
-    s[inductor.part.ref] = { w: lim * lim * inductor.dcrOhm, v: vIn };
-    s[cout.part.ref] = { w: 0, v: 0 };
-    if (!sync) s[dRef] = { w: stage.diodeVfV * lim, v: vIn };
+    const st = stress(vIn, 0);
+    st[r.u] = { w: lim * lim * stage.rdsOnOhm, v: vIn };
+    st[inductor.part.ref] = { w: lim * lim * inductor.dcrOhm, v: vIn };
+    st[cout.part.ref] = { w: 0, v: 0 };
+    if (!sync) st[dRef] = { w: stage.diodeVfV * lim, v: vIn };
     if (post) {
-      s[post.inductorRef] = { w: lim * lim * post.dcrOhm, v: 0 };
-      s[post.capRef] = { w: 0, v: 0 };
+      st[post.inductorRef] = { w: lim * lim * post.dcrOhm, v: 0 };
+      st[post.capRef] = { w: 0, v: 0 };
     }
-    return s;
+    return st;
   };
   const assumptions: Record<string, Quantity> = {
-    [`${switchRef}.fsw`]: { value: fsw, unit: 'Hz' },
-    [`${switchRef}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
-    [`${switchRef}.vFb`]: { value: stage.vFbV, unit: 'V' },
+    [`${r.u}.fsw`]: { value: fsw, unit: 'Hz' },
+    [`${r.u}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
+    [`${r.u}.vFb`]: { value: stage.vFbV, unit: 'V' },
+    [`${r.u}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
+    [`${r.u}.iLimit`]: { value: lim, unit: 'A' },
     [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
     [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
     [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
+    [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
   };
   if (!sync) assumptions[`${dRef}.vf`] = { value: stage.diodeVfV, unit: 'V' };
   if (post) {
     assumptions[`${post.inductorRef}.dcr`] = { value: post.dcrOhm, unit: 'Ω' };
     assumptions[`${post.capRef}.esr`] = { value: post.esrOhm, unit: 'Ω' };
   }
-  const output = feedbackModel(stage, fb, post?.dcrOhm ?? 0, load.iMin, load.iTyp, load.iMax);
-  return { stage, fsw, vOut, inductor, cout, post, parts, issues, switchRef, rippleVpp, output, assumptions, point, stress, faultStress };
+  const output = fb.output;
+  return { stage, fsw, vOut, inductor, cout, post, parts, issues, fixes, switchRef: r.u, rippleVpp, output, assumptions, point, stress, faultStress };
+}
+
+/** Trace of the duty cycle at a corner, in the form that recomputes from its own inputs. */
+export function traceBuckDuty(trace: Trace, id: string, label: string, p: BuckPoint, vIn: number, vOut: number, iOut: number, fsw: number, henries: number): void {
+  if (p.mode === 'ccm') {
+    trace.add(id, label, 'D = Vout/(η·Vin)', { Vout: [vOut, 'V'], η: [p.etaPath, ''], Vin: [vIn, 'V'] }, p.d, '');
+  } else {
+    trace.add(id, `${label} (discontinuous conduction)`, 'D = M·√(K/(1 − M)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
+      Vout: [vOut, 'V'], Vin: [vIn, 'V'], L: [henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iOut, 'A'],
+    }, p.d, '');
+  }
 }
 
 export function designBuck(ctx: Context): Design {
   const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const b = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buck');
+  const b = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buck', railBand(spec));
   const nominal = b.point(spec.input.vNom, spec.output.iTyp);
-  trace.add('buck.d.nom', 'Duty cycle at the nominal corner', 'D = Vout/(η·Vin)', {
-    Vout: [b.vOut, 'V'], η: [nominal.pInW > 0 ? nominal.pOutW / nominal.pInW : 0, ''], Vin: [spec.input.vNom, 'V'],
-  }, nominal.d, '');
+  traceBuckDuty(trace, 'buck.d.nom', 'Duty cycle at the nominal corner', nominal, spec.input.vNom, b.vOut, spec.output.iTyp, b.fsw, b.inductor.henries);
+  const window = dutyWindow(b.stage, b.fsw);
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = b.point(vIn, iOut);
-    return { regulates: p.d <= b.stage.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
+    return { regulates: p.d <= window.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
   };
   const lim = b.stage.iSwitchMaxA;
   const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) };
@@ -248,6 +387,7 @@ export function designBuck(ctx: Context): Design {
     label: `Buck converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'catch diode'})${b.post ? ' with post-filter' : ''}`,
     parts: b.parts,
     issues: b.issues,
+    fixes: b.fixes,
     trace,
     operate,
     fault,

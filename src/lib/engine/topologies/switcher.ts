@@ -1,129 +1,270 @@
-// Pieces shared by the switching converters: stage choice, frequency, inductor, capacitors,
-// feedback divider and the optional LC post-filter.
+// Pieces shared by the switching converters: the class × frequency search, voltage derating,
+// on-/off-time limits, capacitor sizing, feedback divider and the optional LC post-filter.
 import type { Catalog, SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { chooseCapacitor, type ChosenCapacitor } from '../capacitors.ts';
-import { Refs, atLeast, blocker, info, makePart, resistorPart, type DesignPart } from '../design.ts';
-import { snap } from '../eseries.ts';
-import { pickFromLadder } from '../ratings.ts';
-import type { ToleranceModel } from '../tolerance.ts';
+import { chooseCapacitorBank, type ChosenCapacitor } from '../capacitors.ts';
+import { blocker, info, resistorPart, type DesignPart, type Fix, type Refs } from '../design.ts';
+import { chooseInductor, type ChosenInductor } from '../inductors.ts';
+import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
+import { rdsAt } from '../switcher-losses.ts';
+import { temperatureSwingK, type ToleranceModel } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { designDivider, type Divider } from './feedback.ts';
+import { searchDivider, type DividerDesign } from './feedback.ts';
 
-/** Inductor ripple current as a fraction of the full-load inductor current (common practice 0.2–0.4). */
+/** Inductor ripple current as a fraction of the reference current (common practice 0.2–0.4). */
 export const RIPPLE_RATIO = 0.3;
-/** Saturation current margin over the peak inductor current (common practice). */
-export const ISAT_MARGIN = 1.3;
+/**
+ * Ripple is sized to the load but not below a fifth of the class's current limit (common practice:
+ * ripple relative to the part's rating keeps the current-mode ramp measurable and the inductor
+ * small); light loads then run in discontinuous conduction or bursts.
+ */
+export const RIPPLE_FLOOR_OF_LIMIT = 0.2;
 /** The converter's own ripple is designed to half the rail's limit, leaving room for noise. */
 export const RIPPLE_BUDGET = 0.5;
-/** Smallest output capacitance for loop stability of the class (common practice). */
-const COUT_MIN_F = 10e-6;
-/** Lower feedback resistor of ground-referenced controllers (common practice 10 kΩ). */
-const FB_LOWER_OHM = 10e3;
+/** Peak switch current kept below 85 % of the typical current limit, which spreads about ±15 % (common practice). */
+export const LIMIT_HEADROOM = 0.85;
+/** Smallest effective output capacitance for loop stability (common practice for integrated converters). */
+export const COUT_MIN_EFFECTIVE_F = 4.7e-6;
+/** Smallest effective input capacitance, the local decoupling of the switching loop (common practice). */
+export const CIN_MIN_EFFECTIVE_F = 1e-6;
+/**
+ * Ripple the converter itself is sized for when an LC post-filter follows on a quiet rail: 0.5 % of
+ * the output (common practice); the filter's 40 dB/decade above its corner does the rest.
+ */
+export const PRE_FILTER_RIPPLE_FRACTION = 0.005;
+/** Input ripple allowed on the input capacitor, as a fraction of the lowest input (common practice 1–2 %). */
+export const INPUT_RIPPLE_FRACTION = 0.02;
+/** Loop crossover of a current-mode converter, about a tenth of the switching frequency (common practice). */
+export const CROSSOVER_FRACTION = 0.1;
+/** Search objective: parts cost plus this many cents per watt lost at the nominal corner (our weighting of heat). */
+export const LOSS_CENTS_PER_W = 100;
+/** Frequencies tried between a class's limits (geometric steps, plus its default). */
+const FSW_STEPS = 5;
 
-export function chooseSwitcher(ctx: Context, converter: SwitcherClass['converter'], vOut: number): { stage: SwitcherClass; issues: Issue[] } {
-  const pool = ctx.catalog.switchers.filter((s) => s.converter === converter);
-  const { vMax } = ctx.spec.input;
-  const fits = (s: SwitcherClass) => vMax <= s.vInMaxV && ctx.vInTrough >= s.vInMinV && vOut <= s.vOutMaxV;
-  const stage = pool.find(fits) ?? [...pool].sort((a, b) => b.vInMaxV - a.vInMaxV)[0];
-  if (!stage) return { stage: ctx.catalog.switchers[0]!, issues: [blocker('no-class', `The catalog has no ${converter} stage.`)] };
-  const issues: Issue[] = [];
-  if (vMax > stage.vInMaxV) issues.push(blocker('input-max', `The input reaches ${vMax} V; ${stage.label} allows ${stage.vInMaxV} V.`));
-  if (ctx.vInTrough < stage.vInMinV) issues.push(blocker('input-min', `The input trough ${ctx.vInTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`));
-  if (vOut > stage.vOutMaxV) issues.push(blocker('output-max', `${stage.label} regulates up to ${stage.vOutMaxV} V.`));
-  return { stage, issues };
+/** A blocker and what would clear it. */
+export interface Finding {
+  issue: Issue;
+  fix: Fix | null;
 }
 
-export function switchingFrequency(ctx: Context, stage: SwitcherClass, issues: Issue[]): number {
-  const wanted = ctx.spec.overrides.fswHz ?? stage.fswDefaultHz;
-  const fsw = Math.min(stage.fswMaxHz, Math.max(stage.fswMinHz, wanted));
-  if (fsw !== wanted) issues.push(info('fsw-clamped', `${stage.label} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`));
-  return fsw;
+export function finding(code: string, message: string, change: string | null): Finding {
+  return { issue: blocker(code, message), fix: change === null ? null : { code, change, message } };
 }
 
-export interface ChosenInductor {
-  part: DesignPart;
-  henries: number;
-  isatA: number;
-  dcrOhm: number;
+/** Frequencies to try: the forced one (clamped to the class), else steps across the class's range. */
+export function fswCandidates(ctx: Context, stage: SwitcherClass): number[] {
+  const wanted = ctx.spec.overrides.fswHz;
+  if (wanted !== undefined) return [Math.min(stage.fswMaxHz, Math.max(stage.fswMinHz, wanted))];
+  const out = new Set<number>([stage.fswDefaultHz]);
+  const ratio = stage.fswMaxHz / stage.fswMinHz;
+  for (let k = 0; k < FSW_STEPS; k += 1) out.add(Number((stage.fswMinHz * ratio ** (k / (FSW_STEPS - 1))).toPrecision(3)));
+  return [...out].sort((a, b) => a - b);
 }
 
-/** DCR ≈ k·√(L/1 µH)/Isat: bigger inductance or smaller core means more copper resistance (catalog fit). */
-export function inductorDcr(catalog: Catalog, henries: number, isatA: number): number {
-  return (catalog.inductors.dcrCoefficient * Math.sqrt(henries / 1e-6)) / isatA;
+/** Duty-cycle window the class can make at fsw: D ≥ tON,min·fsw and D ≤ min(Dmax, 1 − tOFF,min·fsw). */
+export function dutyWindow(stage: SwitcherClass, fsw: number): { dMin: number; dMax: number } {
+  return { dMin: stage.tOnMinS * fsw, dMax: Math.min(stage.dMax, 1 - stage.tOffMinS * fsw) };
 }
 
-export function chooseInductor(ref: string, catalog: Catalog, wantedH: number, peakA: number, forcedH: number | undefined): { chosen: ChosenInductor; issue: Issue | null } {
-  const inductors = catalog.inductors;
-  const henries = forcedH ?? Math.min(inductors.lMaxH, Math.max(inductors.lMinH, snap(atLeast(wantedH, 1e-9), inductors.series, 'nearest')));
-  const isat = pickFromLadder(inductors.isatStepsA, ISAT_MARGIN * peakA);
-  const isatA = isat ?? inductors.isatStepsA[inductors.isatStepsA.length - 1]!;
-  const dcrOhm = inductorDcr(catalog, henries, isatA);
-  const part = makePart({
-    ref,
-    role: 'inductor',
-    part: `Power inductor, shielded, Isat ${isatA} A`,
-    value: henries,
-    unit: 'H',
-    tolerance: 0.2,
-    costCents: inductors.costCentsBase + Math.round(inductors.costCentsPerA * isatA),
-  });
-  const issue = isat === null ? blocker('inductor', `The peak inductor current ${peakA.toFixed(2)} A needs a saturation rating of ${(ISAT_MARGIN * peakA).toFixed(1)} A, beyond the catalog.`) : null;
-  return { chosen: { part, henries, isatA, dcrOhm }, issue };
+/** Highest frequency at which duty d still gives the minimum on-time (D·Ts ≥ tON,min). */
+export function fswForOnTime(stage: SwitcherClass, d: number): number {
+  return d / stage.tOnMinS;
 }
 
-/** Output capacitance for a ripple target, at least the stability minimum and at most the ceramic range. */
-export function chooseOutputCapacitor(ref: string, catalog: Catalog, wantedF: number, vOut: number): ChosenCapacitor {
-  const ceramicMax = Math.max(...catalog.capacitors.map((c) => c.cMaxF));
-  const wanted = Math.min(Math.max(COUT_MIN_F, wantedF), ceramicMax);
-  return chooseCapacitor(ref, 'output-capacitor', wanted, vOut, catalog);
+/** Voltage an IC pin may see: its rating divided by the semiconductor factor (common practice: 80 % of rating). */
+export function deratedLimit(ratedV: number): number {
+  return ratedV / SEMICONDUCTOR_VOLTAGE_FACTOR;
+}
+
+/** Blockers from the class's voltage ratings (derated), its input range and output range. */
+export function classVoltageFindings(stage: SwitcherClass, vInMax: number, vTrough: number, vOut: number, switchNodeV: number, switchRatingV: number): Finding[] {
+  const out: Finding[] = [];
+  const f = SEMICONDUCTOR_VOLTAGE_FACTOR;
+  if (vInMax > deratedLimit(stage.vInMaxV)) {
+    out.push(finding('input-max', `The input reaches ${vInMax} V; ${stage.label} is rated ${stage.vInMaxV} V, so with the ${f}× voltage derating it takes at most ${deratedLimit(stage.vInMaxV).toFixed(1)} V.`, `a ${stage.converter} class rated ≥ ${Math.ceil(f * vInMax)} V input`));
+  }
+  if (switchNodeV > deratedLimit(switchRatingV)) {
+    out.push(finding('switch-voltage', `The switch sees ${switchNodeV.toFixed(1)} V; ${stage.label}'s ${switchRatingV} V switch takes at most ${deratedLimit(switchRatingV).toFixed(1)} V with the ${f}× derating.`, `a ${stage.converter} class with a switch rated ≥ ${Math.ceil(f * switchNodeV)} V`));
+  }
+  if (vTrough < stage.vInMinV) out.push(finding('input-min', `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`, `input ≥ ${stage.vInMinV} V`));
+  if (vOut > stage.vOutMaxV) out.push(finding('output-max', `${stage.label} regulates up to ${stage.vOutMaxV} V.`, `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`));
+  return out;
+}
+
+export function peakFinding(stage: SwitcherClass, peakA: number): Finding | null {
+  if (peakA <= LIMIT_HEADROOM * stage.iSwitchMaxA) return null;
+  return finding('current', `The peak current ${peakA.toFixed(2)} A exceeds ${LIMIT_HEADROOM * 100} % of the ${stage.iSwitchMaxA} A current limit of ${stage.label}.`, `a class with a current limit ≥ ${(peakA / LIMIT_HEADROOM).toFixed(1)} A`);
+}
+
+export function onTimeFinding(stage: SwitcherClass, fsw: number, d: number, where: string): Finding | null {
+  if (d / fsw >= stage.tOnMinS) return null;
+  const fMax = fswForOnTime(stage, d);
+  const can = fMax >= stage.fswMinHz;
+  return finding('min-on-time', `${where} the on-time D/fsw = ${((d / fsw) * 1e9).toFixed(0)} ns is below the ${(stage.tOnMinS * 1e9).toFixed(0)} ns minimum of ${stage.label}; the converter would skip pulses.`, can ? `fsw ≤ ${(fMax / 1e3).toFixed(0)} kHz` : 'a class with a shorter minimum on-time, or a two-stage design');
+}
+
+/** Ripple reference current: the load, floored at a fraction of the class's current limit. */
+export function rippleReference(stage: SwitcherClass, iMax: number): number {
+  return Math.max(iMax, RIPPLE_FLOOR_OF_LIMIT * stage.iSwitchMaxA);
+}
+
+/** Rds(on) at the junction temperature the full-load dissipation gives: Tj = Ta + P·θJA. */
+export function hotStage(ctx: Context, stage: SwitcherClass, icLossW: number): { stage: SwitcherClass; tjC: number } {
+  const theta = stage.thetaJaCW * ctx.catalog.thermal.airflowFactor[ctx.spec.thermal.airflow];
+  const tjC = Math.min(stage.tjMaxC, ctx.ambientC + icLossW * theta);
+  return { stage: { ...stage, rdsOnOhm: rdsAt(stage.rdsOnOhm, tjC) }, tjC };
+}
+
+/** The class's junction at the full-load loss against its limit less the design margin (as the thermal check applies it). */
+export function thermalFinding(ctx: Context, stage: SwitcherClass, tjC: number): Finding | null {
+  const limit = stage.tjMaxC - ctx.catalog.thermal.tjMarginK;
+  if (tjC <= limit) return null;
+  return finding('thermal', `${stage.label} would reach about ${tjC >= stage.tjMaxC ? `its ${stage.tjMaxC} °C limit` : `${tjC.toFixed(0)} °C`} at full load, above the ${limit} °C design limit.`, 'a larger class (lower θJA), a lower switching frequency, or more airflow');
+}
+
+export function traceRds(trace: Trace, id: string, rds25: number, tjC: number, rdsHot: number): void {
+  trace.add(id, 'Switch on-resistance at the full-load junction temperature', 'Rds = Rds25·(1 + α·(Tj − 25))', {
+    Rds25: [rds25, 'Ω'], α: [0.004, '1/K'], Tj: [tjC, '°C'],
+  }, rdsHot, 'Ω');
+}
+
+/** Reference designators of a switching stage, handed out before the search so forced values apply. */
+export interface StageRefs {
+  u: string;
+  r1: string;
+  r2: string;
+  l: string;
+  cout: string;
+  cin: string;
+}
+
+export function stageRefs(refs: Refs): StageRefs {
+  return { u: refs.next('U'), r1: refs.next('R'), r2: refs.next('R'), l: refs.next('L'), cout: refs.next('C'), cin: refs.next('C') };
+}
+
+/** Output capacitance for a ripple budget and an optional load step, with its RMS current. */
+export function outputBank(ctx: Context, ref: string, effectiveF: number, vOut: number, rmsA: number, esrMaxOhm: number): ChosenCapacitor {
+  return chooseCapacitorBank(ref, 'output-capacitor', {
+    effectiveF: Math.max(COUT_MIN_EFFECTIVE_F, effectiveF),
+    workingV: vOut,
+    rmsA,
+    esrMaxOhm,
+    ambientC: ctx.ambientC,
+    forcedF: forced(ctx, ref),
+  }, ctx.catalog);
+}
+
+/** Input capacitor: RMS current Iout·√(D(1 − D)) (buck-type input) and ripple ≤ INPUT_RIPPLE_FRACTION of the trough. */
+export function inputBank(ctx: Context, ref: string, vMax: number, vTrough: number, chargeA: number, rmsA: number, fsw: number): ChosenCapacitor {
+  return chooseCapacitorBank(ref, 'input-capacitor', {
+    effectiveF: Math.max(CIN_MIN_EFFECTIVE_F, chargeA / (fsw * INPUT_RIPPLE_FRACTION * Math.max(vTrough, 0.1))),
+    workingV: vMax,
+    rmsA,
+    esrMaxOhm: Infinity,
+    ambientC: ctx.ambientC,
+    forcedF: forced(ctx, ref),
+  }, ctx.catalog);
+}
+
+/** Ripple limit the converter stage is sized for: the rail's, or a looser one when a post-filter will follow. */
+export function stageRippleLimit(ctx: Context, rippleLimit: number, allowPostFilter: boolean, vOut: number): number {
+  const quiet = ctx.spec.noise.class === 'precision' || ctx.spec.noise.class === 'rf';
+  return allowPostFilter && quiet ? Math.max(rippleLimit, PRE_FILTER_RIPPLE_FRACTION * vOut / RIPPLE_BUDGET) : rippleLimit;
+}
+
+/** Load-step deviation: ΔV = ΔI/(2π·fc·C) + ΔI·ESR with fc = fsw/10 (current-mode, common practice). */
+export function stepDeviation(stepA: number, fsw: number, capF: number, esrOhm: number): number {
+  return stepA / (2 * Math.PI * CROSSOVER_FRACTION * fsw * capF) + stepA * esrOhm;
+}
+
+/** Capacitance the load step asks for: C ≥ ΔI/(2π·fc·ΔVmax), with half the deviation left for ESR. */
+export function stepCapacitance(ctx: Context, fsw: number): number {
+  const { loadStep, maxStepDeviation } = ctx.spec.output;
+  if (!loadStep || !maxStepDeviation) return 0;
+  return loadStep / (2 * Math.PI * CROSSOVER_FRACTION * fsw * 0.5 * maxStepDeviation);
+}
+
+export function traceStep(ctx: Context, trace: Trace, id: string, fsw: number, cout: ChosenCapacitor): Finding | null {
+  const { loadStep, maxStepDeviation } = ctx.spec.output;
+  if (!loadStep) return null;
+  const dv = trace.add(id, 'Output deviation for the load step (loop crossover fc = fsw/10)', 'ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR', {
+    ΔI: [loadStep, 'A'], fc: [CROSSOVER_FRACTION * fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
+  }, stepDeviation(loadStep, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  if (!maxStepDeviation || dv <= maxStepDeviation) return null;
+  return finding('load-step', `A ${loadStep} A load step moves the output by ${(dv * 1e3).toFixed(0)} mV, beyond the ${(maxStepDeviation * 1e3).toFixed(0)} mV allowed.`, `more output capacitance (about ${((loadStep / (2 * Math.PI * CROSSOVER_FRACTION * fsw * maxStepDeviation)) * 1e6).toFixed(0)} µF effective) or a faster loop`);
 }
 
 export interface FeedbackParts {
-  divider: Divider;
+  divider: DividerDesign;
   parts: DesignPart[];
   r1Ref: string;
   r2Ref: string;
-  tolerance: number;
+  /** Output model: the divider, the feedback reference and any drop outside the loop. */
+  output: ToleranceModel;
 }
 
-export function switcherFeedback(ctx: Context, refs: Refs, trace: Trace, stage: SwitcherClass, vTarget: number, idPrefix: string): FeedbackParts {
-  const series = ctx.spec.overrides.resistorSeries ?? 'E96';
-  const tolerance = series === 'E96' ? 0.01 : 0.05;
-  const r1Ref = refs.next('R');
-  const r2Ref = refs.next('R');
-  const r1 = forced(ctx, r1Ref) ?? snap(FB_LOWER_OHM, series, 'nearest');
-  const divider = designDivider(vTarget, stage.vFbV, 0, stage.vFbV / r1, series, r1, forced(ctx, r2Ref));
-  trace.add(`${idPrefix}.fb`, 'Feedback divider output with snapped values', 'Vout = Vfb·(1 + R2/R1)', {
-    Vfb: [stage.vFbV, 'V'], R1: [divider.r1, 'Ω'], R2: [divider.r2, 'Ω'],
-  }, divider.vOut, 'V');
-  return {
-    divider,
-    parts: [resistorPart(r1Ref, 'feedback-lower', divider.r1, tolerance, series), resistorPart(r2Ref, 'feedback-upper', divider.r2, tolerance, series)],
-    r1Ref,
-    r2Ref,
-    tolerance,
-  };
+/** Feedback-pin bias current of switching controllers, either sign (common practice: tens of nA). */
+export const FB_BIAS_A = 50e-9;
+/** Divider current window: at least the bias current's thousandfold, at most what light-load efficiency allows (common practice 10–100 µA). */
+const FB_DIVIDER_A = { min: 10e-6, max: 100e-6 } as const;
+
+export interface FeedbackNeed {
+  vTarget: number;
+  /** Band the output must hold (the rail's, or a looser one for an intermediate rail). */
+  band: { lo: number; hi: number };
+  load: { iMin: number; iTyp: number; iMax: number };
+  /** Resistance outside the loop (an LC post-filter's winding). */
+  dcrAfterFb: number;
+  /** Half the output ripple, kept clear of the band's edges. */
+  marginV: number;
 }
 
-/** Output model of a ground-referenced feedback loop; dcrAfterFb is any resistance outside the loop. */
-export function feedbackModel(stage: SwitcherClass, fb: FeedbackParts, dcrAfterFb: number, iMin: number, iTyp: number, iMax: number): ToleranceModel {
-  const { r1, r2 } = fb.divider;
-  const t = fb.tolerance;
+/**
+ * Divider pair, resistor grade and feedback-reference figure from the shared divider search: the
+ * class's Vfb tolerance (specified over temperature by the part, so no separate drift), the pin's
+ * bias current, and the post-filter's drop as a load-dependent spread.
+ */
+export function switcherFeedback(ctx: Context, r: StageRefs, trace: Trace, stage: SwitcherClass, need: FeedbackNeed, idPrefix: string): FeedbackParts {
+  const { vTarget, load, dcrAfterFb } = need;
+  const drop = (i: number) => 1 - (i * dcrAfterFb) / vTarget;
+  const extra = dcrAfterFb > 0 ? [{ name: 'post-filter drop', nominal: drop(load.iTyp), lo: drop(load.iMax), hi: drop(load.iMin) }] : [];
+  const series = ctx.spec.overrides.resistorSeries;
+  const r1Forced = forced(ctx, r.r1);
+  const r2Forced = forced(ctx, r.r2);
+  const { pick } = searchDivider({
+    vTarget,
+    vRef: stage.vFbV,
+    refGrades: [{ tolerance: stage.vFbTolerance, extraCents: 0 }],
+    vRefDriftPpmK: 0,
+    iAdjTyp: 0,
+    iAdjMin: -FB_BIAS_A,
+    iAdjMax: FB_BIAS_A,
+    iDividerMin: FB_DIVIDER_A.min,
+    iDividerMax: FB_DIVIDER_A.max,
+    band: need.band,
+    rule: ctx.spec.overrides.toleranceRule ?? 'statistical',
+    tempSwingK: temperatureSwingK(ctx.ambientC),
+    extra,
+    grades: ctx.catalog.resistorGrades,
+    marginV: need.marginV,
+    ...(r1Forced !== undefined ? { r1Forced } : {}),
+    ...(r2Forced !== undefined ? { r2Forced } : {}),
+    ...(series !== undefined ? { series } : {}),
+  });
+  trace.add(`${idPrefix}.fb`, 'Feedback divider output with the chosen pair', 'Vout = Vfb·(1 + R2/R1)', {
+    Vfb: [stage.vFbV, 'V'], R1: [pick.r1, 'Ω'], R2: [pick.r2, 'Ω'],
+  }, pick.vOut, 'V');
   return {
-    params: [
-      { name: 'Vfb', nominal: stage.vFbV, lo: stage.vFbV * (1 - stage.vFbTolerance), hi: stage.vFbV * (1 + stage.vFbTolerance) },
-      { name: 'R1', nominal: r1, lo: r1 * (1 - t), hi: r1 * (1 + t) },
-      { name: 'R2', nominal: r2, lo: r2 * (1 - t), hi: r2 * (1 + t) },
-      { name: 'iOut', nominal: iTyp, lo: iMin, hi: iMax },
+    divider: pick,
+    parts: [
+      resistorPart(r.r1, 'feedback-lower', pick.r1, pick.grade.tolerance, pick.series, pick.grade.extraCents),
+      resistorPart(r.r2, 'feedback-upper', pick.r2, pick.grade.tolerance, pick.series, pick.grade.extraCents),
     ],
-    f: (x: Float64Array) => x[0]! * (1 + x[2]! / x[1]!) - x[3]! * dcrAfterFb,
-    batch: (c, out) => {
-      const [vr, a, b, io] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
-      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * (1 + b[i]! / a[i]!) - io[i]! * dcrAfterFb;
-    },
+    r1Ref: r.r1,
+    r2Ref: r.r2,
+    output: pick.model,
   };
 }
 
@@ -140,20 +281,85 @@ export interface PostFilter {
 /** Post-filter inductance (common practice: about 1 µH, or a ferrite bead, after the output capacitor). */
 const POST_FILTER_H = 1e-6;
 
+/** Winding resistance of the post-filter inductor a load needs (known before the filter is placed). */
+export function postFilterDcr(ctx: Context, iMax: number): number {
+  return chooseInductor('L0', ctx.catalog, POST_FILTER_H, iMax, 0, undefined).chosen.dcrOhm;
+}
+
 /** Second-order LC after the output capacitor: |H| = |Zc| / |ZL + Zc| at the switching frequency. */
-export function postFilter(refs: Refs, trace: Trace, catalog: Catalog, fsw: number, vOut: number, iMax: number, capF: number, idPrefix: string): PostFilter {
+export function postFilter(ctx: Context, refs: Refs, trace: Trace, fsw: number, vOut: number, iMax: number, capF: number, idPrefix: string): PostFilter {
+  const { catalog } = ctx;
   const issues: Issue[] = [];
   const lRef = refs.next('L');
-  const { chosen, issue } = chooseInductor(lRef, catalog, POST_FILTER_H, iMax, undefined);
+  const { chosen, issue } = chooseInductor(lRef, catalog, POST_FILTER_H, iMax, 0, forced(ctx, lRef));
   if (issue) issues.push(issue);
-  const cap = chooseOutputCapacitor(refs.next('C'), catalog, capF, vOut);
+  const cap = outputBank(ctx, refs.next('C'), capF, vOut, 0, Infinity);
   if (cap.issue) issues.push(cap.issue);
   const w = 2 * Math.PI * fsw;
-  const xc = 1 / (w * cap.farads);
+  const xc = 1 / (w * cap.effectiveF);
   const xl = w * chosen.henries;
   const attenuation = trace.add(`${idPrefix}.postfilter`, 'Post-filter attenuation at the switching frequency', '|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²)', {
-    L: [chosen.henries, 'H'], C: [cap.farads, 'F'], ESR: [cap.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
+    L: [chosen.henries, 'H'], C: [cap.effectiveF, 'F'], ESR: [cap.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.sqrt(cap.esrOhm ** 2 + xc * xc) / Math.sqrt(cap.esrOhm ** 2 + (xl - xc) ** 2), '');
   issues.push(info('post-filter', `An LC post-filter (${lRef}, ${cap.part.ref}) attenuates the switching ripple by ${(20 * Math.log10(1 / attenuation)).toFixed(0)} dB for this quiet rail.`));
   return { parts: [chosen.part, cap.part], inductorRef: lRef, capRef: cap.part.ref, dcrOhm: chosen.dcrOhm, esrOhm: cap.esrOhm, attenuation, issues };
+}
+
+/** The band the rail's output must hold. */
+export function railBand(spec: Context['spec']): { lo: number; hi: number } {
+  return { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
+}
+
+/** Catalog classes of a converter kind. */
+export function classesOf(catalog: Catalog, converter: SwitcherClass['converter']): SwitcherClass[] {
+  return catalog.switchers.filter((s) => s.converter === converter);
+}
+
+/** What sizing one class at one frequency yields, common to every converter. */
+export interface SizingBase {
+  stage: SwitcherClass;
+  rds25: number;
+  tjC: number;
+  fsw: number;
+  lWanted: number;
+  inductor: ChosenInductor;
+  cout: ChosenCapacitor;
+  cin: ChosenCapacitor;
+  findings: Finding[];
+  costCents: number;
+  /** Loss at the nominal corner, W. */
+  nominalLossW: number;
+}
+
+/**
+ * Every class of the converter kind at every frequency it allows: the candidate with the fewest
+ * blockers, then the lowest parts cost plus LOSS_CENTS_PER_W per watt lost; ties keep the first.
+ */
+export function searchClasses<T extends SizingBase>(ctx: Context, converter: SwitcherClass['converter'], size: (stage: SwitcherClass, fsw: number) => T): T {
+  let best: T | null = null;
+  let bestKey = [Infinity, Infinity];
+  for (const stage of classesOf(ctx.catalog, converter)) {
+    for (const fsw of fswCandidates(ctx, stage)) {
+      const s = size(stage, fsw);
+      const key = [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
+      if (key[0]! < bestKey[0]! || (key[0] === bestKey[0] && key[1]! < bestKey[1]!)) {
+        best = s;
+        bestKey = key;
+      }
+    }
+  }
+  return best!;
+}
+
+/** The chosen candidate's blockers, fixes and capacitor cautions, and why it was chosen. */
+export function sizingIssues(s: SizingBase): { issues: Issue[]; fixes: Fix[] } {
+  const issues = s.findings.map((f) => f.issue);
+  for (const c of [s.cout, s.cin]) if (c.issue && c.issue.severity !== 'blocker') issues.push(c.issue);
+  issues.push(info('switcher-class', `${s.stage.label} at ${(s.fsw / 1e3).toFixed(0)} kHz: the cheapest class and frequency meeting the requirements (parts plus ${LOSS_CENTS_PER_W} ¢ per watt lost). Figures ${s.stage.source}.`));
+  return { issues, fixes: s.findings.flatMap((f) => (f.fix ? [f.fix] : [])) };
+}
+
+/** Capacitor blockers join the findings; cautions stay with the capacitor. */
+export function capacitorFindings(...caps: ChosenCapacitor[]): Finding[] {
+  return caps.flatMap((c) => (c.issue && c.issue.severity === 'blocker' ? [{ issue: c.issue, fix: null }] : []));
 }
