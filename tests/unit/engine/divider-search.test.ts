@@ -27,8 +27,11 @@ describe('divider pair', () => {
     expect([pair.r1, pair.r2]).toEqual([6980, 11500]);
     expect(pair.vOut).toBeCloseTo(1.25 * (1 + 11500 / 6980), 9);
     expect(Math.abs(pair.vOut - 3.3)).toBeLessThan(Math.abs(single.vOut - 3.3));
-    // E192 holds 1.00 and 1.64: 1.25·(1 + 1.64) = 3.3 V exactly, at 10 k (125 µA).
-    expect(bestPair(3.3, 1.25, 0, 100e-6, 300e-6, 'E192')).toMatchObject({ r1: 10000, r2: 16400 });
+    // E192 holds 1.00 and 1.64: 1.25·(1 + 1.64) = 3.3 V exactly at 10 k (125 µA), but 11.4 k / 18.7 k
+    // gives 1.25·(1 + 18.7/11.4) = 3.30044 V (0.013 %, finer than any grade) at 110 µA: the smaller current wins.
+    const fine = bestPair(3.3, 1.25, 0, 100e-6, 300e-6, 'E192');
+    expect(fine).toMatchObject({ r1: 11400, r2: 18700 });
+    expect(fine.vOut).toBeCloseTo(1.25 * (1 + 18.7 / 11.4), 12);
   });
 
   test('forced values are kept', () => {

@@ -30,6 +30,8 @@ const brief = railSpecSchema.parse({
   output: { v: 5.1, tolerance: 0.15, iMin: 0.005, iTyp: 0.01, iMax: 0.02 },
   noise: { class: 'digital' },
   thermal: { ambientMaxC: 40, airflow: 'still-air' },
+  // The netlist models the classic adjustable class; the engine would otherwise pick a cheaper LDO.
+  overrides: { linearClass: 'adj-0a1' },
 });
 const options = evaluate(brief).options;
 const byTopology = (id: Option['topology']) => options.find((o) => o.topology === id)!;

@@ -105,10 +105,13 @@ export function dividerModel(
   return dividerOutputModel(vRef, divider, { vRefTolerance, vRefDrift: 0, resistor: resistorTolerance, iAdjMin, iAdjMax, iAdjTyp, extra: [] });
 }
 
+/** A nominal error below this fraction is finer than any resistor grade (0.1 %): such pairs count as equal. */
+const PAIR_GOOD_ENOUGH = 5e-4;
+
 /**
  * The pair (R1, R2) from one series whose nominal output lies closest to the target, with the
- * divider current between iMin and iMax (ties go to the larger R1, the smaller current). Both
- * resistors are searched: snapping R2 alone leaves up to half a series step of error.
+ * divider current between iMin and iMax; among pairs within 0.05 % the larger R1 (the smaller
+ * current) wins. Both resistors are searched: snapping R2 alone leaves up to half a series step.
  */
 export function bestPair(
   vTarget: number,
@@ -130,7 +133,7 @@ export function bestPair(
     const r2s = r2Forced !== undefined ? [r2Forced] : [snap(r2Ideal, series, 'down'), snap(r2Ideal, series, 'up')];
     for (const r2 of r2s) {
       const vOut = dividerVout(vRef, r1, r2, iAdj);
-      const err = Math.abs(vOut - vTarget);
+      const err = Math.max(Math.abs(vOut - vTarget), PAIR_GOOD_ENOUGH * Math.abs(vTarget));
       // Relative slack keeps the choice stable against rounding between equal errors.
       if (err < bestErr * (1 - 1e-9) || (err <= bestErr * (1 + 1e-9) && best !== null && r1 > best.r1)) {
         best = { r1, r2, vOut, iDivider: vRef / r1 };
@@ -138,7 +141,8 @@ export function bestPair(
       }
     }
   }
-  return best!;
+  // Only a non-finite target leaves nothing compared; the caller reports the target itself.
+  return best ?? { r1: r1s[0]!, r2: r1s[0]!, vOut: 2 * vRef, iDivider: vRef / r1s[0]! };
 }
 
 export interface ReferenceGrade {

@@ -109,7 +109,7 @@ export function designLinearPredrop(ctx: Context): Design {
     ctx,
     refs,
     trace,
-    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false },
+    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true },
     vTarget,
     iMax,
     cls.id,

@@ -22,12 +22,13 @@ export function designLinear(ctx: Context): Design {
   trace.add(
     `${stage.regRef}.pmax`,
     'Regulator worst dissipation',
-    'P = (vInMax − Vout)·(iOutMax + Idivider) + vInMax·Iq',
+    'P = (vInMax − Vout)·(iOutMax + Idivider + Iadj) + vInMax·Iq',
     {
       vInMax: [vMax, 'V'],
       Vout: [stage.vOut, 'V'],
       iOutMax: [spec.output.iMax, 'A'],
       Idivider: [stage.divider?.iDivider ?? 0, 'A'],
+      Iadj: [stage.divider ? stage.cls.iAdjTypA : 0, 'A'],
       Iq: [stage.cls.iqA, 'A'],
     },
     stage.stress(vMax, spec.output.iMax)[stage.regRef]!.w,
@@ -64,5 +65,6 @@ export function designLinear(ctx: Context): Design {
     output: stage.output,
     rippleVpp: stage.rippleOutVpp,
     assumptions: stage.assumptions,
+    fixes: stage.fixes,
   };
 }

@@ -1,19 +1,30 @@
-// A three-terminal linear regulator stage (class choice, divider, capacitors, protection
-// diodes), shared by the plain linear option and the switcher + linear post-regulator.
+// A three-terminal linear regulator stage (class, reference grade, divider pair and resistor
+// grade searched for the cheapest that meets the rail; capacitors and protection diodes), shared
+// by the plain linear option, the pre-drop option and the switcher + linear post-regulator.
 import type { LinearRegulatorClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import { chooseCapacitor } from '../capacitors.ts';
-import { Refs, blocker, info, makePart, resistorPart, type DesignPart, type PartStress } from '../design.ts';
-import type { SeriesName } from '../eseries.ts';
+import { Refs, blocker, caution, info, makePart, resistorPart, type DesignPart, type Fix, type PartStress } from '../design.ts';
+import { snap } from '../eseries.ts';
 import { junctionTemperature } from '../thermal.ts';
-import type { ToleranceModel } from '../tolerance.ts';
+import { analyseTolerance, temperatureSwingK, toleranceVerdict, type ToleranceModel, type ToleranceParam, type ToleranceSummary } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
-import { designDivider, dividerModel, type Divider } from './feedback.ts';
+import { formatSi } from '../units.ts';
+import { dividerOutputModel, searchDivider, type DividerDesign } from './feedback.ts';
+import { NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
 
 /** A divider current of about 100 µA keeps the feedback-pin bias error small (common practice). */
 export const DIVIDER_MIN_A = 100e-6;
+/** The divider carries at least this multiple of the worst feedback-pin current (its error then stays near 0.1 %). */
+const DIVIDER_BIAS_RATIO = 1000;
+/** On a light load the divider takes no more than this share of the load current (battery practice). */
+const DIVIDER_LOAD_SHARE = 0.05;
+/** The divider's current is searched up to this multiple of its minimum (more would only waste power). */
+const DIVIDER_SPAN = 1.5;
+/** A regulator is loaded to at most 90 % of its rated current, leaving room for the current limit's spread (common practice). */
+export const CURRENT_DERATING = 0.9;
 
 /** Above about 25 V out, or with large output capacitance, a diode protects the regulator when the input is shorted (common practice). */
 const PROTECTION_DIODE_V = 25;
@@ -24,6 +35,10 @@ export interface StageInput {
   rippleVpp: number;
   /** True when the ripple is at switching frequency, where rejection is much lower. */
   rippleIsHf: boolean;
+  /** Ripple frequency, when known: the rejection is then read off the class's roll-off. */
+  rippleHz?: number;
+  /** The input rides on the output (a floating pre-drop stage): headroom does not grow with the output's spread. */
+  tracksOutput?: boolean;
 }
 
 export interface ClassCheck {
@@ -35,15 +50,26 @@ function isFixedMatch(cls: LinearRegulatorClass, vOut: number): boolean {
   return cls.kind === 'fixed' && Math.abs(cls.vRefV - vOut) <= 0.005 * vOut;
 }
 
-/** Blockers a class would meet on this rail (empty when it fits). */
-export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput, vOut: number, iMax: number): Issue[] {
+/** Divider current: enough to swamp the feedback-pin current, never much of a light load, at least the class's minimum load. */
+export function dividerCurrent(cls: LinearRegulatorClass, iLoadMax: number): number {
+  return Math.max(cls.minLoadA, Math.min(DIVIDER_MIN_A, DIVIDER_BIAS_RATIO * cls.iAdjMaxA, Math.max(1e-6, DIVIDER_LOAD_SHARE * iLoadMax)));
+}
+
+/**
+ * Blockers a class would meet on this rail (empty when it fits). Headroom is checked at vOutHigh,
+ * the highest output the design's tolerance allows (the nominal output when not yet known).
+ */
+export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput, vOut: number, iMax: number, vOutHigh = vOut): Issue[] {
   const out: Issue[] = [];
-  if (iMax > cls.iOutMaxA) out.push(blocker('current', `${cls.label} delivers at most ${cls.iOutMaxA} A; the load needs ${iMax} A.`));
-  if (input.vTrough < vOut + cls.dropoutV) {
+  const iDiv = cls.kind === 'fixed' ? 0 : dividerCurrent(cls, iMax);
+  if (iMax + iDiv > CURRENT_DERATING * cls.iOutMaxA) {
+    out.push(blocker('current', `${cls.label} is rated ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`));
+  }
+  if (input.vTrough < vOutHigh + cls.dropoutV) {
     out.push(
       blocker(
         'headroom',
-        `${cls.label} needs ${cls.dropoutV} V of headroom; the input trough ${input.vTrough.toFixed(2)} V leaves ${(input.vTrough - vOut).toFixed(2)} V above ${vOut} V.`,
+        `${cls.label} needs ${cls.dropoutV} V of headroom above its highest output ${vOutHigh.toFixed(3)} V, so at least ${(vOutHigh + cls.dropoutV).toFixed(2)} V in; the input trough is ${input.vTrough.toFixed(2)} V.`,
       ),
     );
   }
@@ -58,35 +84,31 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
   if (cls.kind !== 'fixed' && vOut < cls.vRefV) {
     out.push(blocker('below-reference', `${cls.label} cannot regulate below its ${cls.vRefV} V reference.`));
   }
-  if (cls.kind === 'fixed' && cls.vRefTolerance > ctx.spec.output.tolerance) {
-    out.push(blocker('tolerance', `${cls.label} holds ±${cls.vRefTolerance * 100} %, wider than the rail's ±${ctx.spec.output.tolerance * 100} %.`));
-  }
   if (!cls.heatsinkable) {
-    const p = (input.vMax - vOut) * (iMax + Math.max(cls.minLoadA, DIVIDER_MIN_A));
+    const p = (input.vMax - vOut) * (iMax + Math.max(cls.minLoadA, iDiv)) + input.vMax * cls.iqA;
     const tj = junctionTemperature(ctx.ambientC, p, [cls.thetaJaCW * ctx.catalog.thermal.airflowFactor[ctx.spec.thermal.airflow]]);
     if (tj > cls.tjMaxC - ctx.catalog.thermal.tjMarginK) {
-      out.push(blocker('thermal', `${cls.label} cannot take a heatsink and would reach ${tj.toFixed(0)} °C.`));
+      out.push(blocker('thermal', `${cls.label} cannot take a heatsink and would pass its ${cls.tjMaxC - ctx.catalog.thermal.tjMarginK} °C design limit at ${p.toFixed(2)} W.`));
     }
   }
   return out;
 }
 
+/** Classes that may set this output: adjustable ones, and fixed ones of this voltage. */
+function eligible(ctx: Context, vOut: number): LinearRegulatorClass[] {
+  return ctx.catalog.linearRegulators.filter((c) => c.kind !== 'fixed' || isFixedMatch(c, vOut));
+}
+
 /**
- * Preference: a matching fixed class, then the adjustable classes from the smallest, then the
- * low-dropout class; the first that fits wins, otherwise the one with the fewest blockers (so a
- * rail short of headroom for the classic class moves to the low-dropout class).
+ * Quick class choice without the tolerance search (for callers that only need a class to size
+ * around): the cheapest class that fits, otherwise the one with the fewest blockers.
  */
 export function chooseRegulatorClass(ctx: Context, input: StageInput, vOut: number, iMax: number, forcedId: string | undefined): ClassCheck {
   const all = ctx.catalog.linearRegulators;
   const wanted = forcedId === undefined ? undefined : all.find((c) => c.id === forcedId);
   if (wanted) return { cls: wanted, failures: checkClass(ctx, wanted, input, vOut, iMax) };
-  const rank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);
-  const ordered = all
-    .filter((c) => c.kind !== 'fixed' || isFixedMatch(c, vOut))
-    .map((cls, index) => ({ cls, index }))
-    .sort((a, b) => rank(a.cls) - rank(b.cls) || a.cls.iOutMaxA - b.cls.iOutMaxA || (a.cls.vDiffMaxV ?? 0) - (b.cls.vDiffMaxV ?? 0) || a.index - b.index);
   let best: ClassCheck | null = null;
-  for (const { cls } of ordered) {
+  for (const cls of eligible(ctx, vOut).slice().sort((a, b) => a.costCents - b.costCents)) {
     const failures = checkClass(ctx, cls, input, vOut, iMax);
     if (failures.length === 0) return { cls, failures };
     if (best === null || failures.length < best.failures.length) best = { cls, failures };
@@ -94,12 +116,170 @@ export function chooseRegulatorClass(ctx: Context, input: StageInput, vOut: numb
   return best ?? { cls: all[0]!, failures: [blocker('no-class', 'The catalog has no linear regulator class.')] };
 }
 
+/** One class with its searched reference grade, divider and resistor grade. */
+interface ClassDesign {
+  cls: LinearRegulatorClass;
+  failures: Issue[];
+  divider: DividerDesign | null;
+  refTolerance: number;
+  output: ToleranceModel;
+  summary: ToleranceSummary;
+  verdict: 'worst-case' | 'statistical' | 'fails';
+  psrrDb: number;
+  bypass: boolean;
+  rippleOutVpp: number;
+  /** Class price plus the grades' extra cost. */
+  costCents: number;
+  extraCents: number;
+}
+
+function regulationSpread(cls: LinearRegulatorClass, input: StageInput, iMin: number, iMax: number): ToleranceParam[] {
+  const line = (cls.lineRegulationPerV * Math.max(0, input.vMax - input.vTrough)) / 2;
+  const load = (cls.loadRegulation * Math.min(1, Math.max(0, iMax - iMin) / cls.iOutMaxA)) / 2;
+  return [
+    { name: 'Line regulation', nominal: 1, lo: 1 - line, hi: 1 + line },
+    { name: 'Load regulation', nominal: 1, lo: 1 - load, hi: 1 + load },
+  ];
+}
+
+function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput, vTarget: number, iMax: number, forcedR: { r1?: number; r2?: number }): ClassDesign {
+  const { spec } = ctx;
+  const band = { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
+  const rule = spec.overrides.toleranceRule ?? 'statistical';
+  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  // The adjust-pin bypass also keeps the reference's noise from being multiplied by Vout/Vref.
+  const noisy = NOISE_CREST_FACTOR * outputNoiseRms(cls, vTarget, false) > spec.noise.maxRippleVpp;
+  const bypass = cls.kind === 'adjustable' && (input.rippleVpp > 0 || quiet || noisy);
+  const psrrDb = input.rippleHz !== undefined ? rippleRejectionDb(cls, input.rippleHz, bypass) : input.rippleIsHf ? cls.psrrHfDb : bypass ? cls.psrrBypassDb : cls.psrrDb;
+  const rippleOutVpp = input.rippleVpp * 10 ** (-psrrDb / 20);
+  const tempSwingK = temperatureSwingK(ctx.ambientC);
+  const extra = regulationSpread(cls, input, spec.output.iMin, iMax);
+  const refGrades = [{ tolerance: cls.vRefTolerance, extraCents: 0 }, ...cls.refGrades];
+  let divider: DividerDesign | null = null;
+  let output: ToleranceModel;
+  let summary: ToleranceSummary;
+  let verdict: ClassDesign['verdict'];
+  let refTolerance = cls.vRefTolerance;
+  let extraCents = 0;
+  if (cls.kind === 'fixed') {
+    // A preset output is a divider with R2 = 0: only the reference grade is chosen.
+    let chosen: { output: ToleranceModel; summary: ToleranceSummary; verdict: ClassDesign['verdict']; tol: number; cents: number } | null = null;
+    for (const g of refGrades) {
+      const model = dividerOutputModel(cls.vRefV, { r1: 1, r2: 0, vOut: cls.vRefV, iDivider: 0 }, {
+        vRefTolerance: g.tolerance, vRefDrift: cls.vRefDriftPpmK * 1e-6 * tempSwingK, resistor: 0, iAdjMin: 0, iAdjMax: 0, iAdjTyp: 0, extra,
+      });
+      const s = analyseTolerance(model);
+      const v = toleranceVerdict(s, band, rule, rippleOutVpp / 2);
+      chosen = { output: model, summary: s, verdict: v, tol: g.tolerance, cents: g.extraCents };
+      if (v !== 'fails') break;
+    }
+    output = chosen!.output;
+    summary = chosen!.summary;
+    verdict = chosen!.verdict;
+    refTolerance = chosen!.tol;
+    extraCents = chosen!.cents;
+  } else {
+    const iDivMin = dividerCurrent(cls, iMax);
+    const series = spec.overrides.resistorSeries;
+    const search = searchDivider({
+      vTarget,
+      vRef: cls.vRefV,
+      refGrades,
+      vRefDriftPpmK: cls.vRefDriftPpmK,
+      iAdjTyp: cls.iAdjTypA,
+      iAdjMin: 0,
+      iAdjMax: cls.iAdjMaxA,
+      iDividerMin: iDivMin,
+      iDividerMax: DIVIDER_SPAN * iDivMin,
+      band,
+      rule,
+      tempSwingK,
+      extra,
+      grades: ctx.catalog.resistorGrades,
+      marginV: rippleOutVpp / 2,
+      ...(forcedR.r1 !== undefined ? { r1Forced: forcedR.r1 } : {}),
+      ...(forcedR.r2 !== undefined ? { r2Forced: forcedR.r2 } : {}),
+      ...(series !== undefined ? { series } : {}),
+    });
+    divider = search.pick;
+    output = divider.model;
+    summary = divider.summary;
+    verdict = divider.verdict;
+    refTolerance = divider.refTolerance;
+    extraCents = divider.extraCents;
+  }
+  const vOutHigh = input.tracksOutput ? vTarget : summary.worstCase.max + rippleOutVpp / 2;
+  const failures = checkClass(ctx, cls, input, vTarget, iMax, vOutHigh);
+  return { cls, failures, divider, refTolerance, output, summary, verdict, psrrDb, bypass, rippleOutVpp, costCents: cls.costCents + extraCents, extraCents };
+}
+
+const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);
+const blockerCount = (d: ClassDesign) => d.failures.length + (d.verdict === 'fails' ? 1 : 0);
+
+/** The cheapest class design with no blocker; otherwise the one with the fewest (cheapest first). */
+function pickDesign(designs: ClassDesign[]): ClassDesign {
+  return designs
+    .map((d, index) => ({ d, index }))
+    .sort(
+      (a, b) =>
+        blockerCount(a.d) - blockerCount(b.d) ||
+        a.d.costCents - b.d.costCents ||
+        kindRank(a.d.cls) - kindRank(b.d.cls) ||
+        a.d.cls.iOutMaxA - b.d.cls.iOutMaxA ||
+        a.index - b.index,
+    )[0]!.d;
+}
+
+const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
+
+/** Highest output plus dropout: the input trough a design needs. */
+const inputNeeded = (d: ClassDesign) => d.summary.worstCase.max + d.rippleOutVpp / 2 + d.cls.dropoutV;
+
+/** What would clear each blocker of the chosen design, from the other designs searched. */
+function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: StageInput): Fix[] {
+  const fixes: Fix[] = [];
+  const clean = all.filter((d) => blockerCount(d) === 0);
+  if (chosen.failures.some((f) => f.code === 'headroom')) {
+    // The class needing the least input among those whose only trouble is headroom.
+    const onlyHeadroom = all.filter((d) => d.verdict !== 'fails' && d.failures.every((f) => f.code === 'headroom'));
+    const best = onlyHeadroom.sort((a, b) => inputNeeded(a) - inputNeeded(b))[0] ?? chosen;
+    const need = inputNeeded(best);
+    fixes.push({
+      code: 'headroom',
+      change: `input trough at least ${need.toFixed(2)} V`,
+      costCents: best.costCents - chosen.costCents,
+      message: `Needs ≥ ${need.toFixed(2)} V input at the trough with ${best.cls.label} (highest output ${(need - best.cls.dropoutV).toFixed(3)} V + ${best.cls.dropoutV} V dropout); the trough is ${input.vTrough.toFixed(2)} V.`,
+    });
+  }
+  if (chosen.verdict === 'fails') {
+    const rule = ctx.spec.overrides.toleranceRule ?? 'statistical';
+    const reach = (d: ClassDesign) => {
+      const r = rule === 'statistical' ? d.summary.statistical : d.summary.worstCase;
+      return Math.max(ctx.spec.output.v - r.min, r.max - ctx.spec.output.v) / ctx.spec.output.v;
+    };
+    const tightest = all.filter((d) => d.failures.length === 0).sort((a, b) => reach(a) - reach(b))[0] ?? chosen;
+    const grade = tightest.divider ? ` with ${tightest.divider.grade.label} resistors` : '';
+    fixes.push({
+      code: 'tolerance',
+      change: `tolerance ${pct(Math.ceil(reach(tightest) * 1000) / 1000)}`,
+      costCents: tightest.costCents - chosen.costCents,
+      message: `The tightest output reachable is ${pct(reach(tightest))} (${tightest.cls.label}, the ${pct(tightest.refTolerance)} reference${grade}); relax the tolerance to that, or fit a reference outside the catalog.`,
+    });
+  }
+  if (clean.length > 0 && blockerCount(chosen) > 0) {
+    const alt = clean.slice().sort((a, b) => a.costCents - b.costCents)[0]!;
+    fixes.push({ code: 'class', change: `regulator class ${alt.cls.id}`, costCents: alt.costCents - chosen.costCents, message: `${alt.cls.label} meets the rail${alt.extraCents > 0 ? ' with its dearer grades' : ''}.` });
+  }
+  return fixes;
+}
+
 export interface RegulatorStage {
   cls: LinearRegulatorClass;
   regRef: string;
   parts: DesignPart[];
   issues: Issue[];
-  divider: Divider | null;
+  fixes: Fix[];
+  divider: DividerDesign | null;
   vOut: number;
   output: ToleranceModel;
   rippleOutVpp: number;
@@ -120,89 +300,103 @@ export function regulatorStage(
   forcedClassId: string | undefined,
 ): RegulatorStage {
   const { spec, catalog } = ctx;
-  const choice = chooseRegulatorClass(ctx, input, vTarget, iMax, forcedClassId);
-  const cls = choice.cls;
-  const issues: Issue[] = [...choice.failures];
-  if (forcedClassId !== undefined && cls.id !== forcedClassId) {
+  const regRef = refs.next('U');
+  const adjustable = eligible(ctx, vTarget).some((c) => c.kind !== 'fixed');
+  const r1Ref = adjustable ? refs.next('R') : '';
+  const r2Ref = adjustable ? refs.next('R') : '';
+  const forcedR = { r1: spec.overrides.r1Ohm ?? (r1Ref ? forced(ctx, r1Ref) : undefined), r2: r2Ref ? forced(ctx, r2Ref) : undefined };
+  const wanted = forcedClassId === undefined ? undefined : catalog.linearRegulators.find((c) => c.id === forcedClassId);
+  const pool = wanted ? [wanted] : eligible(ctx, vTarget);
+  const designs = (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).map((cls) =>
+    designClass(ctx, cls, input, vTarget, iMax, cls.kind === 'fixed' ? {} : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) }),
+  );
+  const d = pickDesign(designs);
+  const cls = d.cls;
+  const issues: Issue[] = [...d.failures];
+  const fixes = fixesFor(ctx, d, designs, input);
+  if (forcedClassId !== undefined && !wanted) {
     issues.push(info('class-unknown', `The catalog has no regulator class "${forcedClassId}"; the engine chose ${cls.label}.`));
   }
-  const regRef = refs.next('U');
-  const series: SeriesName = spec.overrides.resistorSeries ?? 'E96';
-  const rTol = series === 'E96' ? 0.01 : 0.05;
+  const refCents = d.extraCents - (d.divider ? 2 * d.divider.grade.extraCents : 0);
   const parts: DesignPart[] = [
     makePart({
       ref: regRef,
       role: 'regulator',
-      part: cls.label,
+      part: d.refTolerance < cls.vRefTolerance ? `${cls.label}, ${pct(d.refTolerance)} reference grade` : cls.label,
       ratingV: cls.vDiffMaxV ?? cls.vInMaxV,
-      tolerance: cls.vRefTolerance,
-      costCents: cls.costCents,
+      tolerance: d.refTolerance,
+      costCents: cls.costCents + refCents,
       thermal: { thetaJcCW: cls.thetaJcCW, thetaJaCW: cls.thetaJaCW, tjMaxC: cls.tjMaxC, heatsinkable: cls.heatsinkable, protectedInFault: true },
     }),
   ];
-
-  let divider: Divider | null = null;
-  let r1Ref = '';
-  let r2Ref = '';
-  let output: ToleranceModel;
-  if (cls.kind === 'fixed') {
-    output = {
-      params: [{ name: 'Vout', nominal: cls.vRefV, lo: cls.vRefV * (1 - cls.vRefTolerance), hi: cls.vRefV * (1 + cls.vRefTolerance) }],
-      f: (x: Float64Array) => x[0]!,
-      batch: (c, out) => out.set(c[0]!),
-    };
-  } else {
-    r1Ref = refs.next('R');
-    r2Ref = refs.next('R');
-    const iDivMin = Math.max(cls.minLoadA, DIVIDER_MIN_A);
-    divider = designDivider(vTarget, cls.vRefV, cls.iAdjTypA, iDivMin, series, spec.overrides.r1Ohm ?? forced(ctx, r1Ref), forced(ctx, r2Ref));
-    trace.add(
-      `${regRef}.r1`,
-      'R1 so the divider alone carries the minimum load',
-      'R1 ≤ Vref / Imin',
-      { Vref: [cls.vRefV, 'V'], Imin: [iDivMin, 'A'] },
-      divider.r1,
-      'Ω',
-    );
-    trace.add(
-      `${regRef}.r2`,
-      'R2 solved for the rail, then snapped',
-      'R2 = (Vout − Vref) / (Vref/R1 + Iadj)',
-      { Vout: [vTarget, 'V'], Vref: [cls.vRefV, 'V'], R1: [divider.r1, 'Ω'], Iadj: [cls.iAdjTypA, 'A'] },
-      divider.r2,
-      'Ω',
-    );
+  const divider = d.divider;
+  if (divider) {
+    trace.add(`${regRef}.idiv`, 'Divider current (the divider alone carries the minimum load; it swamps the adjust-pin current)', 'Idiv = Vref / R1', { Vref: [cls.vRefV, 'V'], R1: [divider.r1, 'Ω'] }, divider.iDivider, 'A');
     trace.add(
       `${regRef}.vout`,
-      'Output recomputed with the snapped values',
+      `Output with the searched pair (${divider.series}, ${divider.grade.label})`,
       'Vout = Vref·(1 + R2/R1) + Iadj·R2',
       { Vref: [cls.vRefV, 'V'], R1: [divider.r1, 'Ω'], R2: [divider.r2, 'Ω'], Iadj: [cls.iAdjTypA, 'A'] },
       divider.vOut,
       'V',
     );
-    parts.push(resistorPart(r1Ref, 'feedback-lower', divider.r1, rTol, series), resistorPart(r2Ref, 'feedback-upper', divider.r2, rTol, series));
-    output = dividerModel(cls.vRefV, cls.vRefTolerance, divider, rTol, 0, cls.iAdjMaxA, cls.iAdjTypA);
+    parts.push(
+      resistorPart(r1Ref, 'feedback-lower', divider.r1, divider.grade.tolerance, divider.series, divider.grade.extraCents),
+      resistorPart(r2Ref, 'feedback-upper', divider.r2, divider.grade.tolerance, divider.series, divider.grade.extraCents),
+    );
+    issues.push(info('divider-search', divider.why));
+  } else if (r1Ref) {
+    issues.push(info('divider-unused', `${cls.label} presets the output; ${r1Ref} and ${r2Ref} are not fitted.`));
   }
+  if (forcedR.r1 !== undefined && !divider) issues.push(info('forced-unused', `The forced R1 is not used: ${cls.label} has no divider.`));
+  trace.add(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
   const vOut = divider?.vOut ?? cls.vRefV;
 
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
-  const bypass = cls.kind === 'adjustable' && (input.rippleVpp > 0 || quiet);
-  const psrr = input.rippleIsHf ? cls.psrrHfDb : bypass ? cls.psrrBypassDb : cls.psrrDb;
   const rippleOutVpp = trace.add(
     `${regRef}.ripple`,
     'Output ripple through the regulator’s ripple rejection',
     'ΔVout = ΔVin · 10^(−PSRR/20)',
-    { ΔVin: [input.rippleVpp, 'V'], PSRR: [psrr, 'dB'] },
-    input.rippleVpp * 10 ** (-psrr / 20),
+    { ΔVin: [input.rippleVpp, 'V'], PSRR: [d.psrrDb, 'dB'] },
+    d.rippleOutVpp,
     'V',
   );
+  const noiseRms = trace.add(
+    `${regRef}.noise`,
+    `Output noise over ${NOISE_BAND_HZ.lo} Hz–${NOISE_BAND_HZ.hi / 1e3} kHz`,
+    'Vn = en·G·√(fhi − flo)',
+    { en: [cls.noiseDensityVrtHz, 'V/√Hz'], G: [cls.kind === 'fixed' || d.bypass ? 1 : Math.max(1, vOut / cls.vRefV), ''], fhi: [NOISE_BAND_HZ.hi, 'Hz'], flo: [NOISE_BAND_HZ.lo, 'Hz'] },
+    outputNoiseRms(cls, vOut, d.bypass),
+    'V',
+  );
+  if (NOISE_CREST_FACTOR * noiseRms + rippleOutVpp > spec.noise.maxRippleVpp) {
+    issues.push(
+      caution('noise', `${regRef}'s own noise is about ${formatSi(noiseRms, 'V', 2)} RMS (${formatSi(NOISE_CREST_FACTOR * noiseRms, 'V', 2)} p-p) over ${NOISE_BAND_HZ.lo} Hz–${NOISE_BAND_HZ.hi / 1e3} kHz, beside the ${formatSi(spec.noise.maxRippleVpp, 'V', 2)} p-p limit; a low-noise class or a filtered reference would lower it.`),
+    );
+  }
 
   const cin = chooseCapacitor(refs.next('C'), 'input-capacitor', 0.1e-6, input.vMax, catalog);
-  const cout = chooseCapacitor(refs.next('C'), 'output-capacitor', cls.kind === 'ldo' ? 4.7e-6 : 1e-6, vOut, catalog);
+  const coutRef = refs.next('C');
+  const coutWanted = forced(ctx, coutRef) ?? Math.max(cls.coutMinF, cls.kind === 'ldo' ? 4.7e-6 : 1e-6);
+  const cout = chooseCapacitor(coutRef, 'output-capacitor', coutWanted, vOut, catalog);
   parts.push(cin.part, cout.part);
   for (const c of [cin, cout]) if (c.issue) issues.push(c.issue);
+  // Stability: the loop needs its minimum capacitance and, for some classes, ESR inside a window.
+  let esrRef = '';
+  if (cout.farads < cls.coutMinF) {
+    issues.push(caution('cout-min', `${cls.label} needs at least ${formatSi(cls.coutMinF, 'F', 2)} on its output for stability; the forced ${formatSi(cout.farads, 'F', 2)} is below it.`));
+  }
+  if (cls.esrMinOhm > 0 && cout.esrOhm < cls.esrMinOhm) {
+    // A resistor in series with a ceramic output capacitor supplies the missing ESR; it carries only the capacitor's AC current.
+    esrRef = refs.next('R');
+    const esr = snap(Math.sqrt(cls.esrMinOhm * (cls.esrMaxOhm ?? 10 * cls.esrMinOhm)) / 3, 'E24', 'nearest');
+    const rEsr = Math.min(Math.max(esr, cls.esrMinOhm * 1.5), cls.esrMaxOhm ?? Number.POSITIVE_INFINITY);
+    parts.push(resistorPart(esrRef, 'series-resistor', rEsr, 0.05, 'E24', 0));
+    issues.push(info('esr-resistor', `${cls.label} is stable only with ${cls.esrMinOhm}–${cls.esrMaxOhm ?? '∞'} Ω of output ESR; ${cout.part.ref} has about ${cout.esrOhm.toFixed(3)} Ω, so ${esrRef} (${rEsr} Ω) is placed in series with it. It carries only the capacitor's AC current: its DC loss is nil.`));
+  } else if (cls.esrMaxOhm !== null && cout.esrOhm > cls.esrMaxOhm) {
+    issues.push(caution('esr-high', `${cout.part.ref}'s ESR of about ${cout.esrOhm.toFixed(2)} Ω exceeds the ${cls.esrMaxOhm} Ω ${cls.label} stays stable with; use a lower-ESR capacitor.`));
+  }
   let cadjRef = '';
-  if (bypass) {
+  if (d.bypass) {
     const cadj = chooseCapacitor(refs.next('C'), 'bypass-capacitor', 10e-6, Math.max(0, vOut - cls.vRefV), catalog);
     cadjRef = cadj.part.ref;
     parts.push(cadj.part);
@@ -210,10 +404,10 @@ export function regulatorStage(
   }
   const diodes: string[] = [];
   if (vOut >= PROTECTION_DIODE_V || cout.farads >= 25e-6) {
-    const d = refs.next('D');
-    diodes.push(d);
-    parts.push(makePart({ ref: d, role: 'protection-diode', part: 'Rectifier diode, output to input', ratingV: input.vMax, costCents: catalog.costs.protectionDiodeCents }));
-    if (bypass) {
+    const dRef = refs.next('D');
+    diodes.push(dRef);
+    parts.push(makePart({ ref: dRef, role: 'protection-diode', part: 'Rectifier diode, output to input', ratingV: input.vMax, costCents: catalog.costs.protectionDiodeCents }));
+    if (d.bypass) {
       const d2 = refs.next('D');
       diodes.push(d2);
       parts.push(makePart({ ref: d2, role: 'protection-diode', part: 'Rectifier diode, adjust to output', ratingV: vOut, costCents: catalog.costs.protectionDiodeCents }));
@@ -235,24 +429,26 @@ export function regulatorStage(
       const vr2 = vOut - cls.vRefV;
       s[r2Ref] = { w: (vr2 * vr2) / divider.r2, v: vr2 };
     }
+    if (esrRef) s[esrRef] = { w: 0, v: 0 };
     if (cadjRef) s[cadjRef] = { w: 0, v: vOut - cls.vRefV };
-    for (const d of diodes) s[d] = { w: 0, v: vIn };
+    for (const dRef of diodes) s[dRef] = { w: 0, v: vIn };
     return s;
   };
   const faultStress = (vIn: number): Record<string, PartStress> => {
     const s = stress(vIn, 0);
     // Output shorted: the regulator sits at its current limit with the whole input across it.
     s[regRef] = { w: cls.iLimitA * vIn, v: vIn };
-    for (const ref of [r1Ref, r2Ref, cadjRef, cout.part.ref]) if (ref) s[ref] = { w: 0, v: 0 };
+    for (const ref of [r1Ref, r2Ref, cadjRef, cout.part.ref]) if (ref && s[ref]) s[ref] = { w: 0, v: 0 };
     return s;
   };
 
   const assumptions: Record<string, Quantity> = {
     [`${regRef}.vRef`]: { value: cls.vRefV, unit: 'V' },
+    [`${regRef}.vRefTolerance`]: { value: d.refTolerance, unit: '' },
     [`${regRef}.iAdj`]: { value: iAdj, unit: 'A' },
     [`${regRef}.iq`]: { value: cls.iqA, unit: 'A' },
     [`${regRef}.dropout`]: { value: cls.dropoutV, unit: 'V' },
     [`${regRef}.iLimit`]: { value: cls.iLimitA, unit: 'A' },
   };
-  return { cls, regRef, parts, issues, divider, vOut, output, rippleOutVpp, assumptions, inputCurrent, stress, faultStress };
+  return { cls, regRef, parts, issues, fixes, divider, vOut, output: d.output, rippleOutVpp, assumptions, inputCurrent, stress, faultStress };
 }

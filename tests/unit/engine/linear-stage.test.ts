@@ -1,0 +1,123 @@
+// The linear regulator stage's search: class sized to the load, reference and resistor grades
+// escalated until the rail's tolerance holds, headroom at the highest output the tolerance allows.
+// Hand calculations use Vout = Vref·(1 + R2/R1) + Iadj·R2 (the adjustable-regulator output
+// equation, Horowitz & Hill, The Art of Electronics, 3rd ed., §9.3 — from memory).
+import { describe, expect, test } from 'vitest';
+import { assemble } from '~/lib/engine/assemble.ts';
+import { defaultCatalog } from '~/lib/engine/catalog.ts';
+import { makeContext } from '~/lib/engine/context.ts';
+import { railSpecSchema, type RailSpecInput } from '~/lib/engine/rail-spec.ts';
+import { designLinear } from '~/lib/engine/topologies/linear.ts';
+import { PSRR_HF_HZ, outputNoiseRms, rippleRejectionDb } from '~/lib/engine/topologies/regulator-noise.ts';
+
+const thermal = { ambientMaxC: 40, airflow: 'still-air' } as const;
+const linearOption = (input: RailSpecInput) => {
+  const ctx = makeContext(railSpecSchema.parse(input), defaultCatalog);
+  const design = designLinear(ctx);
+  return { design, option: assemble(design, ctx, 1) };
+};
+const classOf = (label: string) => defaultCatalog.linearRegulators.find((c) => label.startsWith(c.label))!;
+
+describe('5 V → 3.3 V ±3 %, 100 mA, quiet', () => {
+  const { option } = linearOption({
+    input: { vMin: 4.75, vNom: 5, vMax: 5.25, source: 'adapter' },
+    output: { v: 3.3, tolerance: 0.03, iMin: 0.01, iTyp: 0.05, iMax: 0.1 },
+    noise: { class: 'sensor' },
+    thermal,
+  });
+  const reg = option.components.find((c) => c.role === 'regulator')!;
+  const cls = classOf(reg.part);
+  const r1 = option.components.find((c) => c.role === 'feedback-lower')!;
+  const r2 = option.components.find((c) => c.role === 'feedback-upper')!;
+
+  test('is feasible with a class sized to the load, not the largest', () => {
+    expect(option.feasible).toBe(true);
+    // 0.1 A load plus the divider within 90 % of the rating (common practice), and not a 1 A+ class.
+    expect(cls.iOutMaxA * 0.9).toBeGreaterThanOrEqual(0.1);
+    expect(cls.iOutMaxA).toBeLessThan(1);
+  });
+
+  test('the output with the chosen pair, by hand, lies inside ±3 % with its worst case', () => {
+    const vNom = cls.vRefV * (1 + r2.value! / r1.value!) + cls.iAdjTypA * r2.value!;
+    expect(Math.abs(vNom - 3.3) / 3.3).toBeLessThan(0.005);
+    // Hand worst case, high side: the reference at its grade's top; drift and TCR over the larger
+    // swing from 25 °C, to 0 °C (25 K) rather than to 40 °C (15 K); line and load regulation halved
+    // about the set point.
+    const ref = reg.tolerance!;
+    const drift = cls.vRefDriftPpmK * 1e-6 * 25;
+    const grade = defaultCatalog.resistorGrades.find((g) => g.tolerance === r1.tolerance)!;
+    const rr = grade.tolerance + grade.tcrPpmK * 1e-6 * 25;
+    const line = (cls.lineRegulationPerV * (5.25 - 4.75)) / 2;
+    const load = (cls.loadRegulation * (0.1 - 0.01)) / cls.iOutMaxA / 2;
+    const high = (cls.vRefV * (1 + ref) * (1 + drift) * (1 + (r2.value! * (1 + rr)) / (r1.value! * (1 - rr))) + cls.iAdjMaxA * r2.value! * (1 + rr)) * (1 + line) * (1 + load);
+    expect(option.vOutRange.max).toBeCloseTo(high, 6);
+    expect(high).toBeLessThanOrEqual(3.3 * 1.03);
+  });
+});
+
+describe('battery 3.6–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest output', () => {
+  const { design, option } = linearOption({
+    input: { vMin: 3.6, vNom: 3.8, vMax: 4.2, source: 'battery' },
+    output: { v: 3.3, tolerance: 0.05, iMin: 0.01, iTyp: 0.5, iMax: 0.9 },
+    noise: { class: 'digital' },
+    thermal,
+  });
+  test('no linear option is offered: the worst-case output plus dropout exceeds the 3.6 V trough', () => {
+    expect(option.feasible).toBe(false);
+    expect(option.issues).toContainEqual(expect.objectContaining({ code: 'headroom', severity: 'blocker' }));
+  });
+  test('the fix names the input it would need: highest output + dropout', () => {
+    const fix = (design.fixes ?? []).find((f) => f.code === 'headroom')!;
+    const reg = classOf(option.components.find((c) => c.role === 'regulator')!.part);
+    const need = Number(/at least ([0-9.]+) V/.exec(fix.change)![1]);
+    // The chosen class's requirement is the option's highest output plus its dropout.
+    expect(need).toBeGreaterThan(3.6);
+    expect(need).toBeLessThanOrEqual(option.vOutRange.max + reg.dropoutV + 0.005);
+  });
+});
+
+describe('grade escalation: 12 V → 5 V ±1 %', () => {
+  const { option } = linearOption({
+    input: { vMin: 11.4, vNom: 12, vMax: 12.6, source: 'adapter' },
+    output: { v: 5, tolerance: 0.01, iMin: 0.01, iTyp: 0.1, iMax: 0.2 },
+    noise: { class: 'digital' },
+    thermal,
+  });
+  test('a ±1 % rail is met by escalating to a precision reference grade and fine resistors', () => {
+    expect(option.feasible).toBe(true);
+    const reg = option.components.find((c) => c.role === 'regulator')!;
+    const r1 = option.components.find((c) => c.role === 'feedback-lower')!;
+    // A ±1 % rail cannot hold with a ±1 % reference and 1 % resistors: the reference alone uses the band.
+    expect(reg.tolerance!).toBeLessThan(0.01);
+    expect(r1.tolerance!).toBeLessThan(0.01);
+    expect(option.vOutRange.min).toBeGreaterThanOrEqual(4.95);
+    expect(option.vOutRange.max).toBeLessThanOrEqual(5.05);
+  });
+});
+
+describe('5 V → 2.5 V ±0.5 %, 10 mA reference rail', () => {
+  test('a precision series reference holds it', () => {
+    const { option } = linearOption({
+      input: { vMin: 4.75, vNom: 5, vMax: 5.25, source: 'adapter' },
+      output: { v: 2.5, tolerance: 0.005, iMin: 0.001, iTyp: 0.005, iMax: 0.01 },
+      noise: { class: 'precision' },
+      thermal,
+    });
+    expect(option.feasible).toBe(true);
+    expect(option.components.find((c) => c.role === 'regulator')!.part).toMatch(/reference/);
+  });
+});
+
+describe('ripple rejection against frequency (single-pole roll-off, 20 dB/decade — common practice)', () => {
+  const ldo = defaultCatalog.linearRegulators.find((c) => c.id === 'ldo-adj-1a')!;
+  test('flat at low frequency, falling 20 dB per decade to the 1 MHz figure, flat beyond', () => {
+    expect(rippleRejectionDb(ldo, 100, false)).toBe(ldo.psrrDb);
+    expect(rippleRejectionDb(ldo, PSRR_HF_HZ, false)).toBe(ldo.psrrHfDb);
+    expect(rippleRejectionDb(ldo, 4 * PSRR_HF_HZ, false)).toBe(ldo.psrrHfDb);
+    // 60 dB at low frequency, 40 dB at 1 MHz: the roll-off starts at 100 kHz; at 300 kHz, 40 + 20·log10(1e6/3e5) = 50.46 dB.
+    expect(rippleRejectionDb(ldo, 300e3, false)).toBeCloseTo(40 + 20 * Math.log10(1e6 / 3e5), 9);
+  });
+  test('noise: density × Vout/Vref × √(100 kHz − 10 Hz)', () => {
+    expect(outputNoiseRms(ldo, 3.6, false)).toBeCloseTo(ldo.noiseDensityVrtHz * 3 * Math.sqrt(100e3 - 10), 12);
+  });
+});
