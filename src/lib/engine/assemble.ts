@@ -2,11 +2,12 @@
 // spread, cautions, curves and sub-scores — the same way for every topology.
 import type { Context } from './context.ts';
 import { CURVE_POINTS, curveInputs, normalCorners } from './corners.ts';
-import { blocker, caution, makePart, type Design, type DesignPart, type OperatingPoint } from './design.ts';
+import { blocker, caution, info, makePart, type Design, type DesignPart, type OperatingPoint } from './design.ts';
 import { hazardousVoltage, hotSurfaces, mainsScope, storedEnergy, HOT_RESISTOR_W, type HotPart } from './cautions.ts';
 import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, ZENER_POWER_W, rateResistor, ratingFor } from './ratings.ts';
 import { subScores, weightedScore } from './scoring.ts';
-import { airflowFactor, assessThermal } from './thermal.ts';
+import { airflowFactor, assessThermal, enclosureRise, junctionTemperature, powerAtLimit, type ThermalPart } from './thermal.ts';
+import type { Trace } from './trace.ts';
 import { analyseTolerance, monteCarlo, toleranceVerdict } from './tolerance.ts';
 import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation } from './types.ts';
 import { formatSi } from './units.ts';
@@ -35,6 +36,31 @@ function toComponent(p: DesignPart): Component {
     quantity: p.quantity,
     costCents: p.costCents,
   };
+}
+
+interface JunctionFigures {
+  ambientC: number;
+  power: number;
+  airflow: number;
+  thetaCs: number;
+  beyond: boolean;
+}
+
+/** The junction temperature, or past the limit the dissipation the part could carry: never a temperature beyond it. */
+function traceJunction(trace: Trace, ref: string, part: ThermalPart, sinkCW: number | null, f: JunctionFigures): void {
+  const common = { Ta: [f.ambientC, '°C'], kair: [f.airflow, ''] } as const;
+  const bare = { ...common, θJA: [part.thetaJaCW, 'K/W'] } as const;
+  const sunk = { ...common, θJC: [part.thetaJcCW, 'K/W'], θCS: [f.thetaCs, 'K/W'], θSA: [sinkCW ?? 0, 'K/W'] } as const;
+  if (f.beyond) {
+    const label = `Largest dissipation ${ref} carries within its ${part.tjMaxC} °C limit (it would dissipate ${formatSi(f.power, 'W', 3)})`;
+    const theta = sinkCW === null ? part.thetaJaCW * f.airflow : part.thetaJcCW + f.thetaCs + sinkCW * f.airflow;
+    const equation = sinkCW === null ? 'Pmax = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Pmax = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
+    trace.add(`${ref}.pmax`, label, equation, { ...(sinkCW === null ? bare : sunk), 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
+  } else if (sinkCW === null) {
+    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·θJA·kair', { ...bare, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]), '°C');
+  } else {
+    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·(θJC + θCS + θSA·kair)', { ...sunk, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJcCW, f.thetaCs, sinkCW * f.airflow]), '°C');
+  }
 }
 
 export function assemble(design: Design, ctx: Context, seed: number): Option {
@@ -93,9 +119,31 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     }
   }
 
+  // Efficiency and dissipation.
+  const nominal = design.operate(spec.input.vNom, spec.output.iTyp);
+  const effNominal = efficiencyOf(nominal);
+  let effWorst = 1;
+  let totalMaxW = 0;
+  points.forEach((p, k) => {
+    if (corners[k]!.iOut > 0) effWorst = Math.min(effWorst, efficiencyOf(p));
+    totalMaxW = Math.max(totalMaxW, p.pInW - p.pOutW);
+  });
+  trace.add('efficiency.nominal', 'Efficiency at the nominal corner', 'η = Pout / Pin', { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] }, effNominal, '');
+  trace.select('efficiency.worst', 'Lowest efficiency over the loaded corners', 'η = min(Pout / Pin)', {}, effWorst, '');
+  trace.select('dissipation.total', 'Largest total dissipation over the corners', 'P = max(Pin − Pout)', {}, totalMaxW, 'W');
+
   // Thermal: each part with a junction, at its worst normal dissipation, or the fault one when
-  // nothing protects it in a short.
+  // nothing protects it in a short; inside an enclosure its ambient is the box's inside air.
   const airflow = airflowFactor(spec, catalog);
+  const box = enclosureRise(spec, totalMaxW);
+  const ambientC = box === null ? ctx.ambientC : ctx.ambientC + box.riseK;
+  if (box !== null) {
+    const { P, Pother, k, A, ρcp, V̇ } = box.inputs;
+    trace.add('enclosure.rise', 'Inside air rise of the enclosure (steady heat balance: surface k·A after IEC TR 60890, plus the fan’s air ρ·cp·V̇)', 'ΔT = (P + Pother)/(k·A + ρcp·V̇)', {
+      P: [P, 'W'], Pother: [Pother, 'W'], k: [k, 'W/(m²·K)'], A: [A, 'm²'], ρcp: [ρcp, 'J/(m³·K)'], V̇: [V̇, 'm³/s'],
+    }, box.riseK, 'K');
+    issues.push(info('enclosure', `Inside the enclosure the air runs ${box.riseK.toFixed(1)} K above the room with ${(P + Pother).toFixed(2)} W dissipated in it: every part is rated at ${ambientC.toFixed(1)} °C ambient.`));
+  }
   const junctions: Junction[] = [];
   const surfaces: HotPart[] = [];
   const sinks: DesignPart[] = [];
@@ -108,26 +156,37 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     const s = stresses.get(p.ref)!;
     const power = Math.max(s.maxW, p.thermal.protectedInFault ? 0 : s.faultW);
     const forcedSink = spec.overrides.heatsinkThetaSaCW;
-    const t = assessThermal(p.thermal, power, ctx.ambientC, airflow, catalog, p.thermal.heatsinkable ? forcedSink : undefined);
-    trace.add(`${p.ref}.tj`, `${p.ref} junction temperature`, t.sinkThetaCW === null ? 'Tj = Ta + P·θJA' : 'Tj = Ta + P·(θJC + θCS + θSA)', {
-      Ta: [ctx.ambientC, '°C'], P: [power, 'W'], θJA: [p.thermal.thetaJaCW * airflow, 'K/W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θSA: [(t.sinkThetaCW ?? 0) * airflow, 'K/W'],
-    }, t.tjC, '°C');
-    junctions.push({ ref: p.ref, tjC: t.tjC, tjMaxC: p.thermal.tjMaxC, heatsink: t.sinkThetaCW !== null });
-    surfaces.push({ ref: t.sinkThetaCW === null ? p.ref : `heatsink of ${p.ref}`, surfaceC: t.surfaceC });
-    margin = Math.min(margin, (p.thermal.tjMaxC - t.tjC) / Math.max(1, p.thermal.tjMaxC - ctx.ambientC));
+    const t = assessThermal(p.thermal, power, ambientC, airflow, catalog, p.thermal.heatsinkable ? forcedSink : undefined);
+    const limitC = p.thermal.tjMaxC;
+    const beyond = t.tjC > limitC;
+    traceJunction(trace, p.ref, p.thermal, t.sinkThetaCW, { ambientC, power, airflow, thetaCs: catalog.thermal.thetaCsCW, beyond });
+    junctions.push({ ref: p.ref, tjC: Math.min(t.tjC, limitC), tjMaxC: limitC, heatsink: t.sinkThetaCW !== null, beyondLimit: beyond });
+    surfaces.push({ ref: t.sinkThetaCW === null ? p.ref : `heatsink of ${p.ref}`, surfaceC: Math.min(t.surfaceC, limitC), beyondLimitC: t.surfaceC > limitC ? limitC : null });
+    margin = Math.min(margin, (limitC - t.tjC) / Math.max(1, limitC - ambientC));
     if (t.maxThetaSaCW !== null) {
       maxThetaSa = maxThetaSa === null ? t.maxThetaSaCW : Math.min(maxThetaSa, t.maxThetaSaCW);
-      trace.add(`${p.ref}.thetasa`, `Largest heatsink θSA for ${p.ref}`, 'θSA,max = (Tj,max − margin − Ta)/P − θJC − θCS', {
-        'Tj,max': [p.thermal.tjMaxC, '°C'], margin: [catalog.thermal.tjMarginK, 'K'], Ta: [ctx.ambientC, '°C'], P: [power, 'W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θCS: [catalog.thermal.thetaCsCW, 'K/W'],
+      trace.add(`${p.ref}.thetasa`, `Largest heatsink θSA for ${p.ref} (the sink's θSA scales with the airflow factor kair)`, 'θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair', {
+        'Tj,max': [limitC, '°C'], margin: [catalog.thermal.tjMarginK, 'K'], Ta: [ambientC, '°C'], P: [power, 'W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θCS: [catalog.thermal.thetaCsCW, 'K/W'], kair: [airflow, ''],
       }, t.maxThetaSaCW, 'K/W');
     }
     if (t.sinkThetaCW !== null) {
       heatsinkRequired = true;
       sinks.push(makePart({ ref: `HS${sinks.length + 1}`, role: 'heatsink', part: `Heatsink for ${p.ref}`, value: t.sinkThetaCW, unit: 'K/W', costCents: t.sinkCostCents }));
     }
-    if (t.problem === 'too-hot') issues.push(blocker('thermal', `${p.ref} would reach ${t.tjC.toFixed(0)} °C (limit ${p.thermal.tjMaxC} °C)${p.thermal.heatsinkable ? '' : ' and cannot take a heatsink'}.`));
+    const at = formatSi(power, 'W', 3);
+    if (t.problem === 'too-hot') {
+      const why = t.sinkThetaCW !== null ? ` even on the ${t.sinkThetaCW} K/W heatsink` : p.thermal.heatsinkable ? '' : ' and cannot take a heatsink';
+      issues.push(blocker('thermal', `${p.ref} would be beyond its ${limitC} °C limit at ${at}${why}.`));
+    }
     if (t.problem === 'no-sink-fits') {
-      issues.push(blocker('heatsink', `${p.ref} dissipates ${power.toFixed(1)} W and needs θSA ≤ ${(t.maxThetaSaCW ?? 0).toFixed(2)} K/W, beyond any heatsink in the catalog.`));
+      issues.push(
+        blocker(
+          'heatsink',
+          t.maxThetaSaCW === null
+            ? `${p.ref} dissipates ${at}: no heatsink is good enough (needs < 0 K/W: its own θJC and the interface θCS already take it past ${limitC - catalog.thermal.tjMarginK} °C).`
+            : `${p.ref} dissipates ${at} and needs θSA ≤ ${t.maxThetaSaCW.toFixed(2)} K/W, beyond any heatsink in the catalog.`,
+        ),
+      );
     }
     if (t.problem === 'impractical') {
       impractical = true;
@@ -135,18 +194,6 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     }
   }
 
-  // Efficiency and dissipation.
-  const nominal = design.operate(spec.input.vNom, spec.output.iTyp);
-  const effNominal = efficiencyOf(nominal);
-  let effWorst = 1;
-  let totalMaxW = 0;
-  points.forEach((p, k) => {
-    if (corners[k]!.iOut > 0) effWorst = Math.min(effWorst, efficiencyOf(p));
-    totalMaxW = Math.max(totalMaxW, p.pInW - p.pOutW);
-  });
-  trace.add('efficiency.nominal', 'Efficiency at the nominal corner', 'η = Pout / Pin', { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] }, effNominal, '');
-  trace.add('efficiency.worst', 'Lowest efficiency over the loaded corners', 'η = min(Pout / Pin)', {}, effWorst, '');
-  trace.add('dissipation.total', 'Largest total dissipation over the corners', 'P = max(Pin − Pout)', {}, totalMaxW, 'W');
   const failing = corners.find((_corner, k) => !points[k]!.regulates);
   if (failing && !issues.some((i) => i.severity === 'blocker')) {
     issues.push(blocker('corner', `The design does not regulate at ${failing.vIn} V in and ${failing.iOut} A out.`));
@@ -157,9 +204,10 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const spread = analyseTolerance(design.output);
   const eva = spread.worstCase;
   const half = design.rippleVpp / 2;
-  const vOutRange = { min: eva.min - half, max: eva.max + half };
-  trace.add('vout.min', 'Lowest output (extreme values, less half the ripple)', 'Vmin = min over tolerance corners − ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
-  trace.add('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
+  // A positive rail collapses to 0 V at worst; it never reverses.
+  const vOutRange = { min: Math.max(0, eva.min - half), max: Math.max(0, eva.max + half) };
+  trace.select('vout.min', 'Lowest output (extreme values, less half the ripple; never below 0 V)', 'Vmin = max(0, min over tolerance corners − ΔV/2)', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
+  trace.select('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
   const draws = spec.overrides.mcDraws ?? 10_000;
   // The ripple rides on every draw, so the draw itself must sit half the ripple inside the band.
   const mc = monteCarlo(design.output, draws, seed, { lo: band.lo + half, hi: band.hi - half }, eva);

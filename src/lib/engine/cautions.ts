@@ -23,6 +23,8 @@ export interface ChargedCapacitor {
 export interface HotPart {
   ref: string;
   surfaceC: number;
+  /** The part's limit when it would pass it: the caution then names the limit, never a temperature beyond it. */
+  beyondLimitC: number | null;
 }
 
 export function hazardousVoltage(spec: RailSpec, vOutMax: number): Caution | null {
@@ -59,7 +61,7 @@ export function hotSurfaces(parts: readonly HotPart[], hotResistors: readonly st
   const hot = parts.filter((p) => p.surfaceC > HOT_SURFACE_C);
   if (hot.length === 0 && hotResistors.length === 0) return null;
   const list = [
-    ...hot.map((p) => `${p.ref} (about ${p.surfaceC.toFixed(0)} °C)`),
+    ...hot.map((p) => (p.beyondLimitC === null ? `${p.ref} (about ${p.surfaceC.toFixed(0)} °C)` : `${p.ref} (beyond its ${p.beyondLimitC} °C limit)`)),
     ...hotResistors.map((r) => `${r} (power resistor)`),
   ].join(', ');
   return {

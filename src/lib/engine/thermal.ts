@@ -10,10 +10,54 @@ export function junctionTemperature(ambientC: number, powerW: number, thetasCW: 
   return ambientC + powerW * sum;
 }
 
-/** θSA,max = (Tj,design − Ta)/P − θJC − θCS; Infinity-free: null when the part dissipates nothing. */
-export function maxSinkTheta(tjDesignC: number, ambientC: number, powerW: number, thetaJcCW: number, thetaCsCW: number): number | null {
+/**
+ * θSA,max = ((Tj,design − Ta)/P − θJC − θCS)/k, k the airflow factor the sink's θSA is scaled by.
+ * Null when the part dissipates nothing, or when no heatsink can work (the budget is spent before
+ * the sink: a θSA at or below zero does not exist).
+ */
+export function maxSinkTheta(tjDesignC: number, ambientC: number, powerW: number, thetaJcCW: number, thetaCsCW: number, airflow: number): number | null {
   if (!(powerW > 0)) return null;
-  return (tjDesignC - ambientC) / powerW - thetaJcCW - thetaCsCW;
+  const theta = ((tjDesignC - ambientC) / powerW - thetaJcCW - thetaCsCW) / airflow;
+  return theta > 0 ? theta : null;
+}
+
+/** The dissipation at which a junction reaches its limit through the thermal resistance θ, W (never negative). */
+export function powerAtLimit(tjMaxC: number, ambientC: number, thetaCW: number): number {
+  return Math.max(0, (tjMaxC - ambientC) / thetaCW);
+}
+
+/**
+ * Heat-transfer coefficient of an enclosure's outer surface to still room air (convection and
+ * radiation together), W/(m²·K): about 5.5 for painted sheet metal as IEC TR 60890 takes it, and
+ * lower for plastic (from memory).
+ */
+export const ENCLOSURE_K_W_M2K = { metal: 5.5, plastic: 3.5 } as const;
+/** Volumetric heat capacity of air near room temperature, ρ·cp ≈ 1.2 kg/m³ × 1005 J/(kg·K) (common practice). */
+export const AIR_RHO_CP_J_M3K = 1206;
+
+export interface EnclosureRise {
+  riseK: number;
+  /** The figures of ΔT = (P + Pother)/(k·A + ρcp·V̇), in SI units. */
+  inputs: { P: number; Pother: number; k: number; A: number; ρcp: number; V̇: number };
+}
+
+/**
+ * Inside air rise of the box the supply sits in, from a steady heat balance: everything dissipated
+ * inside leaves through the surface (k·A·ΔT) and with the fan's air (ρ·cp·V̇·ΔT). Null without an
+ * enclosure in the spec.
+ */
+export function enclosureRise(spec: RailSpec, dissipationW: number): EnclosureRise | null {
+  const box = spec.thermal.enclosure;
+  if (!box) return null;
+  const inputs = {
+    P: Math.max(0, dissipationW),
+    Pother: box.otherW,
+    k: ENCLOSURE_K_W_M2K[box.material],
+    A: box.surfaceCm2 * 1e-4,
+    ρcp: AIR_RHO_CP_J_M3K,
+    V̇: spec.thermal.airflow === 'forced-air' && box.fanFlowM3h !== undefined ? box.fanFlowM3h / 3600 : 0,
+  };
+  return { riseK: (inputs.P + inputs.Pother) / (inputs.k * inputs.A + inputs.ρcp * inputs.V̇), inputs };
 }
 
 /** Below about 1 K/W a heatsink is large, costly or needs a fan (common practice). */
@@ -60,14 +104,14 @@ export function assessThermal(
   const bare = junctionTemperature(ambientC, powerW, [part.thetaJaCW * airflow]);
   const withSink = (sink: number) => junctionTemperature(ambientC, powerW, [part.thetaJcCW, thetaCs, sink * airflow]);
   const sinkSurface = (sink: number) => ambientC + powerW * sink * airflow;
+  const limit = maxSinkTheta(tjDesign, ambientC, powerW, part.thetaJcCW, thetaCs, airflow);
   if (forcedSinkCW !== undefined && part.heatsinkable && powerW > 0) {
     const tj = withSink(forcedSinkCW);
-    const limit = maxSinkTheta(tjDesign, ambientC, powerW, part.thetaJcCW, thetaCs);
     return {
       tjC: tj,
       sinkThetaCW: forcedSinkCW,
       sinkCostCents: sinkCost(catalog, forcedSinkCW),
-      maxThetaSaCW: limit === null ? null : limit / airflow,
+      maxThetaSaCW: limit,
       surfaceC: sinkSurface(forcedSinkCW),
       problem: tj > part.tjMaxC ? 'too-hot' : 'none',
     };
@@ -78,10 +122,9 @@ export function assessThermal(
   if (!part.heatsinkable) {
     return { tjC: bare, sinkThetaCW: null, sinkCostCents: 0, maxThetaSaCW: null, surfaceC: bare, problem: 'too-hot' };
   }
-  const limit = (maxSinkTheta(tjDesign, ambientC, powerW, part.thetaJcCW, thetaCs) ?? 0) / airflow;
   // The catalog lists heatsinks from small to large; the first that meets the limit is the cheapest.
-  const sink = catalog.heatsinks.find((h) => h.thetaSaCW <= limit);
-  if (!sink) {
+  const sink = limit === null ? undefined : catalog.heatsinks.find((h) => h.thetaSaCW <= limit);
+  if (!sink || limit === null) {
     return { tjC: bare, sinkThetaCW: null, sinkCostCents: 0, maxThetaSaCW: limit, surfaceC: bare, problem: 'no-sink-fits' };
   }
   return {

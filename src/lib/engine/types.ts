@@ -40,6 +40,8 @@ export interface Quantity {
 export interface TraceEntry {
   id: string;
   label: string;
+  /** `formula`: the equation's right-hand side recomputes the result from the inputs; `selection`: a minimum over corners, a search or a table look-up. */
+  kind: 'formula' | 'selection';
   equation: string;
   inputs: Record<string, Quantity>;
   result: Quantity;
@@ -70,9 +72,12 @@ export interface PartDissipation {
 
 export interface Junction {
   ref: string;
+  /** Junction temperature at the worst dissipation; held at tjMaxC when the part would pass its limit. */
   tjC: number;
   tjMaxC: number;
   heatsink: boolean;
+  /** The part would pass its limit: tjC is then the limit, not a temperature it could reach. */
+  beyondLimit: boolean;
 }
 
 export interface Histogram {

@@ -107,7 +107,7 @@ export function designSummary(option: Option): DesignSummary {
         ? `needed${option.heatsink.maxThetaSaCW !== null ? `, at most ${option.heatsink.maxThetaSaCW.toFixed(1)} °C/W` : ''}`
         : 'not needed',
     },
-    ...(hottest ? [{ label: 'Hottest part', value: `${hottest.ref} at about ${Math.round(hottest.tjC)} °C (limit ${Math.round(hottest.tjMaxC)} °C)` }] : []),
+    ...(hottest ? [{ label: 'Hottest part', value: hottest.beyondLimit ? `${hottest.ref} beyond its ${Math.round(hottest.tjMaxC)} °C limit` : `${hottest.ref} at about ${Math.round(hottest.tjC)} °C (limit ${Math.round(hottest.tjMaxC)} °C)` }] : []),
     {
       label: 'Tolerance check',
       value: `${percent(option.monteCarlo.fractionInTolerance, 1)} of ${option.monteCarlo.draws.toLocaleString('en-GB')} simulated builds within tolerance`,

@@ -58,9 +58,12 @@ describe('thermal chain Tj = Ta + P·Σθ (JEDEC JESD51 definitions of θJA, θJ
     expect(junctionTemperature(40, 2, [50])).toBe(140);
   });
 
-  test('largest heatsink θSA,max = (Tj,design − Ta)/P − θJC − θCS, with Tj,design = Tj,max − 25 K (common practice)', () => {
-    // (100 − 40)/2 − 5 − 0.5 = 24.5 K/W.
-    expect(maxSinkTheta(100, 40, 2, 5, 0.5)).toBe(24.5);
+  test('largest heatsink θSA,max = ((Tj,design − Ta)/P − θJC − θCS)/k, with Tj,design = Tj,max − 25 K (common practice)', () => {
+    // (100 − 40)/2 − 5 − 0.5 = 24.5 K/W in still air; enclosed (k = 1.3) the sink must be 24.5/1.3 = 18.85 K/W.
+    expect(maxSinkTheta(100, 40, 2, 5, 0.5, 1)).toBe(24.5);
+    expect(maxSinkTheta(100, 40, 2, 5, 0.5, 1.3)).toBeCloseTo(18.846, 3);
+    // The budget is spent before the sink: (100 − 40)/20 − 5 − 0.5 < 0, no heatsink exists.
+    expect(maxSinkTheta(100, 40, 20, 5, 0.5, 1)).toBeNull();
     const part = { thetaJcCW: 5, thetaJaCW: 50, tjMaxC: 125, heatsinkable: true };
     const r = assessThermal(part, 2, 40, 1, defaultCatalog, undefined);
     expect(r.maxThetaSaCW).toBeCloseTo(24.5, 9);

@@ -75,7 +75,7 @@ function optionFigures(o: Option, spec: RailSpec): string[] {
     if (d !== null && d < 0) out.push(`${at(`curves.dissipationW[${k}]`)}: negative ${d}`);
   });
   for (const [k, v] of [['vOutRange.min', o.vOutRange.min], ['tolerance.worstCase.min', o.tolerance.worstCase.min], ['monteCarlo.mean', o.monteCarlo.mean]] as const) {
-    if (v <= 0) out.push(`${at(k)}: ${v} V on a positive rail`);
+    if (v < 0) out.push(`${at(k)}: ${v} V on a positive rail`);
   }
   const ambient = spec.overrides.ambientC ?? spec.thermal.ambientMaxC;
   for (const j of o.junctions) {
