@@ -1,128 +1,20 @@
-// SPICE netlist export (ngspice dialect) of a designed option, with generic behavioural models
-// carrying the catalog's typical parameters. A netlist describes one operating corner.
+// SPICE netlist export (ngspice dialect) of a designed option at one operating corner. The linear
+// family uses the simulator's own device models (see spice/); the switchers are driven open loop at
+// the engine's duty cycle with ideal switches carrying the stage's Rds(on).
 import { defaultCatalog, type Catalog } from './catalog.ts';
-import type { Component, Option } from './types.ts';
+import type { Option } from './types.ts';
 import { boostPoint } from './topologies/boost.ts';
 import { buckBoostPoint } from './topologies/buck-boost.ts';
 import { buckPoint } from './topologies/buck.ts';
+import { linear, predrop, shunt, type SpiceCorner } from './spice/linear-family.ts';
+import { VT, assumed, byRole, num } from './spice/netlist-text.ts';
+import { regulatorInputCurrent, regulatorLines, regulatorParts } from './spice/regulator.ts';
 
-export interface SpiceCorner {
-  vIn: number;
-  iOut: number;
-}
+export type { SpiceCorner };
 
-/** Thermal voltage at 27 °C, the simulator's default temperature. */
-const VT = 0.025865;
-/** Transconductance of the behavioural error amplifier, A/V: its error is 10 µV per ampere delivered. */
-const ERROR_GM = 1e5;
 /** Open-loop transient: switching periods simulated and the tail averaged. */
 export const BUCK_PERIODS = 300;
 export const BUCK_AVERAGE_PERIODS = 50;
-
-const num = (x: number) => Number(x.toPrecision(9)).toString();
-
-function byRole(option: Option, role: Component['role']): Component[] {
-  return option.components.filter((c) => c.role === role);
-}
-
-function assumed(option: Option, key: string, fallback: number): number {
-  return option.assumptions[key]?.value ?? fallback;
-}
-
-/** The regulator's class, figures and divider: the feedback resistors listed after it (a switcher's come before). */
-function regulatorParts(option: Option, regRef: string, catalog: Catalog) {
-  const at = option.components.findIndex((c) => c.ref === regRef);
-  const after = option.components.slice(at);
-  const cls = catalog.linearRegulators.find((c) => c.label === option.components[at]!.part);
-  return {
-    cls,
-    vRef: assumed(option, `${regRef}.vRef`, cls?.vRefV ?? 1.25),
-    iAdj: assumed(option, `${regRef}.iAdj`, 0),
-    iq: assumed(option, `${regRef}.iq`, 0),
-    lower: after.find((c) => c.role === 'feedback-lower'),
-    upper: after.find((c) => c.role === 'feedback-upper'),
-  };
-}
-
-/**
- * Regulator as a behavioural pass element: a transconductance from the input to the output holds
- * the sensed voltage at the reference (floating: OUT − ADJ; ground-referenced: FB), plus the
- * adjust-pin and ground-pin currents. Ideal above dropout: the corners simulated keep headroom.
- */
-function regulatorLines(option: Option, regRef: string, inNode: string, catalog: Catalog): string[] {
-  const { cls, vRef, iAdj, iq, lower, upper } = regulatorParts(option, regRef, catalog);
-  const lines: string[] = [];
-  if (!cls || cls.kind === 'fixed' || !lower || !upper) {
-    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - V(out)`);
-  } else if (cls.kind === 'adjustable') {
-    // Floating reference between OUT and ADJ; R1 across it, R2 from ADJ to ground.
-    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - (V(out) - V(adj))`);
-    lines.push(`I${regRef}adj ${inNode} adj DC ${num(iAdj)}`);
-    lines.push(`R${lower.ref} out adj ${num(lower.value ?? 0)}`, `R${upper.ref} adj 0 ${num(upper.value ?? 0)}`);
-  } else {
-    // Ground-referenced feedback: R2 from OUT to FB, R1 from FB to ground.
-    lines.push(`B${regRef}e e_${regRef} 0 V = ${num(vRef)} - V(adj)`);
-    lines.push(`I${regRef}fb adj 0 DC ${num(iAdj)}`);
-    lines.push(`R${upper.ref} out adj ${num(upper.value ?? 0)}`, `R${lower.ref} adj 0 ${num(lower.value ?? 0)}`);
-  }
-  lines.push(`G${regRef} ${inNode} out e_${regRef} 0 ${ERROR_GM}`);
-  if (iq > 0) lines.push(`I${regRef}q ${inNode} 0 DC ${num(iq)}`);
-  return lines;
-}
-
-function zenerModel(name: string, vKnee: number, rz: number, iNear: number): string {
-  // A steep breakdown (NBV 0.05: about 3 mV per decade of current) at the knee, with rz in series,
-  // reproduces Vz(I) = Vk + rz·I exactly at IBV and within millivolts across the working range.
-  return `.model ${name} D(BV=${num(vKnee)} IBV=${num(Math.max(iNear, 1e-6))} NBV=0.05 RS=${num(Math.max(rz, 1e-3))})`;
-}
-
-function shunt(option: Option, corner: SpiceCorner): string[] {
-  const rs = byRole(option, 'series-resistor')[0]!;
-  const dz = byRole(option, 'zener')[0]!;
-  const vKnee = assumed(option, `${dz.ref}.vKnee`, dz.value ?? 0);
-  const rz = assumed(option, `${dz.ref}.rz`, 0);
-  const iTest = assumed(option, `${dz.ref}.iTest`, 5e-3);
-  return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
-    `D${dz.ref} 0 out DZ`,
-    zenerModel('DZ', vKnee, rz, iTest),
-    `Iload out 0 DC ${num(corner.iOut)}`,
-    '.op',
-  ];
-}
-
-function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
-  const reg = byRole(option, 'regulator')[0]!;
-  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog), `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
-}
-
-function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
-  const q = byRole(option, 'pass-transistor')[0]!;
-  const dz = byRole(option, 'standoff-zener')[0]!;
-  const rs = byRole(option, 'sense-resistor')[0]!;
-  const rb = byRole(option, 'bias-resistor')[0]!;
-  const reg = byRole(option, 'regulator')[0]!;
-  const dev = catalog.passDevices.find((d) => d.label === q.part);
-  const vc = assumed(option, `${q.ref}.vControl`, dev?.vControlV ?? 0.7);
-  const rz = assumed(option, `${dz.ref}.rz`, 0);
-  const iNominal = Math.max(corner.iOut, 1e-3);
-  const device =
-    dev?.kind === 'nmos'
-      ? [`M${q.ref} in b e e NHV`, `.model NHV NMOS(LEVEL=1 VTO=${num(vc - 0.5)} KP=${num((2 * iNominal) / 0.25)})`]
-      : [`Q${q.ref} in b e QHV`, `.model QHV NPN(BF=${num(dev?.gainMin ?? 10)} IS=${num(iNominal * Math.exp(-vc / VT))})`];
-  return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    ...device,
-    `R${rb.ref} in b ${num(rb.value ?? 0)}`,
-    `D${dz.ref} out b DZ`,
-    zenerModel('DZ', (dz.value ?? 0) - rz * 5e-3, rz, 5e-3),
-    `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
-    ...regulatorLines(option, reg.ref, 'rin', catalog),
-    `Iload out 0 DC ${num(corner.iOut)}`,
-    '.op',
-  ];
-}
 
 /** What every switcher netlist needs: the stage, its assumed figures, the power inductor and output capacitors. */
 function switcherParts(option: Option, catalog: Catalog) {
@@ -259,13 +151,12 @@ function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): strin
 function buckLinear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const net = switcherParts(option, catalog);
   const reg = byRole(option, 'regulator')[0]!;
-  const r = regulatorParts(option, reg.ref, catalog);
-  const iBus = corner.iOut + (r.lower ? r.vRef / (r.lower.value ?? 1) : 0) + r.iAdj + r.iq;
+  const iBus = regulatorInputCurrent(regulatorParts(option, reg.ref, catalog), corner.iOut);
   const bus = outputNetwork(option, net, 'bus', iBus);
   return [
     ...buckStageLines(net, corner.vIn, iBus, 'bus'),
     ...bus.lines,
-    ...regulatorLines(option, reg.ref, bus.rail, catalog),
+    ...regulatorLines(option, reg.ref, bus.rail, catalog, corner.iOut),
     `Iload out 0 DC ${num(corner.iOut)}`,
     transientLine(net),
   ];

@@ -35,7 +35,8 @@ describe('buck + linear post-regulator design against an ngspice switching trans
     expect(option.feasible).toBe(true);
     const netlist = toSpiceNetlist(option, { vIn: 12, iOut: 0.3 });
     expect(netlist).toMatch(/^RL\S+ nl2 bus /m);
-    expect(netlist).toMatch(new RegExp(`^G${reg} bus out `, 'm'));
+    // The low-dropout class's PMOS pass device from the bus (source) to the output (drain).
+    expect(netlist).toMatch(new RegExp(`^M${reg}p out \\S+ bus bus `, 'm'));
   });
 
   // Measured (bus, regulator output, average IL against the bus current, ΔIL against the engine's,

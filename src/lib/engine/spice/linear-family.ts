@@ -1,0 +1,55 @@
+// Netlists of the Zener shunt, the linear regulator and the linear regulator with a high-voltage
+// pre-drop, built from the design's part list (snapped values) and the catalog's device figures.
+import type { Catalog } from '../catalog.ts';
+import type { Option } from '../types.ts';
+import { num, partOf } from './netlist-text.ts';
+import { passDeviceLines } from './pass-device.ts';
+import { regulatorLines } from './regulator.ts';
+import { zenerModel } from './zener.ts';
+
+export interface SpiceCorner {
+  vIn: number;
+  iOut: number;
+}
+
+export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const rs = partOf(option, 'series-resistor');
+  const dz = partOf(option, 'zener');
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
+    `D${dz.ref} 0 out DZ${dz.ref}`,
+    zenerModel(`DZ${dz.ref}`, dz, catalog),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
+}
+
+export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const reg = partOf(option, 'regulator');
+  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut), `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
+}
+
+/**
+ * The pass device from the input to `e`, its base or gate on node `b` held by the standoff Zener
+ * above the output and fed through the bias resistor; the sense resistor from `e` to the
+ * regulator's input `rin`.
+ */
+export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const q = partOf(option, 'pass-transistor');
+  const dz = partOf(option, 'standoff-zener');
+  const rs = partOf(option, 'sense-resistor');
+  const rb = partOf(option, 'bias-resistor');
+  const reg = partOf(option, 'regulator');
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    ...passDeviceLines(q, 'in', 'b', 'e', catalog),
+    `R${rb.ref} in b ${num(rb.value ?? 0)}`,
+    `D${dz.ref} out b DZ${dz.ref}`,
+    zenerModel(`DZ${dz.ref}`, dz, catalog),
+    `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
+    ...regulatorLines(option, reg.ref, 'rin', catalog, corner.iOut),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
+}
