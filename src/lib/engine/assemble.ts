@@ -54,8 +54,8 @@ function traceJunction(trace: Trace, ref: string, part: ThermalPart, sinkCW: num
   if (f.beyond) {
     const label = `Largest dissipation ${ref} carries within its ${part.tjMaxC} °C limit (it would dissipate ${formatSi(f.power, 'W', 3)})`;
     const theta = sinkCW === null ? part.thetaJaCW * f.airflow : part.thetaJcCW + f.thetaCs + sinkCW * f.airflow;
-    const equation = sinkCW === null ? 'Pmax = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Pmax = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
-    trace.add(`${ref}.pmax`, label, equation, { ...(sinkCW === null ? bare : sunk), 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
+    const equation = sinkCW === null ? 'Plimit = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Plimit = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
+    trace.add(`${ref}.plimit`, label, equation, { ...(sinkCW === null ? bare : sunk), 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
   } else if (sinkCW === null) {
     trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·θJA·kair', { ...bare, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]), '°C');
   } else {
@@ -128,7 +128,11 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     if (corners[k]!.iOut > 0) effWorst = Math.min(effWorst, efficiencyOf(p));
     totalMaxW = Math.max(totalMaxW, p.pInW - p.pOutW);
   });
-  trace.add('efficiency.nominal', 'Efficiency at the nominal corner', 'η = Pout / Pin', { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] }, effNominal, '');
+  if (nominal.pInW > 0) {
+    trace.add('efficiency.nominal', 'Efficiency at the nominal corner', 'η = min(1, max(0, Pout/Pin))', { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] }, effNominal, '');
+  } else {
+    trace.select('efficiency.nominal', 'Efficiency at the nominal corner (the design draws no input power there)', 'η = 0', {}, effNominal, '');
+  }
   trace.select('efficiency.worst', 'Lowest efficiency over the loaded corners', 'η = min(Pout / Pin)', {}, effWorst, '');
   trace.select('dissipation.total', 'Largest total dissipation over the corners', 'P = max(Pin − Pout)', {}, totalMaxW, 'W');
 
@@ -159,14 +163,14 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     const t = assessThermal(p.thermal, power, ambientC, airflow, catalog, p.thermal.heatsinkable ? forcedSink : undefined);
     const limitC = p.thermal.tjMaxC;
     const beyond = t.tjC > limitC;
-    traceJunction(trace, p.ref, p.thermal, t.sinkThetaCW, { ambientC, power, airflow, thetaCs: catalog.thermal.thetaCsCW, beyond });
+    traceJunction(trace, p.ref, p.thermal, t.sinkThetaCW, { ambientC, power, airflow, thetaCs: p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, beyond });
     junctions.push({ ref: p.ref, tjC: Math.min(t.tjC, limitC), tjMaxC: limitC, heatsink: t.sinkThetaCW !== null, beyondLimit: beyond });
     surfaces.push({ ref: t.sinkThetaCW === null ? p.ref : `heatsink of ${p.ref}`, surfaceC: Math.min(t.surfaceC, limitC), beyondLimitC: t.surfaceC > limitC ? limitC : null });
     margin = Math.min(margin, (limitC - t.tjC) / Math.max(1, limitC - ambientC));
     if (t.maxThetaSaCW !== null) {
       maxThetaSa = maxThetaSa === null ? t.maxThetaSaCW : Math.min(maxThetaSa, t.maxThetaSaCW);
       trace.add(`${p.ref}.thetasa`, `Largest heatsink θSA for ${p.ref} (the sink's θSA scales with the airflow factor kair)`, 'θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair', {
-        'Tj,max': [limitC, '°C'], margin: [catalog.thermal.tjMarginK, 'K'], Ta: [ambientC, '°C'], P: [power, 'W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θCS: [catalog.thermal.thetaCsCW, 'K/W'], kair: [airflow, ''],
+        'Tj,max': [limitC, '°C'], margin: [catalog.thermal.tjMarginK, 'K'], Ta: [ambientC, '°C'], P: [power, 'W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θCS: [p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, 'K/W'], kair: [airflow, ''],
       }, t.maxThetaSaCW, 'K/W');
     }
     if (t.sinkThetaCW !== null) {
