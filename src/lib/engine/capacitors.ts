@@ -71,52 +71,64 @@ interface Fit {
   costCents: number;
 }
 
-/** E6 value at or above the wanted one; null when the case cannot hold it. */
+/** E6 value at or above the wanted one, capped at the case's largest. */
 function valueIn(row: Case, wanted: number): number {
   const v = snap(Math.max(wanted, 1e-12), 'E6', 'up');
   return v <= row.cMaxF * (1 + 1e-9) ? v : row.cMaxF;
 }
 
-function fitCase(family: CapacitorFamily, row: Case, need: CapacitorNeed): Fit | null {
-  if (row.vRatedV < CAPACITOR_VOLTAGE_FACTOR * need.workingV) return null;
-  const keep = (1 - family.tolerance) * biasRetention(family, need.workingV, row.vRatedV);
-  let count: number;
-  let perPartF: number;
-  if (need.forcedF !== undefined) {
-    const forcedF = need.forcedF;
-    // A forced total is built from equal standard values; none of them in this case means no fit.
-    const n = [1, 2, 3, 4, 5, 6].find((k) => forcedF / k <= row.cMaxF * (1 + 1e-9) && Math.abs(snap(forcedF / k, 'E12') / (forcedF / k) - 1) < 0.01);
-    if (n === undefined) return null;
-    count = n;
-    perPartF = forcedF / n;
-  } else {
-    const byC = Math.ceil(need.effectiveF / (row.cMaxF * keep) - 1e-9);
-    const byRms = Math.ceil(need.rmsA / row.rippleA - 1e-9);
-    const byEsr = Number.isFinite(need.esrMaxOhm) && need.esrMaxOhm > 0 ? Math.ceil(row.esrOhm / need.esrMaxOhm - 1e-9) : 1;
-    count = Math.max(1, byC, byRms, byEsr);
-    perPartF = valueIn(row, need.effectiveF / (count * keep));
+/** Parts a forced total needs in this case: equal standard values (E12), or 0 when none fits. */
+function forcedCount(forcedF: number, row: Case): number {
+  for (let k = 1; k <= MAX_PARALLEL; k += 1) {
+    const each = forcedF / k;
+    if (each <= row.cMaxF * (1 + 1e-9) && Math.abs(snap(each, 'E12') / each - 1) < 0.01) return k;
   }
-  if (count > MAX_PARALLEL) return null;
-  const lifeHours = electrolyticLife(family, need.ambientC, need.rmsA / count, row.rippleA);
-  return { family, row, perPartF, count, effectiveF: perPartF * count * keep, lifeHours, costCents: row.costCents * count };
+  return 0;
 }
 
-/** Cheapest fit; electrolytics short of the life target only when nothing else fits. */
+/** Fraction of the nominal capacitance left: the lower tolerance and the DC-bias loss. */
+function retained(family: CapacitorFamily, row: Case, workingV: number): number {
+  return (1 - family.tolerance) * biasRetention(family, workingV, row.vRatedV);
+}
+
+/** Parts in parallel this case needs for capacitance, ripple current and ESR (0 when it cannot). */
+function countFor(family: CapacitorFamily, row: Case, need: CapacitorNeed): number {
+  if (row.vRatedV < CAPACITOR_VOLTAGE_FACTOR * need.workingV) return 0;
+  if (need.forcedF !== undefined) return forcedCount(need.forcedF, row);
+  const byC = Math.ceil(need.effectiveF / (row.cMaxF * retained(family, row, need.workingV)) - 1e-9);
+  const byRms = Math.ceil(need.rmsA / row.rippleA - 1e-9);
+  const byEsr = Number.isFinite(need.esrMaxOhm) && need.esrMaxOhm > 0 ? Math.ceil(row.esrOhm / need.esrMaxOhm - 1e-9) : 1;
+  const count = Math.max(1, byC, byRms, byEsr);
+  return count > MAX_PARALLEL ? 0 : count;
+}
+
+/**
+ * Cheapest case (fewer parts at equal cost); electrolytics short of the life target only when
+ * nothing else fits. Only the winner's value is worked out.
+ */
 function bestFit(catalog: Catalog, need: CapacitorNeed): Fit | null {
-  let best: Fit | null = null;
-  let bestShortLived: Fit | null = null;
+  type Pick = { family: CapacitorFamily; row: Case; count: number; life: number | null };
+  let best: Pick | null = null;
+  let bestShort: Pick | null = null;
   for (const family of catalog.capacitors) {
     for (const row of family.cases) {
-      const fit = fitCase(family, row, need);
-      if (!fit) continue;
-      const shortLived = fit.lifeHours !== null && fit.lifeHours < LIFE_TARGET_H;
-      const better = (a: Fit | null) => a === null || fit.costCents < a.costCents || (fit.costCents === a.costCents && fit.count < a.count);
-      if (shortLived) {
-        if (better(bestShortLived)) bestShortLived = fit;
-      } else if (better(best)) best = fit;
+      const count = countFor(family, row, need);
+      if (count === 0) continue;
+      const life = electrolyticLife(family, need.ambientC, need.rmsA / count, row.rippleA);
+      const cost = row.costCents * count;
+      const short = life !== null && life < LIFE_TARGET_H;
+      const than = short ? bestShort : best;
+      if (than !== null && !(cost < than.row.costCents * than.count || (cost === than.row.costCents * than.count && count < than.count))) continue;
+      if (short) bestShort = { family, row, count, life };
+      else best = { family, row, count, life };
     }
   }
-  return best ?? bestShortLived;
+  const chosen = best ?? bestShort;
+  if (chosen === null) return null;
+  const { family, row, count, life } = chosen;
+  const keep = retained(family, row, need.workingV);
+  const perPartF = need.forcedF !== undefined ? snap(need.forcedF / count, 'E12') : valueIn(row, need.effectiveF / (count * keep));
+  return { family, row, perPartF, count, effectiveF: perPartF * count * keep, lifeHours: life, costCents: row.costCents * count };
 }
 
 function describe(fit: Fit): string {

@@ -46,31 +46,48 @@ export type SnapMode = 'nearest' | 'down' | 'up';
 // Relative slack so that a value already in the series (e.g. 4700 computed as 4699.999…) snaps to itself.
 const SLACK = 1e-9;
 
+/**
+ * mantissa·10^decade as the double nearest the decimal value: series mantissas have at most two
+ * decimals, so k = 100·mantissa is an integer and one exact power of ten rounds it correctly.
+ */
 function scaled(mantissa: number, decade: number): number {
-  return Number((mantissa * 10 ** decade).toPrecision(12));
+  const k = Math.round(mantissa * 100);
+  const e = decade - 2;
+  return e >= 0 ? k * 10 ** e : k / 10 ** -e;
 }
 
-/** Snaps a positive value to the series across decades; nearest is measured as a ratio. */
+/**
+ * Snaps a positive value to the series across decades; nearest is measured as a ratio. Only the
+ * two members below and the two above the value's mantissa can win (found by bisection), taken in
+ * ascending order so ties resolve to the lower member.
+ */
 export function snap(value: number, series: SeriesName, mode: SnapMode = 'nearest'): number {
   if (!(value > 0) || !Number.isFinite(value)) return Number.NaN;
   const table = E_SERIES[series];
+  const n = table.length;
   const decade = Math.floor(Math.log10(value));
-  // Candidates from the decade below to the decade above cover every edge case of rounding.
+  const mantissa = value / 10 ** decade;
+  let lo = 0;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (table[mid]! < mantissa) lo = mid + 1;
+    else hi = mid;
+  }
   let bestM = 1;
   let bestD = decade;
   let bestScore = Number.POSITIVE_INFINITY;
-  for (let d = decade - 1; d <= decade + 1; d += 1) {
-    const scale = 10 ** d;
-    for (const m of table) {
-      const candidate = m * scale;
-      if (mode === 'down' && candidate > value * (1 + SLACK)) continue;
-      if (mode === 'up' && candidate < value * (1 - SLACK)) continue;
-      const ratio = candidate > value ? candidate / value : value / candidate;
-      if (ratio < bestScore) {
-        bestScore = ratio;
-        bestM = m;
-        bestD = d;
-      }
+  for (let k = lo - 2; k <= lo + 1; k += 1) {
+    const d = decade + Math.floor(k / n);
+    const m = table[((k % n) + n) % n]!;
+    const candidate = m * 10 ** d;
+    if (mode === 'down' && candidate > value * (1 + SLACK)) continue;
+    if (mode === 'up' && candidate < value * (1 - SLACK)) continue;
+    const ratio = candidate > value ? candidate / value : value / candidate;
+    if (ratio < bestScore) {
+      bestScore = ratio;
+      bestM = m;
+      bestD = d;
     }
   }
   return scaled(bestM, bestD);

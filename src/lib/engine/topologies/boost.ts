@@ -34,6 +34,7 @@ import {
   searchClasses,
   sizingIssues,
   traceStep,
+  voltageFits,
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
@@ -176,7 +177,8 @@ export function designBoost(ctx: Context): Design {
   const { vMax } = spec.input;
   const { iMax } = spec.output;
   const r = stageRefs(refs);
-  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v));
+  const switchNodeV = spec.output.v * (1 + spec.output.tolerance);
+  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v), (stage) => voltageFits(stage, vMax, switchNodeV + stage.diodeVfV));
   const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
   const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;

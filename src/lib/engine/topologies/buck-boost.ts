@@ -38,6 +38,7 @@ import {
   searchClasses,
   sizingIssues,
   traceStep,
+  voltageFits,
   type PostFilter,
   type SizingBase,
   type StageRefs,
@@ -223,7 +224,7 @@ export function buckBoostStage(
   const { spec, catalog } = ctx;
   const r = stageRefs(refs);
   const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
-  const s = searchClasses(ctx, 'buck-boost', (stage, fsw) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit));
+  const s = searchClasses(ctx, 'buck-boost', (stage, fsw) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)));
   const { stage, fsw, inductor, cout, cin } = s;
   const budget = RIPPLE_BUDGET * rippleLimit;
   const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';

@@ -37,6 +37,7 @@ import {
   searchClasses,
   sizingIssues,
   traceStep,
+  voltageFits,
   type Finding,
   type PostFilter,
   type SizingBase,
@@ -217,7 +218,7 @@ export function buckStage(
   const { catalog, spec } = ctx;
   const r = stageRefs(refs);
   const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
-  const s = searchClasses(ctx, 'buck', (stage, fsw) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit));
+  const s = searchClasses(ctx, 'buck', (stage, fsw) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, input.vMax));
   const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
   const budget = RIPPLE_BUDGET * rippleLimit;

@@ -41,7 +41,7 @@ export const CROSSOVER_FRACTION = 0.1;
 /** Search objective: parts cost plus this many cents per watt lost at the nominal corner (our weighting of heat). */
 export const LOSS_CENTS_PER_W = 100;
 /** Frequencies tried between a class's limits (geometric steps, plus its default). */
-const FSW_STEPS = 5;
+const FSW_STEPS = 3;
 
 /** A blocker and what would clear it. */
 export interface Finding {
@@ -57,10 +57,13 @@ export function finding(code: string, message: string, change: string | null): F
 export function fswCandidates(ctx: Context, stage: SwitcherClass): number[] {
   const wanted = ctx.spec.overrides.fswHz;
   if (wanted !== undefined) return [Math.min(stage.fswMaxHz, Math.max(stage.fswMinHz, wanted))];
-  const out = new Set<number>([stage.fswDefaultHz]);
+  const out = [stage.fswDefaultHz];
   const ratio = stage.fswMaxHz / stage.fswMinHz;
-  for (let k = 0; k < FSW_STEPS; k += 1) out.add(Number((stage.fswMinHz * ratio ** (k / (FSW_STEPS - 1))).toPrecision(3)));
-  return [...out].sort((a, b) => a - b);
+  for (let k = 0; k < FSW_STEPS; k += 1) {
+    const f = Number((stage.fswMinHz * ratio ** (k / (FSW_STEPS - 1))).toPrecision(2));
+    if (!out.includes(f)) out.push(f);
+  }
+  return out.sort((a, b) => a - b);
 }
 
 /** Duty-cycle window the class can make at fsw: D ≥ tON,min·fsw and D ≤ min(Dmax, 1 − tOFF,min·fsw). */
@@ -91,6 +94,11 @@ export function classVoltageFindings(stage: SwitcherClass, vInMax: number, vTrou
   if (vTrough < stage.vInMinV) out.push(finding('input-min', `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`, `input ≥ ${stage.vInMinV} V`));
   if (vOut > stage.vOutMaxV) out.push(finding('output-max', `${stage.label} regulates up to ${stage.vOutMaxV} V.`, `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`));
   return out;
+}
+
+/** True when the class's derated input and switch ratings take these voltages (the search's prefilter). */
+export function voltageFits(stage: SwitcherClass, vInMax: number, switchNodeV: number): boolean {
+  return vInMax <= deratedLimit(stage.vInMaxV) && switchNodeV <= deratedLimit(stage.converter === 'buck' ? stage.vInMaxV : stage.vOutMaxV);
 }
 
 export function peakFinding(stage: SwitcherClass, peakA: number): Finding | null {
@@ -207,8 +215,8 @@ export interface FeedbackParts {
 
 /** Feedback-pin bias current of switching controllers, either sign (common practice: tens of nA). */
 export const FB_BIAS_A = 50e-9;
-/** Divider current window: at least the bias current's thousandfold, at most what light-load efficiency allows (common practice 10–100 µA). */
-const FB_DIVIDER_A = { min: 10e-6, max: 100e-6 } as const;
+/** Divider current window: some 400× the pin's bias current, little against light-load quiescent budgets (common practice 10–100 µA). */
+const FB_DIVIDER_A = { min: 25e-6, max: 40e-6 } as const;
 
 export interface FeedbackNeed {
   vTarget: number;
@@ -335,10 +343,13 @@ export interface SizingBase {
  * Every class of the converter kind at every frequency it allows: the candidate with the fewest
  * blockers, then the lowest parts cost plus LOSS_CENTS_PER_W per watt lost; ties keep the first.
  */
-export function searchClasses<T extends SizingBase>(ctx: Context, converter: SwitcherClass['converter'], size: (stage: SwitcherClass, fsw: number) => T): T {
+export function searchClasses<T extends SizingBase>(ctx: Context, converter: SwitcherClass['converter'], size: (stage: SwitcherClass, fsw: number) => T, fits: (stage: SwitcherClass) => boolean): T {
   let best: T | null = null;
   let bestKey = [Infinity, Infinity];
-  for (const stage of classesOf(ctx.catalog, converter)) {
+  // Classes whose voltage ratings already fail are sized only when no class passes them.
+  const all = classesOf(ctx.catalog, converter);
+  const rated = all.filter(fits);
+  for (const stage of rated.length > 0 ? rated : all) {
     for (const fsw of fswCandidates(ctx, stage)) {
       const s = size(stage, fsw);
       const key = [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
