@@ -5,14 +5,18 @@ import { CURVE_POINTS, curveInputs, normalCorners } from './corners.ts';
 import { blocker, caution, info, makePart, type Design, type DesignPart, type OperatingPoint } from './design.ts';
 import { hazardousVoltage, hotSurfaces, mainsScope, storedEnergy, HOT_RESISTOR_W, type HotPart } from './cautions.ts';
 import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, ZENER_POWER_W, rateResistor, ratingFor } from './ratings.ts';
-import { subScores, weightedScore } from './scoring.ts';
+import { effectiveWeights, subScores, weightedScore } from './scoring.ts';
 import { airflowFactor, assessThermal, enclosureRise, junctionTemperature, powerAtLimit, type ThermalPart } from './thermal.ts';
 import type { Trace } from './trace.ts';
 import { analyseTolerance, monteCarlo, toleranceVerdict } from './tolerance.ts';
-import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation } from './types.ts';
+import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation, TopologyId } from './types.ts';
+import type { NoiseClass } from './rail-spec.ts';
 import { formatSi } from './units.ts';
 
 const ZENER_ROLES = new Set(['zener', 'standoff-zener']);
+/** Topologies whose output is taken from a switching stage, and the loads that mind it beyond ripple. */
+const SWITCHING_OUTPUT = new Set<TopologyId>(['buck', 'boost', 'buck-boost']);
+const QUIET_CLASSES = new Set<NoiseClass>(['rf', 'precision']);
 
 function efficiencyOf(p: OperatingPoint): number {
   return p.pInW > 0 ? Math.min(1, Math.max(0, p.pOutW / p.pInW)) : 0;
@@ -279,15 +283,18 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const partCount = components.reduce((n, p) => n + p.quantity, 0);
   const costCents = components.reduce((n, p) => n + p.costCents, 0);
   const sub = subScores({
-    efficiencyNominal: effNominal,
-    efficiencyWorst: effWorst,
-    totalMaxW,
+    pOutNominalW: nominal.pOutW,
+    lossNominalW: nominal.pInW - nominal.pOutW,
+    pOutMaxW: spec.output.v * spec.output.iMax,
+    lossMaxW: totalMaxW,
+    source: spec.input.source,
     thermalMargin: margin,
     heatsinkRequired,
     heatsinkImpractical: impractical,
     partCount,
     rippleVpp: design.rippleVpp,
     rippleLimitVpp: spec.noise.maxRippleVpp,
+    switchingOutputOnQuietRail: SWITCHING_OUTPUT.has(design.topology) && QUIET_CLASSES.has(spec.noise.class),
     costCents,
   });
 
@@ -296,7 +303,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     topology: design.topology,
     label: design.label,
     feasible,
-    score: feasible ? weightedScore(sub, spec.weights) : null,
+    score: feasible ? weightedScore(sub, effectiveWeights(spec.weights, spec.output.v * spec.output.iMax)) : null,
     subScores: sub,
     issues,
     fixes,

@@ -4,7 +4,7 @@ import { defaultCatalog, type Catalog } from './catalog.ts';
 import { makeContext, type Context } from './context.ts';
 import { assemble } from './assemble.ts';
 import type { Design } from './design.ts';
-import { compareOptions } from './scoring.ts';
+import { effectiveWeights, pickReason, rankOptions } from './scoring.ts';
 import { topologyIds, type Evaluation, type TopologyId } from './types.ts';
 import { designShunt } from './topologies/shunt.ts';
 import { designLinear } from './topologies/linear.ts';
@@ -35,7 +35,8 @@ export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Eva
   const ctx = makeContext(spec, catalog);
   const seed = spec.overrides.seed ?? DEFAULT_SEED;
   const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
-  options.sort(compareOptions);
-  const best = options[0];
-  return { recommended: best && best.feasible ? best.topology : null, options };
+  const ranked = rankOptions(options);
+  const best = ranked[0];
+  const weights = effectiveWeights(spec.weights, spec.output.v * spec.output.iMax);
+  return { recommended: best && best.feasible ? best.topology : null, reason: pickReason(ranked, weights), options: ranked };
 }

@@ -1,13 +1,27 @@
-// Sub-scores 0–100 and the weighted score; the ordering rule of the option list.
+// Sub-scores 0–100, the weighted score, the ranking of the option list and the words that say why
+// the pick won.
 import type { RailSpec } from './rail-spec.ts';
-import { topologyIds, type Option, type SubScores } from './types.ts';
+import { topologyIds, type Option, type SubScores, type TopologyId } from './types.ts';
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
 
+/**
+ * The power a rail's losses are weighed against, W: its own output, but never less than this
+ * floor. Below about half a watt a loss of tens of milliwatts costs nothing in heat or supply size
+ * (common practice); a battery pays for every milliwatt, so its floor is lower.
+ */
+export const POWER_FLOOR_W = { battery: 0.05, other: 0.5 } as const;
+
+/** Scores this close count as a tie, which the simpler topology wins. */
+export const TIE_POINTS = 1;
+
 export interface ScoreInputs {
-  efficiencyNominal: number;
-  efficiencyWorst: number;
-  totalMaxW: number;
+  /** Output power and total loss at the nominal corner, and at the corner that loses most. */
+  pOutNominalW: number;
+  lossNominalW: number;
+  pOutMaxW: number;
+  lossMaxW: number;
+  source: RailSpec['input']['source'];
   /** Smallest (Tj,max − Tj)/(Tj,max − Ta) over the parts with a junction; 1 when there are none. */
   thermalMargin: number;
   heatsinkRequired: boolean;
@@ -15,23 +29,48 @@ export interface ScoreInputs {
   partCount: number;
   rippleVpp: number;
   rippleLimitVpp: number;
+  /** An RF or precision-analog load fed straight from a switching stage (filtered or not). */
+  switchingOutputOnQuietRail: boolean;
   costCents: number;
 }
 
+/**
+ * Noise sub-score of a switching output on an RF or precision rail: at best "at the limit". Its
+ * spurs at the switching frequency and harmonics, and a post-filter's dependence on the load, are
+ * not in the ripple figure; common practice gives such loads a linear last stage.
+ */
+export const QUIET_SWITCHING_NOISE_CAP = 50;
+
+/** Share of the power budget that is not lost: the efficiency for a rail above the floor. */
+function keptShare(pOutW: number, lossW: number, floorW: number): number {
+  const budget = Math.max(pOutW, floorW);
+  return budget / (budget + Math.max(0, lossW));
+}
+
 export function subScores(s: ScoreInputs): SubScores {
+  const floor = s.source === 'battery' ? POWER_FLOOR_W.battery : POWER_FLOOR_W.other;
   const ratio = s.rippleLimitVpp / Math.max(s.rippleVpp, s.rippleLimitVpp * 1e-3);
   return {
-    efficiency: clamp(100 * (0.6 * s.efficiencyNominal + 0.4 * s.efficiencyWorst)),
+    efficiency: clamp(100 * (0.6 * keptShare(s.pOutNominalW, s.lossNominalW, floor) + 0.4 * keptShare(s.pOutMaxW, s.lossMaxW, floor))),
     heat: clamp(
-      100 * (0.5 * Math.min(1, Math.max(0, s.thermalMargin)) + 0.5 / (1 + s.totalMaxW)) -
+      100 * (0.5 * Math.min(1, Math.max(0, s.thermalMargin)) + 0.5 / (1 + s.lossMaxW)) -
         (s.heatsinkRequired ? 15 : 0) -
         (s.heatsinkImpractical ? 25 : 0),
     ),
     partCount: clamp(100 * (1 - (s.partCount - 2) / 20)),
     // Ripple at the limit scores 50, ten times below it 75, a hundred times below 100.
-    noise: clamp(50 + 25 * Math.log10(ratio)),
+    noise: Math.min(clamp(50 + 25 * Math.log10(ratio)), s.switchingOutputOnQuietRail ? QUIET_SWITCHING_NOISE_CAP : 100),
     cost: clamp(100 / (1 + s.costCents / 300)),
   };
+}
+
+/**
+ * The brief's weights with part count and cost weighing more on a small rail: ×1 at 1 W and above,
+ * up to ×3 at 10 mW and below (a small rail is judged by its size and price more than its loss).
+ */
+export function effectiveWeights(weights: RailSpec['weights'], pOutMaxW: number): RailSpec['weights'] {
+  const small = 1 + Math.min(2, Math.max(0, Math.log10(1 / Math.max(pOutMaxW, 1e-12))));
+  return { ...weights, partCount: weights.partCount * small, cost: weights.cost * small };
 }
 
 export function weightedScore(sub: SubScores, weights: RailSpec['weights']): number {
@@ -47,14 +86,62 @@ export function weightedScore(sub: SubScores, weights: RailSpec['weights']): num
 }
 
 const blockers = (o: Option) => o.issues.filter((i) => i.severity === 'blocker').length;
+const simplicity = (t: TopologyId) => topologyIds.indexOf(t);
+
+/** Infeasible options after every feasible one, fewest blockers first, then the simpler topology. */
+function compareInfeasible(a: Option, b: Option): number {
+  return blockers(a) - blockers(b) || simplicity(a.topology) - simplicity(b.topology);
+}
 
 /**
- * Feasible options by score, then every infeasible one (fewest blockers first); ties go to the
- * simpler topology (the fixed order runs from simplest to most complex).
+ * Feasible options best first, where a score within TIE_POINTS of the best still unranked counts
+ * as a tie that the simpler topology (the fixed order runs from simplest to most complex) wins;
+ * then every infeasible option, which carries no score.
  */
-export function compareOptions(a: Option, b: Option): number {
-  if (a.feasible !== b.feasible) return a.feasible ? -1 : 1;
-  if (a.score !== null && b.score !== null && a.score !== b.score) return b.score - a.score;
-  if (!a.feasible && blockers(a) !== blockers(b)) return blockers(a) - blockers(b);
-  return topologyIds.indexOf(a.topology) - topologyIds.indexOf(b.topology);
+export function rankOptions(options: readonly Option[]): Option[] {
+  const pending = options
+    .filter((o) => o.feasible)
+    .sort((a, b) => (b.score ?? 0) - (a.score ?? 0) || simplicity(a.topology) - simplicity(b.topology));
+  const ranked: Option[] = [];
+  while (pending.length > 0) {
+    const top = pending[0]!.score ?? 0;
+    let pick = 0;
+    pending.forEach((o, k) => {
+      if (top - (o.score ?? 0) <= TIE_POINTS && simplicity(o.topology) < simplicity(pending[pick]!.topology)) pick = k;
+    });
+    ranked.push(...pending.splice(pick, 1));
+  }
+  return [...ranked, ...options.filter((o) => !o.feasible).sort(compareInfeasible)];
+}
+
+const SUB_SCORE_WORDS: Record<keyof SubScores, string> = {
+  efficiency: 'loses less power for the rail it supplies',
+  heat: 'runs cooler',
+  partCount: 'needs fewer parts',
+  noise: 'has more margin on the ripple limit',
+  cost: 'costs less',
+};
+
+/** In words, why the first option of a ranked list is the pick. */
+export function pickReason(ranked: readonly Option[], weights: RailSpec['weights']): string {
+  const [pick, next] = ranked;
+  if (!pick || !pick.feasible) return 'No option meets every requirement; each one lists its blockers and, where a change clears them, what it costs.';
+  const blocked = ranked.filter((o) => !o.feasible).map((o) => o.topology);
+  const blockedText = blocked.length > 0 ? ` Not feasible: ${blocked.join(', ')}.` : '';
+  if (!next || !next.feasible) return `${pick.label} is the only option that meets every requirement.${blockedText}`;
+  const a = pick.score ?? 0;
+  const b = next.score ?? 0;
+  if (b >= a) {
+    return `${pick.label} (score ${a.toFixed(1)}) and ${next.label} (${b.toFixed(1)}) are within ${TIE_POINTS} point: a tie, which the simpler topology wins.${blockedText}`;
+  }
+  const total = weights.efficiency + weights.heat + weights.partCount + weights.noise + weights.cost;
+  const keys = Object.keys(SUB_SCORE_WORDS) as (keyof SubScores)[];
+  const gains = keys
+    .map((k) => ({ k, points: (weights[k] * (pick.subScores[k] - next.subScores[k])) / total }))
+    .filter((g) => g.points >= 0.05)
+    .sort((x, y) => y.points - x.points)
+    .slice(0, 2)
+    .map((g) => `${SUB_SCORE_WORDS[g.k]} (+${g.points.toFixed(1)} points)`);
+  const because = gains.length > 0 ? `it ${gains.join(' and ')}` : 'it is a little better on balance';
+  return `${pick.label} scores ${a.toFixed(1)} against ${b.toFixed(1)} for ${next.label}: ${because}.${blockedText}`;
 }

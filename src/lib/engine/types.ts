@@ -13,6 +13,7 @@ export const componentRoles = [
   'standoff-zener',
   'bias-resistor',
   'sense-resistor',
+  'limit-transistor',
   'inductor',
   'switch',
   'diode',
@@ -162,5 +163,7 @@ export interface Option {
 
 export interface Evaluation {
   recommended: TopologyId | null;
+  /** In words, why the recommended option won (or why there is none); absent from answers saved before it existed. */
+  reason?: string;
   options: Option[];
 }

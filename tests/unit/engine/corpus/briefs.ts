@@ -111,7 +111,7 @@ export const CORPUS: readonly CorpusBrief[] = [
 
   // Quiet analog and RF rails.
   { id: 'quiet-usb-3v3-rf-50ma', family: 'quiet', spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 3.3, load: [0.005, 0.03, 0.05], noise: 'rf' }), accept: ['linear'], why: QUIET_LINEAR },
-  { id: 'quiet-12-5v-sensor-100ma', family: 'quiet', spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'adapter', vout: 5, load: [0.01, 0.05, 0.1], noise: 'sensor' }), accept: ['linear', 'buck+linear'], why: QUIET_LINEAR },
+  { id: 'quiet-12-5v-sensor-100ma', family: 'quiet', spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'adapter', vout: 5, load: [0.01, 0.05, 0.1], noise: 'sensor' }), accept: ['linear', 'buck+linear', 'buck'], why: 'common practice: a linear regulator is quietest at 0.8 W loss; a buck meeting a 10 mV ripple limit suits most sensor loads' },
   { id: 'quiet-12-3v3-rf-500ma', family: 'quiet', spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'adapter', vout: 3.3, load: [0.02, 0.3, 0.5], noise: 'rf' }), accept: ['buck+linear'], why: QUIET_HYBRID },
   { id: 'quiet-24-5v-precision-200ma', family: 'quiet', spec: rail({ vin: [22, 24, 26], ripple: 0.2, source: 'bus', vout: 5, load: [0.01, 0.1, 0.2], noise: 'precision' }), accept: ['buck+linear'], why: QUIET_HYBRID },
   { id: 'quiet-usb-1v8-rf-100ma', family: 'quiet', spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 1.8, load: [0.005, 0.05, 0.1], noise: 'rf' }), accept: ['linear'], why: QUIET_LINEAR },
