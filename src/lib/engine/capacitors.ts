@@ -41,6 +41,8 @@ export interface ChosenCapacitor {
   farads: number;
   /** Capacitance left at the working bias after the lower tolerance and the DC-bias loss. */
   effectiveF: number;
+  /** The DC bias the bank was sized at. */
+  workingV: number;
   esrOhm: number;
   count: number;
   rippleRatingA: number;
@@ -170,6 +172,7 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
     family: chosen.family,
     farads,
     effectiveF: chosen.effectiveF,
+    workingV: need.workingV,
     esrOhm: chosen.row.esrOhm / chosen.count,
     count: chosen.count,
     rippleRatingA: chosen.row.rippleA * chosen.count,

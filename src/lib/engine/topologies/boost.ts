@@ -208,7 +208,7 @@ export function designBoost(ctx: Context): Design {
     trace.add('boost.ipk', 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');
   }
   trace.add('boost.cout', 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
   trace.add('boost.cout.rms', 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
   const rippleStage = trace.add('boost.ripple', 'Converter output ripple', 'ΔV = Iout·D/(fsw·Cout) + Ipk·ESR', {

@@ -247,7 +247,7 @@ export function buckBoostStage(
     'IL(Vin,min)': [lowP.il, 'A'], 'ΔIL(Vin,min)': [lowP.rippleA, 'A'], 'IL(vInMax)': [highP.il, 'A'], 'ΔIL(vInMax)': [highP.rippleA, 'A'],
   }, peak, 'A');
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
   const rippleOf = (p: BuckBoostPoint) => buckBoostRipple(p, load.iMax, fsw, cout.effectiveF, cout.esrOhm);
   const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {

@@ -252,7 +252,7 @@ export function buckStage(
   }
   trace.add(`${idPrefix}.ton`, 'On-time at the highest input and full load', 'tON = D/fsw', { D: [worst.d, ''], fsw: [fsw, 'Hz'] }, worst.d / fsw, 's');
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [vOut, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
+    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
   const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple', 'ΔV = ΔIL/(8·fsw·Cout) + ΔIL·ESR', {
     ΔIL: [worst.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
