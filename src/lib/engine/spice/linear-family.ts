@@ -2,8 +2,8 @@
 // pre-drop, built from the design's part list (snapped values) and the catalog's device figures.
 import type { Catalog } from '../catalog.ts';
 import type { Option } from '../types.ts';
-import { num, partOf } from './netlist-text.ts';
-import { passDeviceLines } from './pass-device.ts';
+import { byRole, num, partOf } from './netlist-text.ts';
+import { passDeviceLines, senseTransistorLines } from './pass-device.ts';
 import { regulatorLines } from './regulator.ts';
 import { zenerModel } from './zener.ts';
 
@@ -31,6 +31,24 @@ export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): s
 }
 
 /**
+ * Current limiter, where the design has one: the sense transistor pulls the pass device's base or
+ * gate (`b`) down once the sense resistor's drop (`e` to `rin`) reaches its Vbe. A foldback limiter
+ * feeds its base from a divider, RA from `e` and RB to ground — the two bias resistors listed
+ * after it (The Art of Electronics, 2nd ed., §6.06, foldback current limiting — from memory).
+ */
+function currentLimiter(option: Option): { lines: string[]; divider: Option['components'] } {
+  const limiter = byRole(option, 'limit-transistor')[0];
+  if (!limiter) return { lines: [], divider: [] };
+  const [ra, rb] = option.components.slice(option.components.indexOf(limiter)).filter((c) => c.role === 'bias-resistor');
+  if (!ra || !rb) return { lines: senseTransistorLines(limiter, 'b', 'e', 'rin'), divider: [] };
+  const base = `${limiter.ref}_b`;
+  return {
+    lines: [...senseTransistorLines(limiter, 'b', base, 'rin'), `R${ra.ref} e ${base} ${num(ra.value ?? 0)}`, `R${rb.ref} ${base} 0 ${num(rb.value ?? 0)}`],
+    divider: [ra, rb],
+  };
+}
+
+/**
  * The pass device from the input to `e`, its base or gate on node `b` held by the standoff Zener
  * above the output and fed through the bias resistor; the sense resistor from `e` to the
  * regulator's input `rin`.
@@ -39,8 +57,10 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
   const q = partOf(option, 'pass-transistor');
   const dz = partOf(option, 'standoff-zener');
   const rs = partOf(option, 'sense-resistor');
-  const rb = partOf(option, 'bias-resistor');
   const reg = partOf(option, 'regulator');
+  const limiter = currentLimiter(option);
+  const rb = byRole(option, 'bias-resistor').find((c) => !limiter.divider.includes(c));
+  if (!rb) throw new Error('The linear-predrop design has no bias resistor for its pass device; its netlist cannot be written.');
   return [
     `V1 in 0 DC ${num(corner.vIn)}`,
     ...passDeviceLines(q, 'in', 'b', 'e', catalog),
@@ -48,6 +68,7 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
     `D${dz.ref} out b DZ${dz.ref}`,
     zenerModel(`DZ${dz.ref}`, dz, catalog),
     `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
+    ...limiter.lines,
     ...regulatorLines(option, reg.ref, 'rin', catalog, corner.iOut),
     `Iload out 0 DC ${num(corner.iOut)}`,
     '.op',

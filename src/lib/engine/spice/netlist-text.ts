@@ -21,3 +21,11 @@ export function partOf(option: Option, role: Component['role']): Component {
 export function assumed(option: Option, key: string, fallback: number): number {
   return option.assumptions[key]?.value ?? fallback;
 }
+
+/**
+ * The catalog entry a part was chosen from: its label, or the longest label the part's text starts
+ * with (a design may add how the part is fitted, such as ", on an insulating pad").
+ */
+export function catalogEntry<T extends { label: string }>(entries: readonly T[], part: string): T | undefined {
+  return entries.filter((e) => part === e.label || part.startsWith(`${e.label},`)).sort((a, b) => b.label.length - a.label.length)[0];
+}

@@ -3,14 +3,17 @@
 // Vbe or Vgs follows the load as a real part's does instead of staying at one figure.
 import type { Catalog } from '../catalog.ts';
 import type { Component } from '../types.ts';
-import { VT, num } from './netlist-text.ts';
+import { VT, catalogEntry, num } from './netlist-text.ts';
 
+/** Small-signal NPN of the current limiter: Vbe 0.65 V at 1 mA, current gain 200 (typical, from memory). */
+const SENSE_VBE_1MA_V = 0.65;
+const SENSE_BF = 200;
 /** Gate overdrive above threshold at which a power MOSFET carries its rated current (typical transfer curve, from memory). */
 const MOSFET_OVERDRIVE_V = 1;
 
 /** The device `q` from drain/collector `d` to source/emitter `s`, driven at `g`, with its model card. */
 export function passDeviceLines(q: Component, d: string, g: string, s: string, catalog: Catalog): string[] {
-  const dev = catalog.passDevices.find((p) => p.label === q.part);
+  const dev = catalogEntry(catalog.passDevices, q.part);
   if (!dev) throw new Error(`The catalog has no pass device "${q.part}"; the netlist needs its data-sheet figures.`);
   if (dev.kind === 'nmos') {
     // Saturation: iD = KP/2·(vGS − VTO)² (Sedra & Smith, Microelectronic Circuits, 7th ed., §5.2 — from memory).
@@ -19,4 +22,9 @@ export function passDeviceLines(q: Component, d: string, g: string, s: string, c
   }
   // iC = IS·exp(vBE/Vt) with the data sheet's least current gain (Sedra & Smith, 7th ed., §6.2 — from memory).
   return [`Q${q.ref} ${d} ${g} ${s} QHV${q.ref}`, `.model QHV${q.ref} NPN(BF=${num(dev.gainMin)} IS=${num(dev.iMaxA * Math.exp(-dev.vControlV / VT))})`];
+}
+
+/** The limiter's small-signal NPN `q`: collector `c`, base `b`, emitter `e`. */
+export function senseTransistorLines(q: Component, c: string, b: string, e: string): string[] {
+  return [`Q${q.ref} ${c} ${b} ${e} QS${q.ref}`, `.model QS${q.ref} NPN(BF=${SENSE_BF} IS=${num(1e-3 * Math.exp(-SENSE_VBE_1MA_V / VT))})`];
 }

@@ -7,7 +7,7 @@
 // §2.2 and §11.1 (closed-loop error 1/(1 + Aβ) — from memory).
 import type { Catalog, LinearRegulatorClass } from '../catalog.ts';
 import type { Component, Option } from '../types.ts';
-import { VT, assumed, num } from './netlist-text.ts';
+import { VT, assumed, catalogEntry, num } from './netlist-text.ts';
 
 /**
  * Error amplifier: a transconductance into R‖C, 80 dB of DC gain with its dominant pole at 160 Hz
@@ -38,7 +38,7 @@ export interface RegulatorParts {
 export function regulatorParts(option: Option, regRef: string, catalog: Catalog): RegulatorParts {
   const at = option.components.findIndex((c) => c.ref === regRef);
   const reg = option.components[at];
-  const cls = catalog.linearRegulators.find((c) => c.label === reg?.part);
+  const cls = reg ? catalogEntry(catalog.linearRegulators, reg.part) : undefined;
   if (!reg || !cls) throw new Error(`The catalog has no regulator class "${reg?.part ?? regRef}"; the netlist needs its data-sheet figures.`);
   const after = option.components.slice(at);
   return { cls, lower: after.find((c) => c.role === 'feedback-lower'), upper: after.find((c) => c.role === 'feedback-upper') };

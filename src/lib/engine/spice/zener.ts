@@ -7,14 +7,14 @@
 import type { Catalog } from '../catalog.ts';
 import type { Component } from '../types.ts';
 import { dynamicImpedance, testCurrent } from '../zeners.ts';
-import { VT, num } from './netlist-text.ts';
+import { VT, catalogEntry, num } from './netlist-text.ts';
 
 /** Emission coefficient of the breakdown; the default of the diode model. */
 const BREAKDOWN_N = 1;
 
 /** The diode's model card for the Zener part `dz` (its class from the catalog, its voltage from the part list). */
 export function zenerModel(name: string, dz: Component, catalog: Catalog): string {
-  const series = catalog.zenerSeries.find((s) => s.label === dz.part);
+  const series = catalogEntry(catalog.zenerSeries, dz.part);
   if (!series) throw new Error(`The catalog has no Zener series "${dz.part}"; the netlist needs its data-sheet figures.`);
   const vz = dz.value ?? 0;
   const izt = testCurrent(series, vz);
