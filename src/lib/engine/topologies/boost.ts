@@ -140,7 +140,8 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   const low = point(vLow, iMax);
   const high = point(vMax, iMax);
 
-  const switchNodeV = vOut * (1 + spec.output.tolerance) + stage.diodeVfV;
+  // The switch node sits at the regulated output plus the rectifier's drop.
+  const switchNodeV = vOut + stage.diodeVfV;
   const findings = classVoltageFindings(stage, vMax, vLow, vOut, switchNodeV, stage.vOutMaxV);
   if (vMax >= vOut) findings.push(finding('step-up-only', `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`, 'a buck-boost stage, or an input that stays below the output'));
   const peak = peakFinding(stage, low.peakA);
@@ -177,8 +178,7 @@ export function designBoost(ctx: Context): Design {
   const { vMax } = spec.input;
   const { iMax } = spec.output;
   const r = stageRefs(refs);
-  const switchNodeV = spec.output.v * (1 + spec.output.tolerance);
-  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v), (stage) => voltageFits(stage, vMax, switchNodeV + stage.diodeVfV));
+  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v), (stage) => voltageFits(stage, vMax, spec.output.v + stage.diodeVfV));
   const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
   const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;

@@ -93,6 +93,7 @@ export function classVoltageFindings(stage: SwitcherClass, vInMax: number, vTrou
   }
   if (vTrough < stage.vInMinV) out.push(finding('input-min', `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`, `input ≥ ${stage.vInMinV} V`));
   if (vOut > stage.vOutMaxV) out.push(finding('output-max', `${stage.label} regulates up to ${stage.vOutMaxV} V.`, `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`));
+  if (vOut < stage.vFbV) out.push(finding('output-min', `${stage.label} cannot regulate below its ${stage.vFbV} V feedback reference.`, `a ${stage.converter} class with a feedback reference ≤ ${vOut.toFixed(2)} V`));
   return out;
 }
 
