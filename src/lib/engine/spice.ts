@@ -117,18 +117,17 @@ function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] 
 
 /**
  * Four-switch buck-boost: S1/S2 are the buck leg from the input to sw1, S3/S4 the boost leg from sw2
- * to the output, the inductor between. The leg the engine's mode switches follows the gate; the
+ * to `node`, the inductor between. The leg the engine's mode switches follows the gate; the
  * other leg holds its top switch on (gate `on`) and its bottom switch off.
  */
-function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
-  const net = switcherParts(option, catalog);
-  const p = buckBoostPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
+function buckBoostStageLines(net: SwitcherParts, vIn: number, iOut: number, node: string): string[] {
+  const p = buckBoostPoint({ ...net.stage, rdsOnOhm: net.rds }, vIn, net.vOut, iOut, net.fsw, net.henries, net.dcr);
   const held = { top: 'on 0 SWHI', bottom: '0 on SWHI' };
   const pwm = { top: 'g 0 SWHI', bottom: '0 g SWLO' };
   const buckLeg = p.boost ? held : pwm;
   const boostLeg = p.boost ? { top: pwm.bottom, bottom: pwm.top } : held;
   return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
+    `V1 in 0 DC ${num(vIn)}`,
     gateDrive(net, p.d),
     `Von on 0 DC 1`,
     `S1 in sw1 ${buckLeg.top}`,
@@ -137,24 +136,30 @@ function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): strin
     `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(valley(p.il, p.rippleA))}`,
     `RL${net.l1.ref} nl2 sw2 ${num(net.dcr)}`,
     `S3 sw2 0 ${boostLeg.bottom}`,
-    `S4 sw2 out ${boostLeg.top}`,
+    `S4 sw2 ${node} ${boostLeg.top}`,
     SWITCH_ON_HIGH(net.rds),
     SWITCH_ON_LOW(net.rds),
-    ...loadedOutput(option, net, corner),
   ];
 }
 
+function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  return [...buckBoostStageLines(net, corner.vIn, corner.iOut, 'out'), ...loadedOutput(option, net, corner)];
+}
+
 /**
- * Buck to the intermediate rail `bus`, then the post-regulator from `bus` to `out`. The buck carries
- * the regulator's input current: the load, its divider, adjust-pin and ground-pin currents.
+ * Buck (or four-switch buck-boost, where the input can fall below the bus) to the intermediate rail
+ * `bus`, then the post-regulator from `bus` to `out`. The stage carries the regulator's input
+ * current: the load, its divider, adjust-pin and ground-pin currents.
  */
 function buckLinear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const net = switcherParts(option, catalog);
   const reg = byRole(option, 'regulator')[0]!;
   const iBus = regulatorInputCurrent(regulatorParts(option, reg.ref, catalog), corner.iOut);
   const bus = outputNetwork(option, net, 'bus', iBus);
+  const stage = net.stage.converter === 'buck-boost' ? buckBoostStageLines : buckStageLines;
   return [
-    ...buckStageLines(net, corner.vIn, iBus, 'bus'),
+    ...stage(net, corner.vIn, iBus, 'bus'),
     ...bus.lines,
     ...regulatorLines(option, reg.ref, bus.rail, catalog, corner.iOut),
     `Iload out 0 DC ${num(corner.iOut)}`,
