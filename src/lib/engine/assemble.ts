@@ -14,6 +14,9 @@ import type { NoiseClass } from './rail-spec.ts';
 import { formatSi } from './units.ts';
 
 const ZENER_ROLES = new Set(['zener', 'standoff-zener']);
+/** Monte Carlo draws for an option that can be built, and for one that is blocked (its histogram is a sketch). */
+export const DEFAULT_DRAWS = 10_000;
+export const SKETCH_DRAWS = 1_000;
 /** Topologies whose output is taken from a switching stage, and the loads that mind it beyond ripple. */
 const SWITCHING_OUTPUT = new Set<TopologyId>(['buck', 'boost', 'buck-boost']);
 const QUIET_CLASSES = new Set<NoiseClass>(['rf', 'precision']);
@@ -216,24 +219,12 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const vOutRange = { min: Math.max(0, eva.min - half), max: Math.max(0, eva.max + half) };
   trace.select('vout.min', 'Lowest output (extreme values, less half the ripple; never below 0 V)', 'Vmin = max(0, min over tolerance corners − ΔV/2)', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
   trace.select('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
-  const draws = spec.overrides.mcDraws ?? 10_000;
-  // The ripple rides on every draw, so the draw itself must sit half the ripple inside the band.
-  const mc = monteCarlo(design.output, draws, seed, { lo: band.lo + half, hi: band.hi - half }, eva);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
   const verdict = toleranceVerdict(spread, band, rule, half);
-  const tolerance = {
-    worstCase: vOutRange,
-    statistical: { sigma: spread.sigma, yield: mc.fractionInTolerance },
-    rule: verdict === 'worst-case' ? ('worst-case' as const) : rule,
-  };
   const bandText = `${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V`;
   const worstText = `${vOutRange.min.toFixed(3)}–${vOutRange.max.toFixed(3)} V`;
   const sigmaText = `mean ${spread.mean.toFixed(3)} V ± 3σ (σ = ${formatSi(spread.sigma, 'V', 3)})`;
-  if (verdict === 'statistical') {
-    issues.push(
-      caution('tolerance-statistical', `The worst-case output ${worstText} leaves the rail's ${bandText}; the statistical spread, ${sigmaText} plus half the ripple, stays inside (Monte Carlo yield ${(mc.fractionInTolerance * 100).toFixed(2)} %). A few units in a large batch may fall outside: test each, or require the worst-case rule.`),
-    );
-  } else if (verdict === 'fails') {
+  if (verdict === 'fails') {
     issues.push(blocker('tolerance', `The worst-case output ${worstText} leaves the rail's ${bandText}.`));
     if (rule === 'worst-case' && toleranceVerdict(spread, band, 'statistical', half) === 'statistical') {
       fixes.push({
@@ -298,7 +289,22 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     costCents,
   });
 
+  // The Monte Carlo decides nothing (the analytic spread does), so a blocked option gets a sketch.
   const feasible = !issues.some((i) => i.severity === 'blocker');
+  const requested = spec.overrides.mcDraws ?? DEFAULT_DRAWS;
+  const draws = feasible ? requested : Math.min(requested, SKETCH_DRAWS);
+  // The ripple rides on every draw, so the draw itself must sit half the ripple inside the band.
+  const mc = monteCarlo(design.output, draws, seed, { lo: band.lo + half, hi: band.hi - half }, eva);
+  const tolerance = {
+    worstCase: vOutRange,
+    statistical: { sigma: spread.sigma, yield: mc.fractionInTolerance },
+    rule: verdict === 'worst-case' ? ('worst-case' as const) : rule,
+  };
+  if (verdict === 'statistical') {
+    issues.push(
+      caution('tolerance-statistical', `The worst-case output ${worstText} leaves the rail's ${bandText}; the statistical spread, ${sigmaText} plus half the ripple, stays inside (Monte Carlo yield ${(mc.fractionInTolerance * 100).toFixed(2)} %). A few units in a large batch may fall outside: test each, or require the worst-case rule.`),
+    );
+  }
   return {
     topology: design.topology,
     label: design.label,
