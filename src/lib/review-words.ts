@@ -21,6 +21,7 @@ export const ROLE_NAMES: Record<ComponentRole, string> = {
   'standoff-zener': 'Standoff Zener',
   'bias-resistor': 'Bias resistor',
   'sense-resistor': 'Current-sense resistor',
+  'limit-transistor': 'Current-limit transistor',
   inductor: 'Inductor',
   switch: 'Switching stage',
   diode: 'Diode',

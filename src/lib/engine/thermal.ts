@@ -68,6 +68,8 @@ export interface ThermalPart {
   thetaJaCW: number;
   tjMaxC: number;
   heatsinkable: boolean;
+  /** Case-to-sink interface when it is not the catalog's greased one (an insulating pad under a live tab). */
+  thetaCsCW?: number;
 }
 
 export interface ThermalResult {
@@ -100,7 +102,7 @@ export function assessThermal(
   forcedSinkCW: number | undefined,
 ): ThermalResult {
   const tjDesign = part.tjMaxC - catalog.thermal.tjMarginK;
-  const thetaCs = catalog.thermal.thetaCsCW;
+  const thetaCs = part.thetaCsCW ?? catalog.thermal.thetaCsCW;
   const bare = junctionTemperature(ambientC, powerW, [part.thetaJaCW * airflow]);
   const withSink = (sink: number) => junctionTemperature(ambientC, powerW, [part.thetaJcCW, thetaCs, sink * airflow]);
   const sinkSurface = (sink: number) => ambientC + powerW * sink * airflow;

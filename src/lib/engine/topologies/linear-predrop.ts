@@ -1,123 +1,278 @@
 // High-voltage pass transistor ahead of a floating-reference regulator: the transistor's base or
 // gate is held a Zener standoff above the output, so the regulator sees only about Vz − Vbe and
-// the transistor drops the rest. A sense resistor between the transistor and the regulator
-// limits the short-circuit current to about (Vz − Vbe)/Rs, because the regulator's input cannot
-// fall below its output.
+// the transistor drops the rest. A foldback limiter (sense resistor, sense transistor and a
+// divider) holds the transistor inside its safe operating area on an overload or a short; where
+// no foldback can, a fuse clears the short inside the device's pulsed SOA.
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import type { PassDeviceClass } from '../catalog.ts';
+import type { LinearRegulatorClass, PassDeviceClass } from '../catalog.ts';
 import { chooseCapacitor } from '../capacitors.ts';
-import { Refs, atLeast, blocker, caution, info, makePart, resistorPart, type Design, type OperatingPoint, type PartStress } from '../design.ts';
+import { ES1_DC_LIMIT_V } from '../cautions.ts';
+import { Refs, atLeast, blocker, caution, info, makePart, resistorPart, type Design, type Fix, type OperatingPoint, type PartStress } from '../design.ts';
 import { snap } from '../eseries.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
+import { airflowFactor, assessThermal, type ThermalPart } from '../thermal.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
+import { formatSi } from '../units.ts';
 import { dynamicImpedance, seriesFor, seriesForPower, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
-import { DIVIDER_MIN_A, regulatorStage } from './regulator-stage.ts';
+import { designFoldback, foldbackCurrent, minShortCurrent, type Foldback } from './foldback.ts';
+import { CURRENT_DERATING, dividerCurrent, regulatorStage } from './regulator-stage.ts';
+import { SOA_MARGIN, fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from './soa.ts';
 
-/** The short-circuit current is set this far above the full-load path current (common practice 1.3–2). */
-export const LIMIT_RATIO = 1.5;
+export { soaAllowedW } from './soa.ts';
+
+/** The current limit is set this far above the full-load path current, the roomiest first (common practice 1.2–2). */
+export const LIMIT_RATIOS = [1.5, 1.3, 1.2] as const;
 /** Headroom kept above the regulator's dropout at full load (common practice). */
 export const HEADROOM_MARGIN_V = 0.5;
 /** Bias current through the standoff Zener's resistor, A (common practice: a few mA). */
 export const BIAS_MIN_A = 2e-3;
 /** Input margin above Vout + Vz for the bias resistor and the pass device's saturation (common practice). */
 const BIAS_HEADROOM_V = 2;
+/** Foldback never folds the short-circuit current below this share of the limit, so loads that draw constant current still start (common practice). */
+export const FOLDBACK_MIN_SHARE = 0.05;
+/** Where the SOA allows more, the short-circuit current is folded to this share of the limit (common practice: a third to a half). */
+const FOLDBACK_SHARE = 0.5;
+/** Current in the foldback divider: well above the sense transistor's base current (common practice). */
+const FOLDBACK_DIVIDER_A = 0.1e-3;
+/** Base-emitter voltage of the small sense transistor at the limit (common practice). */
+export const SENSE_VBE_V = 0.6;
+/** Insulating pad under a live tab: θCS of 1–3 K/W (from memory of pad data); 2 K/W assumed. */
+export const INSULATING_PAD_CW = 2;
+/** Points along the foldback line where the pass device's stress is checked against its SOA. */
+const FOLDBACK_SAMPLES = 16;
+/** Fuse ratings, A (R10 preferred numbers, common practice). */
+const FUSE_RATINGS_A = [0.05, 0.063, 0.08, 0.1, 0.125, 0.16, 0.2, 0.25, 0.315, 0.4, 0.5, 0.63, 0.8, 1, 1.25, 1.6, 2, 2.5, 3.15, 4, 5];
+/** A fuse is rated at least this much above the normal current (common practice). */
+const FUSE_RATING_FACTOR = 1.5;
+/** In fuse mode the limit lets this multiple of the fuse rating flow, so the fuse clears quickly. */
+const FUSE_CLEAR_MULTIPLE = 4;
 
-/** Safe-operating-area hint: full power to the knee, then a log-log fall to the power allowed at Vmax. */
-export function soaAllowedW(dev: PassDeviceClass, vce: number): number {
-  if (vce <= dev.soaKneeV) return dev.soaPowerW;
-  const slope = Math.log(dev.soaPowerAtVMaxW / dev.soaPowerW) / Math.log(dev.vMaxV / dev.soaKneeV);
-  return dev.soaPowerW * (vce / dev.soaKneeV) ** slope;
+/** Devices rated for the input with margin, of the engineer's kind when chosen, cheapest first. */
+function passDeviceCandidates(ctx: Context): PassDeviceClass[] {
+  const kind = ctx.spec.overrides.passDevice;
+  const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
+  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
+  const rated = pool.filter((d) => d.vMaxV >= SEMICONDUCTOR_VOLTAGE_FACTOR * ctx.spec.input.vMax);
+  return rated.length > 0 ? rated : pool.slice().sort((a, b) => b.vMaxV - a.vMaxV).slice(0, 1);
+}
+
+/** The cheapest floating (adjustable) class that carries the load with margin. */
+function chooseFloatingClass(ctx: Context, iMax: number): LinearRegulatorClass {
+  const adjustable = ctx.catalog.linearRegulators.filter((c) => c.kind === 'adjustable').sort((a, b) => a.costCents - b.costCents || a.iOutMaxA - b.iOutMaxA);
+  const forcedCls = adjustable.find((c) => c.id === ctx.spec.overrides.linearClass);
+  return (
+    forcedCls ??
+    adjustable.find((c) => iMax + dividerCurrent(c, iMax) <= CURRENT_DERATING * c.iOutMaxA) ??
+    adjustable.slice().sort((a, b) => b.iOutMaxA - a.iOutMaxA)[0] ??
+    ctx.catalog.linearRegulators[0]!
+  );
+}
+
+interface Protection {
+  mode: 'foldback' | 'fuse';
+  foldback: Foldback;
+  /** Current at the normal sense-node voltage and with the output shorted. */
+  iLimit: number;
+  iShort: number;
+  /** Largest pass-device power along the limit line (or in the short, fuse mode). */
+  worstW: number;
+  /** Case temperature the thermal chain gives at that power. */
+  caseC: number;
+  /** Fuse mode: rating and clearing time at the short-circuit current. */
+  fuseA: number | null;
+  clearS: number | null;
+  problems: Issue[];
 }
 
 /**
- * The cheapest device (of the engineer's kind, if chosen) rated for the input with margin whose
- * safe-operating-area hint carries a sustained short: about vInMax at the limit current.
+ * Sizes the limit: the short-circuit current is the largest the pass device carries at every
+ * point of the foldback line inside its SOA, derated to the case temperature its heatsink
+ * reaches (two passes: the case temperature depends on the power it sets). Where even the
+ * smallest useful foldback leaves the SOA, a fuse clears the short inside the pulsed SOA.
  */
-export function choosePassDevice(ctx: Context, faultA: number): { dev: PassDeviceClass; issue: Issue | null } {
-  const kind = ctx.spec.overrides.passDevice;
-  const { vMax } = ctx.spec.input;
-  const needV = SEMICONDUCTOR_VOLTAGE_FACTOR * vMax;
-  const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
-  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
-  const rated = pool.filter((d) => d.vMaxV >= needV && d.iMaxA >= faultA);
-  const fit = rated.find((d) => soaAllowedW(d, vMax) >= vMax * faultA) ?? rated[0];
-  if (fit) return { dev: fit, issue: null };
-  const biggest = pool.slice().sort((a, b) => b.vMaxV - a.vMaxV)[0]!;
-  return {
-    dev: biggest,
-    issue: blocker('pass-voltage', `The pass device must be rated ${needV.toFixed(0)} V and ${faultA.toFixed(2)} A; the largest in the catalog is ${biggest.vMaxV} V, ${biggest.iMaxA} A.`),
-  };
+function sizeProtection(ctx: Context, dev: PassDeviceClass, thermal: ThermalPart, iPath: number, vTarget: number, vs: number): Protection {
+  let fallback: Protection | null = null;
+  for (const ratio of LIMIT_RATIOS) {
+    const p = sizeProtectionAt(ctx, dev, thermal, iPath, vTarget, vs, ratio);
+    if (p.mode === 'foldback' && p.problems.length === 0) return p;
+    fallback ??= p;
+  }
+  return fallback!;
 }
 
-export function designLinearPredrop(ctx: Context): Design {
+function sizeProtectionAt(ctx: Context, dev: PassDeviceClass, thermal: ThermalPart, iPath: number, vTarget: number, vs: number, ratio: number): Protection {
+  const { vMax } = ctx.spec.input;
+  const iLimit = ratio * iPath;
+  const vNormal = vTarget + vs;
+  const lowest = minShortCurrent(iLimit, vNormal, vs, SENSE_VBE_V);
+  const floor = Math.max(FOLDBACK_MIN_SHARE * iLimit, lowest + 0.02 * (iLimit - lowest));
+  const airflow = airflowFactor(ctx.spec, ctx.catalog);
+  const lineWorst = (iShort: number) => {
+    let worst = 0;
+    for (let k = 0; k <= FOLDBACK_SAMPLES; k += 1) {
+      const x = k / FOLDBACK_SAMPLES;
+      worst = Math.max(worst, Math.max(0, vMax - (x * vTarget + vs)) * (iShort + (iLimit - iShort) * x));
+    }
+    return worst;
+  };
+  // Case temperature the heatsink gives at this power; null when no heatsink holds it.
+  const caseAt = (powerW: number): number | null => {
+    const t = assessThermal(thermal, powerW, ctx.ambientC, airflow, ctx.catalog, ctx.spec.overrides.heatsinkThetaSaCW);
+    return t.problem === 'none' || t.problem === 'impractical' ? t.tjC - powerW * thermal.thetaJcCW : null;
+  };
+  // A short-circuit current fits when the heatsink holds the line's worst power and every point
+  // of the line lies inside the SOA derated to that case temperature.
+  const fits = (iShort: number): number | null => {
+    const caseC = caseAt(lineWorst(iShort));
+    if (caseC === null) return null;
+    for (let k = 0; k <= FOLDBACK_SAMPLES; k += 1) {
+      const x = k / FOLDBACK_SAMPLES;
+      const vce = Math.max(0, vMax - (x * vTarget + vs));
+      if (vce * (iShort + (iLimit - iShort) * x) > soaDeratedW(dev, vce, caseC)) return null;
+    }
+    return caseC;
+  };
+  const problems: Issue[] = [];
+  // Fold to half the limit where the SOA allows it (common practice), else as deep as needed
+  // down to the floor: more current means more power, so the largest fitting current is bisected.
+  let folded = Math.max(floor, FOLDBACK_SHARE * iLimit);
+  let caseC = fits(folded);
+  if (caseC === null && fits(floor) !== null) {
+    let lo = floor;
+    let hi = folded;
+    for (let step = 0; step < 24; step += 1) {
+      const mid = (lo + hi) / 2;
+      if (fits(mid) === null) hi = mid;
+      else lo = mid;
+    }
+    folded = lo;
+    caseC = fits(lo);
+  }
+  const fb = caseC === null ? null : designFoldback(iLimit, folded, vNormal, vs, SENSE_VBE_V);
+  if (fb && caseC !== null) return { mode: 'foldback', foldback: fb, iLimit, iShort: folded, worstW: lineWorst(folded), caseC, fuseA: null, clearS: null, problems };
+  // No foldback holds a continuous short: a fast fuse, with the limit raised so it clears quickly.
+  const fuseA = FUSE_RATINGS_A.find((r) => r >= FUSE_RATING_FACTOR * iPath) ?? FUSE_RATINGS_A[FUSE_RATINGS_A.length - 1]!;
+  const iFault = Math.max(iLimit, FUSE_CLEAR_MULTIPLE * fuseA);
+  // A plain (unfolded) limit: the sense transistor alone across Rs.
+  const plain: Foldback = { k: 0, rs: SENSE_VBE_V / iFault };
+  const clearS = fuseClearingS(iFault, fuseA);
+  const vceShort = vMax - vs;
+  const pShort = vceShort * iFault;
+  const ambientCase = ctx.ambientC;
+  if (clearS === null || pShort > pulsedSoaW(dev, vceShort, ambientCase, clearS)) {
+    problems.push(
+      blocker('soa', `A shorted output puts ${pShort.toFixed(0)} W into the pass device; no foldback keeps that inside its SOA continuously, and a ${formatSi(fuseA, 'A', 3)} fuse clearing at ${formatSi(iFault, 'A', 3)} takes ${clearS === null ? 'too long' : formatSi(clearS, 's', 2)}, beyond its pulsed SOA.`),
+    );
+  }
+  return { mode: 'fuse', foldback: plain, iLimit: iFault, iShort: iFault, worstW: pShort, caseC: ambientCase, fuseA, clearS, problems };
+}
+
+interface Candidate {
+  design: Design & { fixes: Fix[] };
+  blockers: number;
+  costCents: number;
+}
+
+function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const { spec, catalog } = ctx;
   const trace = new Trace();
   const refs = new Refs();
   const issues: Issue[] = [];
+  const fixes: Fix[] = [];
   const { vMax } = spec.input;
   const { iMax, v: vTarget } = spec.output;
-  const series = spec.overrides.resistorSeries ?? 'E96';
-
-  const qRef = refs.next('Q');
-  const adjustable = catalog.linearRegulators
-    .filter((c) => c.kind === 'adjustable')
-    .sort((a, b) => a.iOutMaxA - b.iOutMaxA || (a.vDiffMaxV ?? 0) - (b.vDiffMaxV ?? 0));
-  const forcedCls = adjustable.find((c) => c.id === spec.overrides.linearClass);
-  const cls = forcedCls ?? adjustable.find((c) => c.iOutMaxA >= iMax) ?? adjustable[adjustable.length - 1] ?? catalog.linearRegulators[0]!;
-  const r1 = spec.overrides.r1Ohm ?? snap(cls.vRefV / Math.max(cls.minLoadA, DIVIDER_MIN_A), series, 'down');
-  const iPathMax = iMax + cls.vRefV / r1 + cls.iAdjTypA;
-  const { dev, issue: devIssue } = choosePassDevice(ctx, LIMIT_RATIO * iPathMax);
-  if (devIssue) issues.push(devIssue);
   const npn = dev.kind === 'npn';
   const gain = npn ? dev.gainMin : Number.POSITIVE_INFINITY;
   const vc = dev.vControlV;
-
-  // Standoff: the regulator keeps dropout + margin at full load after the sense resistor takes
-  // its share, with the limit LIMIT_RATIO above the full-load current.
-  const need = (cls.dropoutV + HEADROOM_MARGIN_V) * (LIMIT_RATIO / (LIMIT_RATIO - 1)) + vc;
-  const dzRef = refs.next('D');
-  const vz = forced(ctx, dzRef) ?? (spec.overrides.standoffV !== undefined ? zenerVoltage(spec.overrides.standoffV) : zenerVoltageUp(need));
-  trace.add('predrop.vz', 'Standoff Zener voltage', 'Vz ≥ (Vdropout + margin)·k/(k − 1) + Vbe', {
-    Vdropout: [cls.dropoutV, 'V'],
-    margin: [HEADROOM_MARGIN_V, 'V'],
-    k: [LIMIT_RATIO, ''],
-    Vbe: [vc, 'V'],
-  }, vz, 'V');
-
-  const rsRef = refs.next('R');
-  const rsIdeal = (vz - vc - (cls.dropoutV + HEADROOM_MARGIN_V)) / iPathMax;
-  const rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), 'E24', 'down');
-  trace.add('predrop.rs', 'Sense resistor (snapped down: more headroom)', 'Rs = (Vz − Vbe − Vdropout − margin) / Ipath,max', {
-    Vz: [vz, 'V'], Vbe: [vc, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [HEADROOM_MARGIN_V, 'V'], 'Ipath,max': [iPathMax, 'A'],
-  }, rs, 'Ω');
-  const iFault = trace.add('predrop.ifault', 'Short-circuit current', 'Ifault = min(Ilimit, (Vz − Vbe)/Rs)', {
-    Ilimit: [cls.iLimitA, 'A'], Vz: [vz, 'V'], Vbe: [vc, 'V'], Rs: [rs, 'Ω'],
-  }, Math.min(cls.iLimitA, (vz - vc) / rs), 'A');
-  const regHeadroom = vz - vc - iPathMax * rs;
-  if (rsIdeal <= 0 || regHeadroom < cls.dropoutV) {
-    issues.push(blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`));
+  if (dev.vMaxV < SEMICONDUCTOR_VOLTAGE_FACTOR * vMax) {
+    issues.push(blocker('pass-voltage', `The pass device must be rated ${(SEMICONDUCTOR_VOLTAGE_FACTOR * vMax).toFixed(0)} V; the largest in the catalog is ${dev.vMaxV} V.`));
   }
-  if (cls.vDiffMaxV !== null && vz - vc > cls.vDiffMaxV) {
-    issues.push(blocker('standoff', `The standoff puts ${(vz - vc).toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
+  const live = vMax > ES1_DC_LIMIT_V;
+  const thermal: ThermalPart = { thetaJcCW: dev.thetaJcCW, thetaJaCW: dev.thetaJaCW, tjMaxC: dev.tjMaxC, heatsinkable: true, ...(live ? { thetaCsCW: INSULATING_PAD_CW } : {}) };
+
+  const cls = chooseFloatingClass(ctx, iMax);
+  const iDiv = dividerCurrent(cls, iMax) * 1.5;
+  const iPathMax = iMax + iDiv + cls.iAdjMaxA;
+
+  const qRef = refs.next('Q');
+  const q2Ref = refs.next('Q');
+  const dzRef = refs.next('D');
+  const rsRef = refs.next('R');
+  const forcedVz = forced(ctx, dzRef) ?? (spec.overrides.standoffV !== undefined ? zenerVoltage(spec.overrides.standoffV) : undefined);
+  // Standoff and sense resistor together: the regulator keeps dropout + margin after the sense
+  // resistor's drop, and that drop depends on the foldback the standoff allows.
+  let vz = forcedVz ?? zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + SENSE_VBE_V);
+  let prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc);
+  let rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
+  for (let pass = 0; pass < 3 && forcedVz === undefined; pass += 1) {
+    const next = zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + iPathMax * rs);
+    if (next === vz) break;
+    vz = next;
+    prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc);
+    rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
+  }
+  const vs = vz - vc;
+  trace.select('predrop.vz', 'Standoff Zener voltage (E24 at or above the need)', 'Vz ≥ Vbe + Vdropout + margin + Ipath,max·Rs', {
+    Vbe: [vc, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [HEADROOM_MARGIN_V, 'V'], 'Ipath,max': [iPathMax, 'A'], Rs: [rs, 'Ω'],
+  }, vz, 'V');
+  issues.push(...prot.problems);
+
+  // Foldback divider: k = RA/RB, about FOLDBACK_DIVIDER_A through both from the sense node (none for a plain limit).
+  const folds = prot.foldback.k > 0;
+  const raRef = folds ? refs.next('R') : '';
+  const rbfRef = folds ? refs.next('R') : '';
+  const vNormal = vTarget + vs;
+  const rbf = folds ? (forced(ctx, rbfRef) ?? snap(vNormal / (FOLDBACK_DIVIDER_A * (1 + prot.foldback.k)), 'E96', 'nearest')) : Number.POSITIVE_INFINITY;
+  const ra = folds ? (forced(ctx, raRef) ?? snap(atLeast(prot.foldback.k * rbf, 1e-3), 'E96', 'nearest')) : 0;
+  const fb: Foldback = { k: folds ? ra / rbf : 0, rs };
+  const iLimit = trace.add('predrop.ilimit', folds ? 'Current limit at full output (foldback line)' : 'Current limit (sense transistor across Rs)', 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
+    Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vNormal, 'V'], Rs: [rs, 'Ω'],
+  }, foldbackCurrent(fb, SENSE_VBE_V, vNormal), 'A');
+  const iFault = trace.add('predrop.ifault', 'Short-circuit current (foldback line at the shorted output)', 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
+    Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vs, 'V'], Rs: [rs, 'Ω'],
+  }, foldbackCurrent(fb, SENSE_VBE_V, vs), 'A');
+  if (iLimit < iPathMax) {
+    issues.push(blocker('current-limit', `The limit ${formatSi(iLimit, 'A', 3)} (from the forced parts) is below the full-load path current ${formatSi(iPathMax, 'A', 3)}.`));
+  }
+  const vceFault = Math.max(0, vMax - vs);
+  const pFault = trace.add('predrop.pq.fault', 'Pass device dissipation with the output shorted', 'P = max(0, vInMax − (Vz − Vbe))·Ifault', {
+    vInMax: [vMax, 'V'], Vz: [vz, 'V'], Vbe: [vc, 'V'], Ifault: [iFault, 'A'],
+  }, vceFault * iFault, 'W');
+  const soaShort = soaDeratedW(dev, vceFault, prot.caseC);
+  if (prot.mode === 'foldback') {
+    issues.push(
+      caution('soa', `Foldback limit: ${formatSi(iLimit, 'A', 3)} at full output, folding into a short, where ${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) for as long as the short lasts. Its SOA hint (${soaAllowedW(dev, vceFault).toFixed(1)} W at a 25 °C case) derated to the ${prot.caseC.toFixed(0)} °C case its heatsink gives, used to ${(SOA_MARGIN * 100).toFixed(0)} %, allows ${soaShort.toFixed(1)} W; the worst point of the foldback line is ${prot.worstW.toFixed(1)} W. A load that draws constant current may not start against a deep foldback. Confirm against the device's SOA curve.`),
+    );
+  } else if (prot.fuseA !== null) {
+    const clear = prot.clearS;
+    issues.push(
+      caution('fuse', `No foldback keeps a continuous short inside ${qRef}'s SOA, so a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse in the input clears it: at the ${formatSi(iFault, 'A', 3)} limit it opens in about ${clear === null ? 'an unbounded time' : formatSi(clear, 's', 2)}, putting ${clear === null ? 'unbounded energy' : formatSi(pFault * clear, 'J', 2)} (${pFault.toFixed(0)} W) into ${qRef} — inside its pulsed SOA (√(τ/t) widening of the DC hint, τ = ${formatSi(dev.thermalTauS, 's', 2)}, from memory). Clearing time from a typical fast-acting curve (from memory): confirm against the chosen fuse; replace it after a fault.`),
+    );
+    fixes.push({ code: 'soa', change: 'a pass device with a larger safe operating area', message: 'A device whose SOA carries the foldback line continuously would survive a short without the fuse.' });
+  }
+  if (live) {
+    issues.push(
+      caution('live-heatsink', `${qRef}'s tab and heatsink sit at up to ${vMax.toFixed(0)} V: mount it on an insulating pad (θCS ${INSULATING_PAD_CW} K/W assumed, 1–3 K/W typical) with an insulating bush, keep the heatsink away from touch, and lay out clearance and creepage for basic insulation at this working voltage from the tables of IEC 62368-1 (from memory: a few millimetres at 400–500 V, pollution degree 2 — take the figures from the standard).`),
+    );
   }
 
   // The regulator stage (divider, capacitors, protection diodes) sees only the standoff.
-  const regInMax = vTarget + vz - vc;
-  const stage = regulatorStage(
-    ctx,
-    refs,
-    trace,
-    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true },
-    vTarget,
-    iMax,
-    cls.id,
-  );
-  issues.push(...stage.issues.filter((i) => i.code !== 'class-unknown'));
+  const regInMax = vTarget + vs;
+  const stage = regulatorStage(ctx, refs, trace, { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true }, vTarget, iMax, cls.id);
+  issues.push(...stage.issues.filter((i) => i.code !== 'class-unknown' && i.code !== 'headroom'));
+  fixes.push(...stage.fixes.filter((f) => f.code !== 'headroom'));
   const vOut = stage.vOut;
-  const iDiv = stage.divider?.iDivider ?? 0;
+  const iDivActual = stage.divider?.iDivider ?? 0;
   const iAdj = cls.iAdjTypA;
+  const regHeadroom = vs - iPathMax * rs;
+  if (regHeadroom < cls.dropoutV) {
+    issues.push(blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`));
+  }
+  if (cls.vDiffMaxV !== null && vs > cls.vDiffMaxV) {
+    issues.push(blocker('standoff', `The standoff puts ${vs.toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
+  }
 
   // Bias resistor from the input to the base/gate.
   const rbRef = refs.next('R');
@@ -131,19 +286,20 @@ export function designLinearPredrop(ctx: Context): Design {
   const iBias = Math.max(BIAS_MIN_A, 1.5 * ibNormal + knee);
   // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
   const rbDrop = ctx.vInTrough - (vOut + vz) > 0 ? ctx.vInTrough - (vOut + vz) : Math.max(1, vMax - vOut - vz);
-  const rbIdeal = rbDrop / iBias;
-  const rb = forced(ctx, rbRef) ?? snap(atLeast(rbIdeal, 1), 'E24', 'down');
-  trace.add('predrop.rb', 'Bias resistor', 'Rb = (vInTrough − (Vout + Vz)) / Ibias', {
+  const rb = forced(ctx, rbRef) ?? snap(atLeast(rbDrop / iBias, 1), 'E24', 'down');
+  trace.select('predrop.rb', 'Bias resistor, snapped down to E24', 'Rb = (vInTrough − (Vout + Vz)) / Ibias', {
     vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Ibias: [iBias, 'A'],
   }, rb, 'Ω');
   if (ctx.vInTrough < vOut + vz + BIAS_HEADROOM_V) {
-    issues.push(blocker('headroom', `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${(vOut + vz + BIAS_HEADROOM_V).toFixed(1)} V.`));
+    const need = vOut + vz + BIAS_HEADROOM_V;
+    issues.push(blocker('headroom', `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${need.toFixed(1)} V.`));
+    fixes.push({ code: 'headroom', change: `input trough at least ${need.toFixed(1)} V`, message: `Needs ≥ ${need.toFixed(1)} V input at the trough; a pre-drop stage only helps well above the output.` });
   }
 
   // The Zener's current flows into the output node and bypasses the regulator; solve the path current.
   const pathCurrent = (vIn: number, iOut: number) => {
     const iRb = Math.max(0, vIn - vOut - vz) / rb;
-    const load = iOut + iDiv + iAdj;
+    const load = iOut + iDivActual + iAdj;
     const i = npn ? (load - iRb) / (1 - 1 / gain) : load - iRb;
     const ib = npn ? Math.max(0, i) / gain : 0;
     return { i: Math.max(0, i), iRb, ib, iz: Math.max(0, iRb - ib) };
@@ -152,20 +308,13 @@ export function designLinearPredrop(ctx: Context): Design {
   const izFault = Math.max(0, (vMax - vz) / rb - iFault / gain);
   const pzWorst = vz * Math.max(zNormal.iz, izFault);
   const zener = seriesForPower(zSeries, pzWorst) ?? catalog.zenerSeries[0]!;
-  trace.add('predrop.pz', 'Standoff Zener worst power (output shorted)', 'Pz = Vz·(vInMax − Vz)/Rb', {
-    Vz: [vz, 'V'], vInMax: [vMax, 'V'], Rb: [rb, 'Ω'],
+  trace.add('predrop.pz', 'Standoff Zener worst power (output shorted)', 'Pz = Vz·max(0, (vInMax − Vz)/Rb − Ifault/β)', {
+    Vz: [vz, 'V'], vInMax: [vMax, 'V'], Rb: [rb, 'Ω'], Ifault: [iFault, 'A'], β: [npn ? gain : 1e12, ''],
   }, vz * izFault, 'W');
-  if (zNormal.iz > spec.output.iMin + iDiv) {
+  if (zNormal.iz > spec.output.iMin + iDivActual) {
     issues.push(blocker('zener-feed', `The standoff Zener feeds ${(zNormal.iz * 1e3).toFixed(1)} mA into the output at the highest input, more than the divider and the lightest load draw; the regulator cannot sink it.`));
+    fixes.push({ code: 'zener-feed', change: 'a MOSFET pass device (no base current to supply) or a higher minimum load', message: `A lightest load of at least ${formatSi(zNormal.iz - iDivActual, 'A', 2)} would absorb the Zener's current.` });
   }
-
-  const vceFault = Math.max(0, vMax - (vz - vc));
-  const pFault = trace.add('predrop.pq.fault', 'Pass device dissipation with the output shorted', 'P = (vInMax − (Vz − Vbe))·Ifault', {
-    vInMax: [vMax, 'V'], Vz: [vz, 'V'], Vbe: [vc, 'V'], Ifault: [iFault, 'A'],
-  }, vceFault * iFault, 'W');
-  const soa = soaAllowedW(dev, vceFault);
-  const soaText = `${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) for as long as the short lasts (DC); the safe-operating-area hint of ${dev.label} allows about ${soa.toFixed(1)} W at that voltage.`;
-  issues.push(pFault > soa ? blocker('soa', `${soaText} Choose a device with a larger safe operating area or a foldback limit.`) : caution('soa', `${soaText} Confirm against the device's SOA curve.`));
   issues.push(caution('no-potentiometer', 'Never use a potentiometer in this high-voltage feedback path: a wiper that opens drives the output up to the input.'));
 
   const cinHv = chooseCapacitor(refs.next('C'), 'input-capacitor', 0.1e-6, vMax, catalog);
@@ -178,7 +327,7 @@ export function designLinearPredrop(ctx: Context): Design {
       part: dev.label,
       ratingV: dev.vMaxV,
       costCents: dev.costCents,
-      thermal: { thetaJcCW: dev.thetaJcCW, thetaJaCW: dev.thetaJaCW, tjMaxC: dev.tjMaxC, heatsinkable: true, protectedInFault: false },
+      thermal: { ...thermal, protectedInFault: prot.mode === 'fuse' },
     }),
     makePart({
       ref: dzRef,
@@ -194,37 +343,54 @@ export function designLinearPredrop(ctx: Context): Design {
     resistorPart(rsRef, 'sense-resistor', rs, 0.05, 'E24'),
     ...stage.parts,
     resistorPart(rbRef, 'bias-resistor', rb, 0.05, 'E24'),
+    makePart({ ref: q2Ref, role: 'limit-transistor', part: 'Small-signal NPN, foldback current sense', ratingV: vz, costCents: catalog.costs.protectionDiodeCents }),
+    ...(folds ? [resistorPart(raRef, 'bias-resistor', ra, 0.01, 'E96'), resistorPart(rbfRef, 'bias-resistor', rbf, 0.01, 'E96')] : []),
     cinHv.part,
   ];
+  if (prot.mode === 'fuse' && prot.fuseA !== null) {
+    issues.push(info('fuse-part', `Fit a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse rated for ${vMax.toFixed(0)} V DC in the input.`));
+  }
 
   const rz = dynamicImpedance(zener, vz);
+  const divW = (vn: number) => (folds ? (vn * vn) / (ra + rbf) : 0);
+  const divide = (into: Record<string, PartStress>, vn: number) => {
+    if (!folds) return;
+    into[raRef] = { w: divW(vn) * (ra / (ra + rbf)), v: vn * (ra / (ra + rbf)) };
+    into[rbfRef] = { w: divW(vn) * (rbf / (ra + rbf)), v: vn * (rbf / (ra + rbf)) };
+  };
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = pathCurrent(vIn, iOut);
     const s: Record<string, PartStress> = stage.stress(regInMax - p.i * rs, iOut);
-    const vReg = Math.max(0, vz - vc - p.i * rs);
+    const vReg = Math.max(0, vs - p.i * rs);
     const vce = Math.max(0, vIn - regInMax);
     const vRb = Math.max(0, vIn - vOut - vz);
+    const iFb = folds ? regInMax / (ra + rbf) : 0;
     s[regRef] = { w: vReg * p.i, v: vReg };
-    s[qRef] = { w: vce * p.i, v: vIn - vOut };
+    s[qRef] = { w: vce * (p.i + iFb), v: vIn - vOut };
     s[rsRef] = { w: p.i * p.i * rs, v: p.i * rs };
     s[rbRef] = { w: (vRb * vRb) / rb, v: vRb };
     s[dzRef] = { w: vz * p.iz, v: vz };
+    divide(s, regInMax);
+    s[q2Ref] = { w: 0, v: vz };
     s[cinHv.part.ref] = { w: 0, v: vIn };
     return {
-      regulates: vRb / rb >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDiv,
-      pInW: vIn * (p.i - p.ib + p.iRb),
+      regulates: vRb / rb >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDivActual,
+      pInW: vIn * (p.i - p.ib + p.iRb + iFb),
       pOutW: vOut * iOut,
       stress: s,
     };
   };
-  const faultStress: Record<string, PartStress> = stage.faultStress(vz - vc);
-  const vRegFault = Math.max(0, vz - vc - iFault * rs);
+  const faultStress: Record<string, PartStress> = stage.faultStress(vs);
+  const vRegFault = Math.max(0, vs - iFault * rs);
   const vRbFault = vMax - vz;
   faultStress[regRef] = { w: vRegFault * iFault, v: vRegFault };
-  faultStress[qRef] = { w: pFault, v: vMax };
+  // Foldback: the worst point of the limit line is a state an overload can hold, so it sizes the heatsink.
+  faultStress[qRef] = { w: prot.mode === 'foldback' ? prot.worstW : pFault, v: vMax };
   faultStress[rsRef] = { w: iFault * iFault * rs, v: iFault * rs };
   faultStress[rbRef] = { w: (vRbFault * vRbFault) / rb, v: vRbFault };
   faultStress[dzRef] = { w: vz * izFault, v: vz };
+  divide(faultStress, vs);
+  faultStress[q2Ref] = { w: 0, v: vz };
   faultStress[cinHv.part.ref] = { w: 0, v: vMax };
   const fault: OperatingPoint = { regulates: false, pInW: vMax * (iFault + izFault), pOutW: 0, stress: faultStress };
 
@@ -234,9 +400,9 @@ export function designLinearPredrop(ctx: Context): Design {
   const rippleVpp = trace.add('predrop.ripple', 'Output ripple', 'ΔVout = ΔVin·rz/(Rb + rz)·10^(−PSRR/20)', {
     ΔVin: [spec.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rb: [rb, 'Ω'], PSRR: [psrr, 'dB'],
   }, rippleAtReg * 10 ** (-psrr / 20), 'V');
-  issues.push(info('pass-rating', `${qRef} is rated ${dev.vMaxV} V for a ${vMax} V input and heat-sunk for the shorted-output case.`));
+  issues.push(info('pass-rating', `${qRef} is rated ${dev.vMaxV} V for a ${vMax} V input and heat-sunk for the worst point of its current limit.`));
 
-  return {
+  const design: Design & { fixes: Fix[] } = {
     topology: 'linear-predrop',
     label: `Linear regulator with ${npn ? 'NPN' : 'N-MOSFET'} pre-drop`,
     parts,
@@ -250,7 +416,19 @@ export function designLinearPredrop(ctx: Context): Design {
       ...stage.assumptions,
       [`${qRef}.vControl`]: { value: vc, unit: 'V' },
       [`${qRef}.gainMin`]: { value: npn ? dev.gainMin : 0, unit: '' },
+      [`${qRef}.caseC`]: { value: prot.caseC, unit: '°C' },
+      [`${qRef}.thetaCs`]: { value: thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, unit: 'K/W' },
       [`${dzRef}.rz`]: { value: rz, unit: 'Ω' },
+      [`${q2Ref}.vbe`]: { value: SENSE_VBE_V, unit: 'V' },
     },
+    fixes,
   };
+  const costCents = parts.reduce((n, p) => n + p.costCents, 0);
+  return { design, blockers: issues.filter((i) => i.severity === 'blocker').length, costCents };
+}
+
+/** Each rated pass device is designed; the cheapest with no blocker wins, else the one with fewest. */
+export function designLinearPredrop(ctx: Context): Design {
+  const candidates = passDeviceCandidates(ctx).map((dev) => designWith(ctx, dev));
+  return candidates.slice().sort((a, b) => a.blockers - b.blockers || a.costCents - b.costCents)[0]!.design;
 }

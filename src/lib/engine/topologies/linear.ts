@@ -22,7 +22,7 @@ export function designLinear(ctx: Context): Design {
   trace.add(
     `${stage.regRef}.pmax`,
     'Regulator worst dissipation',
-    'P = (vInMax − Vout)·(iOutMax + Idivider + Iadj) + vInMax·Iq',
+    'P = max(0, vInMax − Vout)·(iOutMax + Idivider + Iadj) + vInMax·Iq',
     {
       vInMax: [vMax, 'V'],
       Vout: [stage.vOut, 'V'],

@@ -349,7 +349,7 @@ export function regulatorStage(
     issues.push(info('divider-unused', `${cls.label} presets the output; ${r1Ref} and ${r2Ref} are not fitted.`));
   }
   if (forcedR.r1 !== undefined && !divider) issues.push(info('forced-unused', `The forced R1 is not used: ${cls.label} has no divider.`));
-  trace.add(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
+  trace.select(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
   const vOut = divider?.vOut ?? cls.vRefV;
 
   const rippleOutVpp = trace.add(

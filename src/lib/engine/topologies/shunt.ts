@@ -46,7 +46,7 @@ export function designShunt(ctx: Context): Design {
   const dzRef = refs.next('D');
 
   const vz = forced(ctx, dzRef) ?? zenerVoltage(spec.output.v);
-  trace.add('shunt.vz', 'Zener voltage (E24 nearest the rail)', 'Vz = E24(Vout)', { Vout: [spec.output.v, 'V'] }, vz, 'V');
+  trace.select('shunt.vz', 'Zener voltage (E24 nearest the rail)', 'Vz = E24(Vout)', { Vout: [spec.output.v, 'V'] }, vz, 'V');
   let candidates = seriesFor(catalog, vz);
   if (candidates.length === 0) {
     issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
@@ -74,7 +74,7 @@ export function designShunt(ctx: Context): Design {
   const vKnee = vz - rz * iTest;
   const rsTolerance = spec.overrides.resistorSeries === 'E96' ? 0.01 : 0.05;
 
-  trace.add(
+  trace.select(
     'shunt.rs',
     'Series resistor, snapped down so the Zener never starves',
     'Rs = (vInTrough − Vz) / (iOutMax + IzKnee)',
@@ -82,12 +82,12 @@ export function designShunt(ctx: Context): Design {
     rs,
     'Ω',
   );
-  trace.add('shunt.rz', 'Zener dynamic impedance (typical)', 'rz = f(Vz) from the series table', { Vz: [vz, 'V'] }, rz, 'Ω');
+  trace.select('shunt.rz', 'Zener dynamic impedance (typical)', 'rz = f(Vz) from the series table', { Vz: [vz, 'V'] }, rz, 'Ω');
   const worst = solveShunt(vMax, iMin, rs, vKnee, rz);
   trace.add(
     'shunt.iz',
     'Zener worst current (highest input, lightest load)',
-    'Iz = (vInMax − Vk − iOutMin·Rs) / (Rs + rz)',
+    'Iz = max(0, (vInMax − Vk − iOutMin·Rs) / (Rs + rz))',
     { vInMax: [vMax, 'V'], Vk: [vKnee, 'V'], iOutMin: [iMin, 'A'], Rs: [rs, 'Ω'], rz: [rz, 'Ω'] },
     worst.iZener,
     'A',

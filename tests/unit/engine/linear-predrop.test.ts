@@ -1,0 +1,93 @@
+// Pre-drop stage: foldback limit sized from the pass device's safe operating area, SOA derated
+// to the case temperature, live tab on an insulating pad, time-limited faults. Foldback from
+// Horowitz & Hill, The Art of Electronics, 2nd ed., §6.06 (from memory): I(Vn) = (Vbe·(1 + k) + Vn·k)/Rs.
+import { describe, expect, test } from 'vitest';
+import { assemble } from '~/lib/engine/assemble.ts';
+import { defaultCatalog } from '~/lib/engine/catalog.ts';
+import { makeContext } from '~/lib/engine/context.ts';
+import { railSpecSchema } from '~/lib/engine/rail-spec.ts';
+import { designFoldback, foldbackCurrent, minShortCurrent } from '~/lib/engine/topologies/foldback.ts';
+import { INSULATING_PAD_CW, designLinearPredrop } from '~/lib/engine/topologies/linear-predrop.ts';
+import { fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from '~/lib/engine/topologies/soa.ts';
+
+describe('foldback limit (hand calculation)', () => {
+  test('150 mA at a 310 V sense node folding to 30 mA at 10 V: k = 0.6/(0.03·300/0.12 − 0.6 − 10), Rs = k·300/0.12', () => {
+    const fb = designFoldback(0.15, 0.03, 310, 10, 0.6)!;
+    const k = 0.6 / ((0.03 * 300) / 0.12 - 0.6 - 10); // 0.0093168
+    expect(fb.k).toBeCloseTo(k, 12);
+    expect(fb.rs).toBeCloseTo((k * 300) / 0.12, 9); // 23.29 Ω
+    expect(foldbackCurrent(fb, 0.6, 310)).toBeCloseTo(0.15, 12);
+    expect(foldbackCurrent(fb, 0.6, 10)).toBeCloseTo(0.03, 12);
+  });
+  test('the deepest fold this swing allows: Ilim·(Vbe + Vs)/(swing + Vbe + Vs) = 0.15·10.6/310.6', () => {
+    expect(minShortCurrent(0.15, 310, 10, 0.6)).toBeCloseTo((0.15 * 10.6) / 310.6, 12);
+    expect(designFoldback(0.15, 0.005, 310, 10, 0.6)).toBeNull();
+  });
+});
+
+describe('safe operating area (data-sheet SOA drawn at a 25 °C case; linear derating to Tj,max — common practice)', () => {
+  const dev = defaultCatalog.passDevices.find((d) => d.id === 'nmos-600')!;
+  test('DC hint: full power to the knee, log-log fall to the power at Vmax', () => {
+    expect(soaAllowedW(dev, 50)).toBe(80);
+    // 80 W at 100 V falling to 25 W at 600 V: at 420 V, 80·4.2^(ln(25/80)/ln 6) = 31.3 W.
+    expect(soaAllowedW(dev, 420)).toBeCloseTo(80 * 4.2 ** (Math.log(25 / 80) / Math.log(6)), 9);
+  });
+  test('derated to an 87.5 °C case: (150 − 87.5)/(150 − 25) = ½, used to 80 %', () => {
+    expect(soaDeratedW(dev, 50, 87.5)).toBeCloseTo(80 * 0.5 * 0.8, 9);
+    expect(soaDeratedW(dev, 50, 200)).toBe(0);
+  });
+  test('a single pulse a quarter of the thermal time constant carries twice the power (Zth ∝ √t)', () => {
+    expect(pulsedSoaW(dev, 50, 25, dev.thermalTauS / 4)).toBeCloseTo(2 * soaDeratedW(dev, 50, 25), 9);
+  });
+  test('fast fuse: 4× its rating clears in 5 ms·(10/4)² = 31.25 ms; below 2× it may never clear', () => {
+    expect(fuseClearingS(0.4, 0.1)).toBeCloseTo(0.03125, 12);
+    expect(fuseClearingS(0.15, 0.1)).toBeNull();
+  });
+});
+
+const hv = (iMax: number) => {
+  const spec = railSpecSchema.parse({
+    input: { vMin: 380, vNom: 400, vMax: 420, source: 'rectified' },
+    output: { v: 300, tolerance: 0.05, iMin: iMax / 10, iTyp: iMax / 2, iMax },
+    noise: { class: 'digital' },
+    thermal: { ambientMaxC: 40, airflow: 'still-air' },
+  });
+  const ctx = makeContext(spec, defaultCatalog);
+  const design = designLinearPredrop(ctx);
+  return { design, option: assemble(design, ctx, 7) };
+};
+
+describe.each([0.02, 0.1])('380–420 V → 300 V at %s A', (iMax) => {
+  const { design, option } = hv(iMax);
+  const q = option.components.find((c) => c.role === 'pass-transistor')!;
+  const dev = defaultCatalog.passDevices.find((d) => q.part.startsWith(d.label))!;
+  const trace = (id: string) => option.trace.find((t) => t.id === id)!.result.value;
+
+  test('is buildable', () => {
+    expect(option.feasible).toBe(true);
+  });
+
+  test('the shorted output stays inside the SOA derated to the computed case temperature', () => {
+    const caseC = design.assumptions[`${q.ref}.caseC`]!.value;
+    const iFault = trace('predrop.ifault');
+    const vz = trace('predrop.vz');
+    const vce = 420 - (vz - dev.vControlV);
+    expect(vce * iFault).toBeLessThanOrEqual(soaDeratedW(dev, vce, caseC) + 1e-9);
+    // Foldback: the short-circuit current is below the limit at full output.
+    expect(iFault).toBeLessThan(trace('predrop.ilimit'));
+  });
+
+  test('the regulator class carries the load with margin, the standoff Zener feeds no more than the light load takes', () => {
+    const reg = option.components.find((c) => c.role === 'regulator')!;
+    const cls = defaultCatalog.linearRegulators.find((c) => reg.part.startsWith(c.label))!;
+    expect(0.9 * cls.iOutMaxA).toBeGreaterThanOrEqual(iMax);
+    expect(option.issues.map((i) => i.code)).not.toContain('zener-feed');
+  });
+
+  test('the live tab gets an insulating pad and a creepage/clearance caution (IEC 62368-1)', () => {
+    expect(design.assumptions[`${q.ref}.thetaCs`]!.value).toBe(INSULATING_PAD_CW);
+    expect(option.issues.find((i) => i.code === 'live-heatsink')!.message).toMatch(/IEC 62368-1/);
+    // The pass device is heat-sunk through the pad: its junction trace carries θCS = 2 K/W.
+    expect(option.trace.find((t) => t.id === `${q.ref}.tj`)!.inputs['θCS']!.value).toBe(INSULATING_PAD_CW);
+  });
+});
