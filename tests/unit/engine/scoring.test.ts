@@ -1,0 +1,112 @@
+// Scoring as a practitioner judges: losses against the rail's own power, size and price weighing
+// more on a small rail, the simpler topology winning a tie, and no score for what cannot be built.
+import { describe, expect, test } from 'vitest';
+import { evaluate, railSpecSchema, defaultWeights, type Option, type RailSpecInput } from '~/lib/engine/index.ts';
+import { POWER_FLOOR_W, TIE_POINTS, effectiveWeights, pickReason, rankOptions, subScores, type ScoreInputs } from '~/lib/engine/scoring.ts';
+
+const inputs = (over: Partial<ScoreInputs>): ScoreInputs => ({
+  pOutNominalW: 1,
+  lossNominalW: 0.1,
+  pOutMaxW: 1,
+  lossMaxW: 0.1,
+  source: 'adapter',
+  thermalMargin: 1,
+  heatsinkRequired: false,
+  heatsinkImpractical: false,
+  partCount: 5,
+  rippleVpp: 0.001,
+  rippleLimitVpp: 0.05,
+  switchingOutputOnQuietRail: false,
+  costCents: 100,
+  ...over,
+});
+
+describe('efficiency counts the power lost against the rail’s power budget', () => {
+  test('above the floor it is the efficiency; below it, milliwatts barely move the score', () => {
+    // 10 W out, 1 W lost: 10/11 = 90.9 %.
+    expect(subScores(inputs({ pOutNominalW: 10, lossNominalW: 1, pOutMaxW: 10, lossMaxW: 1 })).efficiency).toBeCloseTo(100 * (10 / 11), 9);
+    // A 25 mW rail: an LDO losing 45 mW against a buck losing 15 mW differs by 0.5/0.545 vs 0.5/0.515 — under 6 points,
+    // where percentage efficiency (36 % vs 62 %) would differ by 26.
+    const ldo = subScores(inputs({ pOutNominalW: 0.025, lossNominalW: 0.045, pOutMaxW: 0.025, lossMaxW: 0.045 })).efficiency;
+    const buck = subScores(inputs({ pOutNominalW: 0.025, lossNominalW: 0.015, pOutMaxW: 0.025, lossMaxW: 0.015 })).efficiency;
+    expect(POWER_FLOOR_W.other).toBe(0.5);
+    expect(buck - ldo).toBeCloseTo(100 * (0.5 / 0.515 - 0.5 / 0.545), 9);
+    expect(buck - ldo).toBeLessThan(6);
+  });
+
+  test('a battery pays for every milliwatt: its floor is lower', () => {
+    const on = (source: ScoreInputs['source']) => subScores(inputs({ source, pOutNominalW: 0.05, lossNominalW: 0.05, pOutMaxW: 0.05, lossMaxW: 0.05 })).efficiency;
+    expect(on('battery')).toBeCloseTo(50, 9);
+    expect(on('adapter')).toBeGreaterThan(on('battery'));
+  });
+
+  test('part count and cost weigh ×1 at 1 W and above, ×2 at 100 mW, ×3 at 10 mW and below', () => {
+    const w = { ...defaultWeights };
+    expect(effectiveWeights(w, 5)).toEqual(w);
+    expect(effectiveWeights(w, 0.1)).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
+    expect(effectiveWeights(w, 0.001)).toMatchObject({ partCount: 3 * w.partCount, cost: 3 * w.cost });
+  });
+
+  test('a switching output claims no noise margin on an RF or precision rail', () => {
+    expect(subScores(inputs({ rippleVpp: 1e-6 })).noise).toBe(100);
+    expect(subScores(inputs({ rippleVpp: 1e-6, switchingOutputOnQuietRail: true })).noise).toBe(50);
+  });
+});
+
+const option = (topology: Option['topology'], feasible: boolean, score: number | null, blockers = feasible ? 0 : 1): Option =>
+  ({
+    topology,
+    label: topology,
+    feasible,
+    score,
+    subScores: { efficiency: 80, heat: 80, partCount: 80, noise: 80, cost: 80 },
+    issues: Array.from({ length: blockers }, () => ({ code: 'x', severity: 'blocker', message: 'x' })),
+  }) as unknown as Option;
+
+describe('ranking', () => {
+  test('feasible first by score; within a tie the simpler topology; infeasible last with no score, fewest blockers first', () => {
+    const ranked = rankOptions([
+      option('buck-boost', true, 70.5),
+      option('boost', true, 70.5 - TIE_POINTS),
+      option('buck', true, 60),
+      option('linear', false, null, 2),
+      option('shunt', false, null, 1),
+    ]);
+    expect(ranked.map((o) => o.topology)).toEqual(['boost', 'buck-boost', 'buck', 'shunt', 'linear']);
+  });
+
+  test('a clear lead is not a tie', () => {
+    expect(rankOptions([option('buck-boost', true, 72), option('boost', true, 70)]).map((o) => o.topology)).toEqual(['buck-boost', 'boost']);
+  });
+
+  test('the reason names the tie, the lead or the blockers', () => {
+    expect(pickReason(rankOptions([option('buck-boost', true, 70.5), option('boost', true, 70)]), defaultWeights)).toMatch(/tie, which the simpler topology wins/);
+    expect(pickReason([option('linear', true, 80), option('shunt', false, null)], defaultWeights)).toMatch(/only option .* Not feasible: shunt/);
+    expect(pickReason([option('shunt', false, null)], defaultWeights)).toMatch(/No option meets every requirement/);
+  });
+});
+
+describe('ordinary rails', () => {
+  const run = (input: RailSpecInput) => evaluate(railSpecSchema.parse(input));
+  test('12 V → 24 V at 0.5 A: the boost, not the buck-boost', () => {
+    const r = run({
+      input: { vMin: 9, vNom: 12, vMax: 16, rippleVpp: 0.2, source: 'bus' },
+      output: { v: 24, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 40, airflow: 'still-air' },
+    });
+    expect(r.recommended).toBe('boost');
+    expect(r.reason).toContain(r.options[0]!.label);
+  });
+
+  test('a 25 mW rail from USB gets the linear regulator, and infeasible options carry no score', () => {
+    const r = run({
+      input: { vMin: 4.75, vNom: 5, vMax: 5.25, rippleVpp: 0.05, source: 'adapter' },
+      output: { v: 1.8, tolerance: 0.05, iMin: 0.001, iTyp: 0.01, iMax: 0.014 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 40, airflow: 'still-air' },
+    });
+    expect(r.recommended).toBe('linear');
+    for (const o of r.options) expect(o.score === null).toBe(!o.feasible);
+  });
+});
