@@ -146,7 +146,7 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
     (() => {
       const family = [...catalog.capacitors].sort((a, b) => Math.max(...b.cases.map((c) => c.vRatedV)) - Math.max(...a.cases.map((c) => c.vRatedV)))[0]!;
       const row = [...family.cases].sort((a, b) => b.vRatedV - a.vRatedV || b.cMaxF - a.cMaxF)[0]!;
-      return { family, row, perPartF: row.cMaxF, count: 1, effectiveF: row.cMaxF, lifeHours: null, costCents: row.costCents };
+      return { family, row, perPartF: row.cMaxF, count: 1, effectiveF: row.cMaxF * retained(family, row, need.workingV), lifeHours: null, costCents: row.costCents };
     })();
   const farads = chosen.perPartF * chosen.count;
   const part = makePart({

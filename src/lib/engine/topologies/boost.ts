@@ -66,6 +66,7 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
   const sync = stage.rectification === 'sync';
   const pOut = vOut * iOut;
   let eta = 1;
+  let etaUsed = 1;
   let d = 0;
   let il = iOut;
   let ripple = 0;
@@ -73,6 +74,7 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
   let rect = 0;
   let dcr = 0;
   for (let k = 0; k < 8; k += 1) {
+    etaUsed = eta;
     d = Math.min(0.99, Math.max(0, 1 - (eta * vIn) / vOut));
     il = iOut / (1 - d);
     ripple = (Math.max(0, vIn - il * (pathSwitches * stage.rdsOnOhm + dcrOhm)) * d) / (fsw * henries);
@@ -84,10 +86,10 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
     const dcDrop = il * il * (stage.rdsOnOhm * (d + (pathSwitches - 1) + (sync ? 1 - d : 0)) + dcrOhm) + (sync ? 0 : stage.diodeVfV * iOut);
     eta = pOut > 0 ? pOut / (pOut + dcDrop) : 1;
   }
-  const mode = conductionMode(stage, il, ripple / 2);
+  const mode = vOut > vIn ? conductionMode(stage, il, ripple / 2) : 'ccm';
   const share = burstShare(stage, il, ripple / 2);
   let peak = il + ripple / 2;
-  if (mode === 'dcm' && vOut > vIn) {
+  if (mode === 'dcm') {
     d = boostDcmDuty(vIn, vOut, iOut, fsw, henries);
     peak = (vIn * d) / (fsw * henries);
     const d2 = Math.min(1 - d, (peak * henries * fsw) / (vOut - vIn));
@@ -97,7 +99,6 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
     rect = stage.diodeVfV * iOut;
     dcr = i2 * (d + d2) * dcrOhm;
     ripple = peak;
-    eta = pOut > 0 ? pOut / (pOut + sw + rect + dcr) : 1;
   } else if (mode === 'burst') {
     // Packets of ordinary cycles: the circulating ripple current flows only while switching.
     const irms2 = il * il + (share * ripple * ripple) / 12;
@@ -109,7 +110,7 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
   const coreW = (coreLoss?.(ripple) ?? 0) * share;
   const switchW = sw + (sync ? rect : 0) + share * sumCycle(cycle) + stage.iqA * vIn;
   const rectifierW = sync ? 0 : rect;
-  return { mode, d, etaPath: eta, inductorA: il, rippleA: ripple, peakA: peak, switchW, rectifierW, dcrW: dcr, coreW, pInW: pOut + switchW + rectifierW + dcr + coreW, pOutW: pOut };
+  return { mode, d, etaPath: etaUsed, inductorA: il, rippleA: ripple, peakA: peak, switchW, rectifierW, dcrW: dcr, coreW, pInW: pOut + switchW + rectifierW + dcr + coreW, pOutW: pOut };
 }
 
 /** Boost output ripple: Iout·D/(fsw·Cout) + Ipk·ESR (Cout the capacitance left at the working bias). */
@@ -129,7 +130,7 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   const vLow = ctx.vInTrough;
   const dLow = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
   const ilMax = iMax / (1 - dLow);
-  const lWanted = Math.max(1e-9, (vLow * dLow) / (fsw * RIPPLE_RATIO * rippleReference(base, ilMax)));
+  const lWanted = (vLow * dLow) / (fsw * RIPPLE_RATIO * rippleReference(base, ilMax));
   const forcedL = forced(ctx, r.l);
   const lGuess = forcedL ?? snapInductance(catalog, lWanted);
   const cold = boostPoint(base, vLow, vOut, iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
@@ -198,11 +199,11 @@ export function designBoost(ctx: Context): Design {
   }, s.lWanted, 'H');
   const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
   const worst = point(vLow, iMax);
-  if (worst.mode === 'ccm') {
-    trace.add('boost.d', 'Duty cycle at the lowest input', 'D = 1 − η·Vin/Vout', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
+  if (worst.mode !== 'dcm') {
+    trace.add('boost.d', 'Duty cycle at the lowest input', 'D = min(0.99, max(0, 1 − η·Vin/Vout))', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
     trace.add('boost.ipk', 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
   } else {
-    trace.add('boost.d', 'Duty cycle at the lowest input (discontinuous conduction)', 'D = √(K·M·(M − 1)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
+    trace.add('boost.d', 'Duty cycle at the lowest input (discontinuous conduction)', 'D = min(1, √(K·M·(M − 1))), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
       Vout: [vOut, 'V'], Vin: [vLow, 'V'], L: [inductor.henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iMax, 'A'],
     }, worst.d, '');
     trace.add('boost.ipk', 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');

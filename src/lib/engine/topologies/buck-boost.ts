@@ -236,21 +236,21 @@ export function buckBoostStage(
   const vOut = fb.divider.vOut;
   const { issues, fixes } = sizingIssues(s);
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
-  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the worse end of the input range', 'L = max((vInMax − Vout)·D/(fsw·r·Iref), Vin,min·D/(fsw·r·IL,ref))', {
+  trace.select(`${idPrefix}.l`, 'Inductance for the ripple ratio at the worse end of the input range', 'L = max((vInMax − Vout)·D/(fsw·r·Iref), Vin,min·D/(fsw·r·IL,ref))', {
     vInMax: [input.vMax, 'V'], 'Vin,min': [input.vTrough, 'V'], Vout: [vTarget, 'V'], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''],
   }, s.lWanted, 'H');
   const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
   const lowP = point(input.vTrough, load.iMax);
   const highP = point(input.vMax, load.iMax);
   const peak = Math.max(lowP.peakA, highP.peakA);
-  trace.add(`${idPrefix}.ipk`, 'Peak inductor current (worse end of the input range)', 'Ipk = max(IL + ΔIL/2) at Vin,min and vInMax', {
+  trace.select(`${idPrefix}.ipk`, 'Peak inductor current (worse end of the input range)', 'Ipk = max(IL + ΔIL/2) at Vin,min and vInMax', {
     'IL(Vin,min)': [lowP.il, 'A'], 'ΔIL(Vin,min)': [lowP.rippleA, 'A'], 'IL(vInMax)': [highP.il, 'A'], 'ΔIL(vInMax)': [highP.rippleA, 'A'],
   }, peak, 'A');
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
   const rippleOf = (p: BuckBoostPoint) => buckBoostRipple(p, load.iMax, fsw, cout.effectiveF, cout.esrOhm);
-  const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
+  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
     Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
   const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);

@@ -75,12 +75,14 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
   const switches = sync ? 2 : 1;
   const pOut = vOut * iOut;
   let eta = 1;
+  let etaUsed = 1;
   let d = 0;
   let ripple = 0;
   let conduction = 0;
   let diode = 0;
   let dcr = 0;
   for (let k = 0; k < 8; k += 1) {
+    etaUsed = eta;
     d = Math.min(1, vOut / (eta * vIn));
     ripple = (Math.max(0, vIn - vOut - iOut * (stage.rdsOnOhm + dcrOhm)) * d) / (fsw * henries);
     const irms2 = iOut * iOut + (ripple * ripple) / 12;
@@ -91,10 +93,10 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
     const dcDrop = iOut * iOut * (stage.rdsOnOhm * (sync ? 1 : d) + dcrOhm);
     eta = pOut > 0 ? pOut / (pOut + dcDrop + diode) : 1;
   }
-  const mode = conductionMode(stage, iOut, ripple / 2);
+  const mode = vIn > vOut ? conductionMode(stage, iOut, ripple / 2) : 'ccm';
   const share = burstShare(stage, iOut, ripple / 2);
   let peak = iOut + ripple / 2;
-  if (mode === 'dcm' && vIn > vOut) {
+  if (mode === 'dcm') {
     d = buckDcmDuty(vIn, vOut, iOut, fsw, henries);
     peak = ((vIn - vOut) * d) / (fsw * henries);
     const d2 = Math.min(1 - d, (peak * henries * fsw) / vOut);
@@ -102,7 +104,6 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
     diode = stage.diodeVfV * iOut;
     dcr = ((peak * peak) / 3) * (d + d2) * dcrOhm;
     ripple = peak;
-    eta = pOut > 0 ? pOut / (pOut + conduction + diode + dcr) : 1;
   } else if (mode === 'burst') {
     // Packets of ordinary cycles: the circulating ripple current flows only while switching.
     const irms2 = iOut * iOut + (share * ripple * ripple) / 12;
@@ -112,7 +113,7 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
   const cycle = cycleLosses(stage, vIn, mode === 'dcm' ? peak / 2 : iOut, fsw, switches);
   const coreW = (coreLoss?.(ripple) ?? 0) * share;
   const switchW = conduction + share * sumCycle(cycle) + stage.iqA * vIn;
-  return { mode, d, etaPath: eta, rippleA: ripple, peakA: peak, switchW, diodeW: diode, dcrW: dcr, coreW, pInW: pOut + switchW + diode + dcr + coreW, pOutW: pOut };
+  return { mode, d, etaPath: etaUsed, rippleA: ripple, peakA: peak, switchW, diodeW: diode, dcrW: dcr, coreW, pInW: pOut + switchW + diode + dcr + coreW, pOutW: pOut };
 }
 
 /** Buck output ripple: ΔIL/(8·fsw·Cout) + ΔIL·ESR (Cout the capacitance left at the working bias). */
@@ -235,13 +236,13 @@ export function buckStage(
   }
 
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
-  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the highest input', 'L = (vInMax − Vout)·D/(fsw·r·Iref)', {
+  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the highest input', 'L = max(0, vInMax − Vout)·D/(fsw·r·Iref)', {
     vInMax: [input.vMax, 'V'], Vout: [vTarget, 'V'], D: [Math.min(1, vTarget / input.vMax), ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, load.iMax), 'A'],
   }, s.lWanted, 'H');
   const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
   const worst = point(input.vMax, load.iMax);
-  if (worst.mode === 'ccm') {
-    trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = (vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
+  if (worst.mode !== 'dcm') {
+    trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = max(0, vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
       vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], iOutMax: [load.iMax, 'A'], Rds: [stage.rdsOnOhm, 'Ω'], DCR: [inductor.dcrOhm, 'Ω'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
     }, worst.rippleA, 'A');
     trace.add(`${idPrefix}.ipk`, 'Peak switch and inductor current', 'Ipk = iOutMax + ΔIL/2', { iOutMax: [load.iMax, 'A'], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
@@ -360,10 +361,10 @@ export function buckStage(
 
 /** Trace of the duty cycle at a corner, in the form that recomputes from its own inputs. */
 export function traceBuckDuty(trace: Trace, id: string, label: string, p: BuckPoint, vIn: number, vOut: number, iOut: number, fsw: number, henries: number): void {
-  if (p.mode === 'ccm') {
-    trace.add(id, label, 'D = Vout/(η·Vin)', { Vout: [vOut, 'V'], η: [p.etaPath, ''], Vin: [vIn, 'V'] }, p.d, '');
+  if (p.mode !== 'dcm') {
+    trace.add(id, label, 'D = min(1, Vout/(η·Vin))', { Vout: [vOut, 'V'], η: [p.etaPath, ''], Vin: [vIn, 'V'] }, p.d, '');
   } else {
-    trace.add(id, `${label} (discontinuous conduction)`, 'D = M·√(K/(1 − M)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
+    trace.add(id, `${label} (discontinuous conduction)`, 'D = min(1, M·√(K/(1 − M))), M = min(0.999, Vout/Vin), K = 2·L·fsw·Iout/Vout', {
       Vout: [vOut, 'V'], Vin: [vIn, 'V'], L: [henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iOut, 'A'],
     }, p.d, '');
   }

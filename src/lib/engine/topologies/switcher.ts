@@ -307,7 +307,7 @@ export function postFilter(ctx: Context, refs: Refs, trace: Trace, fsw: number, 
   const w = 2 * Math.PI * fsw;
   const xc = 1 / (w * cap.effectiveF);
   const xl = w * chosen.henries;
-  const attenuation = trace.add(`${idPrefix}.postfilter`, 'Post-filter attenuation at the switching frequency', '|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²)', {
+  const attenuation = trace.add(`${idPrefix}.postfilter`, 'Post-filter attenuation at the switching frequency', '|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²), Xc = 1/(2π·fsw·C), XL = 2π·fsw·L', {
     L: [chosen.henries, 'H'], C: [cap.effectiveF, 'F'], ESR: [cap.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.sqrt(cap.esrOhm ** 2 + xc * xc) / Math.sqrt(cap.esrOhm ** 2 + (xl - xc) ** 2), '');
   issues.push(info('post-filter', `An LC post-filter (${lRef}, ${cap.part.ref}) attenuates the switching ripple by ${(20 * Math.log10(1 / attenuation)).toFixed(0)} dB for this quiet rail.`));
