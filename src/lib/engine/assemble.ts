@@ -45,6 +45,12 @@ function toComponent(p: DesignPart): Component {
   };
 }
 
+/** The cheapest catalog heatsink that fits a thermal budget (K/W, before the airflow factor) once air is forced over it. */
+function forcedAirSink(budgetCW: number, ctx: Context): { thetaSaCW: number; costCents: number } | null {
+  const limit = budgetCW / ctx.catalog.thermal.airflowFactor['forced-air'];
+  return ctx.catalog.heatsinks.find((h) => h.thetaSaCW <= limit) ?? null;
+}
+
 interface JunctionFigures {
   ambientC: number;
   power: number;
@@ -198,6 +204,15 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
             : `${p.ref} dissipates ${at} and needs θSA ≤ ${t.maxThetaSaCW.toFixed(2)} K/W, beyond any heatsink in the catalog.`,
         ),
       );
+      const fan = t.maxThetaSaCW === null ? null : forcedAirSink(t.maxThetaSaCW * airflow, ctx);
+      if (fan !== null && spec.thermal.airflow !== 'forced-air') {
+        fixes.push({
+          code: 'heatsink',
+          change: `forced air over ${p.ref}'s heatsink`,
+          costCents: fan.costCents,
+          message: `With forced air the ${fan.thetaSaCW} K/W catalog heatsink keeps ${p.ref} within its design limit (the sink's θSA counts ×${catalog.thermal.airflowFactor['forced-air']}); the fan itself is not priced.`,
+        });
+      }
     }
     if (t.problem === 'impractical') {
       impractical = true;

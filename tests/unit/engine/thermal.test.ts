@@ -59,6 +59,19 @@ describe('heatsink budget θSA,max = ((Tj,max − margin − Ta)/P − θJC − 
   });
 });
 
+describe('a heatsink beyond the catalog', () => {
+  test('says what forced air would change and what that heatsink costs', () => {
+    const o = linearOf({ ...bus, input: { vMin: 10.8, vNom: 12, vMax: 13.2, source: 'bus' }, output: { ...bus.output, v: 3.3, iTyp: 0.5, iMax: 1 } });
+    const budget = o.trace.find((t) => t.id === 'U1.thetasa')!.result.value;
+    const fix = o.fixes.find((f) => f.code === 'heatsink')!;
+    // The still-air budget times its factor (1) is what the sink may take once scaled by forced air (0.6).
+    const sink = defaultCatalog.heatsinks.find((h) => h.thetaSaCW <= budget / defaultCatalog.thermal.airflowFactor['forced-air'])!;
+    expect(defaultCatalog.heatsinks.every((h) => h.thetaSaCW > budget)).toBe(true);
+    expect(fix).toMatchObject({ costCents: sink.costCents });
+    expect(fix.message).toContain(`${sink.thetaSaCW} K/W`);
+  });
+});
+
 describe('a part past its limit', () => {
   test('is held at its limit and flagged; the words give its limit and its power, never a temperature beyond it', () => {
     const o = linearOf({ ...bus, output: { ...bus.output, iTyp: 0.5, iMax: 1 } });
