@@ -104,6 +104,17 @@ function countFor(family: CapacitorFamily, row: Case, need: CapacitorNeed): numb
   return count > MAX_PARALLEL ? 0 : count;
 }
 
+/** Every family's cases by ascending unit price (stable), so a search can stop at the first too dear. */
+const byPrice = new WeakMap<Catalog, { family: CapacitorFamily; row: Case }[]>();
+function casesByPrice(catalog: Catalog): { family: CapacitorFamily; row: Case }[] {
+  let list = byPrice.get(catalog);
+  if (!list) {
+    list = catalog.capacitors.flatMap((family) => family.cases.map((row) => ({ family, row }))).sort((a, b) => a.row.costCents - b.row.costCents);
+    byPrice.set(catalog, list);
+  }
+  return list;
+}
+
 /**
  * Cheapest case (fewer parts at equal cost); electrolytics short of the life target only when
  * nothing else fits. Only the winner's value is worked out.
@@ -112,18 +123,18 @@ function bestFit(catalog: Catalog, need: CapacitorNeed): Fit | null {
   type Pick = { family: CapacitorFamily; row: Case; count: number; life: number | null };
   let best: Pick | null = null;
   let bestShort: Pick | null = null;
-  for (const family of catalog.capacitors) {
-    for (const row of family.cases) {
-      const count = countFor(family, row, need);
-      if (count === 0) continue;
-      const life = electrolyticLife(family, need.ambientC, need.rmsA / count, row.rippleA);
-      const cost = row.costCents * count;
-      const short = life !== null && life < LIFE_TARGET_H;
-      const than = short ? bestShort : best;
-      if (than !== null && !(cost < than.row.costCents * than.count || (cost === than.row.costCents * than.count && count < than.count))) continue;
-      if (short) bestShort = { family, row, count, life };
-      else best = { family, row, count, life };
-    }
+  for (const { family, row } of casesByPrice(catalog)) {
+    // Every later case costs at least this much for one part.
+    if (best !== null && row.costCents > best.row.costCents * best.count) break;
+    const count = countFor(family, row, need);
+    if (count === 0) continue;
+    const life = electrolyticLife(family, need.ambientC, need.rmsA / count, row.rippleA);
+    const cost = row.costCents * count;
+    const short = life !== null && life < LIFE_TARGET_H;
+    const than = short ? bestShort : best;
+    if (than !== null && !(cost < than.row.costCents * than.count || (cost === than.row.costCents * than.count && count < than.count))) continue;
+    if (short) bestShort = { family, row, count, life };
+    else best = { family, row, count, life };
   }
   const chosen = best ?? bestShort;
   if (chosen === null) return null;
