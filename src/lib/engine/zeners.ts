@@ -38,6 +38,15 @@ export function testCurrent(series: ZenerSeries, vz: number): number {
   return series.powerW / (4 * vz);
 }
 
+/**
+ * Temperature coefficient of the Zener voltage, fraction per kelvin: negative below about 5.5 V
+ * (field emission), positive above (avalanche), about +0.1 %/K at high voltages — a fit to the
+ * usual data-sheet curves (from memory): TC ≈ 0.1 %/K · (1 − 5.5 V/Vz).
+ */
+export function zenerTempco(vz: number): number {
+  return 0.001 * (1 - 5.5 / Math.max(vz, 1));
+}
+
 /** Series that offer this voltage, smallest power first. */
 export function seriesFor(catalog: Catalog, vz: number): ZenerSeries[] {
   return catalog.zenerSeries

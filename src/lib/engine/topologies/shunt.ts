@@ -5,7 +5,9 @@ import { Refs, atLeast, blocker, info, makePart, resistorPart, type Design, type
 import { snap } from '../eseries.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { dynamicImpedance, seriesFor, seriesForPower, testCurrent, zenerVoltage } from '../zeners.ts';
+import { COLD_AMBIENT_C, analyseTolerance, temperatureSwingK, toleranceVerdict } from '../tolerance.ts';
+import { designShuntReference } from './shunt-reference.ts';
+import { dynamicImpedance, seriesFor, seriesForPower, testCurrent, zenerTempco, zenerVoltage } from '../zeners.ts';
 
 export interface ShuntSolution {
   vOut: number;
@@ -35,7 +37,32 @@ export function solveShunt(vIn: number, iOut: number, rs: number, vKnee: number,
   return { vOut, iZener: iz, iSeries: iz + iOut };
 }
 
+/**
+ * The Zener shunt and each precision shunt reference are designed; the one with fewest blockers
+ * (a tolerance the output cannot hold counts as one) wins, then the cheaper.
+ */
 export function designShunt(ctx: Context): Design {
+  const { spec } = ctx;
+  const band = { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
+  const rule = spec.overrides.toleranceRule ?? 'statistical';
+  const designs: Design[] = [designZenerShunt(ctx), ...ctx.catalog.shuntReferences.map((r) => designShuntReference(ctx, r))];
+  const judged = designs.map((d, index) => {
+    const spread = analyseTolerance(d.output);
+    const fails = toleranceVerdict(spread, band, rule, d.rippleVpp / 2) === 'fails';
+    const r = rule === 'statistical' ? spread.statistical : spread.worstCase;
+    return {
+      d,
+      index,
+      rank: d.issues.filter((i) => i.severity === 'blocker').length + (fails ? 1 : 0),
+      // How far the output leaves the band: between two failing designs, the nearer is the better start.
+      excess: Math.max(0, band.lo - r.min, r.max - band.hi),
+      cost: d.parts.reduce((n, p) => n + p.costCents, 0),
+    };
+  });
+  return judged.sort((a, b) => a.rank - b.rank || a.excess - b.excess || a.cost - b.cost || a.index - b.index)[0]!.d;
+}
+
+function designZenerShunt(ctx: Context): Design {
   const { spec, catalog } = ctx;
   const trace = new Trace();
   const issues: Issue[] = [];
@@ -158,11 +185,16 @@ export function designShunt(ctx: Context): Design {
     stress: { [rsRef]: { w: (vMax * vMax) / rs, v: vMax }, [dzRef]: { w: 0, v: 0 } },
   };
 
-  // Output spread: Zener tolerance, Rs tolerance, and the line/load corners through rz.
+  // Output spread: Zener tolerance, its drift over the ambient swing plus its own heating
+  // (TC·ΔT, ΔT including Pz·θJA), Rs tolerance, and the line/load corners through rz.
   const zTol = series.tolerance;
+  const selfRiseK = pzWorst * series.thetaJaCW;
+  const zDrift = trace.add('shunt.drift', 'Zener voltage drift over temperature (ambient swing plus self-heating, |TC| from 25 °C)', 'δ = TC·max(Ta + Pz·θJA − 25, 25 − Tcold)', {
+    TC: [Math.abs(zenerTempco(vz)), '1/K'], Ta: [ctx.ambientC, '°C'], Pz: [pzWorst, 'W'], θJA: [series.thetaJaCW, 'K/W'], Tcold: [COLD_AMBIENT_C, '°C'],
+  }, Math.abs(zenerTempco(vz)) * temperatureSwingK(ctx.ambientC, selfRiseK), '');
   const output = {
     params: [
-      { name: 'Vz', nominal: vz, lo: vz * (1 - zTol), hi: vz * (1 + zTol) },
+      { name: 'Vz', nominal: vz, lo: vz * (1 - zTol - zDrift), hi: vz * (1 + zTol + zDrift) },
       { name: 'Rs', nominal: rs, lo: rs * (1 - rsTolerance), hi: rs * (1 + rsTolerance) },
       { name: 'vIn', nominal: vNom, lo: ctx.vInTrough, hi: vMax },
       { name: 'iOut', nominal: spec.output.iTyp, lo: iMin, hi: iMax },
