@@ -324,7 +324,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     topology: design.topology,
     label: design.label,
     feasible,
-    score: feasible ? weightedScore(sub, effectiveWeights(spec.weights, spec.output.v * spec.output.iMax)) : null,
+    score: feasible ? weightedScore(sub, effectiveWeights(spec.weights, spec)) : null,
     subScores: sub,
     issues,
     fixes,

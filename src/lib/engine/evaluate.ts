@@ -37,6 +37,6 @@ export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Eva
   const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
   const ranked = rankOptions(options);
   const best = ranked[0];
-  const weights = effectiveWeights(spec.weights, spec.output.v * spec.output.iMax);
+  const weights = effectiveWeights(spec.weights, spec);
   return { recommended: best && best.feasible ? best.topology : null, reason: pickReason(ranked, weights), options: ranked };
 }

@@ -8,9 +8,9 @@ const clamp = (v: number) => Math.min(100, Math.max(0, v));
 /**
  * The power a rail's losses are weighed against, W: its own output, but never less than this
  * floor. Below about half a watt a loss of tens of milliwatts costs nothing in heat or supply size
- * (common practice); a battery pays for every milliwatt, so its floor is lower.
+ * (common practice); a battery pays for every microwatt in its life, so it has no floor.
  */
-export const POWER_FLOOR_W = { battery: 0.05, other: 0.5 } as const;
+export const POWER_FLOOR_W = { battery: 0, other: 0.5 } as const;
 
 /** Scores this close count as a tie, which the simpler topology wins. */
 export const TIE_POINTS = 1;
@@ -67,8 +67,11 @@ export function subScores(s: ScoreInputs): SubScores {
 /**
  * The brief's weights with part count and cost weighing more on a small rail: ×1 at 1 W and above,
  * up to ×3 at 10 mW and below (a small rail is judged by its size and price more than its loss).
+ * Not on a battery, where the loss is the battery's life however small the rail.
  */
-export function effectiveWeights(weights: RailSpec['weights'], pOutMaxW: number): RailSpec['weights'] {
+export function effectiveWeights(weights: RailSpec['weights'], spec: Pick<RailSpec, 'input' | 'output'>): RailSpec['weights'] {
+  if (spec.input.source === 'battery') return weights;
+  const pOutMaxW = spec.output.v * spec.output.iMax;
   const small = 1 + Math.min(2, Math.max(0, Math.log10(1 / Math.max(pOutMaxW, 1e-12))));
   return { ...weights, partCount: weights.partCount * small, cost: weights.cost * small };
 }

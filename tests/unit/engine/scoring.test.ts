@@ -21,6 +21,13 @@ const inputs = (over: Partial<ScoreInputs>): ScoreInputs => ({
   ...over,
 });
 
+const usb: RailSpecInput = {
+  input: { vMin: 4.75, vNom: 5, vMax: 5.25, rippleVpp: 0.05, source: 'adapter' },
+  output: { v: 1.8, tolerance: 0.05, iMin: 0.001, iTyp: 0.01, iMax: 0.014 },
+  noise: { class: 'digital' },
+  thermal: { ambientMaxC: 40, airflow: 'still-air' },
+};
+
 describe('efficiency counts the power lost against the rail’s power budget', () => {
   test('above the floor it is the efficiency; below it, milliwatts barely move the score', () => {
     // 10 W out, 1 W lost: 10/11 = 90.9 %.
@@ -34,17 +41,19 @@ describe('efficiency counts the power lost against the rail’s power budget', (
     expect(buck - ldo).toBeLessThan(6);
   });
 
-  test('a battery pays for every milliwatt: its floor is lower', () => {
-    const on = (source: ScoreInputs['source']) => subScores(inputs({ source, pOutNominalW: 0.05, lossNominalW: 0.05, pOutMaxW: 0.05, lossMaxW: 0.05 })).efficiency;
+  test('a battery pays for every microwatt: its losses count against the rail’s own power', () => {
+    const on = (source: ScoreInputs['source']) => subScores(inputs({ source, pOutNominalW: 0.0003, lossNominalW: 0.0003, pOutMaxW: 0.0003, lossMaxW: 0.0003 })).efficiency;
     expect(on('battery')).toBeCloseTo(50, 9);
     expect(on('adapter')).toBeGreaterThan(on('battery'));
   });
 
-  test('part count and cost weigh ×1 at 1 W and above, ×2 at 100 mW, ×3 at 10 mW and below', () => {
+  test('part count and cost weigh ×1 at 1 W and above, ×2 at 100 mW, ×3 at 10 mW and below — except on a battery', () => {
     const w = { ...defaultWeights };
-    expect(effectiveWeights(w, 5)).toEqual(w);
-    expect(effectiveWeights(w, 0.1)).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
-    expect(effectiveWeights(w, 0.001)).toMatchObject({ partCount: 3 * w.partCount, cost: 3 * w.cost });
+    const rail = (watts: number, source: ScoreInputs['source'] = 'adapter') => railSpecSchema.parse({ ...usb, input: { ...usb.input, source }, output: { ...usb.output, v: 1, iTyp: watts, iMax: watts } });
+    expect(effectiveWeights(w, rail(5))).toEqual(w);
+    expect(effectiveWeights(w, rail(0.1))).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
+    expect(effectiveWeights(w, rail(0.001))).toMatchObject({ partCount: 3 * w.partCount, cost: 3 * w.cost });
+    expect(effectiveWeights(w, rail(0.001, 'battery'))).toEqual(w);
   });
 
   test('a switching output claims no noise margin on an RF or precision rail', () => {
@@ -100,12 +109,7 @@ describe('ordinary rails', () => {
   });
 
   test('a 25 mW rail from USB gets the linear regulator, and infeasible options carry no score', () => {
-    const r = run({
-      input: { vMin: 4.75, vNom: 5, vMax: 5.25, rippleVpp: 0.05, source: 'adapter' },
-      output: { v: 1.8, tolerance: 0.05, iMin: 0.001, iTyp: 0.01, iMax: 0.014 },
-      noise: { class: 'digital' },
-      thermal: { ambientMaxC: 40, airflow: 'still-air' },
-    });
+    const r = run(usb);
     expect(r.recommended).toBe('linear');
     for (const o of r.options) expect(o.score === null).toBe(!o.feasible);
   });

@@ -160,7 +160,7 @@ export const CORPUS: readonly CorpusBrief[] = [
   { id: 'light-usb-3v3-1ma', family: 'light-load', spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 3.3, load: [0.0001, 0.0005, 0.001] }), accept: ['linear', 'shunt'], why: TINY },
   { id: 'light-12-5v-2ma', family: 'light-load', spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'adapter', vout: 5, load: [0.0002, 0.001, 0.002] }), accept: ['linear', 'shunt'], why: TINY },
   { id: 'light-liion-3v3-100ua', family: 'light-load', spec: rail({ vin: [3.5, 3.7, 4.2], source: 'battery', vout: 3.3, load: [0.00001, 0.00005, 0.0001] }), accept: ['linear'], why: 'common practice: a low-quiescent LDO; at 100 µA its µA of quiescent current is what matters' },
-  { id: 'light-24-3v3-5ma', family: 'light-load', spec: rail({ vin: [20, 24, 28], ripple: 0.2, source: 'bus', vout: 3.3, load: [0.0005, 0.002, 0.005] }), accept: ['linear', 'buck'], why: TINY },
+  { id: 'light-24-3v3-5ma', family: 'light-load', spec: rail({ vin: [20, 24, 28], ripple: 0.2, source: 'bus', vout: 3.3, load: [0.0005, 0.002, 0.005] }), accept: ['linear', 'buck', 'shunt'], why: TINY },
   { id: 'light-9v-5v-500ua', family: 'light-load', spec: rail({ vin: [6.5, 9, 9.6], source: 'battery', vout: 5, load: [0.00005, 0.0002, 0.0005] }), accept: ['linear'], why: 'common practice: a low-quiescent LDO on a 9 V battery' },
   { id: 'light-48-12v-1ma', family: 'light-load', spec: rail({ vin: [36, 48, 60], ripple: 0.5, source: 'bus', vout: 12, load: [0.0001, 0.0005, 0.001] }), accept: ['linear', 'linear-predrop', 'shunt'], why: TINY },
   { id: 'light-3v3-1v2-200ua', family: 'light-load', spec: rail({ vin: [3.135, 3.3, 3.465], ripple: 0.03, source: 'bus', vout: 1.2, load: [0.00002, 0.0001, 0.0002] }), accept: ['linear'], why: TINY },
