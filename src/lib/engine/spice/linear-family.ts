@@ -5,6 +5,7 @@ import type { Option } from '../types.ts';
 import { byRole, num, partOf } from './netlist-text.ts';
 import { passDeviceLines, senseTransistorLines } from './pass-device.ts';
 import { regulatorLines } from './regulator.ts';
+import { shuntReferenceLines } from './shunt-reference.ts';
 import { zenerModel } from './zener.ts';
 
 export interface SpiceCorner {
@@ -12,17 +13,12 @@ export interface SpiceCorner {
   iOut: number;
 }
 
+/** Series resistor into the rail, held by a Zener or by a precision shunt reference with its divider. */
 export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const rs = partOf(option, 'series-resistor');
-  const dz = partOf(option, 'zener');
-  return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
-    `D${dz.ref} 0 out DZ${dz.ref}`,
-    zenerModel(`DZ${dz.ref}`, dz, catalog),
-    `Iload out 0 DC ${num(corner.iOut)}`,
-    '.op',
-  ];
+  const dz = byRole(option, 'zener')[0];
+  const holder = dz ? [`D${dz.ref} 0 out DZ${dz.ref}`, zenerModel(`DZ${dz.ref}`, dz, catalog)] : shuntReferenceLines(option, partOf(option, 'regulator'), catalog);
+  return [`V1 in 0 DC ${num(corner.vIn)}`, `R${rs.ref} in out ${num(rs.value ?? 0)}`, ...holder, `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
 }
 
 export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {

@@ -18,6 +18,7 @@ import { VT, assumed, catalogEntry, num } from './netlist-text.ts';
 const ERROR_GM = 1e-3;
 const ERROR_R = 1e7;
 const ERROR_C = 1e-10;
+export const ERROR_GAIN = ERROR_GM * ERROR_R;
 /** Darlington pass device: output transistor Vbe at the class's rated current, driver Vbe at its share (typical, from memory). */
 const VBE_PASS_V = 0.8;
 const VBE_DRIVER_V = 0.7;
@@ -94,7 +95,7 @@ function pmosPass(u: string, inNode: string, cls: LinearRegulatorClass): PassSta
 }
 
 /** The amplifier's gain stage: node `<u>_a` carries gain × (V(plus) − V(minus)) after the pole; it starts at `start`. */
-function errorAmplifier(u: string, plus: string, minus: string, start: number): string[] {
+export function errorAmplifier(u: string, plus: string, minus: string, start: number): string[] {
   return [`G${u}ea 0 ${u}_a ${plus} ${minus} ${num(ERROR_GM)}`, `R${u}ea ${u}_a 0 ${num(ERROR_R)}`, `C${u}ea ${u}_a 0 ${num(ERROR_C)} IC=${num(start)}`];
 }
 
