@@ -153,7 +153,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   // nothing protects it in a short; inside an enclosure its ambient is the box's inside air.
   const airflow = airflowFactor(spec, catalog);
   const box = enclosureRise(spec, totalMaxW);
-  const ambientC = box === null ? ctx.ambientC : ctx.ambientC + box.riseK;
+  const ambientC = box === null ? ctx.ambientC : ctx.roomC + box.riseK;
   if (box !== null) {
     const { P, Pother, k, A, ρcp, V̇ } = box.inputs;
     trace.add('enclosure.rise', 'Inside air rise of the enclosure (steady heat balance: surface k·A after IEC TR 60890, plus the fan’s air ρ·cp·V̇)', 'ΔT = (P + Pother)/(k·A + ρcp·V̇)', {

@@ -1,21 +1,30 @@
 // Figures every designer derives from the spec in the same way.
 import type { RailSpec } from './rail-spec.ts';
 import type { Catalog } from './catalog.ts';
+import { enclosureRise } from './thermal.ts';
 
 export interface Context {
   spec: RailSpec;
   catalog: Catalog;
   /** Lowest instantaneous input: the trough vMin − rippleVpp/2, what headroom checks use. */
   vInTrough: number;
+  /** The room's air: the brief's highest ambient, or the engineer's override. */
+  roomC: number;
+  /**
+   * The air around the parts before this supply's own loss: the room, plus what the enclosure's
+   * other dissipation adds (the assembly adds the supply's own share per option).
+   */
   ambientC: number;
 }
 
 export function makeContext(spec: RailSpec, catalog: Catalog): Context {
+  const roomC = spec.overrides.ambientC ?? spec.thermal.ambientMaxC;
   return {
     spec,
     catalog,
     vInTrough: spec.input.vMin - spec.input.rippleVpp / 2,
-    ambientC: spec.overrides.ambientC ?? spec.thermal.ambientMaxC,
+    roomC,
+    ambientC: roomC + (enclosureRise(spec, 0)?.riseK ?? 0),
   };
 }
 

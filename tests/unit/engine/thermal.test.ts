@@ -3,6 +3,7 @@
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog, evaluate, railSpecSchema, type Option, type RailSpecInput } from '~/lib/engine/index.ts';
 import { AIR_RHO_CP_J_M3K, ENCLOSURE_K_W_M2K, enclosureRise, maxSinkTheta, powerAtLimit } from '~/lib/engine/thermal.ts';
+import { makeContext } from '~/lib/engine/context.ts';
 
 const bus: RailSpecInput = {
   input: { vMin: 22, vNom: 24, vMax: 26, source: 'bus' },
@@ -24,6 +25,8 @@ describe('enclosure air rise: steady heat balance P = (k·A + ρ·cp·V̇)·ΔT'
     expect(enclosureRise(fanned, 2)!.riseK).toBeCloseTo(5 / (0.55 + (AIR_RHO_CP_J_M3K * 10) / 3600), 9);
     // Without an enclosure in the brief there is no rise to add.
     expect(enclosureRise(railSpecSchema.parse(bus), 2)).toBeNull();
+    // Every designer already works in the box warmed by the other 3 W: 40 + 3/0.55 °C.
+    expect(makeContext(sealed, defaultCatalog)).toMatchObject({ roomC: 40, ambientC: 40 + 3 / 0.55 });
   });
 
   test('every part is rated at the inside air: the linear regulator’s ambient is the room plus the rise its own loss and the rest cause', () => {
