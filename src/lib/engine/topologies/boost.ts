@@ -24,6 +24,8 @@ import {
   postFilter,
   postFilterDcr,
   railBand,
+  boostSegments,
+  ripplePeakToPeak,
   rippleReference,
   stageRefs,
   thermalFinding,
@@ -212,9 +214,11 @@ export function designBoost(ctx: Context): Design {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
   trace.add('boost.cout.rms', 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
-  const rippleStage = trace.add('boost.ripple', 'Converter output ripple', 'ΔV = Iout·D/(fsw·Cout) + Ipk·ESR', {
-    Iout: [iMax, 'A'], D: [worst.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], Ipk: [worst.peakA, 'A'], ESR: [cout.esrOhm, 'Ω'],
-  }, boostRipple(iMax, worst.d, worst.peakA, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  // Iout·D/(fsw·C) + Ipk·ESR is no bound once the inductor's valley dips below the load: the
+  // capacitor then keeps discharging after the switch opens. The exact waveform is used.
+  const rippleStage = trace.select('boost.ripple', 'Converter output ripple at the lowest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = −Iout while the switch conducts, then the inductor current less the load', {
+    Iout: [iMax, 'A'], D: [worst.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], Ipk: [worst.peakA, 'A'], ΔIL: [worst.rippleA, 'A'], ESR: [cout.esrOhm, 'Ω'],
+  }, ripplePeakToPeak(boostSegments(worst.mode, worst.d, worst.peakA, worst.rippleA, iMax, fsw), cout.effectiveF, cout.esrOhm), 'V');
   const step = traceStep(ctx, trace, 'boost.step', fsw, cout);
   if (step) {
     issues.push(step.issue);

@@ -28,6 +28,9 @@ import {
   postFilter,
   postFilterDcr,
   railBand,
+  boostSegments,
+  buckSegments,
+  ripplePeakToPeak,
   rippleReference,
   stageRefs,
   thermalFinding,
@@ -249,8 +252,9 @@ export function buckBoostStage(
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
-  const rippleOf = (p: BuckBoostPoint) => buckBoostRipple(p, load.iMax, fsw, cout.effectiveF, cout.esrOhm);
-  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'boost: Iout·D/(fsw·C) + Ipk·ESR; buck: ΔIL/(8·fsw·C) + ΔIL·ESR', {
+  const rippleOf = (p: BuckBoostPoint) =>
+    ripplePeakToPeak(p.boost ? boostSegments('ccm', p.dBoost, p.peakA, p.rippleA, load.iMax, fsw) : buckSegments('ccm', p.dBuck, p.rippleA, load.iMax, fsw), cout.effectiveF, cout.esrOhm);
+  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'ΔV = the larger of max − min over one period of vC + ESR·iC at the two ends', {
     Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
   }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
   const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);

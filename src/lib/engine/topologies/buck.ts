@@ -255,6 +255,7 @@ export function buckStage(
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
+  // The textbook sum is a bound for the buck's zero-mean triangle: kept, as the conservative figure.
   const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple', 'ΔV = ΔIL/(8·fsw·Cout) + ΔIL·ESR', {
     ΔIL: [worst.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
   }, buckRipple(worst.rippleA, fsw, cout.effectiveF, cout.esrOhm), 'V');

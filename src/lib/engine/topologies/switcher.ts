@@ -183,6 +183,68 @@ export function stageRippleLimit(ctx: Context, rippleLimit: number, allowPostFil
   return allowPostFilter && quiet ? Math.max(rippleLimit, PRE_FILTER_RIPPLE_FRACTION * vOut / RIPPLE_BUDGET) : rippleLimit;
 }
 
+/** A stretch of the capacitor current: it runs linearly from i0 to i1 over t seconds. */
+export interface CurrentSegment {
+  t: number;
+  i0: number;
+  i1: number;
+}
+
+/**
+ * Exact peak-to-peak of the output v = vC + ESR·iC over one period of a piecewise-linear capacitor
+ * current: on each stretch v is quadratic in time, so its extremes lie at the ends or where
+ * dv/dt = iC/C + ESR·diC/dt = 0. (The textbook ΔIL/(8·fsw·C) + ΔIL·ESR adds the two peaks as if
+ * they coincided, an upper bound.)
+ */
+export function ripplePeakToPeak(segments: readonly CurrentSegment[], capF: number, esrOhm: number): number {
+  let vc = 0;
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = Number.NEGATIVE_INFINITY;
+  for (const { t, i0, i1 } of segments) {
+    if (!(t > 0)) continue;
+    const slope = (i1 - i0) / t;
+    const at = (tau: number) => vc + (i0 * tau + (slope * tau * tau) / 2) / capF + esrOhm * (i0 + slope * tau);
+    const candidates = [0, t];
+    if (slope !== 0) {
+      const turn = (-esrOhm * slope * capF - i0) / slope;
+      if (turn > 0 && turn < t) candidates.push(turn);
+    }
+    for (const tau of candidates) {
+      const v = at(tau);
+      lo = Math.min(lo, v);
+      hi = Math.max(hi, v);
+    }
+    vc += ((i0 + i1) / 2) * t / capF;
+  }
+  return Number.isFinite(hi - lo) ? hi - lo : 0;
+}
+
+/** Buck capacitor current: the inductor's triangle less the load (CCM), or its pulse and the idle gap (DCM). */
+export function buckSegments(mode: 'ccm' | 'dcm' | 'burst', d: number, rippleA: number, iOut: number, fsw: number): CurrentSegment[] {
+  const period = 1 / fsw;
+  if (mode !== 'dcm') return [{ t: d * period, i0: -rippleA / 2, i1: rippleA / 2 }, { t: (1 - d) * period, i0: rippleA / 2, i1: -rippleA / 2 }];
+  // DCM: the inductor current averages Iout over its triangle, so the fall lasts 2·Iout/Ipk − D.
+  const d2 = Math.min(1 - d, Math.max(0, (2 * iOut) / Math.max(rippleA, 1e-12) - d));
+  return [
+    { t: d * period, i0: -iOut, i1: rippleA - iOut },
+    { t: d2 * period, i0: rippleA - iOut, i1: -iOut },
+    { t: (1 - d - d2) * period, i0: -iOut, i1: -iOut },
+  ];
+}
+
+/** Boost capacitor current: −Iout while the switch conducts, then the falling inductor current less the load. */
+export function boostSegments(mode: 'ccm' | 'dcm' | 'burst', d: number, peakA: number, rippleA: number, iOut: number, fsw: number): CurrentSegment[] {
+  const period = 1 / fsw;
+  if (mode !== 'dcm') return [{ t: d * period, i0: -iOut, i1: -iOut }, { t: (1 - d) * period, i0: peakA - iOut, i1: peakA - rippleA - iOut }];
+  // DCM: the rectifier passes the whole triangle's fall, whose charge is Iout·Ts: it lasts 2·Iout/Ipk.
+  const d2 = Math.min(1 - d, (2 * iOut) / Math.max(peakA, 1e-12));
+  return [
+    { t: d * period, i0: -iOut, i1: -iOut },
+    { t: d2 * period, i0: peakA - iOut, i1: -iOut },
+    { t: (1 - d - d2) * period, i0: -iOut, i1: -iOut },
+  ];
+}
+
 /** Load-step deviation: ΔV = ΔI/(2π·fc·C) + ΔI·ESR with fc = fsw/10 (current-mode, common practice). */
 export function stepDeviation(stepA: number, fsw: number, capF: number, esrOhm: number): number {
   return stepA / (2 * Math.PI * CROSSOVER_FRACTION * fsw * capF) + stepA * esrOhm;
