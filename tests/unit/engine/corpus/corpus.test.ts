@@ -34,7 +34,11 @@ describe.each(corpusFamilies)('%s briefs', (family) => {
     const result = run(id);
     const blockers = result.options
       .filter((o) => brief.accept.includes(o.topology))
-      .map((o) => `${o.topology}: ${o.issues.filter((i) => i.severity === 'blocker').map((i) => i.message).join(' | ')}`);
+      .map((o) =>
+        o.feasible
+          ? `${o.topology}: feasible, score ${o.score}, outranked — ${result.reason ?? ''}`
+          : `${o.topology}: ${o.issues.filter((i) => i.severity === 'blocker').map((i) => i.message).join(' | ')}`,
+      );
     expect({ recommended: result.recommended, accepted: brief.accept.includes(result.recommended!) ? 'yes' : blockers }).toEqual({
       recommended: expect.toSatisfy((r: string | null) => r !== null && brief.accept.includes(r as never)),
       accepted: 'yes',
