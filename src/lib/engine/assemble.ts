@@ -82,7 +82,18 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const fixes: Fix[] = [...(design.fixes ?? [])];
   const trace = design.trace;
   const corners = normalCorners(spec);
-  const points = corners.map((c) => design.operate(c.vIn, c.iOut));
+  // The nominal point and the curves' end points repeat corners: each operating point is worked out once.
+  const solved = new Map<string, OperatingPoint>();
+  const operate = (vIn: number, iOut: number): OperatingPoint => {
+    const key = `${vIn}|${iOut}`;
+    let p = solved.get(key);
+    if (!p) {
+      p = design.operate(vIn, iOut);
+      solved.set(key, p);
+    }
+    return p;
+  };
+  const points = corners.map((c) => operate(c.vIn, c.iOut));
   const parts = design.parts.map((p) => ({ ...p }));
 
   // Worst normal and fault stress of every part.
@@ -133,7 +144,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   }
 
   // Efficiency and dissipation.
-  const nominal = design.operate(spec.input.vNom, spec.output.iTyp);
+  const nominal = operate(spec.input.vNom, spec.output.iTyp);
   const effNominal = efficiencyOf(nominal);
   let effWorst = 1;
   let totalMaxW = 0;
@@ -276,8 +287,8 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const efficiency: (number | null)[] = new Array<number | null>(CURVE_POINTS);
   const dissipationW: (number | null)[] = new Array<number | null>(CURVE_POINTS);
   vIns.forEach((vIn, k) => {
-    const typ = design.operate(vIn, curveLoad);
-    const max = design.operate(vIn, spec.output.iMax);
+    const typ = operate(vIn, curveLoad);
+    const max = operate(vIn, spec.output.iMax);
     efficiency[k] = typ.regulates ? efficiencyOf(typ) : null;
     dissipationW[k] = max.regulates ? max.pInW - max.pOutW : null;
   });
