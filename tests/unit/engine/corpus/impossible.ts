@@ -92,8 +92,9 @@ function optionFigures(o: Option, spec: RailSpec): string[] {
       if (q.unit === '°C' && q.value > HOTTEST_LIMIT_C) out.push(`${at(`trace ${e.id}.${name}`)}: ${q.value} °C`);
     }
   }
+  // Device parameters (a Zener knee, a reference, a dropout) are magnitudes: never negative.
   for (const [name, q] of Object.entries(o.assumptions)) {
-    if (NON_NEGATIVE_UNITS.has(q.unit) && q.value < 0) out.push(`${at(`assumption ${name}`)}: negative ${q.value} ${q.unit}`);
+    if ((NON_NEGATIVE_UNITS.has(q.unit) || q.unit === 'V') && q.value < 0) out.push(`${at(`assumption ${name}`)}: negative ${q.value} ${q.unit}`);
   }
   for (const i of o.issues) out.push(...impossibleInText(i.message, at(`issue ${i.code}`)));
   for (const f of o.fixes) out.push(...impossibleInText(f.message, at(`fix ${f.code}`)));
