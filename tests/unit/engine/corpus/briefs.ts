@@ -40,7 +40,7 @@ function rail(r: Rail): RailSpecInput {
 }
 
 // Input ranges used again and again (common practice unless marked).
-/** USB 2.0 VBUS at the device, 4.75–5.25 V (USB 2.0 specification, section 7.2.1). */
+/** USB 2.0 VBUS at a high-power port, 4.75–5.25 V (USB 2.0 specification, DC electrical characteristics table, from memory). */
 const USB = [4.75, 5, 5.25] as const;
 /** A single Li-ion cell from cut-off to full charge (common practice). */
 const LI_ION = [3.0, 3.7, 4.2] as const;
