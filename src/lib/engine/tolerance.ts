@@ -15,6 +15,8 @@ export interface ToleranceModel {
   f: (x: Float64Array) => number;
   /** The same over columns of draws (one column per parameter), written into `out`: a tight loop per model. */
   batch: (columns: readonly Float64Array[], out: Float64Array) => void;
+  /** When the output rises (+1) or falls (−1) with each parameter over its whole band, the extremes sit at two vertices. */
+  monotone?: readonly (1 | -1)[];
 }
 
 export const HISTOGRAM_BINS = 20;
@@ -35,6 +37,13 @@ export function nominalValue(model: ToleranceModel): number {
 export function extremeValues(model: ToleranceModel): { min: number; max: number } {
   const n = model.params.length;
   const x = new Float64Array(n);
+  const signs = model.monotone;
+  if (signs && signs.length === n) {
+    signs.forEach((sign, j) => (x[j] = sign > 0 ? model.params[j]!.lo : model.params[j]!.hi));
+    const min = model.f(x);
+    signs.forEach((sign, j) => (x[j] = sign > 0 ? model.params[j]!.hi : model.params[j]!.lo));
+    return { min, max: model.f(x) };
+  }
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
   for (let mask = 0; mask < 1 << n; mask += 1) {

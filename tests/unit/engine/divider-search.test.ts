@@ -4,8 +4,8 @@
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog } from '~/lib/engine/catalog.ts';
 import { E_SERIES } from '~/lib/engine/eseries.ts';
-import { analyseTolerance, toleranceVerdict, type ToleranceModel } from '~/lib/engine/tolerance.ts';
-import { bestPair, designDivider, searchDivider, type DividerSearchInput } from '~/lib/engine/topologies/feedback.ts';
+import { analyseTolerance, extremeValues, toleranceVerdict, type ToleranceModel } from '~/lib/engine/tolerance.ts';
+import { bestPair, designDivider, dividerOutputModel, searchDivider, type DividerSearchInput } from '~/lib/engine/topologies/feedback.ts';
 
 describe('E192 (IEC 60063)', () => {
   test('192 members; every other one is the E96 member; 9.20 is the irregular value', () => {
@@ -115,5 +115,18 @@ describe('root-sum-square sigma (uniform parts: σ = a/√3)', () => {
     expect(s.sigma).toBeCloseTo(Math.sqrt(n / 3), 12);
     expect(toleranceVerdict(s, { lo: -5, hi: 5 }, 'statistical')).toBe('statistical');
     expect(toleranceVerdict(s, { lo: -5, hi: 5 }, 'worst-case')).toBe('fails');
+  });
+});
+
+describe('monotone extremes', () => {
+  test('the divider model’s two-vertex extremes equal the full 2ⁿ enumeration', () => {
+    const model = dividerOutputModel(1.25, { r1: 240, r2: 720, vOut: 5, iDivider: 1.25 / 240 }, {
+      vRefTolerance: 0.04, vRefDrift: 0.002, resistor: 0.012, iAdjMin: 0, iAdjMax: 100e-6, iAdjTyp: 50e-6,
+      extra: [{ name: 'Line', nominal: 1, lo: 0.999, hi: 1.001 }],
+    });
+    const full = extremeValues({ params: model.params, f: model.f, batch: model.batch });
+    const fast = extremeValues(model);
+    expect(fast.min).toBeCloseTo(full.min, 12);
+    expect(fast.max).toBeCloseTo(full.max, 12);
   });
 });

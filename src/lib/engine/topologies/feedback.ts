@@ -76,6 +76,8 @@ export function dividerOutputModel(vRef: number, divider: Divider, spread: Divid
   const n = params.length;
   return {
     params,
+    // Rises with Vref, its drift, R2 (while Vref/R1 + Iadj > 0), Iadj (R2 ≥ 0) and every positive factor; falls with R1.
+    monotone: params.map((_p, j) => (j === 2 ? -1 : 1)),
     f: (x: Float64Array) => {
       let v = x[0]! * x[1]! * (1 + x[3]! / x[2]!) + x[4]! * x[3]!;
       for (let j = 5; j < n; j += 1) v *= x[j]!;
@@ -126,11 +128,24 @@ export function bestPair(
   const hiR1 = vRef / atLeast(iMin, 1e-12);
   const r1s = r1Forced !== undefined ? [r1Forced] : seriesRange(series, vRef / atLeast(Math.max(iMax, iMin), 1e-12), hiR1);
   if (r1s.length === 0) r1s.push(snap(atLeast(hiR1, 1e-3), series, 'down'));
+  const r2Of = (r1: number) => atLeast((vTarget - vRef) / (vRef / r1 + iAdj), 1e-3);
+  // The series members around every ideal R2, listed once: a bisection then brackets each ideal.
+  const ideals = r1s.map(r2Of);
+  const members = seriesRange(series, snap(Math.min(...ideals), series, 'down'), snap(Math.max(...ideals), series, 'up'));
+  const bracket = (value: number): number[] => {
+    let lo = 0;
+    let hi = members.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (members[mid]! < value) lo = mid + 1;
+      else hi = mid;
+    }
+    return [members[Math.max(0, lo - 1)]!, members[Math.min(members.length - 1, lo)]!];
+  };
   let best: Divider | null = null;
   let bestErr = Number.POSITIVE_INFINITY;
   for (const r1 of r1s) {
-    const r2Ideal = atLeast((vTarget - vRef) / (vRef / r1 + iAdj), 1e-3);
-    const r2s = r2Forced !== undefined ? [r2Forced] : [snap(r2Ideal, series, 'down'), snap(r2Ideal, series, 'up')];
+    const r2s = r2Forced !== undefined ? [r2Forced] : members.length > 0 ? bracket(r2Of(r1)) : [snap(r2Of(r1), series, 'nearest')];
     for (const r2 of r2s) {
       const vOut = dividerVout(vRef, r1, r2, iAdj);
       const err = Math.max(Math.abs(vOut - vTarget), PAIR_GOOD_ENOUGH * Math.abs(vTarget));
@@ -196,7 +211,7 @@ export interface DividerDesign extends Divider {
 export interface DividerSearchResult {
   /** Cheapest choice that meets the band (worst case first at equal cost); the tightest when none does. */
   pick: DividerDesign;
-  /** Cheapest choice that meets the band in the worst case, when the pick only meets it statistically. */
+  /** A choice at the pick's cost that meets the band in the worst case, when the pick only meets it statistically (null if none at that cost). */
   worstCasePick: DividerDesign | null;
 }
 
@@ -210,39 +225,51 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
   const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
   const pairs = new Map<SeriesName, Divider>();
-  const candidates: DividerDesign[] = [];
-  for (const grade of pool) {
-    // A forced E96 request keeps E96 values even in a finer grade.
-    const series: SeriesName = input.series === 'E96' ? 'E96' : grade.series;
+  const pairFor = (series: SeriesName) => {
     let pair = pairs.get(series);
     if (!pair) {
       pair = bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced);
       pairs.set(series, pair);
     }
-    for (const ref of input.refGrades) {
-      const spread: DividerSpread = {
-        vRefTolerance: ref.tolerance,
-        vRefDrift: input.vRefDriftPpmK * 1e-6 * input.tempSwingK,
-        resistor: grade.tolerance + grade.tcrPpmK * 1e-6 * input.tempSwingK,
-        iAdjMin: input.iAdjMin,
-        iAdjMax: input.iAdjMax,
-        iAdjTyp: input.iAdjTyp,
-        extra: input.extra ?? [],
-      };
-      const model = dividerOutputModel(input.vRef, pair, spread);
-      const summary = analyseTolerance(model);
-      const verdict = toleranceVerdict(summary, input.band, input.rule, input.marginV ?? 0);
-      const extraCents = 2 * grade.extraCents + ref.extraCents;
-      const dominant = summary.contributions[0]?.name ?? 'Vref';
-      const view = verdict === 'statistical' ? '3σ' : 'worst case';
-      const range = verdict === 'statistical' ? summary.statistical : summary.worstCase;
-      const why =
-        `${series} ${formatSi(pair.r1, 'Ω', 3)} / ${formatSi(pair.r2, 'Ω', 3)} (${grade.label}) with the ${pct(ref.tolerance)} reference: ` +
-        `${range.min.toFixed(4)}–${range.max.toFixed(4)} V ${view}` +
-        (verdict === 'fails' ? `, outside ${input.band.lo.toFixed(4)}–${input.band.hi.toFixed(4)} V` : '') +
-        `; the largest term is ${dominant}.`;
-      candidates.push({ ...pair, grade, series, refTolerance: ref.tolerance, extraCents, model, summary, verdict, why });
-    }
+    return pair;
+  };
+  const design = (grade: ResistorGrade, ref: ReferenceGrade): DividerDesign => {
+    // A forced E96 request keeps E96 values even in a finer grade.
+    const series: SeriesName = input.series === 'E96' ? 'E96' : grade.series;
+    const pair = pairFor(series);
+    const spread: DividerSpread = {
+      vRefTolerance: ref.tolerance,
+      vRefDrift: input.vRefDriftPpmK * 1e-6 * input.tempSwingK,
+      resistor: grade.tolerance + grade.tcrPpmK * 1e-6 * input.tempSwingK,
+      iAdjMin: input.iAdjMin,
+      iAdjMax: input.iAdjMax,
+      iAdjTyp: input.iAdjTyp,
+      extra: input.extra ?? [],
+    };
+    const model = dividerOutputModel(input.vRef, pair, spread);
+    const summary = analyseTolerance(model);
+    const verdict = toleranceVerdict(summary, input.band, input.rule, input.marginV ?? 0);
+    const dominant = summary.contributions[0]?.name ?? 'Vref';
+    const view = verdict === 'statistical' ? '3σ' : 'worst case';
+    const range = verdict === 'statistical' ? summary.statistical : summary.worstCase;
+    const why =
+      `${series} ${formatSi(pair.r1, 'Ω', 3)} / ${formatSi(pair.r2, 'Ω', 3)} (${grade.label}) with the ${pct(ref.tolerance)} reference: ` +
+      `${range.min.toFixed(4)}–${range.max.toFixed(4)} V ${view}` +
+      (verdict === 'fails' ? `, outside ${input.band.lo.toFixed(4)}–${input.band.hi.toFixed(4)} V` : '') +
+      `; the largest term is ${dominant}.`;
+    return { ...pair, grade, series, refTolerance: ref.tolerance, extraCents: 2 * grade.extraCents + ref.extraCents, model, summary, verdict, why };
+  };
+  // Combinations cheapest first; the search stops at the first cost level that passes (worst case preferred there).
+  const combos = pool
+    .flatMap((grade) => input.refGrades.map((ref) => ({ grade, ref, cents: 2 * grade.extraCents + ref.extraCents })))
+    .sort((a, b) => a.cents - b.cents);
+  const candidates: DividerDesign[] = [];
+  let passedAt: number | null = null;
+  for (const c of combos) {
+    if (passedAt !== null && c.cents > passedAt) break;
+    const d = design(c.grade, c.ref);
+    candidates.push(d);
+    if (d.verdict !== 'fails' && passedAt === null) passedAt = c.cents;
   }
   const rank = (d: DividerDesign) => (d.verdict === 'worst-case' ? 0 : 1);
   const passing = candidates.filter((d) => d.verdict !== 'fails').sort((a, b) => a.extraCents - b.extraCents || rank(a) - rank(b));

@@ -142,7 +142,7 @@ function sizeProtectionAt(ctx: Context, dev: PassDeviceClass, thermal: ThermalPa
   if (caseC === null && fits(floor) !== null) {
     let lo = floor;
     let hi = folded;
-    for (let step = 0; step < 24; step += 1) {
+    for (let step = 0; step < 12; step += 1) {
       const mid = (lo + hi) / 2;
       if (fits(mid) === null) hi = mid;
       else lo = mid;
@@ -429,6 +429,13 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
 
 /** Each rated pass device is designed; the cheapest with no blocker wins, else the one with fewest. */
 export function designLinearPredrop(ctx: Context): Design {
-  const candidates = passDeviceCandidates(ctx).map((dev) => designWith(ctx, dev));
-  return candidates.slice().sort((a, b) => a.blockers - b.blockers || a.costCents - b.costCents)[0]!.design;
+  // Devices come cheapest first and the first clean design is kept: a dearer device might need a
+  // smaller heatsink, but designing every device costs more time than that rare saving is worth.
+  const candidates: Candidate[] = [];
+  for (const dev of passDeviceCandidates(ctx)) {
+    const c = designWith(ctx, dev);
+    candidates.push(c);
+    if (c.blockers === 0) break;
+  }
+  return candidates.sort((a, b) => a.blockers - b.blockers || a.costCents - b.costCents)[0]!.design;
 }

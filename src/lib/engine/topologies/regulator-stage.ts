@@ -307,9 +307,15 @@ export function regulatorStage(
   const forcedR = { r1: spec.overrides.r1Ohm ?? (r1Ref ? forced(ctx, r1Ref) : undefined), r2: r2Ref ? forced(ctx, r2Ref) : undefined };
   const wanted = forcedClassId === undefined ? undefined : catalog.linearRegulators.find((c) => c.id === forcedClassId);
   const pool = wanted ? [wanted] : eligible(ctx, vTarget);
-  const designs = (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).map((cls) =>
-    designClass(ctx, cls, input, vTarget, iMax, cls.kind === 'fixed' ? {} : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) }),
-  );
+  // Cheapest class first: once a clean design exists, a class whose bare price is no lower cannot beat it.
+  const designs: ClassDesign[] = [];
+  let cleanCents = Number.POSITIVE_INFINITY;
+  for (const cls of (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).slice().sort((a, b) => a.costCents - b.costCents)) {
+    if (cls.costCents >= cleanCents) continue;
+    const d = designClass(ctx, cls, input, vTarget, iMax, cls.kind === 'fixed' ? {} : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) });
+    designs.push(d);
+    if (blockerCount(d) === 0) cleanCents = Math.min(cleanCents, d.costCents);
+  }
   const d = pickDesign(designs);
   const cls = d.cls;
   const issues: Issue[] = [...d.failures];
