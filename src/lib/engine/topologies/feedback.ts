@@ -219,8 +219,11 @@ const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
 /** Resistor grade × reference grade, each with its best pair; a handful of candidates, each analysed analytically. */
 export function searchDivider(input: DividerSearchInput): DividerSearchResult {
+  // A grade no cheaper, no tighter and no steadier than another is never the better choice.
+  const dominated = (g: ResistorGrade) =>
+    input.grades.some((h) => h !== g && h.extraCents <= g.extraCents && h.tolerance <= g.tolerance && h.tcrPpmK <= g.tcrPpmK && (h.tolerance < g.tolerance || h.tcrPpmK < g.tcrPpmK || h.extraCents < g.extraCents));
   const grades = input.grades
-    .filter((g) => input.series === undefined || g.series === input.series || (input.series === 'E96' && g.series === 'E192'))
+    .filter((g) => (input.series === undefined ? !dominated(g) : g.series === input.series || (input.series === 'E96' && g.series === 'E192')))
     .slice()
     .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
   const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
@@ -249,15 +252,18 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     const model = dividerOutputModel(input.vRef, pair, spread);
     const summary = analyseTolerance(model);
     const verdict = toleranceVerdict(summary, input.band, input.rule, input.marginV ?? 0);
-    const dominant = summary.contributions[0]?.name ?? 'Vref';
-    const view = verdict === 'statistical' ? '3σ' : 'worst case';
-    const range = verdict === 'statistical' ? summary.statistical : summary.worstCase;
+    return { ...pair, grade, series, refTolerance: ref.tolerance, extraCents: 2 * grade.extraCents + ref.extraCents, model, summary, verdict, why: '' };
+  };
+  // Written only for the designs handed back: text is the dearest part of a candidate.
+  const explain = (d: DividerDesign): DividerDesign => {
+    const view = d.verdict === 'statistical' ? '3σ' : 'worst case';
+    const range = d.verdict === 'statistical' ? d.summary.statistical : d.summary.worstCase;
     const why =
-      `${series} ${formatSi(pair.r1, 'Ω', 3)} / ${formatSi(pair.r2, 'Ω', 3)} (${grade.label}) with the ${pct(ref.tolerance)} reference: ` +
+      `${d.series} ${formatSi(d.r1, 'Ω', 3)} / ${formatSi(d.r2, 'Ω', 3)} (${d.grade.label}) with the ${pct(d.refTolerance)} reference: ` +
       `${range.min.toFixed(4)}–${range.max.toFixed(4)} V ${view}` +
-      (verdict === 'fails' ? `, outside ${input.band.lo.toFixed(4)}–${input.band.hi.toFixed(4)} V` : '') +
-      `; the largest term is ${dominant}.`;
-    return { ...pair, grade, series, refTolerance: ref.tolerance, extraCents: 2 * grade.extraCents + ref.extraCents, model, summary, verdict, why };
+      (d.verdict === 'fails' ? `, outside ${input.band.lo.toFixed(4)}–${input.band.hi.toFixed(4)} V` : '') +
+      `; the largest term is ${d.summary.contributions[0]?.name ?? 'Vref'}.`;
+    return { ...d, why };
   };
   // Combinations cheapest first; the search stops at the first cost level that passes (worst case preferred there).
   const combos = pool
@@ -279,5 +285,5 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
   };
   const pick = passing[0] ?? candidates.slice().sort((a, b) => width(a) - width(b) || a.extraCents - b.extraCents)[0]!;
   const worstCasePick = pick.verdict === 'statistical' ? (passing.find((d) => d.verdict === 'worst-case') ?? null) : null;
-  return { pick, worstCasePick };
+  return { pick: explain(pick), worstCasePick: worstCasePick && explain(worstCasePick) };
 }

@@ -435,7 +435,8 @@ export function designLinearPredrop(ctx: Context): Design {
   for (const dev of passDeviceCandidates(ctx)) {
     const c = designWith(ctx, dev);
     candidates.push(c);
-    if (c.blockers === 0) break;
+    // Too little input for any standoff is the same for every device.
+    if (c.blockers === 0 || c.design.issues.some((i) => i.code === 'headroom' && i.severity === 'blocker')) break;
   }
   return candidates.sort((a, b) => a.blockers - b.blockers || a.costCents - b.costCents)[0]!.design;
 }

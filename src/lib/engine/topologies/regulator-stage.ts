@@ -354,7 +354,9 @@ export function regulatorStage(
   } else if (r1Ref) {
     issues.push(info('divider-unused', `${cls.label} presets the output; ${r1Ref} and ${r2Ref} are not fitted.`));
   }
-  if (forcedR.r1 !== undefined && !divider) issues.push(info('forced-unused', `The forced R1 is not used: ${cls.label} has no divider.`));
+  if ((forcedR.r1 !== undefined || forcedR.r2 !== undefined) && !divider) {
+    issues.push(info('forced-unused', `The forced divider value is not used: ${cls.label} presets its output and has no divider.`));
+  }
   trace.select(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
   const vOut = divider?.vOut ?? cls.vRefV;
 
