@@ -181,7 +181,7 @@ describe('every switcher trace entry recomputes from its own printed inputs', ()
     dil: (x) => ((x.vInMax! - x.Vout! - x.iOutMax! * (x.Rds! + x.DCR!)) * x.D!) / (x.fsw! * x.L!),
     ipk: (x) => x.iOutMax! + x['ΔIL']! / 2,
     ton: (x) => x.D! / x.fsw!,
-    ripple: (x) => x['ΔIL']! / (8 * x.fsw! * x.Cout!) + x['ΔIL']! * x.ESR!,
+    ripple: (x) => ripplePeakToPeak(buckSegments('ccm', x.D!, x['ΔIL']!, x.Iout!, x.fsw!), x.Cout!, x.ESR!),
     cout: (x) => x.C! * (1 - x.tol!) * Math.max(0.2, 1 - (x.k! * x.V!) / x.Vrated!),
     'cin.rms': (x) => x.iOutMax! * Math.sqrt(x['D·(1 − D)']!),
     rds: (x) => x.Rds25! * (1 + x['α']! * (x.Tj! - 25)),

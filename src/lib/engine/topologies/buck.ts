@@ -33,6 +33,8 @@ import {
   stageRippleLimit,
   stepCapacitance,
   switcherFeedback,
+  buckSegments,
+  ripplePeakToPeak,
   traceRds,
   searchClasses,
   sizingIssues,
@@ -255,10 +257,11 @@ export function buckStage(
   trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
-  // The textbook sum is a bound for the buck's zero-mean triangle: kept, as the conservative figure.
-  const rippleStage = trace.add(`${idPrefix}.ripple`, 'Converter output ripple', 'ΔV = ΔIL/(8·fsw·Cout) + ΔIL·ESR', {
-    ΔIL: [worst.rippleA, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
-  }, buckRipple(worst.rippleA, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  // The textbook ΔIL/(8·fsw·C) + ΔIL·ESR adds two peaks that do not coincide (it sized the
+  // capacitor, as a bound); the figure stated is the exact waveform's.
+  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple at the highest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = the inductor current less the load', {
+    ΔIL: [worst.rippleA, 'A'], D: [worst.d, ''], Iout: [load.iMax, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
+  }, ripplePeakToPeak(buckSegments(worst.mode, worst.d, worst.rippleA, load.iMax, fsw), cout.effectiveF, cout.esrOhm), 'V');
   const stressFactor = dutyStress(s.low.d, high.d);
   trace.add(`${idPrefix}.cin.rms`, 'Input capacitor RMS current (worst duty over the input range)', 'Irms = iOutMax·√(D·(1 − D))', {
     iOutMax: [load.iMax, 'A'], 'D·(1 − D)': [stressFactor, ''],
