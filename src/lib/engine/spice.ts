@@ -62,7 +62,8 @@ const diodeModel = (name: string, iA: number, vf: number) => `.model ${name} D(I
 /** Output capacitor with its ESR at `node`, then the optional LC post-filter; the load connects to `rail`. */
 function outputNetwork(option: Option, net: SwitcherParts, node: string, iOut: number): { lines: string[]; rail: string } {
   const c1 = net.couts[0]!;
-  const lines = [`C${c1.ref} ${node} nc1 ${num(c1.value ?? 0)} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
+  // The capacitance left at the working DC bias, where the engine states it.
+  const lines = [`C${c1.ref} ${node} nc1 ${num(assumed(option, `${c1.ref}.cEff`, c1.value ?? 0))} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
   const c2 = net.couts[1];
   if (!net.l2 || !c2) return { lines, rail: node };
   lines.push(
@@ -124,11 +125,14 @@ function buckBoostStageLines(net: SwitcherParts, vIn: number, iOut: number, node
   const p = buckBoostPoint({ ...net.stage, rdsOnOhm: net.rds }, vIn, net.vOut, iOut, net.fsw, net.henries, net.dcr);
   const held = { top: 'on 0 SWHI', bottom: '0 on SWHI' };
   const pwm = { top: 'g 0 SWHI', bottom: '0 g SWLO' };
-  const buckLeg = p.boost ? held : pwm;
+  // In the transition region both legs switch: the buck leg on its own gate g1 at its duty.
+  const transition = p.region === 'transition';
+  const buckLeg = transition ? { top: 'g1 0 SWHI', bottom: '0 g1 SWLO' } : p.boost ? held : pwm;
   const boostLeg = p.boost ? { top: pwm.bottom, bottom: pwm.top } : held;
   return [
     `V1 in 0 DC ${num(vIn)}`,
     gateDrive(net, p.d),
+    ...(transition ? [gateDrive(net, p.dBuck).replace(/^Vg g /, 'Vg1 g1 ')] : []),
     `Von on 0 DC 1`,
     `S1 in sw1 ${buckLeg.top}`,
     `S2 sw1 0 ${buckLeg.bottom}`,
