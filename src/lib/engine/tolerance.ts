@@ -153,6 +153,13 @@ export function monteCarlo(
     const p = model.params[j]!;
     const span = p.hi - p.lo;
     const column = buffer.subarray(j * draws, (j + 1) * draws);
+    columns.push(column);
+    if (span === 0) {
+      // Every draw of a fixed parameter is lo + 0; the stream is a counter, so it skips ahead at once.
+      column.fill(p.lo + 0);
+      state = (state + Math.imul(draws, 0x6d2b79f5)) >>> 0;
+      continue;
+    }
     for (let i = 0; i < draws; i += 1) {
       state = (state + 0x6d2b79f5) >>> 0;
       let t = state;
@@ -160,7 +167,6 @@ export function monteCarlo(
       t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
       column[i] = p.lo + span * (((t ^ (t >>> 14)) >>> 0) / 4294967296);
     }
-    columns.push(column);
   }
   const out = buffer.subarray(n * draws, (n + 1) * draws);
   model.batch(columns, out);
