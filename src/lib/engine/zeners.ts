@@ -47,6 +47,20 @@ export function zenerTempco(vz: number): number {
   return 0.001 * (1 - 5.5 / Math.max(vz, 1));
 }
 
+/** The linear Zener model Vz(I) = Vk + rz·I ends where its knee would fall below this share of Vz. */
+const KNEE_FLOOR = 0.5;
+
+/**
+ * Knee and slope of the linear model through the nominal voltage at the test current. At low
+ * voltages the table's rz would put the knee near or below zero; there the knee is held at half
+ * the Zener voltage and rz reduced to match (the model's clamp, so no negative knee is printed).
+ */
+export function zenerModel(series: ZenerSeries, vz: number): { rz: number; vKnee: number; iTest: number } {
+  const iTest = testCurrent(series, vz);
+  const vKnee = Math.max(KNEE_FLOOR * vz, vz - dynamicImpedance(series, vz) * iTest);
+  return { rz: (vz - vKnee) / iTest, vKnee, iTest };
+}
+
 /** Series that offer this voltage, smallest power first. */
 export function seriesFor(catalog: Catalog, vz: number): ZenerSeries[] {
   return catalog.zenerSeries

@@ -224,15 +224,17 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const raRef = folds ? refs.next('R') : '';
   const rbfRef = folds ? refs.next('R') : '';
   const vNormal = vTarget + vs;
-  const rbf = folds ? (forced(ctx, rbfRef) ?? snap(vNormal / (FOLDBACK_DIVIDER_A * (1 + prot.foldback.k)), 'E96', 'nearest')) : Number.POSITIVE_INFINITY;
+  const rbf = folds ? (forced(ctx, rbfRef) ?? snap(vNormal / (FOLDBACK_DIVIDER_A * (1 + prot.foldback.k)), 'E96', 'nearest')) : 0;
   const ra = folds ? (forced(ctx, raRef) ?? snap(atLeast(prot.foldback.k * rbf, 1e-3), 'E96', 'nearest')) : 0;
-  const fb: Foldback = { k: folds ? ra / rbf : 0, rs };
-  const iLimit = trace.add('predrop.ilimit', folds ? 'Current limit at full output (foldback line)' : 'Current limit (sense transistor across Rs)', 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
-    Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vNormal, 'V'], Rs: [rs, 'Ω'],
-  }, foldbackCurrent(fb, SENSE_VBE_V, vNormal), 'A');
-  const iFault = trace.add('predrop.ifault', 'Short-circuit current (foldback line at the shorted output)', 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
-    Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vs, 'V'], Rs: [rs, 'Ω'],
-  }, foldbackCurrent(fb, SENSE_VBE_V, vs), 'A');
+  const fb: Foldback = { k: folds && rbf > 0 ? ra / rbf : 0, rs };
+  const limitAt = (id: string, label: string, vn: number): number =>
+    folds
+      ? trace.add(id, `${label} (foldback line)`, 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
+          Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vn, 'V'], Rs: [rs, 'Ω'],
+        }, foldbackCurrent(fb, SENSE_VBE_V, vn), 'A')
+      : trace.add(id, `${label} (sense transistor across Rs)`, 'I = Vbe/Rs', { Vbe: [SENSE_VBE_V, 'V'], Rs: [rs, 'Ω'] }, SENSE_VBE_V / rs, 'A');
+  const iLimit = limitAt('predrop.ilimit', 'Current limit at full output', vNormal);
+  const iFault = limitAt('predrop.ifault', 'Short-circuit current', vs);
   if (iLimit < iPathMax) {
     issues.push(blocker('current-limit', `The limit ${formatSi(iLimit, 'A', 3)} (from the forced parts) is below the full-load path current ${formatSi(iPathMax, 'A', 3)}.`));
   }

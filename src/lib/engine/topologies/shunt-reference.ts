@@ -36,7 +36,9 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   const iDiv = DIVIDER_BIAS_RATIO * ref.iRefA;
   const band = { lo: vTarget * (1 - spec.output.tolerance), hi: vTarget * (1 + spec.output.tolerance) };
   const rsIdeal = (ctx.vInTrough - band.hi) / (iMax + ref.iKMinA + 1.5 * iDiv);
-  const rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), 'E24', 'down');
+  // Without headroom (a blocker below) Rs is sized from the highest input, or the rail, so the figures stay sane.
+  const rsDrop = rsIdeal > 0 ? ctx.vInTrough - band.hi : vMax > band.hi ? vMax - band.hi : vTarget;
+  const rs = forced(ctx, rsRef) ?? snap(atLeast(rsDrop / (iMax + ref.iKMinA + 1.5 * iDiv), 1e-3), 'E24', 'down');
   trace.select('shunt.rs', 'Series resistor, snapped down so the reference never starves at the highest output', 'Rs = (vInTrough − Vout,max) / (iOutMax + IKmin + Idiv)', {
     vInTrough: [ctx.vInTrough, 'V'], 'Vout,max': [band.hi, 'V'], iOutMax: [iMax, 'A'], IKmin: [ref.iKMinA, 'A'], Idiv: [1.5 * iDiv, 'A'],
   }, rs, 'Ω');
@@ -71,9 +73,9 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   trace.add('shunt.vout', `Output with the searched pair (${d.series}, ${d.grade.label})`, 'Vout = Vref·(1 + R2/R1) + Iref·R2', {
     Vref: [ref.vRefV, 'V'], R1: [d.r1, 'Ω'], R2: [d.r2, 'Ω'], Iref: [ref.iRefA / 2, 'A'],
   }, d.vOut, 'V');
-  const ikWorst = trace.add('shunt.ik', 'Reference cathode current, highest input and lightest load', 'Ik = (vInMax − Vout)/Rs − iOutMin − Vout/(R1 + R2)', {
+  const ikWorst = trace.add('shunt.ik', 'Reference cathode current, highest input and lightest load', 'Ik = max(0, (vInMax − Vout)/Rs − iOutMin − Vout/(R1 + R2))', {
     vInMax: [vMax, 'V'], Vout: [d.vOut, 'V'], Rs: [rs, 'Ω'], iOutMin: [iMin, 'A'], R1: [d.r1, 'Ω'], R2: [d.r2, 'Ω'],
-  }, (vMax - d.vOut) / rs - iMin - d.vOut / (d.r1 + d.r2), 'A');
+  }, Math.max(0, (vMax - d.vOut) / rs - iMin - d.vOut / (d.r1 + d.r2)), 'A');
   const pRef = ikWorst * d.vOut;
   if (ikWorst > ref.iKMaxA) issues.push(blocker('reference-current', `${ref.label} would sink ${formatSi(ikWorst, 'A', 3)} at the highest input and lightest load; it allows ${formatSi(ref.iKMaxA, 'A', 3)}.`));
   if (pRef * RATING_FACTOR > ref.powerW) issues.push(blocker('rating', `${uRef} would dissipate ${formatSi(pRef, 'W', 2)}; its ${ref.powerW} W package needs twice that in margin.`));
@@ -98,23 +100,26 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
     resistorPart(r2Ref, 'feedback-upper', d.r2, d.grade.tolerance, d.series, d.grade.extraCents),
   ];
 
+  // Regulating, the rail sits at Vout and the reference takes the rest; starved, the rail sags to
+  // what Rs delivers into the load and the divider.
   const solve = (vIn: number, iOut: number) => {
-    const iSeries = Math.max(0, (vIn - d.vOut) / rs);
-    const ik = iSeries - iOut - d.vOut / (d.r1 + d.r2);
-    return { iSeries, ik };
+    const rDiv = d.r1 + d.r2;
+    const ik = (vIn - d.vOut) / rs - iOut - d.vOut / rDiv;
+    const vOut = ik >= 0 ? d.vOut : Math.max(0, ((vIn - iOut * rs) * rDiv) / (rDiv + rs));
+    return { vOut, iSeries: Math.max(0, (vIn - vOut) / rs), ik };
   };
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const s = solve(vIn, iOut);
-    const vRs = Math.max(0, vIn - d.vOut);
+    const vRs = Math.max(0, vIn - s.vOut);
     return {
       regulates: s.ik >= ref.iKMinA * 0.999,
       pInW: vIn * s.iSeries,
-      pOutW: d.vOut * iOut,
+      pOutW: s.vOut * iOut,
       stress: {
         [rsRef]: { w: vRs * s.iSeries, v: vRs },
-        [uRef]: { w: Math.max(0, s.ik) * d.vOut, v: d.vOut },
+        [uRef]: { w: Math.max(0, s.ik) * s.vOut, v: s.vOut },
         [r1Ref]: { w: (ref.vRefV * ref.vRefV) / d.r1, v: ref.vRefV },
-        [r2Ref]: { w: (d.vOut - ref.vRefV) ** 2 / d.r2, v: d.vOut - ref.vRefV },
+        [r2Ref]: { w: Math.max(0, d.vOut - ref.vRefV) ** 2 / d.r2, v: Math.max(0, d.vOut - ref.vRefV) },
       },
     };
   };

@@ -7,7 +7,7 @@ import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
 import { COLD_AMBIENT_C, analyseTolerance, temperatureSwingK, toleranceVerdict } from '../tolerance.ts';
 import { designShuntReference } from './shunt-reference.ts';
-import { dynamicImpedance, seriesFor, seriesForPower, testCurrent, zenerTempco, zenerVoltage } from '../zeners.ts';
+import { seriesFor, seriesForPower, zenerModel, zenerTempco, zenerVoltage } from '../zeners.ts';
 
 export interface ShuntSolution {
   vOut: number;
@@ -89,16 +89,13 @@ function designZenerShunt(ctx: Context): Design {
     const drop = ctx.vInTrough > vz ? ctx.vInTrough - vz : vMax > vz ? vMax - vz : vz;
     const rsIdeal = drop / (iMax + s.kneeCurrentA);
     rs = forced(ctx, rsRef) ?? snap(atLeast(rsIdeal, 1e-3), spec.overrides.resistorSeries ?? 'E24', 'down');
-    const rzS = dynamicImpedance(s, vz);
-    const knee = vz - rzS * testCurrent(s, vz);
-    const worst = solveShunt(vMax, iMin, rs, knee, rzS);
+    const m = zenerModel(s, vz);
+    const worst = solveShunt(vMax, iMin, rs, m.vKnee, m.rz);
     pzWorst = worst.vOut * worst.iZener;
     series = s;
     if (s === seriesForPower(candidates, pzWorst)) break;
   }
-  const rz = dynamicImpedance(series, vz);
-  const iTest = testCurrent(series, vz);
-  const vKnee = vz - rz * iTest;
+  const { rz, vKnee, iTest } = zenerModel(series, vz);
   const rsTolerance = spec.overrides.resistorSeries === 'E96' ? 0.01 : 0.05;
 
   trace.select(
