@@ -201,7 +201,8 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
       heatsinkRequired = true;
       sinks.push(makePart({ ref: `HS${sinks.length + 1}`, role: 'heatsink', part: `Heatsink for ${p.ref}`, value: t.sinkThetaCW, unit: 'K/W', costCents: t.sinkCostCents }));
     }
-    const at = formatSi(power, 'W', 3);
+    // Text only for a part with a problem to report.
+    const at = t.problem === 'too-hot' || t.problem === 'no-sink-fits' ? formatSi(power, 'W', 3) : '';
     if (t.problem === 'too-hot') {
       const why = t.sinkThetaCW !== null ? ` even on the ${t.sinkThetaCW} K/W heatsink` : p.thermal.heatsinkable ? '' : ' and cannot take a heatsink';
       issues.push(blocker('thermal', `${p.ref} would be beyond its ${limitC} °C limit at ${at}${why}.`));
@@ -249,7 +250,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const verdict = toleranceVerdict(spread, band, rule, half);
   const bandText = `${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V`;
   const worstText = `${vOutRange.min.toFixed(3)}–${vOutRange.max.toFixed(3)} V`;
-  const sigmaText = `mean ${spread.mean.toFixed(3)} V ± 3σ (σ = ${formatSi(spread.sigma, 'V', 3)})`;
+  const sigmaText = verdict === 'worst-case' ? '' : `mean ${spread.mean.toFixed(3)} V ± 3σ (σ = ${formatSi(spread.sigma, 'V', 3)})`;
   if (verdict === 'fails') {
     issues.push(blocker('tolerance', `The worst-case output ${worstText} leaves the rail's ${bandText}.`));
     if (rule === 'worst-case' && toleranceVerdict(spread, band, 'statistical', half) === 'statistical') {

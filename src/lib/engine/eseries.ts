@@ -77,10 +77,14 @@ export function snap(value: number, series: SeriesName, mode: SnapMode = 'neares
   let bestM = 1;
   let bestD = decade;
   let bestScore = Number.POSITIVE_INFINITY;
+  // The candidates span at most the decades either side: three powers serve all four.
+  const below = 10 ** (decade - 1);
+  const here = 10 ** decade;
+  const above = 10 ** (decade + 1);
   for (let k = lo - 2; k <= lo + 1; k += 1) {
     const d = decade + Math.floor(k / n);
     const m = table[((k % n) + n) % n]!;
-    const candidate = m * 10 ** d;
+    const candidate = m * (d < decade ? below : d > decade ? above : here);
     if (mode === 'down' && candidate > value * (1 + SLACK)) continue;
     if (mode === 'up' && candidate < value * (1 - SLACK)) continue;
     const ratio = candidate > value ? candidate / value : value / candidate;
@@ -100,10 +104,21 @@ export function seriesRange(series: SeriesName, lo: number, hi: number): number[
   const first = Math.floor(Math.log10(lo));
   const last = Math.floor(Math.log10(hi));
   for (let d = first; d <= last; d += 1) {
-    for (const m of E_SERIES[series]) {
-      const v = scaled(m, d);
+    for (const v of decadeMembers(series, d)) {
       if (v >= lo * (1 - SLACK) && v <= hi * (1 + SLACK)) out.push(v);
     }
   }
   return out;
+}
+
+// A search asks for the same few decades over and over: each decade's values are worked out once.
+const decades = new Map<string, readonly number[]>();
+function decadeMembers(series: SeriesName, decade: number): readonly number[] {
+  const key = `${series}${decade}`;
+  let members = decades.get(key);
+  if (!members) {
+    members = E_SERIES[series].map((m) => scaled(m, decade));
+    decades.set(key, members);
+  }
+  return members;
 }

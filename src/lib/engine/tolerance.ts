@@ -39,9 +39,9 @@ export function extremeValues(model: ToleranceModel): { min: number; max: number
   const x = new Float64Array(n);
   const signs = model.monotone;
   if (signs && signs.length === n) {
-    signs.forEach((sign, j) => (x[j] = sign > 0 ? model.params[j]!.lo : model.params[j]!.hi));
+    for (let j = 0; j < n; j += 1) x[j] = signs[j]! > 0 ? model.params[j]!.lo : model.params[j]!.hi;
     const min = model.f(x);
-    signs.forEach((sign, j) => (x[j] = sign > 0 ? model.params[j]!.hi : model.params[j]!.lo));
+    for (let j = 0; j < n; j += 1) x[j] = signs[j]! > 0 ? model.params[j]!.hi : model.params[j]!.lo;
     return { min, max: model.f(x) };
   }
   let min = Number.POSITIVE_INFINITY;
@@ -96,17 +96,20 @@ export interface ToleranceSummary {
 export function analyseTolerance(model: ToleranceModel): ToleranceSummary {
   const worstCase = extremeValues(model);
   const n = model.params.length;
-  const centre = Float64Array.from(model.params, (p) => (p.lo + p.hi) / 2);
-  const mean = model.f(centre);
+  // One vector for every evaluation: each swing moves one coordinate off the centre and puts it back.
+  const x = new Float64Array(n);
+  for (let j = 0; j < n; j += 1) x[j] = (model.params[j]!.lo + model.params[j]!.hi) / 2;
+  const mean = model.f(x);
   const contributions: { name: string; halfSwing: number }[] = [];
   let variance = 0;
   for (let j = 0; j < n; j += 1) {
     const p = model.params[j]!;
-    const x = Float64Array.from(centre);
+    const centre = x[j]!;
     x[j] = p.hi;
     const up = model.f(x);
     x[j] = p.lo;
     const half = Math.abs(up - model.f(x)) / 2;
+    x[j] = centre;
     contributions.push({ name: p.name, halfSwing: half });
     // A uniform band of half-width a has σ = a/√3.
     variance += (half * half) / 3;

@@ -21,7 +21,11 @@ export class Trace {
 
   private push(kind: TraceEntry['kind'], id: string, label: string, equation: string, inputs: TraceInputs, value: number, unit: string): number {
     const mapped: Record<string, Quantity> = {};
-    for (const [name, [v, u]] of Object.entries(inputs)) mapped[name] = { value: v, unit: u };
+    // for…in visits own keys in the order Object.entries would, without the pairs it allocates.
+    for (const name in inputs) {
+      const q = inputs[name]!;
+      mapped[name] = { value: q[0], unit: q[1] };
+    }
     this.entries.push({ id, label, kind, equation, inputs: mapped, result: { value, unit } });
     return value;
   }
