@@ -215,6 +215,10 @@ export interface DividerSearchResult {
   worstCasePick: DividerDesign | null;
 }
 
+/** bestPair is pure, so its answers are kept across searches; the memo is emptied when it grows past this. */
+const PAIR_MEMO_SIZE = 512;
+const pairs = new Map<string, Readonly<Divider>>();
+
 const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
 /** Resistor grade × reference grade, each with its best pair; a handful of candidates, each analysed analytically. */
@@ -227,12 +231,14 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     .slice()
     .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
   const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
-  const pairs = new Map<SeriesName, Divider>();
   const pairFor = (series: SeriesName) => {
-    let pair = pairs.get(series);
+    // Several classes and topologies ask for the same divider: each distinct question is searched once.
+    const key = `${input.vTarget}|${input.vRef}|${input.iAdjTyp}|${input.iDividerMin}|${input.iDividerMax}|${series}|${input.r1Forced}|${input.r2Forced}`;
+    let pair = pairs.get(key);
     if (!pair) {
-      pair = bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced);
-      pairs.set(series, pair);
+      if (pairs.size >= PAIR_MEMO_SIZE) pairs.clear();
+      pair = Object.freeze(bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced));
+      pairs.set(key, pair);
     }
     return pair;
   };
