@@ -29,6 +29,37 @@ function scratchFor(length: number): Float64Array {
   return scratch;
 }
 
+// Every evaluation with the same seed draws the same uniform numbers (each topology has its own
+// seed), so a stream of this length is generated once and kept, for a handful of seeds; longer
+// streams (a large Monte Carlo) are generated into a reused buffer.
+const KEPT_STREAM_LENGTH = 1 << 17;
+const KEPT_STREAMS = 8;
+const streams = new Map<number, Float64Array>();
+let longStream = new Float64Array(0);
+
+/** At least the first `length` numbers in [0, 1) of the seeded mulberry32 stream (a small, well-mixed generator). */
+function uniforms(seed: number, length: number): Float64Array {
+  const kept = streams.get(seed);
+  if (kept && kept.length >= length) return kept;
+  const keep = length <= KEPT_STREAM_LENGTH;
+  if (!keep && longStream.length < length) longStream = new Float64Array(length);
+  const u = keep ? new Float64Array(KEPT_STREAM_LENGTH) : longStream;
+  const end = keep ? KEPT_STREAM_LENGTH : length;
+  let state = seed >>> 0;
+  for (let i = 0; i < end; i += 1) {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    u[i] = ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  }
+  if (keep) {
+    if (streams.size >= KEPT_STREAMS) streams.clear();
+    streams.set(seed, u);
+  }
+  return u;
+}
+
 export function nominalValue(model: ToleranceModel): number {
   return model.f(Float64Array.from(model.params, (p) => p.nominal));
 }
@@ -149,27 +180,16 @@ export function monteCarlo(
   const n = model.params.length;
   const buffer = scratchFor((n + 1) * draws);
   const columns: Float64Array[] = [];
-  // mulberry32, a small seeded generator, inlined: this loop is the engine's hot spot. Column by
-  // column, so each parameter's draws come from consecutive numbers of one seeded stream.
-  let state = seed >>> 0;
+  // Column by column, so each parameter's draws come from consecutive numbers of one seeded stream.
+  const u = uniforms(seed, n * draws);
   for (let j = 0; j < n; j += 1) {
     const p = model.params[j]!;
-    const span = p.hi - p.lo;
+    const lo = p.lo;
+    const span = p.hi - lo;
     const column = buffer.subarray(j * draws, (j + 1) * draws);
     columns.push(column);
-    if (span === 0) {
-      // Every draw of a fixed parameter is lo + 0; the stream is a counter, so it skips ahead at once.
-      column.fill(p.lo + 0);
-      state = (state + Math.imul(draws, 0x6d2b79f5)) >>> 0;
-      continue;
-    }
-    for (let i = 0; i < draws; i += 1) {
-      state = (state + 0x6d2b79f5) >>> 0;
-      let t = state;
-      t = Math.imul(t ^ (t >>> 15), t | 1);
-      t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-      column[i] = p.lo + span * (((t ^ (t >>> 14)) >>> 0) / 4294967296);
-    }
+    const offset = j * draws;
+    for (let i = 0; i < draws; i += 1) column[i] = lo + span * u[offset + i]!;
   }
   const out = buffer.subarray(n * draws, (n + 1) * draws);
   model.batch(columns, out);
