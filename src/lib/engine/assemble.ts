@@ -83,13 +83,17 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const trace = design.trace;
   const corners = normalCorners(spec);
   // The nominal point and the curves' end points repeat corners: each operating point is worked out once.
-  const solved = new Map<string, OperatingPoint>();
+  const solved = new Map<number, Map<number, OperatingPoint>>();
   const operate = (vIn: number, iOut: number): OperatingPoint => {
-    const key = `${vIn}|${iOut}`;
-    let p = solved.get(key);
+    let atVin = solved.get(vIn);
+    if (!atVin) {
+      atVin = new Map();
+      solved.set(vIn, atVin);
+    }
+    let p = atVin.get(iOut);
     if (!p) {
       p = design.operate(vIn, iOut);
-      solved.set(key, p);
+      atVin.set(iOut, p);
     }
     return p;
   };

@@ -12,8 +12,33 @@ const PREFIXES: ReadonlyArray<readonly [number, string]> = [
   [1e-12, 'p'],
 ];
 
+// Searches format the same few values (series members, ratings) over and over: each distinct
+// question is answered once; the memo is emptied when it grows past FORMATTED_KEPT.
+const FORMATTED_KEPT = 4096;
+const formatted = new Map<string, Map<number, string>>();
+let formattedCount = 0;
+
 /** Formats a value with an SI prefix and `digits` significant figures: formatSi(4700, 'Ω') → "4.7 kΩ". */
 export function formatSi(value: number, unit: string, digits = 3): string {
+  let byValue = formatted.get(`${digits}${unit}`);
+  if (!byValue) {
+    byValue = new Map();
+    formatted.set(`${digits}${unit}`, byValue);
+  }
+  let text = byValue.get(value);
+  if (text === undefined) {
+    if (formattedCount >= FORMATTED_KEPT) {
+      for (const m of formatted.values()) m.clear();
+      formattedCount = 0;
+    }
+    text = formatSiUncached(value, unit, digits);
+    byValue.set(value, text);
+    formattedCount += 1;
+  }
+  return text;
+}
+
+function formatSiUncached(value: number, unit: string, digits: number): string {
   if (!Number.isFinite(value)) return '—';
   if (value === 0) return `0 ${unit}`.trimEnd();
   const magnitude = Math.abs(value);
