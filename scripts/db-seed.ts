@@ -1,4 +1,4 @@
-import { migrateDatabase } from '../src/lib/server/db/migrate';
+import { migrateDatabase } from '../src/lib/platform/db/migrate';
 import { seedDemo } from '../src/lib/server/seed/demo';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/server/seed/scenario';
 import { scriptContext } from './server-context';

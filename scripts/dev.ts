@@ -3,7 +3,7 @@
  * migrated and seeded with the demo scenario, then Astro's dev server.
  */
 import { spawn } from 'node:child_process';
-import { migrateDatabase } from '../src/lib/server/db/migrate';
+import { migrateDatabase } from '../src/lib/platform/db/migrate';
 import { seedDemo } from '../src/lib/server/seed/demo';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/server/seed/scenario';
 import { startFakes } from './fakes';

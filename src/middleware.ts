@@ -1,12 +1,12 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { auth } from '~/lib/server/auth';
-import { isRole } from '~/lib/server/auth/roles';
-import { config } from '~/lib/server/config';
-import { databaseReady } from '~/lib/server/db';
-import { limitSignInApi } from '~/lib/server/sign-in-limit';
-import { apiError, internalError } from '~/lib/server/http';
-import { logFailure } from '~/lib/server/log';
-import { isCrossOriginWrite, securityHeaders } from '~/lib/server/security';
+import { auth } from '~/lib/platform/auth';
+import { isRole } from '~/lib/platform/auth/roles';
+import { config } from '~/lib/platform/config';
+import { databaseReady } from '~/lib/platform/db';
+import { limitSignInApi } from '~/lib/platform/rate-limit/sign-in-limit';
+import { apiError, internalError } from '~/lib/platform/http/responses';
+import { logFailure } from '~/lib/platform/log';
+import { isCrossOriginWrite, securityHeaders } from '~/lib/platform/http/security';
 
 const HEADERS = securityHeaders(config.production, config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined);
 const allowedOrigins = config.publicBaseUrl ? [new URL(config.publicBaseUrl).origin] : [];

@@ -1,4 +1,4 @@
-import type { Role } from './server/auth/roles';
+import type { Role } from './platform/auth/roles';
 
 export interface NavItem {
   href: string;

@@ -4,7 +4,7 @@
  */
 import type { Component, Option } from './engine/types';
 import { formatSi } from './engine/units';
-import { formatMoney } from './format';
+import { formatMoney } from './platform/format';
 import { percent } from './option-words';
 
 export interface Figure {

@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { auth } from '~/lib/server/auth';
+import { auth } from '~/lib/platform/auth';
 import { redirectWithCookies } from '~/lib/server/auth/form-actions';
 
 export const POST: APIRoute = async ({ request }) => {

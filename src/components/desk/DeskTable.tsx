@@ -4,7 +4,7 @@ import type { briefListJson } from '~/lib/server/briefs';
 import { BRIEF_STATUSES } from '~/lib/brief-status';
 import { ES1_DC_LIMIT_V } from '~/lib/engine/cautions';
 import { formatSi } from '~/lib/engine/units';
-import { formatDate, formatMoney } from '~/lib/format';
+import { formatDate, formatMoney } from '~/lib/platform/format';
 import { percent, TOPOLOGY_NAMES } from '~/lib/option-words';
 import { BRIEF_STATE_LOOK, lookOf } from '~/lib/states';
 import type { TopologyId } from '~/lib/engine/types';

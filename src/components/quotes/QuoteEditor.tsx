@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { formatMoney } from '~/lib/format';
+import { formatMoney } from '~/lib/platform/format';
 import { formatBp, formatDecimal, lineTotal, minorDigits, parseDecimal, QUOTE_LINE_KINDS, quoteTotals, type QuoteLineInput } from '~/lib/pricing';
 import type { QuoteJson } from '~/lib/server/quotes';
 import { describedBy, FieldShell, inputClass } from '../react/FieldShell';

@@ -1,6 +1,6 @@
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { formatMoney } from '~/lib/format';
+import { formatMoney } from '~/lib/platform/format';
 import { componentValue } from '~/lib/review-figures';
 import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review-words';
 

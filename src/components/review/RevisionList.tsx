@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
-import { formatDate } from '~/lib/format';
+import { formatDate } from '~/lib/platform/format';
 import { TOPOLOGY_NAMES } from '~/lib/option-words';
 
 export interface RevisionSummary {

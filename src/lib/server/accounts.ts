@@ -2,10 +2,10 @@ import { APIError } from 'better-auth/api';
 import { eq } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { signUpSchema } from '../account-schemas';
-import { auth } from './auth';
-import { isRole, type Role } from './auth/roles';
-import { db } from './db';
-import { clientProfile, user } from './db/schema';
+import { auth } from '../platform/auth';
+import { isRole, type Role } from '../platform/auth/roles';
+import { db } from '../platform/db';
+import { clientProfile, user } from '../platform/db/schema';
 
 type SignUp = z.infer<typeof signUpSchema>;
 type Outcome = { ok: true; headers: Headers; userId: string } | { ok: false; status: number; message: string };

@@ -10,10 +10,10 @@ import type { CreateBrief } from '../brief-requests';
 import { moveBrief } from './brief-moves';
 import type { BriefRow } from './briefs';
 import { currentCatalog } from './catalog';
-import { db } from './db';
-import { brief, stateChange } from './db/schema';
-import type { FieldIssue } from './http';
-import type { SignedInUser } from './guard';
+import { db } from '../platform/db';
+import { brief, stateChange } from '../platform/db/schema';
+import type { FieldIssue } from '../platform/http/responses';
+import type { SignedInUser } from '../platform/http/guard';
 import { notifySubmitted } from './brief-mail';
 
 export type ActionResult<T> =

@@ -1,9 +1,9 @@
 import { eq, inArray } from 'drizzle-orm';
-import { db } from './db';
-import { clientProfile, user } from './db/schema';
+import { db } from '../platform/db';
+import { clientProfile, user } from '../platform/db/schema';
 import type { BriefRow } from './briefs';
-import { mailer } from './mailer';
-import { appUrl } from './links';
+import { mailer } from '../platform/mail/mailer';
+import { appUrl } from '../platform/links';
 
 /** Tells every engineer that a brief arrived; a failed mail is logged and does not undo the submission. */
 export async function notifySubmitted(row: BriefRow): Promise<void> {

@@ -2,8 +2,8 @@
 import { and, eq } from 'drizzle-orm';
 import { canMove, type Actor } from '../brief-states';
 import type { BriefRow } from './briefs';
-import type { db } from './db';
-import { brief, stateChange, type BriefStatus } from './db/schema';
+import type { db } from '../platform/db';
+import { brief, stateChange, type BriefStatus } from '../platform/db/schema';
 
 export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wrong_state'; message: string };
 

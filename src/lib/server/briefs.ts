@@ -1,8 +1,8 @@
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { BriefSummary } from '../brief-summary';
-import { db } from './db';
-import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from './db/schema';
-import { isStaff, type SignedInUser } from './guard';
+import { db } from '../platform/db';
+import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from '../platform/db/schema';
+import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { expireLapsedQuotes } from './quote-expiry';
 
 export interface BriefListQuery {

@@ -1,8 +1,8 @@
 import { eq, sql } from 'drizzle-orm';
 import { catalogSchema, defaultCatalog, type Catalog } from '../engine/catalog';
 import { draftFromRows, rowsToCatalog } from './catalog-rows';
-import { db } from './db';
-import { deviceClass } from './db/schema';
+import { db } from '../platform/db';
+import { deviceClass } from '../platform/db/schema';
 
 // A short-lived copy per instance: the catalog changes rarely (an admin edit),
 // and evaluations must not re-read and re-validate it on every request.

@@ -9,8 +9,8 @@ import { componentValue } from '../review-figures';
 import { ROLE_NAMES, TYPICAL_NOTE } from '../review-words';
 import { TOPOLOGY_NAMES } from '../option-words';
 import { currentCatalog } from './catalog';
-import { db } from './db';
-import { brief, designRevision, rateCard } from './db/schema';
+import { db } from '../platform/db';
+import { brief, designRevision, rateCard } from '../platform/db/schema';
 
 export async function findRevisionWithBrief(id: string) {
   const [row] = await db

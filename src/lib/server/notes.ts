@@ -1,8 +1,8 @@
 /** Internal notes on a brief: the consultancy's own record, never shown to the client. */
 import { desc, eq } from 'drizzle-orm';
 import { z } from 'zod';
-import { db } from './db';
-import { briefNote, user } from './db/schema';
+import { db } from '../platform/db';
+import { briefNote, user } from '../platform/db/schema';
 
 export const noteRequestSchema = z
   .object({

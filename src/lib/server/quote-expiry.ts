@@ -5,10 +5,10 @@
  * on the state read, so two instances never expire one quote twice.
  */
 import { and, eq, gte, lt, ne } from 'drizzle-orm';
-import { formatDate } from '../format';
+import { formatDate } from '../platform/format';
 import { moveBrief } from './brief-moves';
-import { db } from './db';
-import { brief, quote } from './db/schema';
+import { db } from '../platform/db';
+import { brief, quote } from '../platform/db/schema';
 import { moveQuote } from './quotes-core';
 
 export async function expireLapsedQuotes(now = new Date()): Promise<number> {

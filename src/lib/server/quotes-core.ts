@@ -8,7 +8,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from '../pricing';
-import { brief, designRevision, quote, quoteLine, stateChange } from './db/schema';
+import { brief, designRevision, quote, quoteLine, stateChange } from '../platform/db/schema';
 import { readRateCard, type Db } from './rate-card';
 
 export type QuoteRow = typeof quote.$inferSelect;

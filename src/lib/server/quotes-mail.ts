@@ -1,7 +1,7 @@
 /** The e-mail that carries a quote to its client: plain text first, a simple HTML twin, the PDF attached. */
-import { formatDate, formatMoney } from '../format';
+import { formatDate, formatMoney } from '../platform/format';
 import { formatBp } from '../pricing';
-import type { OutgoingMail } from './mail';
+import type { OutgoingMail } from '../platform/mail/transport';
 import { quotePdfName } from './pdf/render';
 import { FIRM } from './quotes-firm';
 import type { QuoteView } from './quotes-view';

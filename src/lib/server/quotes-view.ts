@@ -8,7 +8,7 @@ import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
 import { TOPOLOGY_NAMES, percent } from '../option-words';
 import { chosenOption } from '../pricing';
-import { brief, clientProfile, designRevision, quote, user } from './db/schema';
+import { brief, clientProfile, designRevision, quote, user } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './quotes-core';
 import type { Db } from './rate-card';
 

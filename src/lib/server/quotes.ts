@@ -3,16 +3,16 @@
  * send, accept. Each action is one transaction; routes and pages only translate.
  */
 import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
-import { formatDate } from '../format';
+import { formatDate } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from '../pricing';
 import { moveBrief } from './brief-moves';
 import { expireLapsedQuotes } from './quote-expiry';
-import { db } from './db';
-import { brief, quote } from './db/schema';
-import { isStaff, type SignedInUser } from './guard';
-import { apiError, invalid, json, type FieldIssue } from './http';
-import { appUrl } from './links';
-import { mailer } from './mailer';
+import { db } from '../platform/db';
+import { brief, quote } from '../platform/db/schema';
+import { isStaff, type SignedInUser } from '../platform/http/guard';
+import { apiError, invalid, json, type FieldIssue } from '../platform/http/responses';
+import { appUrl } from '../platform/links';
+import { mailer } from '../platform/mail/mailer';
 import { renderQuotePdf } from './pdf/render';
 import { draftQuote, moveQuote, validUntilFrom, writeLines, type QuoteRow } from './quotes-core';
 import { quoteMail } from './quotes-mail';

@@ -5,10 +5,10 @@
 import { eq } from 'drizzle-orm';
 import { topologyIds } from '../engine/types';
 import { minorDigits, parseDecimal, rateCardSchema, type RateCard } from '../pricing';
-import type { Database } from './db/connect';
-import { rateCard } from './db/schema';
-import type { FieldIssue } from './http';
-import { zodIssues } from './validation';
+import type { Database } from '../platform/db/connect';
+import { rateCard } from '../platform/db/schema';
+import type { FieldIssue } from '../platform/http/responses';
+import { zodIssues } from '../platform/http/validation';
 
 export type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
 

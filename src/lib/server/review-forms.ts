@@ -6,7 +6,7 @@ import { staffBriefPatchSchema } from '../brief-requests';
 import { BRIEF_STATE_LOOK, lookOf } from '../states';
 import { moveAsStaff } from './brief-actions';
 import type { BriefRow } from './briefs';
-import type { SignedInUser } from './guard';
+import type { SignedInUser } from '../platform/http/guard';
 import { addNote, noteRequestSchema } from './notes';
 
 export type FormOutcome = { ok: true; done: 'moved' | 'noted' } | { ok: false; status: 400 | 409; message: string };

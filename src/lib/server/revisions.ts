@@ -3,8 +3,8 @@ import { railSpecIssues, evaluate, type Evaluation } from '../engine';
 import { briefWithChoices, type RevisionRequest } from '../revision-requests';
 import type { BriefRow } from './briefs';
 import { currentCatalog } from './catalog';
-import { db } from './db';
-import { designRevision, user } from './db/schema';
+import { db } from '../platform/db';
+import { designRevision, user } from '../platform/db/schema';
 import type { ActionResult } from './brief-actions';
 
 export type RevisionRow = typeof designRevision.$inferSelect;

@@ -1,7 +1,7 @@
 import { describe, expect, inject, test } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { connect } from '../../../src/lib/server/db/connect';
-import { deviceClass } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { deviceClass } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');

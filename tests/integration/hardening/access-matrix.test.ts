@@ -7,8 +7,8 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, inject, test } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { brief, designRevision, quote } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { brief, designRevision, quote } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');

@@ -5,8 +5,8 @@
 import { count, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { describe, expect, inject, test } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { payment, webhookEvent } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { payment, webhookEvent } from '../../../src/lib/platform/db/schema';
 import { DECLINE_CARD, SUCCESS_CARD } from '../../../stripe-fake/index';
 import { DEMO, Visitor } from '../../support/client';
 import { TEST_STRIPE_KEY, TEST_WEBHOOK_SECRET } from '../../support/stack';

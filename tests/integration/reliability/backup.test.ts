@@ -4,8 +4,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { count } from 'drizzle-orm';
 import { describe, expect, inject, test } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { brief, user } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { brief, user } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');

@@ -3,8 +3,8 @@ import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { eq, like } from 'drizzle-orm';
 import { inject } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { brief, briefFile } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { brief, briefFile } from '../../../src/lib/platform/db/schema';
 import type { Visitor } from '../../support/client';
 
 export const baseUrl = inject('baseUrl');

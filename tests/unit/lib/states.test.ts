@@ -1,8 +1,8 @@
 import { describe, expect, test } from 'vitest';
-import { BRIEF_STATUSES } from '../../../src/lib/server/db/schema';
+import { BRIEF_STATUSES } from '../../../src/lib/platform/db/schema';
 import { lifecycleTo } from '../../../src/lib/server/seed/lifecycle';
 import { BRIEF_STATE_LOOK, lookOf } from '../../../src/lib/states';
-import { formatMoney } from '../../../src/lib/format';
+import { formatMoney } from '../../../src/lib/platform/format';
 import { navigationFor } from '../../../src/lib/navigation';
 
 describe('state vocabulary', () => {

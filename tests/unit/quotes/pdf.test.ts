@@ -8,7 +8,7 @@ import { defaultCatalog } from '../../../src/lib/engine/catalog';
 import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/pricing';
 import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
 import { renderQuotePdf } from '../../../src/lib/server/pdf/render';
-import { runs } from '../../../src/lib/server/pdf/fonts';
+import { runs } from '../../../src/lib/platform/pdf/fonts';
 import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/server/quotes-core';
 import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/server/quotes-view';
 

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { railSpecSchema, type RailSpec } from '../../../src/lib/engine/rail-spec';
 import { defaultCatalog, type Catalog } from '../../../src/lib/engine/catalog';
 import { evaluate } from '../../../src/lib/engine/evaluate';
-import { EngineBusyError, EnginePool } from '../../../src/lib/server/engine-pool/pool';
+import { EngineBusyError, EnginePool } from '../../../src/lib/platform/engine-pool/pool';
 import { buildEngineWorker } from '../../../src/integrations/engine-worker';
 import { DEMO_BRIEFS } from '../../../src/lib/server/seed/scenario';
 

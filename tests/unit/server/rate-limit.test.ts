@@ -2,9 +2,9 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { migrateDatabase } from '../../../src/lib/server/db/migrate';
-import { consumeRate, peekRate } from '../../../src/lib/server/rate-limit';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { migrateDatabase } from '../../../src/lib/platform/db/migrate';
+import { consumeRate, peekRate } from '../../../src/lib/platform/rate-limit/limiter';
 
 const url = `file:${path.join(mkdtempSync(path.join(tmpdir(), 'rw-rate-')), 'rate.db')}`;
 const { db, client } = connect(url);

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { isCrossOriginWrite, securityHeaders } from '../../../src/lib/server/security';
+import { isCrossOriginWrite, securityHeaders } from '../../../src/lib/platform/http/security';
 
 const url = new URL('https://rails.example/api/v1/briefs');
 const req = (method: string, headers: Record<string, string> = {}) => new Request(url, { method, headers });

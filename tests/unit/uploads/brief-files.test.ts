@@ -3,11 +3,11 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { connect, type Database } from '../../../src/lib/server/db/connect';
-import { migrateDatabase } from '../../../src/lib/server/db/migrate';
-import { brief, briefFile, user } from '../../../src/lib/server/db/schema';
+import { connect, type Database } from '../../../src/lib/platform/db/connect';
+import { migrateDatabase } from '../../../src/lib/platform/db/migrate';
+import { brief, briefFile, user } from '../../../src/lib/platform/db/schema';
 import { findBriefFileFor, saveBriefFile } from '../../../src/lib/server/uploads/brief-files';
-import { folderStore, type UploadStore } from '../../../src/lib/server/uploads/store';
+import { folderStore, type UploadStore } from '../../../src/lib/platform/uploads/store';
 
 const dir = mkdtempSync(path.join(tmpdir(), 'rw-brief-files-'));
 const url = `file:${path.join(dir, 'files.db')}`;

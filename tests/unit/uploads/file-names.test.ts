@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { attachmentDisposition, safeFileName } from '../../../src/lib/server/uploads/file-names';
+import { attachmentDisposition, safeFileName } from '../../../src/lib/platform/uploads/file-names';
 
 describe('stored file names', () => {
   test.each([

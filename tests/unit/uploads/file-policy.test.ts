@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, test } from 'vitest';
-import { decideUploadType } from '../../../src/lib/server/uploads/file-policy';
+import { decideUploadType } from '../../../src/lib/platform/uploads/file-policy';
 
 const fixture = (name: string) => new Uint8Array(readFileSync(new URL(`../../fixtures/uploads/${name}`, import.meta.url)));
 const text = (s: string) => new TextEncoder().encode(s);

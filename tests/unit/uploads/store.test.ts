@@ -2,7 +2,7 @@ import { mkdtempSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, test } from 'vitest';
-import { folderStore, newStorageKey } from '../../../src/lib/server/uploads/store';
+import { folderStore, newStorageKey } from '../../../src/lib/platform/uploads/store';
 
 const parent = mkdtempSync(path.join(tmpdir(), 'rw-store-'));
 const folder = path.join(parent, 'uploads');

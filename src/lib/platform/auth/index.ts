@@ -1,6 +1,6 @@
 import { config } from '../config';
 import { db } from '../db';
-import { mailer } from '../mailer';
+import { mailer } from '../mail/mailer';
 import { createAuth } from './create-auth';
 import { passwordResetMail } from './reset-mail';
 

@@ -1,4 +1,4 @@
-import type { OutgoingMail } from '../mail';
+import type { OutgoingMail } from '../mail/transport';
 
 export function passwordResetMail(to: { email: string; name: string }, url: string): OutgoingMail {
   return {

@@ -4,8 +4,8 @@
  * answer 401/403 as JSON (api.md).
  */
 import type { APIContext, AstroGlobal } from 'astro';
-import { forbidden, unauthorized } from './http';
-import type { Role } from './auth/roles';
+import { forbidden, unauthorized } from './responses';
+import type { Role } from '../auth/roles';
 
 export type SignedInUser = NonNullable<App.Locals['user']>;
 

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { invalid, readJson, type FieldIssue } from './http';
+import { invalid, readJson, type FieldIssue } from './responses';
 
 export function zodIssues(error: z.ZodError): FieldIssue[] {
   return error.issues.map((issue) => ({ path: issue.path.map(String).join('.'), message: issue.message }));

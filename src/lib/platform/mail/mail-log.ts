@@ -3,10 +3,10 @@
  * where the local mail catcher is configured — what it actually received.
  */
 import { desc, eq } from 'drizzle-orm';
-import type { MessageSummary, StoredMessage } from '../../../mail-catcher/src/stored-message';
-import { config } from './config';
-import { db } from './db';
-import { mailLog } from './db/schema';
+import type { MessageSummary, StoredMessage } from '../../../../mail-catcher/src/stored-message';
+import { config } from '../config';
+import { db } from '../db';
+import { mailLog } from '../db/schema';
 
 export async function listMailLog(limit = 100) {
   return db.select().from(mailLog).orderBy(desc(mailLog.createdAt)).limit(limit);

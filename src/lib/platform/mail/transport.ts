@@ -1,6 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
-import type { Database } from './db/connect';
-import { mailLog } from './db/schema';
+import type { Database } from '../db/connect';
+import { mailLog } from '../db/schema';
 
 export interface OutgoingMail {
   kind: string;

@@ -1,6 +1,6 @@
-import { config } from './config';
-import { db } from './db';
-import { consumeRate, RATE_RULES, type RateVerdict } from './rate-limit';
+import { config } from '../config';
+import { db } from '../db';
+import { consumeRate, RATE_RULES, type RateVerdict } from './limiter';
 
 export function limitEvaluate(address: string): Promise<RateVerdict> {
   if (config.rateLimitDisabled) return Promise.resolve({ allowed: true });

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import type { Database } from './db/connect';
+import type { Database } from '../db/connect';
 
 export interface RateRule {
   /** Most requests allowed in one window. */

@@ -1,8 +1,8 @@
 import type { APIContext } from 'astro';
-import { config } from './config';
-import { db } from './db';
-import { tooMany } from './http';
-import { consumeRate, peekRate, RATE_RULES, type RateVerdict } from './rate-limit';
+import { config } from '../config';
+import { db } from '../db';
+import { tooMany } from '../http/responses';
+import { consumeRate, peekRate, RATE_RULES, type RateVerdict } from './limiter';
 
 /**
  * Only failed sign-ins count: a person who signs in correctly is never slowed

@@ -4,7 +4,7 @@
  * arrive are counted while reading (a chunked body declares nothing).
  */
 import { z } from 'zod';
-import { apiError, invalid, type FieldIssue } from '../http';
+import { apiError, invalid, type FieldIssue } from '../http/responses';
 import { FILE_KINDS } from '../db/schema';
 import { MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from './file-policy';
 

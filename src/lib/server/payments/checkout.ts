@@ -1,8 +1,8 @@
 import { and, count, eq } from 'drizzle-orm';
-import { db } from '../db';
-import { brief, payment, quote } from '../db/schema';
-import { isStaff, type SignedInUser } from '../guard';
-import { appUrl } from '../links';
+import { db } from '../../platform/db';
+import { brief, payment, quote } from '../../platform/db/schema';
+import { isStaff, type SignedInUser } from '../../platform/http/guard';
+import { appUrl } from '../../platform/links';
 import { paymentProvider } from './provider';
 
 export type CheckoutOutcome =

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
-import { db } from '../db';
-import { payment } from '../db/schema';
+import { db } from '../../platform/db';
+import { payment } from '../../platform/db/schema';
 
 export type PaymentRow = typeof payment.$inferSelect;
 

@@ -1,9 +1,9 @@
 import { eq } from 'drizzle-orm';
-import { formatDate, formatMoney } from '../../format';
-import { db } from '../db';
-import { brief, payment, quote, user } from '../db/schema';
-import { appUrl } from '../links';
-import { mailer } from '../mailer';
+import { formatDate, formatMoney } from '../../platform/format';
+import { db } from '../../platform/db';
+import { brief, payment, quote, user } from '../../platform/db/schema';
+import { appUrl } from '../../platform/links';
+import { mailer } from '../../platform/mail/mailer';
 
 /** The client's receipt for a paid deposit; a failed send is logged in the mail log, the payment stands. */
 export async function sendReceipt(paymentId: string): Promise<void> {

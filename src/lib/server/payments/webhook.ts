@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import { moveBrief } from '../brief-moves';
-import { db } from '../db';
-import { brief, payment, quote, stateChange, webhookEvent } from '../db/schema';
+import { db } from '../../platform/db';
+import { brief, payment, quote, stateChange, webhookEvent } from '../../platform/db/schema';
 import { sendReceipt } from './receipt';
 
 export type WebhookOutcome = 'duplicate' | 'ignored' | 'unknown-session' | 'already-paid' | 'deposit-paid' | 'expired' | 'not-paid';

@@ -3,11 +3,11 @@
  * for, the design proposed, its cautions, the price, the terms and where to
  * accept. A pdfmake document description built from the quote view alone.
  */
-import { formatDate, formatMoney } from '../../format';
+import { formatDate, formatMoney } from '../../platform/format';
 import { formatBp, formatQuantity } from '../../pricing';
 import { FIRM } from '../quotes-firm';
 import { SAFETY_NOTE, type QuoteView, type Row } from '../quotes-view';
-import { BASE_FAMILY, runs } from './fonts';
+import { BASE_FAMILY, runs } from '../../platform/pdf/fonts';
 
 const INK = '#1e2329';
 const SOFT = '#4a525c';

@@ -1,5 +1,5 @@
 import type { QuoteView } from '../quotes-view';
-import { pdfmake } from './fonts';
+import { pdfmake } from '../../platform/pdf/fonts';
 import { quoteDocument, type QuoteDocumentOptions } from './quote-document';
 
 export async function renderQuotePdf(view: QuoteView, options: QuoteDocumentOptions): Promise<Buffer> {

@@ -1,12 +1,12 @@
 import { count, eq } from 'drizzle-orm';
-import type { Auth } from '../auth/create-auth';
-import type { Database } from '../db/connect';
+import type { Auth } from '../../platform/auth/create-auth';
+import type { Database } from '../../platform/db/connect';
 import { summarise } from '../../brief-summary';
 import { railSpecSchema } from '../../engine/rail-spec';
 import { defaultCatalog } from '../../engine/catalog';
 import { evaluate } from '../../engine/evaluate';
 import { catalogToRows } from '../catalog-rows';
-import { account, brief, clientProfile, designRevision, deviceClass, payment, quote, rateCard, stateChange, user } from '../db/schema';
+import { account, brief, clientProfile, designRevision, deviceClass, payment, quote, rateCard, stateChange, user } from '../../platform/db/schema';
 import { draftQuote } from '../quotes-core';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';

@@ -1,4 +1,4 @@
-import type { BriefStatus } from '../db/schema';
+import type { BriefStatus } from '../../platform/db/schema';
 
 interface Step {
   from: BriefStatus | null;

@@ -3,8 +3,8 @@
  * Specs follow the engine's brief schema (SI units, tolerances as fractions).
  */
 import type { RailSpecInput } from '../../engine/rail-spec';
-import type { BriefStatus } from '../db/schema';
-import type { Role } from '../auth/roles';
+import type { BriefStatus } from '../../platform/db/schema';
+import type { Role } from '../../platform/auth/roles';
 
 export const DEMO_PASSWORD = 'railwright-demo';
 

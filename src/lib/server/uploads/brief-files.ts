@@ -5,12 +5,12 @@
  */
 import { eq } from 'drizzle-orm';
 import { reduceLoadLog, type LoadSummary } from '../../load-log';
-import type { Database } from '../db/connect';
-import { brief, briefFile, type BriefStatus } from '../db/schema';
-import { isStaff, type SignedInUser } from '../guard';
-import { safeFileName } from './file-names';
-import { decideUploadType, MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from './file-policy';
-import { newStorageKey, type UploadStore } from './store';
+import type { Database } from '../../platform/db/connect';
+import { brief, briefFile, type BriefStatus } from '../../platform/db/schema';
+import { isStaff, type SignedInUser } from '../../platform/http/guard';
+import { safeFileName } from '../../platform/uploads/file-names';
+import { decideUploadType, MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from '../../platform/uploads/file-policy';
+import { newStorageKey, type UploadStore } from '../../platform/uploads/store';
 
 export interface BriefFileDeps {
   db: Database;

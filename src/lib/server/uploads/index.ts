@@ -1,9 +1,9 @@
 /** The app's uploads: the folder store under UPLOAD_DIR and the app's database. */
-import { config } from '../config';
-import { db } from '../db';
-import type { SignedInUser } from '../guard';
+import { config } from '../../platform/config';
+import { db } from '../../platform/db';
+import type { SignedInUser } from '../../platform/http/guard';
 import { findBriefFileFor, saveBriefFile, type UploadInput } from './brief-files';
-import { folderStore } from './store';
+import { folderStore } from '../../platform/uploads/store';
 
 export const uploadStore = folderStore(config.uploadDir);
 

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { signUpSchema } from '~/lib/account-schemas';
 import { registerClient } from '~/lib/server/accounts';
-import { apiError, json } from '~/lib/server/http';
-import { parseBody } from '~/lib/server/validation';
+import { apiError, json } from '~/lib/platform/http/responses';
+import { parseBody } from '~/lib/platform/http/validation';
 
 /** Client sign-up with the company profile, for the wizard's inline account step. */
 export const POST: APIRoute = async (context) => {

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { railSpecIssues, railSpecSchema } from '~/lib/engine';
-import { EngineBusyError, evaluateToJson } from '~/lib/server/engine-pool';
-import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/server/http';
-import { limitEvaluate } from '~/lib/server/evaluate-limit';
+import { EngineBusyError, evaluateToJson } from '~/lib/platform/engine-pool';
+import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/platform/http/responses';
+import { limitEvaluate } from '~/lib/platform/rate-limit/evaluate-limit';
 
 /** Ranks the options for a brief; anyone may call it (rate-limited), nothing is stored. */
 export const POST: APIRoute = async (context) => {

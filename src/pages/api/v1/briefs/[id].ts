@@ -3,9 +3,9 @@ import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/brief-reque
 import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/server/brief-actions';
 import { briefDetailJson, briefJson } from '~/lib/server/brief-json';
 import { briefDetail, findBriefFor, type BriefRow } from '~/lib/server/briefs';
-import { ANY_ROLE, guardApi, isStaff } from '~/lib/server/guard';
-import { apiError, invalid, json, notFound, readJson } from '~/lib/server/http';
-import { zodIssues } from '~/lib/server/validation';
+import { ANY_ROLE, guardApi, isStaff } from '~/lib/platform/http/guard';
+import { apiError, invalid, json, notFound, readJson } from '~/lib/platform/http/responses';
+import { zodIssues } from '~/lib/platform/http/validation';
 import { quotesOfBrief } from '~/lib/server/quotes';
 import { listRevisions } from '~/lib/server/revisions';
 

@@ -3,9 +3,9 @@ import { briefListQuerySchema, createBriefSchema } from '~/lib/brief-requests';
 import { createBrief } from '~/lib/server/brief-actions';
 import { briefJson } from '~/lib/server/brief-json';
 import { briefListJson, listBriefs } from '~/lib/server/briefs';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { apiError, invalid, json } from '~/lib/server/http';
-import { parseBody, zodIssues } from '~/lib/server/validation';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { apiError, invalid, json } from '~/lib/platform/http/responses';
+import { parseBody, zodIssues } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const query = briefListQuerySchema.safeParse(Object.fromEntries(context.url.searchParams));

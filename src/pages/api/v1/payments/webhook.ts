@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { apiError, json } from '~/lib/server/http';
+import { apiError, json } from '~/lib/platform/http/responses';
 import { paymentProvider, PaymentsNotConfigured, webhookSecret } from '~/lib/server/payments/provider';
 import { applyPaymentEvent } from '~/lib/server/payments/webhook';
 

@@ -1,10 +1,10 @@
 import type { APIRoute } from 'astro';
 import { revisionRequestSchema } from '~/lib/revision-requests';
 import { findBriefFor } from '~/lib/server/briefs';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { apiError, invalid, json, notFound } from '~/lib/server/http';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { apiError, invalid, json, notFound } from '~/lib/platform/http/responses';
 import { listRevisions, revisionJson, saveRevision } from '~/lib/server/revisions';
-import { parseBody } from '~/lib/server/validation';
+import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, STAFF);

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { guardApi } from '~/lib/server/guard';
-import { apiError, json } from '~/lib/server/http';
+import { guardApi } from '~/lib/platform/http/guard';
+import { apiError, json } from '~/lib/platform/http/responses';
 import { startDepositCheckout } from '~/lib/server/payments/checkout';
 import { PaymentsNotConfigured } from '~/lib/server/payments/provider';
 

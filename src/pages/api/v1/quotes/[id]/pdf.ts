@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { notFound } from '~/lib/server/http';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { notFound } from '~/lib/platform/http/responses';
 import { quotePdfName } from '~/lib/server/pdf/render';
 import { findQuoteFor, quotePdf } from '~/lib/server/quotes';
 
