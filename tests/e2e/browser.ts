@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/lib/server/seed/scenario';
+import { DEMO_PASSWORD } from '../../src/lib/demo/scenario';
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const SCREENSHOT_DIR = path.resolve('tests/.artifacts/screenshots');

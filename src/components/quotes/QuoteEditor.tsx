@@ -1,8 +1,8 @@
 import { useMemo, useState } from 'react';
 import { formatMoney } from '~/lib/platform/format';
-import { formatBp, formatDecimal, lineTotal, minorDigits, parseDecimal, QUOTE_LINE_KINDS, quoteTotals, type QuoteLineInput } from '~/lib/pricing';
-import type { QuoteJson } from '~/lib/server/quotes';
-import { describedBy, FieldShell, inputClass } from '../react/FieldShell';
+import { formatBp, formatDecimal, lineTotal, minorDigits, parseDecimal, QUOTE_LINE_KINDS, quoteTotals, type QuoteLineInput } from '~/lib/quotes/pricing';
+import type { QuoteJson } from '~/lib/quotes/quotes.server';
+import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
 
 interface Props {
   initial: QuoteJson;

@@ -1,7 +1,7 @@
 import type { SyntheticEvent } from 'react';
-import { describedBy, FieldShell, inputClass } from '../react/FieldShell';
-import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review-words';
-import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, type ChoicesForm, type FormIssue } from '~/lib/review-choices';
+import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
+import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
+import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, type ChoicesForm, type FormIssue } from '~/lib/review/choices';
 
 interface Props {
   form: ChoicesForm;

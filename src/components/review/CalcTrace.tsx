@@ -1,7 +1,7 @@
 import { Fragment } from 'react';
 import type { Option, Quantity } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { TYPICAL_NOTE } from '~/lib/review-words';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 
 /** Dimensionless quantities (duty cycle, ratios) read as plain numbers. */
 function quantity(q: Quantity): string {

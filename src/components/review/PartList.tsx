@@ -1,8 +1,8 @@
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
 import { formatMoney } from '~/lib/platform/format';
-import { componentValue } from '~/lib/review-figures';
-import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review-words';
+import { componentValue } from '~/lib/review/figures';
+import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review/words';
 
 const dash = (value: number | null, unit: string) => (value === null ? '—' : formatSi(value, unit));
 const pct = (value: number | null) => (value === null ? '—' : `±${Number((value * 100).toPrecision(3))} %`);

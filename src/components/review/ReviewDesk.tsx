@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import type { Evaluation, TopologyId } from '~/lib/engine/types';
-import { TOPOLOGY_NAMES } from '~/lib/option-words';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { AdjustPanel } from './AdjustPanel';
 import { CalcTrace } from './CalcTrace';
 import { CautionPanel } from './CautionPanel';
-import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review-choices';
+import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review/choices';
 import { CurvesChart } from './CurvesChart';
 import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';

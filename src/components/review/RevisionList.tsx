@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
 import { formatDate } from '~/lib/platform/format';
-import { TOPOLOGY_NAMES } from '~/lib/option-words';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 
 export interface RevisionSummary {
   id: string;

@@ -2,8 +2,8 @@ import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { percent, TOPOLOGY_NAMES } from '~/lib/option-words';
-import { TYPICAL_NOTE } from '~/lib/review-words';
+import { percent, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 import { AXIS_STYLE } from './chart-styles';
 import { UPlotChart, type ChartBuilder } from './UPlotChart';
 

@@ -1,6 +1,6 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
-import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
+import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
 import { railUnderReview } from './helpers';
 
 const baseUrl = inject('baseUrl');

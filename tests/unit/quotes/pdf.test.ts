@@ -5,12 +5,12 @@ import path from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { railSpecSchema, evaluate } from '../../../src/lib/engine';
 import { defaultCatalog } from '../../../src/lib/engine/catalog';
-import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/pricing';
-import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
-import { renderQuotePdf } from '../../../src/lib/server/pdf/render';
+import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/quotes/pricing';
+import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
+import { renderQuotePdf } from '../../../src/lib/quotes/render.server';
 import { runs } from '../../../src/lib/platform/pdf/fonts';
-import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/server/quotes-core';
-import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/server/quotes-view';
+import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/quotes/core.server';
+import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/quotes/view.server';
 
 const card = rateCardSchema.parse(DEMO_RATE_CARD);
 

@@ -13,8 +13,8 @@ import {
   withQuantity,
   type DesignFacts,
   type RateCard,
-} from '../../../src/lib/pricing';
-import { formatQuoteNumber, validUntilFrom } from '../../../src/lib/server/quotes-core';
+} from '../../../src/lib/quotes/pricing';
+import { formatQuoteNumber, validUntilFrom } from '../../../src/lib/quotes/core.server';
 
 const card: RateCard = {
   currency: 'EUR',

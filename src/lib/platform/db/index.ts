@@ -8,7 +8,7 @@ export const { db, client } = connect(config.databaseUrl, config.databaseAuthTok
 export const databaseReady: Promise<void> = (async () => {
   await migrateDatabase(db, client, config.databaseUrl);
   if (config.seedDemo) {
-    const [{ seedDemo }, { auth }] = await Promise.all([import('../../server/seed/demo'), import('../auth')]);
+    const [{ seedDemo }, { auth }] = await Promise.all([import('../../demo/seed.server'), import('../auth')]);
     await seedDemo(db, auth);
   }
 })();

@@ -4,8 +4,8 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { BRIEF_STATUSES, type BriefStatus } from '../../brief-status';
-import { QUOTE_LINE_KINDS } from '../../pricing';
+import { BRIEF_STATUSES, type BriefStatus } from '../../briefs/status';
+import { QUOTE_LINE_KINDS } from '../../quotes/pricing';
 import { user } from './auth-schema';
 
 export * from './auth-schema';

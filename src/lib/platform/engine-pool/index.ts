@@ -10,7 +10,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { RailSpec } from '../../engine/rail-spec';
 import { evaluate } from '../../engine/evaluate';
-import { currentCatalog } from '../../server/catalog';
+import { currentCatalog } from '../../catalog/catalog.server';
 import { config } from '../config';
 import { log } from '../log';
 import { EnginePool } from './pool';

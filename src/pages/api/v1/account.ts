@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { signUpSchema } from '~/lib/account-schemas';
-import { registerClient } from '~/lib/server/accounts';
+import { signUpSchema } from '~/lib/accounts/schemas';
+import { registerClient } from '~/lib/accounts/accounts.server';
 import { apiError, json } from '~/lib/platform/http/responses';
 import { parseBody } from '~/lib/platform/http/validation';
 

@@ -1,13 +1,13 @@
 import type { APIRoute } from 'astro';
-import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/brief-requests';
-import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/server/brief-actions';
-import { briefDetailJson, briefJson } from '~/lib/server/brief-json';
-import { briefDetail, findBriefFor, type BriefRow } from '~/lib/server/briefs';
+import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/briefs/requests';
+import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/briefs/actions.server';
+import { briefDetailJson, briefJson } from '~/lib/briefs/json';
+import { briefDetail, findBriefFor, type BriefRow } from '~/lib/briefs/briefs.server';
 import { ANY_ROLE, guardApi, isStaff } from '~/lib/platform/http/guard';
 import { apiError, invalid, json, notFound, readJson } from '~/lib/platform/http/responses';
 import { zodIssues } from '~/lib/platform/http/validation';
-import { quotesOfBrief } from '~/lib/server/quotes';
-import { listRevisions } from '~/lib/server/revisions';
+import { quotesOfBrief } from '~/lib/quotes/quotes.server';
+import { listRevisions } from '~/lib/review/revisions.server';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { briefListQuerySchema, createBriefSchema } from '~/lib/brief-requests';
-import { createBrief } from '~/lib/server/brief-actions';
-import { briefJson } from '~/lib/server/brief-json';
-import { briefListJson, listBriefs } from '~/lib/server/briefs';
+import { briefListQuerySchema, createBriefSchema } from '~/lib/briefs/requests';
+import { createBrief } from '~/lib/briefs/actions.server';
+import { briefJson } from '~/lib/briefs/json';
+import { briefListJson, listBriefs } from '~/lib/briefs/briefs.server';
 import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
 import { apiError, invalid, json } from '~/lib/platform/http/responses';
 import { parseBody, zodIssues } from '~/lib/platform/http/validation';

@@ -3,7 +3,7 @@ import type { APIRoute } from 'astro';
 import { logFailure } from '~/lib/platform/log';
 import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
 import { apiError, notFound } from '~/lib/platform/http/responses';
-import { findFileFor, uploadStore } from '~/lib/server/uploads';
+import { findFileFor, uploadStore } from '~/lib/briefs/file-store.server';
 import { attachmentDisposition } from '~/lib/platform/uploads/file-names';
 
 export const GET: APIRoute = async (context) => {

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { createQuoteSchema } from '~/lib/pricing';
+import { createQuoteSchema } from '~/lib/quotes/pricing';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
-import { answer, createQuote, quoteJson } from '~/lib/server/quotes';
+import { answer, createQuote, quoteJson } from '~/lib/quotes/quotes.server';
 import { parseBody } from '~/lib/platform/http/validation';
 
 /** Drafts a priced quote from a design revision. */

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { findBriefFor } from '~/lib/server/briefs';
+import { findBriefFor } from '~/lib/briefs/briefs.server';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
 import { json, notFound } from '~/lib/platform/http/responses';
-import { addNote, listNotes, noteJson, noteRequestSchema } from '~/lib/server/notes';
+import { addNote, listNotes, noteJson, noteRequestSchema } from '~/lib/briefs/notes.server';
 import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {

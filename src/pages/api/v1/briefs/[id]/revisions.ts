@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
-import { revisionRequestSchema } from '~/lib/revision-requests';
-import { findBriefFor } from '~/lib/server/briefs';
+import { revisionRequestSchema } from '~/lib/review/requests';
+import { findBriefFor } from '~/lib/briefs/briefs.server';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
 import { apiError, invalid, json, notFound } from '~/lib/platform/http/responses';
-import { listRevisions, revisionJson, saveRevision } from '~/lib/server/revisions';
+import { listRevisions, revisionJson, saveRevision } from '~/lib/review/revisions.server';
 import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {

@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { exportFileName, findRevisionWithBrief, revisionNetlist } from '~/lib/server/exports';
+import { exportFileName, findRevisionWithBrief, revisionNetlist } from '~/lib/review/exports.server';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
 import { conflict, notFound } from '~/lib/platform/http/responses';
 

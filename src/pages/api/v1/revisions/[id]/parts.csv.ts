@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { chosenOf, exportFileName, findRevisionWithBrief, partListCsv, partsCurrency } from '~/lib/server/exports';
+import { chosenOf, exportFileName, findRevisionWithBrief, partListCsv, partsCurrency } from '~/lib/review/exports.server';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
 import { conflict, notFound } from '~/lib/platform/http/responses';
 
