@@ -1,7 +1,7 @@
 import type { ServerResponse } from 'node:http';
 import { sendJson } from './http-io.ts';
 import type { FakeServices } from './services.ts';
-import type { Delivery } from './webhook-dispatcher.ts';
+import type { Delivery } from './webhooks/webhook-dispatcher.ts';
 
 function describe(delivery: Delivery) {
   return {

@@ -1,11 +1,11 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { payWithCard, DECLINE_MESSAGE } from './card-payments.ts';
 import { successRedirect } from './checkout-sessions.ts';
-import type { EventOrigin } from './event-log.ts';
+import type { EventOrigin } from '../webhooks/event-log.ts';
 import { checkoutPage, closedSessionPage, paidPage, unknownSessionPage } from './hosted-page.ts';
-import { readBody, redirect, sendHtml } from './http-io.ts';
-import type { SessionRecord } from './objects.ts';
-import type { FakeServices } from './services.ts';
+import { readBody, redirect, sendHtml } from '../http-io.ts';
+import type { SessionRecord } from '../objects.ts';
+import type { FakeServices } from '../services.ts';
 
 const FORM_LIMIT_BYTES = 16 * 1024;
 

@@ -1,4 +1,4 @@
-import { unixNow } from './ids.ts';
+import { unixNow } from '../ids.ts';
 import { signatureHeader } from './webhook-signature.ts';
 
 interface DeliveryAttempt {

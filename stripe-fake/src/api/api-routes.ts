@@ -1,11 +1,11 @@
 import { ApiError, noSuchObject } from './api-error.ts';
-import { expireSession } from './card-payments.ts';
-import { assertOpen, createSessionRecord } from './checkout-sessions.ts';
-import type { EventOrigin } from './event-log.ts';
+import { expireSession } from '../checkout/card-payments.ts';
+import { assertOpen, createSessionRecord } from '../checkout/checkout-sessions.ts';
+import type { EventOrigin } from '../webhooks/event-log.ts';
 import { type ParamHash, expansions, optionalInteger, optionalString, rejectUnknown } from './form-params.ts';
-import type { LineItem, SessionRecord } from './objects.ts';
-import { createRefund } from './refunds.ts';
-import type { FakeServices } from './services.ts';
+import type { LineItem, SessionRecord } from '../objects.ts';
+import { createRefund } from '../checkout/refunds.ts';
+import type { FakeServices } from '../services.ts';
 
 interface ApiRequest {
   params: ParamHash;

@@ -1,5 +1,5 @@
-import { formatMinorUnits } from './currency.ts';
-import type { SessionRecord } from './objects.ts';
+import { formatMinorUnits } from '../currency.ts';
+import type { SessionRecord } from '../objects.ts';
 
 function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (char) => `&#${char.charCodeAt(0)};`);

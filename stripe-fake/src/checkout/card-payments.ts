@@ -1,6 +1,6 @@
-import { newId, unixNow } from './ids.ts';
-import type { PaymentIntent, SessionRecord } from './objects.ts';
-import type { FakeState } from './state.ts';
+import { newId, unixNow } from '../ids.ts';
+import type { PaymentIntent, SessionRecord } from '../objects.ts';
+import type { FakeState } from '../state.ts';
 
 /** The test card numbers the hosted page knows. */
 export const SUCCESS_CARD = '4242424242424242';

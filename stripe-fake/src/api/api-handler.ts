@@ -3,10 +3,10 @@ import { ApiError } from './api-error.ts';
 import { apiKeyFrom } from './api-keys.ts';
 import { matchApiRoute } from './api-routes.ts';
 import { parseParams } from './form-params.ts';
-import { BodyTooLargeError, readBody, send } from './http-io.ts';
+import { BodyTooLargeError, readBody, send } from '../http-io.ts';
 import { requestFingerprint } from './idempotency.ts';
-import { newId } from './ids.ts';
-import type { FakeServices } from './services.ts';
+import { newId } from '../ids.ts';
+import type { FakeServices } from '../services.ts';
 
 /** Used when a request names no version; it is the version the SDK in this repository pins. */
 const DEFAULT_API_VERSION = '2026-10-28.endive';

@@ -1,5 +1,5 @@
-import { ApiError, invalidParam, missingParam } from './api-error.ts';
-import { isKnownCurrency } from './currency.ts';
+import { ApiError, invalidParam, missingParam } from '../api/api-error.ts';
+import { isKnownCurrency } from '../currency.ts';
 import {
   type Param,
   type ParamHash,
@@ -10,9 +10,9 @@ import {
   optionalString,
   rejectUnknown,
   requiredString,
-} from './form-params.ts';
-import { newId, unixNow } from './ids.ts';
-import type { CheckoutSession, LineItem, SessionRecord } from './objects.ts';
+} from '../api/form-params.ts';
+import { newId, unixNow } from '../ids.ts';
+import type { CheckoutSession, LineItem, SessionRecord } from '../objects.ts';
 
 const SESSION_PARAMS = [
   'mode',

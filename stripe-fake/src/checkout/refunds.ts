@@ -1,8 +1,8 @@
-import { ApiError, invalidParam, missingParam, noSuchObject } from './api-error.ts';
-import { type ParamHash, optionalInteger, optionalMetadata, optionalString, rejectUnknown, requiredString } from './form-params.ts';
-import { newId, unixNow } from './ids.ts';
-import type { Refund } from './objects.ts';
-import type { FakeState } from './state.ts';
+import { ApiError, invalidParam, missingParam, noSuchObject } from '../api/api-error.ts';
+import { type ParamHash, optionalInteger, optionalMetadata, optionalString, rejectUnknown, requiredString } from '../api/form-params.ts';
+import { newId, unixNow } from '../ids.ts';
+import type { Refund } from '../objects.ts';
+import type { FakeState } from '../state.ts';
 
 const REASONS = ['duplicate', 'fraudulent', 'requested_by_customer'];
 

@@ -1,5 +1,5 @@
-import { newId, unixNow } from './ids.ts';
-import type { ApiEvent } from './objects.ts';
+import { newId, unixNow } from '../ids.ts';
+import type { ApiEvent } from '../objects.ts';
 import type { Delivery, WebhookDispatcher } from './webhook-dispatcher.ts';
 
 export interface EventOrigin {
