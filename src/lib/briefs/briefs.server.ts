@@ -1,9 +1,8 @@
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { BriefSummary } from './summary';
 import { db } from '../platform/db';
-import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus } from '../platform/db/schema';
+import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus, type BriefRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
-import { expireLapsedQuotes } from '../quotes/expiry.server';
 
 export interface BriefListQuery {
   status?: BriefStatus | undefined;
@@ -29,7 +28,6 @@ function orderFor(sort: BriefSort) {
 
 /** Clients see their own briefs only; staff see every brief. Newest activity first by default. */
 export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {}) {
-  await expireLapsedQuotes();
   const page = Math.max(1, query.page ?? 1);
   const pageSize = Math.min(100, Math.max(1, query.pageSize ?? 25));
   const where: SQL[] = [];
@@ -111,14 +109,13 @@ export async function listBriefOwners() {
     .orderBy(clientProfile.company, user.name);
 }
 
-export type BriefRow = typeof brief.$inferSelect;
+export type { BriefRow };
 
 /**
  * The brief if this viewer may see it, else null — the caller answers 404 either
  * way, so a client never learns that another client's brief exists.
  */
 export async function findBriefFor(viewer: SignedInUser, id: string): Promise<BriefRow | null> {
-  await expireLapsedQuotes();
   const [row] = await db.select().from(brief).where(eq(brief.id, id)).limit(1);
   if (!row) return null;
   if (!isStaff(viewer) && row.ownerId !== viewer.id) return null;

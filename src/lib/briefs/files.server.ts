@@ -6,7 +6,7 @@
 import { eq } from 'drizzle-orm';
 import { reduceLoadLog, type LoadSummary } from './load-log';
 import type { Database } from '../platform/db/connect';
-import { brief, briefFile, type BriefStatus } from '../platform/db/schema';
+import { brief, briefFile, type BriefStatus, type BriefFileRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { safeFileName } from '../platform/uploads/file-names';
 import { decideUploadType, MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from '../platform/uploads/file-policy';
@@ -105,7 +105,7 @@ export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadI
   }
 }
 
-export type BriefFileRow = typeof briefFile.$inferSelect;
+export type { BriefFileRow };
 
 /** The file if this viewer may see its brief, else null (answered as 404 either way). */
 export async function findBriefFileFor(db: Database, viewer: SignedInUser, fileId: string): Promise<BriefFileRow | null> {

@@ -1,13 +1,10 @@
 /** The one way a brief changes state: checked against who may move it, conditional, recorded. */
 import { and, eq } from 'drizzle-orm';
 import { canMove, type Actor } from './transitions';
-import type { BriefRow } from './briefs.server';
-import type { db } from '../platform/db';
-import { brief, stateChange, type BriefStatus } from '../platform/db/schema';
+import type { Transaction } from '../platform/db/connect';
+import { brief, stateChange, type BriefRow, type BriefStatus } from '../platform/db/schema';
 
 export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wrong_state'; message: string };
-
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 /**
  * Moves a brief to a new state and records who did it, inside the caller's
@@ -15,7 +12,7 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
  * moves cannot both win.
  */
 export async function moveBrief(
-  tx: Tx,
+  tx: Transaction,
   row: BriefRow,
   to: BriefStatus,
   actor: Actor,

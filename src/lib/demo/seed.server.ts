@@ -1,6 +1,6 @@
 import { count, eq } from 'drizzle-orm';
 import type { Auth } from '../platform/auth/create-auth';
-import type { Database } from '../platform/db/connect';
+import type { Database, Transaction } from '../platform/db/connect';
 import { summarise } from '../briefs/summary';
 import { railSpecSchema } from '../engine/rail-spec';
 import { defaultCatalog } from '../engine/catalog';
@@ -13,14 +13,13 @@ import { lifecycleTo } from './lifecycle';
 
 const DAY = 86_400_000;
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
 
 /**
  * The quote of a demo brief, drafted the way the quote builder drafts one, then
  * taken as far as the scenario says: sent, or accepted with its deposit paid.
  */
 async function seedQuote(
-  tx: Tx,
+  tx: Transaction,
   p: { briefId: string; finalStatus: DemoBrief['status']; revisionId: string; engineerId: string; ownerId: string; plan: 'sent' | 'deposit-paid'; at: Date },
 ) {
   // Drafting needs a brief still under review; the scenario's state is restored right after.

@@ -1,6 +1,6 @@
 import { and, count, eq } from 'drizzle-orm';
 import { db } from '../platform/db';
-import { brief, payment, quote } from '../platform/db/schema';
+import { brief, payment, quote, type QuoteRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { appUrl } from '../platform/links';
 import { paymentProvider } from './provider.server';
@@ -9,7 +9,6 @@ export type CheckoutOutcome =
   | { ok: true; url: string }
   | { ok: false; status: 404 | 409; message: string };
 
-type QuoteRow = typeof quote.$inferSelect;
 
 /** The quote if this client owns it and it has been sent (drafts stay with the consultancy), else null → 404. */
 export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): Promise<QuoteRow | null> {

@@ -1,8 +1,8 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { db } from '../platform/db';
-import { payment } from '../platform/db/schema';
+import { payment, type PaymentRow } from '../platform/db/schema';
 
-export type PaymentRow = typeof payment.$inferSelect;
+export type { PaymentRow };
 
 /** The paid deposit of a quote, if any, else the latest attempt: what the quote page tells. */
 export async function depositState(quoteId: string): Promise<{ paid: PaymentRow | null; latest: PaymentRow | null }> {

@@ -8,11 +8,11 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from './pricing';
-import { brief, designRevision, quote, quoteLine, stateChange } from '../platform/db/schema';
-import { readRateCard, type Db } from './rate-card.server';
+import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow, type QuoteRow } from '../platform/db/schema';
+import type { DbOrTx } from '../platform/db/connect';
+import { readRateCard } from './rate-card.server';
 
-export type QuoteRow = typeof quote.$inferSelect;
-export type QuoteLineRow = typeof quoteLine.$inferSelect;
+export type { QuoteLineRow, QuoteRow };
 
 const DAY_MS = 86_400_000;
 
@@ -37,7 +37,7 @@ export function validUntilFrom(from: Date, days: number): Date {
 }
 
 /** Writes a quote's lines (replacing any) and its totals, inside the caller's transaction. */
-export async function writeLines(tx: Db, quoteId: string, lines: readonly QuoteLineInput[], taxRateBp: number, depositBp: number) {
+export async function writeLines(tx: DbOrTx, quoteId: string, lines: readonly QuoteLineInput[], taxRateBp: number, depositBp: number) {
   const totals = quoteTotals(lines, taxRateBp, depositBp);
   await tx.delete(quoteLine).where(eq(quoteLine.quoteId, quoteId));
   await tx.insert(quoteLine).values(lines.map((line, position) => ({ quoteId, position, ...line, totalMinor: lineTotal(line) })));
@@ -58,7 +58,7 @@ export interface DraftRequest {
  * year; the unique year+sequence index backs it), the quote, its lines and
  * the first state record.
  */
-export async function draftQuote(db: Db, request: DraftRequest): Promise<DraftOutcome> {
+export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<DraftOutcome> {
   const now = request.now ?? new Date();
   const quantity = request.quantity ?? 1;
   const [found] = await db
@@ -114,12 +114,12 @@ export async function draftQuote(db: Db, request: DraftRequest): Promise<DraftOu
 }
 
 /** A quote's lines in their order. */
-export async function quoteLines(db: Db, quoteId: string): Promise<QuoteLineRow[]> {
+export async function quoteLines(db: DbOrTx, quoteId: string): Promise<QuoteLineRow[]> {
   return db.select().from(quoteLine).where(eq(quoteLine.quoteId, quoteId)).orderBy(quoteLine.position);
 }
 
 /** Moves a quote between states when it is still in the state read; records who did it. */
-export async function moveQuote(tx: Db, row: QuoteRow, to: QuoteRow['status'], actorId: string | null, extra: Partial<typeof quote.$inferInsert> = {}) {
+export async function moveQuote(tx: DbOrTx, row: QuoteRow, to: QuoteRow['status'], actorId: string | null, extra: Partial<typeof quote.$inferInsert> = {}) {
   const [updated] = await tx
     .update(quote)
     .set({ status: to, updatedAt: new Date(), ...extra })

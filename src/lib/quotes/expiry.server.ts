@@ -1,6 +1,6 @@
 /**
  * Sent quotes past their validity become expired, and a brief waiting on such a
- * quote with them. Run lazily before briefs and quotes are read rather than on a
+ * quote with them. Run lazily before each signed-in request (the middleware) rather than on a
  * timer: every instance may run it at any time, since each move is conditional
  * on the state read, so two instances never expire one quote twice.
  */

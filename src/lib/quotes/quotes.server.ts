@@ -6,7 +6,6 @@ import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
 import { formatDate } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
 import { moveBrief } from '../briefs/moves.server';
-import { expireLapsedQuotes } from './expiry.server';
 import { db } from '../platform/db';
 import { brief, quote } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
@@ -42,7 +41,6 @@ export const quotePageUrl = (id: string) => appUrl(`/quotes/${id}`);
  * (not sent yet) rather than 404, without showing the draft's content.
  */
 export async function findQuoteFor(viewer: SignedInUser, id: string, { ownDrafts = false } = {}): Promise<QuoteView | null> {
-  await expireLapsedQuotes();
   const view = await loadQuoteView(db, id);
   if (!view) return null;
   if (isStaff(viewer)) return view;

@@ -5,16 +5,15 @@
 import { eq } from 'drizzle-orm';
 import { topologyIds } from '../engine/types';
 import { minorDigits, parseDecimal, rateCardSchema, type RateCard } from './pricing';
-import type { Database } from '../platform/db/connect';
+import type { DbOrTx } from '../platform/db/connect';
 import { rateCard } from '../platform/db/schema';
 import type { FieldIssue } from '../platform/http/responses';
 import { zodIssues } from '../platform/http/validation';
 
-export type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
 
 const RATE_CARD_ID = 1;
 
-export async function readRateCard(db: Db): Promise<(RateCard & { updatedAt: Date }) | null> {
+export async function readRateCard(db: DbOrTx): Promise<(RateCard & { updatedAt: Date }) | null> {
   const [row] = await db.select().from(rateCard).where(eq(rateCard.id, RATE_CARD_ID)).limit(1);
   if (!row) return null;
   const parsed = rateCardSchema.safeParse(row);
@@ -23,7 +22,7 @@ export async function readRateCard(db: Db): Promise<(RateCard & { updatedAt: Dat
   return { ...parsed.data, updatedAt: row.updatedAt };
 }
 
-export async function saveRateCard(db: Db, card: RateCard, updatedBy: string): Promise<void> {
+export async function saveRateCard(db: DbOrTx, card: RateCard, updatedBy: string): Promise<void> {
   const values = { ...card, updatedBy, updatedAt: new Date() };
   await db.insert(rateCard).values({ id: RATE_CARD_ID, ...values }).onConflictDoUpdate({ target: rateCard.id, set: values });
 }

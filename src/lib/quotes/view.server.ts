@@ -10,7 +10,7 @@ import { TOPOLOGY_NAMES, percent } from '../review/option-words';
 import { chosenOption } from './pricing';
 import { brief, clientProfile, designRevision, quote, user } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './core.server';
-import type { Db } from './rate-card.server';
+import type { DbOrTx } from '../platform/db/connect';
 
 /** Said wherever a design is shown, whatever its own cautions. */
 export const SAFETY_NOTE =
@@ -111,7 +111,7 @@ export interface QuoteView {
   design: DesignSummary | null;
 }
 
-export async function loadQuoteView(db: Db, quoteId: string, now = new Date()): Promise<QuoteView | null> {
+export async function loadQuoteView(db: DbOrTx, quoteId: string, now = new Date()): Promise<QuoteView | null> {
   const [found] = await db
     .select({ quote, brief, revision: designRevision, client: { name: user.name, email: user.email, company: clientProfile.company } })
     .from(quote)

@@ -4,10 +4,10 @@ import { briefWithChoices, type RevisionRequest } from './requests';
 import type { BriefRow } from '../briefs/briefs.server';
 import { currentCatalog } from '../catalog/catalog.server';
 import { db } from '../platform/db';
-import { designRevision, user } from '../platform/db/schema';
+import { designRevision, user, type RevisionRow } from '../platform/db/schema';
 import type { ActionResult } from '../briefs/actions.server';
 
-export type RevisionRow = typeof designRevision.$inferSelect;
+export type { RevisionRow };
 
 /** Briefs an engineer may design for: submitted onwards, not closed. */
 const DESIGNABLE = new Set(['submitted', 'in-review', 'quoted', 'accepted', 'deposit-paid', 'in-design']);

@@ -5,6 +5,10 @@ import { drizzle } from 'drizzle-orm/libsql';
 import * as schema from './schema';
 
 export type Database = ReturnType<typeof drizzle<typeof schema>>;
+/** The handle a `db.transaction` callback receives. */
+export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
+/** Either: for helpers that work alone or inside a caller's transaction. */
+export type DbOrTx = Database | Transaction;
 
 export const DEFAULT_DATABASE_URL = 'file:data/railwright.db';
 

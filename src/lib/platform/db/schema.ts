@@ -285,3 +285,11 @@ export const rateLimit = sqliteTable('rate_limit', {
   windowStart: integer('window_start').notNull(),
   count: integer('count').notNull(),
 });
+
+// Row types live beside their tables, so a module that only reads a row needs nothing else.
+export type BriefRow = typeof brief.$inferSelect;
+export type BriefFileRow = typeof briefFile.$inferSelect;
+export type RevisionRow = typeof designRevision.$inferSelect;
+export type QuoteRow = typeof quote.$inferSelect;
+export type QuoteLineRow = typeof quoteLine.$inferSelect;
+export type PaymentRow = typeof payment.$inferSelect;
