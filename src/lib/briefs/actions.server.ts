@@ -9,7 +9,7 @@ import type { BriefStatus } from './status';
 import type { CreateBrief } from './requests';
 import { moveBrief } from './moves.server';
 import type { BriefRow } from './briefs.server';
-import { currentCatalog } from '../catalog/catalog.server';
+import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
 import { brief, stateChange } from '../platform/db/schema';
 import type { FieldIssue } from '../platform/http/responses';

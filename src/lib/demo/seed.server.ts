@@ -1,13 +1,13 @@
 import { count, eq } from 'drizzle-orm';
 import type { Auth } from '../platform/auth/create-auth';
 import type { Database, Transaction } from '../platform/db/connect';
-import { summarise } from '../briefs/summary';
+import { summarise } from '~/lib/briefs';
 import { railSpecSchema } from '../engine/rail-spec';
 import { defaultCatalog } from '../engine/catalog';
 import { evaluate } from '../engine/evaluate';
-import { catalogToRows } from '../catalog/rows';
+import { catalogToRows } from '~/lib/catalog';
 import { account, brief, clientProfile, designRevision, deviceClass, payment, quote, rateCard, stateChange, user } from '../platform/db/schema';
-import { draftQuote } from '../quotes/core.server';
+import { draftQuote } from '~/lib/quotes/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';
 

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import { moveBrief } from '../briefs/moves.server';
+import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
 import { brief, payment, quote, stateChange, webhookEvent } from '../platform/db/schema';
 import { sendReceipt } from './receipt.server';

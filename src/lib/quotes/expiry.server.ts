@@ -6,7 +6,7 @@
  */
 import { and, eq, gte, lt, ne } from 'drizzle-orm';
 import { formatDate } from '../platform/format';
-import { moveBrief } from '../briefs/moves.server';
+import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
 import { brief, quote } from '../platform/db/schema';
 import { moveQuote } from './core.server';

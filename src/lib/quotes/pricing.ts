@@ -8,7 +8,7 @@ import { z } from 'zod';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation, Option, TopologyId } from '../engine/types';
 import { topologyIds } from '../engine/types';
-import { TOPOLOGY_NAMES } from '../review/option-words';
+import { TOPOLOGY_NAMES } from '~/lib/review';
 
 /** Above 60 V DC a rail leaves the ES1 class of IEC 62368-1 and needs the high-voltage review. */
 export const HAZARDOUS_VOLTAGE_V = 60;

@@ -5,7 +5,7 @@
 import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
 import { formatDate } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
-import { moveBrief } from '../briefs/moves.server';
+import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
 import { brief, quote } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';

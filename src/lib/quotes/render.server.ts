@@ -1,6 +1,6 @@
 import type { QuoteView } from './view.server';
 import { pdfmake } from '../platform/pdf/fonts';
-import { quoteDocument, type QuoteDocumentOptions } from './document';
+import { quoteDocument, type QuoteDocumentOptions } from './document.server';
 
 export async function renderQuotePdf(view: QuoteView, options: QuoteDocumentOptions): Promise<Buffer> {
   return pdfmake.createPdf(quoteDocument(view, options)).getBuffer();

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
-import { TOPOLOGY_NAMES, percent } from '../review/option-words';
+import { TOPOLOGY_NAMES, percent } from '~/lib/review';
 import { chosenOption } from './pricing';
 import { brief, clientProfile, designRevision, quote, user } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './core.server';

@@ -8,7 +8,7 @@ import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '
 import { componentValue } from './figures';
 import { ROLE_NAMES, TYPICAL_NOTE } from './words';
 import { TOPOLOGY_NAMES } from './option-words';
-import { currentCatalog } from '../catalog/catalog.server';
+import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
 import { brief, designRevision, rateCard } from '../platform/db/schema';
 

@@ -2,12 +2,12 @@
  * The review page's plain forms (move the state, add an internal note): they
  * work without JavaScript and go through the same checks as the API.
  */
-import { staffBriefPatchSchema } from '../briefs/requests';
+import { staffBriefPatchSchema } from '~/lib/briefs';
 import { BRIEF_STATE_LOOK, lookOf } from '../../components/ui/state-look';
-import { moveAsStaff } from '../briefs/actions.server';
-import type { BriefRow } from '../briefs/briefs.server';
+import { moveAsStaff } from '~/lib/briefs/index.server';
+import type { BriefRow } from '~/lib/briefs/index.server';
 import type { SignedInUser } from '../platform/http/guard';
-import { addNote, noteRequestSchema } from '../briefs/notes.server';
+import { addNote, noteRequestSchema } from '~/lib/briefs/index.server';
 
 export type FormOutcome = { ok: true; done: 'moved' | 'noted' } | { ok: false; status: 400 | 409; message: string };
 

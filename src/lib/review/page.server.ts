@@ -1,12 +1,12 @@
 /** What the review page needs for its first paint, gathered from the lib modules (never over HTTP). */
 import { evaluate, railSpecSchema, type TopologyId } from '../engine';
 import { briefWithChoices } from './requests';
-import { movesFor } from '../briefs/transitions';
+import { movesFor } from '~/lib/briefs';
 import { formFrom } from './choices';
-import { briefDetail, type BriefRow } from '../briefs/briefs.server';
-import { currentCatalog } from '../catalog/catalog.server';
+import { briefDetail, type BriefRow } from '~/lib/briefs/index.server';
+import { currentCatalog } from '~/lib/catalog/index.server';
 import { partsCurrency } from './exports.server';
-import { listNotes } from '../briefs/notes.server';
+import { listNotes } from '~/lib/briefs/index.server';
 import { listRevisions } from './revisions.server';
 
 /** `fromRevisionId` starts the form from that revision's choices instead of the latest one's. */

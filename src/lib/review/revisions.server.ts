@@ -1,11 +1,11 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { railSpecIssues, evaluate, type Evaluation } from '../engine';
 import { briefWithChoices, type RevisionRequest } from './requests';
-import type { BriefRow } from '../briefs/briefs.server';
-import { currentCatalog } from '../catalog/catalog.server';
+import type { BriefRow } from '~/lib/briefs/index.server';
+import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
 import { designRevision, user, type RevisionRow } from '../platform/db/schema';
-import type { ActionResult } from '../briefs/actions.server';
+import type { ActionResult } from '~/lib/briefs/index.server';
 
 export type { RevisionRow };
 

@@ -8,9 +8,9 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import type { Catalog } from '../../engine/catalog';
 import type { RailSpec } from '../../engine/rail-spec';
 import { evaluate } from '../../engine/evaluate';
-import { currentCatalog } from '../../catalog/catalog.server';
 import { config } from '../config';
 import { log } from '../log';
 import { EnginePool } from './pool';
@@ -44,9 +44,8 @@ function enginePool(): EnginePool | null {
   return pool;
 }
 
-/** The evaluation of `brief` as JSON text, ready to be the body of the answer. */
-export async function evaluateToJson(brief: RailSpec): Promise<string> {
-  const catalog = await currentCatalog();
+/** The evaluation of `brief` against `catalog` as JSON text, ready to be the body of the answer. */
+export async function evaluateToJson(brief: RailSpec, catalog: Catalog): Promise<string> {
   const threads = enginePool();
   return threads ? threads.evaluateJson(brief, catalog) : JSON.stringify(evaluate(brief, catalog));
 }
