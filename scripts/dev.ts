@@ -4,8 +4,8 @@
  */
 import { spawn } from 'node:child_process';
 import { migrateDatabase } from '../src/lib/platform/db/migrate';
-import { seedDemo } from '../src/lib/server/seed/demo';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/server/seed/scenario';
+import { seedDemo } from '../src/lib/demo/seed.server';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/demo/scenario';
 import { startFakes } from './fakes';
 import { scriptContext } from './server-context';
 

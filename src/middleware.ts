@@ -41,7 +41,8 @@ const signInLimit = defineMiddleware((context, next) => limitSignInApi(context, 
 
 const session = defineMiddleware(async (context, next) => {
   // No session cookie, no session: skip the lookup (anonymous pages, the public evaluate route).
-  if (context.url.pathname.startsWith('/_astro/') || !(context.request.headers.get('cookie') ?? '').includes('session_token')) return next();
+  if (context.url.pathname.startsWith('/_astro/') || !(context.request.headers.get('cookie') ?? '').includes('session_token'))
+    return next();
   const found = await auth.api.getSession({ headers: context.request.headers });
   if (found && isRole(found.user.role) && !found.user.banned) {
     context.locals.user = { id: found.user.id, name: found.user.name, email: found.user.email, role: found.user.role };

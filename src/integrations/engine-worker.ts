@@ -12,7 +12,15 @@ export const ENGINE_WORKER_SOURCE = fileURLToPath(new URL('../lib/platform/engin
 
 /** One self-contained ES module with the engine thread and everything it imports. */
 export async function buildEngineWorker(outfile: string): Promise<void> {
-  await build({ entryPoints: [ENGINE_WORKER_SOURCE], bundle: true, platform: 'node', format: 'esm', target: 'node20', outfile, logLevel: 'warning' });
+  await build({
+    entryPoints: [ENGINE_WORKER_SOURCE],
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    outfile,
+    logLevel: 'warning',
+  });
 }
 
 export default function engineWorker(): AstroIntegration {

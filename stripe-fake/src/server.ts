@@ -41,7 +41,11 @@ function listen(server: Server, port: number, host: string): Promise<AddressInfo
   return new Promise((resolve, reject) => {
     const onError = (error: NodeJS.ErrnoException) => {
       if (error.code === 'EADDRINUSE') {
-        reject(new Error(`The payment stand-in cannot listen on ${host}:${port}: the port is already in use (is another copy running?). Stop it or choose another port.`));
+        reject(
+          new Error(
+            `The payment stand-in cannot listen on ${host}:${port}: the port is already in use (is another copy running?). Stop it or choose another port.`,
+          ),
+        );
       } else {
         reject(error);
       }

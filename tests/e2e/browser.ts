@@ -11,7 +11,16 @@ export const SCREENSHOT_DIR = path.resolve('tests/.artifacts/screenshots');
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({
     executablePath: CHROMIUM_PATH,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
 }
 

@@ -19,5 +19,7 @@ if (!existsSync(CHROMIUM_PATH)) {
   process.exit(process.env.CI === 'true' ? 1 : 0);
 }
 
-const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--project', 'e2e', ...process.argv.slice(2)], { stdio: 'inherit' });
+const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--project', 'e2e', ...process.argv.slice(2)], {
+  stdio: 'inherit',
+});
 process.exit(result.status ?? 1);

@@ -4,7 +4,14 @@ import { Controller, useForm, useWatch, type FieldPath } from 'react-hook-form';
 import { noiseClasses } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
 import type { LoadSummary } from '~/lib/briefs/load-log';
-import { AIRFLOW_WORDS, NOISE_CLASS_WORDS, rippleDefault, SOURCE_TYPICAL, startingBrief, type SourceKind } from '~/lib/briefs/wizard-defaults';
+import {
+  AIRFLOW_WORDS,
+  NOISE_CLASS_WORDS,
+  rippleDefault,
+  SOURCE_TYPICAL,
+  startingBrief,
+  type SourceKind,
+} from '~/lib/briefs/wizard-defaults';
 import { WIZARD_STEPS, wizardFormSchema, type WizardInput, type WizardOutput } from '~/lib/briefs/wizard-form';
 import { FieldShell, inputClass } from '../ui/FieldShell';
 import { LiveRanking } from './LiveRanking';
@@ -42,7 +49,14 @@ function initialValues(draft: Props['draft']): WizardInput {
     return {
       title: draft.title,
       notes: draft.notes,
-      spec: { ...base, ...spec, input: { ...base.input, ...spec.input }, output: { ...base.output, ...spec.output }, noise: { ...base.noise, ...spec.noise }, thermal: { ...base.thermal, ...spec.thermal } },
+      spec: {
+        ...base,
+        ...spec,
+        input: { ...base.input, ...spec.input },
+        output: { ...base.output, ...spec.output },
+        noise: { ...base.noise, ...spec.noise },
+        thermal: { ...base.thermal, ...spec.thermal },
+      },
     };
   }
   return { title: '', notes: '', spec: base };
@@ -122,7 +136,11 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
           const response = await fetch(`/api/v1/briefs/${draftId}`, {
             method: 'PATCH',
             headers: { 'content-type': 'application/json' },
-            body: JSON.stringify({ ...(current.title.trim() ? { title: current.title.trim() } : {}), notes: current.notes, spec: current.spec }),
+            body: JSON.stringify({
+              ...(current.title.trim() ? { title: current.title.trim() } : {}),
+              notes: current.notes,
+              spec: current.spec,
+            }),
           });
           if (!response.ok) throw new Error(String(response.status));
         }
@@ -134,23 +152,20 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     return () => clearTimeout(timer);
   }, [serialized, signedIn, draftId, ensureDraft, getValues]);
 
-  const uploadQueued = useCallback(
-    async (briefId: string, queue: QueuedFile[]) => {
-      for (const item of queue) {
-        if (item.state === 'done') continue;
-        const update = (patch: Partial<QueuedFile>) => setFiles((all) => all.map((f) => (f.key === item.key ? { ...f, ...patch } : f)));
-        update({ state: 'uploading', progress: 0 });
-        try {
-          await uploadFile(briefId, item.file, item.kind, (progress) => update({ progress }));
-          update({ state: 'done', progress: 1 });
-        } catch (error) {
-          update({ state: 'failed', error: (error as Error).message });
-          throw error;
-        }
+  const uploadQueued = useCallback(async (briefId: string, queue: QueuedFile[]) => {
+    for (const item of queue) {
+      if (item.state === 'done') continue;
+      const update = (patch: Partial<QueuedFile>) => setFiles((all) => all.map((f) => (f.key === item.key ? { ...f, ...patch } : f)));
+      update({ state: 'uploading', progress: 0 });
+      try {
+        await uploadFile(briefId, item.file, item.kind, (progress) => update({ progress }));
+        update({ state: 'done', progress: 1 });
+      } catch (error) {
+        update({ state: 'failed', error: (error as Error).message });
+        throw error;
       }
-    },
-    [],
-  );
+    }
+  }, []);
 
   async function addFiles(list: FileList | null) {
     if (!list) return;
@@ -177,7 +192,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     }
   }
 
-  function useLoadFigures(summary: LoadSummary) {
+  function applyLoadFigures(summary: LoadSummary) {
     const round = (x: number) => Number(x.toPrecision(3));
     setValue('spec.output.iMin', round(summary.iMinA), { shouldValidate: true, shouldDirty: true });
     setValue('spec.output.iTyp', round(summary.iTypA), { shouldValidate: true, shouldDirty: true });
@@ -303,7 +318,8 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                   className="mt-2 text-sm font-semibold text-copper-700 underline"
                   onClick={() => {
                     const typical = SOURCE_TYPICAL[source];
-                    for (const key of ['vMin', 'vNom', 'vMax', 'rippleVpp'] as const) setValue(`spec.input.${key}`, typical[key], { shouldValidate: true, shouldDirty: true });
+                    for (const key of ['vMin', 'vNom', 'vMax', 'rippleVpp'] as const)
+                      setValue(`spec.input.${key}`, typical[key], { shouldValidate: true, shouldDirty: true });
                   }}
                 >
                   Use typical figures for this source
@@ -311,20 +327,49 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
               </div>
               {number('spec.input.vMin', 'Lowest input voltage', 'V', specErrors?.input?.vMin?.message)}
               {number('spec.input.vNom', 'Nominal input voltage', 'V', specErrors?.input?.vNom?.message)}
-              {number('spec.input.vMax', 'Highest input voltage', 'V', specErrors?.input?.vMax?.message, 'Include surges the regulator must survive.')}
-              {number('spec.input.rippleVpp', 'Ripple on the input', 'V', specErrors?.input?.rippleVpp?.message, 'Peak to peak; 0 for a battery.')}
+              {number(
+                'spec.input.vMax',
+                'Highest input voltage',
+                'V',
+                specErrors?.input?.vMax?.message,
+                'Include surges the regulator must survive.',
+              )}
+              {number(
+                'spec.input.rippleVpp',
+                'Ripple on the input',
+                'V',
+                specErrors?.input?.rippleVpp?.message,
+                'Peak to peak; 0 for a battery.',
+              )}
             </div>
           )}
 
           {current.id === 'rail' && (
             <div className="mt-4 grid gap-4 sm:grid-cols-2">
               <div className="sm:col-span-2">
-                <FieldShell id="f-title" label="Name of the rail" error={errors.title?.message} hint="How you will recognise it, e.g. “Sensor board 3.3 V”.">
-                  <input id="f-title" className={inputClass(errors.title?.message)} {...register('title')} aria-invalid={errors.title ? true : undefined} />
+                <FieldShell
+                  id="f-title"
+                  label="Name of the rail"
+                  error={errors.title?.message}
+                  hint="How you will recognise it, e.g. “Sensor board 3.3 V”."
+                >
+                  <input
+                    id="f-title"
+                    className={inputClass(errors.title?.message)}
+                    {...register('title')}
+                    aria-invalid={errors.title ? true : undefined}
+                  />
                 </FieldShell>
               </div>
               {number('spec.output.v', 'Output voltage', 'V', specErrors?.output?.v?.message)}
-              {number('spec.output.tolerance', 'Allowed deviation (±)', '%', specErrors?.output?.tolerance?.message, 'Digital logic usually allows ±5 %.', true)}
+              {number(
+                'spec.output.tolerance',
+                'Allowed deviation (±)',
+                '%',
+                specErrors?.output?.tolerance?.message,
+                'Digital logic usually allows ±5 %.',
+                true,
+              )}
             </div>
           )}
 
@@ -333,20 +378,28 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
               {number('spec.output.iMin', 'Lowest load current', 'A', specErrors?.output?.iMin?.message, 'Asleep or idle.')}
               {number('spec.output.iTyp', 'Typical load current', 'A', specErrors?.output?.iTyp?.message, 'Most of the time.')}
               {number('spec.output.iMax', 'Highest load current', 'A', specErrors?.output?.iMax?.message, 'Worst burst.')}
-              <p className="text-sm text-ink-soft sm:col-span-3">Have a measured log? Attach it as a CSV of time and current in the files step; we work these figures out from it.</p>
+              <p className="text-sm text-ink-soft sm:col-span-3">
+                Have a measured log? Attach it as a CSV of time and current in the files step; we work these figures out from it.
+              </p>
             </div>
           )}
 
           {current.id === 'quietness' && (
             <div className="mt-4 grid gap-4 sm:grid-cols-2">
               <div className="sm:col-span-2">
-                <FieldShell id="f-noise" label="What does the rail feed?" hint={NOISE_CLASS_WORDS[(values.spec?.noise?.class ?? 'digital') as keyof typeof NOISE_CLASS_WORDS].hint}>
+                <FieldShell
+                  id="f-noise"
+                  label="What does the rail feed?"
+                  hint={NOISE_CLASS_WORDS[(values.spec?.noise?.class ?? 'digital') as keyof typeof NOISE_CLASS_WORDS].hint}
+                >
                   <select
                     id="f-noise"
                     className={inputClass()}
                     {...register('spec.noise.class', {
                       onChange: (event: React.ChangeEvent<HTMLSelectElement>) =>
-                        setValue('spec.noise.maxRippleVpp', rippleDefault(event.target.value as (typeof noiseClasses)[number]), { shouldValidate: true }),
+                        setValue('spec.noise.maxRippleVpp', rippleDefault(event.target.value as (typeof noiseClasses)[number]), {
+                          shouldValidate: true,
+                        }),
                     })}
                   >
                     {noiseClasses.map((c) => (
@@ -357,13 +410,25 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                   </select>
                 </FieldShell>
               </div>
-              {number('spec.noise.maxRippleVpp', 'Most ripple and noise it tolerates', 'V', specErrors?.noise?.maxRippleVpp?.message, 'Peak to peak. Set from the choice above; change it if you know better.')}
+              {number(
+                'spec.noise.maxRippleVpp',
+                'Most ripple and noise it tolerates',
+                'V',
+                specErrors?.noise?.maxRippleVpp?.message,
+                'Peak to peak. Set from the choice above; change it if you know better.',
+              )}
             </div>
           )}
 
           {current.id === 'surroundings' && (
             <div className="mt-4 grid gap-4 sm:grid-cols-2">
-              {number('spec.thermal.ambientMaxC', 'Hottest surrounding air', '°C', specErrors?.thermal?.ambientMaxC?.message, 'Inside the enclosure, on the worst day.')}
+              {number(
+                'spec.thermal.ambientMaxC',
+                'Hottest surrounding air',
+                '°C',
+                specErrors?.thermal?.ambientMaxC?.message,
+                'Inside the enclosure, on the worst day.',
+              )}
               <FieldShell id="f-airflow" label="Airflow">
                 <select id="f-airflow" className={inputClass()} {...register('spec.thermal.airflow')}>
                   {Object.entries(AIRFLOW_WORDS).map(([value, label]) => (
@@ -378,7 +443,11 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
 
           {current.id === 'files' && (
             <div className="mt-4 flex flex-col gap-4">
-              <FieldShell id="f-files" label="Schematics, datasheets, photos or a load log (CSV)" hint="Up to 10 MB each. PDF, PNG, JPEG, WebP, or CSV/text for a load log.">
+              <FieldShell
+                id="f-files"
+                label="Schematics, datasheets, photos or a load log (CSV)"
+                hint="Up to 10 MB each. PDF, PNG, JPEG, WebP, or CSV/text for a load log."
+              >
                 <input id="f-files" type="file" multiple className="text-sm" onChange={(event) => void addFiles(event.target.files)} />
               </FieldShell>
               {files.length > 0 && (
@@ -388,21 +457,37 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                       <div className="flex flex-wrap items-center justify-between gap-2">
                         <span className="font-semibold">{item.file.name}</span>
                         <span className="text-ink-soft">
-                          {item.state === 'done' ? '✓ attached' : item.state === 'failed' ? '✕ refused' : item.state === 'uploading' ? `${Math.round(item.progress * 100)} %` : signedIn ? 'waiting' : 'attached when you submit'}
+                          {item.state === 'done'
+                            ? '✓ attached'
+                            : item.state === 'failed'
+                              ? '✕ refused'
+                              : item.state === 'uploading'
+                                ? `${Math.round(item.progress * 100)} %`
+                                : signedIn
+                                  ? 'waiting'
+                                  : 'attached when you submit'}
                         </span>
                       </div>
-                      {item.state === 'uploading' && <progress className="mt-1 w-full" max={1} value={item.progress} aria-label={`Uploading ${item.file.name}`} />}
+                      {item.state === 'uploading' && (
+                        <progress className="mt-1 w-full" max={1} value={item.progress} aria-label={`Uploading ${item.file.name}`} />
+                      )}
                       {item.error && <p className="mt-1 text-stop-700">{item.error}</p>}
                       {item.loadError && <p className="mt-1 text-stop-700">This load log cannot be read: {item.loadError}</p>}
                       {item.loadSummary && (
                         <div className="mt-2">
                           <p className="tabular-nums">
-                            {item.loadSummary.samples} samples over {formatSi(item.loadSummary.durationS, 's')}: min {formatSi(item.loadSummary.iMinA, 'A')}, mean {formatSi(item.loadSummary.iTypA, 'A')}, RMS {formatSi(item.loadSummary.iRmsA, 'A')}, peak {formatSi(item.loadSummary.iMaxA, 'A')}
+                            {item.loadSummary.samples} samples over {formatSi(item.loadSummary.durationS, 's')}: min{' '}
+                            {formatSi(item.loadSummary.iMinA, 'A')}, mean {formatSi(item.loadSummary.iTypA, 'A')}, RMS{' '}
+                            {formatSi(item.loadSummary.iRmsA, 'A')}, peak {formatSi(item.loadSummary.iMaxA, 'A')}
                           </p>
                           <Suspense fallback={null}>
                             <LoadLogPlot summary={item.loadSummary} />
                           </Suspense>
-                          <button type="button" className="mt-1 font-semibold text-copper-700 underline" onClick={() => item.loadSummary && useLoadFigures(item.loadSummary)}>
+                          <button
+                            type="button"
+                            className="mt-1 font-semibold text-copper-700 underline"
+                            onClick={() => item.loadSummary && applyLoadFigures(item.loadSummary)}
+                          >
                             Use these figures for the load
                           </button>
                         </div>
@@ -422,11 +507,23 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
               <dl className="divide-y divide-rule rounded-md border border-rule">
                 {[
                   ['Name', values.title || '—'],
-                  ['Input', `${formatSi(Number(values.spec?.input?.vMin), 'V')} – ${formatSi(Number(values.spec?.input?.vMax), 'V')}, ${values.spec?.input?.source}`],
-                  ['Output', `${formatSi(Number(values.spec?.output?.v), 'V')} ±${(Number(values.spec?.output?.tolerance) * 100).toFixed(1)} %`],
-                  ['Load', `${formatSi(Number(values.spec?.output?.iMin), 'A')} / ${formatSi(Number(values.spec?.output?.iTyp), 'A')} / ${formatSi(Number(values.spec?.output?.iMax), 'A')}`],
+                  [
+                    'Input',
+                    `${formatSi(Number(values.spec?.input?.vMin), 'V')} – ${formatSi(Number(values.spec?.input?.vMax), 'V')}, ${values.spec?.input?.source}`,
+                  ],
+                  [
+                    'Output',
+                    `${formatSi(Number(values.spec?.output?.v), 'V')} ±${(Number(values.spec?.output?.tolerance) * 100).toFixed(1)} %`,
+                  ],
+                  [
+                    'Load',
+                    `${formatSi(Number(values.spec?.output?.iMin), 'A')} / ${formatSi(Number(values.spec?.output?.iTyp), 'A')} / ${formatSi(Number(values.spec?.output?.iMax), 'A')}`,
+                  ],
                   ['Ripple limit', formatSi(Number(values.spec?.noise?.maxRippleVpp), 'V')],
-                  ['Surroundings', `${values.spec?.thermal?.ambientMaxC} °C, ${AIRFLOW_WORDS[(values.spec?.thermal?.airflow ?? 'still-air') as keyof typeof AIRFLOW_WORDS]}`],
+                  [
+                    'Surroundings',
+                    `${values.spec?.thermal?.ambientMaxC} °C, ${AIRFLOW_WORDS[(values.spec?.thermal?.airflow ?? 'still-air') as keyof typeof AIRFLOW_WORDS]}`,
+                  ],
                   ['Files', files.length ? files.map((f) => f.file.name).join(', ') : 'none'],
                 ].map(([term, value]) => (
                   <div key={term} className="grid grid-cols-[7rem_1fr] gap-2 px-3 py-2">
@@ -435,7 +532,9 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                   </div>
                 ))}
               </dl>
-              <p className="text-ink-soft">An engineer reviews every brief before anything is quoted. You can follow it on your briefs page.</p>
+              <p className="text-ink-soft">
+                An engineer reviews every brief before anything is quoted. You can follow it on your briefs page.
+              </p>
               {submitError && (
                 <p role="alert" className="font-medium text-stop-700">
                   {submitError}
@@ -446,11 +545,19 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
 
           <div className="mt-6 flex flex-wrap items-center gap-3">
             {step > 0 && (
-              <button type="button" onClick={() => void go(step - 1)} className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60">
+              <button
+                type="button"
+                onClick={() => void go(step - 1)}
+                className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60"
+              >
                 Back
               </button>
             )}
-            <button type="submit" disabled={submitting} className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50">
+            <button
+              type="submit"
+              disabled={submitting}
+              className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+            >
               {step === WIZARD_STEPS.length - 1 ? (submitting ? 'Submitting…' : 'Submit the brief') : 'Next'}
             </button>
             <span className="text-xs text-ink-faint" aria-live="polite">

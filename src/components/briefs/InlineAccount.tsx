@@ -14,7 +14,8 @@ export function InlineAccount({ onSignedIn }: Props) {
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) => setValues((v) => ({ ...v, [key]: event.target.value }));
+  const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) =>
+    setValues((v) => ({ ...v, [key]: event.target.value }));
 
   async function submit(event: React.SyntheticEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -29,8 +30,16 @@ export function InlineAccount({ onSignedIn }: Props) {
     try {
       const response =
         mode === 'sign-up'
-          ? await fetch('/api/v1/account', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(parsed.data) })
-          : await fetch('/api/auth/sign-in/email', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(parsed.data) });
+          ? await fetch('/api/v1/account', {
+              method: 'POST',
+              headers: { 'content-type': 'application/json' },
+              body: JSON.stringify(parsed.data),
+            })
+          : await fetch('/api/auth/sign-in/email', {
+              method: 'POST',
+              headers: { 'content-type': 'application/json' },
+              body: JSON.stringify(parsed.data),
+            });
       const body = (await response.json().catch(() => ({}))) as { message?: string; user?: { name?: string }; name?: string };
       if (!response.ok) {
         setFailure(
@@ -67,7 +76,12 @@ export function InlineAccount({ onSignedIn }: Props) {
   };
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-3 rounded-lg border border-copper-500/40 bg-copper-50 p-4" aria-labelledby="account-heading">
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-3 rounded-lg border border-copper-500/40 bg-copper-50 p-4"
+      aria-labelledby="account-heading"
+    >
       <h3 id="account-heading" className="text-lg font-bold">
         {mode === 'sign-up' ? 'Create an account to submit' : 'Sign in to submit'}
       </h3>
@@ -81,10 +95,17 @@ export function InlineAccount({ onSignedIn }: Props) {
       {mode === 'sign-up' && field('company', 'Company or lab', 'text', 'organization')}
       {field('email', 'E-mail', 'email', 'email')}
       {field('password', 'Password', 'password', mode === 'sign-up' ? 'new-password' : 'current-password')}
-      <button disabled={busy} className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50">
+      <button
+        disabled={busy}
+        className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+      >
         {mode === 'sign-up' ? 'Create account and submit' : 'Sign in and submit'}
       </button>
-      <button type="button" className="text-left text-sm font-semibold text-copper-700 underline" onClick={() => setMode(mode === 'sign-up' ? 'sign-in' : 'sign-up')}>
+      <button
+        type="button"
+        className="text-left text-sm font-semibold text-copper-700 underline"
+        onClick={() => setMode(mode === 'sign-up' ? 'sign-in' : 'sign-up')}
+      >
         {mode === 'sign-up' ? 'I already have an account' : 'I need a new account'}
       </button>
     </form>

@@ -77,7 +77,9 @@ export function LiveRanking({ state }: { state: RankingState }) {
               </ul>
             </div>
           )}
-          <p className="mt-3 text-xs text-ink-faint">Figures use typical part values; an engineer confirms them against the chosen parts' data.</p>
+          <p className="mt-3 text-xs text-ink-faint">
+            Figures use typical part values; an engineer confirms them against the chosen parts' data.
+          </p>
         </>
       )}
     </section>

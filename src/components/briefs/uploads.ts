@@ -31,7 +31,11 @@ export function uploadFile(briefId: string, file: File, kind: UploadKind, onProg
       const reason =
         body.issues?.[0]?.message ??
         body.message ??
-        (xhr.status === 413 ? 'The file is larger than 10 MB.' : xhr.status === 415 ? 'This kind of file is not accepted.' : `The upload failed (${xhr.status}).`);
+        (xhr.status === 413
+          ? 'The file is larger than 10 MB.'
+          : xhr.status === 415
+            ? 'This kind of file is not accepted.'
+            : `The upload failed (${xhr.status}).`);
       reject(new Error(reason));
     };
     xhr.onerror = () => reject(new Error('The connection dropped during the upload; try again.'));

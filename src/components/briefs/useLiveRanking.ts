@@ -40,7 +40,8 @@ export function useLiveRanking(spec: unknown): RankingState {
         last.current = result;
         setState({ kind: 'ready', result });
       } catch (error) {
-        if ((error as Error).name !== 'AbortError') setState({ kind: 'failed', message: 'The ranking is not reachable right now; your brief is not affected.' });
+        if ((error as Error).name !== 'AbortError')
+          setState({ kind: 'failed', message: 'The ranking is not reachable right now; your brief is not affected.' });
       }
     }, DEBOUNCE_MS);
     return () => {

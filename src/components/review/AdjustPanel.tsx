@@ -132,7 +132,13 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
               <li key={k} className="flex flex-wrap items-end gap-2">
                 <div className="w-24">
                   <FieldShell id={`part-ref-${k}`} label="Reference">
-                    <input id={`part-ref-${k}`} value={part.ref} onChange={(e) => setPart(k, { ref: e.target.value })} className={inputClass()} autoComplete="off" />
+                    <input
+                      id={`part-ref-${k}`}
+                      value={part.ref}
+                      onChange={(e) => setPart(k, { ref: e.target.value })}
+                      className={inputClass()}
+                      autoComplete="off"
+                    />
                   </FieldShell>
                 </div>
                 <div className="w-40">
@@ -181,7 +187,11 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
         </ul>
       )}
       <div className="mt-5 flex flex-wrap items-center gap-3">
-        <button type="submit" disabled={running} className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50">
+        <button
+          type="submit"
+          disabled={running}
+          className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+        >
           {running ? 'Re-running…' : 'Re-run the engine'}
         </button>
         <span className="text-sm text-ink-soft" aria-live="polite">

@@ -95,9 +95,21 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           </div>
         ),
       }),
-      column.accessor('status', { header: 'State', enableSorting: false, cell: (c) => <StateBadge table={BRIEF_STATE_LOOK} state={c.getValue()} /> }),
-      column.accessor('submittedAt', { id: 'submitted', header: 'Submitted', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue() ? Date.parse(c.getValue()!) : null)}</span> }),
-      column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => <span className="whitespace-nowrap">{formatDate(Date.parse(c.getValue()))}</span> }),
+      column.accessor('status', {
+        header: 'State',
+        enableSorting: false,
+        cell: (c) => <StateBadge table={BRIEF_STATE_LOOK} state={c.getValue()} />,
+      }),
+      column.accessor('submittedAt', {
+        id: 'submitted',
+        header: 'Submitted',
+        cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue() ? Date.parse(c.getValue()!) : null)}</span>,
+      }),
+      column.accessor('updatedAt', {
+        id: 'updated',
+        header: 'Last change',
+        cell: (c) => <span className="whitespace-nowrap">{formatDate(Date.parse(c.getValue()))}</span>,
+      }),
       column.accessor('recommendedTopology', {
         header: 'Recommended',
         enableSorting: false,
@@ -106,17 +118,43 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           if (!s) return <span className="text-ink-faint">{c.row.original.status === 'draft' ? 'Not yet ranked' : '—'}</span>;
           return (
             <>
-              {c.getValue() ? TOPOLOGY_NAMES[c.getValue() as TopologyId] : <span className="text-stop-700"><span aria-hidden="true">✕ </span>None feasible</span>}
+              {c.getValue() ? (
+                TOPOLOGY_NAMES[c.getValue() as TopologyId]
+              ) : (
+                <span className="text-stop-700">
+                  <span aria-hidden="true">✕ </span>None feasible
+                </span>
+              )}
               <br />
               <span className="text-xs text-ink-faint">{s.feasibleCount} feasible</span>
             </>
           );
         },
       }),
-      column.accessor((r) => r.summary?.efficiencyNominal ?? null, { id: 'efficiency', header: 'Efficiency', enableSorting: false, cell: (c) => (c.getValue() === null ? '—' : percent(c.getValue()!)) }),
-      column.accessor((r) => r.summary?.dissipationMaxW ?? null, { id: 'heat', header: 'Worst heat', enableSorting: false, cell: (c) => (c.getValue() === null ? '—' : formatSi(c.getValue()!, 'W')) }),
-      column.accessor((r) => r.summary?.partCount ?? null, { id: 'parts', header: 'Parts', enableSorting: false, cell: (c) => c.getValue() ?? '—' }),
-      column.accessor((r) => r.summary?.costCents ?? null, { id: 'cost', header: 'Parts cost', enableSorting: false, cell: (c) => (c.getValue() === null ? '—' : formatMoney(c.getValue()!, currency)) }),
+      column.accessor((r) => r.summary?.efficiencyNominal ?? null, {
+        id: 'efficiency',
+        header: 'Efficiency',
+        enableSorting: false,
+        cell: (c) => (c.getValue() === null ? '—' : percent(c.getValue()!)),
+      }),
+      column.accessor((r) => r.summary?.dissipationMaxW ?? null, {
+        id: 'heat',
+        header: 'Worst heat',
+        enableSorting: false,
+        cell: (c) => (c.getValue() === null ? '—' : formatSi(c.getValue()!, 'W')),
+      }),
+      column.accessor((r) => r.summary?.partCount ?? null, {
+        id: 'parts',
+        header: 'Parts',
+        enableSorting: false,
+        cell: (c) => c.getValue() ?? '—',
+      }),
+      column.accessor((r) => r.summary?.costCents ?? null, {
+        id: 'cost',
+        header: 'Parts cost',
+        enableSorting: false,
+        cell: (c) => (c.getValue() === null ? '—' : formatMoney(c.getValue()!, currency)),
+      }),
     ],
     [currency],
   );
@@ -148,13 +186,25 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           <label htmlFor="desk-q" className="text-sm font-semibold">
             Search
           </label>
-          <input id="desk-q" type="search" value={search} onChange={(e) => setSearch(e.target.value)} placeholder="Title, client or company" className={controlClass} />
+          <input
+            id="desk-q"
+            type="search"
+            value={search}
+            onChange={(e) => setSearch(e.target.value)}
+            placeholder="Title, client or company"
+            className={controlClass}
+          />
         </div>
         <div className="flex flex-col gap-1">
           <label htmlFor="desk-status" className="text-sm font-semibold">
             State
           </label>
-          <select id="desk-status" value={view.status} onChange={(e) => setView((v) => ({ ...v, status: e.target.value, page: 1 }))} className={controlClass}>
+          <select
+            id="desk-status"
+            value={view.status}
+            onChange={(e) => setView((v) => ({ ...v, status: e.target.value, page: 1 }))}
+            className={controlClass}
+          >
             <option value="">All states</option>
             {BRIEF_STATUSES.map((s) => (
               <option key={s} value={s}>
@@ -167,7 +217,12 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           <label htmlFor="desk-client" className="text-sm font-semibold">
             Client
           </label>
-          <select id="desk-client" value={view.client} onChange={(e) => setView((v) => ({ ...v, client: e.target.value, page: 1 }))} className={controlClass}>
+          <select
+            id="desk-client"
+            value={view.client}
+            onChange={(e) => setView((v) => ({ ...v, client: e.target.value, page: 1 }))}
+            className={controlClass}
+          >
             <option value="">All clients</option>
             {clients.map((c) => (
               <option key={c.id} value={c.id}>
@@ -177,7 +232,13 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           </select>
         </div>
         <p className="ml-auto text-sm text-ink-soft" aria-live="polite">
-          {loading ? 'Loading…' : failure ? <span className="text-stop-700">{failure}</span> : `${shownFrom}–${shownTo} of ${data.total} brief${data.total === 1 ? '' : 's'}`}
+          {loading ? (
+            'Loading…'
+          ) : failure ? (
+            <span className="text-stop-700">{failure}</span>
+          ) : (
+            `${shownFrom}–${shownTo} of ${data.total} brief${data.total === 1 ? '' : 's'}`
+          )}
         </p>
       </div>
 
@@ -198,7 +259,11 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
                       aria-sort={sorted ? (sorted === 'desc' ? 'descending' : 'ascending') : undefined}
                     >
                       {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 font-bold hover:text-copper-700">
+                        <button
+                          type="button"
+                          onClick={header.column.getToggleSortingHandler()}
+                          className="inline-flex items-center gap-1 font-bold hover:text-copper-700"
+                        >
                           {label}
                           <span aria-hidden="true">{sorted === 'desc' ? '▼' : sorted === 'asc' ? '▲' : '↕'}</span>
                         </button>
@@ -233,19 +298,34 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
       </div>
 
       <nav aria-label="Pages" className="mt-4 flex flex-wrap items-center gap-3 text-sm">
-        <button type="button" className={controlClass} onClick={() => setView((v) => ({ ...v, page: v.page - 1 }))} disabled={view.page <= 1 || loading}>
+        <button
+          type="button"
+          className={controlClass}
+          onClick={() => setView((v) => ({ ...v, page: v.page - 1 }))}
+          disabled={view.page <= 1 || loading}
+        >
           ← Previous
         </button>
         <span>
           Page {view.page} of {pageCount}
         </span>
-        <button type="button" className={controlClass} onClick={() => setView((v) => ({ ...v, page: v.page + 1 }))} disabled={view.page >= pageCount || loading}>
+        <button
+          type="button"
+          className={controlClass}
+          onClick={() => setView((v) => ({ ...v, page: v.page + 1 }))}
+          disabled={view.page >= pageCount || loading}
+        >
           Next →
         </button>
         <label htmlFor="desk-size" className="ml-4">
           Rows per page
         </label>
-        <select id="desk-size" value={view.pageSize} onChange={(e) => setView((v) => ({ ...v, pageSize: Number(e.target.value), page: 1 }))} className={controlClass}>
+        <select
+          id="desk-size"
+          value={view.pageSize}
+          onChange={(e) => setView((v) => ({ ...v, pageSize: Number(e.target.value), page: 1 }))}
+          className={controlClass}
+        >
           {PAGE_SIZES.map((n) => (
             <option key={n} value={n}>
               {n}

@@ -21,18 +21,32 @@ export function PartList({ option, currency }: { option: Option; currency: strin
             <th scope="col">Ref</th>
             <th scope="col">Role</th>
             <th scope="col">Part</th>
-            <th scope="col" className="num">Value</th>
-            <th scope="col" className="num">Rating</th>
-            <th scope="col" className="num">Tolerance</th>
-            <th scope="col" className="num">Worst</th>
-            <th scope="col" className="num">Fault</th>
-            <th scope="col" className="num">Cost</th>
+            <th scope="col" className="num">
+              Value
+            </th>
+            <th scope="col" className="num">
+              Rating
+            </th>
+            <th scope="col" className="num">
+              Tolerance
+            </th>
+            <th scope="col" className="num">
+              Worst
+            </th>
+            <th scope="col" className="num">
+              Fault
+            </th>
+            <th scope="col" className="num">
+              Cost
+            </th>
           </tr>
         </thead>
         <tbody>
           {option.components.map((c) => {
             const p = heat.get(c.ref);
-            const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null].filter(Boolean).join(', ');
+            const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null]
+              .filter(Boolean)
+              .join(', ');
             return (
               <tr key={c.ref}>
                 <th scope="row" className="border-b border-rule font-mono text-ink">

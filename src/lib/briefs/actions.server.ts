@@ -48,8 +48,13 @@ export async function createBrief(owner: SignedInUser, body: CreateBrief): Promi
       })
       .returning();
     if (!created) throw new Error('Insert returned no row');
-    await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: created.id, fromStatus: null, toStatus: 'draft', actorId: owner.id });
-    if (checked?.ok) await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: created.id, fromStatus: 'draft', toStatus: 'submitted', actorId: owner.id });
+    await tx
+      .insert(stateChange)
+      .values({ subjectType: 'brief', subjectId: created.id, fromStatus: null, toStatus: 'draft', actorId: owner.id });
+    if (checked?.ok)
+      await tx
+        .insert(stateChange)
+        .values({ subjectType: 'brief', subjectId: created.id, fromStatus: 'draft', toStatus: 'submitted', actorId: owner.id });
     return created;
   });
   if (row.status === 'submitted') await notifySubmitted(row);
@@ -68,7 +73,11 @@ interface DraftEdit {
 export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: DraftEdit): Promise<ActionResult<BriefRow>> {
   const changesContent = edit.title !== undefined || edit.spec !== undefined || edit.notes !== undefined || edit.submit === true;
   if (changesContent && row.status !== 'draft') {
-    return { ok: false, status: 409, message: 'Only a draft can be changed. This brief has been submitted; write to the consultancy to change it.' };
+    return {
+      ok: false,
+      status: 409,
+      message: 'Only a draft can be changed. This brief has been submitted; write to the consultancy to change it.',
+    };
   }
   if (edit.status === 'cancelled') {
     const moved = await db.transaction((tx) => moveBrief(tx, row, 'cancelled', 'owner', owner.id));

@@ -58,7 +58,9 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
         clientName: user.name,
         company: clientProfile.company,
         // The highest voltage on the rail, so the desk can flag hazardous ones before a brief is opened.
-        highestV: sql<number | null>`max(coalesce(json_extract(${brief.spec}, '$.input.vMax'), 0), coalesce(json_extract(${brief.spec}, '$.output.v'), 0))`,
+        highestV: sql<
+          number | null
+        >`max(coalesce(json_extract(${brief.spec}, '$.input.vMax'), 0), coalesce(json_extract(${brief.spec}, '$.output.v'), 0))`,
       })
       .from(brief)
       .innerJoin(user, eq(user.id, brief.ownerId))

@@ -60,7 +60,8 @@ class BriefUnavailable extends Error {
 export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadInput): Promise<SaveOutcome> {
   const { bytes } = input;
   if (bytes.length === 0) return { ok: false, reason: 'invalid', error: 'invalid_upload', path: 'file', message: 'The file is empty.' };
-  if (bytes.length > MAX_UPLOAD_BYTES) return { ok: false, reason: 'too_large', message: `The file is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` };
+  if (bytes.length > MAX_UPLOAD_BYTES)
+    return { ok: false, reason: 'too_large', message: `The file is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` };
 
   const verdict = await decideUploadType(bytes, input.name, input.kind);
   if (!verdict.ok) return { ok: false, reason: 'type_not_accepted', message: verdict.message };

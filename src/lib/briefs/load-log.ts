@@ -26,8 +26,20 @@ export type LoadLogResult = { ok: true; summary: LoadSummary } | { ok: false; me
 export const MAX_LOAD_LOG_SAMPLES = 1_000_000;
 export const PLOT_POINTS = 400;
 
-const TIME_UNITS: Record<string, number> = { s: 1, sec: 1, secs: 1, seconds: 1, ms: 1e-3, us: 1e-6, 'µs': 1e-6, 'μs': 1e-6, ns: 1e-9, min: 60, h: 3600 };
-const CURRENT_UNITS: Record<string, number> = { a: 1, amp: 1, amps: 1, ma: 1e-3, ua: 1e-6, 'µa': 1e-6, 'μa': 1e-6, na: 1e-9 };
+const TIME_UNITS: Record<string, number> = {
+  s: 1,
+  sec: 1,
+  secs: 1,
+  seconds: 1,
+  ms: 1e-3,
+  us: 1e-6,
+  µs: 1e-6,
+  μs: 1e-6,
+  ns: 1e-9,
+  min: 60,
+  h: 3600,
+};
+const CURRENT_UNITS: Record<string, number> = { a: 1, amp: 1, amps: 1, ma: 1e-3, ua: 1e-6, µa: 1e-6, μa: 1e-6, na: 1e-9 };
 const KNOWN_UNIT = (u: string) => u in TIME_UNITS || u in CURRENT_UNITS;
 
 const TIME_NAME = /^(t|time|timestamp|elapsed)\b/i;
@@ -53,7 +65,8 @@ function readHeaderCell(raw: string): HeaderCell {
   const bracketed = /^(.*?)[([]\s*([^)\]]*?)\s*[)\]]\s*$/.exec(text);
   if (bracketed) return { text, name: bracketed[1]!.trim(), unit: bracketed[2]!.toLowerCase(), unitText: bracketed[2]! };
   const trailing = /^(.*?)[\s_/]+([a-zA-Zµμ]+)$/.exec(text);
-  if (trailing && KNOWN_UNIT(trailing[2]!.toLowerCase())) return { text, name: trailing[1]!.trim(), unit: trailing[2]!.toLowerCase(), unitText: trailing[2]! };
+  if (trailing && KNOWN_UNIT(trailing[2]!.toLowerCase()))
+    return { text, name: trailing[1]!.trim(), unit: trailing[2]!.toLowerCase(), unitText: trailing[2]! };
   return { text, name: text, unit: null, unitText: '' };
 }
 
@@ -70,11 +83,17 @@ function columnsFromHeader(cells: HeaderCell[]): { ok: true; columns: Columns } 
   const currentCell = cells[current]!;
   const timeScale = timeCell.unit === null ? 1 : TIME_UNITS[timeCell.unit];
   if (timeScale === undefined) {
-    return { ok: false, message: `The time column's header "${timeCell.text}" gives the unit "${timeCell.unitText}"; use s, ms, us, ns, min or h.` };
+    return {
+      ok: false,
+      message: `The time column's header "${timeCell.text}" gives the unit "${timeCell.unitText}"; use s, ms, us, ns, min or h.`,
+    };
   }
   const currentScale = currentCell.unit === null ? 1 : CURRENT_UNITS[currentCell.unit];
   if (currentScale === undefined) {
-    return { ok: false, message: `The current column's header "${currentCell.text}" gives the unit "${currentCell.unitText}"; use A, mA, uA or nA.` };
+    return {
+      ok: false,
+      message: `The current column's header "${currentCell.text}" gives the unit "${currentCell.unitText}"; use A, mA, uA or nA.`,
+    };
   }
   return {
     ok: true,
@@ -138,7 +157,10 @@ function readSeries(text: string): { ok: true; series: Series } | { ok: false; m
 
       if (columns === null) {
         if (row.length < 2) {
-          return fail('The log has only one column; it needs a time column and a current column separated by a comma, semicolon or tab.', parser);
+          return fail(
+            'The log has only one column; it needs a time column and a current column separated by a comma, semicolon or tab.',
+            parser,
+          );
         }
         // A header has words in both leading cells; one number there means a data row with a bad cell.
         if (isNumeric(row[0]) || isNumeric(row[1])) {
@@ -152,11 +174,13 @@ function readSeries(text: string): { ok: true; series: Series } | { ok: false; m
       }
 
       const needed = Math.max(columns.time, columns.current) + 1;
-      if (row.length < needed) return fail(`Row ${line} has ${row.length} column${row.length === 1 ? '' : 's'}; expected a time and a current.`, parser);
+      if (row.length < needed)
+        return fail(`Row ${line} has ${row.length} column${row.length === 1 ? '' : 's'}; expected a time and a current.`, parser);
       const value = (index: number, label: string, scale: number): number | string => {
         const cell = row[index]!.trim();
         if (cell === '') return `Row ${line}: the ${label} cell is empty.`;
-        if (DECIMAL_COMMA.test(cell)) return `Row ${line}: the ${label} "${cell}" uses a decimal comma; write decimals with a point, e.g. ${cell.replace(',', '.')}.`;
+        if (DECIMAL_COMMA.test(cell))
+          return `Row ${line}: the ${label} "${cell}" uses a decimal comma; write decimals with a point, e.g. ${cell.replace(',', '.')}.`;
         if (!NUMBER.test(cell)) return `Row ${line}: the ${label} "${cell}" is not a number.`;
         const scaled = Number(cell) * scale;
         return Number.isFinite(scaled) ? scaled : `Row ${line}: the ${label} "${cell}" is too large.`;
@@ -167,12 +191,23 @@ function readSeries(text: string): { ok: true; series: Series } | { ok: false; m
       if (typeof i === 'string') return fail(i, parser);
 
       if (i < 0) {
-        return fail(`Row ${line}: the current ${row[columns.current]!.trim()} is negative; a load log records the current the load draws, which is never below zero (if the probe was reversed, flip the sign of the column).`, parser);
+        return fail(
+          `Row ${line}: the current ${row[columns.current]!.trim()} is negative; a load log records the current the load draws, which is never below zero (if the probe was reversed, flip the sign of the column).`,
+          parser,
+        );
       }
       if (series.length > 0) {
         const previous = series.t[series.length - 1]!;
-        if (t === previous) return fail(`Row ${line}: the time ${row[columns.time]!.trim()} repeats the previous row's; times must increase from row to row.`, parser);
-        if (t < previous) return fail(`Row ${line}: the time ${row[columns.time]!.trim()} is earlier than the previous row's (a negative time step); times must increase from row to row.`, parser);
+        if (t === previous)
+          return fail(
+            `Row ${line}: the time ${row[columns.time]!.trim()} repeats the previous row's; times must increase from row to row.`,
+            parser,
+          );
+        if (t < previous)
+          return fail(
+            `Row ${line}: the time ${row[columns.time]!.trim()} is earlier than the previous row's (a negative time step); times must increase from row to row.`,
+            parser,
+          );
       }
       if (series.length === MAX_LOAD_LOG_SAMPLES) {
         return fail(`The log has more than ${count(MAX_LOAD_LOG_SAMPLES)} samples; thin it out or upload a shorter stretch.`, parser);
@@ -182,7 +217,8 @@ function readSeries(text: string): { ok: true; series: Series } | { ok: false; m
   });
 
   if (failure !== null) return { ok: false, message: failure };
-  if (series.length === 0) return { ok: false, message: 'The file has no numbers; a load log needs rows of time and current, e.g. "0.0,0.12".' };
+  if (series.length === 0)
+    return { ok: false, message: 'The file has no numbers; a load log needs rows of time and current, e.g. "0.0,0.12".' };
   if (series.length === 1) return { ok: false, message: 'The log has only one sample; at least two are needed to span some time.' };
   return { ok: true, series };
 }

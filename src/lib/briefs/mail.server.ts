@@ -8,7 +8,10 @@ import { appUrl } from '../platform/links';
 /** Tells every engineer that a brief arrived; a failed mail is logged and does not undo the submission. */
 export async function notifySubmitted(row: BriefRow): Promise<void> {
   const [staff, owner] = await Promise.all([
-    db.select({ email: user.email }).from(user).where(inArray(user.role, ['engineer'])),
+    db
+      .select({ email: user.email })
+      .from(user)
+      .where(inArray(user.role, ['engineer'])),
     db
       .select({ name: user.name, company: clientProfile.company })
       .from(user)
@@ -26,7 +29,9 @@ export async function notifySubmitted(row: BriefRow): Promise<void> {
         subject: `New brief: ${row.title}`,
         text: [
           `${who} submitted a supply brief: ${row.title}.`,
-          summary?.topology ? `The engine's first pick is ${summary.topology}; review it before anything is promised.` : 'No option is feasible as briefed; it needs an engineer’s look.',
+          summary?.topology
+            ? `The engine's first pick is ${summary.topology}; review it before anything is promised.`
+            : 'No option is feasible as briefed; it needs an engineer’s look.',
           '',
           `Open it: ${appUrl(`/desk/briefs/${row.id}`)}`,
         ].join('\n'),

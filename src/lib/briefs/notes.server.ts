@@ -6,7 +6,11 @@ import { briefNote, user } from '../platform/db/schema';
 
 export const noteRequestSchema = z
   .object({
-    body: z.string().trim().min(1, { error: 'Write something in the note.' }).max(4_000, { error: 'Keep the note under 4 000 characters.' }),
+    body: z
+      .string()
+      .trim()
+      .min(1, { error: 'Write something in the note.' })
+      .max(4_000, { error: 'Keep the note under 4 000 characters.' }),
   })
   .strict();
 

@@ -8,7 +8,11 @@ import { BRIEF_STATUSES } from './status';
 export const DEFAULT_BRIEF_TITLE = 'Untitled supply rail';
 const MAX_SPEC_CHARS = 16_000;
 
-const title = z.string().trim().min(1, { error: 'Give the brief a short title.' }).max(160, { error: 'Keep the title under 160 characters.' });
+const title = z
+  .string()
+  .trim()
+  .min(1, { error: 'Give the brief a short title.' })
+  .max(160, { error: 'Keep the title under 160 characters.' });
 const notes = z.string().max(8_000, { error: 'Keep the notes under 8 000 characters.' });
 
 /** A draft may be incomplete: any JSON object of bounded size; it is checked in full on submit. */

@@ -10,7 +10,13 @@ export type SourceKind = RailSpecInput['input']['source'];
 export const SOURCE_TYPICAL: Record<SourceKind, { vMin: number; vNom: number; vMax: number; rippleVpp: number; hint: string }> = {
   battery: { vMin: 3.0, vNom: 3.7, vMax: 4.2, rippleVpp: 0, hint: 'One Li-ion cell: 4.2 V full, about 3.0 V empty.' },
   adapter: { vMin: 11.4, vNom: 12, vMax: 12.6, rippleVpp: 0.05, hint: 'A regulated 12 V wall adapter, ±5 %.' },
-  rectified: { vMin: 14, vNom: 16, vMax: 18, rippleVpp: 1, hint: 'A transformer, bridge and reservoir capacitor: the trough sets the headroom.' },
+  rectified: {
+    vMin: 14,
+    vNom: 16,
+    vMax: 18,
+    rippleVpp: 1,
+    hint: 'A transformer, bridge and reservoir capacitor: the trough sets the headroom.',
+  },
   bus: { vMin: 18, vNom: 24, vMax: 30, rippleVpp: 0.5, hint: 'A 24 V industrial bus with sags and clamped surges.' },
 };
 

@@ -12,7 +12,10 @@ let cached: { catalog: Catalog; at: number } | null = null;
 export async function currentCatalog(now = Date.now()): Promise<Catalog> {
   if (cached && now - cached.at < FRESH_MS) return cached.catalog;
   // rowid keeps the seeded order, which the engine uses to break ties between classes.
-  const rows = await db.select().from(deviceClass).orderBy(sql`rowid`);
+  const rows = await db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
   const catalog = rows.length === 0 ? defaultCatalog : rowsToCatalog(rows);
   cached = { catalog, at: now };
   return catalog;
@@ -36,7 +39,10 @@ export async function updateDeviceClass(id: string, paramsJson: string, adminId:
   } catch {
     return { ok: false, message: 'The parameters are not valid JSON; check commas, quotes and brackets.' };
   }
-  const rows = await db.select().from(deviceClass).orderBy(sql`rowid`);
+  const rows = await db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
   const target = rows.find((row) => row.id === id);
   if (!target) return { ok: false, message: 'That device class no longer exists.' };
   const edited = rows.map((row) => (row.id === id ? { ...row, params } : row));
@@ -52,5 +58,8 @@ export async function updateDeviceClass(id: string, paramsJson: string, adminId:
 }
 
 export async function listDeviceClasses() {
-  return db.select().from(deviceClass).orderBy(sql`rowid`);
+  return db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
 }

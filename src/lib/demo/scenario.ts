@@ -20,9 +20,21 @@ export const DEMO_PEOPLE: DemoPerson[] = [
   { key: 'admin', name: 'Maren Holt', email: 'admin@demo.railwright.test', role: 'admin' },
   { key: 'engineer', name: 'Idris Valcourt', email: 'engineer@demo.railwright.test', role: 'engineer' },
   { key: 'client', name: 'Priya Anand', email: 'client@demo.railwright.test', role: 'client', company: 'Fernhill Sensing Ltd' },
-  { key: 'quillon', name: 'Jonas Brekke', email: 'jonas@quillon.demo.railwright.test', role: 'client', company: 'Quillon Bench Instruments' },
+  {
+    key: 'quillon',
+    name: 'Jonas Brekke',
+    email: 'jonas@quillon.demo.railwright.test',
+    role: 'client',
+    company: 'Quillon Bench Instruments',
+  },
   { key: 'harrow', name: 'Lucía Ferrand', email: 'lucia@harrowgate.demo.railwright.test', role: 'client', company: 'Harrowgate Controls' },
-  { key: 'aster', name: 'Dr Tomasz Wren', email: 'wren@asterlab.demo.railwright.test', role: 'client', company: 'Aster Detector Laboratory' },
+  {
+    key: 'aster',
+    name: 'Dr Tomasz Wren',
+    email: 'wren@asterlab.demo.railwright.test',
+    role: 'client',
+    company: 'Aster Detector Laboratory',
+  },
 ];
 
 export interface DemoBrief {

@@ -6,13 +6,23 @@ import { railSpecSchema } from '../engine/rail-spec';
 import { defaultCatalog } from '../engine/catalog';
 import { evaluate } from '../engine/evaluate';
 import { catalogToRows } from '~/lib/catalog';
-import { account, brief, clientProfile, designRevision, deviceClass, payment, quote, rateCard, stateChange, user } from '../platform/db/schema';
+import {
+  account,
+  brief,
+  clientProfile,
+  designRevision,
+  deviceClass,
+  payment,
+  quote,
+  rateCard,
+  stateChange,
+  user,
+} from '../platform/db/schema';
 import { draftQuote } from '~/lib/quotes/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';
 
 const DAY = 86_400_000;
-
 
 /**
  * The quote of a demo brief, drafted the way the quote builder drafts one, then
@@ -20,7 +30,15 @@ const DAY = 86_400_000;
  */
 async function seedQuote(
   tx: Transaction,
-  p: { briefId: string; finalStatus: DemoBrief['status']; revisionId: string; engineerId: string; ownerId: string; plan: 'sent' | 'deposit-paid'; at: Date },
+  p: {
+    briefId: string;
+    finalStatus: DemoBrief['status'];
+    revisionId: string;
+    engineerId: string;
+    ownerId: string;
+    plan: 'sent' | 'deposit-paid';
+    at: Date;
+  },
 ) {
   // Drafting needs a brief still under review; the scenario's state is restored right after.
   await tx.update(brief).set({ status: 'in-review' }).where(eq(brief.id, p.briefId));
@@ -47,7 +65,9 @@ async function seedQuote(
     await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.quote.id));
   }
   for (const [from, to, actorId, at] of steps) {
-    await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: drafted.quote.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
+    await tx
+      .insert(stateChange)
+      .values({ subjectType: 'quote', subjectId: drafted.quote.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
   }
 }
 
@@ -73,8 +93,24 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
     for (const person of DEMO_PEOPLE) {
       const id = idOf(person.key);
       const joined = new Date(now - 40 * DAY);
-      await tx.insert(user).values({ id, name: person.name, email: person.email, emailVerified: true, role: person.role, createdAt: joined, updatedAt: joined });
-      await tx.insert(account).values({ id: crypto.randomUUID(), accountId: id, providerId: 'credential', userId: id, password: passwordHash, createdAt: joined, updatedAt: joined });
+      await tx.insert(user).values({
+        id,
+        name: person.name,
+        email: person.email,
+        emailVerified: true,
+        role: person.role,
+        createdAt: joined,
+        updatedAt: joined,
+      });
+      await tx.insert(account).values({
+        id: crypto.randomUUID(),
+        accountId: id,
+        providerId: 'credential',
+        userId: id,
+        password: passwordHash,
+        createdAt: joined,
+        updatedAt: joined,
+      });
       if (person.company) await tx.insert(clientProfile).values({ userId: id, company: person.company });
     }
     await tx.insert(rateCard).values({ ...DEMO_RATE_CARD, updatedBy: idOf('admin') });
@@ -117,7 +153,16 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           note: item.revisionNote,
           createdAt: revisedAt,
         });
-        if (item.quote) await seedQuote(tx, { briefId, finalStatus: item.status, revisionId, engineerId, ownerId, plan: item.quote, at: new Date(revisedAt.getTime() + DAY) });
+        if (item.quote)
+          await seedQuote(tx, {
+            briefId,
+            finalStatus: item.status,
+            revisionId,
+            engineerId,
+            ownerId,
+            plan: item.quote,
+            at: new Date(revisedAt.getTime() + DAY),
+          });
       }
       const steps = lifecycleTo(item.status);
       let at = submittedAt?.getTime() ?? createdAt.getTime();

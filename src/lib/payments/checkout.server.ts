@@ -5,10 +5,7 @@ import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { appUrl } from '../platform/links';
 import { paymentProvider } from './provider.server';
 
-export type CheckoutOutcome =
-  | { ok: true; url: string }
-  | { ok: false; status: 404 | 409; message: string };
-
+export type CheckoutOutcome = { ok: true; url: string } | { ok: false; status: 404 | 409; message: string };
 
 /** The quote if this client owns it and it has been sent (drafts stay with the consultancy), else null → 404. */
 export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): Promise<QuoteRow | null> {
@@ -31,16 +28,25 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
   const row = await findQuoteForPayer(viewer, quoteId);
   if (!row) return { ok: false, status: 404, message: 'No such quote.' };
   if (row.status === 'deposit-paid') return { ok: false, status: 409, message: 'The deposit for this quote is already paid.' };
-  if (row.status !== 'accepted') return { ok: false, status: 409, message: 'Accept the quote first; the deposit is paid on an accepted quote.' };
-  if (row.validUntil.getTime() < now.getTime()) return { ok: false, status: 409, message: 'This quote has expired; ask the consultancy for a new one.' };
+  if (row.status !== 'accepted')
+    return { ok: false, status: 409, message: 'Accept the quote first; the deposit is paid on an accepted quote.' };
+  if (row.validUntil.getTime() < now.getTime())
+    return { ok: false, status: 409, message: 'This quote has expired; ask the consultancy for a new one.' };
   if (row.depositMinor <= 0) return { ok: false, status: 409, message: 'This quote asks for no deposit.' };
 
   const provider = paymentProvider();
-  const [pending] = await db.select().from(payment).where(and(eq(payment.quoteId, row.id), eq(payment.status, 'pending'))).limit(1);
+  const [pending] = await db
+    .select()
+    .from(payment)
+    .where(and(eq(payment.quoteId, row.id), eq(payment.status, 'pending')))
+    .limit(1);
   if (pending) {
     const session = await provider.checkout.sessions.retrieve(pending.checkoutSessionId);
     if (session.status === 'open' && session.url) return { ok: true, url: session.url };
-    await db.update(payment).set({ status: 'expired' }).where(and(eq(payment.id, pending.id), eq(payment.status, 'pending')));
+    await db
+      .update(payment)
+      .set({ status: 'expired' })
+      .where(and(eq(payment.id, pending.id), eq(payment.status, 'pending')));
   }
 
   const [attempts] = await db.select({ n: count() }).from(payment).where(eq(payment.quoteId, row.id));

@@ -14,7 +14,11 @@ export type WebhookOutcome = 'duplicate' | 'ignored' | 'unknown-session' | 'alre
  */
 export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOutcome> {
   const outcome = await db.transaction(async (tx) => {
-    const recorded = await tx.insert(webhookEvent).values({ id: event.id, type: event.type, outcome: 'pending' }).onConflictDoNothing().returning();
+    const recorded = await tx
+      .insert(webhookEvent)
+      .values({ id: event.id, type: event.type, outcome: 'pending' })
+      .onConflictDoNothing()
+      .returning();
     if (recorded.length === 0) return { result: 'duplicate' as const };
 
     const finish = async (result: WebhookOutcome, paidPaymentId?: string) => {
@@ -42,9 +46,16 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOut
     const [quoteRow] = await tx.select().from(quote).where(eq(quote.id, found.quoteId)).limit(1);
     if (quoteRow && quoteRow.status !== 'deposit-paid') {
       await tx.update(quote).set({ status: 'deposit-paid', updatedAt: new Date() }).where(eq(quote.id, quoteRow.id));
-      await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: quoteRow.id, fromStatus: quoteRow.status, toStatus: 'deposit-paid', note: `Payment ${paymentIntent ?? session.id}` });
+      await tx.insert(stateChange).values({
+        subjectType: 'quote',
+        subjectId: quoteRow.id,
+        fromStatus: quoteRow.status,
+        toStatus: 'deposit-paid',
+        note: `Payment ${paymentIntent ?? session.id}`,
+      });
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, quoteRow.briefId)).limit(1);
-      if (briefRow && briefRow.status === 'accepted') await moveBrief(tx, briefRow, 'deposit-paid', 'system', null, 'Deposit received online');
+      if (briefRow && briefRow.status === 'accepted')
+        await moveBrief(tx, briefRow, 'deposit-paid', 'system', null, 'Deposit received online');
     }
     return finish('deposit-paid', found.id);
   });

@@ -74,7 +74,12 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Dra
   const card = await readRateCard(db);
   if (!card) return { ok: false, status: 409, message: 'There is no rate card yet; an admin sets one on the rate card page.' };
   const revision = found.revision;
-  const facts = designFacts({ topology: revision.topology, number: revision.number, input: revision.input as RailSpec, result: revision.result as Evaluation });
+  const facts = designFacts({
+    topology: revision.topology,
+    number: revision.number,
+    input: revision.input as RailSpec,
+    result: revision.result as Evaluation,
+  });
   if (!facts) return { ok: false, status: 409, message: `Revision ${revision.number} holds no design for ${revision.topology}.` };
   const lines = draftLines(card, facts, quantity);
   const year = now.getUTCFullYear();
@@ -107,7 +112,14 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Dra
     if (!inserted) throw new Error('Insert returned no quote');
     const totals = await writeLines(tx, inserted.id, lines, card.taxRateBp, card.depositBp);
     const [priced] = await tx.update(quote).set(totals).where(eq(quote.id, inserted.id)).returning();
-    await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: inserted.id, fromStatus: null, toStatus: 'draft', actorId: request.createdBy, createdAt: now });
+    await tx.insert(stateChange).values({
+      subjectType: 'quote',
+      subjectId: inserted.id,
+      fromStatus: null,
+      toStatus: 'draft',
+      actorId: request.createdBy,
+      createdAt: now,
+    });
     return priced ?? inserted;
   });
   return { ok: true, quote: created };
@@ -119,7 +131,13 @@ export async function quoteLines(db: DbOrTx, quoteId: string): Promise<QuoteLine
 }
 
 /** Moves a quote between states when it is still in the state read; records who did it. */
-export async function moveQuote(tx: DbOrTx, row: QuoteRow, to: QuoteRow['status'], actorId: string | null, extra: Partial<typeof quote.$inferInsert> = {}) {
+export async function moveQuote(
+  tx: DbOrTx,
+  row: QuoteRow,
+  to: QuoteRow['status'],
+  actorId: string | null,
+  extra: Partial<typeof quote.$inferInsert> = {},
+) {
   const [updated] = await tx
     .update(quote)
     .set({ status: to, updatedAt: new Date(), ...extra })

@@ -37,7 +37,14 @@ function section(title: Node, block: Node, rows: number): Node {
 function pairs(rows: Row[]): Node {
   return {
     table: { widths: [150, '*'], body: rows.map((r) => [text(r.label, { color: SOFT, bold: true }), text(r.value)]) },
-    layout: { hLineWidth: (i: number) => (i === 0 ? 0 : 0.5), vLineWidth: () => 0, hLineColor: () => RULE, paddingLeft: () => 0, paddingTop: () => 4, paddingBottom: () => 4 },
+    layout: {
+      hLineWidth: (i: number) => (i === 0 ? 0 : 0.5),
+      vLineWidth: () => 0,
+      hLineColor: () => RULE,
+      paddingLeft: () => 0,
+      paddingTop: () => 4,
+      paddingBottom: () => 4,
+    },
   };
 }
 
@@ -116,23 +123,45 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
   const designPart: Node[] = design
     ? [
         heading('The design we propose'),
-        text(`${design.topologyName}${design.feasible ? '' : ' (kept for comparison: it does not meet every requirement of the brief)'}`, { bold: true, fontSize: 11, margin: [0, 0, 0, 4] }),
+        text(`${design.topologyName}${design.feasible ? '' : ' (kept for comparison: it does not meet every requirement of the brief)'}`, {
+          bold: true,
+          fontSize: 11,
+          margin: [0, 0, 0, 4],
+        }),
         ...(view.revision.note ? [text(`Engineer’s note: ${view.revision.note}`, { color: SOFT, margin: [0, 0, 0, 6] })] : []),
         pairs(design.figures),
-        section({ text: 'Part list', style: 'h3', margin: [0, 12, 0, 4] }, {
-          table: {
-            headerRows: 1,
-            widths: [32, '*', 60, 90, 24],
-            body: [
-              ['Ref', 'Part', 'Value', 'Rating', 'Qty'].map((h, i) => ({ text: h, bold: true, color: SOFT, alignment: i === 4 ? 'right' : 'left' })),
-              ...design.parts.map((p) => [text(p.ref, { bold: true }), text(p.part), text(p.value), text(p.rating), { text: String(p.quantity), alignment: 'right' }]),
-            ],
+        section(
+          { text: 'Part list', style: 'h3', margin: [0, 12, 0, 4] },
+          {
+            table: {
+              headerRows: 1,
+              widths: [32, '*', 60, 90, 24],
+              body: [
+                ['Ref', 'Part', 'Value', 'Rating', 'Qty'].map((h, i) => ({
+                  text: h,
+                  bold: true,
+                  color: SOFT,
+                  alignment: i === 4 ? 'right' : 'left',
+                })),
+                ...design.parts.map((p) => [
+                  text(p.ref, { bold: true }),
+                  text(p.part),
+                  text(p.value),
+                  text(p.rating),
+                  { text: String(p.quantity), alignment: 'right' },
+                ]),
+              ],
+            },
+            layout: ledger,
+            fontSize: 8.5,
           },
-          layout: ledger,
-          fontSize: 8.5,
-        }, design.parts.length),
+          design.parts.length,
+        ),
       ]
-    : [heading('The design we propose'), text('The design of this revision could not be read; ask the consultancy for the design summary.')];
+    : [
+        heading('The design we propose'),
+        text('The design of this revision could not be read; ask the consultancy for the design summary.'),
+      ];
 
   const safety: Node = {
     margin: [0, 16, 0, 0],
@@ -146,16 +175,22 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
             margin: [8, 6, 8, 8],
             stack: [
               { text: 'Safety', bold: true, color: WARN, fontSize: 11, margin: [0, 0, 0, 4] },
-              ...(design?.cautions.length
-                ? [{ ul: design.cautions.map((c) => text(c)), margin: [0, 0, 0, 6] }]
-                : []),
+              ...(design?.cautions.length ? [{ ul: design.cautions.map((c) => text(c)), margin: [0, 0, 0, 6] }] : []),
               text(SAFETY_NOTE, { color: INK }),
             ],
           },
         ],
       ],
     },
-    layout: { hLineWidth: () => 0, vLineWidth: (i: number) => (i === 0 ? 2.5 : 0), vLineColor: () => WARN, paddingLeft: () => 0, paddingRight: () => 0, paddingTop: () => 0, paddingBottom: () => 0 },
+    layout: {
+      hLineWidth: () => 0,
+      vLineWidth: (i: number) => (i === 0 ? 2.5 : 0),
+      vLineColor: () => WARN,
+      paddingLeft: () => 0,
+      paddingRight: () => 0,
+      paddingTop: () => 0,
+      paddingBottom: () => 0,
+    },
   };
 
   const lines: Node = {
@@ -163,7 +198,12 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       headerRows: 1,
       widths: ['*', 44, 34, 70, 74],
       body: [
-        ['Description', 'Qty', 'Unit', 'Unit price', 'Amount'].map((h, i) => ({ text: h, bold: true, color: SOFT, alignment: i === 0 || i === 2 ? 'left' : 'right' })),
+        ['Description', 'Qty', 'Unit', 'Unit price', 'Amount'].map((h, i) => ({
+          text: h,
+          bold: true,
+          color: SOFT,
+          alignment: i === 0 || i === 2 ? 'left' : 'right',
+        })),
         ...view.lines.map((l) => [
           text(l.description),
           { text: formatQuantity(l.quantityMilli), alignment: 'right' },
@@ -195,13 +235,29 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
             totalsRow(`Deposit on acceptance (${formatBp(quote.depositBp)})`, money(quote.depositMinor), true),
           ],
         },
-        layout: { hLineWidth: (i: number) => (i === 2 ? 1.2 : 0), vLineWidth: () => 0, hLineColor: () => INK, paddingTop: () => 3, paddingBottom: () => 3 },
+        layout: {
+          hLineWidth: (i: number) => (i === 2 ? 1.2 : 0),
+          vLineWidth: () => 0,
+          hLineColor: () => INK,
+          paddingTop: () => 3,
+          paddingBottom: () => 3,
+        },
       },
     ],
   };
 
   const terms: Node[] = quote.terms.trim()
-    ? [heading('Terms'), { ol: quote.terms.split('\n').map((t) => t.trim()).filter(Boolean).map((t) => text(t)), color: SOFT }]
+    ? [
+        heading('Terms'),
+        {
+          ol: quote.terms
+            .split('\n')
+            .map((t) => t.trim())
+            .filter(Boolean)
+            .map((t) => text(t)),
+          color: SOFT,
+        },
+      ]
     : [];
 
   const accept: Node = {
@@ -209,7 +265,9 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
     unbreakable: true,
     stack: [
       { text: 'Accept and pay the deposit', style: 'h2', margin: [0, 0, 0, 4] },
-      text(`Accept this quote online by ${formatDate(quote.validUntil)}. Once accepted, the deposit of ${money(quote.depositMinor)} is paid on the same page and design work is scheduled.`),
+      text(
+        `Accept this quote online by ${formatDate(quote.validUntil)}. Once accepted, the deposit of ${money(quote.depositMinor)} is paid on the same page and design work is scheduled.`,
+      ),
       { text: options.quoteUrl, link: options.quoteUrl, color: COPPER, decoration: 'underline', margin: [0, 4, 0, 0] },
     ],
   };
@@ -217,7 +275,12 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
   return {
     pageSize: 'A4',
     pageMargins: [48, 44, 48, 56],
-    info: { title: `Quote ${quote.number} — ${view.brief.title}`, author: FIRM.name, subject: 'Quote for a DC supply rail design', creator: FIRM.name },
+    info: {
+      title: `Quote ${quote.number} — ${view.brief.title}`,
+      author: FIRM.name,
+      subject: 'Quote for a DC supply rail design',
+      creator: FIRM.name,
+    },
     // Contextual alternates change nothing in a quote's text but double the time to set it.
     defaultStyle: { font: BASE_FAMILY, fontFeatures: { calt: false }, fontSize: 9.5, lineHeight: 1.25, color: INK },
     styles: { h2: { fontSize: 13, bold: true, color: INK }, h3: { fontSize: 10.5, bold: true, color: INK } },

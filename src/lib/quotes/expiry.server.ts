@@ -30,7 +30,8 @@ export async function expireLapsedQuotes(now = new Date()): Promise<number> {
         .from(quote)
         .where(and(eq(quote.briefId, row.briefId), ne(quote.id, row.id), eq(quote.status, 'sent'), gte(quote.validUntil, now)))
         .limit(1);
-      if (!standing) await moveBrief(tx, briefRow, 'expired', 'system', null, `Quote ${row.number} lapsed on ${formatDate(row.validUntil)}`);
+      if (!standing)
+        await moveBrief(tx, briefRow, 'expired', 'system', null, `Quote ${row.number} lapsed on ${formatDate(row.validUntil)}`);
     });
   }
   return expired;

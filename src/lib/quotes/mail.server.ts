@@ -47,7 +47,10 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
 <p>Dear ${escape(view.client.name)},</p>
 <p>Thank you for your brief “${escape(view.brief.title)}”. Our quote <strong>${escape(quote.number)}</strong> is attached as a PDF.</p>
 <table style="border-collapse:collapse;width:100%;margin:12px 0 18px">${figures
-    .map(([label, value]) => `<tr><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;color:#4a525c">${escape(label)}</td><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;text-align:right;font-weight:700">${escape(value)}</td></tr>`)
+    .map(
+      ([label, value]) =>
+        `<tr><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;color:#4a525c">${escape(label)}</td><td style="padding:6px 0;border-bottom:1px solid #e4dfd6;text-align:right;font-weight:700">${escape(value)}</td></tr>`,
+    )
     .join('')}</table>
 <p style="background:#fcf4e2;border-left:3px solid #8a5a00;padding:10px 12px">${escape(cautionLine)}</p>
 <p style="margin:22px 0"><a href="${escape(quoteUrl)}" style="background:#86421b;color:#ffffff;text-decoration:none;font-weight:700;padding:10px 18px;border-radius:6px">Open the quote</a></p>

@@ -20,11 +20,20 @@ const MAX_PRICE_MINOR = 100_000_000;
 const MAX_QUANTITY_MILLI = MAX_UNITS * 1000;
 
 const hours = (label: string) =>
-  z.number({ error: `${label} must be a number of hours.` }).min(0, `${label} must not be negative.`).max(1000, `${label} must not exceed 1000 h.`);
+  z
+    .number({ error: `${label} must be a number of hours.` })
+    .min(0, `${label} must not be negative.`)
+    .max(1000, `${label} must not exceed 1000 h.`);
 const minor = (label: string) =>
-  z.int({ error: `${label} must be a whole amount in minor units.` }).min(0, `${label} must not be negative.`).max(MAX_PRICE_MINOR, `${label} is too large.`);
+  z
+    .int({ error: `${label} must be a whole amount in minor units.` })
+    .min(0, `${label} must not be negative.`)
+    .max(MAX_PRICE_MINOR, `${label} is too large.`);
 const basisPoints = (label: string) =>
-  z.int({ error: `${label} must be whole basis points.` }).min(0, `${label} must not be negative.`).max(10_000, `${label} must not exceed 100 %.`);
+  z
+    .int({ error: `${label} must be whole basis points.` })
+    .min(0, `${label} must not be negative.`)
+    .max(10_000, `${label} must not exceed 100 %.`);
 
 export const COMPLEXITY_DRIVERS = ['highVoltage', 'tightNoise', 'heatsink', 'perRevision'] as const;
 export type ComplexityDriver = (typeof COMPLEXITY_DRIVERS)[number];
@@ -32,7 +41,12 @@ export type ComplexityDriver = (typeof COMPLEXITY_DRIVERS)[number];
 export const rateCardSchema = z.object({
   currency: z.string().regex(/^[A-Z]{3}$/, 'The currency is a three-letter ISO 4217 code such as EUR.'),
   hourlyRateMinor: minor('The hourly rate'),
-  designHoursByTopology: z.object(Object.fromEntries(topologyIds.map((t) => [t, hours(`Design hours for ${TOPOLOGY_NAMES[t]}`)])) as Record<TopologyId, ReturnType<typeof hours>>),
+  designHoursByTopology: z.object(
+    Object.fromEntries(topologyIds.map((t) => [t, hours(`Design hours for ${TOPOLOGY_NAMES[t]}`)])) as Record<
+      TopologyId,
+      ReturnType<typeof hours>
+    >,
+  ),
   complexityHours: z.object({
     highVoltage: hours('High-voltage design hours'),
     tightNoise: hours('Low-noise design hours'),
@@ -44,7 +58,10 @@ export const rateCardSchema = z.object({
   testReportMinor: minor('The test and report'),
   taxRateBp: basisPoints('The tax rate'),
   depositBp: basisPoints('The deposit'),
-  validityDays: z.int({ error: 'The validity must be a whole number of days.' }).min(1, 'A quote is valid for at least one day.').max(365, 'Keep the validity within a year.'),
+  validityDays: z
+    .int({ error: 'The validity must be a whole number of days.' })
+    .min(1, 'A quote is valid for at least one day.')
+    .max(365, 'Keep the validity within a year.'),
 });
 export type RateCard = z.infer<typeof rateCardSchema>;
 
@@ -54,14 +71,23 @@ export type QuoteLineKind = (typeof QUOTE_LINE_KINDS)[number];
 export const quoteLineSchema = z.object({
   kind: z.enum(QUOTE_LINE_KINDS, { error: `The kind must be one of ${QUOTE_LINE_KINDS.join(', ')}.` }),
   description: z.string().trim().min(1, 'Describe the line.').max(300, 'Keep the description under 300 characters.'),
-  quantityMilli: z.int({ error: 'The quantity is whole thousandths (1.5 → 1500).' }).min(1, 'The quantity must be above zero.').max(MAX_QUANTITY_MILLI, 'The quantity is too large.'),
+  quantityMilli: z
+    .int({ error: 'The quantity is whole thousandths (1.5 → 1500).' })
+    .min(1, 'The quantity must be above zero.')
+    .max(MAX_QUANTITY_MILLI, 'The quantity is too large.'),
   unit: z.string().trim().min(1, 'Name the unit (h, unit, item).').max(20, 'Keep the unit short.'),
   // Negative prices are allowed so a line can be a discount.
-  unitPriceMinor: z.int({ error: 'The unit price is a whole amount in minor units.' }).min(-MAX_PRICE_MINOR, 'The unit price is too large.').max(MAX_PRICE_MINOR, 'The unit price is too large.'),
+  unitPriceMinor: z
+    .int({ error: 'The unit price is a whole amount in minor units.' })
+    .min(-MAX_PRICE_MINOR, 'The unit price is too large.')
+    .max(MAX_PRICE_MINOR, 'The unit price is too large.'),
 });
 export type QuoteLineInput = z.infer<typeof quoteLineSchema>;
 
-const units = z.int({ error: 'The number of units must be a whole number.' }).min(1, 'Quote at least one unit.').max(MAX_UNITS, `Quote at most ${MAX_UNITS} units.`);
+const units = z
+  .int({ error: 'The number of units must be a whole number.' })
+  .min(1, 'Quote at least one unit.')
+  .max(MAX_UNITS, `Quote at most ${MAX_UNITS} units.`);
 
 export const createQuoteSchema = z
   .object({
@@ -107,7 +133,11 @@ export interface QuoteTotals {
 }
 
 /** Tax on the subtotal, deposit on the total including tax; each rounded once, in minor units. */
-export function quoteTotals(lines: readonly Pick<QuoteLineInput, 'quantityMilli' | 'unitPriceMinor'>[], taxRateBp: number, depositBp: number): QuoteTotals {
+export function quoteTotals(
+  lines: readonly Pick<QuoteLineInput, 'quantityMilli' | 'unitPriceMinor'>[],
+  taxRateBp: number,
+  depositBp: number,
+): QuoteTotals {
   const subtotalMinor = lines.reduce((sum, line) => sum + lineTotal(line), 0);
   const taxMinor = divRound(subtotalMinor * taxRateBp, 10_000);
   const totalMinor = subtotalMinor + taxMinor;
@@ -152,8 +182,16 @@ const milli = (value: number) => Math.round(value * 1000);
  * build scale with the number of units.
  */
 export function draftLines(card: RateCard, facts: DesignFacts, quantity: number): QuoteLineInput[] {
-  const hourly = (description: string, h: number): QuoteLineInput => ({ kind: 'design', description, quantityMilli: milli(h), unit: 'h', unitPriceMinor: card.hourlyRateMinor });
-  const lines: QuoteLineInput[] = [hourly(`Design of the ${TOPOLOGY_NAMES[facts.topology].toLowerCase()}`, card.designHoursByTopology[facts.topology])];
+  const hourly = (description: string, h: number): QuoteLineInput => ({
+    kind: 'design',
+    description,
+    quantityMilli: milli(h),
+    unit: 'h',
+    unitPriceMinor: card.hourlyRateMinor,
+  });
+  const lines: QuoteLineInput[] = [
+    hourly(`Design of the ${TOPOLOGY_NAMES[facts.topology].toLowerCase()}`, card.designHoursByTopology[facts.topology]),
+  ];
   if (facts.highVoltage) lines.push(hourly('High-voltage design: creepage, clearance, bleeders', card.complexityHours.highVoltage));
   if (facts.tightNoise) lines.push(hourly('Low-noise design: filtering and layout for the ripple budget', card.complexityHours.tightNoise));
   if (facts.heatsink) lines.push(hourly('Thermal design: heatsink selection and mounting', card.complexityHours.heatsink));
@@ -161,12 +199,37 @@ export function draftLines(card: RateCard, facts: DesignFacts, quantity: number)
     const n = facts.revisionNumber;
     lines.push(hourly(`Design review of ${n} revision${n === 1 ? '' : 's'}`, card.complexityHours.perRevision * n));
   }
-  if (facts.highVoltage) lines.push({ kind: 'hv-review', description: 'High-voltage safety review', quantityMilli: 1000, unit: 'item', unitPriceMinor: card.hvReviewMinor });
+  if (facts.highVoltage)
+    lines.push({
+      kind: 'hv-review',
+      description: 'High-voltage safety review',
+      quantityMilli: 1000,
+      unit: 'item',
+      unitPriceMinor: card.hvReviewMinor,
+    });
   // The engine estimates part cost in hundredths of the currency; convert to this currency's minor unit.
   const partsMinor = divRound(facts.partsCostCents * 10 ** minorDigits(card.currency), 100);
-  lines.push({ kind: 'parts', description: `Parts per unit (${facts.partCount} parts, estimate)`, quantityMilli: quantity * 1000, unit: 'unit', unitPriceMinor: partsMinor });
-  lines.push({ kind: 'prototype', description: 'Prototype build and bring-up per unit', quantityMilli: quantity * 1000, unit: 'unit', unitPriceMinor: card.prototypePerUnitMinor });
-  lines.push({ kind: 'test-report', description: 'Bench test and written report', quantityMilli: 1000, unit: 'item', unitPriceMinor: card.testReportMinor });
+  lines.push({
+    kind: 'parts',
+    description: `Parts per unit (${facts.partCount} parts, estimate)`,
+    quantityMilli: quantity * 1000,
+    unit: 'unit',
+    unitPriceMinor: partsMinor,
+  });
+  lines.push({
+    kind: 'prototype',
+    description: 'Prototype build and bring-up per unit',
+    quantityMilli: quantity * 1000,
+    unit: 'unit',
+    unitPriceMinor: card.prototypePerUnitMinor,
+  });
+  lines.push({
+    kind: 'test-report',
+    description: 'Bench test and written report',
+    quantityMilli: 1000,
+    unit: 'item',
+    unitPriceMinor: card.testReportMinor,
+  });
   return lines.filter((line) => line.quantityMilli > 0);
 }
 

@@ -55,7 +55,11 @@ export async function quotesOfBrief(briefId: string): Promise<QuoteRow[]> {
 /** The newest quote of each brief (sent ones only unless `includeDrafts`), for list pages. */
 export async function latestQuotes(briefIds: readonly string[], includeDrafts = false): Promise<Map<string, QuoteRow>> {
   if (briefIds.length === 0) return new Map();
-  const rows = await db.select().from(quote).where(inArray(quote.briefId, [...briefIds])).orderBy(quote.createdAt);
+  const rows = await db
+    .select()
+    .from(quote)
+    .where(inArray(quote.briefId, [...briefIds]))
+    .orderBy(quote.createdAt);
   const latest = new Map<string, QuoteRow>();
   for (const row of rows) if (includeDrafts || row.status !== 'draft') latest.set(row.briefId, row);
   return latest;
@@ -85,7 +89,14 @@ export function quoteJson(view: QuoteView) {
     acceptedAt: q.acceptedAt?.toISOString() ?? null,
     createdAt: q.createdAt.toISOString(),
     client: view.client,
-    lines: view.lines.map(({ kind, description, quantityMilli, unit, unitPriceMinor, totalMinor }) => ({ kind, description, quantityMilli, unit, unitPriceMinor, totalMinor })),
+    lines: view.lines.map(({ kind, description, quantityMilli, unit, unitPriceMinor, totalMinor }) => ({
+      kind,
+      description,
+      quantityMilli,
+      unit,
+      unitPriceMinor,
+      totalMinor,
+    })),
     requirements: view.requirements,
     design: view.design,
   };
@@ -105,19 +116,41 @@ const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.send
 
 /** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
 export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<QuoteResult<QuoteView>> {
-  if (view.quote.status !== 'draft') return wrong(`Only a draft can be edited; this quote is ${view.status}. Draft a new quote to change it.`);
+  if (view.quote.status !== 'draft')
+    return wrong(`Only a draft can be edited; this quote is ${view.status}. Draft a new quote to change it.`);
   let validUntil: Date | undefined;
   if (patch.validUntil !== undefined) {
     const day = new Date(`${patch.validUntil}T00:00:00Z`);
-    if (Number.isNaN(day.getTime())) return { ok: false, status: 400, error: 'invalid_quote', issues: [{ path: 'validUntil', message: 'That is not a calendar date.' }] };
+    if (Number.isNaN(day.getTime()))
+      return { ok: false, status: 400, error: 'invalid_quote', issues: [{ path: 'validUntil', message: 'That is not a calendar date.' }] };
     validUntil = validUntilFrom(day, 0);
-    if (validUntil.getTime() < now.getTime()) return { ok: false, status: 400, error: 'invalid_quote', issues: [{ path: 'validUntil', message: 'The validity date must be today or later.' }] };
-    if (validUntil.getTime() - now.getTime() > 366 * DAY_MS) return { ok: false, status: 400, error: 'invalid_quote', issues: [{ path: 'validUntil', message: 'Keep the validity within a year.' }] };
+    if (validUntil.getTime() < now.getTime())
+      return {
+        ok: false,
+        status: 400,
+        error: 'invalid_quote',
+        issues: [{ path: 'validUntil', message: 'The validity date must be today or later.' }],
+      };
+    if (validUntil.getTime() - now.getTime() > 366 * DAY_MS)
+      return {
+        ok: false,
+        status: 400,
+        error: 'invalid_quote',
+        issues: [{ path: 'validUntil', message: 'Keep the validity within a year.' }],
+      };
   }
   const taxRateBp = patch.taxRateBp ?? view.quote.taxRateBp;
   const depositBp = patch.depositBp ?? view.quote.depositBp;
   const quantity = patch.quantity ?? view.quote.quantity;
-  const baseLines = patch.lines ?? view.lines.map(({ kind, description, quantityMilli, unit, unitPriceMinor }) => ({ kind, description, quantityMilli, unit, unitPriceMinor }));
+  const baseLines =
+    patch.lines ??
+    view.lines.map(({ kind, description, quantityMilli, unit, unitPriceMinor }) => ({
+      kind,
+      description,
+      quantityMilli,
+      unit,
+      unitPriceMinor,
+    }));
   // Given lines are taken as written; a change of units alone rescales the per-unit lines.
   const lines = patch.quantity !== undefined && patch.lines === undefined ? withQuantity(baseLines, quantity) : baseLines;
 
@@ -159,9 +192,11 @@ export function quotePdf(view: QuoteView): Promise<Buffer> {
  */
 export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new Date()): Promise<QuoteResult<QuoteView>> {
   if (view.quote.status !== 'draft') return wrong(`This quote is ${view.status} already; only a draft is sent.`);
-  if (view.brief.status !== 'in-review') return wrong(`The brief is ${view.brief.status}; take it into review before sending a quote for it.`);
+  if (view.brief.status !== 'in-review')
+    return wrong(`The brief is ${view.brief.status}; take it into review before sending a quote for it.`);
   if (view.quote.totalMinor <= 0) return wrong('The quote totals nothing; add priced lines before sending it.');
-  if (view.quote.validUntil.getTime() < now.getTime()) return wrong(`The validity date ${formatDate(view.quote.validUntil)} has passed; set a new one before sending.`);
+  if (view.quote.validUntil.getTime() < now.getTime())
+    return wrong(`The validity date ${formatDate(view.quote.validUntil)} has passed; set a new one before sending.`);
 
   // Claim the send first: a second click or a second engineer gets a 409 rather than a second e-mail.
   const [claimed] = await db
@@ -179,7 +214,11 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
     .catch((err: unknown) => ({ ok: false as const, error: err instanceof Error ? err.message : String(err) }));
   if (!mailed.ok) {
     await db.update(quote).set({ sendingSince: null }).where(eq(quote.id, view.quote.id));
-    return { ok: false, status: 502, message: `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.` };
+    return {
+      ok: false,
+      status: 502,
+      message: `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.`,
+    };
   }
 
   const marked = await db.transaction(async (tx) => {
@@ -199,11 +238,14 @@ class Refused extends Error {}
 /** The client accepts a sent quote that is still valid; the brief moves to accepted with it. */
 export async function acceptQuote(view: QuoteView, client: SignedInUser, now = new Date()): Promise<QuoteResult<QuoteView>> {
   if (view.brief.ownerId !== client.id) return { ok: false, status: 404, message: 'Nothing here, or it is not yours.' };
-  if (view.quote.status === 'accepted' || view.quote.status === 'deposit-paid') return wrong(`Quote ${view.quote.number} is accepted already.`);
+  if (view.quote.status === 'accepted' || view.quote.status === 'deposit-paid')
+    return wrong(`Quote ${view.quote.number} is accepted already.`);
   if (view.quote.status === 'draft') return wrong('This quote has not been sent yet; it can be accepted once it reaches you.');
   if (view.quote.status !== 'sent') return wrong(`Quote ${view.quote.number} is ${view.status} and cannot be accepted.`);
   if (view.quote.validUntil.getTime() < now.getTime()) {
-    return wrong(`Quote ${view.quote.number} expired on ${formatDate(view.quote.validUntil)}. Reply to the quote e-mail and we will send a fresh one.`);
+    return wrong(
+      `Quote ${view.quote.number} expired on ${formatDate(view.quote.validUntil)}. Reply to the quote e-mail and we will send a fresh one.`,
+    );
   }
   try {
     await db.transaction(async (tx) => {
@@ -211,7 +253,8 @@ export async function acceptQuote(view: QuoteView, client: SignedInUser, now = n
       if (!accepted) throw new Refused(`Quote ${view.quote.number} was accepted meanwhile.`);
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
       const moved = briefRow ? await moveBrief(tx, briefRow, 'accepted', 'system', client.id, `Quote ${view.quote.number} accepted`) : null;
-      if (!moved?.ok) throw new Refused('This quote no longer stands: the brief has moved on. Reply to the quote e-mail and we will sort it out.');
+      if (!moved?.ok)
+        throw new Refused('This quote no longer stands: the brief has moved on. Reply to the quote e-mail and we will sort it out.');
     });
   } catch (err) {
     if (err instanceof Refused) return wrong(err.message);

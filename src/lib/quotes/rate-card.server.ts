@@ -10,7 +10,6 @@ import { rateCard } from '../platform/db/schema';
 import type { FieldIssue } from '../platform/http/responses';
 import { zodIssues } from '../platform/http/validation';
 
-
 const RATE_CARD_ID = 1;
 
 export async function readRateCard(db: DbOrTx): Promise<(RateCard & { updatedAt: Date }) | null> {
@@ -18,13 +17,21 @@ export async function readRateCard(db: DbOrTx): Promise<(RateCard & { updatedAt:
   if (!row) return null;
   const parsed = rateCardSchema.safeParse(row);
   // A stored card that no longer passes the schema is a data fault an admin must fix on the rate card page.
-  if (!parsed.success) throw new Error(`The stored rate card is invalid: ${zodIssues(parsed.error).map((i) => `${i.path}: ${i.message}`).join('; ')}`);
+  if (!parsed.success)
+    throw new Error(
+      `The stored rate card is invalid: ${zodIssues(parsed.error)
+        .map((i) => `${i.path}: ${i.message}`)
+        .join('; ')}`,
+    );
   return { ...parsed.data, updatedAt: row.updatedAt };
 }
 
 export async function saveRateCard(db: DbOrTx, card: RateCard, updatedBy: string): Promise<void> {
   const values = { ...card, updatedBy, updatedAt: new Date() };
-  await db.insert(rateCard).values({ id: RATE_CARD_ID, ...values }).onConflictDoUpdate({ target: rateCard.id, set: values });
+  await db
+    .insert(rateCard)
+    .values({ id: RATE_CARD_ID, ...values })
+    .onConflictDoUpdate({ target: rateCard.id, set: values });
 }
 
 /** Form field names of the rate card page, one per figure. */

@@ -53,10 +53,16 @@ export function requirementRows(spec: RailSpec): Row[] {
   const { input, output, noise, thermal } = spec;
   const tolerance = `${(output.tolerance * 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })} %`;
   return [
-    { label: 'Input supply', value: `${formatSi(input.vMin, 'V')} to ${formatSi(input.vMax, 'V')}, nominal ${formatSi(input.vNom, 'V')} (${SOURCES[input.source] ?? input.source})` },
+    {
+      label: 'Input supply',
+      value: `${formatSi(input.vMin, 'V')} to ${formatSi(input.vMax, 'V')}, nominal ${formatSi(input.vNom, 'V')} (${SOURCES[input.source] ?? input.source})`,
+    },
     { label: 'Input ripple', value: input.rippleVpp > 0 ? formatSi(input.rippleVpp, 'Vpp') : 'none stated' },
     { label: 'Output', value: `${formatSi(output.v, 'V')} ± ${tolerance}` },
-    { label: 'Load current', value: `${formatSi(output.iMin, 'A')} min, ${formatSi(output.iTyp, 'A')} typical, ${formatSi(output.iMax, 'A')} max` },
+    {
+      label: 'Load current',
+      value: `${formatSi(output.iMin, 'A')} min, ${formatSi(output.iTyp, 'A')} typical, ${formatSi(output.iMax, 'A')} max`,
+    },
     { label: 'Ripple limit', value: `${formatSi(noise.maxRippleVpp, 'Vpp')} (${noise.class} load)` },
     { label: 'Ambient', value: `up to ${thermal.ambientMaxC} °C, ${AIRFLOW[thermal.airflow] ?? thermal.airflow}` },
   ];
@@ -67,7 +73,11 @@ function partValue(c: Option['components'][number]): string {
 }
 
 function partRating(c: Option['components'][number]): string {
-  const parts = [c.ratingV !== null ? formatSi(c.ratingV, 'V') : null, c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.tolerance !== null ? `±${percent(c.tolerance, c.tolerance < 0.01 ? 1 : 0)}` : null];
+  const parts = [
+    c.ratingV !== null ? formatSi(c.ratingV, 'V') : null,
+    c.ratingW !== null ? formatSi(c.ratingW, 'W') : null,
+    c.tolerance !== null ? `±${percent(c.tolerance, c.tolerance < 0.01 ? 1 : 0)}` : null,
+  ];
   return parts.filter(Boolean).join(', ') || '—';
 }
 
@@ -84,7 +94,9 @@ export function designSummary(option: Option): DesignSummary {
         ? `needed${option.heatsink.maxThetaSaCW !== null ? `, at most ${option.heatsink.maxThetaSaCW.toFixed(1)} °C/W` : ''}`
         : 'not needed',
     },
-    ...(hottest ? [{ label: 'Hottest part', value: `${hottest.ref} at about ${Math.round(hottest.tjC)} °C (limit ${Math.round(hottest.tjMaxC)} °C)` }] : []),
+    ...(hottest
+      ? [{ label: 'Hottest part', value: `${hottest.ref} at about ${Math.round(hottest.tjC)} °C (limit ${Math.round(hottest.tjMaxC)} °C)` }]
+      : []),
     {
       label: 'Tolerance check',
       value: `${percent(option.monteCarlo.fractionInTolerance, 1)} of ${option.monteCarlo.draws.toLocaleString('en-GB')} simulated builds within tolerance`,

@@ -18,8 +18,20 @@ export const NUMBER_OVERRIDE_KEYS = Object.keys(NUMBER_OVERRIDES) as NumberOverr
 
 export const CHOICE_OVERRIDES = {
   linearClass: { label: 'Regulator class' },
-  passDevice: { label: 'Pass device', options: [['npn', 'NPN transistor'], ['nmos', 'N-MOSFET']] },
-  resistorSeries: { label: 'Resistor series', options: [['E96', 'E96 (1 %)'], ['E24', 'E24 (5 %)']] },
+  passDevice: {
+    label: 'Pass device',
+    options: [
+      ['npn', 'NPN transistor'],
+      ['nmos', 'N-MOSFET'],
+    ],
+  },
+  resistorSeries: {
+    label: 'Resistor series',
+    options: [
+      ['E96', 'E96 (1 %)'],
+      ['E24', 'E24 (5 %)'],
+    ],
+  },
 } as const;
 export type ChoiceOverride = keyof typeof CHOICE_OVERRIDES;
 
@@ -64,7 +76,8 @@ export function choicesFrom(form: ChoicesForm): { ok: true; value: Choices } | {
   const weights = {} as Record<WeightKey, number>;
   for (const key of WEIGHT_KEYS) {
     const value = Number(form.weights[key]);
-    if (form.weights[key].trim() === '' || !Number.isFinite(value)) issues.push({ path: `weights.${key}`, message: 'Give a weight from 0 to 100.' });
+    if (form.weights[key].trim() === '' || !Number.isFinite(value))
+      issues.push({ path: `weights.${key}`, message: 'Give a weight from 0 to 100.' });
     else weights[key] = value;
   }
   const overrides: Record<string, unknown> = {};
@@ -80,7 +93,8 @@ export function choicesFrom(form: ChoicesForm): { ok: true; value: Choices } | {
   form.parts.forEach((p, k) => {
     if (!p.ref.trim() && !p.value.trim()) return;
     const value = parseSi(p.value);
-    if (value === null) issues.push({ path: `overrides.parts.${k}`, message: `Give a value for ${p.ref.trim() || 'the part'}, e.g. 4k7 or 10u.` });
+    if (value === null)
+      issues.push({ path: `overrides.parts.${k}`, message: `Give a value for ${p.ref.trim() || 'the part'}, e.g. 4k7 or 10u.` });
     else parts[p.ref.trim().toUpperCase()] = value;
   });
   if (Object.keys(parts).length > 0) overrides.parts = parts;

@@ -48,7 +48,11 @@ export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 're
 export function inputChanges(a: ComparableRevision, b: ComparableRevision): InputChange[] {
   const changes: InputChange[] = [];
   if (a.topology !== b.topology) {
-    changes.push({ path: 'chosen topology', a: TOPOLOGY_NAMES[a.topology as Option['topology']] ?? a.topology, b: TOPOLOGY_NAMES[b.topology as Option['topology']] ?? b.topology });
+    changes.push({
+      path: 'chosen topology',
+      a: TOPOLOGY_NAMES[a.topology as Option['topology']] ?? a.topology,
+      b: TOPOLOGY_NAMES[b.topology as Option['topology']] ?? b.topology,
+    });
   }
   const fa = flatten(a.input);
   const fb = flatten(b.input);

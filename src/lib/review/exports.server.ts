@@ -52,13 +52,29 @@ export function exportFileName(title: string, number: number, extension: string)
   return `${slug || 'brief'}-rev${number}.${extension}`;
 }
 
-const ASCII_FOR: Record<string, string> = { '—': '-', '–': '-', '−': '-', '½': '1/2', '·': '*', '²': '^2', 'θ': 'theta', '°': 'deg', 'Ω': 'ohm', 'µ': 'u', '’': "'", '“': '"', '”': '"', '≤': '<=', '≥': '>=', '×': 'x', '…': '...' };
+const ASCII_FOR: Record<string, string> = {
+  '—': '-',
+  '–': '-',
+  '−': '-',
+  '½': '1/2',
+  '·': '*',
+  '²': '^2',
+  θ: 'theta',
+  '°': 'deg',
+  Ω: 'ohm',
+  µ: 'u',
+  '’': "'",
+  '“': '"',
+  '”': '"',
+  '≤': '<=',
+  '≥': '>=',
+  '×': 'x',
+  '…': '...',
+};
 
 /** One ASCII line: the simulator reads its deck byte by byte, and other characters change how it parses. */
 function deckLine(text: string): string {
-  return text
-    .replace(/[\r\n]+/g, ' ')
-    .replace(/[^\x20-\x7e]/g, (c) => ASCII_FOR[c] ?? c.normalize('NFKD').replace(/[^\x20-\x7e]/g, ''));
+  return text.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, (c) => ASCII_FOR[c] ?? c.normalize('NFKD').replace(/[^\x20-\x7e]/g, ''));
 }
 
 export type NetlistOutcome = { ok: true; text: string } | { ok: false; message: string };

@@ -11,7 +11,10 @@ import { addNote, noteRequestSchema } from '~/lib/briefs/index.server';
 
 export type FormOutcome = { ok: true; done: 'moved' | 'noted' } | { ok: false; status: 400 | 409; message: string };
 
-export const DONE_MESSAGES = { moved: 'State changed; the history below records it.', noted: 'Note added. Notes stay inside the consultancy.' } as const;
+export const DONE_MESSAGES = {
+  moved: 'State changed; the history below records it.',
+  noted: 'Note added. Notes stay inside the consultancy.',
+} as const;
 
 export async function handleReviewForm(staff: SignedInUser, row: BriefRow, fields: Record<string, string>): Promise<FormOutcome> {
   if (fields.intent === 'move') {
@@ -19,7 +22,11 @@ export async function handleReviewForm(staff: SignedInUser, row: BriefRow, field
     if (!parsed.success) return { ok: false, status: 400, message: parsed.error.issues[0]?.message ?? 'Choose one of the offered states.' };
     const moved = await moveAsStaff(staff, row, parsed.data.status, parsed.data.note);
     if (moved.ok) return { ok: true, done: 'moved' };
-    return { ok: false, status: 409, message: `${'message' in moved ? moved.message : ''} It is now ${lookOf(BRIEF_STATE_LOOK, row.status).label.toLowerCase()}.`.trim() };
+    return {
+      ok: false,
+      status: 409,
+      message: `${'message' in moved ? moved.message : ''} It is now ${lookOf(BRIEF_STATE_LOOK, row.status).label.toLowerCase()}.`.trim(),
+    };
   }
   if (fields.intent === 'note') {
     const parsed = noteRequestSchema.safeParse({ body: fields.body ?? '' });

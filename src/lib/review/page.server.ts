@@ -11,7 +11,13 @@ import { listRevisions } from './revisions.server';
 
 /** `fromRevisionId` starts the form from that revision's choices instead of the latest one's. */
 export async function reviewPageData(row: BriefRow, fromRevisionId: string | null = null) {
-  const [detail, revisions, notes, catalog, currency] = await Promise.all([briefDetail(row), listRevisions(row.id), listNotes(row.id), currentCatalog(), partsCurrency()]);
+  const [detail, revisions, notes, catalog, currency] = await Promise.all([
+    briefDetail(row),
+    listRevisions(row.id),
+    listNotes(row.id),
+    currentCatalog(),
+    partsCurrency(),
+  ]);
   const spec = railSpecSchema.safeParse(row.spec);
   const base = revisions.find((r) => r.id === fromRevisionId) ?? revisions[0] ?? null;
   const weights = (base?.weights ?? (spec.success ? spec.data.weights : {})) as Record<string, unknown>;
@@ -27,7 +33,14 @@ export async function reviewPageData(row: BriefRow, fromRevisionId: string | nul
     form: formFrom(weights, overrides),
     topology: (base?.topology as TopologyId | undefined) ?? null,
     startedFrom: base?.number ?? null,
-    revisions: revisions.map((r) => ({ id: r.id, number: r.number, topology: r.topology, note: r.note, createdAt: r.createdAt.toISOString(), author: r.author })),
+    revisions: revisions.map((r) => ({
+      id: r.id,
+      number: r.number,
+      topology: r.topology,
+      note: r.note,
+      createdAt: r.createdAt.toISOString(),
+      author: r.author,
+    })),
     linearClasses: catalog.linearRegulators.map((c) => ({ id: c.id, label: c.label })),
     currency,
     moves: movesFor(row.status, 'staff'),

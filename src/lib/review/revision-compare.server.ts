@@ -10,8 +10,7 @@ export const compareQuerySchema = z.object({
 });
 
 export type CompareOutcome =
-  | { ok: true; value: Awaited<ReturnType<typeof buildComparison>> }
-  | { ok: false; status: 400 | 404; message: string };
+  { ok: true; value: Awaited<ReturnType<typeof buildComparison>> } | { ok: false; status: 400 | 404; message: string };
 
 async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>, b: typeof a) {
   const currency = await partsCurrency();

@@ -22,7 +22,8 @@ export async function saveRevision(row: BriefRow, authorId: string, request: Rev
   if (!parsed.success) return { ok: false, status: 400, error: 'invalid_revision', issues: railSpecIssues(parsed.error) };
   const result: Evaluation = evaluate(parsed.data, await currentCatalog());
   const topology = request.topology ?? result.recommended ?? result.options[0]?.topology;
-  if (!topology) return { ok: false, status: 400, error: 'invalid_revision', issues: [{ path: 'topology', message: 'No option to choose.' }] };
+  if (!topology)
+    return { ok: false, status: 400, error: 'invalid_revision', issues: [{ path: 'topology', message: 'No option to choose.' }] };
 
   const saved = await db.transaction(async (tx) => {
     const [last] = await tx

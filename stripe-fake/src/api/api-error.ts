@@ -5,11 +5,7 @@ export class ApiError extends Error {
   readonly param: string | undefined;
   readonly code: string | undefined;
 
-  constructor(
-    status: number,
-    message: string,
-    details: { param?: string; code?: string; type?: string } = {},
-  ) {
+  constructor(status: number, message: string, details: { param?: string; code?: string; type?: string } = {}) {
     super(message);
     this.status = status;
     this.type = details.type ?? 'invalid_request_error';

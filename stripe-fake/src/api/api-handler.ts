@@ -29,7 +29,10 @@ async function readParams(request: IncomingMessage, url: URL) {
   }
   const contentType = header(request, 'content-type') ?? '';
   if (body !== '' && !contentType.startsWith('application/x-www-form-urlencoded')) {
-    throw new ApiError(400, `The API reads form-encoded bodies (application/x-www-form-urlencoded), not '${contentType || 'no content type'}'.`);
+    throw new ApiError(
+      400,
+      `The API reads form-encoded bodies (application/x-www-form-urlencoded), not '${contentType || 'no content type'}'.`,
+    );
   }
   return parseParams(new URLSearchParams(body));
 }
@@ -39,7 +42,7 @@ export async function handleApi(services: FakeServices, request: IncomingMessage
   const method = request.method ?? 'GET';
   const requestId = newId('req_', 14);
   const apiVersion = header(request, 'stripe-version') ?? DEFAULT_API_VERSION;
-  const idempotencyKey = method === 'POST' ? header(request, 'idempotency-key') ?? null : null;
+  const idempotencyKey = method === 'POST' ? (header(request, 'idempotency-key') ?? null) : null;
   const headers: Record<string, string> = { 'request-id': requestId, 'stripe-version': apiVersion };
   if (idempotencyKey !== null) headers['idempotency-key'] = idempotencyKey;
   const reply = (status: number, body: string) => send(response, status, 'application/json; charset=utf-8', body, headers);

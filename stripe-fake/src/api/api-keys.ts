@@ -19,7 +19,10 @@ export function apiKeyFrom(authorization: string | undefined): string {
     );
   }
   if (!/^sk_test_\w+$/.test(key)) {
-    throw new ApiError(401, `Invalid API Key provided: ${masked(key)}. The local payment stand-in accepts any test secret key starting with sk_test_.`);
+    throw new ApiError(
+      401,
+      `Invalid API Key provided: ${masked(key)}. The local payment stand-in accepts any test secret key starting with sk_test_.`,
+    );
   }
   return key;
 }

@@ -124,7 +124,9 @@ const ROUTES: Route[] = [
   { method: 'GET', pattern: new RegExp(`^/v1/refunds/${ID}$`), handler: retrieveRefund },
 ];
 
-export const SUPPORTED_CALLS = ROUTES.map((route) => `${route.method} ${route.pattern.source.slice(1, -1).replaceAll('\\/', '/').replaceAll(ID, ':id')}`);
+export const SUPPORTED_CALLS = ROUTES.map(
+  (route) => `${route.method} ${route.pattern.source.slice(1, -1).replaceAll('\\/', '/').replaceAll(ID, ':id')}`,
+);
 
 function decodeId(raw: string): string {
   try {
@@ -140,5 +142,8 @@ export function matchApiRoute(method: string, path: string): { handler: Handler;
     const match = route.method === method ? route.pattern.exec(path) : null;
     if (match) return { handler: route.handler, ids: match.slice(1).map(decodeId) };
   }
-  throw new ApiError(404, `Unrecognized request URL (${method}: ${path}). The local payment stand-in implements: ${SUPPORTED_CALLS.join(', ')}.`);
+  throw new ApiError(
+    404,
+    `Unrecognized request URL (${method}: ${path}). The local payment stand-in implements: ${SUPPORTED_CALLS.join(', ')}.`,
+  );
 }

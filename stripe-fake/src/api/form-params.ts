@@ -92,20 +92,24 @@ export function optionalHash(value: Param | undefined, param: string): ParamHash
   return value;
 }
 
-export function optionalInteger(
-  value: Param | undefined,
-  param: string,
-  bounds: { min: number; max: number },
-): number | undefined {
+export function optionalInteger(value: Param | undefined, param: string, bounds: { min: number; max: number }): number | undefined {
   const text = optionalString(value, param);
   if (text === undefined) return undefined;
   if (!/^-?\d+$/.test(text)) throw invalidParam(param, `Invalid integer: ${text}`, 'parameter_invalid_integer');
   const number = Number(text);
   if (number < bounds.min) {
-    throw invalidParam(param, `This value must be greater than or equal to ${bounds.min} (it currently is '${text}').`, 'parameter_invalid_integer');
+    throw invalidParam(
+      param,
+      `This value must be greater than or equal to ${bounds.min} (it currently is '${text}').`,
+      'parameter_invalid_integer',
+    );
   }
   if (number > bounds.max) {
-    throw invalidParam(param, `This value must be less than or equal to ${bounds.max} (it currently is '${text}').`, 'parameter_invalid_integer');
+    throw invalidParam(
+      param,
+      `This value must be less than or equal to ${bounds.max} (it currently is '${text}').`,
+      'parameter_invalid_integer',
+    );
   }
   return number;
 }
@@ -136,7 +140,8 @@ export function optionalMetadata(value: Param | undefined, param: string): Recor
     const entryParam = `${param}[${key}]`;
     if (key.length > 40) throw invalidParam(entryParam, `Metadata keys can be at most 40 characters long ('${key}' has ${key.length}).`);
     const entry = optionalString(hash[key], entryParam) ?? '';
-    if (entry.length > 500) throw invalidParam(entryParam, `Metadata values can be at most 500 characters long (${entryParam} has ${entry.length}).`);
+    if (entry.length > 500)
+      throw invalidParam(entryParam, `Metadata values can be at most 500 characters long (${entryParam} has ${entry.length}).`);
     // An empty value unsets a key in the API, so it is simply not stored.
     if (entry !== '') metadata[key] = entry;
   }

@@ -60,7 +60,10 @@ function readLineItem(value: Param, index: number, created: number): LineItem {
   const prefix = `line_items[${index}]`;
   const item = optionalHash(value, prefix) ?? {};
   if (item['price'] !== undefined) {
-    throw invalidParam(`${prefix}[price]`, `The local payment stand-in keeps no Prices; describe the item with ${prefix}[price_data] instead.`);
+    throw invalidParam(
+      `${prefix}[price]`,
+      `The local payment stand-in keeps no Prices; describe the item with ${prefix}[price_data] instead.`,
+    );
   }
   rejectUnknown(item, ['price_data', 'quantity'], prefix);
   const priceData = optionalHash(item['price_data'], `${prefix}[price_data]`);
@@ -77,7 +80,10 @@ function readLineItem(value: Param, index: number, created: number): LineItem {
   if (quantity === undefined) throw missingParam(`${prefix}[quantity]`);
   const total = unitAmount * quantity;
   if (total > MAX_AMOUNT) {
-    throw invalidParam(`${prefix}[quantity]`, `The amount of ${prefix} (${total}) is more than the largest amount the API accepts (${MAX_AMOUNT}).`);
+    throw invalidParam(
+      `${prefix}[quantity]`,
+      `The amount of ${prefix} (${total}) is more than the largest amount the API accepts (${MAX_AMOUNT}).`,
+    );
   }
   return {
     id: newId('li_'),
@@ -114,7 +120,10 @@ function readLineItems(params: ParamHash, created: number): LineItem[] {
   const currency = items[0]?.currency;
   items.forEach((item, index) => {
     if (item.currency !== currency) {
-      throw invalidParam(`line_items[${index}][price_data][currency]`, `All line items must have the same currency (line_items[0] is in ${currency}, line_items[${index}] in ${item.currency}).`);
+      throw invalidParam(
+        `line_items[${index}][price_data][currency]`,
+        `All line items must have the same currency (line_items[0] is in ${currency}, line_items[${index}] in ${item.currency}).`,
+      );
     }
   });
   return items;
@@ -125,7 +134,10 @@ function readPaymentMethodTypes(params: ParamHash): string[] {
   list.forEach((entry, index) => {
     const type = requiredString(entry, `payment_method_types[${index}]`);
     if (type !== 'card') {
-      throw invalidParam(`payment_method_types[${index}]`, `The local payment stand-in takes cards only; payment method type '${type}' is not available.`);
+      throw invalidParam(
+        `payment_method_types[${index}]`,
+        `The local payment stand-in takes cards only; payment method type '${type}' is not available.`,
+      );
     }
   });
   return ['card'];
@@ -165,7 +177,10 @@ export function createSessionRecord(params: ParamHash, checkoutBaseUrl: string, 
   }
   const clientReferenceId = optionalString(params['client_reference_id'], 'client_reference_id') ?? null;
   if (clientReferenceId !== null && clientReferenceId.length > 200) {
-    throw invalidParam('client_reference_id', `client_reference_id can be at most 200 characters long (it has ${clientReferenceId.length}).`);
+    throw invalidParam(
+      'client_reference_id',
+      `client_reference_id can be at most 200 characters long (it has ${clientReferenceId.length}).`,
+    );
   }
   const amount = lineItems.reduce((sum, item) => sum + item.amount_total, 0);
   if (amount > MAX_AMOUNT) {

@@ -56,9 +56,7 @@ export function checkoutPage(record: SessionRecord, errorMessage?: string): stri
   const { session } = record;
   const total = formatMinorUnits(session.amount_total, session.currency);
   const error = errorMessage ? `<p class="error" role="alert">${escapeHtml(errorMessage)}</p>` : '';
-  const cancel = session.cancel_url
-    ? `<p><a href="${escapeHtml(session.cancel_url)}">Cancel and go back</a></p>`
-    : '';
+  const cancel = session.cancel_url ? `<p><a href="${escapeHtml(session.cancel_url)}">Cancel and go back</a></p>` : '';
   return page(
     `Pay ${total} — local test payment`,
     `${summary(record)}
@@ -81,7 +79,10 @@ export function closedSessionPage(record: SessionRecord, successUrl: string | nu
     return page('Payment complete — local test payment', `${summary(record)}\n<p>This payment is complete.</p>\n${back}`);
   }
   const back = session.cancel_url ? `<p><a href="${escapeHtml(session.cancel_url)}">Go back</a></p>` : '';
-  return page('Payment expired — local test payment', `${summary(record)}\n<p class="error">This checkout session has expired; start the payment again from the site.</p>\n${back}`);
+  return page(
+    'Payment expired — local test payment',
+    `${summary(record)}\n<p class="error">This checkout session has expired; start the payment again from the site.</p>\n${back}`,
+  );
 }
 
 /** Shown after paying a session that has no success URL to return to. */

@@ -17,10 +17,14 @@ export function createRefund(state: FakeState, params: ParamHash): Refund {
   const intent = state.paymentIntents.get(intentId);
   if (!intent) throw noSuchObject('payment_intent', intentId, 'payment_intent', 400);
   if (intent.status !== 'succeeded') {
-    throw new ApiError(400, `This PaymentIntent (${intent.id}) does not have a successful charge to refund; its status is ${intent.status}.`, {
-      param: 'payment_intent',
-      code: 'payment_intent_unexpected_state',
-    });
+    throw new ApiError(
+      400,
+      `This PaymentIntent (${intent.id}) does not have a successful charge to refund; its status is ${intent.status}.`,
+      {
+        param: 'payment_intent',
+        code: 'payment_intent_unexpected_state',
+      },
+    );
   }
   const remaining = intent.amount_received - state.refundedAmount(intent.id);
   if (remaining === 0) {

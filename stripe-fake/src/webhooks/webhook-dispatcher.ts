@@ -78,10 +78,14 @@ export class WebhookDispatcher {
     }
     const wait = this.target.retryDelaysMs[retry];
     if (wait === undefined) {
-      this.target.log(`webhook ${delivery.eventType} ${delivery.eventId} to ${this.target.url} failed (${attempt.error}); giving up after ${delivery.attempts.length} attempts`);
+      this.target.log(
+        `webhook ${delivery.eventType} ${delivery.eventId} to ${this.target.url} failed (${attempt.error}); giving up after ${delivery.attempts.length} attempts`,
+      );
       return;
     }
-    this.target.log(`webhook ${delivery.eventType} ${delivery.eventId} to ${this.target.url} failed (${attempt.error}); retrying in ${wait} ms`);
+    this.target.log(
+      `webhook ${delivery.eventType} ${delivery.eventId} to ${this.target.url} failed (${attempt.error}); retrying in ${wait} ms`,
+    );
     const timer = setTimeout(() => {
       this.timers.delete(timer);
       void this.attempt(delivery, retry + 1);

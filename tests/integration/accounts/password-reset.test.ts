@@ -47,9 +47,15 @@ describe('password reset by e-mail', () => {
     expect(reused.status).toBe(400);
     expect(await reused.text()).toContain('expired or was already used');
 
-    const oldPassword = await new Visitor(baseUrl).request('/api/auth/sign-in/email', { method: 'POST', json: { email, password: 'first-password-1' } });
+    const oldPassword = await new Visitor(baseUrl).request('/api/auth/sign-in/email', {
+      method: 'POST',
+      json: { email, password: 'first-password-1' },
+    });
     expect(oldPassword.status).toBe(401);
-    const newPassword = await new Visitor(baseUrl).request('/api/auth/sign-in/email', { method: 'POST', json: { email, password: 'second-password-2' } });
+    const newPassword = await new Visitor(baseUrl).request('/api/auth/sign-in/email', {
+      method: 'POST',
+      json: { email, password: 'second-password-2' },
+    });
     expect(newPassword.status).toBe(200);
   });
 

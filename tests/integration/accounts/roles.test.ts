@@ -22,17 +22,20 @@ describe('pages by role', () => {
     ['client', DEMO.client, '/briefs', 'My briefs', ['/desk', '/admin/users']],
     ['engineer', DEMO.engineer, '/desk', 'Desk', ['/briefs', '/admin/users']],
     ['admin', DEMO.admin, '/admin/users', 'People and roles', ['/briefs']],
-  ] as const)('a %s signs in, sees their own navigation and is refused other roles’ pages', async (_role, email, home, heading, refused) => {
-    const visitor = await new Visitor(baseUrl).signIn(email);
-    const page = await visitor.request(home);
-    expect(page.status).toBe(200);
-    expect(await page.text()).toContain(heading);
-    for (const path of refused) {
-      const denied = await visitor.request(path);
-      expect(denied.status, path).toBe(403);
-      expect(await denied.text()).toContain('This page is not open to your role');
-    }
-  });
+  ] as const)(
+    'a %s signs in, sees their own navigation and is refused other roles’ pages',
+    async (_role, email, home, heading, refused) => {
+      const visitor = await new Visitor(baseUrl).signIn(email);
+      const page = await visitor.request(home);
+      expect(page.status).toBe(200);
+      expect(await page.text()).toContain(heading);
+      for (const path of refused) {
+        const denied = await visitor.request(path);
+        expect(denied.status, path).toBe(403);
+        expect(await denied.text()).toContain('This page is not open to your role');
+      }
+    },
+  );
 
   test('a client sees only their own briefs; the engineer sees every client’s', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
@@ -57,7 +60,12 @@ describe('accounts', () => {
   test('a new sign-up is a client with a company profile and lands on their briefs', async () => {
     const visitor = new Visitor(baseUrl);
     const email = `new-${Date.now()}@example.test`;
-    const response = await visitor.form('/sign-up', { name: 'Nell Cartwright', company: 'Cartwright Optics', email, password: 'long-enough-password' });
+    const response = await visitor.form('/sign-up', {
+      name: 'Nell Cartwright',
+      company: 'Cartwright Optics',
+      email,
+      password: 'long-enough-password',
+    });
     expect(response.status).toBe(303);
     expect(response.headers.get('location')).toBe('/briefs');
     const session = await (await visitor.request('/api/auth/get-session')).json();
@@ -81,7 +89,10 @@ describe('accounts', () => {
   test('an admin promotes a client to engineer, who then reaches the desk', async () => {
     const email = `promote-${Date.now()}@example.test`;
     const person = new Visitor(baseUrl);
-    const signUp = await person.request('/api/auth/sign-up/email', { method: 'POST', json: { name: 'Promoted Person', email, password: 'long-enough-password' } });
+    const signUp = await person.request('/api/auth/sign-up/email', {
+      method: 'POST',
+      json: { name: 'Promoted Person', email, password: 'long-enough-password' },
+    });
     expect(signUp.status).toBe(200);
     const { user } = await signUp.json();
     expect((await person.request('/desk')).status).toBe(403);

@@ -78,7 +78,11 @@ describe('downloads', () => {
     const response = await owner.request(`/api/v1/files/${id}`);
     expect(response.status).toBe(500);
     const body = await response.json();
-    expect(body).toEqual({ error: 'file_missing', errorId: expect.stringMatching(/^[0-9a-f]{8}$/), message: expect.stringContaining('missing from storage') });
+    expect(body).toEqual({
+      error: 'file_missing',
+      errorId: expect.stringMatching(/^[0-9a-f]{8}$/),
+      message: expect.stringContaining('missing from storage'),
+    });
     expect(body.message).toContain(body.errorId);
   });
 });

@@ -27,7 +27,11 @@ export const storedFiles = (): string[] => {
 export const fixture = (name: string) => new Uint8Array(readFileSync(new URL(`../../fixtures/uploads/${name}`, import.meta.url)));
 
 export async function briefIdTitled(prefix: string): Promise<string> {
-  const [row] = await db.select({ id: brief.id }).from(brief).where(like(brief.title, `${prefix}%`)).limit(1);
+  const [row] = await db
+    .select({ id: brief.id })
+    .from(brief)
+    .where(like(brief.title, `${prefix}%`))
+    .limit(1);
   if (!row) throw new Error(`No demo brief is titled "${prefix}…"`);
   return row.id;
 }
@@ -52,5 +56,7 @@ export function uploadForm(part: Part): FormData {
 export const upload = (visitor: Visitor, briefId: string, part: Part) =>
   visitor.request(`/api/v1/briefs/${briefId}/files`, { method: 'POST', body: uploadForm(part) });
 
-export const EXE = new Uint8Array([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00, 0x00, 0x00, 0x04, 0x00, 0x00, 0x00, 0xff, 0xff, 0x00, 0x00, 0xb8, 0, 0, 0]);
+export const EXE = new Uint8Array([
+  0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00, 0x00, 0x00, 0x04, 0x00, 0x00, 0x00, 0xff, 0xff, 0x00, 0x00, 0xb8, 0, 0, 0,
+]);
 export const MAX_BYTES = 10 * 1024 * 1024;

@@ -22,7 +22,14 @@ describe('accepted uploads', () => {
     const response = await upload(owner, soil, { bytes: pdf, name: 'LDO datasheet.pdf', kind: 'datasheet', type: 'application/pdf' });
     expect(response.status).toBe(201);
     const body = await response.json();
-    expect(body).toEqual({ id: expect.any(String), name: 'LDO datasheet.pdf', kind: 'datasheet', mimeType: 'application/pdf', sizeBytes: pdf.length, loadSummary: null });
+    expect(body).toEqual({
+      id: expect.any(String),
+      name: 'LDO datasheet.pdf',
+      kind: 'datasheet',
+      mimeType: 'application/pdf',
+      sizeBytes: pdf.length,
+      loadSummary: null,
+    });
     const row = (await fileRowsOf(soil)).find((r) => r.id === body.id);
     expect(row).toMatchObject({ originalName: 'LDO datasheet.pdf', mimeType: 'application/pdf', sizeBytes: pdf.length });
     expect(row!.storageKey).toMatch(UUID);
@@ -76,7 +83,9 @@ describe('accepted uploads', () => {
   test('eight uploads to one brief at once all succeed and all are recorded', async () => {
     const before = (await fileRowsOf(gateway)).length;
     const responses = await Promise.all(
-      Array.from({ length: 8 }, (_, k) => upload(owner, gateway, { bytes: fixture('datasheet.pdf'), name: `sheet-${k}.pdf`, kind: 'schematic' })),
+      Array.from({ length: 8 }, (_, k) =>
+        upload(owner, gateway, { bytes: fixture('datasheet.pdf'), name: `sheet-${k}.pdf`, kind: 'schematic' }),
+      ),
     );
     expect(responses.map((r) => r.status)).toEqual(Array(8).fill(201));
     const ids = new Set(await Promise.all(responses.map(async (r) => (await r.json()).id)));
@@ -101,15 +110,30 @@ describe('refused uploads', () => {
   }
 
   test('a Windows program named .pdf and declared as a PDF: 415 naming what is accepted', async () => {
-    const body = await expectRefusal(() => upload(owner, soil, { bytes: EXE, name: 'datasheet.pdf', kind: 'datasheet', type: 'application/pdf' }), 415);
+    const body = await expectRefusal(
+      () => upload(owner, soil, { bytes: EXE, name: 'datasheet.pdf', kind: 'datasheet', type: 'application/pdf' }),
+      415,
+    );
     expect(body.error).toBe('file_type_not_accepted');
     expect(body.message).toContain('EXE');
     expect(body.message).toContain('Accepted: PDF, PNG, JPEG, WebP and GIF files');
   });
 
   test.each([
-    ['a zip archive named .pdf', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0, 8, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0]), 'schematics.pdf', 'datasheet', 'ZIP'],
-    ['an HTML page named .csv as a load log', new TextEncoder().encode('<!doctype html><script>alert(1)</script>'), 'log.csv', 'load-log', 'markup'],
+    [
+      'a zip archive named .pdf',
+      new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0, 8, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0]),
+      'schematics.pdf',
+      'datasheet',
+      'ZIP',
+    ],
+    [
+      'an HTML page named .csv as a load log',
+      new TextEncoder().encode('<!doctype html><script>alert(1)</script>'),
+      'log.csv',
+      'load-log',
+      'markup',
+    ],
     ['a PDF declared as a load log', fixture('datasheet.pdf'), 'log.csv', 'load-log', 'A load log must be a CSV text file'],
   ])('%s: 415', async (_case, bytes, name, kind, said) => {
     const body = await expectRefusal(() => upload(owner, soil, { bytes, name, kind }), 415);
@@ -133,7 +157,13 @@ describe('refused uploads', () => {
     const form = new Response(uploadForm({ bytes: new Uint8Array(MAX_BYTES * 2), name: 'stream.pdf' }));
     const type = form.headers.get('content-type')!;
     const body = await expectRefusal(
-      () => owner.request(`/api/v1/briefs/${soil}/files`, { method: 'POST', headers: { 'content-type': type }, body: form.body, duplex: 'half' } as RequestInit),
+      () =>
+        owner.request(`/api/v1/briefs/${soil}/files`, {
+          method: 'POST',
+          headers: { 'content-type': type },
+          body: form.body,
+          duplex: 'half',
+        } as RequestInit),
       413,
     );
     expect(body.error).toBe('file_too_large');
@@ -144,7 +174,12 @@ describe('refused uploads', () => {
       const url = new URL(`/api/v1/briefs/${soil}/files`, baseUrl);
       const req = httpRequest(url, {
         method: 'POST',
-        headers: { cookie: owner.cookieHeader, origin: baseUrl, 'content-type': 'multipart/form-data; boundary=x', 'content-length': String(50 * 1024 * 1024) },
+        headers: {
+          cookie: owner.cookieHeader,
+          origin: baseUrl,
+          'content-type': 'multipart/form-data; boundary=x',
+          'content-length': String(50 * 1024 * 1024),
+        },
       });
       req.on('response', (res) => {
         let text = '';
@@ -187,10 +222,18 @@ describe('refused uploads', () => {
 
   test('a multipart body that does not parse: 400', async () => {
     const body = await expectRefusal(
-      () => owner.request(`/api/v1/briefs/${soil}/files`, { method: 'POST', headers: { 'content-type': 'multipart/form-data; boundary=abc' }, body: 'not multipart at all' }),
+      () =>
+        owner.request(`/api/v1/briefs/${soil}/files`, {
+          method: 'POST',
+          headers: { 'content-type': 'multipart/form-data; boundary=abc' },
+          body: 'not multipart at all',
+        }),
       400,
     );
-    expect(body).toEqual({ error: 'invalid_upload', issues: [{ path: '', message: 'The upload could not be read as multipart/form-data.' }] });
+    expect(body).toEqual({
+      error: 'invalid_upload',
+      issues: [{ path: '', message: 'The upload could not be read as multipart/form-data.' }],
+    });
   });
 
   test('a load log that cannot be reduced: 400 with the reducer’s message', async () => {
@@ -222,7 +265,12 @@ describe('refused uploads', () => {
 
   test('a closed brief takes no files: 409', async () => {
     const client = new Visitor(baseUrl);
-    const signedUp = await client.form('/sign-up', { name: 'Ola Closed', company: 'Closed Co', email: `closed-${Date.now()}@example.test`, password: 'long-enough-password' });
+    const signedUp = await client.form('/sign-up', {
+      name: 'Ola Closed',
+      company: 'Closed Co',
+      email: `closed-${Date.now()}@example.test`,
+      password: 'long-enough-password',
+    });
     expect(signedUp.status).toBe(303);
     const created = await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Changed our minds', submit: false } });
     expect(created.status).toBe(201);
@@ -232,7 +280,10 @@ describe('refused uploads', () => {
     const files = storedFiles().length;
     const response = await upload(client, id, { bytes: fixture('datasheet.pdf'), name: 'late.pdf' });
     expect(response.status).toBe(409);
-    expect(await response.json()).toEqual({ error: 'wrong_state', message: 'This brief is cancelled; files can no longer be added to it.' });
+    expect(await response.json()).toEqual({
+      error: 'wrong_state',
+      message: 'This brief is cancelled; files can no longer be added to it.',
+    });
     expect(storedFiles()).toHaveLength(files);
     expect(await fileRowsOf(id)).toHaveLength(0);
   });

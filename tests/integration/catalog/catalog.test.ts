@@ -50,7 +50,10 @@ describe('device catalog (admin)', () => {
     const sinkBefore = await evaluateMargin();
     try {
       // A larger junction margin leaves less room for the heatsink: θSA,max = (Tj,max − margin − Ta)/P − θJC − θCS.
-      const saved = await admin.form('/admin/catalog', { id: 'thermal', params: JSON.stringify({ ...before.params, tjMarginK: before.params.tjMarginK + 20 }) });
+      const saved = await admin.form('/admin/catalog', {
+        id: 'thermal',
+        params: JSON.stringify({ ...before.params, tjMarginK: before.params.tjMarginK + 20 }),
+      });
       expect(saved.status).toBe(200);
       expect(await saved.text()).toContain('Saved.');
       const sinkAfter = await evaluateMargin();

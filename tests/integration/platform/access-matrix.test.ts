@@ -30,7 +30,11 @@ const SPEC = {
 function upload(): FormData {
   const form = new FormData();
   form.append('kind', 'datasheet');
-  form.append('file', new Blob(['%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n'], { type: 'application/pdf' }), 'matrix.pdf');
+  form.append(
+    'file',
+    new Blob(['%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n'], { type: 'application/pdf' }),
+    'matrix.pdf',
+  );
   return form;
 }
 
@@ -52,26 +56,109 @@ const ROWS: Row[] = [
   { method: 'POST', file: 'api/v1/account.ts', path: () => '/api/v1/account', body: () => ({}), expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'api/v1/evaluate.ts', path: () => '/api/v1/evaluate', body: () => SPEC, expect: [200, 200, 200, 200, 200] },
   { method: 'GET', file: 'api/v1/briefs/index.ts', path: () => '/api/v1/briefs', expect: [401, 200, 200, 200, 200] },
-  { method: 'POST', file: 'api/v1/briefs/index.ts', path: () => '/api/v1/briefs', body: () => ({ title: 'Matrix brief' }), expect: [401, 201, 201, 403, 403] },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/index.ts',
+    path: () => '/api/v1/briefs',
+    body: () => ({ title: 'Matrix brief' }),
+    expect: [401, 201, 201, 403, 403],
+  },
   { method: 'GET', file: 'api/v1/briefs/[id].ts', path: () => `/api/v1/briefs/${ids.paidBrief}`, expect: [401, 200, 404, 200, 200] },
-  { method: 'PATCH', file: 'api/v1/briefs/[id].ts', path: () => `/api/v1/briefs/${ids.draftBrief}`, body: () => ({ notes: 'edited' }), expect: [401, 200, 404, 400, 400] },
-  { method: 'POST', file: 'api/v1/briefs/[id]/files.ts', path: () => `/api/v1/briefs/${ids.paidBrief}/files`, form: upload, expect: [401, 201, 404, 201, 201] },
-  { method: 'GET', file: 'api/v1/briefs/[id]/notes.ts', path: () => `/api/v1/briefs/${ids.paidBrief}/notes`, expect: [401, 403, 403, 200, 200] },
-  { method: 'POST', file: 'api/v1/briefs/[id]/notes.ts', path: () => `/api/v1/briefs/${ids.paidBrief}/notes`, body: () => ({ body: 'Internal' }), expect: [401, 403, 403, 201, 201] },
-  { method: 'GET', file: 'api/v1/briefs/[id]/revisions.ts', path: () => `/api/v1/briefs/${ids.paidBrief}/revisions`, expect: [401, 403, 403, 200, 200] },
-  { method: 'POST', file: 'api/v1/briefs/[id]/revisions.ts', path: () => `/api/v1/briefs/${ids.paidBrief}/revisions`, body: () => ({ note: 'matrix' }), expect: [401, 403, 403, 201, 201] },
+  {
+    method: 'PATCH',
+    file: 'api/v1/briefs/[id].ts',
+    path: () => `/api/v1/briefs/${ids.draftBrief}`,
+    body: () => ({ notes: 'edited' }),
+    expect: [401, 200, 404, 400, 400],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/[id]/files.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/files`,
+    form: upload,
+    expect: [401, 201, 404, 201, 201],
+  },
+  {
+    method: 'GET',
+    file: 'api/v1/briefs/[id]/notes.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/notes`,
+    expect: [401, 403, 403, 200, 200],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/[id]/notes.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/notes`,
+    body: () => ({ body: 'Internal' }),
+    expect: [401, 403, 403, 201, 201],
+  },
+  {
+    method: 'GET',
+    file: 'api/v1/briefs/[id]/revisions.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/revisions`,
+    expect: [401, 403, 403, 200, 200],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/[id]/revisions.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/revisions`,
+    body: () => ({ note: 'matrix' }),
+    expect: [401, 403, 403, 201, 201],
+  },
   { method: 'GET', file: 'api/v1/files/[id].ts', path: () => `/api/v1/files/${ids.file}`, expect: [401, 200, 404, 200, 200] },
-  { method: 'POST', file: 'api/v1/payments/webhook.ts', path: () => '/api/v1/payments/webhook', body: () => ({}), expect: [400, 400, 400, 400, 400] },
-  { method: 'POST', file: 'api/v1/quotes/index.ts', path: () => '/api/v1/quotes', body: () => ({ revisionId: ids.revision }), expect: [401, 403, 403, 409, 409] },
+  {
+    method: 'POST',
+    file: 'api/v1/payments/webhook.ts',
+    path: () => '/api/v1/payments/webhook',
+    body: () => ({}),
+    expect: [400, 400, 400, 400, 400],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/quotes/index.ts',
+    path: () => '/api/v1/quotes',
+    body: () => ({ revisionId: ids.revision }),
+    expect: [401, 403, 403, 409, 409],
+  },
   { method: 'GET', file: 'api/v1/quotes/[id].ts', path: () => `/api/v1/quotes/${ids.quote}`, expect: [401, 200, 404, 200, 200] },
-  { method: 'PATCH', file: 'api/v1/quotes/[id].ts', path: () => `/api/v1/quotes/${ids.quote}`, body: () => ({ terms: 'x' }), expect: [401, 403, 403, 409, 409] },
-  { method: 'POST', file: 'api/v1/quotes/[id]/accept.ts', path: () => `/api/v1/quotes/${ids.quote}/accept`, expect: [401, 409, 404, 403, 403] },
-  { method: 'POST', file: 'api/v1/quotes/[id]/checkout.ts', path: () => `/api/v1/quotes/${ids.quote}/checkout`, expect: [401, 409, 404, 403, 403] },
+  {
+    method: 'PATCH',
+    file: 'api/v1/quotes/[id].ts',
+    path: () => `/api/v1/quotes/${ids.quote}`,
+    body: () => ({ terms: 'x' }),
+    expect: [401, 403, 403, 409, 409],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/quotes/[id]/accept.ts',
+    path: () => `/api/v1/quotes/${ids.quote}/accept`,
+    expect: [401, 409, 404, 403, 403],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/quotes/[id]/checkout.ts',
+    path: () => `/api/v1/quotes/${ids.quote}/checkout`,
+    expect: [401, 409, 404, 403, 403],
+  },
   { method: 'GET', file: 'api/v1/quotes/[id]/pdf.ts', path: () => `/api/v1/quotes/${ids.quote}/pdf`, expect: [401, 200, 404, 200, 200] },
   { method: 'POST', file: 'api/v1/quotes/[id]/send.ts', path: () => `/api/v1/quotes/${ids.quote}/send`, expect: [401, 403, 403, 409, 409] },
-  { method: 'GET', file: 'api/v1/revisions/[id]/netlist.cir.ts', path: () => `/api/v1/revisions/${ids.revision}/netlist.cir`, expect: [401, 403, 403, 200, 200] },
-  { method: 'GET', file: 'api/v1/revisions/[id]/parts.csv.ts', path: () => `/api/v1/revisions/${ids.revision}/parts.csv`, expect: [401, 403, 403, 200, 200] },
-  { method: 'GET', file: 'api/v1/revisions/compare.ts', path: () => `/api/v1/revisions/compare?a=${ids.revision}&b=${ids.revision}`, expect: [401, 403, 403, 200, 200] },
+  {
+    method: 'GET',
+    file: 'api/v1/revisions/[id]/netlist.cir.ts',
+    path: () => `/api/v1/revisions/${ids.revision}/netlist.cir`,
+    expect: [401, 403, 403, 200, 200],
+  },
+  {
+    method: 'GET',
+    file: 'api/v1/revisions/[id]/parts.csv.ts',
+    path: () => `/api/v1/revisions/${ids.revision}/parts.csv`,
+    expect: [401, 403, 403, 200, 200],
+  },
+  {
+    method: 'GET',
+    file: 'api/v1/revisions/compare.ts',
+    path: () => `/api/v1/revisions/compare?a=${ids.revision}&b=${ids.revision}`,
+    expect: [401, 403, 403, 200, 200],
+  },
   { method: 'POST', file: 'quotes/[id]/pay.ts', path: () => `/quotes/${ids.quote}/pay`, expect: [303, 303, 404, 404, 404] },
   { method: 'POST', file: 'sign-out.ts', path: () => '/sign-out', fresh: true, expect: [303, 303, 303, 303, 303] },
 ];
@@ -102,8 +189,14 @@ beforeAll(async () => {
   const { db, client } = connect(databaseUrl);
   const [paid] = await db.select().from(brief).where(eq(brief.title, 'Soil-moisture node, 3.3 V from one Li-ion cell'));
   const [draft] = await db.select().from(brief).where(eq(brief.title, 'Gateway logic rail, 5 V from a 12 V adapter'));
-  const [revision] = await db.select().from(designRevision).where(eq(designRevision.briefId, paid?.id ?? ''));
-  const [paidQuote] = await db.select().from(quote).where(eq(quote.briefId, paid?.id ?? ''));
+  const [revision] = await db
+    .select()
+    .from(designRevision)
+    .where(eq(designRevision.briefId, paid?.id ?? ''));
+  const [paidQuote] = await db
+    .select()
+    .from(quote)
+    .where(eq(quote.briefId, paid?.id ?? ''));
   client.close();
   Object.assign(ids, { paidBrief: paid?.id, draftBrief: draft?.id, revision: revision?.id, quote: paidQuote?.id });
   const uploaded = await visitors.clientA.request(`/api/v1/briefs/${ids.paidBrief}/files`, { method: 'POST', body: upload() });

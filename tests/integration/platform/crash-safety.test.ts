@@ -26,7 +26,13 @@ const SPEC = {
 
 describe('crash safety', () => {
   test('a server killed mid-burst loses nothing it confirmed and leaves nothing half-written', async () => {
-    const fakes = await startFakes({ stripePort: 0, webhookUrl: null, smtpPort: await freePort(), mailHttpPort: await freePort(), mailDir: mkdtempSync(path.join(tmpdir(), 'rw-crash-mail-')) });
+    const fakes = await startFakes({
+      stripePort: 0,
+      webhookUrl: null,
+      smtpPort: await freePort(),
+      mailHttpPort: await freePort(),
+      mailDir: mkdtempSync(path.join(tmpdir(), 'rw-crash-mail-')),
+    });
     const env = { RATE_LIMIT_DISABLED: '1', SMTP_URL: fakes.smtpUrl };
     const first = await startAppServer(env);
     const client = await new Visitor(first.baseUrl).signIn(DEMO.client);
@@ -43,7 +49,10 @@ describe('crash safety', () => {
     const worker = async (w: number) => {
       for (let i = 0; !stop; i++) {
         try {
-          const response = await client.request('/api/v1/briefs', { method: 'POST', json: { title: `Crash ${w}-${i}`, spec: SPEC, submit: true } });
+          const response = await client.request('/api/v1/briefs', {
+            method: 'POST',
+            json: { title: `Crash ${w}-${i}`, spec: SPEC, submit: true },
+          });
           if (response.status === 201) confirmed.push((await response.json()).id);
         } catch {
           return; // the connection died with the server
@@ -62,7 +71,8 @@ describe('crash safety', () => {
     });
     // Kill once some of each write are confirmed, while the rest are still in flight.
     const deadline = Date.now() + 20_000;
-    while ((confirmed.length < 10 || sentConfirmed.length < 2) && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 20));
+    while ((confirmed.length < 10 || sentConfirmed.length < 2) && Date.now() < deadline)
+      await new Promise((resolve) => setTimeout(resolve, 20));
     first.process.kill('SIGKILL');
     stop = true;
     await Promise.all([...workers, ...sends]);
@@ -92,7 +102,10 @@ describe('crash safety', () => {
         if (sentConfirmed.includes(d.id)) expect(row?.status).toBe('sent');
         if (row?.status === 'sent') {
           expect(row.sentAt).not.toBeNull();
-          const mails = await db.select().from(mailLog).where(and(eq(mailLog.relatedId, d.id), eq(mailLog.status, 'sent')));
+          const mails = await db
+            .select()
+            .from(mailLog)
+            .where(and(eq(mailLog.relatedId, d.id), eq(mailLog.status, 'sent')));
           expect(mails.length, 'a quote marked sent without its e-mail').toBeGreaterThan(0);
           const [ofBrief] = await db.select().from(brief).where(eq(brief.id, row.briefId));
           expect(ofBrief?.status).toBe('quoted');

@@ -72,7 +72,8 @@ describe('server errors', () => {
     form.append('file', new Blob(['time,current\n0,0.1\n1,0.2\n'], { type: 'text/csv' }), 'log.csv');
     const uploaded = await (await client.request(`/api/v1/briefs/${created.id}/files`, { method: 'POST', body: form })).json();
     const folder = path.join(server.dataDir, 'uploads');
-    for (const name of readdirSync(folder, { recursive: true }) as string[]) rmSync(path.join(folder, name), { recursive: true, force: true });
+    for (const name of readdirSync(folder, { recursive: true }) as string[])
+      rmSync(path.join(folder, name), { recursive: true, force: true });
     const response = await client.request(`/api/v1/files/${uploaded.id}`);
     expect(response.status).toBe(500);
     const body = await response.json();

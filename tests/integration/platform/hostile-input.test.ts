@@ -30,7 +30,20 @@ afterAll(async () => {
 });
 
 const nastyScalar = fc.oneof(
-  fc.constantFrom('NaN', 'Infinity', '-Infinity', '1e309', '0x10', '', ' ', 'null', 'undefined', '__proto__', '<script>alert(1)</script>', "'; DROP TABLE brief; --"),
+  fc.constantFrom(
+    'NaN',
+    'Infinity',
+    '-Infinity',
+    '1e309',
+    '0x10',
+    '',
+    ' ',
+    'null',
+    'undefined',
+    '__proto__',
+    '<script>alert(1)</script>',
+    "'; DROP TABLE brief; --",
+  ),
   fc.string({ maxLength: 40 }),
   fc.string({ minLength: 5_000, maxLength: 20_000 }),
   fc.double(),
@@ -40,16 +53,42 @@ const nastyScalar = fc.oneof(
   fc.constant(null),
 );
 const nastyValue = fc.letrec((tie) => ({
-  value: fc.oneof({ depthSize: 'small', withCrossShrink: true }, nastyScalar, fc.array(tie('value'), { maxLength: 4 }), fc.dictionary(fc.string({ maxLength: 12 }), tie('value'), { maxKeys: 5 })),
+  value: fc.oneof(
+    { depthSize: 'small', withCrossShrink: true },
+    nastyScalar,
+    fc.array(tie('value'), { maxLength: 4 }),
+    fc.dictionary(fc.string({ maxLength: 12 }), tie('value'), { maxKeys: 5 }),
+  ),
 })).value;
 
 /** Briefs that look almost right: the real field names with hostile values in some of them. */
 const nearBrief = fc.record(
   {
-    input: fc.record({ vMin: nastyValue, vNom: fc.oneof(fc.double({ min: 0, max: 2000 }), nastyValue), vMax: fc.double({ min: -10, max: 2e6 }), rippleVpp: nastyValue, source: fc.constantFrom('battery', 'bus', 'mains', 7) }, { requiredKeys: [] }),
-    output: fc.record({ v: fc.oneof(fc.double({ min: -1, max: 1e5 }), nastyValue), tolerance: fc.double({ min: -1, max: 2 }), iMin: nastyValue, iTyp: fc.double({ min: 0, max: 10 }), iMax: fc.double({ min: 0, max: 1e4 }) }, { requiredKeys: [] }),
+    input: fc.record(
+      {
+        vMin: nastyValue,
+        vNom: fc.oneof(fc.double({ min: 0, max: 2000 }), nastyValue),
+        vMax: fc.double({ min: -10, max: 2e6 }),
+        rippleVpp: nastyValue,
+        source: fc.constantFrom('battery', 'bus', 'mains', 7),
+      },
+      { requiredKeys: [] },
+    ),
+    output: fc.record(
+      {
+        v: fc.oneof(fc.double({ min: -1, max: 1e5 }), nastyValue),
+        tolerance: fc.double({ min: -1, max: 2 }),
+        iMin: nastyValue,
+        iTyp: fc.double({ min: 0, max: 10 }),
+        iMax: fc.double({ min: 0, max: 1e4 }),
+      },
+      { requiredKeys: [] },
+    ),
     noise: fc.record({ class: fc.constantFrom('digital', 'rf', 'loud'), maxRippleVpp: nastyValue }, { requiredKeys: [] }),
-    thermal: fc.record({ ambientMaxC: fc.oneof(fc.double({ min: -300, max: 300 }), nastyValue), airflow: fc.constantFrom('enclosed', 'wind') }, { requiredKeys: [] }),
+    thermal: fc.record(
+      { ambientMaxC: fc.oneof(fc.double({ min: -300, max: 300 }), nastyValue), airflow: fc.constantFrom('enclosed', 'wind') },
+      { requiredKeys: [] },
+    ),
     weights: nastyValue,
     overrides: nastyValue,
   },
@@ -60,7 +99,10 @@ const deep = fc.integer({ min: 200, max: 5_000 }).map((depth) => '['.repeat(dept
 
 async function answer(visitor: Visitor | null, method: string, path: string, body: unknown, raw = false) {
   const v = visitor ?? new Visitor(server.baseUrl);
-  const response = await v.request(path, raw ? { method, headers: { 'content-type': 'application/json' }, body: body as string } : { method, json: body });
+  const response = await v.request(
+    path,
+    raw ? { method, headers: { 'content-type': 'application/json' }, body: body as string } : { method, json: body },
+  );
   const text = await response.text();
   return { status: response.status, text };
 }
@@ -73,22 +115,34 @@ function expectClear(result: { status: number; text: string }) {
 
 const ROUTES: { name: string; runs: number; send: (body: unknown) => Promise<{ status: number; text: string }> }[] = [
   { name: 'POST /api/v1/evaluate', runs: 3_000, send: (b) => answer(null, 'POST', '/api/v1/evaluate', b) },
-  { name: 'POST /api/v1/briefs', runs: 2_000, send: (b) => answer(client, 'POST', '/api/v1/briefs', { title: 'fuzz', submit: true, spec: b }) },
+  {
+    name: 'POST /api/v1/briefs',
+    runs: 2_000,
+    send: (b) => answer(client, 'POST', '/api/v1/briefs', { title: 'fuzz', submit: true, spec: b }),
+  },
   { name: 'POST /api/v1/briefs (whole body)', runs: 1_000, send: (b) => answer(client, 'POST', '/api/v1/briefs', b) },
   { name: 'PATCH /api/v1/briefs/:id', runs: 1_500, send: (b) => answer(client, 'PATCH', `/api/v1/briefs/${ownDraftId}`, { spec: b }) },
-  { name: 'POST /api/v1/briefs/:id/revisions', runs: 1_500, send: (b) => answer(engineer, 'POST', `/api/v1/briefs/${reviewBriefId}/revisions`, { overrides: b }) },
+  {
+    name: 'POST /api/v1/briefs/:id/revisions',
+    runs: 1_500,
+    send: (b) => answer(engineer, 'POST', `/api/v1/briefs/${reviewBriefId}/revisions`, { overrides: b }),
+  },
   { name: 'POST /api/v1/account', runs: 1_000, send: (b) => answer(null, 'POST', '/api/v1/account', b) },
 ];
 
 describe('hostile JSON bodies never reach a 5xx', () => {
-  test.each(ROUTES)('$name: $runs generated bodies', async ({ runs, send }) => {
-    await fc.assert(
-      fc.asyncProperty(fc.oneof(nearBrief, nastyValue), async (body) => {
-        expectClear(await send(body));
-      }),
-      { numRuns: runs, seed: 20261202 },
-    );
-  }, 240_000);
+  test.each(ROUTES)(
+    '$name: $runs generated bodies',
+    async ({ runs, send }) => {
+      await fc.assert(
+        fc.asyncProperty(fc.oneof(nearBrief, nastyValue), async (body) => {
+          expectClear(await send(body));
+        }),
+        { numRuns: runs, seed: 20261202 },
+      );
+    },
+    240_000,
+  );
 
   test('malformed JSON, deep nesting and oversized bodies are refused early with a 4xx', async () => {
     for (const text of ['{', '{"a":', 'nul', '{"input":{"vMin":1,}}', '\u0000', '[1,2', '{"a":"\\u12"}']) {

@@ -59,7 +59,11 @@ describe('when the mail server refuses', () => {
     const download = await admin.request(link);
     expect(download.status).toBe(200);
     expect(download.headers.get('content-type')).toBe('application/pdf');
-    expect(Buffer.from(await download.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+    expect(
+      Buffer.from(await download.arrayBuffer())
+        .subarray(0, 5)
+        .toString(),
+    ).toBe('%PDF-');
 
     const engineer = await new Visitor(broken.baseUrl).signIn(DEMO.engineer);
     expect((await engineer.request('/admin/mail')).status).toBe(403);

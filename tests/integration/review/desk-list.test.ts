@@ -52,7 +52,9 @@ describe('the desk list', () => {
 
     const newest = (await list(engineer, 'status=submitted&sort=-submitted&pageSize=100')).items.map((b) => Date.parse(b.submittedAt!));
     expect(newest).toEqual([...newest].sort((a, b) => b - a));
-    const oldest = (await list(engineer, 'sort=submitted&pageSize=100')).items.filter((b) => b.submittedAt).map((b) => Date.parse(b.submittedAt!));
+    const oldest = (await list(engineer, 'sort=submitted&pageSize=100')).items
+      .filter((b) => b.submittedAt)
+      .map((b) => Date.parse(b.submittedAt!));
     expect(oldest).toEqual([...oldest].sort((a, b) => a - b));
   });
 

@@ -108,7 +108,22 @@ describe('part list export', () => {
     expect(response.headers.get('content-disposition')).toContain(`-rev${revision.number}.csv"`);
     const parsed = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
-    expect(parsed.meta.fields).toEqual(['ref', 'role', 'part', 'value', 'unit', 'value_text', 'quantity', 'rating_w', 'rating_v', 'tolerance', 'worst_w', 'fault_w', 'cost_minor', 'currency']);
+    expect(parsed.meta.fields).toEqual([
+      'ref',
+      'role',
+      'part',
+      'value',
+      'unit',
+      'value_text',
+      'quantity',
+      'rating_w',
+      'rating_v',
+      'tolerance',
+      'worst_w',
+      'fault_w',
+      'cost_minor',
+      'currency',
+    ]);
     expect(parsed.data.map((r) => r.ref)).toEqual(chosen.components.map((c) => c.ref));
     for (const [k, row] of parsed.data.entries()) {
       const part = chosen.components[k]!;

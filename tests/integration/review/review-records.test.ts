@@ -42,7 +42,10 @@ describe('revisions compared side by side', () => {
     const buck = one.result.options.find((o: { topology: string }) => o.topology === 'buck');
     const buckBoost = two.result.options.find((o: { topology: string }) => o.topology === 'buck-boost');
     expect(score).toEqual({ key: 'score', label: 'Score', a: buck.score.toFixed(1), b: buckBoost.score.toFixed(1), changed: true });
-    expect(compared.figures.find((f: { key: string }) => f.key === 'partCount')).toMatchObject({ a: String(buck.partCount), b: String(buckBoost.partCount) });
+    expect(compared.figures.find((f: { key: string }) => f.key === 'partCount')).toMatchObject({
+      a: String(buck.partCount),
+      b: String(buckBoost.partCount),
+    });
 
     const page = await engineer.request(`/desk/briefs/${briefId}/compare?a=${one.id}&b=${two.id}`);
     expect(page.status).toBe(200);
@@ -112,7 +115,9 @@ describe('the arrival e-mail', () => {
   test('tells the engineers about a submitted brief with a link to its review page', async () => {
     const briefId = plcId;
     const list = await (await fetch(`${mailApiUrl}/messages?to=${DEMO.engineer}`)).json();
-    const summary = (Array.isArray(list) ? list : list.messages).find((m: { subject: string }) => m.subject === 'New brief: Review test: 5 V from 24 V');
+    const summary = (Array.isArray(list) ? list : list.messages).find(
+      (m: { subject: string }) => m.subject === 'New brief: Review test: 5 V from 24 V',
+    );
     const message = await (await fetch(`${mailApiUrl}/messages/${summary.id}`)).json();
     expect(message.text).toContain(`${baseUrl}/desk/briefs/${briefId}`);
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);

@@ -19,7 +19,12 @@ describe('design revisions', () => {
     const one = await first.json();
     const second = await engineer.request(`/api/v1/briefs/${id}/revisions`, {
       method: 'POST',
-      json: { topology: 'buck', weights: { efficiency: 5, heat: 1, partCount: 1, noise: 1, cost: 1 }, overrides: { fswHz: 1_000_000 }, note: 'Faster switching' },
+      json: {
+        topology: 'buck',
+        weights: { efficiency: 5, heat: 1, partCount: 1, noise: 1, cost: 1 },
+        overrides: { fswHz: 1_000_000 },
+        note: 'Faster switching',
+      },
     });
     expect(second.status).toBe(201);
     const two = await second.json();

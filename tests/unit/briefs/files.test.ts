@@ -42,8 +42,14 @@ beforeAll(async () => {
 describe('saving a brief file', () => {
   test('writes the bytes under a random key and a row with the safe name', async () => {
     const before = stored().length;
-    const outcome = await saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: '../../etc/passwd.pdf', bytes: pdf });
-    expect(outcome).toMatchObject({ ok: true, file: { name: 'passwd.pdf', kind: 'datasheet', mimeType: 'application/pdf', sizeBytes: pdf.length, loadSummary: null } });
+    const outcome = await saveBriefFile(
+      { db, store },
+      { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: '../../etc/passwd.pdf', bytes: pdf },
+    );
+    expect(outcome).toMatchObject({
+      ok: true,
+      file: { name: 'passwd.pdf', kind: 'datasheet', mimeType: 'application/pdf', sizeBytes: pdf.length, loadSummary: null },
+    });
     if (!outcome.ok) return;
     const [row] = await db.select().from(briefFile).where(eq(briefFile.id, outcome.file.id));
     expect(row).toMatchObject({ briefId: open, uploadedBy: owner.id, originalName: 'passwd.pdf' });
@@ -52,7 +58,10 @@ describe('saving a brief file', () => {
   });
 
   test('a load log carries its reduced figures in the answer and the row', async () => {
-    const outcome = await saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind: undefined, name: 'bench.csv', bytes: csv });
+    const outcome = await saveBriefFile(
+      { db, store },
+      { briefId: open, uploaderId: owner.id, kind: undefined, name: 'bench.csv', bytes: csv },
+    );
     expect(outcome.ok).toBe(true);
     if (!outcome.ok) return;
     // Trapezoids 0.2 + 0.2 + 0.2 = 0.6 A·s over 4 s (see load-log.test.ts for the arithmetic).
@@ -63,10 +72,20 @@ describe('saving a brief file', () => {
   });
 
   test.each([
-    ['an empty file', new Uint8Array(), 'datasheet' as const, { reason: 'invalid', error: 'invalid_upload', message: 'The file is empty.' }],
+    [
+      'an empty file',
+      new Uint8Array(),
+      'datasheet' as const,
+      { reason: 'invalid', error: 'invalid_upload', message: 'The file is empty.' },
+    ],
     ['a bad load log', new TextEncoder().encode('0,0.1\n'), 'load-log' as const, { reason: 'invalid', error: 'invalid_load_log' }],
     ['a file over 10 MB', new Uint8Array(10 * 1024 * 1024 + 1), 'other' as const, { reason: 'too_large' }],
-    ['a program', new Uint8Array([0x4d, 0x5a, 0x90, 0, 3, 0, 0, 0, 4, 0, 0, 0, 0xff, 0xff, 0, 0]), 'datasheet' as const, { reason: 'type_not_accepted' }],
+    [
+      'a program',
+      new Uint8Array([0x4d, 0x5a, 0x90, 0, 3, 0, 0, 0, 4, 0, 0, 0, 0xff, 0xff, 0, 0]),
+      'datasheet' as const,
+      { reason: 'type_not_accepted' },
+    ],
   ])('%s is refused before anything is written', async (_case, bytes, kind, refusal) => {
     const [files, rows] = [stored().length, (await rowsOf(open)).length];
     const outcome = await saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind, name: 'x.pdf', bytes });
@@ -77,7 +96,10 @@ describe('saving a brief file', () => {
 
   test('a brief closed by the time the row is written gets no row, and its bytes are removed', async () => {
     const files = stored().length;
-    const outcome = await saveBriefFile({ db, store }, { briefId: closed, uploaderId: owner.id, kind: 'datasheet', name: 'late.pdf', bytes: pdf });
+    const outcome = await saveBriefFile(
+      { db, store },
+      { briefId: closed, uploaderId: owner.id, kind: 'datasheet', name: 'late.pdf', bytes: pdf },
+    );
     expect(outcome).toEqual({ ok: false, reason: 'closed', message: 'This brief is cancelled; files can no longer be added to it.' });
     expect(stored()).toHaveLength(files);
     expect(await rowsOf(closed)).toHaveLength(0);
@@ -85,7 +107,10 @@ describe('saving a brief file', () => {
 
   test('a brief that no longer exists gets no row, and the bytes are removed', async () => {
     const files = stored().length;
-    const outcome = await saveBriefFile({ db, store }, { briefId: 'gone', uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf });
+    const outcome = await saveBriefFile(
+      { db, store },
+      { briefId: 'gone', uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf },
+    );
     expect(outcome).toEqual({ ok: false, reason: 'not_found' });
     expect(stored()).toHaveLength(files);
   });
@@ -93,21 +118,27 @@ describe('saving a brief file', () => {
   test('when the database write fails the bytes are removed and the error goes on', async () => {
     const files = stored().length;
     const failing = { transaction: () => Promise.reject(new Error('disk I/O error')) } as unknown as Database;
-    await expect(saveBriefFile({ db: failing, store }, { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf })).rejects.toThrow('disk I/O error');
+    await expect(
+      saveBriefFile({ db: failing, store }, { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf }),
+    ).rejects.toThrow('disk I/O error');
     expect(stored()).toHaveLength(files);
   });
 
   test('when the bytes cannot be stored no row is written', async () => {
     const rows = (await rowsOf(open)).length;
     const full: UploadStore = { ...store, put: () => Promise.reject(new Error('no space left on device')) };
-    await expect(saveBriefFile({ db, store: full }, { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf })).rejects.toThrow('no space left');
+    await expect(
+      saveBriefFile({ db, store: full }, { briefId: open, uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf }),
+    ).rejects.toThrow('no space left');
     expect(await rowsOf(open)).toHaveLength(rows);
   });
 
   test('many uploads to one brief at once all land', async () => {
     const rows = (await rowsOf(open)).length;
     const outcomes = await Promise.all(
-      Array.from({ length: 12 }, (_, k) => saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind: 'schematic', name: `sheet-${k}.pdf`, bytes: pdf })),
+      Array.from({ length: 12 }, (_, k) =>
+        saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind: 'schematic', name: `sheet-${k}.pdf`, bytes: pdf }),
+      ),
     );
     expect(outcomes.every((o) => o.ok)).toBe(true);
     expect(await rowsOf(open)).toHaveLength(rows + 12);

@@ -33,7 +33,12 @@ describe('load-log reduction against a hand-computed log', () => {
     expect(s.iTypA).toBeCloseTo(0.15, 12);
     expect(s.iRmsA).toBeCloseTo(Math.sqrt(0.03), 12);
     expect(s.iMaxA).toBe(0.3);
-    expect(s.points).toEqual([[0, 0.1], [1, 0.3], [2, 0.1], [4, 0.1]]);
+    expect(s.points).toEqual([
+      [0, 0.1],
+      [1, 0.3],
+      [2, 0.1],
+      [4, 0.1],
+    ]);
   });
 
   test('weights by time, not by sample: a long quiet stretch pulls the mean down', () => {
@@ -117,11 +122,19 @@ describe('load-log refusals say what is wrong and where', () => {
     ['a bad time on the first row', 'zero,0.1\n1,0.2\n', 'Row 1: the time "zero" is not a number.'],
     ['a missing cell', '0,0.1\n1,\n', 'Row 2: the current cell is empty.'],
     ['a short row', '0,0.1\n1\n', 'Row 2 has 1 column'],
-    ['a decimal comma', 'time;current\n0;0,1\n1;0,2\n', 'Row 2: the current "0,1" uses a decimal comma; write decimals with a point, e.g. 0.1.'],
-    ['a time going backwards', '0,0.1\n2,0.1\n1,0.1\n', 'Row 3: the time 1 is earlier than the previous row\'s (a negative time step)'],
-    ['a repeated time', '0,0.1\n1,0.1\n1,0.2\n', 'Row 3: the time 1 repeats the previous row\'s'],
+    [
+      'a decimal comma',
+      'time;current\n0;0,1\n1;0,2\n',
+      'Row 2: the current "0,1" uses a decimal comma; write decimals with a point, e.g. 0.1.',
+    ],
+    ['a time going backwards', '0,0.1\n2,0.1\n1,0.1\n', "Row 3: the time 1 is earlier than the previous row's (a negative time step)"],
+    ['a repeated time', '0,0.1\n1,0.1\n1,0.2\n', "Row 3: the time 1 repeats the previous row's"],
     ['a negative current', '0,0.1\n1,-0.2\n', 'Row 2: the current -0.2 is negative'],
-    ['an unknown current unit', 'time (s),current (V)\n0,1\n1,1\n', 'The current column\'s header "current (V)" gives the unit "V"; use A, mA, uA or nA.'],
+    [
+      'an unknown current unit',
+      'time (s),current (V)\n0,1\n1,1\n',
+      'The current column\'s header "current (V)" gives the unit "V"; use A, mA, uA or nA.',
+    ],
     ['an unknown time unit', 'time (days),current (A)\n0,1\n1,1\n', 'The time column\'s header "time (days)" gives the unit "days"'],
     ['a number too large', '0,1e400\n1,1\n', 'Row 1: the current "1e400" is too large.'],
     ['an unclosed quote', '0,0.1\n1,"0.2\n', 'Row 2 could not be read'],

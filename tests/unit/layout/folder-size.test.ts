@@ -11,7 +11,9 @@ const MOST_FILES_IN_A_FOLDER = 20;
 function crowdedFolders(folder: string): string[] {
   const entries = readdirSync(path.join(root, folder), { withFileTypes: true });
   const files = entries.filter((e) => e.isFile() && SOURCE_FILE.test(e.name)).length;
-  const below = entries.filter((e) => e.isDirectory() && e.name !== 'node_modules').flatMap((e) => crowdedFolders(path.join(folder, e.name)));
+  const below = entries
+    .filter((e) => e.isDirectory() && e.name !== 'node_modules')
+    .flatMap((e) => crowdedFolders(path.join(folder, e.name)));
   return files > MOST_FILES_IN_A_FOLDER ? [`${folder} (${files})`, ...below] : below;
 }
 

@@ -47,7 +47,11 @@ export function importGraph(root: string, folders: readonly string[]): Map<strin
       // TypeScript does not resolve `.astro` files; their paths are taken as written.
       const direct =
         resolved ??
-        (fileName.startsWith('.') ? path.resolve(path.dirname(absolute), fileName) : fileName.startsWith('~/') ? path.join(root, 'src', fileName.slice(2)) : undefined);
+        (fileName.startsWith('.')
+          ? path.resolve(path.dirname(absolute), fileName)
+          : fileName.startsWith('~/')
+            ? path.join(root, 'src', fileName.slice(2))
+            : undefined);
       if (!direct) continue;
       const target = path.relative(root, direct);
       if (known.has(target)) targets.add(target);

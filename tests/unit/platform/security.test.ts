@@ -38,6 +38,8 @@ describe('security headers', () => {
   });
   test('forms may only lead to our own pages and the payment provider’s hosted checkout', () => {
     expect(securityHeaders(true)['content-security-policy']).toContain("form-action 'self' https://checkout.stripe.com;");
-    expect(securityHeaders(false, 'http://127.0.0.1:12111')['content-security-policy']).toContain("form-action 'self' http://127.0.0.1:12111;");
+    expect(securityHeaders(false, 'http://127.0.0.1:12111')['content-security-policy']).toContain(
+      "form-action 'self' http://127.0.0.1:12111;",
+    );
   });
 });

@@ -10,9 +10,14 @@ import { user } from './auth-schema';
 
 export * from './auth-schema';
 
-const id = () => text('id').primaryKey().$defaultFn(() => crypto.randomUUID());
+const id = () =>
+  text('id')
+    .primaryKey()
+    .$defaultFn(() => crypto.randomUUID());
 const createdAt = () =>
-  integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`);
+  integer('created_at', { mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`);
 const updatedAt = () =>
   integer('updated_at', { mode: 'timestamp_ms' })
     .notNull()

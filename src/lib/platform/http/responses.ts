@@ -16,7 +16,12 @@ export function jsonText(text: string, status = 200): Response {
   return new Response(text, { status, headers: JSON_HEADERS });
 }
 
-export function apiError(status: number, error: string, extra: Record<string, unknown> = {}, headers: Record<string, string> = {}): Response {
+export function apiError(
+  status: number,
+  error: string,
+  extra: Record<string, unknown> = {},
+  headers: Record<string, string> = {},
+): Response {
   return json({ error, ...extra }, status, headers);
 }
 
@@ -30,18 +35,28 @@ export const notFound = () => apiError(404, 'not_found', { message: 'Nothing her
 export const invalid = (error: string, issues: FieldIssue[]) => apiError(400, error, { issues });
 export const conflict = (message: string) => apiError(409, 'wrong_state', { message });
 export const tooMany = (retryAfterSeconds: number) =>
-  apiError(429, 'rate_limited', { message: `Too many attempts. Try again in ${retryAfterSeconds} s.` }, { 'retry-after': String(retryAfterSeconds) });
+  apiError(
+    429,
+    'rate_limited',
+    { message: `Too many attempts. Try again in ${retryAfterSeconds} s.` },
+    { 'retry-after': String(retryAfterSeconds) },
+  );
 
 /** Reads a JSON body with a size cap; answers 400/413 itself so routes never see a half-read body. */
-export async function readJson(request: Request, maxBytes = 64 * 1024): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+export async function readJson(
+  request: Request,
+  maxBytes = 64 * 1024,
+): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
   const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > maxBytes) return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
+  if (declared > maxBytes)
+    return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
   const type = request.headers.get('content-type') ?? '';
   if (!type.toLowerCase().includes('application/json')) {
     return { ok: false, response: apiError(415, 'unsupported_media_type', { message: 'Send the body as application/json.' }) };
   }
   const text = await request.text();
-  if (Buffer.byteLength(text) > maxBytes) return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
+  if (Buffer.byteLength(text) > maxBytes)
+    return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
   try {
     return { ok: true, value: JSON.parse(text) };
   } catch {

@@ -20,7 +20,10 @@ export async function lastMailFailure(relatedId: string): Promise<string | null>
 
 export type CaughtMessage = Omit<StoredMessage, 'rawBase64' | 'attachments'> & { attachments: MessageSummary['attachments'] };
 
-export type CatcherView = { configured: false } | { configured: true; url: string; ok: true; messages: CaughtMessage[] } | { configured: true; url: string; ok: false; error: string };
+export type CatcherView =
+  | { configured: false }
+  | { configured: true; url: string; ok: true; messages: CaughtMessage[] }
+  | { configured: true; url: string; ok: false; error: string };
 
 /** Catcher message ids are its own file names: letters, digits, dots and dashes. */
 export const isCatcherId = (id: string) => /^[\w.-]{1,100}$/.test(id);
@@ -37,7 +40,9 @@ export async function caughtMessages(limit = 25): Promise<CatcherView> {
   if (!url) return { configured: false };
   try {
     const summaries = (await fetchJson<MessageSummary[]>(`${url}/messages`)).slice(0, limit);
-    const full = await Promise.all(summaries.map((s) => fetchJson<Omit<StoredMessage, 'rawBase64'>>(`${url}/messages/${encodeURIComponent(s.id)}`)));
+    const full = await Promise.all(
+      summaries.map((s) => fetchJson<Omit<StoredMessage, 'rawBase64'>>(`${url}/messages/${encodeURIComponent(s.id)}`)),
+    );
     const messages = full.map((m, i) => ({ ...m, attachments: summaries[i]?.attachments ?? [] }));
     return { configured: true, url, ok: true, messages };
   } catch (err) {
@@ -49,7 +54,9 @@ export async function caughtMessages(limit = 25): Promise<CatcherView> {
 export async function caughtAttachment(id: string, index: number): Promise<Response | null> {
   const url = config.mailCatcherUrl;
   if (!url || !isCatcherId(id) || !Number.isInteger(index) || index < 0) return null;
-  const response = await fetch(`${url}/messages/${encodeURIComponent(id)}/attachments/${index}`, { signal: AbortSignal.timeout(3_000) }).catch(() => null);
+  const response = await fetch(`${url}/messages/${encodeURIComponent(id)}/attachments/${index}`, {
+    signal: AbortSignal.timeout(3_000),
+  }).catch(() => null);
   if (!response?.ok) return null;
   return new Response(response.body, {
     headers: {

@@ -20,7 +20,11 @@ export function woffToSfnt(woff: Buffer): Buffer {
     const compLength = woff.readUInt32BE(at + 8);
     const origLength = woff.readUInt32BE(at + 12);
     const packed = woff.subarray(offset, offset + compLength);
-    return { tag: woff.readUInt32BE(at), checksum: woff.readUInt32BE(at + 16), data: compLength < origLength ? inflateSync(packed) : packed };
+    return {
+      tag: woff.readUInt32BE(at),
+      checksum: woff.readUInt32BE(at + 16),
+      data: compLength < origLength ? inflateSync(packed) : packed,
+    };
   });
   const pad = (n: number) => (n + 3) & ~3;
   const headerSize = 12 + 16 * numTables;
@@ -56,10 +60,51 @@ interface Subset {
 }
 
 const SUBSETS: Subset[] = [
-  { family: 'Manrope', file: 'latin', ranges: [[0x0000, 0x00ff], [0x0131, 0x0131], [0x0152, 0x0153], [0x02bb, 0x02bc], [0x02c6, 0x02c6], [0x02da, 0x02da], [0x02dc, 0x02dc], [0x2000, 0x206f], [0x20ac, 0x20ac], [0x2122, 0x2122], [0x2191, 0x2191], [0x2193, 0x2193], [0x2212, 0x2212], [0x2215, 0x2215]] },
-  { family: 'ManropeLatinExt', file: 'latin-ext', ranges: [[0x0100, 0x02ba], [0x02bd, 0x02c5], [0x02c7, 0x02cc], [0x02ce, 0x02d7], [0x02dd, 0x02ff], [0x1e00, 0x1e9f], [0x20a0, 0x20ab], [0x20ad, 0x20c0], [0x2113, 0x2113]] },
+  {
+    family: 'Manrope',
+    file: 'latin',
+    ranges: [
+      [0x0000, 0x00ff],
+      [0x0131, 0x0131],
+      [0x0152, 0x0153],
+      [0x02bb, 0x02bc],
+      [0x02c6, 0x02c6],
+      [0x02da, 0x02da],
+      [0x02dc, 0x02dc],
+      [0x2000, 0x206f],
+      [0x20ac, 0x20ac],
+      [0x2122, 0x2122],
+      [0x2191, 0x2191],
+      [0x2193, 0x2193],
+      [0x2212, 0x2212],
+      [0x2215, 0x2215],
+    ],
+  },
+  {
+    family: 'ManropeLatinExt',
+    file: 'latin-ext',
+    ranges: [
+      [0x0100, 0x02ba],
+      [0x02bd, 0x02c5],
+      [0x02c7, 0x02cc],
+      [0x02ce, 0x02d7],
+      [0x02dd, 0x02ff],
+      [0x1e00, 0x1e9f],
+      [0x20a0, 0x20ab],
+      [0x20ad, 0x20c0],
+      [0x2113, 0x2113],
+    ],
+  },
   { family: 'ManropeGreek', file: 'greek', ranges: [[0x0370, 0x03ff]] },
-  { family: 'ManropeCyrillic', file: 'cyrillic', ranges: [[0x0400, 0x045f], [0x0490, 0x0491], [0x04b0, 0x04b1]] },
+  {
+    family: 'ManropeCyrillic',
+    file: 'cyrillic',
+    ranges: [
+      [0x0400, 0x045f],
+      [0x0490, 0x0491],
+      [0x04b0, 0x04b1],
+    ],
+  },
 ];
 
 export const BASE_FAMILY = 'Manrope';

@@ -2,6 +2,7 @@
 
 const MAX_BASE_LENGTH = 120;
 // Control characters and invisible formatting (bidi overrides can make "exe.pdf" read as "fdp.exe").
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const INVISIBLE = /[\u0000-\u001f\u007f-\u009f\u00ad\u200b-\u200f\u202a-\u202e\u2060-\u2069\ufeff]/g;
 const RESERVED = /[<>:"/\\|?*]/g;
 const WINDOWS_DEVICE = /^(con|prn|aux|nul|com\d|lpt\d)$/i;
@@ -16,7 +17,12 @@ const trimDotsAndSpaces = (s: string) => s.replace(/^[\s.]+|[\s.]+$/g, '');
  * the uploader used when it fits the detected type, else the first).
  */
 export function safeFileName(original: string, extensions: readonly [string, ...string[]]): string {
-  const lastSegment = original.normalize('NFC').replace(/^[a-zA-Z]:/, '').split(/[/\\]/).pop() ?? '';
+  const lastSegment =
+    original
+      .normalize('NFC')
+      .replace(/^[a-zA-Z]:/, '')
+      .split(/[/\\]/)
+      .pop() ?? '';
   const cleaned = trimDotsAndSpaces(lastSegment.replace(INVISIBLE, '').replace(RESERVED, '_').replace(/\s+/g, ' '));
   const match = EXTENSION.exec(cleaned);
   const given = match?.[1]?.toLowerCase();

@@ -59,15 +59,29 @@ export async function decideUploadType(bytes: Uint8Array, name: string, declared
   const detected = await fileTypeFromBuffer(bytes);
   if (detected) {
     const accepted = BINARY[detected.mime];
-    if (!accepted) return { ok: false, message: `The file's contents are ${detected.ext.toUpperCase()} (${detected.mime}), which is not accepted. ${ACCEPTED_TYPES_MESSAGE}` };
-    if (declaredKind === 'load-log') return { ok: false, message: `A load log must be a CSV text file; this file's contents are ${accepted.label}.` };
-    return { ok: true, type: { mimeType: detected.mime, extensions: accepted.extensions, kind: declaredKind ?? accepted.defaultKind, text: null } };
+    if (!accepted)
+      return {
+        ok: false,
+        message: `The file's contents are ${detected.ext.toUpperCase()} (${detected.mime}), which is not accepted. ${ACCEPTED_TYPES_MESSAGE}`,
+      };
+    if (declaredKind === 'load-log')
+      return { ok: false, message: `A load log must be a CSV text file; this file's contents are ${accepted.label}.` };
+    return {
+      ok: true,
+      type: { mimeType: detected.mime, extensions: accepted.extensions, kind: declaredKind ?? accepted.defaultKind, text: null },
+    };
   }
 
   const text = asText(bytes);
-  if (text === null) return { ok: false, message: `The file's type could not be recognised and it is not UTF-8 text. ${ACCEPTED_TYPES_MESSAGE}` };
+  if (text === null)
+    return { ok: false, message: `The file's type could not be recognised and it is not UTF-8 text. ${ACCEPTED_TYPES_MESSAGE}` };
   // Markup (HTML, SVG, XML) is text too, and SVG and HTML can carry script.
-  if (text.replace(/^\uFEFF/, '').trimStart().startsWith('<')) {
+  if (
+    text
+      .replace(/^\uFEFF/, '')
+      .trimStart()
+      .startsWith('<')
+  ) {
     return { ok: false, message: `The file looks like HTML, SVG or XML markup, which is not accepted. ${ACCEPTED_TYPES_MESSAGE}` };
   }
   const extension = extensionOf(name);

@@ -15,7 +15,8 @@ export type UploadForm = { ok: true; file: File; kind: FileKind | undefined } | 
 
 const kindSchema = z.enum(FILE_KINDS, { error: `Choose a kind: ${FILE_KINDS.join(', ')}.` }).optional();
 
-const tooLarge = () => apiError(413, 'file_too_large', { message: `The upload is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` });
+const tooLarge = () =>
+  apiError(413, 'file_too_large', { message: `The upload is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` });
 
 /** The body's bytes, or null as soon as more than `limit` have arrived. */
 async function readCapped(body: ReadableStream<Uint8Array>, limit: number): Promise<Uint8Array<ArrayBuffer> | null> {
@@ -44,7 +45,12 @@ async function readCapped(body: ReadableStream<Uint8Array>, limit: number): Prom
 export async function readUploadForm(request: Request): Promise<UploadForm> {
   const contentType = request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;/i.test(contentType)) {
-    return { ok: false, response: apiError(415, 'unsupported_media_type', { message: 'Send the upload as multipart/form-data with the file in a field named "file".' }) };
+    return {
+      ok: false,
+      response: apiError(415, 'unsupported_media_type', {
+        message: 'Send the upload as multipart/form-data with the file in a field named "file".',
+      }),
+    };
   }
   const limit = MAX_UPLOAD_BYTES + MULTIPART_OVERHEAD_BYTES;
   if (Number(request.headers.get('content-length') ?? '0') > limit) return { ok: false, response: tooLarge() };
@@ -56,13 +62,20 @@ export async function readUploadForm(request: Request): Promise<UploadForm> {
   try {
     form = await new Response(body, { headers: { 'content-type': contentType } }).formData();
   } catch {
-    return { ok: false, response: invalid('invalid_upload', [{ path: '', message: 'The upload could not be read as multipart/form-data.' }]) };
+    return {
+      ok: false,
+      response: invalid('invalid_upload', [{ path: '', message: 'The upload could not be read as multipart/form-data.' }]),
+    };
   }
 
   const issues: FieldIssue[] = [];
   const files = form.getAll('file');
   const file = files.length === 1 && files[0] instanceof File ? files[0] : null;
-  if (!file) issues.push({ path: 'file', message: files.length > 1 ? 'Send one file per upload.' : 'Choose a file to upload (the form field "file").' });
+  if (!file)
+    issues.push({
+      path: 'file',
+      message: files.length > 1 ? 'Send one file per upload.' : 'Choose a file to upload (the form field "file").',
+    });
   const kindValue = form.get('kind');
   const kind = kindSchema.safeParse(kindValue === null || kindValue === '' ? undefined : kindValue);
   if (!kind.success) issues.push({ path: 'kind', message: kind.error.issues[0]?.message ?? 'Choose a valid kind.' });

@@ -9,7 +9,8 @@ export const POST: APIRoute = async (context) => {
   const body = await parseBody(context.request, signUpSchema);
   if (!body.ok) return body.response;
   const outcome = await registerClient(body.value, context.request.headers);
-  if (!outcome.ok) return apiError(outcome.status, outcome.status === 409 ? 'account_exists' : 'sign_up_failed', { message: outcome.message });
+  if (!outcome.ok)
+    return apiError(outcome.status, outcome.status === 409 ? 'account_exists' : 'sign_up_failed', { message: outcome.message });
   const response = json({ id: outcome.userId, name: body.value.name }, 201);
   for (const cookie of outcome.headers.getSetCookie()) response.headers.append('set-cookie', cookie);
   return response;

@@ -22,7 +22,9 @@ describe('upload type policy, from the bytes', () => {
   test('a Windows program renamed .pdf is refused and named for what it is', async () => {
     const verdict = await decideUploadType(EXE, 'datasheet.pdf', 'datasheet');
     expect(verdict.ok).toBe(false);
-    expect(!verdict.ok && verdict.message).toMatch(/^The file's contents are EXE \(application\/x-msdownload\), which is not accepted\. Accepted: PDF, PNG/);
+    expect(!verdict.ok && verdict.message).toMatch(
+      /^The file's contents are EXE \(application\/x-msdownload\), which is not accepted\. Accepted: PDF, PNG/,
+    );
   });
 
   test('a zip archive is refused', async () => {
@@ -45,7 +47,10 @@ describe('upload type policy, from the bytes', () => {
 
   test('text is a load log when declared so, whatever its name', async () => {
     const verdict = await decideUploadType(text('0,0.1\n1,0.2\n'), 'capture', 'load-log');
-    expect(verdict).toEqual({ ok: true, type: { mimeType: 'text/csv', extensions: ['csv', 'txt'], kind: 'load-log', text: '0,0.1\n1,0.2\n' } });
+    expect(verdict).toEqual({
+      ok: true,
+      type: { mimeType: 'text/csv', extensions: ['csv', 'txt'], kind: 'load-log', text: '0,0.1\n1,0.2\n' },
+    });
   });
 
   test('a .csv without a kind is taken as a load log; a .txt as other plain text', async () => {

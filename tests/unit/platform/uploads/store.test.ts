@@ -33,10 +33,13 @@ describe('folder upload store', () => {
     for (const key of keys) expect(key).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
   });
 
-  test.each(['../escape', '/etc/passwd', 'a/b', '', 'report.pdf'])('a key that is not a storage key (%j) is refused before touching the disk', async (key) => {
-    await expect(store.put(key, bytes)).rejects.toThrow('Not a storage key');
-    await expect(store.get(key)).rejects.toThrow('Not a storage key');
-    await expect(store.remove(key)).rejects.toThrow('Not a storage key');
-    expect(readdirSync(parent)).toEqual(['uploads']);
-  });
+  test.each(['../escape', '/etc/passwd', 'a/b', '', 'report.pdf'])(
+    'a key that is not a storage key (%j) is refused before touching the disk',
+    async (key) => {
+      await expect(store.put(key, bytes)).rejects.toThrow('Not a storage key');
+      await expect(store.get(key)).rejects.toThrow('Not a storage key');
+      await expect(store.remove(key)).rejects.toThrow('Not a storage key');
+      expect(readdirSync(parent)).toEqual(['uploads']);
+    },
+  );
 });

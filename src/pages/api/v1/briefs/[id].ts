@@ -15,14 +15,37 @@ export const GET: APIRoute = async (context) => {
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
   const staff = isStaff(gate.user);
-  const [detail, quotes, revisions] = await Promise.all([briefDetail(row), quotesOfBrief(row.id), staff ? listRevisions(row.id) : Promise.resolve([])]);
+  const [detail, quotes, revisions] = await Promise.all([
+    briefDetail(row),
+    quotesOfBrief(row.id),
+    staff ? listRevisions(row.id) : Promise.resolve([]),
+  ]);
   return json({
     ...briefDetailJson(detail),
     // Clients see a quote once it is sent; drafts stay with the consultancy.
     quotes: quotes
       .filter((q) => staff || q.status !== 'draft')
-      .map((q) => ({ id: q.id, number: q.number, status: q.status, currency: q.currency, totalMinor: q.totalMinor, depositMinor: q.depositMinor, sentAt: q.sentAt?.toISOString() ?? null })),
-    ...(staff ? { revisions: revisions.map((r) => ({ id: r.id, number: r.number, topology: r.topology, note: r.note, author: r.author, createdAt: r.createdAt.toISOString() })) } : {}),
+      .map((q) => ({
+        id: q.id,
+        number: q.number,
+        status: q.status,
+        currency: q.currency,
+        totalMinor: q.totalMinor,
+        depositMinor: q.depositMinor,
+        sentAt: q.sentAt?.toISOString() ?? null,
+      })),
+    ...(staff
+      ? {
+          revisions: revisions.map((r) => ({
+            id: r.id,
+            number: r.number,
+            topology: r.topology,
+            note: r.note,
+            author: r.author,
+            createdAt: r.createdAt.toISOString(),
+          })),
+        }
+      : {}),
   });
 };
 

@@ -23,6 +23,9 @@ export const POST: APIRoute = async (context) => {
   const gate = guardApi(context, ['client']);
   if (!gate.ok) return gate.response;
   const created = await createBrief(gate.user, body.value);
-  if (!created.ok) return created.status === 400 ? invalid(created.error, created.issues) : apiError(created.status, 'wrong_state', { message: created.message });
+  if (!created.ok)
+    return created.status === 400
+      ? invalid(created.error, created.issues)
+      : apiError(created.status, 'wrong_state', { message: created.message });
   return json(briefJson(created.value), 201, { location: `/api/v1/briefs/${created.value.id}` });
 };

@@ -14,7 +14,10 @@ export const GET: APIRoute = async (context) => {
   const bytes = await uploadStore.get(file.storageKey);
   if (!bytes) {
     const errorId = logFailure(new Error('upload bytes missing'), { fileId: file.id, storageKey: file.storageKey });
-    return apiError(500, 'file_missing', { errorId, message: `The file’s contents are missing from storage; ask an engineer to restore it (reference ${errorId}).` });
+    return apiError(500, 'file_missing', {
+      errorId,
+      message: `The file’s contents are missing from storage; ask an engineer to restore it (reference ${errorId}).`,
+    });
   }
   return new Response(bytes, {
     status: 200,

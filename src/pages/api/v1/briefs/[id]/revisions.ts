@@ -23,6 +23,7 @@ export const POST: APIRoute = async (context) => {
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
   const saved = await saveRevision(row, gate.user.id, body.value);
-  if (!saved.ok) return saved.status === 400 ? invalid(saved.error, saved.issues) : apiError(saved.status, 'wrong_state', { message: saved.message });
+  if (!saved.ok)
+    return saved.status === 400 ? invalid(saved.error, saved.issues) : apiError(saved.status, 'wrong_state', { message: saved.message });
   return json(revisionJson(saved.value), 201);
 };
