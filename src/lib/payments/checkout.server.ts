@@ -3,6 +3,7 @@ import { db } from '../platform/db';
 import { brief, payment, quote, type QuoteRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { appUrl } from '../platform/links';
+import { movePayment } from './moves.server';
 import { paymentProvider } from './provider.server';
 
 export type CheckoutOutcome = { ok: true; url: string } | { ok: false; status: 404 | 409; message: string };
@@ -38,15 +39,12 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
   const [pending] = await db
     .select()
     .from(payment)
-    .where(and(eq(payment.quoteId, row.id), eq(payment.status, 'pending')))
+    .where(and(eq(payment.quoteId, row.id), eq(payment.kind, 'deposit'), eq(payment.status, 'pending')))
     .limit(1);
   if (pending) {
     const session = await provider.checkout.sessions.retrieve(pending.checkoutSessionId);
     if (session.status === 'open' && session.url) return { ok: true, url: session.url };
-    await db
-      .update(payment)
-      .set({ status: 'expired' })
-      .where(and(eq(payment.id, pending.id), eq(payment.status, 'pending')));
+    await movePayment(db, pending, 'expired');
   }
 
   const [attempts] = await db.select({ n: count() }).from(payment).where(eq(payment.quoteId, row.id));
@@ -76,7 +74,14 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
   if (!session.url) throw new Error('The payment provider returned a session without a page address.');
   await db
     .insert(payment)
-    .values({ quoteId: row.id, checkoutSessionId: session.id, amountMinor: row.depositMinor, currency: row.currency, status: 'pending' })
+    .values({
+      quoteId: row.id,
+      kind: 'deposit',
+      checkoutSessionId: session.id,
+      amountMinor: row.depositMinor,
+      currency: row.currency,
+      status: 'pending',
+    })
     .onConflictDoNothing();
   return { ok: true, url: session.url };
 }

@@ -9,9 +9,14 @@ export async function depositState(quoteId: string): Promise<{ paid: PaymentRow 
   const [paid] = await db
     .select()
     .from(payment)
-    .where(and(eq(payment.quoteId, quoteId), eq(payment.status, 'paid')))
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit'), eq(payment.status, 'paid')))
     .limit(1);
-  const [latest] = await db.select().from(payment).where(eq(payment.quoteId, quoteId)).orderBy(desc(payment.createdAt)).limit(1);
+  const [latest] = await db
+    .select()
+    .from(payment)
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit')))
+    .orderBy(desc(payment.createdAt))
+    .limit(1);
   return { paid: paid ?? null, latest: latest ?? null };
 }
 
@@ -21,7 +26,7 @@ export async function paidDeposits(quoteIds: readonly string[]): Promise<Map<str
   const rows = await db
     .select()
     .from(payment)
-    .where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.status, 'paid')));
+    .where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.kind, 'deposit'), eq(payment.status, 'paid')));
   return new Map(rows.map((row) => [row.quoteId, row]));
 }
 

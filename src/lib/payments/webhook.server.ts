@@ -1,8 +1,10 @@
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import { moveBrief } from '~/lib/briefs/index.server';
+import { moveQuote } from '~/lib/quotes/index.server';
 import { db } from '../platform/db';
-import { brief, payment, quote, stateChange, webhookEvent } from '../platform/db/schema';
+import { brief, payment, quote, webhookEvent } from '../platform/db/schema';
+import { movePayment } from './moves.server';
 import { sendReceipt } from './receipt.server';
 
 export type WebhookOutcome = 'duplicate' | 'ignored' | 'unknown-session' | 'already-paid' | 'deposit-paid' | 'expired' | 'not-paid';
@@ -32,27 +34,17 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOut
     if (!found) return finish('unknown-session');
 
     if (event.type === 'checkout.session.expired') {
-      // A late "expired" never undoes a payment that completed.
-      if (found.status !== 'pending') return finish('ignored');
-      await tx.update(payment).set({ status: 'expired' }).where(eq(payment.id, found.id));
-      return finish('expired');
+      // A late "expired" never undoes a payment that completed: the table has no move from paid to expired.
+      return finish((await movePayment(tx, found, 'expired')) ? 'expired' : 'ignored');
     }
 
     if (session.payment_status !== 'paid') return finish('not-paid');
     if (found.status === 'paid') return finish('already-paid');
     const paymentIntent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
-    await tx.update(payment).set({ status: 'paid', paidAt: new Date(), paymentIntentId: paymentIntent }).where(eq(payment.id, found.id));
+    if (!(await movePayment(tx, found, 'paid', { paidAt: new Date(), paymentIntentId: paymentIntent }))) return finish('ignored');
 
     const [quoteRow] = await tx.select().from(quote).where(eq(quote.id, found.quoteId)).limit(1);
-    if (quoteRow && quoteRow.status !== 'deposit-paid') {
-      await tx.update(quote).set({ status: 'deposit-paid', updatedAt: new Date() }).where(eq(quote.id, quoteRow.id));
-      await tx.insert(stateChange).values({
-        subjectType: 'quote',
-        subjectId: quoteRow.id,
-        fromStatus: quoteRow.status,
-        toStatus: 'deposit-paid',
-        note: `Payment ${paymentIntent ?? session.id}`,
-      });
+    if (quoteRow && (await moveQuote(tx, quoteRow, 'deposit-paid', null, {}, `Payment ${paymentIntent ?? session.id}`))) {
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, quoteRow.briefId)).limit(1);
       if (briefRow && briefRow.status === 'accepted')
         await moveBrief(tx, briefRow, 'deposit-paid', 'system', null, 'Deposit received online');

@@ -11,6 +11,7 @@ import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } 
 import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow, type QuoteRow } from '../platform/db/schema';
 import type { DbOrTx } from '../platform/db/connect';
 import { readRateCard } from './rate-card.server';
+import { canMoveQuote } from './transitions';
 
 export type { QuoteLineRow, QuoteRow };
 
@@ -130,20 +131,22 @@ export async function quoteLines(db: DbOrTx, quoteId: string): Promise<QuoteLine
   return db.select().from(quoteLine).where(eq(quoteLine.quoteId, quoteId)).orderBy(quoteLine.position);
 }
 
-/** Moves a quote between states when it is still in the state read; records who did it. */
+/** Moves a quote between states when the table allows it and it is still in the state read; records who did it. */
 export async function moveQuote(
   tx: DbOrTx,
   row: QuoteRow,
   to: QuoteRow['status'],
   actorId: string | null,
   extra: Partial<typeof quote.$inferInsert> = {},
+  note = '',
 ) {
+  if (!canMoveQuote(row.status, to)) return null;
   const [updated] = await tx
     .update(quote)
     .set({ status: to, updatedAt: new Date(), ...extra })
     .where(and(eq(quote.id, row.id), eq(quote.status, row.status)))
     .returning();
   if (!updated) return null;
-  await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId });
+  await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId, note });
   return updated;
 }

@@ -191,6 +191,10 @@ export const quoteLine = sqliteTable(
 );
 
 export const PAYMENT_STATUSES = ['pending', 'paid', 'failed', 'expired', 'refunded'] as const;
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+/** What a payment is for: the deposit that starts design work, the balance at delivery, or money given back. */
+export const PAYMENT_KINDS = ['deposit', 'balance', 'refund'] as const;
+export type PaymentKind = (typeof PAYMENT_KINDS)[number];
 
 export const payment = sqliteTable(
   'payment',
@@ -199,6 +203,7 @@ export const payment = sqliteTable(
     quoteId: text('quote_id')
       .notNull()
       .references(() => quote.id),
+    kind: text('kind', { enum: PAYMENT_KINDS }).notNull().default('deposit'),
     provider: text('provider').notNull().default('stripe'),
     checkoutSessionId: text('checkout_session_id').notNull().unique(),
     paymentIntentId: text('payment_intent_id'),
