@@ -1,12 +1,12 @@
 /**
- * A fixed set of engine threads with one queue. The engine is CPU-bound and
- * synchronous; run on the event loop, one evaluation holds up every other
- * request (pages, lists, webhooks) behind it. Here the main thread only parses,
- * checks and writes, and the threads do the arithmetic and the serialization.
+ * The engine threads, run by piscina. The engine is CPU-bound and synchronous;
+ * run on the event loop, one evaluation holds up every other request (pages,
+ * lists, webhooks) behind it. Here the main thread only parses, checks and
+ * writes, and the threads do the arithmetic and the serialization.
  */
-import { Worker } from 'node:worker_threads';
-import type { RailSpec } from '../../engine/rail-spec';
+import { Piscina } from 'piscina';
 import type { Catalog } from '../../engine/catalog';
+import type { RailSpec } from '../../engine/rail-spec';
 import type { EngineJob, EngineReply } from './protocol';
 
 export interface EnginePoolOptions {
@@ -26,21 +26,6 @@ export class EngineBusyError extends Error {
   }
 }
 
-interface Pending {
-  brief: RailSpec;
-  catalog: Catalog;
-  resolve: (json: string) => void;
-  reject: (error: Error) => void;
-}
-
-type Job = Pending & { id: number; timer: NodeJS.Timeout };
-
-interface Slot {
-  worker: Worker;
-  seenCatalog: number;
-  jobs: Map<number, Job>;
-}
-
 /**
  * Jobs handed to one thread at a time: two, so that the next job is already in
  * the thread's own queue when it finishes one, instead of waiting for the main
@@ -49,110 +34,68 @@ interface Slot {
 const IN_FLIGHT_PER_THREAD = 2;
 
 export class EnginePool {
-  private readonly slots: Slot[] = [];
-  private readonly queue: Pending[] = [];
+  private readonly threads: Piscina<EngineJob, EngineReply>;
   private readonly catalogVersions = new WeakMap<Catalog, number>();
   private nextCatalogVersion = 0;
-  private nextJobId = 0;
-  private closed = false;
   private readonly timeoutMs: number;
-  private readonly maxQueue: number;
+  /** Jobs running or waiting; past `capacity` new work is refused (counted here, so the bound holds from the first job). */
+  private outstanding = 0;
+  private readonly capacity: number;
 
-  constructor(private readonly options: EnginePoolOptions) {
+  constructor(options: EnginePoolOptions) {
     if (!(options.size >= 1)) throw new Error('An engine pool needs at least one thread.');
     this.timeoutMs = options.timeoutMs ?? 10_000;
-    this.maxQueue = options.maxQueue ?? 1024;
-    for (let i = 0; i < options.size; i++) this.slots.push(this.spawn());
-  }
-
-  get size(): number {
-    return this.slots.length;
-  }
-
-  /** The evaluation of `brief` against `catalog`, as the JSON text the API answers with. */
-  evaluateJson(brief: RailSpec, catalog: Catalog): Promise<string> {
-    if (this.closed) return Promise.reject(new Error('The engine pool is closed.'));
-    if (this.queue.length >= this.maxQueue) return Promise.reject(new EngineBusyError());
-    return new Promise<string>((resolve, reject) => {
-      this.queue.push({ brief, catalog, resolve, reject });
-      this.dispatch();
+    this.capacity = options.size * IN_FLIGHT_PER_THREAD + (options.maxQueue ?? 1024);
+    const filename = options.workerFile instanceof URL ? options.workerFile.href : options.workerFile;
+    this.threads = new Piscina({
+      filename,
+      minThreads: options.size,
+      maxThreads: options.size,
+      concurrentTasksPerWorker: IN_FLIGHT_PER_THREAD,
+      // Threads stay up: a cold thread pays the engine's start-up on its first job.
+      idleTimeout: Number.POSITIVE_INFINITY,
     });
   }
 
+  get size(): number {
+    return this.threads.options.maxThreads;
+  }
+
+  /** The evaluation of `brief` against `catalog`, as the JSON text the API answers with. */
+  async evaluateJson(brief: RailSpec, catalog: Catalog): Promise<string> {
+    if (this.outstanding >= this.capacity) throw new EngineBusyError();
+    this.outstanding++;
+    try {
+      return await this.evaluateOnThread(brief, catalog);
+    } finally {
+      this.outstanding--;
+    }
+  }
+
   async close(): Promise<void> {
-    this.closed = true;
-    for (const pending of this.queue.splice(0)) pending.reject(new Error('The engine pool is closed.'));
-    await Promise.all(this.slots.map((slot) => slot.worker.terminate()));
+    await this.threads.destroy();
   }
 
-  private spawn(): Slot {
-    const worker = new Worker(this.options.workerFile);
-    // Idle threads must not keep a stopping server alive.
-    worker.unref();
-    const slot: Slot = { worker, seenCatalog: -1, jobs: new Map() };
-    worker.on('message', (reply: EngineReply) => this.settle(slot, reply));
-    worker.on('error', (error) => this.replace(slot, error));
-    worker.on('exit', (code) => this.replace(slot, new Error(`An engine thread stopped with code ${code}.`)));
-    return slot;
+  private async evaluateOnThread(brief: RailSpec, catalog: Catalog): Promise<string> {
+    const catalogVersion = this.versionOf(catalog);
+    let reply = await this.run({ brief, catalogVersion });
+    // A thread that has not seen this catalog asks for it once; it keeps it for later jobs.
+    if (reply.kind === 'needs-catalog') reply = await this.run({ brief, catalog, catalogVersion });
+    if (reply.kind === 'done') return reply.json;
+    if (reply.kind === 'failed') throw Object.assign(new Error(`The engine failed: ${reply.message}`), { stack: reply.stack });
+    throw new Error('An engine thread did not take the catalog it was sent.');
   }
 
-  private dispatch(): void {
-    while (this.queue.length > 0) {
-      const slot = this.leastBusy();
-      if (!slot) return;
-      const pending = this.queue.shift()!;
-      const id = this.nextJobId++;
-      const catalogVersion = this.versionOf(pending.catalog);
-      const message: EngineJob = { id, brief: pending.brief, catalogVersion };
-      if (slot.seenCatalog !== catalogVersion) {
-        message.catalog = pending.catalog;
-        slot.seenCatalog = catalogVersion;
+  private async run(job: EngineJob): Promise<EngineReply> {
+    try {
+      // Aborting a running job ends its thread; piscina starts a fresh one in its place.
+      return await this.threads.run(job, { signal: AbortSignal.timeout(this.timeoutMs) });
+    } catch (error) {
+      if (error instanceof Error && (error.name === 'AbortError' || error.name === 'TimeoutError')) {
+        throw new Error(`An evaluation ran longer than ${this.timeoutMs} ms.`);
       }
-      const timer = setTimeout(() => this.replace(slot, new Error(`An evaluation ran longer than ${this.timeoutMs} ms.`)), this.timeoutMs);
-      slot.jobs.set(id, { ...pending, id, timer });
-      slot.worker.ref();
-      slot.worker.postMessage(message);
+      throw error;
     }
-  }
-
-  private leastBusy(): Slot | null {
-    let best: Slot | null = null;
-    for (const slot of this.slots) {
-      if (slot.jobs.size < IN_FLIGHT_PER_THREAD && (!best || slot.jobs.size < best.jobs.size)) best = slot;
-    }
-    return best;
-  }
-
-  private settle(slot: Slot, reply: EngineReply): void {
-    const job = slot.jobs.get(reply.id);
-    if (!job) return;
-    clearTimeout(job.timer);
-    slot.jobs.delete(reply.id);
-    if (slot.jobs.size === 0) slot.worker.unref();
-    if (reply.ok) job.resolve(reply.json);
-    else job.reject(Object.assign(new Error(`The engine failed: ${reply.message}`), { stack: reply.stack }));
-    this.dispatch();
-  }
-
-  /** A thread that failed, hung or stopped: fail the jobs it held, start a fresh thread in its place. */
-  private replace(slot: Slot, error: Error): void {
-    const index = this.slots.indexOf(slot);
-    if (index < 0) return;
-    for (const job of slot.jobs.values()) {
-      clearTimeout(job.timer);
-      job.reject(error);
-    }
-    slot.jobs.clear();
-    slot.worker.removeAllListeners();
-    slot.worker.on('error', () => undefined);
-    // The thread may already be gone; terminating twice is harmless.
-    void slot.worker.terminate();
-    if (this.closed) {
-      this.slots.splice(index, 1);
-      return;
-    }
-    this.slots[index] = this.spawn();
-    this.dispatch();
   }
 
   // A catalog is an immutable snapshot; a new object (after an edit or a cache refresh) gets a new number.

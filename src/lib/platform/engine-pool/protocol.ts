@@ -1,14 +1,13 @@
-/** Messages between the server and its engine threads. */
-import type { RailSpec } from '../../engine/rail-spec';
+/** What the server hands an engine thread, and what comes back. */
 import type { Catalog } from '../../engine/catalog';
+import type { RailSpec } from '../../engine/rail-spec';
 
 export interface EngineJob {
-  id: number;
   brief: RailSpec;
-  /** Sent only when this thread has not seen this catalog version yet. */
+  /** Sent only when the thread answered that it has not seen this catalog version yet. */
   catalog?: Catalog;
   catalogVersion: number;
 }
 
-/** `json` is the evaluation's JSON text; turning it into bytes is left to the main thread, which has time to spare. */
-export type EngineReply = { id: number; ok: true; json: string } | { id: number; ok: false; message: string; stack?: string };
+/** `json` is the evaluation's JSON text; turning it into bytes is left to the main thread. */
+export type EngineReply = { kind: 'done'; json: string } | { kind: 'needs-catalog' } | { kind: 'failed'; message: string; stack?: string };
