@@ -1,7 +1,7 @@
 /**
  * `npm run bench` — the product's figures in one run, as a table;
  * `npm run bench -- --json` also prints them as one JSON object on the last line.
- * Budgets from quality.md are checked; a missed one makes the exit code 1.
+ * Budgets from docs/quality.md are checked; a missed one makes the exit code 1.
  */
 import { engineMc100kMs, engineMedianMs, engineRuns } from './engine';
 import { evaluateRate, loadRun } from './http';

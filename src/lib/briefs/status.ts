@@ -1,4 +1,4 @@
-/** The states of a brief (product.md): browser-safe, so forms and islands share them with the database. */
+/** The states of a brief (docs/product.md, moves in docs/states.md): browser-safe, so forms and islands share them with the database. */
 export const BRIEF_STATUSES = [
   'draft',
   'submitted',

@@ -4,7 +4,7 @@
  */
 import type { ComponentRole } from '../engine/types';
 
-/** Said beside every figure that rests on a typical device parameter (engine.md §1). */
+/** Said beside every figure that rests on a typical device parameter (docs/engine.md §1). */
 export const TYPICAL_NOTE = 'typical — confirm against the chosen part’s data';
 
 /** Said with every set of cautions: the engine proposes, qualified people decide. */

@@ -1,5 +1,5 @@
 /**
- * Every route × five actors → the status the product promises (api.md): 401
+ * Every route × five actors → the status the product promises (docs/api.md): 401
  * anonymous, 403 wrong role, 404 for what is not yours, never another client's
  * data. A route file without a row here fails the test.
  */

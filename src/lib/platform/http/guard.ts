@@ -1,7 +1,7 @@
 /**
  * The one guard every page and API route uses. Pages redirect anonymous
  * visitors to sign-in and show the 403 page to the wrong role; API routes
- * answer 401/403 as JSON (api.md).
+ * answer 401/403 as JSON (docs/api.md).
  */
 import type { APIContext, AstroGlobal } from 'astro';
 import { forbidden, unauthorized } from './responses';

@@ -1,4 +1,4 @@
-/** JSON answers in the one shape every API route uses (api.md). */
+/** JSON answers in the one shape every API route uses (docs/api.md). */
 
 export interface FieldIssue {
   path: string;

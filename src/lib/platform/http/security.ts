@@ -1,4 +1,4 @@
-/** Response headers and origin rules applied to every answer (quality.md, Security). */
+/** Response headers and origin rules applied to every answer (docs/quality.md, Security). */
 
 /** `checkoutOrigin`: where the pay-deposit form may send the browser on (the provider's hosted page). */
 export function securityHeaders(production: boolean, checkoutOrigin = 'https://checkout.stripe.com'): Record<string, string> {
