@@ -1,6 +1,7 @@
 /** The desk's view (filters, sort, page) as the list API's query string, for the island and the URL bar. */
-export const DESK_SORTS = ['updated', 'submitted', 'title'] as const;
-export type DeskSortKey = (typeof DESK_SORTS)[number];
+import { BRIEF_SORT_KEYS, type BriefSortKey } from '~/lib/briefs/requests';
+
+export type DeskSortKey = BriefSortKey;
 
 export interface DeskView {
   status: string;
@@ -28,5 +29,5 @@ export function viewToParams(view: DeskView): URLSearchParams {
 export function sortParam(sort: string): { sort: DeskSortKey; desc: boolean } {
   const desc = sort.startsWith('-');
   const key = sort.replace(/^-/, '');
-  return { sort: (DESK_SORTS as readonly string[]).includes(key) ? (key as DeskSortKey) : 'updated', desc };
+  return { sort: (BRIEF_SORT_KEYS as readonly string[]).includes(key) ? (key as DeskSortKey) : 'updated', desc };
 }

@@ -3,6 +3,7 @@ import type { BriefSummary } from './summary';
 import { db } from '../platform/db';
 import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus, type BriefRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
+import type { BriefSort } from './requests';
 
 export interface BriefListQuery {
   status?: BriefStatus | undefined;
@@ -12,9 +13,6 @@ export interface BriefListQuery {
   pageSize?: number;
   sort?: BriefSort;
 }
-
-export const BRIEF_SORTS = ['updated', '-updated', 'submitted', '-submitted', 'title', '-title'] as const;
-export type BriefSort = (typeof BRIEF_SORTS)[number];
 
 export function isBriefStatus(value: unknown): value is BriefStatus {
   return typeof value === 'string' && (BRIEF_STATUSES as readonly string[]).includes(value);

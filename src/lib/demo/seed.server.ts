@@ -21,8 +21,7 @@ import {
 import { draftQuote } from '~/lib/quotes/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';
-
-const DAY = 86_400_000;
+import { DAY_MS } from '../platform/time';
 
 /**
  * The quote of a demo brief, drafted the way the quote builder drafts one, then
@@ -48,7 +47,7 @@ async function seedQuote(
   const sentAt = new Date(p.at.getTime() + 3_600_000);
   const steps: [string, string, string | null, Date][] = [['draft', 'sent', p.engineerId, sentAt]];
   if (p.plan === 'deposit-paid') {
-    const acceptedAt = new Date(sentAt.getTime() + DAY);
+    const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
     const paidAt = new Date(acceptedAt.getTime() + 600_000);
     steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
     await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.quote.id));
@@ -92,7 +91,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
   await db.transaction(async (tx) => {
     for (const person of DEMO_PEOPLE) {
       const id = idOf(person.key);
-      const joined = new Date(now - 40 * DAY);
+      const joined = new Date(now - 40 * DAY_MS);
       await tx.insert(user).values({
         id,
         name: person.name,
@@ -119,8 +118,8 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
     for (const item of DEMO_BRIEFS) {
       const ownerId = idOf(item.owner);
       const briefId = crypto.randomUUID();
-      const submittedAt = item.submittedDaysAgo === undefined ? null : new Date(now - item.submittedDaysAgo * DAY);
-      const createdAt = new Date((submittedAt?.getTime() ?? now - DAY) - 2 * 3_600_000);
+      const submittedAt = item.submittedDaysAgo === undefined ? null : new Date(now - item.submittedDaysAgo * DAY_MS);
+      const createdAt = new Date((submittedAt?.getTime() ?? now - DAY_MS) - 2 * 3_600_000);
       // Submitted briefs carry the engine's verdict, as they would after a real submission.
       const spec = submittedAt ? railSpecSchema.parse(item.spec) : item.spec;
       const result = submittedAt ? evaluate(railSpecSchema.parse(item.spec), defaultCatalog) : null;
@@ -161,7 +160,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
             engineerId,
             ownerId,
             plan: item.quote,
-            at: new Date(revisedAt.getTime() + DAY),
+            at: new Date(revisedAt.getTime() + DAY_MS),
           });
       }
       const steps = lifecycleTo(item.status);

@@ -12,10 +12,9 @@ import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow
 import type { DbOrTx } from '../platform/db/connect';
 import { readRateCard } from './rate-card.server';
 import { canMoveQuote } from './transitions';
+import { DAY_MS } from '../platform/time';
 
 export type { QuoteLineRow, QuoteRow };
-
-const DAY_MS = 86_400_000;
 
 /** Briefs a quote may be drafted for: under review, or quoted already and getting a new offer. */
 export const QUOTABLE_BRIEF_STATES = new Set(['submitted', 'in-review', 'quoted']);

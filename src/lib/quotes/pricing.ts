@@ -6,12 +6,11 @@
  */
 import { z } from 'zod';
 import type { RailSpec } from '../engine/rail-spec';
-import type { Evaluation, Option, TopologyId } from '../engine/types';
+import type { Evaluation, TopologyId } from '../engine/types';
 import { topologyIds } from '../engine/types';
-import { TOPOLOGY_NAMES } from '~/lib/review';
+import { ES1_DC_LIMIT_V } from '../engine/cautions';
+import { chosenOption, TOPOLOGY_NAMES } from '~/lib/review';
 
-/** Above 60 V DC a rail leaves the ES1 class of IEC 62368-1 and needs the high-voltage review. */
-export const HAZARDOUS_VOLTAGE_V = 60;
 /** A ripple budget of 1 mV or less (precision and RF loads) takes extra layout and filtering work. */
 export const TIGHT_NOISE_VPP = 0.001;
 
@@ -155,17 +154,13 @@ export interface DesignFacts {
   partsCostCents: number;
 }
 
-export function chosenOption(result: Evaluation, topology: string): Option | null {
-  return result.options.find((o) => o.topology === topology) ?? null;
-}
-
 export function designFacts(revision: { topology: string; number: number; input: RailSpec; result: Evaluation }): DesignFacts | null {
-  const option = chosenOption(revision.result, revision.topology);
+  const option = chosenOption(revision);
   if (!option) return null;
   const { input, output, noise } = revision.input;
   return {
     topology: option.topology,
-    highVoltage: Math.max(input.vMax, output.v) > HAZARDOUS_VOLTAGE_V,
+    highVoltage: Math.max(input.vMax, output.v) > ES1_DC_LIMIT_V,
     tightNoise: (noise.maxRippleVpp ?? Infinity) <= TIGHT_NOISE_VPP,
     heatsink: option.heatsink.required,
     revisionNumber: revision.number,

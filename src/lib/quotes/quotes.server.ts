@@ -16,6 +16,7 @@ import { renderQuotePdf } from './render.server';
 import { draftQuote, moveQuote, validUntilFrom, writeLines, type QuoteRow } from './core.server';
 import { quoteMail } from './mail.server';
 import { loadQuoteView, type QuoteView } from './view.server';
+import { DAY_MS } from '../platform/time';
 
 export type QuoteResult<T> =
   | { ok: true; value: T }
@@ -109,7 +110,6 @@ export async function createQuote(staff: SignedInUser, revisionId: string, quant
   return view ? { ok: true, value: view } : { ok: false, status: 404, message: 'The quote vanished after drafting; try again.' };
 }
 
-const DAY_MS = 86_400_000;
 /** A send that has not finished in this long is taken to have died (a crashed process); it may be retried. */
 const SEND_CLAIM_MS = 120_000;
 const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.sendingSince, new Date(now.getTime() - SEND_CLAIM_MS)));

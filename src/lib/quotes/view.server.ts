@@ -6,8 +6,8 @@ import { eq } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
-import { TOPOLOGY_NAMES, percent } from '~/lib/review';
-import { chosenOption } from './pricing';
+import { chosenOption, TOPOLOGY_NAMES, percent } from '~/lib/review';
+import { ES1_DC_LIMIT_V } from '../engine/cautions';
 import { brief, clientProfile, designRevision, quote, user } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './core.server';
 import type { DbOrTx } from '../platform/db/connect';
@@ -15,7 +15,7 @@ import type { DbOrTx } from '../platform/db/connect';
 /** Said wherever a design is shown, whatever its own cautions. */
 export const SAFETY_NOTE =
   'The figures are typical values — confirm against the chosen part’s data before building. ' +
-  'Supply rails can carry hazardous voltage (above 60 V DC), keep stored energy in capacitors after power is removed, and run hot enough to burn. ' +
+  `Supply rails can carry hazardous voltage (above ${ES1_DC_LIMIT_V} V DC), keep stored energy in capacitors after power is removed, and run hot enough to burn. ` +
   'Build and test under qualified supervision, and defer to local electrical codes and licensed practice.';
 
 export interface Row {
@@ -135,7 +135,7 @@ export async function loadQuoteView(db: DbOrTx, quoteId: string, now = new Date(
     .limit(1);
   if (!found) return null;
   const lines = await quoteLines(db, quoteId);
-  const option = chosenOption(found.revision.result as Evaluation, found.revision.topology);
+  const option = chosenOption({ topology: found.revision.topology, result: found.revision.result as Evaluation });
   return {
     quote: found.quote,
     status: statusAt(found.quote, now),

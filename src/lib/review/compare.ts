@@ -41,6 +41,7 @@ export function flatten(value: unknown, prefix = '', out: Record<string, Leaf> =
 
 const show = (v: Leaf | undefined) => (v === undefined ? '—' : String(v));
 
+/** The option a revision settled on: the one of its chosen topology. */
 export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 'result'>): Option | null {
   return revision.result.options.find((o) => o.topology === revision.topology) ?? null;
 }

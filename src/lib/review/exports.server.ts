@@ -5,6 +5,7 @@
 import { eq } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '../engine';
+import { chosenOption } from './compare';
 import { componentValue } from './figures';
 import { ROLE_NAMES, TYPICAL_NOTE } from './words';
 import { TOPOLOGY_NAMES } from './option-words';
@@ -31,8 +32,7 @@ export async function partsCurrency(): Promise<string> {
 }
 
 export function chosenOf(found: RevisionWithBrief): Option | null {
-  const result = found.revision.result as Evaluation;
-  return result.options.find((o) => o.topology === found.revision.topology) ?? null;
+  return chosenOption({ topology: found.revision.topology, result: found.revision.result as Evaluation });
 }
 
 /** The netlist describes the nominal input at the typical load: the point an engineer measures first. */
