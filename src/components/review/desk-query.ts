@@ -1,5 +1,5 @@
 /** The desk's view (filters, sort, page) as the list API's query string, for the island and the URL bar. */
-import { BRIEF_SORT_KEYS, type BriefSortKey } from '~/lib/briefs/requests';
+import { BRIEF_SORT_KEYS, type BriefSortKey } from '~/lib/briefs/sorting';
 
 export type DeskSortKey = BriefSortKey;
 

@@ -3,7 +3,7 @@ import type { BriefSummary } from './summary';
 import { db } from '../platform/db';
 import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus, type BriefRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
-import type { BriefSort } from './requests';
+import type { BriefSort } from './sorting';
 
 export interface BriefListQuery {
   status?: BriefStatus | undefined;

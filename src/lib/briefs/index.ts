@@ -2,6 +2,7 @@
 export * from './json';
 export * from './load-log';
 export * from './requests';
+export * from './sorting';
 export * from './status';
 export * from './summary';
 export * from './transitions';

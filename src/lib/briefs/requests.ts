@@ -56,8 +56,3 @@ export const briefListQuerySchema = z.object({
 });
 
 export type CreateBrief = z.infer<typeof createBriefSchema>;
-
-/** What a brief list may be sorted by (the API's `sort`, the desk's columns); a leading '-' reverses it. */
-export const BRIEF_SORT_KEYS = ['updated', 'submitted', 'title'] as const;
-export type BriefSortKey = (typeof BRIEF_SORT_KEYS)[number];
-export type BriefSort = BriefSortKey | `-${BriefSortKey}`;
