@@ -2,7 +2,7 @@ import { defineConfig } from 'drizzle-kit';
 
 export default defineConfig({
   dialect: 'turso',
-  schema: './src/lib/server/db/schema.ts',
+  schema: './src/lib/platform/db/schema.ts',
   out: './drizzle',
   dbCredentials: {
     url: process.env.DATABASE_URL ?? 'file:data/railwright.db',

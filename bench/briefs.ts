@@ -1,6 +1,6 @@
 /** A fixed, varied set of briefs for every benchmark: the demo rails plus a few corners of the range. */
 import { railSpecSchema, type RailSpec, type RailSpecInput } from '../src/lib/engine/rail-spec';
-import { DEMO_BRIEFS } from '../src/lib/server/seed/scenario';
+import { DEMO_BRIEFS } from '../src/lib/demo/scenario';
 
 const EXTRA: RailSpecInput[] = [
   {

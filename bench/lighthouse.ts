@@ -11,7 +11,16 @@ export interface PageScore {
 export async function lighthouseScores(pages: { name: string; url: string; cookie?: string }[]): Promise<PageScore[]> {
   const chrome = await chromeLauncher.launch({
     chromePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    chromeFlags: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    chromeFlags: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   try {
     const scores: PageScore[] = [];

@@ -1,10 +1,10 @@
 /** One quote PDF rendered in-process, warm: the seeded quote of the benchmark server's database. */
 import { performance } from 'node:perf_hooks';
 import { eq } from 'drizzle-orm';
-import { connect } from '../src/lib/server/db/connect';
-import { quote } from '../src/lib/server/db/schema';
-import { renderQuotePdf } from '../src/lib/server/pdf/render';
-import { loadQuoteView } from '../src/lib/server/quotes-view';
+import { connect } from '../src/lib/platform/db/connect';
+import { quote } from '../src/lib/platform/db/schema';
+import { renderQuotePdf } from '../src/lib/quotes/render.server';
+import { loadQuoteView } from '../src/lib/quotes/view.server';
 import { median } from './engine';
 
 export async function pdfMedianMs(databaseUrl: string, runs = 30): Promise<number> {

@@ -1,7 +1,7 @@
 /**
  * `npm run bench` — the product's figures in one run, as a table;
  * `npm run bench -- --json` also prints them as one JSON object on the last line.
- * Budgets from quality.md are checked; a missed one makes the exit code 1.
+ * Budgets from docs/quality.md are checked; a missed one makes the exit code 1.
  */
 import { engineMc100kMs, engineMedianMs, engineRuns } from './engine';
 import { evaluateRate, loadRun } from './http';
@@ -42,7 +42,9 @@ try {
   const base = server.baseUrl;
   const engineerCookie = await signedInCookie(base, 'engineer@demo.railwright.test');
   const clientCookie = await signedInCookie(base, 'client@demo.railwright.test');
-  const briefs = (await (await fetch(`${base}/api/v1/briefs?status=submitted`, { headers: { cookie: engineerCookie } })).json()) as { items: { id: string }[] };
+  const briefs = (await (await fetch(`${base}/api/v1/briefs?status=submitted`, { headers: { cookie: engineerCookie } })).json()) as {
+    items: { id: string }[];
+  };
   const reviewId = briefs.items[0]?.id;
 
   log('JavaScript per page…');
@@ -121,7 +123,8 @@ async function interleavedRates(base: string, rounds = 6, seconds = 2) {
     http.errors += window.errors;
     http.non2xx += window.non2xx;
   }
-  if (http.errors + http.non2xx > 0) throw new Error(`The evaluate route failed ${http.errors + http.non2xx} times during the throughput run.`);
+  if (http.errors + http.non2xx > 0)
+    throw new Error(`The evaluate route failed ${http.errors + http.non2xx} times during the throughput run.`);
   const total = rounds * seconds;
   return { inProcessRate: evaluations / total, http: { ...http, rate: http.requests / total } };
 }
@@ -135,16 +138,28 @@ const r: Results = results;
 const budgets: [string, string, boolean][] = [
   ['engine, one full evaluation (median)', `${r.engineMedianMs} ms  (< 5)`, r.engineMedianMs < 5],
   ['engine, 100 000 Monte Carlo draws', `${r.engineMc100kMs} ms  (< 25)`, r.engineMc100kMs < 25],
-  ['evaluate over HTTP / in-process rate', `${r.httpToEngineRatio}  (${r.httpRatePerS}/s vs ${r.engineRatePerS}/s; ≥ 0.7)`, r.httpToEngineRatio >= 0.7],
+  [
+    'evaluate over HTTP / in-process rate',
+    `${r.httpToEngineRatio}  (${r.httpRatePerS}/s vs ${r.engineRatePerS}/s; ≥ 0.7)`,
+    r.httpToEngineRatio >= 0.7,
+  ],
   ['largest page JavaScript (gzip)', `${r.maxIslandJsGzipKb} KB  (< 120)`, r.maxIslandJsGzipKb < 120],
   ['quote PDF, warm (median)', `${r.pdfMedianMs} ms  (< 200)`, r.pdfMedianMs < 200],
   ['public pages JavaScript', `${r.publicPageJsKb} KB  (0)`, r.publicPageJsKb === 0],
   ['load: errors and 5xx', `${r.loadErrors}  (${r.loadRequests} requests, ${r.loadRps}/s, p99 ${r.loadP99Ms} ms; 0)`, r.loadErrors === 0],
-  ...r.lighthouse.map((s): [string, string, boolean] => [`lighthouse ${s.page}`, `performance ${s.performance}, accessibility ${s.accessibility}  (≥ 95 each)`, (s.performance ?? 0) >= 95 && (s.accessibility ?? 0) >= 95]),
+  ...r.lighthouse.map((s): [string, string, boolean] => [
+    `lighthouse ${s.page}`,
+    `performance ${s.performance}, accessibility ${s.accessibility}  (≥ 95 each)`,
+    (s.performance ?? 0) >= 95 && (s.accessibility ?? 0) >= 95,
+  ]),
 ];
 const width = Math.max(...budgets.map(([name]) => name.length));
 console.log('\nRailwright benchmark\n');
 for (const [name, figure, ok] of budgets) console.log(`${ok ? 'ok  ' : 'MISS'}  ${name.padEnd(width)}  ${figure}`);
-console.log(`\npage JavaScript (KB gzip): ${Object.entries(r.pageJsGzipKb).map(([k, v]) => `${k} ${v}`).join(', ')}`);
+console.log(
+  `\npage JavaScript (KB gzip): ${Object.entries(r.pageJsGzipKb)
+    .map(([k, v]) => `${k} ${v}`)
+    .join(', ')}`,
+);
 if (wantJson) console.log(JSON.stringify(r));
 if (budgets.some(([, , ok]) => !ok)) process.exitCode = 1;

@@ -9,10 +9,13 @@ async function main(): Promise<void> {
   });
   console.log(`mail catcher: SMTP ${catcher.smtpUrl}, messages at ${catcher.apiUrl}/messages, stored in ${catcher.dir}`);
   const stop = () => {
-    catcher.close().then(() => process.exit(0), (error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    });
+    catcher.close().then(
+      () => process.exit(0),
+      (error: unknown) => {
+        console.error(error);
+        process.exit(1);
+      },
+    );
   };
   process.once('SIGINT', stop);
   process.once('SIGTERM', stop);

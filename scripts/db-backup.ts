@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { backupDatabase, backupFileName } from '../src/lib/server/db/backup';
+import { backupDatabase, backupFileName } from '../src/lib/platform/db/backup';
 import { scriptContext } from './server-context';
 
 // `npm run db:backup [target-file]` — default data/backups/railwright-<time>.db

@@ -1,4 +1,4 @@
-import { migrateDatabase } from '../src/lib/server/db/migrate';
+import { migrateDatabase } from '../src/lib/platform/db/migrate';
 import { scriptContext } from './server-context';
 
 const { url, db, client } = scriptContext();

@@ -1,6 +1,6 @@
-import { migrateDatabase } from '../src/lib/server/db/migrate';
-import { seedDemo } from '../src/lib/server/seed/demo';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/server/seed/scenario';
+import { migrateDatabase } from '../src/lib/platform/db/migrate';
+import { seedDemo } from '../src/lib/demo/seed.server';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/demo/scenario';
 import { scriptContext } from './server-context';
 
 const { url, db, client, auth } = scriptContext();

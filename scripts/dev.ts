@@ -3,9 +3,9 @@
  * migrated and seeded with the demo scenario, then Astro's dev server.
  */
 import { spawn } from 'node:child_process';
-import { migrateDatabase } from '../src/lib/server/db/migrate';
-import { seedDemo } from '../src/lib/server/seed/demo';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/server/seed/scenario';
+import { migrateDatabase } from '../src/lib/platform/db/migrate';
+import { seedDemo } from '../src/lib/demo/seed.server';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../src/lib/demo/scenario';
 import { startFakes } from './fakes';
 import { scriptContext } from './server-context';
 

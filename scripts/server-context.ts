@@ -2,8 +2,8 @@
  * Opens the database and better-auth for command-line scripts, configured from
  * the same environment variables as the server (scripts cannot use astro:env).
  */
-import { connect, DEFAULT_DATABASE_URL } from '../src/lib/server/db/connect';
-import { createAuth } from '../src/lib/server/auth/create-auth';
+import { connect, DEFAULT_DATABASE_URL } from '../src/lib/platform/db/connect';
+import { createAuth } from '../src/lib/platform/auth/create-auth';
 
 export function scriptContext() {
   const url = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;

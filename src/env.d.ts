@@ -7,7 +7,7 @@ declare namespace App {
       id: string;
       name: string;
       email: string;
-      role: import('./lib/server/auth/roles').Role;
+      role: import('./lib/platform/auth/roles').Role;
     } | null;
     session: { id: string; expiresAt: Date } | null;
     /** Set when a request failed: the reference shown to the person and written to the log. */

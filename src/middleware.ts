@@ -1,12 +1,13 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { auth } from '~/lib/server/auth';
-import { isRole } from '~/lib/server/auth/roles';
-import { config } from '~/lib/server/config';
-import { databaseReady } from '~/lib/server/db';
-import { limitSignInApi } from '~/lib/server/sign-in-limit';
-import { apiError, internalError } from '~/lib/server/http';
-import { logFailure } from '~/lib/server/log';
-import { isCrossOriginWrite, securityHeaders } from '~/lib/server/security';
+import { serverReady } from './boot';
+import { auth } from '~/lib/platform/auth';
+import { isRole } from '~/lib/platform/auth/roles';
+import { config } from '~/lib/platform/config';
+import { limitSignInApi } from '~/lib/platform/rate-limit/sign-in-limit';
+import { apiError, internalError } from '~/lib/platform/http/responses';
+import { logFailure } from '~/lib/platform/log';
+import { expireLapsedQuotes } from '~/lib/quotes/expiry.server';
+import { isCrossOriginWrite, securityHeaders } from '~/lib/platform/http/security';
 
 const HEADERS = securityHeaders(config.production, config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined);
 const allowedOrigins = config.publicBaseUrl ? [new URL(config.publicBaseUrl).origin] : [];
@@ -17,7 +18,7 @@ const hardening = defineMiddleware(async (context, next) => {
   if (isCrossOriginWrite(context.request, context.url, allowedOrigins)) {
     return apiError(403, 'cross_origin', { message: 'This request came from another site and was refused.' });
   }
-  await databaseReady;
+  await serverReady;
   let response: Response;
   try {
     response = await next();
@@ -40,11 +41,14 @@ const signInLimit = defineMiddleware((context, next) => limitSignInApi(context, 
 
 const session = defineMiddleware(async (context, next) => {
   // No session cookie, no session: skip the lookup (anonymous pages, the public evaluate route).
-  if (context.url.pathname.startsWith('/_astro/') || !(context.request.headers.get('cookie') ?? '').includes('session_token')) return next();
+  if (context.url.pathname.startsWith('/_astro/') || !(context.request.headers.get('cookie') ?? '').includes('session_token'))
+    return next();
   const found = await auth.api.getSession({ headers: context.request.headers });
   if (found && isRole(found.user.role) && !found.user.banned) {
     context.locals.user = { id: found.user.id, name: found.user.name, email: found.user.email, role: found.user.role };
     context.locals.session = { id: found.session.id, expiresAt: found.session.expiresAt };
+    // Lapsed quotes expire before anyone signed in reads a brief or a quote (no timer needed).
+    await expireLapsedQuotes();
   }
   return next();
 });

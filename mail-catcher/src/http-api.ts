@@ -67,9 +67,17 @@ async function answer(store: MessageStore, request: IncomingMessage, response: S
   if (sub === 'attachments' && index !== undefined) {
     const attachment = /^\d+$/.test(index) ? message.attachments[Number(index)] : undefined;
     if (!attachment) {
-      return notFound(response, `Message ${id} has ${message.attachments.length} attachment(s), numbered from 0; there is no attachment ${index}.`);
+      return notFound(
+        response,
+        `Message ${id} has ${message.attachments.length} attachment(s), numbered from 0; there is no attachment ${index}.`,
+      );
     }
-    return sendBytes(response, attachment.contentType, Buffer.from(attachment.contentBase64, 'base64'), attachment.filename ?? `attachment-${index}`);
+    return sendBytes(
+      response,
+      attachment.contentType,
+      Buffer.from(attachment.contentBase64, 'base64'),
+      attachment.filename ?? `attachment-${index}`,
+    );
   }
   return notFound(response, `Nothing at ${url.pathname}. ${ROUTES_HELP}`);
 }

@@ -40,9 +40,13 @@ export interface MailCatcher {
 function listenOn(server: Server, port: number, host: string, what: string): Promise<number> {
   return new Promise((resolvePort, reject) => {
     const onError = (error: NodeJS.ErrnoException) => {
-      reject(error.code === 'EADDRINUSE'
-        ? new Error(`The mail catcher's ${what} cannot listen on ${host}:${port}: the port is already in use (is another catcher running?). Stop it or choose another port.`)
-        : error);
+      reject(
+        error.code === 'EADDRINUSE'
+          ? new Error(
+              `The mail catcher's ${what} cannot listen on ${host}:${port}: the port is already in use (is another catcher running?). Stop it or choose another port.`,
+            )
+          : error,
+      );
     };
     server.once('error', onError);
     server.listen(port, host, () => {

@@ -1,5 +1,5 @@
 /**
- * Builds the engine thread (`src/lib/server/engine-pool/worker.ts`) into
+ * Builds the engine thread (`src/lib/platform/engine-pool/worker.ts`) into
  * `dist/server/engine-worker.mjs` after Astro's server build. The worker is its
  * own entry point, which Astro's server bundle has no place for; the engine is
  * pure, so one esbuild bundle of it is all the thread needs.
@@ -8,11 +8,19 @@ import type { AstroIntegration } from 'astro';
 import { build } from 'esbuild';
 import { fileURLToPath } from 'node:url';
 
-export const ENGINE_WORKER_SOURCE = fileURLToPath(new URL('../lib/server/engine-pool/worker.ts', import.meta.url));
+export const ENGINE_WORKER_SOURCE = fileURLToPath(new URL('../lib/platform/engine-pool/worker.ts', import.meta.url));
 
 /** One self-contained ES module with the engine thread and everything it imports. */
 export async function buildEngineWorker(outfile: string): Promise<void> {
-  await build({ entryPoints: [ENGINE_WORKER_SOURCE], bundle: true, platform: 'node', format: 'esm', target: 'node20', outfile, logLevel: 'warning' });
+  await build({
+    entryPoints: [ENGINE_WORKER_SOURCE],
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    outfile,
+    logLevel: 'warning',
+  });
 }
 
 export default function engineWorker(): AstroIntegration {

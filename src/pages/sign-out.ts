@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { auth } from '~/lib/server/auth';
-import { redirectWithCookies } from '~/lib/server/auth/form-actions';
+import { auth } from '~/lib/platform/auth';
+import { redirectWithCookies } from '~/lib/accounts/form-actions';
 
 export const POST: APIRoute = async ({ request }) => {
   const result = await auth.api.signOut({ headers: request.headers, returnHeaders: true }).catch(() => null);

@@ -1,7 +1,7 @@
 import type { ServerResponse } from 'node:http';
 import { sendJson } from './http-io.ts';
 import type { FakeServices } from './services.ts';
-import type { Delivery } from './webhook-dispatcher.ts';
+import type { Delivery } from './webhooks/webhook-dispatcher.ts';
 
 function describe(delivery: Delivery) {
   return {
@@ -27,7 +27,9 @@ export function handleFake(services: FakeServices, method: string, url: URL, res
   const redeliver = /^\/__fake\/events\/([^/]+)\/redeliver$/.exec(url.pathname);
   if (method === 'POST' && redeliver) {
     if (!services.events.hasWebhook) {
-      sendJson(response, 409, { error: 'No webhook URL is configured, so there is nowhere to deliver to; start the stand-in with a webhook URL.' });
+      sendJson(response, 409, {
+        error: 'No webhook URL is configured, so there is nowhere to deliver to; start the stand-in with a webhook URL.',
+      });
       return;
     }
     const delivery = services.events.redeliver(redeliver[1] ?? '');
@@ -35,5 +37,7 @@ export function handleFake(services: FakeServices, method: string, url: URL, res
     else sendJson(response, 404, { error: `No event ${redeliver[1]} was raised by this stand-in since it started.` });
     return;
   }
-  sendJson(response, 404, { error: `Unknown helper ${method} ${url.pathname}; the helpers are GET /__fake/events and POST /__fake/events/:id/redeliver.` });
+  sendJson(response, 404, {
+    error: `Unknown helper ${method} ${url.pathname}; the helpers are GET /__fake/events and POST /__fake/events/:id/redeliver.`,
+  });
 }

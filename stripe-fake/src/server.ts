@@ -1,15 +1,15 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { handleApi } from './api-handler.ts';
-import { SUPPORTED_CALLS } from './api-routes.ts';
-import { handleCheckout } from './checkout-routes.ts';
-import { EventLog } from './event-log.ts';
+import { handleApi } from './api/api-handler.ts';
+import { SUPPORTED_CALLS } from './api/api-routes.ts';
+import { handleCheckout } from './checkout/checkout-routes.ts';
+import { EventLog } from './webhooks/event-log.ts';
 import { handleFake } from './fake-routes.ts';
 import { BodyTooLargeError, send, sendJson } from './http-io.ts';
-import { IdempotencyStore } from './idempotency.ts';
+import { IdempotencyStore } from './api/idempotency.ts';
 import type { FakeServices } from './services.ts';
 import { FakeState } from './state.ts';
-import { WebhookDispatcher } from './webhook-dispatcher.ts';
+import { WebhookDispatcher } from './webhooks/webhook-dispatcher.ts';
 
 export const DEFAULT_PORT = 12111;
 export const DEFAULT_WEBHOOK_SECRET = 'whsec_railwright_dev';
@@ -41,7 +41,11 @@ function listen(server: Server, port: number, host: string): Promise<AddressInfo
   return new Promise((resolve, reject) => {
     const onError = (error: NodeJS.ErrnoException) => {
       if (error.code === 'EADDRINUSE') {
-        reject(new Error(`The payment stand-in cannot listen on ${host}:${port}: the port is already in use (is another copy running?). Stop it or choose another port.`));
+        reject(
+          new Error(
+            `The payment stand-in cannot listen on ${host}:${port}: the port is already in use (is another copy running?). Stop it or choose another port.`,
+          ),
+        );
       } else {
         reject(error);
       }

@@ -1,5 +1,5 @@
-import type { EventLog } from './event-log.ts';
-import type { IdempotencyStore } from './idempotency.ts';
+import type { EventLog } from './webhooks/event-log.ts';
+import type { IdempotencyStore } from './api/idempotency.ts';
 import type { FakeState } from './state.ts';
 
 /** What the request handlers share: the state, the events, and the stand-in's own address. */

@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/lib/server/seed/scenario';
+import { DEMO_PASSWORD } from '../../src/lib/demo/scenario';
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const SCREENSHOT_DIR = path.resolve('tests/.artifacts/screenshots');
@@ -11,7 +11,16 @@ export const SCREENSHOT_DIR = path.resolve('tests/.artifacts/screenshots');
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({
     executablePath: CHROMIUM_PATH,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
 }
 

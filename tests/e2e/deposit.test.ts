@@ -48,7 +48,9 @@ describe('the deposit', () => {
     await page.goto(`${baseUrl}/briefs/${rail.briefId}`);
     // The state badge beside the title, and the last step of the history.
     expect(await page.locator('h1 + span').textContent()).toContain('Deposit paid');
-    expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain('Accepted → Deposit paid');
+    expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain(
+      'Accepted → Deposit paid',
+    );
     await context.close();
 
     const admin = await browser().newContext({ viewport: { width: 1366, height: 900 } });
@@ -72,7 +74,10 @@ describe('the deposit', () => {
     await page.goto(`${baseUrl}/quotes/${quote.id}`);
     await page.getByRole('button', { name: 'Pay the deposit' }).click();
     await page.getByLabel('Card number').waitFor();
-    await page.getByRole('link', { name: /cancel|back/i }).first().click();
+    await page
+      .getByRole('link', { name: /cancel|back/i })
+      .first()
+      .click();
     await page.waitForURL(new RegExp(`/quotes/${quote.id}\\?payment=cancelled`));
     await page.getByText('Nothing was charged').waitFor();
     expect(await page.getByRole('button', { name: 'Pay the deposit' }).count()).toBe(1);

@@ -26,7 +26,7 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
 
     // Add a fixed-price line; the preview follows at once, the stored totals after saving.
     await engineer.getByRole('button', { name: 'Add a line' }).click();
-    const row = (await engineer.getByRole('textbox', { name: /^Description, line/ }).count());
+    const row = await engineer.getByRole('textbox', { name: /^Description, line/ }).count();
     await engineer.getByRole('textbox', { name: `Description, line ${row}` }).fill('Enclosure cut-outs and labels');
     await engineer.getByRole('textbox', { name: `Unit price, line ${row}` }).fill('40.00');
     await expect.poll(() => engineer.getByText('Unsaved changes').count()).toBe(1);
@@ -93,7 +93,9 @@ describe('the admin’s prices and mail', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mail log' }).click();
     const summary = page.getByText(`Quote ${quote.number}: ${'Valve manifold, 12 V at 2 A from the 24 V bus'}`).first();
     await summary.click();
-    expect(await page.getByRole('link', { name: `Railwright-quote-${quote.number}.pdf` }).getAttribute('href')).toBe(`/api/v1/quotes/${quote.id}/pdf`);
+    expect(await page.getByRole('link', { name: `Railwright-quote-${quote.number}.pdf` }).getAttribute('href')).toBe(
+      `/api/v1/quotes/${quote.id}/pdf`,
+    );
     await screenshot(page, 'admin-mail-log');
     await context.close();
   });

@@ -12,7 +12,10 @@ const LAPTOP = { width: 1440, height: 900 };
 
 /** The options in the order the page shows them, best first. */
 async function ranking(page: Page): Promise<string[]> {
-  return page.getByRole('list', { name: 'Options, best first' }).locator('article[data-topology]').evaluateAll((cards) => cards.map((c) => c.getAttribute('data-topology') ?? ''));
+  return page
+    .getByRole('list', { name: 'Options, best first' })
+    .locator('article[data-topology]')
+    .evaluateAll((cards) => cards.map((c) => c.getAttribute('data-topology') ?? ''));
 }
 
 async function chartsDrawn(page: Page): Promise<void> {
@@ -88,7 +91,10 @@ describe('an engineer reviews a brief', () => {
     await screenshot(page, 'review-high-voltage-saved');
 
     // Starting again from revision 1 brings back its choices: standoff empty, N-MOSFET kept.
-    await page.locator('[data-revision="1"]').getByRole('link', { name: /Start from its choices/ }).click();
+    await page
+      .locator('[data-revision="1"]')
+      .getByRole('link', { name: /Start from its choices/ })
+      .click();
     await page.getByText('Choices of revision 1.', { exact: false }).waitFor();
     expect(await page.getByLabel('Standoff voltage').inputValue()).toBe('');
     expect(await page.getByLabel('Pass device').inputValue()).toBe('nmos');
@@ -106,7 +112,10 @@ describe('an engineer reviews a brief', () => {
     await page.getByRole('link', { name: 'Calculation sheet 2' }).click();
     await page.getByRole('heading', { name: 'Calculation', exact: true }).waitFor();
     await screenshot(page, 'review-sheet');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download SPICE netlist (.cir)' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'Download SPICE netlist (.cir)' }).click(),
+    ]);
     expect(download.suggestedFilename()).toBe('detector-bias-150-v-from-a-300-350-v-supply-rev2.cir');
     const netlist = await readFile((await download.path())!, 'utf8');
     expect(netlist).toContain('NMOS');
@@ -132,7 +141,9 @@ describe('an engineer reviews a brief', () => {
     expect(await spread.textContent()).toMatch(/within the tolerance band/);
     const trace = page.locator('[data-trace]');
     expect(await trace.count()).toBeGreaterThan(5);
-    expect(await page.getByRole('table', { name: /Part list/ }).textContent()).toContain('typical — confirm against the chosen part’s data');
+    expect(await page.getByRole('table', { name: /Part list/ }).textContent()).toContain(
+      'typical — confirm against the chosen part’s data',
+    );
     await screenshot(page, 'review-quiet');
 
     // Keyboard: the weight fields are reachable and a typed value re-runs on Enter.

@@ -20,7 +20,9 @@ describe('each role in the browser', () => {
     ['engineer', 'engineer@demo.railwright.test', '/desk', ['Desk'], ['My briefs', 'People']],
     ['admin', 'admin@demo.railwright.test', '/desk', ['Desk', 'People'], ['My briefs']],
   ] as const)('the %s signs in and sees their own navigation', async (role, email, home, shown, hidden) => {
-    const context = await browser().newContext({ viewport: role === 'client' ? { width: 390, height: 844 } : { width: 1366, height: 900 } });
+    const context = await browser().newContext({
+      viewport: role === 'client' ? { width: 390, height: 844 } : { width: 1366, height: 900 },
+    });
     const page = await context.newPage();
     await signInThroughForm(page, baseUrl, email);
     expect(new URL(page.url()).pathname).toBe(home);

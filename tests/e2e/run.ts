@@ -1,9 +1,10 @@
 /**
  * Runs the browser tests in Debian's Chromium. Without Chromium they are
- * skipped loudly on a developer's machine, and fail under CI=true.
+ * skipped loudly on a developer's machine, and fail on a CI server.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import ci from 'ci-info';
 import { CHROMIUM_PATH } from './browser';
 
 if (!existsSync(CHROMIUM_PATH)) {
@@ -16,8 +17,10 @@ if (!existsSync(CHROMIUM_PATH)) {
     '',
   ].join('\n');
   console.error(banner);
-  process.exit(process.env.CI === 'true' ? 1 : 0);
+  process.exit(ci.isCI ? 1 : 0);
 }
 
-const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--project', 'e2e', ...process.argv.slice(2)], { stdio: 'inherit' });
+const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--project', 'e2e', ...process.argv.slice(2)], {
+  stdio: 'inherit',
+});
 process.exit(result.status ?? 1);

@@ -24,78 +24,83 @@ describe('a new client describes a rail', () => {
   test.each([
     ['phone', { width: 390, height: 844 }],
     ['laptop', { width: 1366, height: 900 }],
-  ] as const)('fills the wizard at %s width, sees the ranking react, attaches files, signs up at submit and finds the brief', async (label, viewport) => {
-    const context = await browser().newContext({ viewport });
-    const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (e) => errors.push(e.message));
+  ] as const)(
+    'fills the wizard at %s width, sees the ranking react, attaches files, signs up at submit and finds the brief',
+    async (label, viewport) => {
+      const context = await browser().newContext({ viewport });
+      const page = await context.newPage();
+      const errors: string[] = [];
+      page.on('pageerror', (e) => errors.push(e.message));
 
-    await page.goto(`${baseUrl}/briefs/new`);
-    await islandsReady(page);
-    await page.getByRole('heading', { name: /Step 1 of 7: Source/ }).waitFor();
-    await page.getByLabel('What feeds the rail?').selectOption('bus');
-    await page.getByRole('button', { name: 'Use typical figures for this source' }).click();
-    // 18–30 V in, 5 V out: a step-down switcher should head the list.
-    await expect.poll(() => rankingText(page), { timeout: 15_000 }).toContain('Buck (step-down) switcher');
-    const before = await rankingText(page);
-    await page.getByRole('button', { name: 'Next' }).click();
+      await page.goto(`${baseUrl}/briefs/new`);
+      await islandsReady(page);
+      await page.getByRole('heading', { name: /Step 1 of 7: Source/ }).waitFor();
+      await page.getByLabel('What feeds the rail?').selectOption('bus');
+      await page.getByRole('button', { name: 'Use typical figures for this source' }).click();
+      // 18–30 V in, 5 V out: a step-down switcher should head the list.
+      await expect.poll(() => rankingText(page), { timeout: 15_000 }).toContain('Buck (step-down) switcher');
+      const before = await rankingText(page);
+      await page.getByRole('button', { name: 'Next' }).click();
 
-    await fill(page, 'Name of the rail', `Valve driver 5 V (${label})`);
-    await fill(page, 'Output voltage', '5');
-    await page.getByRole('button', { name: 'Next' }).click();
-    await page.getByRole('heading', { name: /Load/ }).waitFor();
-    await fill(page, 'Highest load current', '800m');
-    await page.getByRole('button', { name: 'Back' }).click();
-    await page.getByRole('button', { name: 'Back' }).click();
+      await fill(page, 'Name of the rail', `Valve driver 5 V (${label})`);
+      await fill(page, 'Output voltage', '5');
+      await page.getByRole('button', { name: 'Next' }).click();
+      await page.getByRole('heading', { name: /Load/ }).waitFor();
+      await fill(page, 'Highest load current', '800m');
+      await page.getByRole('button', { name: 'Back' }).click();
+      await page.getByRole('button', { name: 'Back' }).click();
 
-    // Changing the input range to straddle the output changes the ranking.
-    await fill(page, 'Lowest input voltage', '4.2');
-    await fill(page, 'Nominal input voltage', '5');
-    await fill(page, 'Highest input voltage', '6');
-    await expect.poll(() => rankingText(page), { timeout: 15_000 }).not.toBe(before);
-    await expect.poll(() => rankingText(page)).toContain('Buck-boost switcher');
-    await screenshot(page, `wizard-${label}-source`);
+      // Changing the input range to straddle the output changes the ranking.
+      await fill(page, 'Lowest input voltage', '4.2');
+      await fill(page, 'Nominal input voltage', '5');
+      await fill(page, 'Highest input voltage', '6');
+      await expect.poll(() => rankingText(page), { timeout: 15_000 }).not.toBe(before);
+      await expect.poll(() => rankingText(page)).toContain('Buck-boost switcher');
+      await screenshot(page, `wizard-${label}-source`);
 
-    // Bad input gets a message in plain words beside the field.
-    await fill(page, 'Lowest input voltage', 'abc');
-    await page.getByRole('button', { name: 'Next' }).click();
-    expect(await page.locator('#f-spec-input-vMin-error').textContent()).toContain('The lowest input voltage must be a number.');
-    expect(await page.getByLabel('Lowest input voltage', { exact: true }).getAttribute('aria-invalid')).toBe('true');
-    await fill(page, 'Lowest input voltage', '4.5');
+      // Bad input gets a message in plain words beside the field.
+      await fill(page, 'Lowest input voltage', 'abc');
+      await page.getByRole('button', { name: 'Next' }).click();
+      expect(await page.locator('#f-spec-input-vMin-error').textContent()).toContain('The lowest input voltage must be a number.');
+      expect(await page.getByLabel('Lowest input voltage', { exact: true }).getAttribute('aria-invalid')).toBe('true');
+      await fill(page, 'Lowest input voltage', '4.5');
 
-    for (let i = 0; i < 5; i++) await page.getByRole('button', { name: 'Next' }).click();
-    await page.getByRole('heading', { name: /Files and notes/ }).waitFor();
-    await page.getByLabel(/Schematics, datasheets/).setInputFiles([fixture('node-load-log.csv'), fixture('node-schematic.pdf')]);
-    await page.getByText(/61 samples over 60 s/).waitFor();
-    await page.getByRole('button', { name: 'Use these figures for the load' }).click();
-    await fill(page, 'Anything else we should know', 'Valve coils switch every 15 s.');
-    await screenshot(page, `wizard-${label}-files`);
-    await page.getByRole('button', { name: 'Next' }).click();
+      for (let i = 0; i < 5; i++) await page.getByRole('button', { name: 'Next' }).click();
+      await page.getByRole('heading', { name: /Files and notes/ }).waitFor();
+      await page.getByLabel(/Schematics, datasheets/).setInputFiles([fixture('node-load-log.csv'), fixture('node-schematic.pdf')]);
+      await page.getByText(/61 samples over 60 s/).waitFor();
+      await page.getByRole('button', { name: 'Use these figures for the load' }).click();
+      await fill(page, 'Anything else we should know', 'Valve coils switch every 15 s.');
+      await screenshot(page, `wizard-${label}-files`);
+      await page.getByRole('button', { name: 'Next' }).click();
 
-    await page.getByRole('heading', { name: /Review/ }).waitFor();
-    await page.getByRole('button', { name: 'Submit the brief' }).click();
-    const email = `wizard-${label}-${Date.now()}@example.test`;
-    await page.getByRole('heading', { name: 'Create an account to submit' }).waitFor();
-    await page.getByLabel('Your name').fill('Mirela Dukic');
-    await page.getByLabel('Company or lab').fill('Dukic Fluidics');
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password').fill('a-long-password-1');
-    await screenshot(page, `wizard-${label}-account`);
-    await page.getByRole('button', { name: 'Create account and submit' }).click();
+      await page.getByRole('heading', { name: /Review/ }).waitFor();
+      await page.getByRole('button', { name: 'Submit the brief' }).click();
+      const email = `wizard-${label}-${Date.now()}@example.test`;
+      await page.getByRole('heading', { name: 'Create an account to submit' }).waitFor();
+      await page.getByLabel('Your name').fill('Mirela Dukic');
+      await page.getByLabel('Company or lab').fill('Dukic Fluidics');
+      await page.getByLabel('E-mail').fill(email);
+      await page.getByLabel('Password').fill('a-long-password-1');
+      await screenshot(page, `wizard-${label}-account`);
+      await page.getByRole('button', { name: 'Create account and submit' }).click();
 
-    await page.waitForURL(/\/briefs\/[^/?]+\?submitted=1$/, { timeout: 20_000 });
-    await page.getByRole('heading', { name: `Valve driver 5 V (${label})` }).waitFor();
-    expect(await page.locator('h1 + span').textContent()).toContain('Submitted');
-    expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain('Draft → Submitted');
-    expect(await page.getByRole('link', { name: 'node-load-log.csv' }).count()).toBe(1);
-    expect(await page.getByRole('link', { name: 'node-schematic.pdf' }).count()).toBe(1);
-    await screenshot(page, `wizard-${label}-submitted`);
+      await page.waitForURL(/\/briefs\/[^/?]+\?submitted=1$/, { timeout: 20_000 });
+      await page.getByRole('heading', { name: `Valve driver 5 V (${label})` }).waitFor();
+      expect(await page.locator('h1 + span').textContent()).toContain('Submitted');
+      expect(await page.getByRole('list', { name: 'State history, oldest first' }).locator('li').last().textContent()).toContain(
+        'Draft → Submitted',
+      );
+      expect(await page.getByRole('link', { name: 'node-load-log.csv' }).count()).toBe(1);
+      expect(await page.getByRole('link', { name: 'node-schematic.pdf' }).count()).toBe(1);
+      await screenshot(page, `wizard-${label}-submitted`);
 
-    await page.goto(`${baseUrl}/briefs`);
-    expect(await page.getByRole('link', { name: `Valve driver 5 V (${label})` }).count()).toBe(1);
-    expect(errors).toEqual([]);
-    await context.close();
-  });
+      await page.goto(`${baseUrl}/briefs`);
+      expect(await page.getByRole('link', { name: `Valve driver 5 V (${label})` }).count()).toBe(1);
+      expect(errors).toEqual([]);
+      await context.close();
+    },
+  );
 
   test('a signed-in client’s draft is saved to the server and restored after leaving', async () => {
     const context = await browser().newContext();

@@ -1,5 +1,5 @@
 /** A tiny HTTP client with a cookie jar, for talking to the running app as one person. */
-import { DEMO_PASSWORD } from '../../src/lib/server/seed/scenario';
+import { DEMO_PASSWORD } from '../../src/lib/demo/scenario';
 
 export class Visitor {
   private cookies = new Map<string, string>();

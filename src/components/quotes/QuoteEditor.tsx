@@ -1,8 +1,17 @@
 import { useMemo, useState } from 'react';
-import { formatMoney } from '~/lib/format';
-import { formatBp, formatDecimal, lineTotal, minorDigits, parseDecimal, QUOTE_LINE_KINDS, quoteTotals, type QuoteLineInput } from '~/lib/pricing';
-import type { QuoteJson } from '~/lib/server/quotes';
-import { describedBy, FieldShell, inputClass } from '../react/FieldShell';
+import { formatMoney } from '~/lib/platform/format';
+import {
+  formatBp,
+  formatDecimal,
+  lineTotal,
+  minorDigits,
+  parseDecimal,
+  QUOTE_LINE_KINDS,
+  quoteTotals,
+  type QuoteLineInput,
+} from '~/lib/quotes/pricing';
+import type { QuoteJson } from '~/lib/quotes/quotes.server';
+import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
 
 interface Props {
   initial: QuoteJson;
@@ -56,13 +65,17 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
   const [terms, setTerms] = useState(initial.terms);
   const [dirty, setDirty] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(lastFailure ? { tone: 'stop', text: `The last attempt to send failed: ${lastFailure}` } : null);
+  const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(
+    lastFailure ? { tone: 'stop', text: `The last attempt to send failed: ${lastFailure}` } : null,
+  );
   const [busy, setBusy] = useState<'save' | 'send' | null>(null);
 
-  const edit = <T,>(setter: (v: T) => void) => (value: T) => {
-    setter(value);
-    setDirty(true);
-  };
+  const edit =
+    <T,>(setter: (v: T) => void) =>
+    (value: T) => {
+      setter(value);
+      setDirty(true);
+    };
   const setLine = (key: number, patch: Partial<LineDraft>) => {
     setLines((all) => all.map((l) => (l.key === key ? { ...l, ...patch } : l)));
     setDirty(true);
@@ -76,7 +89,13 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
       const unitPriceMinor = parseDecimal(l.unitPrice, digits);
       if (quantityMilli === null) issues[`lines.${i}.quantityMilli`] = 'A number, up to 3 decimals.';
       if (unitPriceMinor === null) issues[`lines.${i}.unitPriceMinor`] = `An amount, up to ${digits} decimals.`;
-      return { kind: l.kind, description: l.description, unit: l.unit, quantityMilli: quantityMilli ?? 0, unitPriceMinor: unitPriceMinor ?? 0 };
+      return {
+        kind: l.kind,
+        description: l.description,
+        unit: l.unit,
+        quantityMilli: quantityMilli ?? 0,
+        unitPriceMinor: unitPriceMinor ?? 0,
+      };
     });
     const units = parseDecimal(quantity, 0);
     const taxRateBp = parseDecimal(tax, 2);
@@ -84,7 +103,10 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
     if (units === null) issues.quantity = 'A whole number of units.';
     if (taxRateBp === null) issues.taxRateBp = 'A percentage, up to 2 decimals.';
     if (depositBp === null) issues.depositBp = 'A percentage, up to 2 decimals.';
-    return { issues, body: { lines: parsed, quantity: units ?? 0, taxRateBp: taxRateBp ?? 0, depositBp: depositBp ?? 0, validUntil, terms } };
+    return {
+      issues,
+      body: { lines: parsed, quantity: units ?? 0, taxRateBp: taxRateBp ?? 0, depositBp: depositBp ?? 0, validUntil, terms },
+    };
   }, [lines, quantity, tax, deposit, validUntil, terms, digits]);
 
   // A preview with the server's own arithmetic; what is stored comes back from the save.
@@ -100,11 +122,23 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
     }
     setBusy('save');
     try {
-      const response = await fetch(`/api/v1/quotes/${saved.id}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify(read.body) });
-      const body = (await response.json().catch(() => ({}))) as QuoteJson & { message?: string; issues?: { path: string; message: string }[] };
+      const response = await fetch(`/api/v1/quotes/${saved.id}`, {
+        method: 'PATCH',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify(read.body),
+      });
+      const body = (await response.json().catch(() => ({}))) as QuoteJson & {
+        message?: string;
+        issues?: { path: string; message: string }[];
+      };
       if (!response.ok) {
         setErrors(Object.fromEntries((body.issues ?? []).map((i) => [i.path, i.message])));
-        setStatus({ tone: 'stop', text: body.issues?.length ? 'Some fields need correcting before the quote can be saved.' : (body.message ?? `Saving failed (${response.status}); try again.`) });
+        setStatus({
+          tone: 'stop',
+          text: body.issues?.length
+            ? 'Some fields need correcting before the quote can be saved.'
+            : (body.message ?? `Saving failed (${response.status}); try again.`),
+        });
         return false;
       }
       setErrors({});
@@ -146,7 +180,10 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
   return (
     <div className="flex flex-col gap-6">
       {status && (
-        <div role={status.tone === 'stop' ? 'alert' : 'status'} className={`rounded-md border px-4 py-3 text-sm font-medium ${status.tone === 'ok' ? 'border-ok-700/30 bg-ok-50 text-ok-700' : 'border-stop-700/30 bg-stop-50 text-stop-700'}`}>
+        <div
+          role={status.tone === 'stop' ? 'alert' : 'status'}
+          className={`rounded-md border px-4 py-3 text-sm font-medium ${status.tone === 'ok' ? 'border-ok-700/30 bg-ok-50 text-ok-700' : 'border-stop-700/30 bg-stop-50 text-stop-700'}`}
+        >
           {status.text}
         </div>
       )}
@@ -161,7 +198,9 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
               <th>Unit</th>
               <th className="num">Unit price ({saved.currency})</th>
               <th className="num">Amount</th>
-              <th><span className="sr-only">Remove</span></th>
+              <th>
+                <span className="sr-only">Remove</span>
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -171,30 +210,70 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
               return (
                 <tr key={l.key}>
                   <td>
-                    <select aria-label={label('Kind')} className={`${small()} min-w-36`} value={l.kind} onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}>
+                    <select
+                      aria-label={label('Kind')}
+                      className={`${small()} min-w-36`}
+                      value={l.kind}
+                      onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}
+                    >
                       {QUOTE_LINE_KINDS.map((k) => (
-                        <option key={k} value={k}>{KIND_WORDS[k]}</option>
+                        <option key={k} value={k}>
+                          {KIND_WORDS[k]}
+                        </option>
                       ))}
                     </select>
                   </td>
                   <td className="min-w-64">
-                    <input aria-label={label('Description')} aria-invalid={cell(i, 'description') ? true : undefined} className={small(cell(i, 'description'))} value={l.description} onChange={(e) => setLine(l.key, { description: e.target.value })} />
+                    <input
+                      aria-label={label('Description')}
+                      aria-invalid={cell(i, 'description') ? true : undefined}
+                      className={small(cell(i, 'description'))}
+                      value={l.description}
+                      onChange={(e) => setLine(l.key, { description: e.target.value })}
+                    />
                     {cell(i, 'description') && <p className="text-xs text-stop-700">{cell(i, 'description')}</p>}
                   </td>
                   <td className="w-24">
-                    <input aria-label={label('Quantity')} inputMode="decimal" aria-invalid={cell(i, 'quantityMilli') ? true : undefined} className={`${small(cell(i, 'quantityMilli'))} text-right`} value={l.quantity} onChange={(e) => setLine(l.key, { quantity: e.target.value })} />
+                    <input
+                      aria-label={label('Quantity')}
+                      inputMode="decimal"
+                      aria-invalid={cell(i, 'quantityMilli') ? true : undefined}
+                      className={`${small(cell(i, 'quantityMilli'))} text-right`}
+                      value={l.quantity}
+                      onChange={(e) => setLine(l.key, { quantity: e.target.value })}
+                    />
                     {cell(i, 'quantityMilli') && <p className="text-xs text-stop-700">{cell(i, 'quantityMilli')}</p>}
                   </td>
                   <td className="w-20">
-                    <input aria-label={label('Unit')} className={small(cell(i, 'unit'))} value={l.unit} onChange={(e) => setLine(l.key, { unit: e.target.value })} />
+                    <input
+                      aria-label={label('Unit')}
+                      className={small(cell(i, 'unit'))}
+                      value={l.unit}
+                      onChange={(e) => setLine(l.key, { unit: e.target.value })}
+                    />
                   </td>
                   <td className="w-32">
-                    <input aria-label={label('Unit price')} inputMode="decimal" aria-invalid={cell(i, 'unitPriceMinor') ? true : undefined} className={`${small(cell(i, 'unitPriceMinor'))} text-right`} value={l.unitPrice} onChange={(e) => setLine(l.key, { unitPrice: e.target.value })} />
+                    <input
+                      aria-label={label('Unit price')}
+                      inputMode="decimal"
+                      aria-invalid={cell(i, 'unitPriceMinor') ? true : undefined}
+                      className={`${small(cell(i, 'unitPriceMinor'))} text-right`}
+                      value={l.unitPrice}
+                      onChange={(e) => setLine(l.key, { unitPrice: e.target.value })}
+                    />
                     {cell(i, 'unitPriceMinor') && <p className="text-xs text-stop-700">{cell(i, 'unitPriceMinor')}</p>}
                   </td>
                   <td className="num whitespace-nowrap">{row ? money(lineTotal(row)) : '—'}</td>
                   <td>
-                    <button type="button" className="rounded px-2 py-1 text-sm font-semibold text-stop-700 hover:bg-stop-50 disabled:opacity-40" disabled={lines.length === 1} onClick={() => { setLines((all) => all.filter((x) => x.key !== l.key)); setDirty(true); }}>
+                    <button
+                      type="button"
+                      className="rounded px-2 py-1 text-sm font-semibold text-stop-700 hover:bg-stop-50 disabled:opacity-40"
+                      disabled={lines.length === 1}
+                      onClick={() => {
+                        setLines((all) => all.filter((x) => x.key !== l.key));
+                        setDirty(true);
+                      }}
+                    >
                       Remove<span className="sr-only"> line {i + 1}</span>
                     </button>
                   </td>
@@ -206,45 +285,109 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
       </div>
       {errors.lines && <p className="text-sm text-stop-700">{errors.lines}</p>}
       <p>
-        <button type="button" className="rounded-md border border-ink/25 bg-card px-3 py-1.5 text-sm font-semibold hover:border-ink/60" onClick={() => { setLines((all) => [...all, { key: nextKey++, kind: 'other', description: '', quantity: '1', unit: 'item', unitPrice: formatDecimal(0, digits) }]); setDirty(true); }}>
+        <button
+          type="button"
+          className="rounded-md border border-ink/25 bg-card px-3 py-1.5 text-sm font-semibold hover:border-ink/60"
+          onClick={() => {
+            setLines((all) => [
+              ...all,
+              { key: nextKey++, kind: 'other', description: '', quantity: '1', unit: 'item', unitPrice: formatDecimal(0, digits) },
+            ]);
+            setDirty(true);
+          }}
+        >
           Add a line
         </button>
       </p>
 
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        {([
-          ['quantity', 'Units', quantity, edit(setQuantity), 'units', 'Parts and prototype lines follow this number when you change it alone.'],
-          ['taxRateBp', 'Tax rate', tax, edit(setTax), '%', undefined],
-          ['depositBp', 'Deposit on acceptance', deposit, edit(setDeposit), '% of total', undefined],
-        ] as const).map(([name, label, value, set, unit, hint]) => (
+        {(
+          [
+            [
+              'quantity',
+              'Units',
+              quantity,
+              edit(setQuantity),
+              'units',
+              'Parts and prototype lines follow this number when you change it alone.',
+            ],
+            ['taxRateBp', 'Tax rate', tax, edit(setTax), '%', undefined],
+            ['depositBp', 'Deposit on acceptance', deposit, edit(setDeposit), '% of total', undefined],
+          ] as const
+        ).map(([name, label, value, set, unit, hint]) => (
           <FieldShell key={name} id={`quote-${name}`} label={label} unit={unit} hint={hint} error={errors[name]}>
-            <input id={`quote-${name}`} inputMode="decimal" aria-describedby={describedBy(`quote-${name}`, hint, errors[name])} aria-invalid={errors[name] ? true : undefined} className={inputClass(errors[name])} value={value} onChange={(e) => set(e.target.value)} />
+            <input
+              id={`quote-${name}`}
+              inputMode="decimal"
+              aria-describedby={describedBy(`quote-${name}`, hint, errors[name])}
+              aria-invalid={errors[name] ? true : undefined}
+              className={inputClass(errors[name])}
+              value={value}
+              onChange={(e) => set(e.target.value)}
+            />
           </FieldShell>
         ))}
         <FieldShell id="quote-validUntil" label="Valid until" error={errors.validUntil}>
-          <input id="quote-validUntil" type="date" aria-describedby={describedBy('quote-validUntil', undefined, errors.validUntil)} aria-invalid={errors.validUntil ? true : undefined} className={inputClass(errors.validUntil)} value={validUntil} onChange={(e) => edit(setValidUntil)(e.target.value)} />
+          <input
+            id="quote-validUntil"
+            type="date"
+            aria-describedby={describedBy('quote-validUntil', undefined, errors.validUntil)}
+            aria-invalid={errors.validUntil ? true : undefined}
+            className={inputClass(errors.validUntil)}
+            value={validUntil}
+            onChange={(e) => edit(setValidUntil)(e.target.value)}
+          />
         </FieldShell>
       </div>
       <FieldShell id="quote-terms" label="Terms (one per line)" error={errors.terms}>
-        <textarea id="quote-terms" rows={5} className={inputClass(errors.terms)} value={terms} onChange={(e) => edit(setTerms)(e.target.value)} />
+        <textarea
+          id="quote-terms"
+          rows={5}
+          className={inputClass(errors.terms)}
+          value={terms}
+          onChange={(e) => edit(setTerms)(e.target.value)}
+        />
       </FieldShell>
 
-      <dl className="ml-auto grid w-full max-w-sm grid-cols-[1fr_auto] gap-x-6 gap-y-1 rounded-lg border border-rule bg-card p-4 text-sm tabular-nums" aria-label={dirty ? 'Totals of the unsaved changes' : 'Stored totals'}>
-        <dt className="text-ink-soft">Subtotal</dt><dd className="text-right">{money(dirty ? preview.subtotalMinor : saved.subtotalMinor)}</dd>
-        <dt className="text-ink-soft">Tax ({formatBp(dirty ? read.body.taxRateBp : saved.taxRateBp)})</dt><dd className="text-right">{money(dirty ? preview.taxMinor : saved.taxMinor)}</dd>
-        <dt className="font-bold">Total</dt><dd className="text-right font-extrabold">{money(dirty ? preview.totalMinor : saved.totalMinor)}</dd>
-        <dt className="font-bold">Deposit ({formatBp(dirty ? read.body.depositBp : saved.depositBp)})</dt><dd className="text-right font-bold">{money(dirty ? preview.depositMinor : saved.depositMinor)}</dd>
+      <dl
+        className="ml-auto grid w-full max-w-sm grid-cols-[1fr_auto] gap-x-6 gap-y-1 rounded-lg border border-rule bg-card p-4 text-sm tabular-nums"
+        aria-label={dirty ? 'Totals of the unsaved changes' : 'Stored totals'}
+      >
+        <dt className="text-ink-soft">Subtotal</dt>
+        <dd className="text-right">{money(dirty ? preview.subtotalMinor : saved.subtotalMinor)}</dd>
+        <dt className="text-ink-soft">Tax ({formatBp(dirty ? read.body.taxRateBp : saved.taxRateBp)})</dt>
+        <dd className="text-right">{money(dirty ? preview.taxMinor : saved.taxMinor)}</dd>
+        <dt className="font-bold">Total</dt>
+        <dd className="text-right font-extrabold">{money(dirty ? preview.totalMinor : saved.totalMinor)}</dd>
+        <dt className="font-bold">Deposit ({formatBp(dirty ? read.body.depositBp : saved.depositBp)})</dt>
+        <dd className="text-right font-bold">{money(dirty ? preview.depositMinor : saved.depositMinor)}</dd>
         {dirty && <dd className="col-span-2 mt-1 text-xs text-warn-700">Unsaved changes: these totals are a preview until you save.</dd>}
       </dl>
 
       <div className="flex flex-wrap items-center gap-3">
-        <button type="button" onClick={() => void save()} disabled={busy !== null} className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60 disabled:opacity-50">
+        <button
+          type="button"
+          onClick={() => void save()}
+          disabled={busy !== null}
+          className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60 disabled:opacity-50"
+        >
           {busy === 'save' ? 'Saving…' : 'Save draft'}
         </button>
-        <a href={`/api/v1/quotes/${saved.id}/pdf`} target="_blank" rel="noopener" className={`rounded-md px-4 py-2 text-sm font-semibold ${dirty ? 'pointer-events-none text-ink-faint' : ''}`} aria-disabled={dirty || undefined}>
+        <a
+          href={`/api/v1/quotes/${saved.id}/pdf`}
+          target="_blank"
+          rel="noopener"
+          className={`rounded-md px-4 py-2 text-sm font-semibold ${dirty ? 'pointer-events-none text-ink-faint' : ''}`}
+          aria-disabled={dirty || undefined}
+        >
           Preview the PDF{dirty ? ' (save first)' : ''}
         </a>
-        <button type="button" onClick={() => void send()} disabled={busy !== null} className="ml-auto rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50">
+        <button
+          type="button"
+          onClick={() => void send()}
+          disabled={busy !== null}
+          className="ml-auto rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+        >
           {busy === 'send' ? 'Sending…' : `Send to ${saved.client.email}`}
         </button>
       </div>

@@ -1,4 +1,4 @@
-import type { StateLook } from '~/lib/states';
+import type { StateLook } from '~/components/ui/state-look';
 
 /** How a quote's state reads on screen: word, tone and glyph, never colour alone. */
 export const QUOTE_STATE_LOOK: Record<string, StateLook> = {

@@ -1,7 +1,16 @@
 import type { SyntheticEvent } from 'react';
-import { describedBy, FieldShell, inputClass } from '../react/FieldShell';
-import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review-words';
-import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, REQUIREMENT_FIELDS, REQUIREMENT_KEYS, type ChoicesForm, type FormIssue, type RequirementField } from '~/lib/review-choices';
+import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
+import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
+import {
+  CHOICE_OVERRIDES,
+  NUMBER_OVERRIDE_KEYS,
+  NUMBER_OVERRIDES,
+  REQUIREMENT_FIELDS,
+  REQUIREMENT_KEYS,
+  type ChoicesForm,
+  type FormIssue,
+  type RequirementField,
+} from '~/lib/review/choices';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
 
@@ -136,7 +145,9 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
 
       <fieldset className="mt-5">
         <legend className="text-sm font-bold text-ink-soft">Requirement agreed with the client (leave empty to design to the brief)</legend>
-        <p className="mt-1 text-sm text-ink-soft">Change these only with the client’s agreement: the revision, the quote and its PDF state the requirement the design meets.</p>
+        <p className="mt-1 text-sm text-ink-soft">
+          Change these only with the client’s agreement: the revision, the quote and its PDF state the requirement the design meets.
+        </p>
         <div className="mt-2 grid gap-3 sm:grid-cols-3">
           {REQUIREMENT_KEYS.map((key) => {
             const id = `requirement-${key}`;
@@ -171,7 +182,13 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
               <li key={k} className="flex flex-wrap items-end gap-2">
                 <div className="w-24">
                   <FieldShell id={`part-ref-${k}`} label="Reference">
-                    <input id={`part-ref-${k}`} value={part.ref} onChange={(e) => setPart(k, { ref: e.target.value })} className={inputClass()} autoComplete="off" />
+                    <input
+                      id={`part-ref-${k}`}
+                      value={part.ref}
+                      onChange={(e) => setPart(k, { ref: e.target.value })}
+                      className={inputClass()}
+                      autoComplete="off"
+                    />
                   </FieldShell>
                 </div>
                 <div className="w-40">
@@ -220,7 +237,11 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
         </ul>
       )}
       <div className="mt-5 flex flex-wrap items-center gap-3">
-        <button type="submit" disabled={running} className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50">
+        <button
+          type="submit"
+          disabled={running}
+          className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+        >
           {running ? 'Re-running…' : 'Re-run the engine'}
         </button>
         <span className="text-sm text-ink-soft" aria-live="polite">

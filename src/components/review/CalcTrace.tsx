@@ -1,7 +1,7 @@
 import { Fragment } from 'react';
 import type { Option, Quantity } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { TYPICAL_NOTE } from '~/lib/review-words';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 
 /** Dimensionless quantities (duty cycle, ratios) read as plain numbers. */
 function quantity(q: Quantity): string {
@@ -18,7 +18,11 @@ export function CalcTrace({ option }: { option: Option }) {
     <div className="calc-sheet">
       <ol className="flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card">
         {option.trace.map((entry, index) => (
-          <li key={entry.id} className="grid grid-cols-1 gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_minmax(0,1fr)_auto]" data-trace={entry.id}>
+          <li
+            key={entry.id}
+            className="grid grid-cols-1 gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_minmax(0,1fr)_auto]"
+            data-trace={entry.id}
+          >
             <span className="font-mono text-ink-faint">{index + 1}.</span>
             <div>
               <p className="font-semibold">{entry.label}</p>
@@ -50,7 +54,9 @@ export function CalcTrace({ option }: { option: Option }) {
             <thead>
               <tr>
                 <th scope="col">Parameter</th>
-                <th scope="col" className="num">Value</th>
+                <th scope="col" className="num">
+                  Value
+                </th>
                 <th scope="col">Standing</th>
               </tr>
             </thead>

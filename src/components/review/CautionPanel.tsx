@@ -1,5 +1,5 @@
 import type { Caution } from '~/lib/engine/types';
-import { CAUTION_DEFERRAL } from '~/lib/review-words';
+import { CAUTION_DEFERRAL } from '~/lib/review/words';
 
 /** Safety cautions, shown wherever a design is shown; repeated wording across options appears once. */
 export function CautionPanel({ cautions, heading = 'Cautions' }: { cautions: readonly Caution[]; heading?: string }) {

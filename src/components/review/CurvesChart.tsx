@@ -2,8 +2,8 @@ import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { TOPOLOGY_NAMES } from '~/lib/option-words';
-import { TYPICAL_NOTE } from '~/lib/review-words';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 import { AXIS_STYLE, SERIES_LOOK } from './chart-styles';
 import { UPlotChart, type ChartBuilder } from './UPlotChart';
 
@@ -38,7 +38,12 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
           scales: { x: { time: false } },
           axes: [
             { ...AXIS_STYLE, label: 'Input voltage, V' },
-            { ...AXIS_STYLE, label: spec.axis, size: 60, values: (_u, ticks) => ticks.map((t) => (kind === 'efficiency' ? `${t}` : formatSi(t, ''))) },
+            {
+              ...AXIS_STYLE,
+              label: spec.axis,
+              size: 60,
+              values: (_u, ticks) => ticks.map((t) => (kind === 'efficiency' ? `${t}` : formatSi(t, ''))),
+            },
           ],
           legend: { markers: { dash: (_u, i) => (i === 0 ? 'solid' : SERIES_LOOK[options[i - 1]!.topology].css), width: 3 } },
           series: [
@@ -68,7 +73,9 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
         {spec.title}
       </h3>
       <UPlotChart build={build} label={`${spec.title}, one line per option; the figures are in the table below.`} />
-      <figcaption className="mt-1 text-xs text-ink-faint">Click a name in the legend to hide or show its line. Figures are {TYPICAL_NOTE}.</figcaption>
+      <figcaption className="mt-1 text-xs text-ink-faint">
+        Click a name in the legend to hide or show its line. Figures are {TYPICAL_NOTE}.
+      </figcaption>
       <details className="mt-2 text-xs">
         <summary className="cursor-pointer font-semibold text-copper-700">Figures behind the chart</summary>
         <div className="mt-2 overflow-x-auto">

@@ -1,9 +1,9 @@
 import type { Option, Severity } from '~/lib/engine/types';
-import { feasibilityOf, headlineReason, TOPOLOGY_NAMES } from '~/lib/option-words';
-import { fixText, keyFigures } from '~/lib/review-figures';
-import { TYPICAL_NOTE } from '~/lib/review-words';
-import { FEASIBILITY_LOOK } from '~/lib/states';
-import { StateBadge } from '../react/StateBadge';
+import { feasibilityOf, headlineReason, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { fixText, keyFigures } from '~/lib/review/figures';
+import { TYPICAL_NOTE } from '~/lib/review/words';
+import { FEASIBILITY_LOOK } from '~/components/ui/state-look';
+import { StateBadge } from '../ui/StateBadge';
 
 const SEVERITY: Record<Severity, { glyph: string; word: string; className: string }> = {
   blocker: { glyph: '✕', word: 'Blocker', className: 'text-stop-700' },

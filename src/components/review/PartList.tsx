@@ -1,8 +1,8 @@
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { formatMoney } from '~/lib/format';
-import { componentValue } from '~/lib/review-figures';
-import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review-words';
+import { formatMoney } from '~/lib/platform/format';
+import { componentValue } from '~/lib/review/figures';
+import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review/words';
 
 const dash = (value: number | null, unit: string) => (value === null ? '—' : formatSi(value, unit));
 const pct = (value: number | null) => (value === null ? '—' : `±${Number((value * 100).toPrecision(3))} %`);
@@ -21,18 +21,32 @@ export function PartList({ option, currency }: { option: Option; currency: strin
             <th scope="col">Ref</th>
             <th scope="col">Role</th>
             <th scope="col">Part</th>
-            <th scope="col" className="num">Value</th>
-            <th scope="col" className="num">Rating</th>
-            <th scope="col" className="num">Tolerance</th>
-            <th scope="col" className="num">Worst</th>
-            <th scope="col" className="num">Fault</th>
-            <th scope="col" className="num">Cost</th>
+            <th scope="col" className="num">
+              Value
+            </th>
+            <th scope="col" className="num">
+              Rating
+            </th>
+            <th scope="col" className="num">
+              Tolerance
+            </th>
+            <th scope="col" className="num">
+              Worst
+            </th>
+            <th scope="col" className="num">
+              Fault
+            </th>
+            <th scope="col" className="num">
+              Cost
+            </th>
           </tr>
         </thead>
         <tbody>
           {option.components.map((c) => {
             const p = heat.get(c.ref);
-            const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null].filter(Boolean).join(', ');
+            const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null]
+              .filter(Boolean)
+              .join(', ');
             return (
               <tr key={c.ref}>
                 <th scope="row" className="border-b border-rule font-mono text-ink">

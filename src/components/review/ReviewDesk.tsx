@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import type { Evaluation, TopologyId } from '~/lib/engine/types';
-import { TOPOLOGY_NAMES } from '~/lib/option-words';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { AdjustPanel } from './AdjustPanel';
 import { CalcTrace } from './CalcTrace';
 import { CautionPanel } from './CautionPanel';
-import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review-choices';
-import { AGREED_FIELD_PATHS, withAgreedRequirement } from '~/lib/agreed-requirement';
+import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review/choices';
+import { AGREED_FIELD_PATHS, withAgreedRequirement } from '~/lib/review/agreed-requirement';
 import { CurvesChart } from './CurvesChart';
 import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';
@@ -40,7 +40,9 @@ export default function ReviewDesk(props: Props) {
   const [form, setForm] = useState(props.initialForm);
   const [ran, setRan] = useState(props.initialForm);
   const [result, setResult] = useState(props.initialResult);
-  const [chosen, setChosen] = useState<TopologyId | null>(props.initialTopology ?? props.initialResult.recommended ?? props.initialResult.options[0]?.topology ?? null);
+  const [chosen, setChosen] = useState<TopologyId | null>(
+    props.initialTopology ?? props.initialResult.recommended ?? props.initialResult.options[0]?.topology ?? null,
+  );
   const [running, setRunning] = useState(false);
   const [issues, setIssues] = useState<FormIssue[]>([]);
   const [note, setNote] = useState('');
@@ -63,7 +65,11 @@ export default function ReviewDesk(props: Props) {
       const response = await fetch('/api/v1/evaluate', {
         method: 'POST',
         headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ ...withAgreedRequirement(spec, choices.value.requirement), weights: choices.value.weights, overrides: choices.value.overrides }),
+        body: JSON.stringify({
+          ...withAgreedRequirement(spec, choices.value.requirement),
+          weights: choices.value.weights,
+          overrides: choices.value.overrides,
+        }),
       });
       if (!response.ok) {
         const problems = await readIssues(response, 'The engine could not run with these choices.');
@@ -115,7 +121,16 @@ export default function ReviewDesk(props: Props) {
     <div className="flex flex-col gap-8">
       {option && <CautionPanel cautions={option.cautions} heading={`Cautions for the ${TOPOLOGY_NAMES[option.topology].toLowerCase()}`} />}
 
-      <AdjustPanel form={form} onChange={setForm} onRun={rerun} running={running} dirty={dirty} issues={issues} linearClasses={linearClasses} briefed={spec} />
+      <AdjustPanel
+        form={form}
+        onChange={setForm}
+        onRun={rerun}
+        running={running}
+        dirty={dirty}
+        issues={issues}
+        linearClasses={linearClasses}
+        briefed={spec}
+      />
 
       <section aria-labelledby="options-heading">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -126,13 +141,22 @@ export default function ReviewDesk(props: Props) {
             {result.recommended
               ? `Engine’s pick: ${TOPOLOGY_NAMES[result.recommended]}. ${result.options.filter((o) => o.feasible).length} of ${result.options.length} feasible.`
               : 'No option is feasible as briefed; the reasons are on each card.'}
-            {props.startedFrom !== null && !dirty && JSON.stringify(ran) === JSON.stringify(props.initialForm) ? ` Choices of revision ${props.startedFrom}.` : ''}
+            {props.startedFrom !== null && !dirty && JSON.stringify(ran) === JSON.stringify(props.initialForm)
+              ? ` Choices of revision ${props.startedFrom}.`
+              : ''}
           </p>
         </div>
         <ol className="mt-3 grid gap-3 md:grid-cols-2" aria-label="Options, best first" aria-busy={running}>
           {result.options.map((o, k) => (
             <li key={o.topology}>
-              <OptionCard option={o} rank={k + 1} rippleLimitVpp={spec.noise.maxRippleVpp} currency={currency} chosen={o.topology === chosen} onChoose={() => setChosen(o.topology)} />
+              <OptionCard
+                option={o}
+                rank={k + 1}
+                rippleLimitVpp={spec.noise.maxRippleVpp}
+                currency={currency}
+                chosen={o.topology === chosen}
+                onChoose={() => setChosen(o.topology)}
+              />
             </li>
           ))}
         </ol>
@@ -158,38 +182,42 @@ export default function ReviewDesk(props: Props) {
           <h2 id="save-heading" className="text-xl font-bold">
             Save as a revision
           </h2>
-              <p className="mt-1 text-sm text-ink-soft">
-                Saves the chosen option, <strong>{TOPOLOGY_NAMES[option.topology]}</strong>, with the weights and overrides of the last run.
-                {dirty ? ' The form has changes that are not in the figures yet; re-run first to include them.' : ''}
-              </p>
-              <div className="mt-3 flex flex-col gap-1">
-                <label htmlFor="revision-note" className="text-sm font-semibold">
-                  Note for the record
-                </label>
-                <textarea
-                  id="revision-note"
-                  rows={3}
-                  maxLength={4000}
-                  value={note}
-                  onChange={(e) => setNote(e.target.value)}
-                  className="rounded-md border border-ink/25 bg-card px-3 py-2"
-                  placeholder="What you changed and why"
-                />
-              </div>
-              <div className="mt-3 flex flex-wrap items-center gap-3">
-                <button
-                  type="button"
-                  onClick={save}
-                  disabled={saving || running}
-                  className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
-                >
-                  {saving ? 'Saving…' : 'Save revision'}
-                </button>
-                <p role="status" aria-live="polite" className={`text-sm font-medium ${notice?.tone === 'stop' ? 'text-stop-700' : 'text-ok-700'}`}>
-                  {notice && <span aria-hidden="true">{notice.tone === 'stop' ? '✕ ' : '✓ '}</span>}
-                  {notice?.text}
-                </p>
-              </div>
+          <p className="mt-1 text-sm text-ink-soft">
+            Saves the chosen option, <strong>{TOPOLOGY_NAMES[option.topology]}</strong>, with the weights and overrides of the last run.
+            {dirty ? ' The form has changes that are not in the figures yet; re-run first to include them.' : ''}
+          </p>
+          <div className="mt-3 flex flex-col gap-1">
+            <label htmlFor="revision-note" className="text-sm font-semibold">
+              Note for the record
+            </label>
+            <textarea
+              id="revision-note"
+              rows={3}
+              maxLength={4000}
+              value={note}
+              onChange={(e) => setNote(e.target.value)}
+              className="rounded-md border border-ink/25 bg-card px-3 py-2"
+              placeholder="What you changed and why"
+            />
+          </div>
+          <div className="mt-3 flex flex-wrap items-center gap-3">
+            <button
+              type="button"
+              onClick={save}
+              disabled={saving || running}
+              className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+            >
+              {saving ? 'Saving…' : 'Save revision'}
+            </button>
+            <p
+              role="status"
+              aria-live="polite"
+              className={`text-sm font-medium ${notice?.tone === 'stop' ? 'text-stop-700' : 'text-ok-700'}`}
+            >
+              {notice && <span aria-hidden="true">{notice.tone === 'stop' ? '✕ ' : '✓ '}</span>}
+              {notice?.text}
+            </p>
+          </div>
         </section>
       )}
 
@@ -203,7 +231,9 @@ export default function ReviewDesk(props: Props) {
             <PartList option={option} currency={currency} />
           </div>
           <h3 className="mt-6 text-base font-bold">Calculation trace</h3>
-          <p className="text-sm text-ink-soft">Every figure with its equation and inputs. Save a revision to print it as a calculation sheet.</p>
+          <p className="text-sm text-ink-soft">
+            Every figure with its equation and inputs. Save a revision to print it as a calculation sheet.
+          </p>
           <div className="mt-2">
             <CalcTrace option={option} />
           </div>

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
-import { formatDate } from '~/lib/format';
-import { TOPOLOGY_NAMES } from '~/lib/option-words';
+import { formatDate } from '~/lib/platform/format';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 
 export interface RevisionSummary {
   id: string;
@@ -29,7 +29,10 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
       {revisions.length === 0 ? (
         <p className="mt-2 text-sm text-ink-soft">No revision saved yet. Adjust, re-run, choose an option and save it with a note.</p>
       ) : (
-        <ol className="mt-3 flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card" aria-label="Saved revisions, newest first">
+        <ol
+          className="mt-3 flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card"
+          aria-label="Saved revisions, newest first"
+        >
           {revisions.map((r) => (
             <li key={r.id} className="grid gap-1 p-3 text-sm sm:grid-cols-[5rem_1fr_auto]" data-revision={r.number}>
               <span className="font-bold">Rev. {r.number}</span>
@@ -58,10 +61,17 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
         </ol>
       )}
       {revisions.length >= 2 && (
-        <form method="get" action={`/desk/briefs/${briefId}/compare`} className="mt-3 flex flex-wrap items-end gap-2" aria-label="Compare two revisions">
+        <form
+          method="get"
+          action={`/desk/briefs/${briefId}/compare`}
+          className="mt-3 flex flex-wrap items-end gap-2"
+          aria-label="Compare two revisions"
+        >
           <RevisionSelect id="compare-a" name="a" label="Compare" value={left} onChange={setA} revisions={revisions} />
           <RevisionSelect id="compare-b" name="b" label="with" value={right} onChange={setB} revisions={revisions} />
-          <button className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60">Compare side by side</button>
+          <button className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60">
+            Compare side by side
+          </button>
         </form>
       )}
     </section>
@@ -69,7 +79,14 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
 }
 
 /** One side of the compare form: a labelled choice among the brief's revisions. */
-function RevisionSelect(props: { id: string; name: string; label: string; value: string; onChange: (id: string) => void; revisions: readonly { id: string; number: number }[] }) {
+function RevisionSelect(props: {
+  id: string;
+  name: string;
+  label: string;
+  value: string;
+  onChange: (id: string) => void;
+  revisions: readonly { id: string; number: number }[];
+}) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={props.id} className="text-sm font-semibold">

@@ -2,8 +2,8 @@ import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import type { Option } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { percent, TOPOLOGY_NAMES } from '~/lib/option-words';
-import { TYPICAL_NOTE } from '~/lib/review-words';
+import { percent, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 import { AXIS_STYLE } from './chart-styles';
 import { UPlotChart, type ChartBuilder } from './UPlotChart';
 
@@ -38,7 +38,17 @@ export function SpreadChart({ option, target, tolerance }: Props) {
           ],
           legend: { show: false },
           cursor: { drag: { x: false, y: false } },
-          series: [{}, { label: 'Draws', stroke: '#86421b', fill: 'rgba(192, 103, 47, 0.55)', width: 1, points: { show: false }, ...(bars ? { paths: bars } : {}) }],
+          series: [
+            {},
+            {
+              label: 'Draws',
+              stroke: '#86421b',
+              fill: 'rgba(192, 103, 47, 0.55)',
+              width: 1,
+              points: { show: false },
+              ...(bars ? { paths: bars } : {}),
+            },
+          ],
           hooks: {
             // The band is drawn under the bars so the spread reads against the limits.
             drawClear: [
@@ -79,8 +89,8 @@ export function SpreadChart({ option, target, tolerance }: Props) {
       />
       <figcaption className="mt-1 text-xs text-ink-soft">
         {draws.toLocaleString('en-GB')} draws (seed {option.monteCarlo.seed}): mean {formatSi(mean, 'V', 4)}, σ {formatSi(sigma, 'V', 3)},{' '}
-        <strong>{percent(fractionInTolerance, 1)} within the tolerance band</strong> (shaded, dashed edges: {formatSi(lo, 'V', 4)} – {formatSi(hi, 'V', 4)}, ±
-        {Number((tolerance * 100).toPrecision(3))} %). Part tolerances and reference spreads: {TYPICAL_NOTE}.
+        <strong>{percent(fractionInTolerance, 1)} within the tolerance band</strong> (shaded, dashed edges: {formatSi(lo, 'V', 4)} –{' '}
+        {formatSi(hi, 'V', 4)}, ±{Number((tolerance * 100).toPrecision(3))} %). Part tolerances and reference spreads: {TYPICAL_NOTE}.
       </figcaption>
     </figure>
   );

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { sql } from 'drizzle-orm';
-import { db } from '~/lib/server/db';
-import { json } from '~/lib/server/http';
+import { db } from '~/lib/platform/db';
+import { json } from '~/lib/platform/http/responses';
 
 /** For the proxy and the start script: answers once migrations ran and the database answers. */
 export const GET: APIRoute = async () => {

@@ -14,7 +14,10 @@ const goodSpec = {
 describe('briefs API', () => {
   test('a client creates a draft, edits it, submits it; the engineers are told by e-mail', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
-    const created = await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Display backlight rail', spec: { input: { vMin: 10 } }, notes: 'draft', submit: false } });
+    const created = await client.request('/api/v1/briefs', {
+      method: 'POST',
+      json: { title: 'Display backlight rail', spec: { input: { vMin: 10 } }, notes: 'draft', submit: false },
+    });
     expect(created.status).toBe(201);
     const draft = await created.json();
     expect(draft.status).toBe('draft');
@@ -44,7 +47,10 @@ describe('briefs API', () => {
 
   test('submitting an incomplete brief answers 400 with the field paths and leaves the draft a draft', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
-    const created = await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Half a brief', spec: { input: { vMin: 5, vNom: 4, vMax: 6, source: 'bus' } }, submit: true } });
+    const created = await client.request('/api/v1/briefs', {
+      method: 'POST',
+      json: { title: 'Half a brief', spec: { input: { vMin: 5, vNom: 4, vMax: 6, source: 'bus' } }, submit: true },
+    });
     expect(created.status).toBe(400);
     const body = await created.json();
     expect(body.error).toBe('invalid_brief');
@@ -97,9 +103,14 @@ describe('briefs API', () => {
 
   test('staff move a brief through its states with the history recorded; impossible moves are 409', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
-    const created = await (await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Move me', spec: goodSpec, submit: true } })).json();
+    const created = await (
+      await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Move me', spec: goodSpec, submit: true } })
+    ).json();
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const review = await engineer.request(`/api/v1/briefs/${created.id}`, { method: 'PATCH', json: { status: 'in-review', note: 'Taking it' } });
+    const review = await engineer.request(`/api/v1/briefs/${created.id}`, {
+      method: 'PATCH',
+      json: { status: 'in-review', note: 'Taking it' },
+    });
     expect(review.status).toBe(200);
     const jump = await engineer.request(`/api/v1/briefs/${created.id}`, { method: 'PATCH', json: { status: 'delivered' } });
     expect(jump.status).toBe(409);
@@ -113,7 +124,11 @@ describe('briefs API', () => {
 
   test('bodies: malformed JSON, wrong content type and oversized bodies are refused early', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
-    const malformed = await client.request('/api/v1/briefs', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{"title":' });
+    const malformed = await client.request('/api/v1/briefs', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: '{"title":',
+    });
     expect(malformed.status).toBe(400);
     expect((await malformed.json()).error).toBe('malformed_json');
     const text = await client.request('/api/v1/briefs', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: '{}' });
@@ -136,14 +151,30 @@ describe('evaluate API', () => {
     const body = JSON.parse(text);
     expect(body.options).toHaveLength(7);
     for (const option of body.options) {
-      for (const key of ['topology', 'feasible', 'score', 'issues', 'efficiency', 'dissipation', 'heatsink', 'partCount', 'outputRippleVpp', 'vOutRange', 'components', 'trace']) {
+      for (const key of [
+        'topology',
+        'feasible',
+        'score',
+        'issues',
+        'efficiency',
+        'dissipation',
+        'heatsink',
+        'partCount',
+        'outputRippleVpp',
+        'vOutRange',
+        'components',
+        'trace',
+      ]) {
         expect(option, key).toHaveProperty(key);
       }
     }
   });
 
   test('a bad brief is a 400 with field paths, never a 500', async () => {
-    const response = await new Visitor(baseUrl).request('/api/v1/evaluate', { method: 'POST', json: { ...goodSpec, output: { ...goodSpec.output, v: 'five' } } });
+    const response = await new Visitor(baseUrl).request('/api/v1/evaluate', {
+      method: 'POST',
+      json: { ...goodSpec, output: { ...goodSpec.output, v: 'five' } },
+    });
     expect(response.status).toBe(400);
     const body = await response.json();
     expect(body.error).toBe('invalid_brief');

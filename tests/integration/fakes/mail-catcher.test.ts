@@ -90,7 +90,12 @@ describe('the mail catcher', () => {
       secure: false,
       auth: { user: 'app', pass: 'anything' },
     });
-    await transport.sendMail({ from: 'app@railwright.test', to: 'client@demo.railwright.test', subject: 'Password reset', text: 'Reset it.' });
+    await transport.sendMail({
+      from: 'app@railwright.test',
+      to: 'client@demo.railwright.test',
+      subject: 'Password reset',
+      text: 'Reset it.',
+    });
     const list = await api<MessageSummary[]>('/messages');
     expect(list.map((message) => message.subject)).toEqual(['Password reset']);
   });
@@ -98,10 +103,15 @@ describe('the mail catcher', () => {
   it('lists newest first and filters by recipient', async () => {
     await sendQuote('first');
     await sendQuote('second');
-    await nodemailer.createTransport(catcher.smtpUrl).sendMail({ from: 'a@railwright.test', to: 'other@example.test', subject: 'third', text: '3' });
+    await nodemailer
+      .createTransport(catcher.smtpUrl)
+      .sendMail({ from: 'a@railwright.test', to: 'other@example.test', subject: 'third', text: '3' });
     expect((await api<MessageSummary[]>('/messages')).map((message) => message.subject)).toEqual(['third', 'second', 'first']);
     expect((await api<MessageSummary[]>('/messages?to=Other@Example.test')).map((message) => message.subject)).toEqual(['third']);
-    expect((await api<MessageSummary[]>('/messages?to=archive@railwright.test')).map((message) => message.subject)).toEqual(['second', 'first']);
+    expect((await api<MessageSummary[]>('/messages?to=archive@railwright.test')).map((message) => message.subject)).toEqual([
+      'second',
+      'first',
+    ]);
   });
 
   it('keeps messages across a restart, readable from the folder by any process', async () => {

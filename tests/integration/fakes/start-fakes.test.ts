@@ -39,7 +39,9 @@ describe('startFakes', () => {
         line_items: [{ quantity: 1, price_data: { currency: 'gbp', unit_amount: 500, product_data: { name: 'x' } } }],
       });
       expect(session.url?.startsWith(`${fakes.stripeUrl}/checkout/`)).toBe(true);
-      await nodemailer.createTransport(fakes.smtpUrl).sendMail({ from: 'a@railwright.test', to: 'b@railwright.test', subject: 'hello', text: 'hi' });
+      await nodemailer
+        .createTransport(fakes.smtpUrl)
+        .sendMail({ from: 'a@railwright.test', to: 'b@railwright.test', subject: 'hello', text: 'hi' });
       const list = (await (await fetch(`${fakes.mailApiUrl}/messages`)).json()) as { subject: string }[];
       expect(list.map((message) => message.subject)).toContain('hello');
     } finally {
@@ -51,14 +53,17 @@ describe('startFakes', () => {
 
   it('takes ports from the environment when no option is given', async () => {
     const [stripePort, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
-    const fakes = await startFakes({}, {
-      STRIPE_FAKE_PORT: String(stripePort),
-      MAIL_FAKE_SMTP_PORT: String(smtpPort),
-      MAIL_FAKE_HTTP_PORT: String(httpPort),
-      MAIL_FAKE_DIR: dir,
-      STRIPE_FAKE_WEBHOOK_URL: '',
-      STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
-    });
+    const fakes = await startFakes(
+      {},
+      {
+        STRIPE_FAKE_PORT: String(stripePort),
+        MAIL_FAKE_SMTP_PORT: String(smtpPort),
+        MAIL_FAKE_HTTP_PORT: String(httpPort),
+        MAIL_FAKE_DIR: dir,
+        STRIPE_FAKE_WEBHOOK_URL: '',
+        STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
+      },
+    );
     try {
       expect(fakes.webhookUrl).toBeNull();
       expect(fakes.webhookSecret).toBe('whsec_from_env');
@@ -71,10 +76,13 @@ describe('startFakes', () => {
   });
 
   it('lets options win over the environment, and defaults the webhook to the dev server', async () => {
-    const fakes = await startFakes({ stripePort: 0, smtpPort: 0, mailHttpPort: 0, mailDir: dir, webhookSecret: 'whsec_option' }, {
-      STRIPE_FAKE_PORT: '1',
-      STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
-    });
+    const fakes = await startFakes(
+      { stripePort: 0, smtpPort: 0, mailHttpPort: 0, mailDir: dir, webhookSecret: 'whsec_option' },
+      {
+        STRIPE_FAKE_PORT: '1',
+        STRIPE_WEBHOOK_SECRET: 'whsec_from_env',
+      },
+    );
     try {
       expect(fakes.stripeUrl).not.toBe('http://127.0.0.1:1');
       expect(fakes.webhookSecret).toBe('whsec_option');
@@ -85,7 +93,9 @@ describe('startFakes', () => {
   });
 
   it('says which setting is wrong', async () => {
-    await expect(startFakes({}, { STRIPE_FAKE_PORT: 'twelve' })).rejects.toThrow("STRIPE_FAKE_PORT must be a port number from 0 to 65535, got 'twelve'.");
+    await expect(startFakes({}, { STRIPE_FAKE_PORT: 'twelve' })).rejects.toThrow(
+      "STRIPE_FAKE_PORT must be a port number from 0 to 65535, got 'twelve'.",
+    );
   });
 
   it('releases the payment stand-in when the mail catcher cannot start', async () => {
@@ -93,7 +103,9 @@ describe('startFakes', () => {
     const blocker = await startFakes({ stripePort: 0, smtpPort: 0, mailHttpPort: 0, mailDir: dir, webhookUrl: null }, {});
     try {
       const smtpPort = Number(new URL(blocker.smtpUrl).port);
-      await expect(startFakes({ stripePort, smtpPort, mailHttpPort: 0, mailDir: dir, webhookUrl: null }, {})).rejects.toThrow('already in use');
+      await expect(startFakes({ stripePort, smtpPort, mailHttpPort: 0, mailDir: dir, webhookUrl: null }, {})).rejects.toThrow(
+        'already in use',
+      );
       expect(await refused(`http://127.0.0.1:${stripePort}/`)).toBe(true);
     } finally {
       await blocker.close();

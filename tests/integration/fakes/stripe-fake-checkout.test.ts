@@ -40,7 +40,9 @@ function received(type: string, objectId: string): { body: string; signature: st
 async function newSession(quoteId: string, amount = 123_450): Promise<Stripe.Checkout.Session> {
   return stripe.checkout.sessions.create({
     mode: 'payment',
-    line_items: [{ quantity: 1, price_data: { currency: 'gbp', unit_amount: amount, product_data: { name: `Deposit for quote ${quoteId}` } } }],
+    line_items: [
+      { quantity: 1, price_data: { currency: 'gbp', unit_amount: amount, product_data: { name: `Deposit for quote ${quoteId}` } } },
+    ],
     metadata: { quoteId },
     payment_intent_data: { metadata: { quoteId } },
     customer_email: 'client@demo.railwright.test',
@@ -110,8 +112,9 @@ describe('the hosted checkout page', () => {
     expect(intent.status).toBe('requires_payment_method');
     expect(intent.last_payment_error?.code).toBe('card_declined');
     expect(intent.metadata).toEqual({ quoteId: 'declined' });
-    await eventually('the payment_failed event to be delivered', async () =>
-      (await deliveryOf('payment_intent.payment_failed', intent.id))?.delivered || undefined,
+    await eventually(
+      'the payment_failed event to be delivered',
+      async () => (await deliveryOf('payment_intent.payment_failed', intent.id))?.delivered || undefined,
     );
     expect(await deliveryOf('checkout.session.completed', session.id)).toBeUndefined();
   });
@@ -154,7 +157,13 @@ describe('a successful payment', () => {
     expect(after).toMatchObject({ status: 'complete', payment_status: 'paid', url: null });
     expect(after.payment_intent).toMatch(/^pi_\w+$/);
     const intent = await stripe.paymentIntents.retrieve(after.payment_intent as string);
-    expect(intent).toMatchObject({ object: 'payment_intent', status: 'succeeded', amount: 123_450, amount_received: 123_450, currency: 'gbp' });
+    expect(intent).toMatchObject({
+      object: 'payment_intent',
+      status: 'succeeded',
+      amount: 123_450,
+      amount_received: 123_450,
+      currency: 'gbp',
+    });
   });
 
   it('posts a checkout.session.completed event that the SDK verifies with the secret', async () => {
@@ -167,14 +176,22 @@ describe('a successful payment', () => {
     expect(event).toMatchObject({ object: 'event', type: 'checkout.session.completed', livemode: false, api_version: expect.any(String) });
     expect(event.id).toMatch(/^evt_\w+$/);
     const completed = event.data.object as Stripe.Checkout.Session;
-    expect(completed).toMatchObject({ id: session.id, status: 'complete', payment_status: 'paid', metadata: { quoteId: 'paid' }, amount_total: 123_450 });
+    expect(completed).toMatchObject({
+      id: session.id,
+      status: 'complete',
+      payment_status: 'paid',
+      metadata: { quoteId: 'paid' },
+      amount_total: 123_450,
+    });
   });
 
   it('fails verification with another secret or an altered body', async () => {
     const [delivery] = received('checkout.session.completed', session.id);
     const body = delivery?.body ?? '';
     const signature = delivery?.signature ?? '';
-    expect(() => stripe.webhooks.constructEvent(body, signature, 'whsec_someone_else')).toThrow(Stripe.errors.StripeSignatureVerificationError);
+    expect(() => stripe.webhooks.constructEvent(body, signature, 'whsec_someone_else')).toThrow(
+      Stripe.errors.StripeSignatureVerificationError,
+    );
     expect(() => stripe.webhooks.constructEvent(body.replace('"paid"', '"unpaid"'), signature, SECRET)).toThrow(
       Stripe.errors.StripeSignatureVerificationError,
     );
@@ -233,7 +250,9 @@ describe('webhook retries', () => {
         return found?.delivered ? found : undefined;
       });
       expect(delivery.attempts.map((attempt) => attempt.status)).toEqual([500, 200]);
-      const copies = receiver.received.filter((entry) => entry.body.includes(session.id) && entry.body.includes('checkout.session.completed'));
+      const copies = receiver.received.filter(
+        (entry) => entry.body.includes(session.id) && entry.body.includes('checkout.session.completed'),
+      );
       expect(copies).toHaveLength(2);
       const [first, second] = copies;
       expect((second?.receivedAt ?? 0) - (first?.receivedAt ?? 0)).toBeGreaterThanOrEqual(450);

@@ -5,8 +5,8 @@
 import { count, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { describe, expect, inject, test } from 'vitest';
-import { connect } from '../../../src/lib/server/db/connect';
-import { payment, webhookEvent } from '../../../src/lib/server/db/schema';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { payment, webhookEvent } from '../../../src/lib/platform/db/schema';
 import { DECLINE_CARD, SUCCESS_CARD } from '../../../stripe-fake/index';
 import { DEMO, Visitor } from '../../support/client';
 import { TEST_STRIPE_KEY, TEST_WEBHOOK_SECRET } from '../../support/stack';
@@ -53,7 +53,11 @@ const quoteStatus = async (visitor: Visitor, id: string) => (await (await visito
 function signed(event: object, timestamp?: number) {
   const payload = JSON.stringify(event);
   const header = stripe.webhooks.generateTestHeaderString({ payload, secret: TEST_WEBHOOK_SECRET, ...(timestamp ? { timestamp } : {}) });
-  return fetch(`${baseUrl}/api/v1/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': header }, body: payload });
+  return fetch(`${baseUrl}/api/v1/payments/webhook`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'stripe-signature': header },
+    body: payload,
+  });
 }
 
 describe('deposit checkout', () => {
@@ -96,13 +100,19 @@ describe('deposit checkout', () => {
     const paid = await pay(url, SUCCESS_CARD);
     expect(paid.status).toBe(303);
     expect(paid.headers.get('location')).toContain(`/quotes/${rail.quote.id}?payment=returned`);
-    await until(() => quoteStatus(rail.client, rail.quote.id), (s) => s === 'deposit-paid', 'the quote to be paid');
+    await until(
+      () => quoteStatus(rail.client, rail.quote.id),
+      (s) => s === 'deposit-paid',
+      'the quote to be paid',
+    );
     const briefNow = await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json();
     expect(briefNow.status).toBe('deposit-paid');
     expect(briefNow.history.at(-1)).toMatchObject({ from: 'accepted', to: 'deposit-paid' });
 
     const mail = await until(
-      async () => (await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()) as { subject: string }[] | { messages: { subject: string }[] },
+      async () =>
+        (await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()) as
+          { subject: string }[] | { messages: { subject: string }[] },
       (list) => (Array.isArray(list) ? list : list.messages).some((m) => m.subject.startsWith('Receipt:')),
       'the receipt',
     );
@@ -120,7 +130,15 @@ describe('webhook', () => {
       body: JSON.stringify({ id: 'evt_forged', type: 'checkout.session.completed', data: { object: {} } }),
     });
     expect(forged.status).toBe(400);
-    const stale = await signed({ id: 'evt_stale', object: 'event', type: 'checkout.session.completed', data: { object: { id: 'cs_x', object: 'checkout.session' } } }, Math.floor(Date.now() / 1000) - 3600);
+    const stale = await signed(
+      {
+        id: 'evt_stale',
+        object: 'event',
+        type: 'checkout.session.completed',
+        data: { object: { id: 'cs_x', object: 'checkout.session' } },
+      },
+      Math.floor(Date.now() / 1000) - 3600,
+    );
     expect(stale.status).toBe(400);
     expect((await fetch(`${baseUrl}/api/v1/payments/webhook`, { method: 'POST', body: '{}' })).status).toBe(400);
     const { db, client } = connect(databaseUrl);
@@ -134,10 +152,16 @@ describe('webhook', () => {
     const { url } = await (await rail.client.request(`/api/v1/quotes/${rail.quote.id}/checkout`, { method: 'POST' })).json();
     const sessionId = new URL(url).pathname.split('/').pop() ?? '';
     await pay(url, SUCCESS_CARD);
-    await until(() => quoteStatus(rail.client, rail.quote.id), (s) => s === 'deposit-paid', 'the quote to be paid');
+    await until(
+      () => quoteStatus(rail.client, rail.quote.id),
+      (s) => s === 'deposit-paid',
+      'the quote to be paid',
+    );
 
     type Delivery = { id: string; event: { data: { object: { id: string } } } };
-    const { data: deliveries } = (await (await fetch(`${stripeUrl}/__fake/events?type=checkout.session.completed`)).json()) as { data: Delivery[] };
+    const { data: deliveries } = (await (await fetch(`${stripeUrl}/__fake/events?type=checkout.session.completed`)).json()) as {
+      data: Delivery[];
+    };
     const completed = deliveries.find((d) => d.event.data.object.id === sessionId);
     expect(completed).toBeDefined();
     for (let i = 0; i < 2; i++) {
@@ -151,23 +175,42 @@ describe('webhook', () => {
       const payments = await db.select().from(payment).where(eq(payment.checkoutSessionId, sessionId));
       expect(payments).toHaveLength(1);
       expect(payments[0]?.status).toBe('paid');
-      const [recorded] = await db.select({ n: count() }).from(webhookEvent).where(eq(webhookEvent.id, completed?.id ?? ''));
+      const [recorded] = await db
+        .select({ n: count() })
+        .from(webhookEvent)
+        .where(eq(webhookEvent.id, completed?.id ?? ''));
       expect(recorded?.n).toBe(1);
 
-      const late = await signed({ id: `evt_late_${sessionId}`, object: 'event', type: 'checkout.session.expired', data: { object: { id: sessionId, object: 'checkout.session', payment_status: 'unpaid', status: 'expired' } } });
+      const late = await signed({
+        id: `evt_late_${sessionId}`,
+        object: 'event',
+        type: 'checkout.session.expired',
+        data: { object: { id: sessionId, object: 'checkout.session', payment_status: 'unpaid', status: 'expired' } },
+      });
       expect(late.status).toBe(200);
       expect((await late.json()).outcome).toBe('ignored');
       expect(await quoteStatus(rail.client, rail.quote.id)).toBe('deposit-paid');
 
-      const stranger = await signed({ id: `evt_unknown_${Date.now()}`, object: 'event', type: 'checkout.session.completed', data: { object: { id: 'cs_test_nobody', object: 'checkout.session', payment_status: 'paid' } } });
+      const stranger = await signed({
+        id: `evt_unknown_${Date.now()}`,
+        object: 'event',
+        type: 'checkout.session.completed',
+        data: { object: { id: 'cs_test_nobody', object: 'checkout.session', payment_status: 'paid' } },
+      });
       expect((await stranger.json()).outcome).toBe('unknown-session');
-      const other = await signed({ id: `evt_other_${Date.now()}`, object: 'event', type: 'customer.created', data: { object: { id: 'cus_1' } } });
+      const other = await signed({
+        id: `evt_other_${Date.now()}`,
+        object: 'event',
+        type: 'customer.created',
+        data: { object: { id: 'cus_1' } },
+      });
       expect((await other.json()).outcome).toBe('ignored');
     } finally {
       client.close();
     }
 
-    const receipts = (await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()) as { subject: string }[] | { messages: { subject: string }[] };
+    const receipts = (await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()) as
+      { subject: string }[] | { messages: { subject: string }[] };
     expect((Array.isArray(receipts) ? receipts : receipts.messages).filter((m) => m.subject.startsWith('Receipt:'))).toHaveLength(1);
   });
 });

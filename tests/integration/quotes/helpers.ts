@@ -27,12 +27,19 @@ export const CLIENT_PASSWORD = 'quote-test-password';
 
 let counter = 0;
 
-export async function railUnderReview(baseUrl: string, spec: object = RAIL_SPEC, title = 'Valve manifold, 12 V at 2 A from the 24 V bus'): Promise<QuotedRail> {
+export async function railUnderReview(
+  baseUrl: string,
+  spec: object = RAIL_SPEC,
+  title = 'Valve manifold, 12 V at 2 A from the 24 V bus',
+): Promise<QuotedRail> {
   const tag = `${Date.now().toString(36)}${(counter++).toString(36)}`;
   const email = `buyer-${tag}@quotes.test`;
   const name = `Noor Lindqvist ${tag}`;
   const client = new Visitor(baseUrl);
-  const signUp = await client.request('/api/v1/account', { method: 'POST', json: { name, company: 'Lindqvist Telemetry', email, password: CLIENT_PASSWORD } });
+  const signUp = await client.request('/api/v1/account', {
+    method: 'POST',
+    json: { name, company: 'Lindqvist Telemetry', email, password: CLIENT_PASSWORD },
+  });
   if (signUp.status !== 201) throw new Error(`Sign-up answered ${signUp.status}: ${await signUp.text()}`);
   const created = await client.request('/api/v1/briefs', { method: 'POST', json: { title, spec, notes: '', submit: true } });
   if (created.status !== 201) throw new Error(`Brief creation answered ${created.status}: ${await created.text()}`);

@@ -1,6 +1,6 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
-import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
+import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
 import { execSql, pdfText, railUnderReview } from './helpers';
 
 const baseUrl = inject('baseUrl');
@@ -86,7 +86,9 @@ describe('editing, sending and accepting', () => {
     expect((await rail.client.request(`/api/v1/quotes/${quote.id}`, { method: 'PATCH', json: { taxRateBp: 0 } })).status).toBe(403);
 
     const units = await (await rail.engineer.request(`/api/v1/quotes/${quote.id}`, { method: 'PATCH', json: { quantity: 3 } })).json();
-    expect(units.lines.filter((l: Line) => l.kind === 'parts' || l.kind === 'prototype').map((l: Line) => l.quantityMilli)).toEqual([3_000, 3_000]);
+    expect(units.lines.filter((l: Line) => l.kind === 'parts' || l.kind === 'prototype').map((l: Line) => l.quantityMilli)).toEqual([
+      3_000, 3_000,
+    ]);
     expect(units.lines[0].quantityMilli).toBe(12_000);
 
     const past = await rail.engineer.request(`/api/v1/quotes/${quote.id}`, { method: 'PATCH', json: { validUntil: '2001-01-01' } });
@@ -124,7 +126,9 @@ describe('editing, sending and accepting', () => {
     expect(messages).toHaveLength(1);
     const [message] = messages;
     expect(message.subject).toBe(`Quote ${quote.number}: Valve manifold, 12 V at 2 A from the 24 V bus`);
-    expect(message.attachments).toEqual([expect.objectContaining({ index: 0, filename: `Railwright-quote-${quote.number}.pdf`, contentType: 'application/pdf' })]);
+    expect(message.attachments).toEqual([
+      expect.objectContaining({ index: 0, filename: `Railwright-quote-${quote.number}.pdf`, contentType: 'application/pdf' }),
+    ]);
     const full = await (await fetch(`${mailApiUrl}/messages/${message.id}`)).json();
     expect(full.text).toContain(`${baseUrl}/quotes/${quote.id}`);
     expect(full.text).toContain('€272.24');
@@ -133,7 +137,18 @@ describe('editing, sending and accepting', () => {
     const attachment = new Uint8Array(await (await fetch(`${mailApiUrl}/messages/${message.id}/attachments/0`)).arrayBuffer());
     expect(Buffer.from(attachment.subarray(0, 5)).toString()).toBe('%PDF-');
     const text = pdfText(attachment).replace(/\s+/g, ' ');
-    for (const expected of [quote.number, 'Returning-client discount', '€247.49', '€24.75', '€272.24', '€68.06', 'Hot surfaces', 'typical values — confirm against the chosen part’s data', 'local electrical codes and licensed practice', `${baseUrl}/quotes/${quote.id}`]) {
+    for (const expected of [
+      quote.number,
+      'Returning-client discount',
+      '€247.49',
+      '€24.75',
+      '€272.24',
+      '€68.06',
+      'Hot surfaces',
+      'typical values — confirm against the chosen part’s data',
+      'local electrical codes and licensed practice',
+      `${baseUrl}/quotes/${quote.id}`,
+    ]) {
       expect(text).toContain(expected);
     }
 
@@ -211,7 +226,14 @@ describe('editing, sending and accepting', () => {
     const rail = await railUnderReview(baseUrl);
     const first = await draft(rail.engineer, rail.revisionId);
     expect((await rail.engineer.request(`/api/v1/quotes/${first.id}/send`, { method: 'POST' })).status).toBe(200);
-    expect((await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`, { method: 'PATCH', json: { status: 'in-review', note: 'New quantity' } })).status).toBe(200);
+    expect(
+      (
+        await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`, {
+          method: 'PATCH',
+          json: { status: 'in-review', note: 'New quantity' },
+        })
+      ).status,
+    ).toBe(200);
     const second = await draft(rail.engineer, rail.revisionId, 5);
     expect((await rail.engineer.request(`/api/v1/quotes/${second.id}/send`, { method: 'POST' })).status).toBe(200);
     await execSql(databaseUrl, 'UPDATE quote SET valid_until = ? WHERE id = ?', [Date.now() - 60_000, first.id]);

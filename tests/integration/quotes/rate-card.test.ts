@@ -1,6 +1,6 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
-import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
+import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
 import { railUnderReview } from './helpers';
 
 const baseUrl = inject('baseUrl');
@@ -32,7 +32,10 @@ describe('the rate card', () => {
     const rail = await railUnderReview(baseUrl);
     const before = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
     try {
-      const saved = await admin.form('/admin/rate-card', form({ hourlyRate: '120.50', 'hours.buck': '10.25', 'complexity.perRevision': '2', taxRate: '7.5' }));
+      const saved = await admin.form(
+        '/admin/rate-card',
+        form({ hourlyRate: '120.50', 'hours.buck': '10.25', 'complexity.perRevision': '2', taxRate: '7.5' }),
+      );
       expect(saved.status).toBe(200);
       expect(await saved.text()).toContain('Rate card saved');
 
@@ -49,7 +52,10 @@ describe('the rate card', () => {
 
   test('figures that do not read are refused beside their field, and nothing is saved', async () => {
     const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
-    const refused = await admin.form('/admin/rate-card', form({ hourlyRate: 'a lot', deposit: '120', 'hours.linear': '-1', currency: 'EURO' }));
+    const refused = await admin.form(
+      '/admin/rate-card',
+      form({ hourlyRate: 'a lot', deposit: '120', 'hours.linear': '-1', currency: 'EURO' }),
+    );
     expect(refused.status).toBe(400);
     const html = await refused.text();
     expect(html).toContain('Enter an amount with at most 2 decimals.');

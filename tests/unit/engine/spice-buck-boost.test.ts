@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, test } from 'vitest';
 import { defaultCatalog, toSpiceNetlist } from '~/lib/engine/index.ts';
 import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
 import { buckBoostPoint } from '~/lib/engine/topologies/buck-boost.ts';
-import { DEMO_BRIEFS } from '~/lib/server/seed/scenario.ts';
+import { DEMO_BRIEFS } from '~/lib/demo/scenario.ts';
 import { average, ripplePerPeriod, switcherDesign, transient } from './spice-waves';
 
 let sim: Simulation;

@@ -8,7 +8,7 @@ import { defaultCatalog, toSpiceNetlist } from '~/lib/engine/index.ts';
 import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
 import { regulatorLines } from '~/lib/engine/spice/regulator.ts';
 import { buckPoint } from '~/lib/engine/topologies/buck.ts';
-import { DEMO_BRIEFS } from '~/lib/server/seed/scenario.ts';
+import { DEMO_BRIEFS } from '~/lib/demo/scenario.ts';
 import { average, ripplePerPeriod, switcherDesign, transient } from './spice-waves';
 
 let sim: Simulation;

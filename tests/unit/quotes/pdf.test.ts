@@ -5,12 +5,12 @@ import path from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { railSpecSchema, evaluate } from '../../../src/lib/engine';
 import { defaultCatalog } from '../../../src/lib/engine/catalog';
-import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/pricing';
-import { DEMO_RATE_CARD } from '../../../src/lib/server/seed/scenario';
-import { renderQuotePdf } from '../../../src/lib/server/pdf/render';
-import { runs } from '../../../src/lib/server/pdf/fonts';
-import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/server/quotes-core';
-import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/server/quotes-view';
+import { designFacts, draftLines, lineTotal, quoteTotals, rateCardSchema } from '../../../src/lib/quotes/pricing';
+import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
+import { renderQuotePdf } from '../../../src/lib/quotes/render.server';
+import { runs } from '../../../src/lib/platform/pdf/fonts';
+import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/quotes/core.server';
+import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/quotes/view.server';
 
 const card = rateCardSchema.parse(DEMO_RATE_CARD);
 
@@ -27,7 +27,13 @@ function highVoltageView(): QuoteView {
   if (!option) throw new Error('The engine gave no option with a hazardous-voltage caution');
   const facts = designFacts({ topology: option.topology, number: 1, input, result });
   if (!facts) throw new Error('No design facts');
-  const lines = draftLines(card, facts, 2).map((l, position) => ({ ...l, id: `l${position}`, quoteId: 'q', position, totalMinor: lineTotal(l) }));
+  const lines = draftLines(card, facts, 2).map((l, position) => ({
+    ...l,
+    id: `l${position}`,
+    quoteId: 'q',
+    position,
+    totalMinor: lineTotal(l),
+  }));
   const now = new Date('2026-05-04T09:00:00Z');
   const quote: QuoteRow = {
     id: 'q',
@@ -90,7 +96,8 @@ describe('the quote PDF', () => {
     }
     expect(text).toMatch(/\d kΩ/);
     const euros = (minor: number) => `€${(minor / 100).toLocaleString('en-GB', { minimumFractionDigits: 2 })}`;
-    for (const figure of [view.quote.subtotalMinor, view.quote.taxMinor, view.quote.totalMinor, view.quote.depositMinor]) expect(text).toContain(euros(figure));
+    for (const figure of [view.quote.subtotalMinor, view.quote.taxMinor, view.quote.totalMinor, view.quote.depositMinor])
+      expect(text).toContain(euros(figure));
 
     const fonts = poppler('pdffonts', pdf).split('\n').slice(2).filter(Boolean);
     expect(fonts.length).toBeGreaterThanOrEqual(3); // Latin regular and bold, plus the Greek and Latin Extended subsets used
@@ -101,7 +108,14 @@ describe('the quote PDF', () => {
   });
 
   test('characters go to the font subset that draws them', () => {
-    expect(runs('R1 10 kΩ, Łódź')).toEqual(['R1 10 k', { text: 'Ω', font: 'ManropeGreek' }, ', ', { text: 'Ł', font: 'ManropeLatinExt' }, 'ód', { text: 'ź', font: 'ManropeLatinExt' }]);
+    expect(runs('R1 10 kΩ, Łódź')).toEqual([
+      'R1 10 k',
+      { text: 'Ω', font: 'ManropeGreek' },
+      ', ',
+      { text: 'Ł', font: 'ManropeLatinExt' },
+      'ód',
+      { text: 'ź', font: 'ManropeLatinExt' },
+    ]);
     expect(runs('plain €1,234.50 — ±5 %')).toEqual(['plain €1,234.50 — ±5 %']);
   });
 });

@@ -13,8 +13,8 @@ import {
   withQuantity,
   type DesignFacts,
   type RateCard,
-} from '../../../src/lib/pricing';
-import { formatQuoteNumber, validUntilFrom } from '../../../src/lib/server/quotes-core';
+} from '../../../src/lib/quotes/pricing';
+import { formatQuoteNumber, validUntilFrom } from '../../../src/lib/quotes/core.server';
 
 const card: RateCard = {
   currency: 'EUR',
@@ -29,7 +29,15 @@ const card: RateCard = {
   validityDays: 30,
 };
 
-const hardBuck: DesignFacts = { topology: 'buck', highVoltage: true, tightNoise: true, heatsink: true, revisionNumber: 2, partCount: 9, partsCostCents: 1_234 };
+const hardBuck: DesignFacts = {
+  topology: 'buck',
+  highVoltage: true,
+  tightNoise: true,
+  heatsink: true,
+  revisionNumber: 2,
+  partCount: 9,
+  partsCostCents: 1_234,
+};
 
 describe('drafted lines', () => {
   test('every effort driver adds its line; parts and build scale with units', () => {
@@ -46,7 +54,12 @@ describe('drafted lines', () => {
       ['test-report', 1_000, 36_000, 36_000],
     ]);
     // Subtotal 406 936; tax 20 % = 81 387.2 → 81 387; total 488 323; deposit 30 % = 146 496.9 → 146 497.
-    expect(quoteTotals(lines, card.taxRateBp, card.depositBp)).toEqual({ subtotalMinor: 406_936, taxMinor: 81_387, totalMinor: 488_323, depositMinor: 146_497 });
+    expect(quoteTotals(lines, card.taxRateBp, card.depositBp)).toEqual({
+      subtotalMinor: 406_936,
+      taxMinor: 81_387,
+      totalMinor: 488_323,
+      depositMinor: 146_497,
+    });
   });
 
   test('a plain design has no driver lines, and a zero-hour driver adds nothing', () => {
@@ -54,7 +67,12 @@ describe('drafted lines', () => {
     const lines = draftLines({ ...card, complexityHours: { ...card.complexityHours, perRevision: 0 } }, plain, 1);
     expect(lines.map((l) => l.kind)).toEqual(['design', 'parts', 'prototype', 'test-report']);
     // 120 000 + 1 234 + 9 500 + 36 000 = 166 734; tax 33 346.8 → 33 347; total 200 081; deposit 60 024.3 → 60 024.
-    expect(quoteTotals(lines, 2_000, 3_000)).toEqual({ subtotalMinor: 166_734, taxMinor: 33_347, totalMinor: 200_081, depositMinor: 60_024 });
+    expect(quoteTotals(lines, 2_000, 3_000)).toEqual({
+      subtotalMinor: 166_734,
+      taxMinor: 33_347,
+      totalMinor: 200_081,
+      depositMinor: 60_024,
+    });
   });
 
   test('parts cost converts from the engine’s hundredths into a currency without minor units', () => {
@@ -81,22 +99,45 @@ describe('rounding in minor units', () => {
   test('tax and deposit are each rounded once, from the rounded figures before them', () => {
     // 3 lines of 0.333 h at €100: 3 × 3 330 = 9 990; tax 15 % = 1 498.5 → 1 499; total 11 489; deposit 12.5 % = 1 436.125 → 1 436.
     const third = { quantityMilli: 333, unitPriceMinor: 10_000 };
-    expect(quoteTotals([third, third, third], 1_500, 1_250)).toEqual({ subtotalMinor: 9_990, taxMinor: 1_499, totalMinor: 11_489, depositMinor: 1_436 });
+    expect(quoteTotals([third, third, third], 1_500, 1_250)).toEqual({
+      subtotalMinor: 9_990,
+      taxMinor: 1_499,
+      totalMinor: 11_489,
+      depositMinor: 1_436,
+    });
     // Tax on 5 minor units at 10 % is half a unit: it rounds up.
     expect(quoteTotals([{ quantityMilli: 1_000, unitPriceMinor: 5 }], 1_000, 0).taxMinor).toBe(1);
   });
 });
 
 describe('design facts from a revision', () => {
-  const option = (over: Partial<Option>) => ({ topology: 'linear', heatsink: { required: false, maxThetaSaCW: null }, partCount: 5, costCents: 300, ...over }) as Option;
+  const option = (over: Partial<Option>) =>
+    ({ topology: 'linear', heatsink: { required: false, maxThetaSaCW: null }, partCount: 5, costCents: 300, ...over }) as Option;
   const spec = (vMax: number, vOut: number, ripple: number) =>
-    ({ input: { vMin: vMax * 0.8, vNom: vMax * 0.9, vMax, rippleVpp: 0, source: 'bus' }, output: { v: vOut, tolerance: 0.02, iMin: 0, iTyp: 0.1, iMax: 0.2 }, noise: { class: 'sensor', maxRippleVpp: ripple } }) as RailSpec;
+    ({
+      input: { vMin: vMax * 0.8, vNom: vMax * 0.9, vMax, rippleVpp: 0, source: 'bus' },
+      output: { v: vOut, tolerance: 0.02, iMin: 0, iTyp: 0.1, iMax: 0.2 },
+      noise: { class: 'sensor', maxRippleVpp: ripple },
+    }) as RailSpec;
   const result = (o: Option): Evaluation => ({ recommended: o.topology, options: [o] });
 
   test('above 60 V on either side is high voltage; 1 mV ripple or less is a tight noise limit', () => {
-    expect(designFacts({ topology: 'linear', number: 1, input: spec(60, 12, 0.0011), result: result(option({})) })).toMatchObject({ highVoltage: false, tightNoise: false });
-    expect(designFacts({ topology: 'linear', number: 1, input: spec(61, 12, 0.001), result: result(option({})) })).toMatchObject({ highVoltage: true, tightNoise: true });
-    expect(designFacts({ topology: 'linear', number: 3, input: spec(24, 150, 0.01), result: result(option({ heatsink: { required: true, maxThetaSaCW: 4 } })) })).toMatchObject({ highVoltage: true, heatsink: true, revisionNumber: 3, partsCostCents: 300 });
+    expect(designFacts({ topology: 'linear', number: 1, input: spec(60, 12, 0.0011), result: result(option({})) })).toMatchObject({
+      highVoltage: false,
+      tightNoise: false,
+    });
+    expect(designFacts({ topology: 'linear', number: 1, input: spec(61, 12, 0.001), result: result(option({})) })).toMatchObject({
+      highVoltage: true,
+      tightNoise: true,
+    });
+    expect(
+      designFacts({
+        topology: 'linear',
+        number: 3,
+        input: spec(24, 150, 0.01),
+        result: result(option({ heatsink: { required: true, maxThetaSaCW: 4 } })),
+      }),
+    ).toMatchObject({ highVoltage: true, heatsink: true, revisionNumber: 3, partsCostCents: 300 });
   });
 
   test('a revision whose chosen topology is missing from its result gives no facts', () => {

@@ -1,8 +1,9 @@
 import type { APIRoute } from 'astro';
+import { currentCatalog } from '~/lib/catalog/catalog.server';
 import { railSpecIssues, railSpecSchema } from '~/lib/engine';
-import { EngineBusyError, evaluateToJson } from '~/lib/server/engine-pool';
-import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/server/http';
-import { limitEvaluate } from '~/lib/server/evaluate-limit';
+import { EngineBusyError, evaluateToJson } from '~/lib/platform/engine-pool';
+import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/platform/http/responses';
+import { limitEvaluate } from '~/lib/platform/rate-limit/evaluate-limit';
 
 /** Ranks the options for a brief; anyone may call it (rate-limited), nothing is stored. */
 export const POST: APIRoute = async (context) => {
@@ -13,7 +14,7 @@ export const POST: APIRoute = async (context) => {
   const parsed = railSpecSchema.safeParse(body.value);
   if (!parsed.success) return invalid('invalid_brief', railSpecIssues(parsed.error));
   try {
-    return jsonText(await evaluateToJson(parsed.data));
+    return jsonText(await evaluateToJson(parsed.data, await currentCatalog()));
   } catch (error) {
     if (!(error instanceof EngineBusyError)) throw error;
     return apiError(503, 'busy', { message: 'The engine is at capacity. Try again in a second.' }, { 'retry-after': '1' });

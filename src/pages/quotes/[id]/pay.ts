@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { startDepositCheckout } from '~/lib/server/payments/checkout';
-import { PaymentsNotConfigured } from '~/lib/server/payments/provider';
+import { startDepositCheckout } from '~/lib/payments/checkout.server';
+import { PaymentsNotConfigured } from '~/lib/payments/provider.server';
 
 /**
  * The quote page's "pay deposit" form: opens the hosted checkout and sends the

@@ -1,13 +1,13 @@
 import type { APIRoute } from 'astro';
-import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/brief-requests';
-import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/server/brief-actions';
-import { briefDetailJson, briefJson } from '~/lib/server/brief-json';
-import { briefDetail, findBriefFor, type BriefRow } from '~/lib/server/briefs';
-import { ANY_ROLE, guardApi, isStaff } from '~/lib/server/guard';
-import { apiError, invalid, json, notFound, readJson } from '~/lib/server/http';
-import { zodIssues } from '~/lib/server/validation';
-import { quotesOfBrief } from '~/lib/server/quotes';
-import { listRevisions } from '~/lib/server/revisions';
+import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/briefs/requests';
+import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/briefs/actions.server';
+import { briefDetailJson, briefJson } from '~/lib/briefs/json';
+import { briefDetail, findBriefFor, type BriefRow } from '~/lib/briefs/briefs.server';
+import { ANY_ROLE, guardApi, isStaff } from '~/lib/platform/http/guard';
+import { apiError, invalid, json, notFound, readJson } from '~/lib/platform/http/responses';
+import { zodIssues } from '~/lib/platform/http/validation';
+import { quotesOfBrief } from '~/lib/quotes/quotes.server';
+import { listRevisions } from '~/lib/review/revisions.server';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
@@ -15,14 +15,37 @@ export const GET: APIRoute = async (context) => {
   const row = await findBriefFor(gate.user, context.params.id ?? '');
   if (!row) return notFound();
   const staff = isStaff(gate.user);
-  const [detail, quotes, revisions] = await Promise.all([briefDetail(row), quotesOfBrief(row.id), staff ? listRevisions(row) : Promise.resolve([])]);
+  const [detail, quotes, revisions] = await Promise.all([
+    briefDetail(row),
+    quotesOfBrief(row.id),
+    staff ? listRevisions(row) : Promise.resolve([]),
+  ]);
   return json({
     ...briefDetailJson(detail),
     // Clients see a quote once it is sent; drafts stay with the consultancy.
     quotes: quotes
       .filter((q) => staff || q.status !== 'draft')
-      .map((q) => ({ id: q.id, number: q.number, status: q.status, currency: q.currency, totalMinor: q.totalMinor, depositMinor: q.depositMinor, sentAt: q.sentAt?.toISOString() ?? null })),
-    ...(staff ? { revisions: revisions.map((r) => ({ id: r.id, number: r.number, topology: r.topology, note: r.note, author: r.author, createdAt: r.createdAt.toISOString() })) } : {}),
+      .map((q) => ({
+        id: q.id,
+        number: q.number,
+        status: q.status,
+        currency: q.currency,
+        totalMinor: q.totalMinor,
+        depositMinor: q.depositMinor,
+        sentAt: q.sentAt?.toISOString() ?? null,
+      })),
+    ...(staff
+      ? {
+          revisions: revisions.map((r) => ({
+            id: r.id,
+            number: r.number,
+            topology: r.topology,
+            note: r.note,
+            author: r.author,
+            createdAt: r.createdAt.toISOString(),
+          })),
+        }
+      : {}),
   });
 };
 

@@ -1,11 +1,11 @@
 import type { APIRoute } from 'astro';
-import { briefListQuerySchema, createBriefSchema } from '~/lib/brief-requests';
-import { createBrief } from '~/lib/server/brief-actions';
-import { briefJson } from '~/lib/server/brief-json';
-import { briefListJson, listBriefs } from '~/lib/server/briefs';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { apiError, invalid, json } from '~/lib/server/http';
-import { parseBody, zodIssues } from '~/lib/server/validation';
+import { briefListQuerySchema, createBriefSchema } from '~/lib/briefs/requests';
+import { createBrief } from '~/lib/briefs/actions.server';
+import { briefJson } from '~/lib/briefs/json';
+import { briefListJson, listBriefs } from '~/lib/briefs/briefs.server';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { apiError, invalid, json } from '~/lib/platform/http/responses';
+import { parseBody, zodIssues } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const query = briefListQuerySchema.safeParse(Object.fromEntries(context.url.searchParams));
@@ -23,6 +23,9 @@ export const POST: APIRoute = async (context) => {
   const gate = guardApi(context, ['client']);
   if (!gate.ok) return gate.response;
   const created = await createBrief(gate.user, body.value);
-  if (!created.ok) return created.status === 400 ? invalid(created.error, created.issues) : apiError(created.status, 'wrong_state', { message: created.message });
+  if (!created.ok)
+    return created.status === 400
+      ? invalid(created.error, created.issues)
+      : apiError(created.status, 'wrong_state', { message: created.message });
   return json(briefJson(created.value), 201, { location: `/api/v1/briefs/${created.value.id}` });
 };

@@ -1,10 +1,10 @@
 /** GET /api/v1/files/:id — the file's bytes as an attachment, for its brief's owner and staff. */
 import type { APIRoute } from 'astro';
-import { logFailure } from '~/lib/server/log';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { apiError, notFound } from '~/lib/server/http';
-import { findFileFor, uploadStore } from '~/lib/server/uploads';
-import { attachmentDisposition } from '~/lib/server/uploads/file-names';
+import { logFailure } from '~/lib/platform/log';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { apiError, notFound } from '~/lib/platform/http/responses';
+import { findFileFor, uploadStore } from '~/lib/briefs/file-store.server';
+import { attachmentDisposition } from '~/lib/platform/uploads/file-names';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
@@ -14,7 +14,10 @@ export const GET: APIRoute = async (context) => {
   const bytes = await uploadStore.get(file.storageKey);
   if (!bytes) {
     const errorId = logFailure(new Error('upload bytes missing'), { fileId: file.id, storageKey: file.storageKey });
-    return apiError(500, 'file_missing', { errorId, message: `The file’s contents are missing from storage; ask an engineer to restore it (reference ${errorId}).` });
+    return apiError(500, 'file_missing', {
+      errorId,
+      message: `The file’s contents are missing from storage; ask an engineer to restore it (reference ${errorId}).`,
+    });
   }
   return new Response(bytes, {
     status: 200,

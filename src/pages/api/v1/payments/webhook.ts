@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { apiError, json } from '~/lib/server/http';
-import { paymentProvider, PaymentsNotConfigured, webhookSecret } from '~/lib/server/payments/provider';
-import { applyPaymentEvent } from '~/lib/server/payments/webhook';
+import { apiError, json } from '~/lib/platform/http/responses';
+import { paymentProvider, PaymentsNotConfigured, webhookSecret } from '~/lib/payments/provider.server';
+import { applyPaymentEvent } from '~/lib/payments/webhook.server';
 
 const MAX_EVENT_BYTES = 256 * 1024;
 

@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
-import { patchQuoteSchema } from '~/lib/pricing';
-import { ANY_ROLE, guardApi, STAFF } from '~/lib/server/guard';
-import { json, notFound } from '~/lib/server/http';
-import { answer, findQuoteFor, quoteJson, updateDraft } from '~/lib/server/quotes';
-import { parseBody } from '~/lib/server/validation';
+import { patchQuoteSchema } from '~/lib/quotes/pricing';
+import { ANY_ROLE, guardApi, STAFF } from '~/lib/platform/http/guard';
+import { json, notFound } from '~/lib/platform/http/responses';
+import { answer, findQuoteFor, quoteJson, updateDraft } from '~/lib/quotes/quotes.server';
+import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);

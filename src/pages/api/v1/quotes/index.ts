@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { createQuoteSchema } from '~/lib/pricing';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { answer, createQuote, quoteJson } from '~/lib/server/quotes';
-import { parseBody } from '~/lib/server/validation';
+import { createQuoteSchema } from '~/lib/quotes/pricing';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { answer, createQuote, quoteJson } from '~/lib/quotes/quotes.server';
+import { parseBody } from '~/lib/platform/http/validation';
 
 /** Drafts a priced quote from a design revision. */
 export const POST: APIRoute = async (context) => {

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { apiError, invalid, json } from '~/lib/server/http';
-import { compareQuerySchema, compareRevisions } from '~/lib/server/revision-compare';
-import { zodIssues } from '~/lib/server/validation';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { apiError, invalid, json } from '~/lib/platform/http/responses';
+import { compareQuerySchema, compareRevisions } from '~/lib/review/revision-compare.server';
+import { zodIssues } from '~/lib/platform/http/validation';
 
 /** What changed between two revisions of a brief: inputs and the chosen options' key figures. */
 export const GET: APIRoute = async (context) => {

@@ -1,11 +1,11 @@
 /** POST /api/v1/briefs/:id/files — attach one file (multipart field `file`, optional `kind`). */
 import type { APIRoute } from 'astro';
-import { findBriefFor } from '~/lib/server/briefs';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { apiError, conflict, invalid, json, notFound } from '~/lib/server/http';
-import { saveUpload } from '~/lib/server/uploads';
-import { closedMessage, isClosedBrief, type SaveOutcome } from '~/lib/server/uploads/brief-files';
-import { readUploadForm } from '~/lib/server/uploads/read-upload-form';
+import { findBriefFor } from '~/lib/briefs/briefs.server';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { apiError, conflict, invalid, json, notFound } from '~/lib/platform/http/responses';
+import { saveUpload } from '~/lib/briefs/file-store.server';
+import { closedMessage, isClosedBrief, type SaveOutcome } from '~/lib/briefs/files.server';
+import { readUploadForm } from '~/lib/platform/uploads/read-upload-form';
 
 function refusalResponse(outcome: Exclude<SaveOutcome, { ok: true }>): Response {
   switch (outcome.reason) {

@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
-import { findBriefFor } from '~/lib/server/briefs';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { json, notFound } from '~/lib/server/http';
-import { addNote, listNotes, noteJson, noteRequestSchema } from '~/lib/server/notes';
-import { parseBody } from '~/lib/server/validation';
+import { findBriefFor } from '~/lib/briefs/briefs.server';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { json, notFound } from '~/lib/platform/http/responses';
+import { addNote, listNotes, noteJson, noteRequestSchema } from '~/lib/briefs/notes.server';
+import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, STAFF);

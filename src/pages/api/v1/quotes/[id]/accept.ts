@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { guardApi } from '~/lib/server/guard';
-import { notFound } from '~/lib/server/http';
-import { acceptQuote, answer, findQuoteFor, quoteJson } from '~/lib/server/quotes';
+import { guardApi } from '~/lib/platform/http/guard';
+import { notFound } from '~/lib/platform/http/responses';
+import { acceptQuote, answer, findQuoteFor, quoteJson } from '~/lib/quotes/quotes.server';
 
 /** The owner client accepts a sent, unexpired quote; staff read quotes but do not accept for clients. */
 export const POST: APIRoute = async (context) => {

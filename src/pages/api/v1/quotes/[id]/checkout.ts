@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { guardApi } from '~/lib/server/guard';
-import { apiError, json } from '~/lib/server/http';
-import { startDepositCheckout } from '~/lib/server/payments/checkout';
-import { PaymentsNotConfigured } from '~/lib/server/payments/provider';
+import { guardApi } from '~/lib/platform/http/guard';
+import { apiError, json } from '~/lib/platform/http/responses';
+import { startDepositCheckout } from '~/lib/payments/checkout.server';
+import { PaymentsNotConfigured } from '~/lib/payments/provider.server';
 
 /** The owner client opens the hosted checkout for the accepted quote's deposit. */
 export const POST: APIRoute = async (context) => {

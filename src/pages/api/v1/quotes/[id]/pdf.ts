@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { ANY_ROLE, guardApi } from '~/lib/server/guard';
-import { notFound } from '~/lib/server/http';
-import { quotePdfName } from '~/lib/server/pdf/render';
-import { findQuoteFor, quotePdf } from '~/lib/server/quotes';
+import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { notFound } from '~/lib/platform/http/responses';
+import { quotePdfName } from '~/lib/quotes/render.server';
+import { findQuoteFor, quotePdf } from '~/lib/quotes/quotes.server';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);

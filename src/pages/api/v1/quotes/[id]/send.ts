@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { notFound } from '~/lib/server/http';
-import { answer, findQuoteFor, quoteJson, sendQuote } from '~/lib/server/quotes';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { notFound } from '~/lib/platform/http/responses';
+import { answer, findQuoteFor, quoteJson, sendQuote } from '~/lib/quotes/quotes.server';
 
 /** Renders the PDF, e-mails it to the client and marks the quote sent (502 when the mail fails). */
 export const POST: APIRoute = async (context) => {

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { exportFileName, findRevisionWithBrief, revisionNetlist } from '~/lib/server/exports';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { conflict, notFound } from '~/lib/server/http';
+import { exportFileName, findRevisionWithBrief, revisionNetlist } from '~/lib/review/exports.server';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { conflict, notFound } from '~/lib/platform/http/responses';
 
 /** The revision's chosen design as a SPICE netlist (plain text, ngspice dialect). */
 export const GET: APIRoute = async (context) => {

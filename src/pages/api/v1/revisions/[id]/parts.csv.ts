@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { chosenOf, exportFileName, findRevisionWithBrief, partListCsv, partsCurrency } from '~/lib/server/exports';
-import { guardApi, STAFF } from '~/lib/server/guard';
-import { conflict, notFound } from '~/lib/server/http';
+import { chosenOf, exportFileName, findRevisionWithBrief, partListCsv, partsCurrency } from '~/lib/review/exports.server';
+import { guardApi, STAFF } from '~/lib/platform/http/guard';
+import { conflict, notFound } from '~/lib/platform/http/responses';
 
 /** The revision's chosen part list as CSV (values in SI units, costs in minor units). */
 export const GET: APIRoute = async (context) => {

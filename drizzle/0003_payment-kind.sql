@@ -1,0 +1,1 @@
+ALTER TABLE `payment` ADD `kind` text DEFAULT 'deposit' NOT NULL;

@@ -1,0 +1,61 @@
+import { useEffect, useState } from 'react';
+import { formatSi, parseSi } from '~/lib/engine/units';
+import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
+
+interface Props {
+  id: string;
+  label: string;
+  unit: string;
+  value: number | undefined;
+  onChange: (value: number) => void;
+  onBlur?: () => void;
+  error?: string | undefined;
+  hint?: string | undefined;
+  /** Shown and typed as a percentage; stored as a fraction. */
+  percent?: boolean;
+}
+
+function show(value: number | undefined, unit: string, percent: boolean): string {
+  if (value === undefined || !Number.isFinite(value)) return '';
+  if (percent) return String(Number((value * 100).toPrecision(4)));
+  // Plain digits for ordinary magnitudes; prefixes for the very small and very large.
+  if (value === 0 || (Math.abs(value) >= 0.1 && Math.abs(value) < 10_000)) return String(Number(value.toPrecision(6)));
+  return formatSi(value, unit).replace(` ${unit}`, '').replace(/ /g, '');
+}
+
+/**
+ * A number field that accepts SI-prefixed input ("4k7", "220m", "3.3"). The
+ * typed text is kept while focused; the parsed number goes to the form.
+ */
+export function SiNumberField({ id, label, unit, value, onChange, onBlur, error, hint, percent = false }: Props) {
+  const [text, setText] = useState(() => show(value, unit, percent));
+  const [focused, setFocused] = useState(false);
+  useEffect(() => {
+    if (!focused) setText(show(value, unit, percent));
+  }, [value, unit, percent, focused]);
+
+  return (
+    <FieldShell id={id} label={label} unit={percent ? '%' : unit} error={error} hint={hint}>
+      <input
+        id={id}
+        inputMode="decimal"
+        autoComplete="off"
+        spellCheck={false}
+        className={`${inputClass(error)} tabular-nums`}
+        value={text}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(id, hint, error)}
+        onFocus={() => setFocused(true)}
+        onChange={(event) => {
+          setText(event.target.value);
+          const parsed = parseSi(event.target.value.replace(new RegExp(`${unit}$`), '').trim());
+          onChange(parsed === null ? Number.NaN : percent ? parsed / 100 : parsed);
+        }}
+        onBlur={() => {
+          setFocused(false);
+          onBlur?.();
+        }}
+      />
+    </FieldShell>
+  );
+}

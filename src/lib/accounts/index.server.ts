@@ -1,0 +1,2 @@
+/** People and their accounts: the server-only services other domains may call. */
+export * from './accounts.server';

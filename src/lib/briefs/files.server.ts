@@ -1,0 +1,122 @@
+/**
+ * Files attached to briefs: saving an upload (bytes first, then the row, and
+ * the bytes removed again when the row cannot be written, so a failed upload
+ * leaves nothing behind) and finding one for a viewer.
+ */
+import { eq } from 'drizzle-orm';
+import { reduceLoadLog, type LoadSummary } from './load-log';
+import type { Database } from '../platform/db/connect';
+import { brief, briefFile, type BriefStatus, type BriefFileRow } from '../platform/db/schema';
+import { isStaff, type SignedInUser } from '../platform/http/guard';
+import { safeFileName } from '../platform/uploads/file-names';
+import { decideUploadType, MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from '../platform/uploads/file-policy';
+import { newStorageKey, type UploadStore } from '../platform/uploads/store';
+
+export interface BriefFileDeps {
+  db: Database;
+  store: UploadStore;
+}
+
+/** A brief in one of these states is closed: nothing more is attached to it. */
+export const CLOSED_BRIEF_STATUSES: readonly BriefStatus[] = ['declined', 'cancelled', 'delivered', 'expired'];
+
+export const isClosedBrief = (status: BriefStatus) => CLOSED_BRIEF_STATUSES.includes(status);
+
+export interface UploadInput {
+  briefId: string;
+  uploaderId: string;
+  kind: FileKind | undefined;
+  name: string;
+  bytes: Uint8Array;
+}
+
+export interface SavedFile {
+  id: string;
+  name: string;
+  kind: FileKind;
+  mimeType: string;
+  sizeBytes: number;
+  loadSummary: LoadSummary | null;
+}
+
+export type Refusal =
+  | { reason: 'invalid'; error: 'invalid_upload' | 'invalid_load_log'; path: 'file'; message: string }
+  | { reason: 'too_large'; message: string }
+  | { reason: 'type_not_accepted'; message: string }
+  | { reason: 'not_found' }
+  | { reason: 'closed'; message: string };
+
+export type SaveOutcome = { ok: true; file: SavedFile } | ({ ok: false } & Refusal);
+
+export const closedMessage = (status: BriefStatus) => `This brief is ${status}; files can no longer be added to it.`;
+
+/** Raised inside the transaction so that the row is rolled back and the bytes removed. */
+class BriefUnavailable extends Error {
+  constructor(readonly refusal: Refusal) {
+    super('The brief cannot take files now.');
+  }
+}
+
+export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadInput): Promise<SaveOutcome> {
+  const { bytes } = input;
+  if (bytes.length === 0) return { ok: false, reason: 'invalid', error: 'invalid_upload', path: 'file', message: 'The file is empty.' };
+  if (bytes.length > MAX_UPLOAD_BYTES)
+    return { ok: false, reason: 'too_large', message: `The file is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` };
+
+  const verdict = await decideUploadType(bytes, input.name, input.kind);
+  if (!verdict.ok) return { ok: false, reason: 'type_not_accepted', message: verdict.message };
+  const { type } = verdict;
+
+  let loadSummary: LoadSummary | null = null;
+  if (type.kind === 'load-log') {
+    const reduced = reduceLoadLog(type.text ?? '');
+    if (!reduced.ok) return { ok: false, reason: 'invalid', error: 'invalid_load_log', path: 'file', message: reduced.message };
+    loadSummary = reduced.summary;
+  }
+
+  const name = safeFileName(input.name, type.extensions);
+  const storageKey = newStorageKey();
+  await store.put(storageKey, bytes);
+  try {
+    const row = await db.transaction(async (tx) => {
+      // Read inside the (write-locked) transaction: a brief closed meanwhile takes no file.
+      const [target] = await tx.select({ status: brief.status }).from(brief).where(eq(brief.id, input.briefId)).limit(1);
+      if (!target) throw new BriefUnavailable({ reason: 'not_found' });
+      if (isClosedBrief(target.status)) throw new BriefUnavailable({ reason: 'closed', message: closedMessage(target.status) });
+      const [inserted] = await tx
+        .insert(briefFile)
+        .values({
+          briefId: input.briefId,
+          uploadedBy: input.uploaderId,
+          kind: type.kind,
+          originalName: name,
+          storageKey,
+          mimeType: type.mimeType,
+          sizeBytes: bytes.length,
+          loadSummary,
+        })
+        .returning({ id: briefFile.id });
+      return inserted!;
+    });
+    return { ok: true, file: { id: row.id, name, kind: type.kind, mimeType: type.mimeType, sizeBytes: bytes.length, loadSummary } };
+  } catch (error) {
+    await store.remove(storageKey);
+    if (error instanceof BriefUnavailable) return { ok: false, ...error.refusal };
+    throw error;
+  }
+}
+
+export type { BriefFileRow };
+
+/** The file if this viewer may see its brief, else null (answered as 404 either way). */
+export async function findBriefFileFor(db: Database, viewer: SignedInUser, fileId: string): Promise<BriefFileRow | null> {
+  const [found] = await db
+    .select({ file: briefFile, ownerId: brief.ownerId })
+    .from(briefFile)
+    .innerJoin(brief, eq(brief.id, briefFile.briefId))
+    .where(eq(briefFile.id, fileId))
+    .limit(1);
+  if (!found) return null;
+  if (!isStaff(viewer) && found.ownerId !== viewer.id) return null;
+  return found.file;
+}

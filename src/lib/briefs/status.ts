@@ -1,0 +1,15 @@
+/** The states of a brief (docs/product.md, moves in docs/states.md): browser-safe, so forms and islands share them with the database. */
+export const BRIEF_STATUSES = [
+  'draft',
+  'submitted',
+  'in-review',
+  'quoted',
+  'accepted',
+  'deposit-paid',
+  'in-design',
+  'delivered',
+  'declined',
+  'expired',
+  'cancelled',
+] as const;
+export type BriefStatus = (typeof BRIEF_STATUSES)[number];

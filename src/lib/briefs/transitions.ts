@@ -1,0 +1,35 @@
+/**
+ * Who may move a brief from which state to which. Shared by the API, the
+ * pages (to offer only the moves that will be accepted) and the tests.
+ */
+import type { BriefStatus } from './status';
+
+export type Actor = 'owner' | 'staff' | 'system';
+
+const MOVES: Record<Actor, Partial<Record<BriefStatus, readonly BriefStatus[]>>> = {
+  owner: {
+    draft: ['submitted', 'cancelled'],
+    submitted: ['cancelled'],
+  },
+  staff: {
+    submitted: ['in-review', 'declined', 'cancelled'],
+    'in-review': ['declined', 'cancelled'],
+    quoted: ['in-review', 'expired', 'cancelled'],
+    'deposit-paid': ['in-design'],
+    'in-design': ['delivered'],
+  },
+  // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit.
+  system: {
+    'in-review': ['quoted'],
+    quoted: ['accepted', 'expired'],
+    accepted: ['deposit-paid'],
+  },
+};
+
+export function canMove(from: BriefStatus, to: BriefStatus, actor: Actor): boolean {
+  return MOVES[actor][from]?.includes(to) ?? false;
+}
+
+export function movesFor(from: BriefStatus, actor: Actor): readonly BriefStatus[] {
+  return MOVES[actor][from] ?? [];
+}

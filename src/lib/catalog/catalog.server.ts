@@ -1,0 +1,65 @@
+import { eq, sql } from 'drizzle-orm';
+import { catalogSchema, defaultCatalog, type Catalog } from '../engine/catalog';
+import { draftFromRows, rowsToCatalog } from './rows';
+import { db } from '../platform/db';
+import { deviceClass } from '../platform/db/schema';
+
+// A short-lived copy per instance: the catalog changes rarely (an admin edit),
+// and evaluations must not re-read and re-validate it on every request.
+const FRESH_MS = 5_000;
+let cached: { catalog: Catalog; at: number } | null = null;
+
+export async function currentCatalog(now = Date.now()): Promise<Catalog> {
+  if (cached && now - cached.at < FRESH_MS) return cached.catalog;
+  // rowid keeps the seeded order, which the engine uses to break ties between classes.
+  const rows = await db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
+  const catalog = rows.length === 0 ? defaultCatalog : rowsToCatalog(rows);
+  cached = { catalog, at: now };
+  return catalog;
+}
+
+export function forgetCatalog(): void {
+  cached = null;
+}
+
+export type CatalogEdit = { ok: true } | { ok: false; message: string };
+
+/**
+ * An admin's edit of one device class: the whole catalog is rebuilt and checked
+ * with the engine's schema before anything is written, so a bad figure never
+ * reaches an evaluation.
+ */
+export async function updateDeviceClass(id: string, paramsJson: string, adminId: string): Promise<CatalogEdit> {
+  let params: unknown;
+  try {
+    params = JSON.parse(paramsJson);
+  } catch {
+    return { ok: false, message: 'The parameters are not valid JSON; check commas, quotes and brackets.' };
+  }
+  const rows = await db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
+  const target = rows.find((row) => row.id === id);
+  if (!target) return { ok: false, message: 'That device class no longer exists.' };
+  const edited = rows.map((row) => (row.id === id ? { ...row, params } : row));
+  const checked = catalogSchema.safeParse(draftFromRows(edited));
+  if (!checked.success) {
+    const issue = checked.error.issues[0];
+    return { ok: false, message: `Not saved: ${issue?.path.slice(2).join('.') || 'the parameters'} — ${issue?.message ?? 'invalid'}.` };
+  }
+  const name = typeof (params as { label?: unknown }).label === 'string' ? (params as { label: string }).label : target.name;
+  await db.update(deviceClass).set({ params, name, updatedBy: adminId, updatedAt: new Date() }).where(eq(deviceClass.id, id));
+  forgetCatalog();
+  return { ok: true };
+}
+
+export async function listDeviceClasses() {
+  return db
+    .select()
+    .from(deviceClass)
+    .orderBy(sql`rowid`);
+}

@@ -1,0 +1,59 @@
+/**
+ * The device-class catalog as table rows and back. Lists (regulators, Zener
+ * series, pass devices, switchers, capacitor families) become one row per
+ * class; the single-valued sections become one row each.
+ */
+import { catalogSchema, type Catalog } from '../engine/catalog';
+
+export interface DeviceClassRow {
+  id: string;
+  kind: string;
+  name: string;
+  params: unknown;
+}
+
+const LIST_KINDS = [
+  'linearRegulators',
+  'zenerSeries',
+  'shuntReferences',
+  'resistorGrades',
+  'passDevices',
+  'switchers',
+  'capacitors',
+] as const;
+const SINGLE_KINDS = {
+  version: 'Catalog version',
+  inductors: 'Inductor family',
+  heatsinks: 'Heatsink steps',
+  diode: 'Catch and protection diode',
+  thermal: 'Thermal assumptions',
+  costs: 'Cost estimates',
+} as const;
+
+export function catalogToRows(catalog: Catalog): DeviceClassRow[] {
+  const rows: DeviceClassRow[] = [];
+  for (const kind of LIST_KINDS) {
+    for (const item of catalog[kind]) rows.push({ id: `${kind}:${item.id}`, kind, name: item.label, params: item });
+  }
+  for (const [kind, name] of Object.entries(SINGLE_KINDS) as [keyof typeof SINGLE_KINDS, string][]) {
+    rows.push({ id: kind, kind, name, params: catalog[kind] });
+  }
+  return rows;
+}
+
+/** The catalog's shape from rows in insertion order, not yet checked. */
+export function draftFromRows(rows: readonly DeviceClassRow[]): Record<string, unknown> {
+  const draft: Record<string, unknown> = {};
+  for (const kind of LIST_KINDS) draft[kind] = [];
+  for (const row of rows) {
+    const list = draft[row.kind];
+    if (Array.isArray(list)) list.push(row.params);
+    else draft[row.kind] = row.params;
+  }
+  return draft;
+}
+
+/** Rebuilds and validates the catalog; throws a zod error naming the bad field. */
+export function rowsToCatalog(rows: readonly DeviceClassRow[]): Catalog {
+  return catalogSchema.parse(draftFromRows(rows));
+}

@@ -1,0 +1,26 @@
+import type { BriefStatus } from '../platform/db/schema';
+
+interface Step {
+  from: BriefStatus | null;
+  to: BriefStatus;
+  by: 'client' | 'staff';
+}
+
+/** The main line of a brief's life, and who takes each step. */
+const MAIN_LINE: Step[] = [
+  { from: null, to: 'draft', by: 'client' },
+  { from: 'draft', to: 'submitted', by: 'client' },
+  { from: 'submitted', to: 'in-review', by: 'staff' },
+  { from: 'in-review', to: 'quoted', by: 'staff' },
+  { from: 'quoted', to: 'accepted', by: 'client' },
+  { from: 'accepted', to: 'deposit-paid', by: 'client' },
+  { from: 'deposit-paid', to: 'in-design', by: 'staff' },
+  { from: 'in-design', to: 'delivered', by: 'staff' },
+];
+
+/** The recorded history of a demo brief that has reached `status` along the main line. */
+export function lifecycleTo(status: BriefStatus): Step[] {
+  const end = MAIN_LINE.findIndex((s) => s.to === status);
+  if (end < 0) throw new Error(`The demo scenario only uses main-line states, not ${status}`);
+  return MAIN_LINE.slice(0, end + 1);
+}

@@ -1,0 +1,153 @@
+/**
+ * The demo scenario: fictional clients and rails, for the demo only.
+ * Specs follow the engine's brief schema (SI units, tolerances as fractions).
+ */
+import type { RailSpecInput } from '../engine/rail-spec';
+import type { BriefStatus } from '../platform/db/schema';
+import type { Role } from '../platform/auth/roles';
+
+export const DEMO_PASSWORD = 'railwright-demo';
+
+export interface DemoPerson {
+  key: string;
+  name: string;
+  email: string;
+  role: Role;
+  company?: string;
+}
+
+export const DEMO_PEOPLE: DemoPerson[] = [
+  { key: 'admin', name: 'Maren Holt', email: 'admin@demo.railwright.test', role: 'admin' },
+  { key: 'engineer', name: 'Idris Valcourt', email: 'engineer@demo.railwright.test', role: 'engineer' },
+  { key: 'client', name: 'Priya Anand', email: 'client@demo.railwright.test', role: 'client', company: 'Fernhill Sensing Ltd' },
+  {
+    key: 'quillon',
+    name: 'Jonas Brekke',
+    email: 'jonas@quillon.demo.railwright.test',
+    role: 'client',
+    company: 'Quillon Bench Instruments',
+  },
+  { key: 'harrow', name: 'Lucía Ferrand', email: 'lucia@harrowgate.demo.railwright.test', role: 'client', company: 'Harrowgate Controls' },
+  {
+    key: 'aster',
+    name: 'Dr Tomasz Wren',
+    email: 'wren@asterlab.demo.railwright.test',
+    role: 'client',
+    company: 'Aster Detector Laboratory',
+  },
+];
+
+export interface DemoBrief {
+  key: string;
+  owner: string;
+  title: string;
+  status: BriefStatus;
+  notes: string;
+  /** Days before the seed time that the brief was submitted (drafts have none). */
+  submittedDaysAgo?: number;
+  /** The engineer's note on revision 1, for briefs that have been reviewed. */
+  revisionNote?: string;
+  /** How far the quote of revision 1 has gone: sent to the client, or accepted and its deposit paid. */
+  quote?: 'sent' | 'deposit-paid';
+  spec: RailSpecInput;
+}
+
+export const DEMO_BRIEFS: DemoBrief[] = [
+  {
+    key: 'sensor-node',
+    owner: 'client',
+    title: 'Soil-moisture node, 3.3 V from one Li-ion cell',
+    status: 'deposit-paid',
+    submittedDaysAgo: 12,
+    revisionNote: 'Buck-boost keeps 3.3 V across the whole discharge; quiescent current checked for the sleep budget.',
+    quote: 'deposit-paid',
+    notes: 'Node sleeps most of the time; radio bursts of about 120 mA every 15 minutes. Cell runs from 4.2 V down to 3.0 V.',
+    spec: {
+      input: { vMin: 3.0, vNom: 3.7, vMax: 4.2, rippleVpp: 0, source: 'battery' },
+      output: { v: 3.3, tolerance: 0.05, iMin: 0.0005, iTyp: 0.02, iMax: 0.15 },
+      noise: { class: 'sensor' },
+      thermal: { ambientMaxC: 50, airflow: 'enclosed' },
+    },
+  },
+  {
+    key: 'sensor-gateway',
+    owner: 'client',
+    title: 'Gateway logic rail, 5 V from a 12 V adapter',
+    status: 'draft',
+    notes: 'Still deciding on the adapter; a 12 V, 1 A brick is likely.',
+    spec: {
+      input: { vMin: 10.8, vNom: 12, vMax: 13.2, rippleVpp: 0.1, source: 'adapter' },
+      output: { v: 5, tolerance: 0.05, iMin: 0.05, iTyp: 0.3, iMax: 0.6 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 45, airflow: 'still-air' },
+    },
+  },
+  {
+    key: 'bench-analog',
+    owner: 'quillon',
+    title: 'Bench meter analog front-end, quiet 12 V',
+    status: 'quoted',
+    submittedDaysAgo: 6,
+    revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
+    quote: 'sent',
+    notes: 'Feeds a 24-bit ADC reference buffer and op-amps; the ripple budget is tight.',
+    spec: {
+      input: { vMin: 16, vNom: 18, vMax: 20, rippleVpp: 1.2, source: 'rectified' },
+      output: { v: 12, tolerance: 0.05, iMin: 0.01, iTyp: 0.08, iMax: 0.15 },
+      noise: { class: 'precision', maxRippleVpp: 0.0005 },
+      thermal: { ambientMaxC: 40, airflow: 'still-air' },
+    },
+  },
+  {
+    key: 'controller-24v',
+    owner: 'harrow',
+    title: 'PLC I/O card, 5 V at 1.5 A from the 24 V bus',
+    status: 'in-review',
+    submittedDaysAgo: 3,
+    revisionNote: 'First pass as briefed; check the load-dump clamp level with the client before quoting.',
+    notes: 'Cabinet reaches 55 °C in summer. The 24 V bus sags to 18 V during motor starts and reaches 30 V on load dump clamps.',
+    spec: {
+      input: { vMin: 18, vNom: 24, vMax: 30, rippleVpp: 0.5, source: 'bus' },
+      output: { v: 5, tolerance: 0.05, iMin: 0.1, iTyp: 0.9, iMax: 1.5 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 55, airflow: 'enclosed' },
+    },
+  },
+  {
+    key: 'detector-hv',
+    owner: 'aster',
+    title: 'Detector bias, 150 V from a 300–350 V supply',
+    status: 'submitted',
+    submittedDaysAgo: 1,
+    notes: 'Bias for a drift detector; the lab already has a 300–350 V rectified supply. Load is small but must be stable.',
+    spec: {
+      input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
+      output: { v: 150, tolerance: 0.08, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
+      noise: { class: 'sensor', maxRippleVpp: 0.01 },
+      thermal: { ambientMaxC: 35, airflow: 'still-air' },
+    },
+  },
+];
+
+/** The consultancy's demo prices (integer minor units; hours per topology and per complexity driver). */
+export const DEMO_RATE_CARD = {
+  id: 1,
+  currency: 'EUR',
+  hourlyRateMinor: 11_500,
+  designHoursByTopology: {
+    shunt: 3,
+    linear: 5,
+    'linear-predrop': 10,
+    buck: 12,
+    boost: 12,
+    'buck-boost': 16,
+    'buck+linear': 16,
+  },
+  complexityHours: { highVoltage: 6, tightNoise: 4, heatsink: 3, perRevision: 1.5 },
+  hvReviewMinor: 48_000,
+  prototypePerUnitMinor: 9_500,
+  testReportMinor: 36_000,
+  taxRateBp: 2_000,
+  depositBp: 3_000,
+  validityDays: 30,
+};

@@ -1,0 +1,182 @@
+import { count, eq } from 'drizzle-orm';
+import type { Auth } from '../platform/auth/create-auth';
+import type { Database, Transaction } from '../platform/db/connect';
+import { summarise } from '~/lib/briefs';
+import { railSpecSchema } from '../engine/rail-spec';
+import { defaultCatalog } from '../engine/catalog';
+import { evaluate } from '../engine/evaluate';
+import { catalogToRows } from '~/lib/catalog';
+import {
+  account,
+  brief,
+  clientProfile,
+  designRevision,
+  deviceClass,
+  payment,
+  quote,
+  rateCard,
+  stateChange,
+  user,
+} from '../platform/db/schema';
+import { draftQuote } from '~/lib/quotes/index.server';
+import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
+import { lifecycleTo } from './lifecycle';
+import { DAY_MS } from '../platform/time';
+
+/**
+ * The quote of a demo brief, drafted the way the quote builder drafts one, then
+ * taken as far as the scenario says: sent, or accepted with its deposit paid.
+ */
+async function seedQuote(
+  tx: Transaction,
+  p: {
+    briefId: string;
+    finalStatus: DemoBrief['status'];
+    revisionId: string;
+    engineerId: string;
+    ownerId: string;
+    plan: 'sent' | 'deposit-paid';
+    at: Date;
+  },
+) {
+  // Drafting needs a brief still under review; the scenario's state is restored right after.
+  await tx.update(brief).set({ status: 'in-review' }).where(eq(brief.id, p.briefId));
+  const drafted = await draftQuote(tx, { revisionId: p.revisionId, createdBy: p.engineerId, now: p.at });
+  if (!drafted.ok) throw new Error(`Demo quote could not be drafted: ${drafted.message}`);
+  await tx.update(brief).set({ status: p.finalStatus }).where(eq(brief.id, p.briefId));
+  const sentAt = new Date(p.at.getTime() + 3_600_000);
+  const steps: [string, string, string | null, Date][] = [['draft', 'sent', p.engineerId, sentAt]];
+  if (p.plan === 'deposit-paid') {
+    const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
+    const paidAt = new Date(acceptedAt.getTime() + 600_000);
+    steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
+    await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.quote.id));
+    await tx.insert(payment).values({
+      quoteId: drafted.quote.id,
+      checkoutSessionId: `cs_demo_${drafted.quote.id.slice(0, 8)}`,
+      paymentIntentId: `pi_demo_${drafted.quote.id.slice(0, 8)}`,
+      amountMinor: drafted.quote.depositMinor,
+      currency: drafted.quote.currency,
+      status: 'paid',
+      paidAt,
+    });
+  } else {
+    await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.quote.id));
+  }
+  for (const [from, to, actorId, at] of steps) {
+    await tx
+      .insert(stateChange)
+      .values({ subjectType: 'quote', subjectId: drafted.quote.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
+  }
+}
+
+/**
+ * Seeds the demo scenario into an empty database, all in one transaction.
+ * Returns false (and writes nothing) when the database already has people.
+ */
+export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Promise<boolean> {
+  const [existing] = await db.select({ n: count() }).from(user);
+  if ((existing?.n ?? 0) > 0) return false;
+
+  const context = await auth.$context;
+  const passwordHash = await context.password.hash(DEMO_PASSWORD);
+  const ids = new Map(DEMO_PEOPLE.map((p) => [p.key, crypto.randomUUID()]));
+  const idOf = (key: string) => {
+    const id = ids.get(key);
+    if (!id) throw new Error(`Demo scenario names an unknown person: ${key}`);
+    return id;
+  };
+  const engineerId = idOf('engineer');
+
+  await db.transaction(async (tx) => {
+    for (const person of DEMO_PEOPLE) {
+      const id = idOf(person.key);
+      const joined = new Date(now - 40 * DAY_MS);
+      await tx.insert(user).values({
+        id,
+        name: person.name,
+        email: person.email,
+        emailVerified: true,
+        role: person.role,
+        createdAt: joined,
+        updatedAt: joined,
+      });
+      await tx.insert(account).values({
+        id: crypto.randomUUID(),
+        accountId: id,
+        providerId: 'credential',
+        userId: id,
+        password: passwordHash,
+        createdAt: joined,
+        updatedAt: joined,
+      });
+      if (person.company) await tx.insert(clientProfile).values({ userId: id, company: person.company });
+    }
+    await tx.insert(rateCard).values({ ...DEMO_RATE_CARD, updatedBy: idOf('admin') });
+    await tx.insert(deviceClass).values(catalogToRows(defaultCatalog));
+
+    for (const item of DEMO_BRIEFS) {
+      const ownerId = idOf(item.owner);
+      const briefId = crypto.randomUUID();
+      const submittedAt = item.submittedDaysAgo === undefined ? null : new Date(now - item.submittedDaysAgo * DAY_MS);
+      const createdAt = new Date((submittedAt?.getTime() ?? now - DAY_MS) - 2 * 3_600_000);
+      // Submitted briefs carry the engine's verdict, as they would after a real submission.
+      const spec = submittedAt ? railSpecSchema.parse(item.spec) : item.spec;
+      const result = submittedAt ? evaluate(railSpecSchema.parse(item.spec), defaultCatalog) : null;
+      await tx.insert(brief).values({
+        id: briefId,
+        ownerId,
+        title: item.title,
+        status: item.status,
+        spec,
+        notes: item.notes,
+        submittedAt,
+        recommendedTopology: result?.recommended ?? null,
+        summary: result ? summarise(result) : null,
+        createdAt,
+        updatedAt: createdAt,
+      });
+      if (result && item.revisionNote && result.recommended) {
+        const revisionId = crypto.randomUUID();
+        const revisedAt = new Date((submittedAt?.getTime() ?? now) + 4 * 3_600_000);
+        await tx.insert(designRevision).values({
+          id: revisionId,
+          briefId,
+          number: 1,
+          authorId: engineerId,
+          topology: result.recommended,
+          weights: railSpecSchema.parse(item.spec).weights,
+          overrides: railSpecSchema.parse(item.spec).overrides,
+          input: spec,
+          result,
+          note: item.revisionNote,
+          createdAt: revisedAt,
+        });
+        if (item.quote)
+          await seedQuote(tx, {
+            briefId,
+            finalStatus: item.status,
+            revisionId,
+            engineerId,
+            ownerId,
+            plan: item.quote,
+            at: new Date(revisedAt.getTime() + DAY_MS),
+          });
+      }
+      const steps = lifecycleTo(item.status);
+      let at = submittedAt?.getTime() ?? createdAt.getTime();
+      for (const [index, step] of steps.entries()) {
+        await tx.insert(stateChange).values({
+          subjectType: 'brief',
+          subjectId: briefId,
+          fromStatus: step.from,
+          toStatus: step.to,
+          actorId: step.by === 'client' ? ownerId : engineerId,
+          createdAt: new Date(at),
+        });
+        at += (index + 1) * 3_600_000 * 5;
+      }
+    }
+  });
+  return true;
+}

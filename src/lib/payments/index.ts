@@ -1,0 +1,2 @@
+/** Deposits paid through the payment provider. Browser-safe: what other domains, pages and islands may use. */
+export * from './transitions';

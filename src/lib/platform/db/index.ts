@@ -1,0 +1,4 @@
+import { config } from '../config';
+import { connect } from './connect';
+
+export const { db, client } = connect(config.databaseUrl, config.databaseAuthToken);

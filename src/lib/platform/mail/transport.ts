@@ -1,0 +1,68 @@
+import nodemailer, { type Transporter } from 'nodemailer';
+import type { Database } from '../db/connect';
+import { mailLog } from '../db/schema';
+
+export interface OutgoingMail {
+  kind: string;
+  to: string;
+  subject: string;
+  text: string;
+  html?: string;
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
+  relatedId?: string;
+}
+
+export type MailResult = { ok: true; messageId: string } | { ok: false; error: string };
+
+export interface Mailer {
+  send(mail: OutgoingMail): Promise<MailResult>;
+}
+
+/**
+ * Sends over SMTP (a real server in production, the local catcher in
+ * development and tests) and records every attempt, sent or failed, in the mail log.
+ */
+export function createMailer(db: Database, smtpUrl: string, from: string): Mailer {
+  let transport: Transporter | undefined;
+  return {
+    async send(mail) {
+      transport ??= nodemailer.createTransport(smtpUrl);
+      const attachmentName = mail.attachments?.[0]?.filename ?? null;
+      try {
+        const info = await transport.sendMail({
+          from,
+          to: mail.to,
+          subject: mail.subject,
+          text: mail.text,
+          ...(mail.html ? { html: mail.html } : {}),
+          ...(mail.attachments ? { attachments: mail.attachments } : {}),
+        });
+        const messageId = String(info.messageId ?? '');
+        await db.insert(mailLog).values({
+          kind: mail.kind,
+          toAddress: mail.to,
+          subject: mail.subject,
+          bodyText: mail.text,
+          attachmentName,
+          status: 'sent',
+          messageId,
+          relatedId: mail.relatedId ?? null,
+        });
+        return { ok: true, messageId };
+      } catch (err) {
+        const error = err instanceof Error ? err.message : String(err);
+        await db.insert(mailLog).values({
+          kind: mail.kind,
+          toAddress: mail.to,
+          subject: mail.subject,
+          bodyText: mail.text,
+          attachmentName,
+          status: 'failed',
+          error,
+          relatedId: mail.relatedId ?? null,
+        });
+        return { ok: false, error };
+      }
+    },
+  };
+}

@@ -1,0 +1,19 @@
+/**
+ * Which state a quote may move to from which. Every move goes through this
+ * table (sending, acceptance, expiry, the paid deposit), so no path sets a
+ * state that the product does not know how to leave. Browser-safe.
+ */
+import type { QuoteStatus } from '../platform/db/schema';
+
+const QUOTE_MOVES: Record<QuoteStatus, readonly QuoteStatus[]> = {
+  draft: ['sent'],
+  sent: ['accepted', 'expired'],
+  accepted: ['deposit-paid'],
+  'deposit-paid': [],
+  expired: [],
+  withdrawn: [],
+};
+
+export function canMoveQuote(from: QuoteStatus, to: QuoteStatus): boolean {
+  return QUOTE_MOVES[from].includes(to);
+}

@@ -1,0 +1,115 @@
+/**
+ * Exports of a saved revision: the chosen design as a SPICE netlist and its
+ * part list as CSV. Both read the revision's stored result, never a re-run.
+ */
+import { eq } from 'drizzle-orm';
+import Papa from 'papaparse';
+import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '../engine';
+import { chosenOption } from './compare';
+import { componentValue } from './figures';
+import { ROLE_NAMES, TYPICAL_NOTE } from './words';
+import { TOPOLOGY_NAMES } from './option-words';
+import { currentCatalog } from '~/lib/catalog/index.server';
+import { db } from '../platform/db';
+import { brief, designRevision, rateCard } from '../platform/db/schema';
+
+export async function findRevisionWithBrief(id: string) {
+  const [row] = await db
+    .select({ revision: designRevision, briefTitle: brief.title })
+    .from(designRevision)
+    .innerJoin(brief, eq(brief.id, designRevision.briefId))
+    .where(eq(designRevision.id, id))
+    .limit(1);
+  return row ?? null;
+}
+
+export type RevisionWithBrief = NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>;
+
+/** The currency parts costs are kept in: the rate card's. */
+export async function partsCurrency(): Promise<string> {
+  const [row] = await db.select({ currency: rateCard.currency }).from(rateCard).limit(1);
+  return row?.currency ?? 'EUR';
+}
+
+export function chosenOf(found: RevisionWithBrief): Option | null {
+  return chosenOption({ topology: found.revision.topology, result: found.revision.result as Evaluation });
+}
+
+/** The netlist describes the nominal input at the typical load: the point an engineer measures first. */
+export function nominalCorner(input: unknown): SpiceCorner {
+  const brief = input as { input: { vNom: number }; output: { iTyp: number } };
+  return { vIn: brief.input.vNom, iOut: brief.output.iTyp };
+}
+
+export function exportFileName(title: string, number: number, extension: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .replace(/[^\w\s-]/g, ' ')
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_-]+/g, '-')
+    .slice(0, 60);
+  return `${slug || 'brief'}-rev${number}.${extension}`;
+}
+
+const ASCII_FOR: Record<string, string> = {
+  '—': '-',
+  '–': '-',
+  '−': '-',
+  '½': '1/2',
+  '·': '*',
+  '²': '^2',
+  θ: 'theta',
+  '°': 'deg',
+  Ω: 'ohm',
+  µ: 'u',
+  '’': "'",
+  '“': '"',
+  '”': '"',
+  '≤': '<=',
+  '≥': '>=',
+  '×': 'x',
+  '…': '...',
+};
+
+/** One ASCII line: the simulator reads its deck byte by byte, and other characters change how it parses. */
+function deckLine(text: string): string {
+  return text.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, (c) => ASCII_FOR[c] ?? c.normalize('NFKD').replace(/[^\x20-\x7e]/g, ''));
+}
+
+export type NetlistOutcome = { ok: true; text: string } | { ok: false; message: string };
+
+export async function revisionNetlist(found: RevisionWithBrief): Promise<NetlistOutcome> {
+  const option = chosenOf(found);
+  if (!option) return { ok: false, message: 'This revision holds no design for its chosen topology.' };
+  const corner = nominalCorner(found.revision.input);
+  const body = toSpiceNetlist(option, corner, await currentCatalog());
+  const header = [
+    `* Railwright - ${found.briefTitle}, revision ${found.revision.number}: ${TOPOLOGY_NAMES[option.topology]}`,
+    `* Device models use typical parameters (${TYPICAL_NOTE}).`,
+    ...option.cautions.map((c) => `* CAUTION: ${c.message}`),
+  ].map(deckLine);
+  return { ok: true, text: `${header.join('\n')}\n${body}` };
+}
+
+export function partListCsv(option: Option, currency: string): string {
+  const dissipation = new Map(option.dissipation.parts.map((p) => [p.ref, p]));
+  const rows = option.components.map((c) => ({
+    ref: c.ref,
+    role: ROLE_NAMES[c.role],
+    part: c.part,
+    value: c.value ?? '',
+    unit: c.unit ?? '',
+    value_text: componentValue(c),
+    quantity: c.quantity,
+    rating_w: c.ratingW ?? '',
+    rating_v: c.ratingV ?? '',
+    tolerance: c.tolerance ?? '',
+    worst_w: dissipation.get(c.ref)?.maxW ?? '',
+    fault_w: dissipation.get(c.ref)?.faultW ?? '',
+    cost_minor: c.costCents,
+    currency,
+  }));
+  // Part labels come from the editable catalog: a cell that looks like a formula is neutralised.
+  return Papa.unparse(rows, { escapeFormulae: true, newline: '\r\n' }) + '\r\n';
+}

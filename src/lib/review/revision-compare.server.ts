@@ -1,0 +1,45 @@
+/** Two saved revisions of one brief side by side, for the compare page and its API. */
+import { z } from 'zod';
+import type { Evaluation } from '../engine';
+import { chosenOption, figureRows, inputChanges } from './compare';
+import { findRevisionWithBrief, partsCurrency } from './exports.server';
+
+export const compareQuerySchema = z.object({
+  a: z.string({ error: 'Name the first revision (a).' }).min(1, { error: 'Name the first revision (a).' }).max(64),
+  b: z.string({ error: 'Name the second revision (b).' }).min(1, { error: 'Name the second revision (b).' }).max(64),
+});
+
+export type CompareOutcome =
+  { ok: true; value: Awaited<ReturnType<typeof buildComparison>> } | { ok: false; status: 400 | 404; message: string };
+
+async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>, b: typeof a) {
+  const currency = await partsCurrency();
+  const side = (r: typeof a.revision) => ({
+    id: r.id,
+    number: r.number,
+    topology: r.topology,
+    note: r.note,
+    createdAt: r.createdAt.toISOString(),
+    input: r.input,
+    result: r.result as Evaluation,
+  });
+  const left = side(a.revision);
+  const right = side(b.revision);
+  return {
+    briefId: a.revision.briefId,
+    briefTitle: a.briefTitle,
+    a: { id: left.id, number: left.number, topology: left.topology, note: left.note, createdAt: left.createdAt },
+    b: { id: right.id, number: right.number, topology: right.topology, note: right.note, createdAt: right.createdAt },
+    inputs: inputChanges(left, right),
+    figures: figureRows(left, right, currency),
+    /** Both designs' safety cautions: a comparison shows designs too. */
+    cautions: [...(chosenOption(left)?.cautions ?? []), ...(chosenOption(right)?.cautions ?? [])],
+  };
+}
+
+export async function compareRevisions(aId: string, bId: string): Promise<CompareOutcome> {
+  const [a, b] = await Promise.all([findRevisionWithBrief(aId), findRevisionWithBrief(bId)]);
+  if (!a || !b) return { ok: false, status: 404, message: 'One of the revisions does not exist.' };
+  if (a.revision.briefId !== b.revision.briefId) return { ok: false, status: 400, message: 'Compare two revisions of the same brief.' };
+  return { ok: true, value: await buildComparison(a, b) };
+}

@@ -1,0 +1,97 @@
+import { and, desc, eq, sql } from 'drizzle-orm';
+import { railSpecIssues, evaluate, type Evaluation } from '../engine';
+import { briefWithChoices, type RevisionRequest } from './requests';
+import { agreedRequirementOf } from './agreed-requirement';
+import type { BriefRow } from '~/lib/briefs/index.server';
+import { currentCatalog } from '~/lib/catalog/index.server';
+import { db } from '../platform/db';
+import { designRevision, user, type RevisionRow } from '../platform/db/schema';
+import type { ActionResult } from '~/lib/briefs/index.server';
+
+export type { RevisionRow };
+
+/** Briefs an engineer may design for: submitted onwards, not closed. */
+const DESIGNABLE = new Set(['submitted', 'in-review', 'quoted', 'accepted', 'deposit-paid', 'in-design']);
+
+/**
+ * Re-runs the engine with the engineer's choices and stores inputs and the
+ * full result, so a revision reads the same forever, whatever the catalog becomes.
+ */
+export async function saveRevision(row: BriefRow, authorId: string, request: RevisionRequest): Promise<ActionResult<RevisionRow>> {
+  if (!DESIGNABLE.has(row.status)) return { ok: false, status: 409, message: `A brief that is ${row.status} takes no new revisions.` };
+  const parsed = briefWithChoices(row.spec, request);
+  if (!parsed.success) return { ok: false, status: 400, error: 'invalid_revision', issues: railSpecIssues(parsed.error) };
+  const result: Evaluation = evaluate(parsed.data, await currentCatalog());
+  const topology = request.topology ?? result.recommended ?? result.options[0]?.topology;
+  if (!topology)
+    return { ok: false, status: 400, error: 'invalid_revision', issues: [{ path: 'topology', message: 'No option to choose.' }] };
+
+  const saved = await db.transaction(async (tx) => {
+    const [last] = await tx
+      .select({ n: sql<number>`coalesce(max(${designRevision.number}), 0)` })
+      .from(designRevision)
+      .where(eq(designRevision.briefId, row.id));
+    const [inserted] = await tx
+      .insert(designRevision)
+      .values({
+        briefId: row.id,
+        number: Number(last?.n ?? 0) + 1,
+        authorId,
+        topology,
+        weights: parsed.data.weights,
+        overrides: parsed.data.overrides,
+        input: parsed.data,
+        result,
+        note: request.note,
+      })
+      .returning();
+    if (!inserted) throw new Error('Insert returned no row');
+    return inserted;
+  });
+  return { ok: true, value: saved };
+}
+
+/** A brief's revisions, newest first, each with the requirement it was designed to where that departs from the brief. */
+export async function listRevisions(row: Pick<BriefRow, 'id' | 'spec'>) {
+  const rows = await db
+    .select({
+      id: designRevision.id,
+      number: designRevision.number,
+      topology: designRevision.topology,
+      note: designRevision.note,
+      createdAt: designRevision.createdAt,
+      author: user.name,
+      weights: designRevision.weights,
+      overrides: designRevision.overrides,
+      input: designRevision.input,
+    })
+    .from(designRevision)
+    .leftJoin(user, eq(user.id, designRevision.authorId))
+    .where(eq(designRevision.briefId, row.id))
+    .orderBy(desc(designRevision.number));
+  return rows.map(({ input, ...r }) => ({ ...r, requirement: agreedRequirementOf(row.spec, input) }));
+}
+
+export async function findRevision(briefId: string, revisionId: string): Promise<RevisionRow | null> {
+  const [row] = await db
+    .select()
+    .from(designRevision)
+    .where(and(eq(designRevision.briefId, briefId), eq(designRevision.id, revisionId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export function revisionJson(row: RevisionRow) {
+  return {
+    id: row.id,
+    briefId: row.briefId,
+    number: row.number,
+    topology: row.topology,
+    weights: row.weights,
+    overrides: row.overrides,
+    note: row.note,
+    input: row.input,
+    result: row.result,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
