@@ -18,11 +18,15 @@ for (const brief of CORPUS) {
   clean += impossible.length === 0 ? 1 : 0;
   const f = byFamily.get(brief.family) ?? { n: 0, ok: 0 };
   byFamily.set(brief.family, { n: f.n + 1, ok: f.ok + (ok ? 1 : 0) });
-  console.log(`${ok ? 'ok  ' : 'FAIL'} ${brief.id.padEnd(30)} ${brief.family.padEnd(13)} → ${String(result.recommended).padEnd(15)} accept: ${brief.accept.join(', ')}`);
+  console.log(
+    `${ok ? 'ok  ' : 'FAIL'} ${brief.id.padEnd(30)} ${brief.family.padEnd(13)} → ${String(result.recommended).padEnd(15)} accept: ${brief.accept.join(', ')}`,
+  );
   if (!ok) {
     for (const o of result.options.filter((x) => brief.accept.includes(x.topology))) {
       const blockers = o.issues.filter((i) => i.severity === 'blocker');
-      console.log(`       ${o.topology}: ${o.feasible ? `feasible, score ${o.score} (pick scored ${result.options[0]?.score})` : blockers.map((i) => `[${i.code}] ${i.message}`).join('\n         ')}`);
+      console.log(
+        `       ${o.topology}: ${o.feasible ? `feasible, score ${o.score} (pick scored ${result.options[0]?.score})` : blockers.map((i) => `[${i.code}] ${i.message}`).join('\n         ')}`,
+      );
     }
   }
   for (const line of impossible) console.log(`       impossible: ${line}`);

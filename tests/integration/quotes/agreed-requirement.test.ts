@@ -33,7 +33,10 @@ describe('a requirement relaxed with the client’s agreement', () => {
 
   test('a relaxed figure the spec cannot take is refused with its field and nothing is saved', async () => {
     const rail = await railUnderReview(baseUrl);
-    const refused = await rail.engineer.request(`/api/v1/briefs/${rail.briefId}/revisions`, { method: 'POST', json: { requirement: { tolerance: 0.9 } } });
+    const refused = await rail.engineer.request(`/api/v1/briefs/${rail.briefId}/revisions`, {
+      method: 'POST',
+      json: { requirement: { tolerance: 0.9 } },
+    });
     expect(refused.status).toBe(400);
     const body = await refused.json();
     expect(body.issues).toEqual(expect.arrayContaining([expect.objectContaining({ path: 'output.tolerance' })]));
