@@ -41,7 +41,9 @@ describe('revisions compared side by side', () => {
     const score = compared.figures.find((f: { key: string }) => f.key === 'score');
     const buck = one.result.options.find((o: { topology: string }) => o.topology === 'buck');
     const buckBoost = two.result.options.find((o: { topology: string }) => o.topology === 'buck-boost');
-    expect(score).toEqual({ key: 'score', label: 'Score', a: buck.score.toFixed(1), b: buckBoost.score.toFixed(1), changed: true });
+    // An infeasible option carries no score and says so.
+    const scoreText = (value: number | null) => (value === null ? 'not ranked (infeasible)' : value.toFixed(1));
+    expect(score).toEqual({ key: 'score', label: 'Score', a: scoreText(buck.score), b: scoreText(buckBoost.score), changed: true });
     expect(compared.figures.find((f: { key: string }) => f.key === 'partCount')).toMatchObject({
       a: String(buck.partCount),
       b: String(buckBoost.partCount),
