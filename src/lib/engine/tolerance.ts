@@ -195,20 +195,23 @@ export function monteCarlo(
   model.batch(columns, out);
   let sum = 0;
   let inside = 0;
+  const { lo, hi } = band;
   for (let i = 0; i < draws; i += 1) {
     const v = out[i]!;
     sum += v;
-    if (v >= band.lo && v <= band.hi) inside += 1;
+    // Branch-free count: the draws fall either side of the band's edges at random.
+    inside += Number(v >= lo) & Number(v <= hi);
   }
   const mean = sum / draws;
   let squares = 0;
   const counts = new Int32Array(HISTOGRAM_BINS);
-  const width = range.max - range.min;
+  const { min } = range;
+  const width = range.max - min;
   const perBin = width > 0 ? HISTOGRAM_BINS / width : 0;
   for (let i = 0; i < draws; i += 1) {
     const v = out[i]!;
     squares += (v - mean) * (v - mean);
-    const k = Math.floor((v - range.min) * perBin);
+    const k = Math.floor((v - min) * perBin);
     counts[k < 0 ? 0 : k >= HISTOGRAM_BINS ? HISTOGRAM_BINS - 1 : k]! += 1;
   }
   return {
