@@ -61,7 +61,9 @@ function uniforms(seed: number, length: number): Float64Array {
 }
 
 export function nominalValue(model: ToleranceModel): number {
-  return model.f(Float64Array.from(model.params, (p) => p.nominal));
+  const x = new Float64Array(model.params.length);
+  for (let j = 0; j < x.length; j += 1) x[j] = model.params[j]!.nominal;
+  return model.f(x);
 }
 
 /** Smallest and largest output over every vertex of the tolerance box (2ⁿ combinations). */
