@@ -61,18 +61,19 @@ interface JunctionFigures {
 
 /** The junction temperature, or past the limit the dissipation the part could carry: never a temperature beyond it. */
 function traceJunction(trace: Trace, ref: string, part: ThermalPart, sinkCW: number | null, f: JunctionFigures): void {
-  const common = { Ta: [f.ambientC, '°C'], kair: [f.airflow, ''] } as const;
-  const bare = { ...common, θJA: [part.thetaJaCW, 'K/W'] } as const;
-  const sunk = { ...common, θJC: [part.thetaJcCW, 'K/W'], θCS: [f.thetaCs, 'K/W'], θSA: [sinkCW ?? 0, 'K/W'] } as const;
+  const Ta = [f.ambientC, '°C'] as const;
+  const kair = [f.airflow, ''] as const;
+  // Only the inputs of the path taken are built.
+  const thetas = sinkCW === null ? { Ta, kair, θJA: [part.thetaJaCW, 'K/W'] as const } : { Ta, kair, θJC: [part.thetaJcCW, 'K/W'] as const, θCS: [f.thetaCs, 'K/W'] as const, θSA: [sinkCW, 'K/W'] as const };
   if (f.beyond) {
     const label = `Largest dissipation ${ref} carries within its ${part.tjMaxC} °C limit (it would dissipate ${formatSi(f.power, 'W', 3)})`;
     const theta = sinkCW === null ? part.thetaJaCW * f.airflow : part.thetaJcCW + f.thetaCs + sinkCW * f.airflow;
     const equation = sinkCW === null ? 'Plimit = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Plimit = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
-    trace.add(`${ref}.plimit`, label, equation, { ...(sinkCW === null ? bare : sunk), 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
+    trace.add(`${ref}.plimit`, label, equation, { ...thetas, 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
   } else if (sinkCW === null) {
-    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·θJA·kair', { ...bare, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]), '°C');
+    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·θJA·kair', { ...thetas, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]), '°C');
   } else {
-    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·(θJC + θCS + θSA·kair)', { ...sunk, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJcCW, f.thetaCs, sinkCW * f.airflow]), '°C');
+    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·(θJC + θCS + θSA·kair)', { ...thetas, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJcCW, f.thetaCs, sinkCW * f.airflow]), '°C');
   }
 }
 

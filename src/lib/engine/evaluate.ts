@@ -35,8 +35,8 @@ export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Eva
   const ctx = makeContext(spec, catalog);
   const seed = spec.overrides.seed ?? DEFAULT_SEED;
   const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
-  const ranked = rankOptions(options);
+  const ranked = rankOptions(options, spec);
   const best = ranked[0];
   const weights = effectiveWeights(spec.weights, spec);
-  return { recommended: best && best.feasible ? best.topology : null, reason: pickReason(ranked, weights), options: ranked };
+  return { recommended: best && best.feasible ? best.topology : null, reason: pickReason(ranked, weights, spec), options: ranked };
 }

@@ -67,12 +67,12 @@ export function subScores(s: ScoreInputs): SubScores {
 /**
  * The brief's weights with part count and cost weighing more on a small rail: ×1 at 1 W and above,
  * up to ×3 at 10 mW and below (a small rail is judged by its size and price more than its loss).
- * Not on a battery, where the loss is the battery's life however small the rail.
+ * On a battery, where the loss is the battery's life however small the rail, half as much: up to ×2.
  */
 export function effectiveWeights(weights: RailSpec['weights'], spec: Pick<RailSpec, 'input' | 'output'>): RailSpec['weights'] {
-  if (spec.input.source === 'battery') return weights;
   const pOutMaxW = spec.output.v * spec.output.iMax;
-  const small = 1 + Math.min(2, Math.max(0, Math.log10(1 / Math.max(pOutMaxW, 1e-12))));
+  const strength = spec.input.source === 'battery' ? 0.5 : 1;
+  const small = 1 + strength * Math.min(2, Math.max(0, Math.log10(1 / Math.max(pOutMaxW, 1e-12))));
   return { ...weights, partCount: weights.partCount * small, cost: weights.cost * small };
 }
 
@@ -97,20 +97,57 @@ function compareInfeasible(a: Option, b: Option): number {
 }
 
 /**
- * Feasible options best first, where a score within TIE_POINTS of the best still unranked counts
- * as a tie that the simpler topology (the fixed order runs from simplest to most complex) wins;
- * then every infeasible option, which carries no score.
+ * Points a topology must win by before an engineer takes it over a simpler feasible one that fits
+ * the job. Four switches and a mode-changing controller earn their place only where the input
+ * straddles the output; where a plain buck or boost regulates over the whole range it is the
+ * usual answer (common practice).
  */
-export function rankOptions(options: readonly Option[]): Option[] {
-  const pending = options
-    .filter((o) => o.feasible)
-    .sort((a, b) => (b.score ?? 0) - (a.score ?? 0) || simplicity(a.topology) - simplicity(b.topology));
+export const STRADDLE_MARGIN_POINTS = 8;
+/**
+ * On an RF or precision-analog rail a linear output stage (alone or after a switcher) is the usual
+ * answer: a filtered switching output also carries switching spikes and radiated noise that its
+ * ripple figure leaves out (common practice). A bare switcher must win by this much to be picked.
+ */
+export const QUIET_RAIL_MARGIN_POINTS = 10;
+
+const LINEAR_OUTPUT = new Set<TopologyId>(['shunt', 'linear', 'linear-predrop', 'buck+linear']);
+const BARE_SWITCHER = new Set<TopologyId>(['buck', 'boost', 'buck-boost']);
+
+/** Why an option is handicapped in the ranking (points and the sentence that says so), if it is. */
+export function rankingHandicap(option: Option, feasible: readonly Option[], spec?: Pick<RailSpec, 'noise'>): { points: number; why: string } | null {
+  const has = (t: TopologyId) => feasible.some((o) => o.topology === t);
+  if (spec && (spec.noise.class === 'rf' || spec.noise.class === 'precision') && BARE_SWITCHER.has(option.topology) && feasible.some((o) => LINEAR_OUTPUT.has(o.topology))) {
+    return {
+      points: QUIET_RAIL_MARGIN_POINTS,
+      why: `on an ${spec.noise.class === 'rf' ? 'RF' : 'precision-analog'} rail a linear output stage is preferred to a filtered switching output unless the switcher wins by more than ${QUIET_RAIL_MARGIN_POINTS} points (common practice)`,
+    };
+  }
+  if (option.topology === 'buck-boost' && (has('buck') || has('boost'))) {
+    return {
+      points: STRADDLE_MARGIN_POINTS,
+      why: `a plain ${has('buck') ? 'buck' : 'boost'} regulates over the whole input range, and a buck-boost is taken over it only when it wins by more than ${STRADDLE_MARGIN_POINTS} points (common practice)`,
+    };
+  }
+  return null;
+}
+
+/**
+ * Feasible options best first by score less any handicap (see rankingHandicap), where a result
+ * within TIE_POINTS of the best still unranked counts as a tie that the simpler topology (the
+ * fixed order runs from simplest to most complex) wins; then every infeasible option, which
+ * carries no score.
+ */
+export function rankOptions(options: readonly Option[], spec?: Pick<RailSpec, 'noise'>): Option[] {
+  const feasible = options.filter((o) => o.feasible);
+  const standing = new Map(feasible.map((o) => [o, (o.score ?? 0) - (rankingHandicap(o, feasible, spec)?.points ?? 0)]));
+  const at = (o: Option) => standing.get(o) ?? 0;
+  const pending = [...feasible].sort((a, b) => at(b) - at(a) || simplicity(a.topology) - simplicity(b.topology));
   const ranked: Option[] = [];
   while (pending.length > 0) {
-    const top = pending[0]!.score ?? 0;
+    const top = at(pending[0]!);
     let pick = 0;
     pending.forEach((o, k) => {
-      if (top - (o.score ?? 0) <= TIE_POINTS && simplicity(o.topology) < simplicity(pending[pick]!.topology)) pick = k;
+      if (top - at(o) <= TIE_POINTS && simplicity(o.topology) < simplicity(pending[pick]!.topology)) pick = k;
     });
     ranked.push(...pending.splice(pick, 1));
   }
@@ -126,7 +163,7 @@ const SUB_SCORE_WORDS: Record<keyof SubScores, string> = {
 };
 
 /** In words, why the first option of a ranked list is the pick. */
-export function pickReason(ranked: readonly Option[], weights: RailSpec['weights']): string {
+export function pickReason(ranked: readonly Option[], weights: RailSpec['weights'], spec?: Pick<RailSpec, 'noise'>): string {
   const [pick, next] = ranked;
   if (!pick || !pick.feasible) return 'No option meets every requirement; each one lists its blockers and, where a change clears them, what it costs.';
   const blocked = ranked.filter((o) => !o.feasible).map((o) => o.topology);
@@ -134,6 +171,11 @@ export function pickReason(ranked: readonly Option[], weights: RailSpec['weights
   if (!next || !next.feasible) return `${pick.label} is the only option that meets every requirement.${blockedText}`;
   const a = pick.score ?? 0;
   const b = next.score ?? 0;
+  const passedOver = ranked.find((o) => o.feasible && (o.score ?? 0) > a + TIE_POINTS);
+  const handicap = passedOver ? rankingHandicap(passedOver, ranked.filter((o) => o.feasible), spec) : null;
+  if (passedOver && handicap) {
+    return `${pick.label} (score ${a.toFixed(1)}) is preferred to ${passedOver.label} (${(passedOver.score ?? 0).toFixed(1)}): ${handicap.why}.${blockedText}`;
+  }
   if (b >= a) {
     return `${pick.label} (score ${a.toFixed(1)}) and ${next.label} (${b.toFixed(1)}) are within ${TIE_POINTS} point: a tie, which the simpler topology wins.${blockedText}`;
   }

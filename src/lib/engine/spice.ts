@@ -98,12 +98,11 @@ function buck(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   return [...buckStageLines(net, corner.vIn, corner.iOut, 'out'), ...loadedOutput(option, net, corner)];
 }
 
-/** Boost: the inductor from the input to the switch node, a low-side switch, the rectifier to the output. */
-function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
-  const net = switcherParts(option, catalog);
-  const p = boostPoint({ ...net.stage, rdsOnOhm: net.rds }, corner.vIn, net.vOut, corner.iOut, net.fsw, net.henries, net.dcr);
+/** Boost power stage: the inductor from the input to the switch node, a low-side switch, the rectifier to `node`. */
+function boostStageLines(net: SwitcherParts, vIn: number, iOut: number, node: string): string[] {
+  const p = boostPoint({ ...net.stage, rdsOnOhm: net.rds }, vIn, net.vOut, iOut, net.fsw, net.henries, net.dcr);
   const lines = [
-    `V1 in 0 DC ${num(corner.vIn)}`,
+    `V1 in 0 DC ${num(vIn)}`,
     gateDrive(net, p.d),
     `Vsense in nl DC 0`,
     `L${net.l1.ref} nl nl2 ${num(net.henries)} IC=${num(valley(p.inductorA, p.rippleA))}`,
@@ -111,9 +110,14 @@ function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] 
     `S1 sw 0 g 0 SWHI`,
     SWITCH_ON_HIGH(net.rds),
   ];
-  if (net.stage.rectification === 'sync') lines.push(`S2 sw out 0 g SWLO`, SWITCH_ON_LOW(net.rds));
-  else lines.push(`Drect sw out DRECT`, diodeModel('DRECT', corner.iOut, net.vf));
-  return [...lines, ...loadedOutput(option, net, corner)];
+  if (net.stage.rectification === 'sync') lines.push(`S2 sw ${node} 0 g SWLO`, SWITCH_ON_LOW(net.rds));
+  else lines.push(`Drect sw ${node} DRECT`, diodeModel('DRECT', iOut, net.vf));
+  return lines;
+}
+
+function boost(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
+  const net = switcherParts(option, catalog);
+  return [...boostStageLines(net, corner.vIn, corner.iOut, 'out'), ...loadedOutput(option, net, corner)];
 }
 
 /**
@@ -152,7 +156,7 @@ function buckBoost(option: Option, corner: SpiceCorner, catalog: Catalog): strin
 }
 
 /**
- * Buck (or four-switch buck-boost, where the input can fall below the bus) to the intermediate rail
+ * The converter that fits the input (buck, boost or four-switch buck-boost) to the intermediate rail
  * `bus`, then the post-regulator from `bus` to `out`. The stage carries the regulator's input
  * current: the load, its divider, adjust-pin and ground-pin currents.
  */
@@ -161,7 +165,7 @@ function buckLinear(option: Option, corner: SpiceCorner, catalog: Catalog): stri
   const reg = byRole(option, 'regulator')[0]!;
   const iBus = regulatorInputCurrent(regulatorParts(option, reg.ref, catalog), corner.iOut);
   const bus = outputNetwork(option, net, 'bus', iBus);
-  const stage = net.stage.converter === 'buck-boost' ? buckBoostStageLines : buckStageLines;
+  const stage = { buck: buckStageLines, boost: boostStageLines, 'buck-boost': buckBoostStageLines }[net.stage.converter];
   return [
     ...stage(net, corner.vIn, iBus, 'bus'),
     ...bus.lines,

@@ -29,31 +29,33 @@ function scratchFor(length: number): Float64Array {
   return scratch;
 }
 
-// Every evaluation with the same seed draws the same uniform numbers (each topology has its own
-// seed), so a stream of this length is generated once and kept, for a handful of seeds; longer
-// streams (a large Monte Carlo) are generated into a reused buffer.
-const KEPT_STREAM_LENGTH = 1 << 17;
-const KEPT_STREAMS = 8;
-const streams = new Map<number, Float64Array>();
-let longStream = new Float64Array(0);
-
-/** At least the first `length` numbers in [0, 1) of the seeded mulberry32 stream (a small, well-mixed generator). */
-function uniforms(seed: number, length: number): Float64Array {
-  const kept = streams.get(seed);
-  if (kept && kept.length >= length) return kept;
-  const keep = length <= KEPT_STREAM_LENGTH;
-  if (!keep && longStream.length < length) longStream = new Float64Array(length);
-  const u = keep ? new Float64Array(KEPT_STREAM_LENGTH) : longStream;
-  const end = keep ? KEPT_STREAM_LENGTH : length;
-  let state = seed >>> 0;
-  for (let i = 0; i < end; i += 1) {
+/**
+ * Writes lo + span·u for the numbers u in [0, 1) at positions start, start + 1, … of the seeded
+ * mulberry32 stream (a small, well-mixed generator, inlined: this is the engine's hot loop). Its
+ * state is a counter, so any stretch of the stream starts at seed + start·step.
+ */
+function drawUniform(target: Float64Array, seed: number, start: number, lo: number, span: number): void {
+  let state = ((seed >>> 0) + Math.imul(start, 0x6d2b79f5)) >>> 0;
+  for (let i = 0; i < target.length; i += 1) {
     state = (state + 0x6d2b79f5) >>> 0;
     let t = state;
     t = Math.imul(t ^ (t >>> 15), t | 1);
     t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    u[i] = ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+    target[i] = lo + span * (((t ^ (t >>> 14)) >>> 0) / 4294967296);
   }
-  if (keep) {
+}
+
+// Every evaluation with the same seed draws the same uniform numbers (each topology has its own
+// seed), so the start of a seed's stream is generated once and kept, for a handful of seeds.
+const KEPT_STREAM_LENGTH = 1 << 17;
+const KEPT_STREAMS = 8;
+const streams = new Map<number, Float64Array>();
+
+function keptStream(seed: number): Float64Array {
+  let u = streams.get(seed);
+  if (!u) {
+    u = new Float64Array(KEPT_STREAM_LENGTH);
+    drawUniform(u, seed, 0, 0, 1);
     if (streams.size >= KEPT_STREAMS) streams.clear();
     streams.set(seed, u);
   }
@@ -61,7 +63,9 @@ function uniforms(seed: number, length: number): Float64Array {
 }
 
 export function nominalValue(model: ToleranceModel): number {
-  return model.f(Float64Array.from(model.params, (p) => p.nominal));
+  const x = new Float64Array(model.params.length);
+  for (let j = 0; j < x.length; j += 1) x[j] = model.params[j]!.nominal;
+  return model.f(x);
 }
 
 /** Smallest and largest output over every vertex of the tolerance box (2ⁿ combinations). */
@@ -180,8 +184,9 @@ export function monteCarlo(
   const n = model.params.length;
   const buffer = scratchFor((n + 1) * draws);
   const columns: Float64Array[] = [];
-  // Column by column, so each parameter's draws come from consecutive numbers of one seeded stream.
-  const u = uniforms(seed, n * draws);
+  // Column by column, so each parameter's draws come from consecutive numbers of one seeded stream
+  // (a large Monte Carlo generates its own numbers rather than keep them).
+  const u = n * draws <= KEPT_STREAM_LENGTH ? keptStream(seed) : null;
   for (let j = 0; j < n; j += 1) {
     const p = model.params[j]!;
     const lo = p.lo;
@@ -189,26 +194,30 @@ export function monteCarlo(
     const column = buffer.subarray(j * draws, (j + 1) * draws);
     columns.push(column);
     const offset = j * draws;
-    for (let i = 0; i < draws; i += 1) column[i] = lo + span * u[offset + i]!;
+    if (u === null) drawUniform(column, seed, offset, lo, span);
+    else for (let i = 0; i < draws; i += 1) column[i] = lo + span * u[offset + i]!;
   }
   const out = buffer.subarray(n * draws, (n + 1) * draws);
   model.batch(columns, out);
   let sum = 0;
   let inside = 0;
+  const { lo, hi } = band;
   for (let i = 0; i < draws; i += 1) {
     const v = out[i]!;
     sum += v;
-    if (v >= band.lo && v <= band.hi) inside += 1;
+    // Branch-free count: the draws fall either side of the band's edges at random.
+    inside += Number(v >= lo) & Number(v <= hi);
   }
   const mean = sum / draws;
   let squares = 0;
   const counts = new Int32Array(HISTOGRAM_BINS);
-  const width = range.max - range.min;
+  const { min } = range;
+  const width = range.max - min;
   const perBin = width > 0 ? HISTOGRAM_BINS / width : 0;
   for (let i = 0; i < draws; i += 1) {
     const v = out[i]!;
     squares += (v - mean) * (v - mean);
-    const k = Math.floor((v - range.min) * perBin);
+    const k = Math.floor((v - min) * perBin);
     counts[k < 0 ? 0 : k >= HISTOGRAM_BINS ? HISTOGRAM_BINS - 1 : k]! += 1;
   }
   return {

@@ -241,3 +241,55 @@ describe('input robustness cautions carry values', () => {
     expect(d.issues.some((i) => i.code === 'surge')).toBe(false);
   });
 });
+
+describe('post-regulated switcher: the converter that fits the input, its ripple by the rejection at fsw', () => {
+  test('quiet step-up rail (5 V → 12 V, rf, 50 mA): a boost stage ahead of the post-regulator', () => {
+    const d = designSwitcherLinear(ctxOf({ ...brief(4.75, 5, 5.25, 12, 0.05), noise: { class: 'rf' } }));
+    expect(d.label).toMatch(/^Boost converter with linear post-regulator/);
+    expect(blockers(d)).toEqual([]);
+  });
+
+  test('Li-ion → 3.3 V, rf: the bus straddles the cell, so a four-switch buck-boost', () => {
+    const d = designSwitcherLinear(ctxOf({ ...brief(3, 3.7, 4.2, 3.3, 0.1), input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' }, noise: { class: 'rf' } }));
+    expect(d.label).toMatch(/^Four-switch buck-boost converter with linear post-regulator/);
+    expect(blockers(d)).toEqual([]);
+  });
+
+  test('the post-regulator is credited with its rejection at the switching frequency, not a flat figure', () => {
+    const d = designSwitcherLinear(ctxOf({ ...brief(10.8, 12, 13.2, 5, 0.6), noise: { class: 'rf' } }));
+    const reg = d.parts.find((p) => p.role === 'regulator')!;
+    const cls = defaultCatalog.linearRegulators.find((c) => reg.part.startsWith(c.label))!;
+    const fsw = d.assumptions[`${part(d, 'switch').ref}.fsw`]!.value;
+    // Single-pole roll-off (common practice): PSRR(f) = PSRRhf + 20·log10(1 MHz/f), capped at the low-frequency figure.
+    const psrr = Math.min(cls.kind === 'adjustable' ? cls.psrrBypassDb : cls.psrrDb, cls.psrrHfDb + 20 * Math.log10(1e6 / fsw));
+    const ripple = traced(d, `${reg.ref}.ripple`);
+    expect(ripple.inputs.PSRR!.value).toBeCloseTo(Math.max(cls.psrrHfDb, psrr), 9);
+  });
+});
+
+describe('briefs the switcher search must make buildable', () => {
+  test('9–36 V → 12 V ±5 %, 0.5 A: the 60 V four-switch controller takes a bus the 36 V part cannot (36 V > 28.8 V derated)', () => {
+    const d = designBuckBoost(ctxOf({ ...brief(9, 24, 36, 12, 0.5), output: { v: 12, tolerance: 0.05, iMin: 0.01, iTyp: 0.25, iMax: 0.5 } }));
+    expect(part(d, 'switch').part).toMatch(/60 V/);
+    expect(blockers(d)).toEqual([]);
+  });
+
+  test('24 V → 5 V ±2 %, 1 A, rf: the post-regulator class is one whose reference holds ±2 % at 1 A', () => {
+    const d = designSwitcherLinear(ctxOf({ ...brief(22, 24, 26, 5, 1), output: { v: 5, tolerance: 0.02, iMin: 0.02, iTyp: 0.5, iMax: 1 }, noise: { class: 'rf' } }));
+    expect(part(d, 'regulator').part).toMatch(/Precision low-dropout adjustable regulator, 1\.5 A/);
+    expect(blockers(d)).toEqual([]);
+  });
+
+  test('90–110 V → 48 V ±3 %, 50 mA: a class whose ±1 % feedback holds the band, not the off-line part\'s ±3 %', () => {
+    const d = designBuck(ctxOf({ ...brief(90, 100, 110, 48, 0.05), output: { v: 48, tolerance: 0.03, iMin: 0.001, iTyp: 0.025, iMax: 0.05 } }));
+    expect(part(d, 'switch').part).toMatch(/150 V/);
+    // 110 V × 1.25 = 137.5 V of rating needed: the 100 V classes are out, the 150 V one fits.
+    expect(blockers(d)).toEqual([]);
+  });
+
+  test('two AA cells (2.1–3.2 V) → 1.8 V, 50 mA: a buck class that starts from 1.8 V', () => {
+    const d = designBuck(ctxOf({ ...brief(2.1, 2.6, 3.2, 1.8, 0.05), input: { vMin: 2.1, vNom: 2.6, vMax: 3.2, source: 'battery' } }));
+    expect(part(d, 'switch').part).toMatch(/from 1\.8 V/);
+    expect(blockers(d).map((i) => i.code)).not.toContain('input-min');
+  });
+});

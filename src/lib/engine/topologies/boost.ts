@@ -3,8 +3,8 @@
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { Refs, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
-import { chooseInductor, coreLossW, inductorDcr, snapInductance } from '../inductors.ts';
+import { Refs, caution, makePart, type Design, type DesignPart, type PartStress } from '../design.ts';
+import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
@@ -22,21 +22,24 @@ import {
   outputBank,
   peakFinding,
   postFilter,
-  postFilterDcr,
-  railBand,
   boostSegments,
   ripplePeakToPeak,
   rippleReference,
   stageRefs,
   thermalFinding,
-  stageRippleLimit,
   stepCapacitance,
   switcherFeedback,
+  converterDesign,
+  feedbackNeed,
+  quietRail,
+  railRequest,
   traceRds,
-  searchClasses,
+  searchStage,
   sizingIssues,
   traceStep,
   voltageFits,
+  type ConverterStage,
+  type StageRequest,
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
@@ -120,16 +123,21 @@ export function boostRipple(iOut: number, d: number, peakA: number, fsw: number,
   return (iOut * d) / (fsw * capF) + peakA * esrOhm;
 }
 
+interface Load {
+  iMin: number;
+  iTyp: number;
+  iMax: number;
+}
+
 interface BoostSizing extends SizingBase {
   low: BoostPoint;
   point(vIn: number, iOut: number): BoostPoint;
 }
 
-function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, vOut: number): BoostSizing {
+function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BoostSizing {
   const { catalog, spec } = ctx;
-  const { vMax } = spec.input;
-  const { iMax } = spec.output;
-  const vLow = ctx.vInTrough;
+  const { vMax, vTrough: vLow } = input;
+  const { iMax } = load;
   const dLow = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
   const ilMax = iMax / (1 - dLow);
   const lWanted = (vLow * dLow) / (fsw * RIPPLE_RATIO * rippleReference(base, ilMax));
@@ -161,7 +169,7 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
     const onTime = onTimeFinding(stage, fsw, high.d, `At ${vMax} V in`);
     if (onTime) findings.push(onTime);
   }
-  const budget = RIPPLE_BUDGET * stageRippleLimit(ctx, spec.noise.maxRippleVpp, true, vOut);
+  const budget = RIPPLE_BUDGET * rippleLimit;
   const cNeed = Math.max((iMax * low.d) / (fsw * (budget / 2)), stepCapacitance(ctx, fsw));
   // Output capacitor RMS: Iout·√(D/(1 − D)) (common practice for the boost's pulsed output current).
   const cout = outputBank(ctx, r.cout, cNeed, vOut, iMax * Math.sqrt(low.d / Math.max(1e-3, 1 - low.d)), budget / (2 * Math.max(low.peakA, 1e-9)));
@@ -170,61 +178,65 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   findings.push(...capacitorFindings(cout, cin));
   const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
   const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
-  const nominal = point(Math.min(spec.input.vNom, vOut), spec.output.iTyp);
+  const nominal = point(Math.min(Math.max(spec.input.vNom, vLow), vMax, vOut), load.iTyp);
   return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
 }
 
-export function designBoost(ctx: Context): Design {
-  const { spec, catalog } = ctx;
-  const trace = new Trace();
-  const refs = new Refs();
-  const { vMax } = spec.input;
-  const { iMax } = spec.output;
+export interface BoostStage extends ConverterStage {
+  inductor: ChosenInductor;
+  /** Current a shorted output draws, limited only by the fuse the caution asks for (about Isat). */
+  faultA: number;
+}
+
+export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BoostStage {
+  const { catalog } = ctx;
+  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
+  const { vMax, vTrough: vLow } = input;
+  const { iMax } = load;
   const r = stageRefs(refs);
-  const s = searchClasses(ctx, 'boost', (stage, fsw) => sizeBoost(ctx, r, stage, fsw, spec.output.v), (stage) => voltageFits(stage, vMax, spec.output.v + stage.diodeVfV));
+  const quiet = quietRail(ctx);
+  const need = feedbackNeed(ctx, req);
+  const s = searchStage(ctx, req, 'boost', (stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV));
   const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
-  const budget = RIPPLE_BUDGET * spec.noise.maxRippleVpp;
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
   const estimate = boostRipple(iMax, low.d, low.peakA, fsw, cout.effectiveF, cout.esrOhm);
-  const filtered = quiet || estimate > budget;
-  const fb = switcherFeedback(ctx, r, trace, stage, {
-    vTarget: spec.output.v, band: railBand(spec), load: spec.output, dcrAfterFb: filtered ? postFilterDcr(ctx, iMax) : 0, marginV: filtered ? 0 : estimate / 2,
-  }, 'boost');
+  const filtered = allowPostFilter && (quiet || estimate > budget);
+  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
   const vOut = fb.divider.vOut;
   const { issues, fixes } = sizingIssues(s);
 
-  const vLow = ctx.vInTrough;
-  traceRds(trace, 'boost.rds', s.rds25, s.tjC, stage.rdsOnOhm);
-  trace.add('boost.l', 'Inductance for the ripple ratio at the lowest input', 'L = Vin·D/(fsw·r·Iref)', {
-    Vin: [vLow, 'V'], D: [Math.min(0.99, Math.max(0, 1 - vLow / spec.output.v)), ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, iMax / (1 - Math.min(0.99, Math.max(0, 1 - vLow / spec.output.v)))), 'A'],
+  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
+  const dIdeal = Math.min(0.99, Math.max(0, 1 - vLow / vTarget));
+  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the lowest input', 'L = Vin·D/(fsw·r·Iref)', {
+    Vin: [vLow, 'V'], D: [dIdeal, ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, iMax / (1 - dIdeal)), 'A'],
   }, s.lWanted, 'H');
   const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
   const worst = point(vLow, iMax);
   if (worst.mode !== 'dcm') {
-    trace.add('boost.d', 'Duty cycle at the lowest input', 'D = min(0.99, max(0, 1 − η·Vin/Vout))', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
-    trace.add('boost.ipk', 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
+    trace.add(`${idPrefix}.d`, 'Duty cycle at the lowest input', 'D = min(0.99, max(0, 1 − η·Vin/Vout))', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
+    trace.add(`${idPrefix}.ipk`, 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
   } else {
-    trace.add('boost.d', 'Duty cycle at the lowest input (discontinuous conduction)', 'D = min(1, √(K·M·(M − 1))), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
+    trace.add(`${idPrefix}.d`, 'Duty cycle at the lowest input (discontinuous conduction)', 'D = min(1, √(K·M·(M − 1))), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
       Vout: [vOut, 'V'], Vin: [vLow, 'V'], L: [inductor.henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iMax, 'A'],
     }, worst.d, '');
-    trace.add('boost.ipk', 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');
+    trace.add(`${idPrefix}.ipk`, 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');
   }
-  trace.add('boost.cout', 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
+  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
     C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
   }, cout.effectiveF, 'F');
-  trace.add('boost.cout.rms', 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
+  trace.add(`${idPrefix}.cout.rms`, 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
   // Iout·D/(fsw·C) + Ipk·ESR is no bound once the inductor's valley dips below the load: the
   // capacitor then keeps discharging after the switch opens. The exact waveform is used.
-  const rippleStage = trace.select('boost.ripple', 'Converter output ripple at the lowest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = −Iout while the switch conducts, then the inductor current less the load', {
+  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple at the lowest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = −Iout while the switch conducts, then the inductor current less the load', {
     Iout: [iMax, 'A'], D: [worst.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], Ipk: [worst.peakA, 'A'], ΔIL: [worst.rippleA, 'A'], ESR: [cout.esrOhm, 'Ω'],
   }, ripplePeakToPeak(boostSegments(worst.mode, worst.d, worst.peakA, worst.rippleA, iMax, fsw), cout.effectiveF, cout.esrOhm), 'V');
-  const step = traceStep(ctx, trace, 'boost.step', fsw, cout);
+  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
   if (step) {
     issues.push(step.issue);
     if (step.fix) fixes.push(step.fix);
   }
-  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, iMax, cout.effectiveF, 'boost') : null;
+  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, iMax, cout.effectiveF, idPrefix) : null;
   if (post) issues.push(...post.issues);
 
   const uRef = r.u;
@@ -278,27 +290,27 @@ export function designBoost(ctx: Context): Design {
   };
   // Shorted output: the inductor current is limited by the fuse the caution asks for (≈ Isat).
   const faultA = inductor.isatA;
-  const faultStress = stress(vMax, 0);
-  faultStress[inductor.part.ref] = { w: faultA * faultA * inductor.dcrOhm, v: vMax };
-  faultStress[cout.part.ref] = { w: 0, v: 0 };
-  faultStress[uRef] = { w: sync ? faultA * faultA * stage.rdsOnOhm : 0, v: vMax };
-  if (!sync) faultStress[dRef] = { w: stage.diodeVfV * faultA, v: vMax };
+  const faultStress = (vIn: number): Record<string, PartStress> => {
+    const st = stress(vIn, 0);
+    st[inductor.part.ref] = { w: faultA * faultA * inductor.dcrOhm, v: vIn };
+    st[cout.part.ref] = { w: 0, v: 0 };
+    st[uRef] = { w: sync ? faultA * faultA * stage.rdsOnOhm : 0, v: vIn };
+    if (!sync) st[dRef] = { w: stage.diodeVfV * faultA, v: vIn };
+    return st;
+  };
   const window = dutyWindow(stage, fsw);
-
   return {
-    topology: 'boost',
-    label: `Boost converter (${sync ? 'synchronous' : 'output diode'})${post ? ' with post-filter' : ''}`,
+    stage,
+    fsw,
+    vOut,
+    inductor,
+    post,
     parts,
     issues,
     fixes,
-    trace,
-    operate: (vIn, iOut): OperatingPoint => {
-      const p = point(vIn, iOut);
-      return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
-    },
-    fault: { regulates: false, pInW: vMax * faultA, pOutW: 0, stress: faultStress },
-    output: fb.output,
+    faultA,
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
+    output: fb.output,
     assumptions: {
       [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },
       [`${uRef}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
@@ -309,5 +321,19 @@ export function designBoost(ctx: Context): Design {
       [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
       [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
     },
+    operate: (vIn, iOut) => {
+      const p = point(vIn, iOut);
+      return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+    },
+    faultStress,
   };
+}
+
+export function designBoost(ctx: Context): Design {
+  const { spec } = ctx;
+  const trace = new Trace();
+  const refs = new Refs();
+  const b = boostStage(ctx, refs, trace, railRequest(ctx, 'boost'));
+  const label = `Boost converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'output diode'})`;
+  return converterDesign('boost', label, b, trace, { regulates: false, pInW: spec.input.vMax * b.faultA, pOutW: 0, stress: b.faultStress(spec.input.vMax) });
 }

@@ -4,12 +4,10 @@ import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, type Fix, info, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { Refs, info, makePart, type Design, type PartStress } from '../design.ts';
 import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { cycleLosses, sumCycle } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
-import type { Issue, Quantity } from '../types.ts';
-import type { ToleranceModel } from '../tolerance.ts';
 import { boostPoint, boostRipple } from './boost.ts';
 import { buckPoint, buckRipple } from './buck.ts';
 import { inputCautions } from './switcher-input.ts';
@@ -26,23 +24,25 @@ import {
   outputBank,
   peakFinding,
   postFilter,
-  postFilterDcr,
-  railBand,
   boostSegments,
   buckSegments,
   ripplePeakToPeak,
   rippleReference,
   stageRefs,
   thermalFinding,
-  stageRippleLimit,
   stepCapacitance,
   switcherFeedback,
+  converterDesign,
+  feedbackNeed,
+  quietRail,
+  railRequest,
   traceRds,
-  searchClasses,
+  searchStage,
   sizingIssues,
   traceStep,
   voltageFits,
-  type PostFilter,
+  type ConverterStage,
+  type StageRequest,
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
@@ -108,8 +108,10 @@ export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, 
     // The output takes the inductor current only after D2: its average there is Iout (charge
     // balance), which fixes the starting current i0; the period average follows.
     const i0 = (iOut - ((u1 + u2) * (d1 - d2) + u2 * (1 - d1)) / 2) / (1 - d2);
-    il = i0 + (u1 * d2 + (u1 + u2) * (d1 - d2) + u2 * (1 - d1)) / 2;
-    peak = i0 + Math.max(0, u1, u2);
+    // A sourcing stage's inductor never averages below zero (the model's charge balance can dip
+    // under it at light load, or run away where the drops exceed the input): it stops there.
+    il = Math.max(0, i0 + (u1 * d2 + (u1 + u2) * (d1 - d2) + u2 * (1 - d1)) / 2);
+    peak = Math.max(0, i0 + Math.max(0, u1, u2));
     ripple = Math.max(0, u1, u2) - Math.min(0, u1, u2);
     const irms2 = il * il + (ripple * ripple) / 12;
     conduction = irms2 * 2 * stage.rdsOnOhm;
@@ -192,50 +194,26 @@ function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: num
   return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, high, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
 }
 
-export interface BuckBoostStage {
-  stage: SwitcherClass;
-  fsw: number;
-  vOut: number;
+export interface BuckBoostStage extends ConverterStage {
   inductor: ChosenInductor;
   cout: ChosenCapacitor;
-  post: PostFilter | null;
-  parts: DesignPart[];
-  issues: Issue[];
-  fixes: Fix[];
   switchRef: string;
-  rippleVpp: number;
-  output: ToleranceModel;
-  assumptions: Record<string, Quantity>;
   point(vIn: number, iOut: number): BuckBoostPoint;
-  regulates(p: BuckBoostPoint): boolean;
   stress(vIn: number, iOut: number, at?: BuckBoostPoint): Record<string, PartStress>;
-  faultStress(vIn: number): Record<string, PartStress>;
 }
 
-export function buckBoostStage(
-  ctx: Context,
-  refs: Refs,
-  trace: Trace,
-  input: { vTrough: number; vMax: number },
-  vTarget: number,
-  load: Load,
-  rippleLimit: number,
-  allowPostFilter: boolean,
-  idPrefix: string,
-  band: { lo: number; hi: number },
-): BuckBoostStage {
+export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BuckBoostStage {
   const { spec, catalog } = ctx;
+  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
   const r = stageRefs(refs);
-  const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
-  const s = searchClasses(ctx, 'buck-boost', (stage, fsw) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)));
+  const quiet = quietRail(ctx);
+  const need = feedbackNeed(ctx, req);
+  const s = searchStage(ctx, req, 'buck-boost', (stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)));
   const { stage, fsw, inductor, cout, cin } = s;
-  const budget = RIPPLE_BUDGET * rippleLimit;
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
   const estimate = Math.max(buckBoostRipple(s.low, load.iMax, fsw, cout.effectiveF, cout.esrOhm), buckBoostRipple(s.high, load.iMax, fsw, cout.effectiveF, cout.esrOhm));
   const filtered = allowPostFilter && (quiet || estimate > budget);
-  const fb = switcherFeedback(ctx, r, trace, stage, {
-    vTarget, band, load, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV: filtered ? 0 : estimate / 2,
-  }, idPrefix);
+  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
   const vOut = fb.divider.vOut;
   const { issues, fixes } = sizingIssues(s);
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
@@ -337,7 +315,10 @@ export function buckBoostStage(
       [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
     },
     point,
-    regulates: (p) => (p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax),
+    operate: (vIn, iOut) => {
+      const p = point(vIn, iOut);
+      return { regulates: p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+    },
     stress,
     faultStress,
   };
@@ -347,22 +328,7 @@ export function designBuckBoost(ctx: Context): Design {
   const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const b = buckBoostStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buckboost', railBand(spec));
+  const b = buckBoostStage(ctx, refs, trace, railRequest(ctx, 'buckboost'));
   const lim = b.stage.iSwitchMaxA;
-  return {
-    topology: 'buck-boost',
-    label: `Four-switch buck-boost converter${b.post ? ' with post-filter' : ''}`,
-    parts: b.parts,
-    issues: b.issues,
-    fixes: b.fixes,
-    trace,
-    operate: (vIn, iOut): OperatingPoint => {
-      const p = b.point(vIn, iOut);
-      return { regulates: b.regulates(p), pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
-    },
-    fault: { regulates: false, pInW: lim * lim * (2 * b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) },
-    output: b.output,
-    rippleVpp: b.rippleVpp,
-    assumptions: b.assumptions,
-  };
+  return converterDesign('buck-boost', 'Four-switch buck-boost converter', b, trace, { regulates: false, pInW: lim * lim * (2 * b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) });
 }

@@ -4,13 +4,12 @@ import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, type Fix, info, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { Refs, info, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
 import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
 import { Trace } from '../trace.ts';
-import type { Issue, Quantity } from '../types.ts';
-import type { ToleranceModel } from '../tolerance.ts';
+import type { Quantity } from '../types.ts';
 import { inputCautions } from './switcher-input.ts';
 import {
   RIPPLE_BUDGET,
@@ -25,23 +24,25 @@ import {
   outputBank,
   peakFinding,
   postFilter,
-  postFilterDcr,
   rippleReference,
-  railBand,
   stageRefs,
   thermalFinding,
-  stageRippleLimit,
   stepCapacitance,
   switcherFeedback,
+  converterDesign,
+  feedbackNeed,
+  quietRail,
+  railRequest,
   buckSegments,
   ripplePeakToPeak,
   traceRds,
-  searchClasses,
+  searchStage,
   sizingIssues,
   traceStep,
   voltageFits,
+  type ConverterStage,
   type Finding,
-  type PostFilter,
+  type StageRequest,
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
@@ -186,51 +187,28 @@ export function sizeBuck(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: n
   return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, high, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
 }
 
-export interface BuckStage {
-  stage: SwitcherClass;
-  fsw: number;
-  vOut: number;
+export interface BuckStage extends ConverterStage {
   inductor: ChosenInductor;
   cout: ChosenCapacitor;
-  post: PostFilter | null;
-  parts: DesignPart[];
-  issues: Issue[];
-  fixes: Fix[];
   switchRef: string;
-  rippleVpp: number;
-  output: ToleranceModel;
-  assumptions: Record<string, Quantity>;
   point(vIn: number, iOut: number): BuckPoint;
   /** Part stresses; pass the operating point when it is already computed. */
   stress(vIn: number, iOut: number, at?: BuckPoint): Record<string, PartStress>;
-  faultStress(vIn: number): Record<string, PartStress>;
 }
 
-export function buckStage(
-  ctx: Context,
-  refs: Refs,
-  trace: Trace,
-  input: { vTrough: number; vMax: number },
-  vTarget: number,
-  load: Load,
-  rippleLimit: number,
-  allowPostFilter: boolean,
-  idPrefix: string,
-  band: { lo: number; hi: number },
-): BuckStage {
-  const { catalog, spec } = ctx;
+export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BuckStage {
+  const { spec, catalog } = ctx;
+  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
   const r = stageRefs(refs);
-  const limit = stageRippleLimit(ctx, rippleLimit, allowPostFilter, vTarget);
-  const s = searchClasses(ctx, 'buck', (stage, fsw) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, input.vMax));
+  const quiet = quietRail(ctx);
+  const need = feedbackNeed(ctx, req);
+  const s = searchStage(ctx, req, 'buck', (stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, input.vMax));
   const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
-  const budget = RIPPLE_BUDGET * rippleLimit;
-  const quiet = spec.noise.class === 'precision' || spec.noise.class === 'rf';
+  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
   const estimate = buckRipple(high.rippleA, fsw, cout.effectiveF, cout.esrOhm);
   const filtered = allowPostFilter && (quiet || estimate > budget);
-  const fb = switcherFeedback(ctx, r, trace, stage, {
-    vTarget, band, load, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV: filtered ? 0 : estimate / 2,
-  }, idPrefix);
+  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
   const vOut = fb.divider.vOut;
   const { issues, fixes } = sizingIssues(s);
   if (spec.overrides.fswHz !== undefined && spec.overrides.fswHz !== fsw) {
@@ -359,8 +337,12 @@ export function buckStage(
     assumptions[`${post.inductorRef}.dcr`] = { value: post.dcrOhm, unit: 'Ω' };
     assumptions[`${post.capRef}.esr`] = { value: post.esrOhm, unit: 'Ω' };
   }
-  const output = fb.output;
-  return { stage, fsw, vOut, inductor, cout, post, parts, issues, fixes, switchRef: r.u, rippleVpp, output, assumptions, point, stress, faultStress };
+  const window = dutyWindow(stage, fsw);
+  const operate = (vIn: number, iOut: number): OperatingPoint => {
+    const p = point(vIn, iOut);
+    return { regulates: p.d <= window.dMax && vIn > vOut, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+  };
+  return { stage, fsw, vOut, inductor, cout, post, parts, issues, fixes, switchRef: r.u, rippleVpp, output: fb.output, assumptions, point, operate, stress, faultStress };
 }
 
 /** Trace of the duty cycle at a corner, in the form that recomputes from its own inputs. */
@@ -378,27 +360,10 @@ export function designBuck(ctx: Context): Design {
   const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
-  const b = buckStage(ctx, refs, trace, { vTrough: ctx.vInTrough, vMax: spec.input.vMax }, spec.output.v, spec.output, spec.noise.maxRippleVpp, true, 'buck', railBand(spec));
+  const b = buckStage(ctx, refs, trace, railRequest(ctx, 'buck'));
   const nominal = b.point(spec.input.vNom, spec.output.iTyp);
   traceBuckDuty(trace, 'buck.d.nom', 'Duty cycle at the nominal corner', nominal, spec.input.vNom, b.vOut, spec.output.iTyp, b.fsw, b.inductor.henries);
-  const window = dutyWindow(b.stage, b.fsw);
-  const operate = (vIn: number, iOut: number): OperatingPoint => {
-    const p = b.point(vIn, iOut);
-    return { regulates: p.d <= window.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: p.pOutW, stress: b.stress(vIn, iOut, p) };
-  };
   const lim = b.stage.iSwitchMaxA;
   const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) };
-  return {
-    topology: 'buck',
-    label: `Buck converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'catch diode'})${b.post ? ' with post-filter' : ''}`,
-    parts: b.parts,
-    issues: b.issues,
-    fixes: b.fixes,
-    trace,
-    operate,
-    fault,
-    output: b.output,
-    rippleVpp: b.rippleVpp,
-    assumptions: b.assumptions,
-  };
+  return converterDesign('buck', `Buck converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'catch diode'})`, b, trace, fault);
 }

@@ -1,81 +1,135 @@
 // A switching pre-regulator to just above the rail, then a linear post-regulator that rejects the
 // switching ripple: efficiency close to a switcher's, noise close to a linear regulator's. The
-// pre-regulator is a buck where the input always stays above the intermediate rail, otherwise a
-// four-switch buck-boost (a quiet rail from one Li-ion cell, for example).
+// pre-regulator is whichever converter fits the input: a buck where the input always stays above
+// the intermediate rail, a boost where it always stays below (a quiet 12 V rail from 5 V), a
+// four-switch buck-boost where it straddles it (a quiet rail from one Li-ion cell).
+import type { LinearRegulatorClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
-import { extremeValues } from '../tolerance.ts';
+import { analyseTolerance, extremeValues, toleranceVerdict, type ToleranceModel } from '../tolerance.ts';
 import { Trace } from '../trace.ts';
+import { boostStage } from './boost.ts';
 import { buckBoostStage } from './buck-boost.ts';
 import { buckStage } from './buck.ts';
-import { checkClass, chooseRegulatorClass, regulatorStage } from './regulator-stage.ts';
+import { checkClass, chooseRegulatorClass, regulatorStage, type StageInput } from './regulator-stage.ts';
+import { rippleRejectionDb } from './regulator-noise.ts';
+import { railBand, type ConverterStage, type StageRequest } from './switcher.ts';
 
 /** Headroom kept above the post-regulator's dropout (common practice: a few hundred mV). */
 export const POST_REG_MARGIN_V = 0.3;
-/** A buck needs the input this far above its output to keep its duty cycle in range (common practice). */
-const BUCK_INPUT_MARGIN = 1.15;
+/** A buck needs the input this far above its output, a boost its output this far above the input, to keep the duty cycle in range (common practice). */
+const STEP_MARGIN = 1.15;
+
+export type PreRegulatorKind = 'buck' | 'boost' | 'buck-boost';
+
+/** The converter that fits the input against the intermediate rail. */
+export function preRegulatorKind(vTrough: number, vMax: number, vBus: number): PreRegulatorKind {
+  if (vTrough >= STEP_MARGIN * vBus) return 'buck';
+  if (STEP_MARGIN * vMax <= vBus) return 'boost';
+  return 'buck-boost';
+}
+
+/** The bus is only as exact as the switcher's feedback (plus 2 % for its divider). */
+function busSpread(ctx: Context): number {
+  return Math.max(...ctx.catalog.switchers.map((s) => s.vFbTolerance)) + 0.02;
+}
+
+/** Bus set point: raised until even its low extreme leaves the post-regulator its dropout and margin. */
+function busTarget(ctx: Context, vTarget: number, cls: LinearRegulatorClass): number {
+  return (vTarget + cls.dropoutV + POST_REG_MARGIN_V) / (1 - busSpread(ctx));
+}
+
+/** A tolerance loose enough that the post-regulator's cheapest grades meet it. */
+const LOOSEST_TOLERANCE = 0.5;
+
+/**
+ * The post-regulator class: of the classes that fit a nearby intermediate rail, the lowest dropout
+ * (it wastes least) whose searched reference grade and divider hold the rail's tolerance from
+ * that bus; the lowest dropout when none does. Also the highest output the class gives with its
+ * cheapest grades, which the bus must clear by the dropout: a bound that tighter grades only
+ * lower, so the bus does not get dearer when the rail's tolerance is relaxed.
+ */
+function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: LinearRegulatorClass; vOutHigh: number } {
+  const { spec, catalog } = ctx;
+  const probe: StageInput = { vTrough: vTarget + 2.5, vMax: vTarget + 2.5, rippleVpp: 0, rippleIsHf: true };
+  const forcedCls = catalog.linearRegulators.find((c) => c.id === spec.overrides.linearClass);
+  const fitting = forcedCls
+    ? [forcedCls]
+    : catalog.linearRegulators
+        .filter((c) => checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget))
+        .sort((a, b) => a.dropoutV - b.dropoutV);
+  const band = railBand(spec);
+  const rule = spec.overrides.toleranceRule ?? 'statistical';
+  const spread = busSpread(ctx);
+  const busRange = (cls: LinearRegulatorClass): StageInput => {
+    const vBus = busTarget(ctx, vTarget, cls);
+    return { ...probe, vTrough: vBus * (1 - spread), vMax: vBus * (1 + spread) };
+  };
+  const loose = { ...ctx, spec: { ...spec, output: { ...spec.output, tolerance: LOOSEST_TOLERANCE } } };
+  const holds = (output: ToleranceModel) => toleranceVerdict(analyseTolerance(output), band, rule, 0) !== 'fails';
+  let first: { cls: LinearRegulatorClass; vOutHigh: number } | null = null;
+  for (const cls of fitting) {
+    // The cheapest grades often hold the rail already; only then is the graded search skipped.
+    const cheapest = regulatorStage(loose, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id).output;
+    const found = { cls, vOutHigh: extremeValues(cheapest).max };
+    if (holds(cheapest) || holds(regulatorStage(ctx, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id).output)) return found;
+    first ??= found;
+  }
+  return first ?? { cls: chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls, vOutHigh: band.hi };
+}
 
 export function designSwitcherLinear(ctx: Context): Design {
   const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
   const { iMin, iTyp, iMax, v: vTarget } = spec.output;
-
-  // The post-regulator only has to drop its own headroom: of the classes that fit a nearby
-  // intermediate rail, the lowest dropout wastes least.
-  const probe = { vTrough: vTarget + 2.5, vMax: vTarget + 2.5, rippleVpp: 0, rippleIsHf: true };
-  const fitting = ctx.catalog.linearRegulators
-    .filter((c) => checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget))
-    .sort((a, b) => a.dropoutV - b.dropoutV);
-  const forcedCls = ctx.catalog.linearRegulators.find((c) => c.id === spec.overrides.linearClass);
-  const cls = forcedCls ?? fitting[0] ?? chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls;
-  // The bus itself is only as exact as the switcher's feedback (plus 2 % for its divider), so its
-  // set point is raised until even its low extreme leaves the post-regulator its headroom.
-  const busSpread = Math.max(...ctx.catalog.switchers.map((s) => s.vFbTolerance)) + 0.02;
+  const { cls, vOutHigh } = postRegulator(ctx, vTarget, iMax);
+  const spread = busSpread(ctx);
   const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = (Vout + Vdropout + margin) / (1 − spread)', {
-    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'], spread: [busSpread, ''],
-  }, (vTarget + cls.dropoutV + POST_REG_MARGIN_V) / (1 - busSpread), 'V');
+    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'], spread: [spread, ''],
+  }, busTarget(ctx, vTarget, cls), 'V');
 
   // Divider current of the post-regulator loads the switcher; estimate it from the class.
   const iExtra = Math.max(cls.minLoadA, 100e-6) + cls.iAdjMaxA + cls.iqA;
   const input = { vTrough: ctx.vInTrough, vMax: spec.input.vMax };
   const load = { iMin: iMin + iExtra, iTyp: iTyp + iExtra, iMax: iMax + iExtra };
-  const rippleLimit = spec.noise.maxRippleVpp * 10 ** (cls.psrrHfDb / 20);
-  const stepsDown = ctx.vInTrough >= BUCK_INPUT_MARGIN * vBusTarget;
-  // The bus need only stay above the post-regulator's dropout, and not far above its set point.
-  const busBand = { lo: vTarget + cls.dropoutV, hi: vBusTarget * (1 + busSpread) };
-  const pre = stepsDown
-    ? buckStage(ctx, refs, trace, input, vBusTarget, load, rippleLimit, false, 'hybrid.buck', busBand)
-    : buckBoostStage(ctx, refs, trace, input, vBusTarget, load, rippleLimit, false, 'hybrid.buckboost', busBand);
-  // The bus spread is the switcher's own feedback spread, at its extremes.
+  // The bus may ripple as much as the post-regulator rejects at the switching frequency (its
+  // rejection falls with frequency; the adjust-pin bypass is fitted on an adjustable class).
+  const bypass = cls.kind === 'adjustable';
+  const rippleLimit = (fsw: number) => spec.noise.maxRippleVpp * 10 ** (rippleRejectionDb(cls, fsw, bypass) / 20);
+  // The bus must stay above the post-regulator's highest output plus its dropout, in the worst case,
+  // and not far above its set point.
+  const busBand = { lo: vOutHigh + cls.dropoutV, hi: vBusTarget * (1 + spread) };
+  const kind = preRegulatorKind(input.vTrough, input.vMax, vBusTarget);
+  const request = (idPrefix: string): StageRequest => ({ input, vTarget: vBusTarget, load, rippleLimit, allowPostFilter: false, idPrefix, band: busBand, rule: 'worst-case' });
+  const stageOf: Record<PreRegulatorKind, () => ConverterStage> = {
+    buck: () => buckStage(ctx, refs, trace, request('hybrid.buck')),
+    boost: () => boostStage(ctx, refs, trace, request('hybrid.boost')),
+    'buck-boost': () => buckBoostStage(ctx, refs, trace, request('hybrid.buckboost')),
+  };
+  const pre = stageOf[kind]();
+  // The bus spread is the switcher's own feedback spread, at its extremes; a stage that fails can
+  // ripple more than its whole output, and the bus never dips below ground.
   const bus = extremeValues(pre.output);
-  const reg = regulatorStage(ctx, refs, trace, { vTrough: bus.min - pre.rippleVpp / 2, vMax: bus.max, rippleVpp: pre.rippleVpp, rippleIsHf: true, rippleHz: pre.fsw }, vTarget, iMax, cls.id);
+  const reg = regulatorStage(ctx, refs, trace, { vTrough: Math.max(0, bus.min - pre.rippleVpp / 2), vMax: bus.max, rippleVpp: pre.rippleVpp, rippleIsHf: true, rippleHz: pre.fsw }, vTarget, iMax, cls.id);
   const issues = [...pre.issues, ...reg.issues.filter((i) => i.code !== 'class-unknown')];
-  const kind = stepsDown ? 'buck' : 'buck-boost';
   issues.push(info('hybrid', `The ${kind} stage makes ${pre.vOut.toFixed(2)} V; ${reg.regRef} drops ${(pre.vOut - reg.vOut).toFixed(2)} V and rejects the switching ripple.`));
 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
-    const iBus = reg.inputCurrent(iOut);
-    const regStress = reg.stress(pre.vOut, iOut);
-    if (stepsDown) {
-      const b = pre as ReturnType<typeof buckStage>;
-      const p = b.point(vIn, iBus);
-      return { regulates: p.d <= b.stage.dMax && vIn > b.vOut, pInW: p.pInW, pOutW: reg.vOut * iOut, stress: Object.assign(b.stress(vIn, iBus, p), regStress) };
-    }
-    const bb = pre as ReturnType<typeof buckBoostStage>;
-    const p = bb.point(vIn, iBus);
-    return { regulates: bb.regulates(p), pInW: p.pInW, pOutW: reg.vOut * iOut, stress: Object.assign(bb.stress(vIn, iBus, p), regStress) };
+    const p = pre.operate(vIn, reg.inputCurrent(iOut));
+    return { regulates: p.regulates, pInW: p.pInW, pOutW: reg.vOut * iOut, stress: Object.assign(p.stress, reg.stress(pre.vOut, iOut)) };
   };
-  const faultStress = { ...pre.stress(spec.input.vMax, reg.cls.iLimitA), ...reg.faultStress(pre.vOut) };
+  const shorted = pre.operate(spec.input.vMax, reg.cls.iLimitA);
+  const names: Record<PreRegulatorKind, string> = { buck: 'Buck converter', boost: 'Boost converter', 'buck-boost': 'Four-switch buck-boost converter' };
   return {
     topology: 'buck+linear',
-    label: `${stepsDown ? 'Buck converter' : 'Four-switch buck-boost converter'} with linear post-regulator (${reg.cls.label})`,
+    label: `${names[kind]} with linear post-regulator (${reg.cls.label})`,
     parts: [...pre.parts, ...reg.parts],
     issues,
     fixes: pre.fixes,
     trace,
     operate,
-    fault: { regulates: false, pInW: pre.point(spec.input.vMax, reg.cls.iLimitA).pInW, pOutW: 0, stress: faultStress },
+    fault: { regulates: false, pInW: shorted.pInW, pOutW: 0, stress: { ...shorted.stress, ...reg.faultStress(pre.vOut) } },
     output: reg.output,
     rippleVpp: reg.rippleOutVpp,
     assumptions: {

@@ -4,13 +4,13 @@ import type { Catalog, SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import { chooseCapacitorBank, type ChosenCapacitor } from '../capacitors.ts';
-import { blocker, info, resistorPart, type DesignPart, type Fix, type Refs } from '../design.ts';
+import { blocker, info, resistorPart, type Design, type DesignPart, type Fix, type OperatingPoint, type PartStress, type Refs } from '../design.ts';
 import { chooseInductor, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { rdsAt } from '../switcher-losses.ts';
-import { temperatureSwingK, type ToleranceModel } from '../tolerance.ts';
+import { temperatureSwingK, type ToleranceModel, type ToleranceParam, type ToleranceRule } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
-import type { Issue } from '../types.ts';
+import type { Issue, Quantity } from '../types.ts';
 import { searchDivider, type DividerDesign } from './feedback.ts';
 
 /** Inductor ripple current as a fraction of the reference current (common practice 0.2–0.4). */
@@ -60,7 +60,8 @@ export function fswCandidates(ctx: Context, stage: SwitcherClass): number[] {
   const out = [stage.fswDefaultHz];
   const ratio = stage.fswMaxHz / stage.fswMinHz;
   for (let k = 0; k < FSW_STEPS; k += 1) {
-    const f = Number((stage.fswMinHz * ratio ** (k / (FSW_STEPS - 1))).toPrecision(2));
+    // Rounded to two figures for a tidy value, and kept inside the class's range.
+    const f = Math.min(stage.fswMaxHz, Number((stage.fswMinHz * ratio ** (k / (FSW_STEPS - 1))).toPrecision(2)));
     if (!out.includes(f)) out.push(f);
   }
   return out.sort((a, b) => a - b);
@@ -177,6 +178,51 @@ export function inputBank(ctx: Context, ref: string, vMax: number, vTrough: numb
   }, ctx.catalog);
 }
 
+/**
+ * Ripple a converter stage may leave at its output, by switching frequency: the rail's limit for a
+ * converter alone, more behind a post-regulator whose rejection depends on the frequency.
+ */
+export type RippleLimit = (fsw: number) => number;
+
+/** What a converter stage is asked to make. */
+export interface StageRequest {
+  input: { vTrough: number; vMax: number };
+  vTarget: number;
+  load: { iMin: number; iTyp: number; iMax: number };
+  rippleLimit: RippleLimit;
+  /** An LC post-filter may follow (a converter alone, not one behind a post-regulator). */
+  allowPostFilter: boolean;
+  idPrefix: string;
+  /** Band the output must hold (the rail's, or a looser one for an intermediate rail). */
+  band: { lo: number; hi: number };
+  /** Tolerance rule, when not the rail's (worst case for a rail another stage relies on). */
+  rule?: ToleranceRule;
+}
+
+/** The rail itself as a converter's request: its input range, output, load, ripple limit and band. */
+export function railRequest(ctx: Context, idPrefix: string): StageRequest {
+  const { spec } = ctx;
+  return {
+    input: { vTrough: ctx.vInTrough, vMax: spec.input.vMax },
+    vTarget: spec.output.v,
+    load: spec.output,
+    rippleLimit: () => spec.noise.maxRippleVpp,
+    allowPostFilter: true,
+    idPrefix,
+    band: railBand(spec),
+  };
+}
+
+export function quietRail(ctx: Context): boolean {
+  return ctx.spec.noise.class === 'precision' || ctx.spec.noise.class === 'rf';
+}
+
+/** The feedback requirement of a stage, with or without a post-filter's winding after it. */
+export function feedbackNeed(ctx: Context, req: StageRequest): (filtered: boolean, marginV: number) => FeedbackNeed {
+  const { vTarget, band, load, input, rule } = req;
+  return (filtered, marginV) => ({ vTarget, band, load, input, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV, ...(rule ? { rule } : {}) });
+}
+
 /** Ripple limit the converter stage is sized for: the rail's, or a looser one when a post-filter will follow. */
 export function stageRippleLimit(ctx: Context, rippleLimit: number, allowPostFilter: boolean, vOut: number): number {
   const quiet = ctx.spec.noise.class === 'precision' || ctx.spec.noise.class === 'rf';
@@ -280,31 +326,46 @@ export interface FeedbackParts {
 export const FB_BIAS_A = 50e-9;
 /** Divider current window: some 400× the pin's bias current, little against light-load quiescent budgets (common practice 10–100 µA). */
 const FB_DIVIDER_A = { min: 25e-6, max: 40e-6 } as const;
+/**
+ * Load regulation of an integrated current-mode converter over its rated current, and line
+ * regulation per volt of input swing: the loop's finite DC gain (from memory: typical data-sheet
+ * figures of ±0.2 % over the load range and 0.02 %/V).
+ */
+export const SWITCHER_LOAD_REGULATION = 0.004;
+export const SWITCHER_LINE_REGULATION_PER_V = 0.0002;
 
 export interface FeedbackNeed {
   vTarget: number;
   /** Band the output must hold (the rail's, or a looser one for an intermediate rail). */
   band: { lo: number; hi: number };
   load: { iMin: number; iTyp: number; iMax: number };
+  /** Input range the converter runs over (line regulation). */
+  input: { vTrough: number; vMax: number };
   /** Resistance outside the loop (an LC post-filter's winding). */
   dcrAfterFb: number;
   /** Half the output ripple, kept clear of the band's edges. */
   marginV: number;
+  /** Tolerance rule: the rail's, or worst case for an intermediate rail another stage relies on. */
+  rule?: ToleranceRule;
 }
 
-/**
- * Divider pair, resistor grade and feedback-reference figure from the shared divider search: the
- * class's Vfb tolerance (specified over temperature by the part, so no separate drift), the pin's
- * bias current, and the post-filter's drop as a load-dependent spread.
- */
-export function switcherFeedback(ctx: Context, r: StageRefs, trace: Trace, stage: SwitcherClass, need: FeedbackNeed, idPrefix: string): FeedbackParts {
+/** Line and load regulation of the converter's loop as multiplicative spreads about the nominal output. */
+export function switcherRegulation(stage: SwitcherClass, need: FeedbackNeed): ToleranceParam[] {
+  const line = (SWITCHER_LINE_REGULATION_PER_V * Math.max(0, need.input.vMax - need.input.vTrough)) / 2;
+  const load = (SWITCHER_LOAD_REGULATION * Math.min(1, Math.max(0, need.load.iMax - need.load.iMin) / stage.iSwitchMaxA)) / 2;
+  return [
+    { name: 'Line regulation', nominal: 1, lo: 1 - line, hi: 1 + line },
+    { name: 'Load regulation', nominal: 1, lo: 1 - load, hi: 1 + load },
+  ];
+}
+
+/** The shared divider search for a class: its Vfb tolerance, the pin's bias current, regulation and the post-filter's drop. */
+function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, forcedR: { r1?: number; r2?: number }): DividerDesign {
   const { vTarget, load, dcrAfterFb } = need;
   const drop = (i: number) => 1 - (i * dcrAfterFb) / vTarget;
-  const extra = dcrAfterFb > 0 ? [{ name: 'post-filter drop', nominal: drop(load.iTyp), lo: drop(load.iMax), hi: drop(load.iMin) }] : [];
+  const extra = [...switcherRegulation(stage, need), ...(dcrAfterFb > 0 ? [{ name: 'post-filter drop', nominal: drop(load.iTyp), lo: drop(load.iMax), hi: drop(load.iMin) }] : [])];
   const series = ctx.spec.overrides.resistorSeries;
-  const r1Forced = forced(ctx, r.r1);
-  const r2Forced = forced(ctx, r.r2);
-  const { pick } = searchDivider({
+  return searchDivider({
     vTarget,
     vRef: stage.vFbV,
     refGrades: [{ tolerance: stage.vFbTolerance, extraCents: 0 }],
@@ -315,15 +376,31 @@ export function switcherFeedback(ctx: Context, r: StageRefs, trace: Trace, stage
     iDividerMin: FB_DIVIDER_A.min,
     iDividerMax: FB_DIVIDER_A.max,
     band: need.band,
-    rule: ctx.spec.overrides.toleranceRule ?? 'statistical',
+    rule: need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical',
     tempSwingK: temperatureSwingK(ctx.ambientC),
     extra,
     grades: ctx.catalog.resistorGrades,
     marginV: need.marginV,
-    ...(r1Forced !== undefined ? { r1Forced } : {}),
-    ...(r2Forced !== undefined ? { r2Forced } : {}),
+    ...(forcedR.r1 !== undefined ? { r1Forced: forcedR.r1 } : {}),
+    ...(forcedR.r2 !== undefined ? { r2Forced: forcedR.r2 } : {}),
     ...(series !== undefined ? { series } : {}),
-  });
+  }).pick;
+}
+
+/** 1 when no resistor grade lets this class's feedback hold the band (a blocker the class search counts), else 0. */
+export function feedbackPenalty(ctx: Context, stage: SwitcherClass, need: FeedbackNeed): number {
+  return feedbackSearch(ctx, stage, need, {}).verdict === 'fails' ? 1 : 0;
+}
+
+/**
+ * Divider pair, resistor grade and feedback-reference figure from the shared divider search: the
+ * class's Vfb tolerance (specified over temperature by the part, so no separate drift), the pin's
+ * bias current, line and load regulation, and the post-filter's drop as a load-dependent spread.
+ */
+export function switcherFeedback(ctx: Context, r: StageRefs, trace: Trace, stage: SwitcherClass, need: FeedbackNeed, idPrefix: string): FeedbackParts {
+  const r1 = forced(ctx, r.r1);
+  const r2 = forced(ctx, r.r2);
+  const pick = feedbackSearch(ctx, stage, need, { ...(r1 !== undefined ? { r1 } : {}), ...(r2 !== undefined ? { r2 } : {}) });
   trace.add(`${idPrefix}.fb`, 'Feedback divider output with the chosen pair', 'Vout = Vfb·(1 + R2/R1)', {
     Vfb: [stage.vFbV, 'V'], R1: [pick.r1, 'Ω'], R2: [pick.r2, 'Ω'],
   }, pick.vOut, 'V');
@@ -381,6 +458,40 @@ export function railBand(spec: Context['spec']): { lo: number; hi: number } {
   return { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
 }
 
+/** What a converter stage hands to the design around it, whatever its kind. */
+export interface ConverterStage {
+  stage: SwitcherClass;
+  fsw: number;
+  vOut: number;
+  post: PostFilter | null;
+  parts: DesignPart[];
+  issues: Issue[];
+  fixes: Fix[];
+  rippleVpp: number;
+  output: ToleranceModel;
+  assumptions: Record<string, Quantity>;
+  /** Whether it regulates, its input power and its parts' stresses at one input and load. */
+  operate(vIn: number, iOut: number): OperatingPoint;
+  faultStress(vIn: number): Record<string, PartStress>;
+}
+
+/** A converter alone as a design option; its label gains the post-filter when one follows. */
+export function converterDesign(topology: Design['topology'], label: string, b: ConverterStage, trace: Trace, fault: OperatingPoint): Design {
+  return {
+    topology,
+    label: `${label}${b.post ? ' with post-filter' : ''}`,
+    parts: b.parts,
+    issues: b.issues,
+    fixes: b.fixes,
+    trace,
+    operate: b.operate,
+    fault,
+    output: b.output,
+    rippleVpp: b.rippleVpp,
+    assumptions: b.assumptions,
+  };
+}
+
 /** Catalog classes of a converter kind. */
 export function classesOf(catalog: Catalog, converter: SwitcherClass['converter']): SwitcherClass[] {
   return catalog.switchers.filter((s) => s.converter === converter);
@@ -404,25 +515,53 @@ export interface SizingBase {
 
 /**
  * Every class of the converter kind at every frequency it allows: the candidate with the fewest
- * blockers, then the lowest parts cost plus LOSS_CENTS_PER_W per watt lost; ties keep the first.
+ * blockers (a class whose feedback cannot hold the band counts one more), then the lowest parts
+ * cost plus LOSS_CENTS_PER_W per watt lost; ties keep the first. Classes are tried cheapest
+ * first, and once a clean candidate exists a class whose own price reaches its figure is skipped.
  */
-export function searchClasses<T extends SizingBase>(ctx: Context, converter: SwitcherClass['converter'], size: (stage: SwitcherClass, fsw: number) => T, fits: (stage: SwitcherClass) => boolean): T {
+export function searchClasses<T extends SizingBase>(
+  ctx: Context,
+  converter: SwitcherClass['converter'],
+  size: (stage: SwitcherClass, fsw: number) => T,
+  fits: (stage: SwitcherClass) => boolean,
+  penalty: (stage: SwitcherClass) => number = () => 0,
+): T {
   let best: T | null = null;
   let bestKey = [Infinity, Infinity];
   // Classes whose voltage ratings already fail are sized only when no class passes them.
   const all = classesOf(ctx.catalog, converter);
   const rated = all.filter(fits);
-  for (const stage of rated.length > 0 ? rated : all) {
+  const pool = (rated.length > 0 ? rated : all).slice().sort((a, b) => a.costCents - b.costCents);
+  const better = (key: number[]) => key[0]! < bestKey[0]! || (key[0] === bestKey[0] && key[1]! < bestKey[1]!);
+  for (const stage of pool) {
+    if (bestKey[0] === 0 && stage.costCents >= bestKey[1]!) break;
+    // The feedback check is worked out only for a candidate that would otherwise win.
+    let extra: number | null = null;
     for (const fsw of fswCandidates(ctx, stage)) {
       const s = size(stage, fsw);
       const key = [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
-      if (key[0]! < bestKey[0]! || (key[0] === bestKey[0] && key[1]! < bestKey[1]!)) {
+      if (!better(key)) continue;
+      extra ??= penalty(stage);
+      key[0] = key[0]! + extra;
+      if (better(key)) {
         best = s;
         bestKey = key;
       }
     }
   }
   return best!;
+}
+
+/** The class search for a stage request: each candidate sized for the ripple its frequency allows, its feedback checked against the band. */
+export function searchStage<T extends SizingBase>(
+  ctx: Context,
+  req: StageRequest,
+  converter: SwitcherClass['converter'],
+  size: (stage: SwitcherClass, fsw: number, rippleLimit: number) => T,
+  fits: (stage: SwitcherClass) => boolean,
+): T {
+  const need = feedbackNeed(ctx, req)(req.allowPostFilter && quietRail(ctx), 0);
+  return searchClasses(ctx, converter, (stage, fsw) => size(stage, fsw, stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget)), fits, (stage) => feedbackPenalty(ctx, stage, need));
 }
 
 /** The chosen candidate's blockers, fixes and capacitor cautions, and why it was chosen. */
