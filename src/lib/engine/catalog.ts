@@ -479,6 +479,7 @@ export const defaultCatalog: Catalog = {
       iAdjMaxA: 100e-9,
       minLoadA: 0,
       dropoutV: 0.4,
+      dropoutWithLoad: { floorV: 0.03, source: RESISTIVE_DROPOUT_SOURCE },
       vDiffMaxV: null,
       vInMaxV: 20,
       iqA: 1e-3,
