@@ -86,6 +86,16 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
       blocker('differential', `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${cls.label} allows ${cls.vDiffMaxV} V.`),
     );
   }
+  else if (cls.vDiffMaxV !== null && !input.tracksOutput && input.vMax > cls.vDiffMaxV) {
+    // A three-terminal regulator's differential is an absolute limit: a shorted output, or a
+    // discharged output capacitor at switch-on, puts the whole input across it (common practice).
+    out.push(
+      blocker(
+        'differential-short',
+        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${input.vMax} V input stands across ${cls.label}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
+      ),
+    );
+  }
   if (cls.vInMaxV !== null && input.vMax > cls.vInMaxV) {
     out.push(blocker('input-max', `The input reaches ${input.vMax} V; ${cls.label} allows ${cls.vInMaxV} V.`));
   }
