@@ -19,7 +19,14 @@ const linearRegulatorSchema = z
     iAdjTypA: nonNeg,
     iAdjMaxA: nonNeg,
     minLoadA: nonNeg,
+    /** Dropout at the rated current. */
     dropoutV: pos,
+    /**
+     * Present for a PMOS or PNP pass device: its dropout is resistive (Rds(on)- or saturation-limited),
+     * so it falls in proportion to the pass current down to floorV. Absent (NPN-Darlington pass): the
+     * dropout is set by junction drops and holds at every load.
+     */
+    dropoutWithLoad: z.object({ floorV: pos, source: z.string().min(1) }).strict().optional(),
     /** Largest input-output differential (floating classes) — null where the input is limited absolutely. */
     vDiffMaxV: pos.nullable(),
     /** Largest input voltage to ground — null for floating classes, which only see the differential. */
@@ -284,6 +291,9 @@ const RZ_1W3 = [
 ];
 const scaleRz = (k: number) => RZ_1W3.map((p) => ({ v: p.v, ohm: p.ohm * k }));
 
+/** Why an LDO's dropout is scaled with its load: data sheets plot it against load current. */
+const RESISTIVE_DROPOUT_SOURCE = 'common practice: data sheets give a PMOS LDO’s dropout against load current, near-proportional to it; the no-load floor from memory';
+
 /** Every figure below: typical — confirm against the chosen part's data. */
 export const defaultCatalog: Catalog = {
   version: 'typical-2026.1',
@@ -312,7 +322,8 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 25,
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -345,7 +356,8 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 45,
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -378,7 +390,8 @@ export const defaultCatalog: Catalog = {
       psrrBypassDb: 80,
       psrrHfDb: 25,
       costCents: 120,
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }],
+      // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
+      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -398,6 +411,7 @@ export const defaultCatalog: Catalog = {
       iAdjMaxA: 1e-6,
       minLoadA: 0,
       dropoutV: 0.3,
+      dropoutWithLoad: { floorV: 0.03, source: RESISTIVE_DROPOUT_SOURCE },
       vDiffMaxV: null,
       vInMaxV: 16,
       iqA: 1e-3,
@@ -431,6 +445,7 @@ export const defaultCatalog: Catalog = {
       iAdjMaxA: 50e-9,
       minLoadA: 0,
       dropoutV: 0.35,
+      dropoutWithLoad: { floorV: 0.03, source: RESISTIVE_DROPOUT_SOURCE },
       vDiffMaxV: null,
       vInMaxV: 20,
       iqA: 0.2e-3,
@@ -464,6 +479,7 @@ export const defaultCatalog: Catalog = {
       iAdjMaxA: 100e-9,
       minLoadA: 0,
       dropoutV: 0.4,
+      dropoutWithLoad: { floorV: 0.03, source: RESISTIVE_DROPOUT_SOURCE },
       vDiffMaxV: null,
       vInMaxV: 20,
       iqA: 1e-3,
@@ -497,6 +513,7 @@ export const defaultCatalog: Catalog = {
       iAdjMaxA: 10e-9,
       minLoadA: 0,
       dropoutV: 0.25,
+      dropoutWithLoad: { floorV: 0.02, source: RESISTIVE_DROPOUT_SOURCE },
       vDiffMaxV: null,
       vInMaxV: 6,
       iqA: 1e-6,
@@ -519,6 +536,40 @@ export const defaultCatalog: Catalog = {
       esrMaxOhm: null,
       noiseDensityVrtHz: 1e-6,
       source: 'from memory: typical of µA-quiescent CMOS LDOs for battery loads',
+    },
+    {
+      id: 'ldo-lowiq-hv-0a15',
+      label: 'Low-quiescent low-dropout adjustable regulator, 16 V input, 0.15 A',
+      kind: 'ldo',
+      vRefV: 1.2,
+      vRefTolerance: 0.02,
+      iAdjTypA: 1e-9,
+      iAdjMaxA: 10e-9,
+      minLoadA: 0,
+      dropoutV: 0.35,
+      dropoutWithLoad: { floorV: 0.02, source: RESISTIVE_DROPOUT_SOURCE },
+      vDiffMaxV: null,
+      vInMaxV: 16,
+      iqA: 3e-6,
+      iOutMaxA: 0.15,
+      iLimitA: 0.3,
+      thetaJcCW: 50,
+      thetaJaCW: 200,
+      tjMaxC: 125,
+      heatsinkable: false,
+      psrrDb: 45,
+      psrrBypassDb: 45,
+      psrrHfDb: 15,
+      costCents: 38,
+      refGrades: [{ tolerance: 0.01, extraCents: 10 }],
+      vRefDriftPpmK: 50,
+      loadRegulation: 0.005,
+      lineRegulationPerV: 0.0005,
+      coutMinF: 1e-6,
+      esrMinOhm: 0,
+      esrMaxOhm: null,
+      noiseDensityVrtHz: 1e-6,
+      source: 'from memory: typical of µA-quiescent LDOs rated to about 16 V in, for 9 V and multi-cell batteries',
     },
     ...[5, 3.3, 12].map((v) => ({
       id: `fixed-${String(v).replace('.', 'v')}`,

@@ -6,8 +6,10 @@ import { describe, expect, test } from 'vitest';
 import { assemble } from '~/lib/engine/assemble.ts';
 import { defaultCatalog } from '~/lib/engine/catalog.ts';
 import { makeContext } from '~/lib/engine/context.ts';
+import { evaluate } from '~/lib/engine/evaluate.ts';
 import { railSpecSchema, type RailSpecInput } from '~/lib/engine/rail-spec.ts';
 import { designLinear } from '~/lib/engine/topologies/linear.ts';
+import { dropoutAt } from '~/lib/engine/topologies/regulator-stage.ts';
 import { PSRR_HF_HZ, outputNoiseRms, rippleRejectionDb } from '~/lib/engine/topologies/regulator-noise.ts';
 
 const thermal = { ambientMaxC: 40, airflow: 'still-air' } as const;
@@ -73,6 +75,64 @@ describe('battery 3.6–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest ou
     // The chosen class's requirement is the option's highest output plus its dropout.
     expect(need).toBeGreaterThan(3.6);
     expect(need).toBeLessThanOrEqual(option.vOutRange.max + reg.dropoutV + 0.005);
+  });
+});
+
+// A PMOS/PNP pass device's dropout is resistive: data sheets plot it against load current, close to
+// proportional (common practice), down to a small floor (from memory). An NPN-Darlington pass
+// device's dropout is two junction drops and a saturation, the same at every load (common practice).
+describe('dropout at the actual load', () => {
+  const battery = (vin: readonly [number, number, number], v: number, tolerance: number, load: readonly [number, number, number], noise: 'digital' | 'sensor') =>
+    ({ input: { vMin: vin[0], vNom: vin[1], vMax: vin[2], source: 'battery' }, output: { v, tolerance, iMin: load[0], iTyp: load[1], iMax: load[2] }, noise: { class: noise }, thermal }) as const;
+  const byHand = (input: RailSpecInput) => {
+    const { option } = linearOption(input);
+    const reg = option.components.find((c) => c.role === 'regulator')!;
+    const cls = classOf(reg.part);
+    const r1 = option.components.find((c) => c.role === 'feedback-lower');
+    // Pass current: the load plus the divider (Vref/R1); dropout = Vdo,rated·Ipass/Irated, no lower than the floor.
+    const iPass = input.output.iMax + (r1 ? cls.vRefV / r1.value! : 0);
+    const floor = cls.dropoutWithLoad!.floorV;
+    const dropout = Math.max(floor, (cls.dropoutV * iPass) / cls.iOutMaxA);
+    const traced = option.trace.find((t) => t.id === `${reg.ref}.dropout`)!;
+    return { option, cls, dropout, traced, recommended: evaluate(railSpecSchema.parse(input)).recommended };
+  };
+
+  test('4×AA 3.6–6.4 V → 3.3 V ±5 %, 0.1 A: an LDO at half its rating drops half its rated dropout, and is the recommendation', () => {
+    const { option, cls, dropout, traced, recommended } = byHand(battery([3.6, 5, 6.4], 3.3, 0.05, [0.001, 0.05, 0.1], 'digital'));
+    expect(option.feasible).toBe(true);
+    expect(cls.kind).toBe('ldo');
+    expect(traced.result.value).toBeCloseTo(dropout, 12);
+    expect(dropout).toBeLessThan(cls.dropoutV);
+    // Highest output plus the dropout at 0.1 A fits under the 3.6 V trough (at the rated dropout it would not).
+    expect(option.vOutRange.max + dropout).toBeLessThanOrEqual(3.6);
+    expect(recommended).toBe('linear');
+  });
+
+  test('Li-ion 3.2–4.2 V → 3.0 V ±3 %, 50 µA, sensor: the low-quiescent LDO at its dropout floor', () => {
+    const { option, cls, dropout, traced, recommended } = byHand(battery([3.2, 3.7, 4.2], 3.0, 0.03, [0.000005, 0.00002, 0.00005], 'sensor'));
+    expect(option.feasible).toBe(true);
+    expect(cls.id).toBe('ldo-lowiq-0a2');
+    // 0.25 V · 50 µA / 0.2 A = 62.5 µV, below the floor: the floor holds.
+    expect(dropout).toBe(cls.dropoutWithLoad!.floorV);
+    expect(traced.result.value).toBeCloseTo(dropout, 12);
+    expect(option.vOutRange.max + dropout).toBeLessThanOrEqual(3.2);
+    expect(recommended).toBe('linear');
+  });
+
+  test('2×AA 2.0–3.2 V → 1.8 V ±5 %, 20 mA: an LDO with a tenth of its rated dropout', () => {
+    const { option, cls, dropout, traced, recommended } = byHand(battery([2.0, 2.4, 3.2], 1.8, 0.05, [0.001, 0.01, 0.02], 'digital'));
+    expect(option.feasible).toBe(true);
+    expect(traced.result.value).toBeCloseTo(dropout, 12);
+    expect(dropout).toBeLessThan(cls.dropoutV / 5);
+    expect(option.vOutRange.max + dropout).toBeLessThanOrEqual(2.0);
+    expect(recommended).toBe('linear');
+  });
+
+  test('an NPN-Darlington class keeps its rated dropout at a light load', () => {
+    for (const cls of defaultCatalog.linearRegulators.filter((c) => c.kind === 'adjustable')) {
+      expect(cls.dropoutWithLoad).toBeUndefined();
+      expect(dropoutAt(cls, cls.iOutMaxA / 100)).toBe(cls.dropoutV);
+    }
   });
 });
 

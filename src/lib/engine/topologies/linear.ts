@@ -2,7 +2,7 @@
 import type { Context } from '../context.ts';
 import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
 import { Trace } from '../trace.ts';
-import { regulatorStage } from './regulator-stage.ts';
+import { dropoutAt, regulatorStage } from './regulator-stage.ts';
 
 export function designLinear(ctx: Context): Design {
   const { spec } = ctx;
@@ -42,7 +42,7 @@ export function designLinear(ctx: Context): Design {
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const iIn = stage.inputCurrent(iOut);
     return {
-      regulates: vIn >= stage.vOut + stage.cls.dropoutV,
+      regulates: vIn >= stage.vOut + dropoutAt(stage.cls, iIn - stage.cls.iqA),
       pInW: vIn * iIn,
       pOutW: stage.vOut * iOut,
       stress: stage.stress(vIn, iOut),

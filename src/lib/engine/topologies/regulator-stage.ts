@@ -50,6 +50,13 @@ function isFixedMatch(cls: LinearRegulatorClass, vOut: number): boolean {
   return cls.kind === 'fixed' && Math.abs(cls.vRefV - vOut) <= 0.005 * vOut;
 }
 
+/** Dropout at this pass current: a resistive (PMOS/PNP) pass device scales it from the rated figure down to its floor; others hold it. */
+export function dropoutAt(cls: LinearRegulatorClass, iPass: number): number {
+  const scaling = cls.dropoutWithLoad;
+  if (!scaling) return cls.dropoutV;
+  return Math.min(cls.dropoutV, Math.max(scaling.floorV, (cls.dropoutV * iPass) / cls.iOutMaxA));
+}
+
 /** Divider current: enough to swamp the feedback-pin current, never much of a light load, at least the class's minimum load. */
 export function dividerCurrent(cls: LinearRegulatorClass, iLoadMax: number): number {
   return Math.max(cls.minLoadA, Math.min(DIVIDER_MIN_A, DIVIDER_BIAS_RATIO * cls.iAdjMaxA, Math.max(1e-6, DIVIDER_LOAD_SHARE * iLoadMax)));
@@ -65,17 +72,28 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
   if (iMax + iDiv > CURRENT_DERATING * cls.iOutMaxA) {
     out.push(blocker('current', `${cls.label} is rated ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`));
   }
-  if (input.vTrough < vOutHigh + cls.dropoutV) {
+  const dropout = dropoutAt(cls, iMax + iDiv);
+  if (input.vTrough < vOutHigh + dropout) {
     out.push(
       blocker(
         'headroom',
-        `${cls.label} needs ${cls.dropoutV} V of headroom above its highest output ${vOutHigh.toFixed(3)} V, so at least ${(vOutHigh + cls.dropoutV).toFixed(2)} V in; the input trough is ${input.vTrough.toFixed(2)} V.`,
+        `${cls.label} needs ${formatSi(dropout, 'V', 3)} of headroom at ${formatSi(iMax + iDiv, 'A', 3)} above its highest output ${vOutHigh.toFixed(3)} V, so at least ${(vOutHigh + dropout).toFixed(2)} V in; the input trough is ${input.vTrough.toFixed(2)} V.`,
       ),
     );
   }
   if (cls.vDiffMaxV !== null && input.vMax - vOut > cls.vDiffMaxV) {
     out.push(
       blocker('differential', `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${cls.label} allows ${cls.vDiffMaxV} V.`),
+    );
+  }
+  else if (cls.vDiffMaxV !== null && !input.tracksOutput && input.vMax > cls.vDiffMaxV) {
+    // A three-terminal regulator's differential is an absolute limit: a shorted output, or a
+    // discharged output capacitor at switch-on, puts the whole input across it (common practice).
+    out.push(
+      blocker(
+        'differential-short',
+        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${input.vMax} V input stands across ${cls.label}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
+      ),
     );
   }
   if (cls.vInMaxV !== null && input.vMax > cls.vInMaxV) {
@@ -127,6 +145,8 @@ interface ClassDesign {
   verdict: 'worst-case' | 'statistical' | 'fails';
   psrrDb: number;
   bypass: boolean;
+  /** Dropout at the highest pass current. */
+  dropoutV: number;
   rippleOutVpp: number;
   /** Class price plus the grades' extra cost. */
   costCents: number;
@@ -210,7 +230,8 @@ function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput,
   }
   const vOutHigh = input.tracksOutput ? vTarget : summary.worstCase.max + rippleOutVpp / 2;
   const failures = checkClass(ctx, cls, input, vTarget, iMax, vOutHigh);
-  return { cls, failures, divider, refTolerance, output, summary, verdict, psrrDb, bypass, rippleOutVpp, costCents: cls.costCents + extraCents, extraCents };
+  const dropoutV = dropoutAt(cls, iMax + (divider?.iDivider ?? 0));
+  return { cls, failures, divider, refTolerance, output, summary, verdict, psrrDb, bypass, dropoutV, rippleOutVpp, costCents: cls.costCents + extraCents, extraCents };
 }
 
 const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);
@@ -233,7 +254,7 @@ function pickDesign(designs: ClassDesign[]): ClassDesign {
 const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
 /** Highest output plus dropout: the input trough a design needs. */
-const inputNeeded = (d: ClassDesign) => d.summary.worstCase.max + d.rippleOutVpp / 2 + d.cls.dropoutV;
+const inputNeeded = (d: ClassDesign) => d.summary.worstCase.max + d.rippleOutVpp / 2 + d.dropoutV;
 
 /** What would clear each blocker of the chosen design, from the other designs searched. */
 function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: StageInput): Fix[] {
@@ -248,7 +269,7 @@ function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: 
       code: 'headroom',
       change: `input trough at least ${need.toFixed(2)} V`,
       costCents: best.costCents - chosen.costCents,
-      message: `Needs ≥ ${need.toFixed(2)} V input at the trough with ${best.cls.label} (highest output ${(need - best.cls.dropoutV).toFixed(3)} V + ${best.cls.dropoutV} V dropout); the trough is ${input.vTrough.toFixed(2)} V.`,
+      message: `Needs ≥ ${need.toFixed(2)} V input at the trough with ${best.cls.label} (highest output ${(need - best.dropoutV).toFixed(3)} V + ${formatSi(best.dropoutV, 'V', 3)} dropout at full load); the trough is ${input.vTrough.toFixed(2)} V.`,
     });
   }
   if (chosen.verdict === 'fails') {
@@ -359,6 +380,19 @@ export function regulatorStage(
   }
   trace.select(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
   const vOut = divider?.vOut ?? cls.vRefV;
+  const iPass = iMax + (divider?.iDivider ?? 0);
+  if (cls.dropoutWithLoad) {
+    trace.add(
+      `${regRef}.dropout`,
+      'Dropout at the highest pass current (resistive pass device: it scales with current, down to its floor)',
+      'Vdo = min(Vdo,rated, max(Vdo,floor, Vdo,rated·Ipass/Irated))',
+      { 'Vdo,rated': [cls.dropoutV, 'V'], 'Vdo,floor': [cls.dropoutWithLoad.floorV, 'V'], Ipass: [iPass, 'A'], Irated: [cls.iOutMaxA, 'A'] },
+      d.dropoutV,
+      'V',
+    );
+  } else {
+    trace.add(`${regRef}.dropout`, 'Dropout (junction-limited pass device: the rated figure at every load)', 'Vdo = Vdo,rated', { 'Vdo,rated': [cls.dropoutV, 'V'] }, d.dropoutV, 'V');
+  }
 
   const rippleOutVpp = trace.add(
     `${regRef}.ripple`,
@@ -455,7 +489,7 @@ export function regulatorStage(
     [`${regRef}.vRefTolerance`]: { value: d.refTolerance, unit: '' },
     [`${regRef}.iAdj`]: { value: iAdj, unit: 'A' },
     [`${regRef}.iq`]: { value: cls.iqA, unit: 'A' },
-    [`${regRef}.dropout`]: { value: cls.dropoutV, unit: 'V' },
+    [`${regRef}.dropout`]: { value: d.dropoutV, unit: 'V' },
     [`${regRef}.iLimit`]: { value: cls.iLimitA, unit: 'A' },
   };
   return { cls, regRef, parts, issues, fixes, divider, vOut, output: d.output, rippleOutVpp, assumptions, inputCurrent, stress, faultStress };
