@@ -94,10 +94,5 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
     },
   },
-  {
-    // TEMPORARY: the engine's tests are being rewritten elsewhere; once they carry no `any`, delete this block.
-    files: ['tests/unit/engine/properties.test.ts'],
-    rules: { '@typescript-eslint/no-explicit-any': 'off' },
-  },
   prettier,
 );

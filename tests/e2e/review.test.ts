@@ -11,11 +11,14 @@ const browser = useBrowser();
 const LAPTOP = { width: 1440, height: 900 };
 
 /** The options in the order the page shows them, best first. */
-async function ranking(page: Page): Promise<string[]> {
+/** Each card's topology and score, best first: a re-run with new weights changes the scores even where the order stays. */
+async function standing(page: Page): Promise<string[]> {
   return page
     .getByRole('list', { name: 'Options, best first' })
     .locator('article[data-topology]')
-    .evaluateAll((cards) => cards.map((c) => c.getAttribute('data-topology') ?? ''));
+    .evaluateAll((cards) =>
+      cards.map((c) => `${c.getAttribute('data-topology') ?? ''} ${c.querySelector('[data-figure="score"] dd')?.textContent ?? ''}`),
+    );
 }
 
 async function chartsDrawn(page: Page): Promise<void> {
@@ -64,16 +67,16 @@ describe('an engineer reviews a brief', () => {
     await expect.poll(() => cautions.textContent()).toContain('above the 60 V ES1 limit');
     expect(await cautions.textContent()).toContain('defer to local electrical codes and licensed practice');
     await chartsDrawn(page);
-    const before = await ranking(page);
+    const before = await standing(page);
     expect(before).toHaveLength(7);
     await screenshot(page, 'review-high-voltage');
 
-    // A much heavier cost weight and a forced pass device: re-run, and the order changes.
+    // A much heavier cost weight and a forced pass device: re-run, and the standing changes.
     await page.getByLabel('Parts cost weight').fill('10');
     await page.getByLabel('Pass device').selectOption('nmos');
     await expect.poll(() => page.getByText('Changed since the last run').count()).toBe(1);
     await page.getByRole('button', { name: 'Re-run the engine' }).click();
-    await expect.poll(() => ranking(page), { timeout: 10_000 }).not.toEqual(before);
+    await expect.poll(() => standing(page), { timeout: 10_000 }).not.toEqual(before);
     await page.getByText('The options below reflect these choices.').waitFor();
 
     await page.getByLabel('Choose Linear with high-voltage pre-drop').check();

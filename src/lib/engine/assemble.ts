@@ -64,16 +64,41 @@ function traceJunction(trace: Trace, ref: string, part: ThermalPart, sinkCW: num
   const Ta = [f.ambientC, '°C'] as const;
   const kair = [f.airflow, ''] as const;
   // Only the inputs of the path taken are built.
-  const thetas = sinkCW === null ? { Ta, kair, θJA: [part.thetaJaCW, 'K/W'] as const } : { Ta, kair, θJC: [part.thetaJcCW, 'K/W'] as const, θCS: [f.thetaCs, 'K/W'] as const, θSA: [sinkCW, 'K/W'] as const };
+  const thetas =
+    sinkCW === null
+      ? { Ta, kair, θJA: [part.thetaJaCW, 'K/W'] as const }
+      : { Ta, kair, θJC: [part.thetaJcCW, 'K/W'] as const, θCS: [f.thetaCs, 'K/W'] as const, θSA: [sinkCW, 'K/W'] as const };
   if (f.beyond) {
     const label = `Largest dissipation ${ref} carries within its ${part.tjMaxC} °C limit (it would dissipate ${formatSi(f.power, 'W', 3)})`;
     const theta = sinkCW === null ? part.thetaJaCW * f.airflow : part.thetaJcCW + f.thetaCs + sinkCW * f.airflow;
-    const equation = sinkCW === null ? 'Plimit = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Plimit = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
-    trace.add(`${ref}.plimit`, label, equation, { ...thetas, 'Tj,max': [part.tjMaxC, '°C'] }, powerAtLimit(part.tjMaxC, f.ambientC, theta), 'W');
+    const equation =
+      sinkCW === null ? 'Plimit = max(0, (Tj,max − Ta)/(θJA·kair))' : 'Plimit = max(0, (Tj,max − Ta)/(θJC + θCS + θSA·kair))';
+    trace.add(
+      `${ref}.plimit`,
+      label,
+      equation,
+      { ...thetas, 'Tj,max': [part.tjMaxC, '°C'] },
+      powerAtLimit(part.tjMaxC, f.ambientC, theta),
+      'W',
+    );
   } else if (sinkCW === null) {
-    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·θJA·kair', { ...thetas, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]), '°C');
+    trace.add(
+      `${ref}.tj`,
+      `${ref} junction temperature`,
+      'Tj = Ta + P·θJA·kair',
+      { ...thetas, P: [f.power, 'W'] },
+      junctionTemperature(f.ambientC, f.power, [part.thetaJaCW * f.airflow]),
+      '°C',
+    );
   } else {
-    trace.add(`${ref}.tj`, `${ref} junction temperature`, 'Tj = Ta + P·(θJC + θCS + θSA·kair)', { ...thetas, P: [f.power, 'W'] }, junctionTemperature(f.ambientC, f.power, [part.thetaJcCW, f.thetaCs, sinkCW * f.airflow]), '°C');
+    trace.add(
+      `${ref}.tj`,
+      `${ref} junction temperature`,
+      'Tj = Ta + P·(θJC + θCS + θSA·kair)',
+      { ...thetas, P: [f.power, 'W'] },
+      junctionTemperature(f.ambientC, f.power, [part.thetaJcCW, f.thetaCs, sinkCW * f.airflow]),
+      '°C',
+    );
   }
 }
 
@@ -123,7 +148,12 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     if (p.rateAsResistor) {
       const r = rateResistor(Math.max(s.maxW, s.faultW), Math.max(s.maxV, s.faultV));
       if (r === null) {
-        issues.push(blocker('rating', `${p.ref} would dissipate ${Math.max(s.maxW, s.faultW).toFixed(1)} W at ${Math.max(s.maxV, s.faultV).toFixed(0)} V; no resistor string in the ratings ladder carries that.`));
+        issues.push(
+          blocker(
+            'rating',
+            `${p.ref} would dissipate ${Math.max(s.maxW, s.faultW).toFixed(1)} W at ${Math.max(s.maxV, s.faultV).toFixed(0)} V; no resistor string in the ratings ladder carries that.`,
+          ),
+        );
         p.ratingW = null;
       } else {
         p.ratingW = r.ratingW;
@@ -132,7 +162,12 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
         // A designer's costCents on a resistor is its grade's extra cost per part.
         p.costCents = (resistorCents(ctx, r.ratingW) + p.costCents) * r.count;
         if (r.count > 1) {
-          issues.push(caution('resistor-string', `${p.ref} is a string of ${r.count} equal resistors (${((p.value ?? 0) / r.count).toPrecision(3)} Ω each) so no single resistor exceeds its limiting voltage.`));
+          issues.push(
+            caution(
+              'resistor-string',
+              `${p.ref} is a string of ${r.count} equal resistors (${((p.value ?? 0) / r.count).toPrecision(3)} Ω each) so no single resistor exceeds its limiting voltage.`,
+            ),
+          );
         }
       }
     } else if (ZENER_ROLES.has(p.role) && p.ratingW !== null) {
@@ -140,10 +175,17 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
       if (p.ratingW < RATING_FACTOR * worst) {
         const needed = ratingFor(ZENER_POWER_W, worst);
         issues.push(
-          blocker('rating', `${p.ref} would dissipate ${worst.toFixed(2)} W and needs a ${needed === null ? `${(2 * worst).toFixed(1)} W` : `${needed} W`} Zener; the catalog's largest fitting series is ${p.ratingW} W.`),
+          blocker(
+            'rating',
+            `${p.ref} would dissipate ${worst.toFixed(2)} W and needs a ${needed === null ? `${(2 * worst).toFixed(1)} W` : `${needed} W`} Zener; the catalog's largest fitting series is ${p.ratingW} W.`,
+          ),
         );
       }
-    } else if (p.role === 'pass-transistor' && p.ratingV !== null && p.ratingV < SEMICONDUCTOR_VOLTAGE_FACTOR * Math.max(s.maxV, s.faultV)) {
+    } else if (
+      p.role === 'pass-transistor' &&
+      p.ratingV !== null &&
+      p.ratingV < SEMICONDUCTOR_VOLTAGE_FACTOR * Math.max(s.maxV, s.faultV)
+    ) {
       issues.push(blocker('rating', `${p.ref} is rated ${p.ratingV} V but sees up to ${Math.max(s.maxV, s.faultV).toFixed(0)} V.`));
     }
   }
@@ -158,9 +200,23 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     totalMaxW = Math.max(totalMaxW, p.pInW - p.pOutW);
   });
   if (nominal.pInW > 0) {
-    trace.add('efficiency.nominal', 'Efficiency at the nominal corner', 'η = min(1, max(0, Pout/Pin))', { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] }, effNominal, '');
+    trace.add(
+      'efficiency.nominal',
+      'Efficiency at the nominal corner',
+      'η = min(1, max(0, Pout/Pin))',
+      { Pout: [nominal.pOutW, 'W'], Pin: [nominal.pInW, 'W'] },
+      effNominal,
+      '',
+    );
   } else {
-    trace.select('efficiency.nominal', 'Efficiency at the nominal corner (the design draws no input power there)', 'η = 0', {}, effNominal, '');
+    trace.select(
+      'efficiency.nominal',
+      'Efficiency at the nominal corner (the design draws no input power there)',
+      'η = 0',
+      {},
+      effNominal,
+      '',
+    );
   }
   trace.select('efficiency.worst', 'Lowest efficiency over the loaded corners', 'η = min(Pout / Pin)', {}, effWorst, '');
   trace.select('dissipation.total', 'Largest total dissipation over the corners', 'P = max(Pin − Pout)', {}, totalMaxW, 'W');
@@ -172,10 +228,27 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const ambientC = box === null ? ctx.ambientC : ctx.roomC + box.riseK;
   if (box !== null) {
     const { P, Pother, k, A, ρcp, V̇ } = box.inputs;
-    trace.add('enclosure.rise', 'Inside air rise of the enclosure (steady heat balance: surface k·A after IEC TR 60890, plus the fan’s air ρ·cp·V̇)', 'ΔT = (P + Pother)/(k·A + ρcp·V̇)', {
-      P: [P, 'W'], Pother: [Pother, 'W'], k: [k, 'W/(m²·K)'], A: [A, 'm²'], ρcp: [ρcp, 'J/(m³·K)'], V̇: [V̇, 'm³/s'],
-    }, box.riseK, 'K');
-    issues.push(info('enclosure', `Inside the enclosure the air runs ${box.riseK.toFixed(1)} K above the room with ${(P + Pother).toFixed(2)} W dissipated in it: every part is rated at ${ambientC.toFixed(1)} °C ambient.`));
+    trace.add(
+      'enclosure.rise',
+      'Inside air rise of the enclosure (steady heat balance: surface k·A after IEC TR 60890, plus the fan’s air ρ·cp·V̇)',
+      'ΔT = (P + Pother)/(k·A + ρcp·V̇)',
+      {
+        P: [P, 'W'],
+        Pother: [Pother, 'W'],
+        k: [k, 'W/(m²·K)'],
+        A: [A, 'm²'],
+        ρcp: [ρcp, 'J/(m³·K)'],
+        V̇: [V̇, 'm³/s'],
+      },
+      box.riseK,
+      'K',
+    );
+    issues.push(
+      info(
+        'enclosure',
+        `Inside the enclosure the air runs ${box.riseK.toFixed(1)} K above the room with ${(P + Pother).toFixed(2)} W dissipated in it: every part is rated at ${ambientC.toFixed(1)} °C ambient.`,
+      ),
+    );
   }
   const junctions: Junction[] = [];
   const surfaces: HotPart[] = [];
@@ -192,24 +265,57 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     const t = assessThermal(p.thermal, power, ambientC, airflow, catalog, p.thermal.heatsinkable ? forcedSink : undefined);
     const limitC = p.thermal.tjMaxC;
     const beyond = t.tjC > limitC;
-    traceJunction(trace, p.ref, p.thermal, t.sinkThetaCW, { ambientC, power, airflow, thetaCs: p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, beyond });
+    traceJunction(trace, p.ref, p.thermal, t.sinkThetaCW, {
+      ambientC,
+      power,
+      airflow,
+      thetaCs: p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW,
+      beyond,
+    });
     junctions.push({ ref: p.ref, tjC: Math.min(t.tjC, limitC), tjMaxC: limitC, heatsink: t.sinkThetaCW !== null, beyondLimit: beyond });
-    surfaces.push({ ref: t.sinkThetaCW === null ? p.ref : `heatsink of ${p.ref}`, surfaceC: Math.min(t.surfaceC, limitC), beyondLimitC: t.surfaceC > limitC ? limitC : null });
+    surfaces.push({
+      ref: t.sinkThetaCW === null ? p.ref : `heatsink of ${p.ref}`,
+      surfaceC: Math.min(t.surfaceC, limitC),
+      beyondLimitC: t.surfaceC > limitC ? limitC : null,
+    });
     margin = Math.min(margin, (limitC - t.tjC) / Math.max(1, limitC - ambientC));
     if (t.maxThetaSaCW !== null) {
       maxThetaSa = maxThetaSa === null ? t.maxThetaSaCW : Math.min(maxThetaSa, t.maxThetaSaCW);
-      trace.add(`${p.ref}.thetasa`, `Largest heatsink θSA for ${p.ref} (the sink's θSA scales with the airflow factor kair)`, 'θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair', {
-        'Tj,max': [limitC, '°C'], margin: [catalog.thermal.tjMarginK, 'K'], Ta: [ambientC, '°C'], P: [power, 'W'], θJC: [p.thermal.thetaJcCW, 'K/W'], θCS: [p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, 'K/W'], kair: [airflow, ''],
-      }, t.maxThetaSaCW, 'K/W');
+      trace.add(
+        `${p.ref}.thetasa`,
+        `Largest heatsink θSA for ${p.ref} (the sink's θSA scales with the airflow factor kair)`,
+        'θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair',
+        {
+          'Tj,max': [limitC, '°C'],
+          margin: [catalog.thermal.tjMarginK, 'K'],
+          Ta: [ambientC, '°C'],
+          P: [power, 'W'],
+          θJC: [p.thermal.thetaJcCW, 'K/W'],
+          θCS: [p.thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, 'K/W'],
+          kair: [airflow, ''],
+        },
+        t.maxThetaSaCW,
+        'K/W',
+      );
     }
     if (t.sinkThetaCW !== null) {
       heatsinkRequired = true;
-      sinks.push(makePart({ ref: `HS${sinks.length + 1}`, role: 'heatsink', part: `Heatsink for ${p.ref}`, value: t.sinkThetaCW, unit: 'K/W', costCents: t.sinkCostCents }));
+      sinks.push(
+        makePart({
+          ref: `HS${sinks.length + 1}`,
+          role: 'heatsink',
+          part: `Heatsink for ${p.ref}`,
+          value: t.sinkThetaCW,
+          unit: 'K/W',
+          costCents: t.sinkCostCents,
+        }),
+      );
     }
     // Text only for a part with a problem to report.
     const at = t.problem === 'too-hot' || t.problem === 'no-sink-fits' ? formatSi(power, 'W', 3) : '';
     if (t.problem === 'too-hot') {
-      const why = t.sinkThetaCW !== null ? ` even on the ${t.sinkThetaCW} K/W heatsink` : p.thermal.heatsinkable ? '' : ' and cannot take a heatsink';
+      const why =
+        t.sinkThetaCW !== null ? ` even on the ${t.sinkThetaCW} K/W heatsink` : p.thermal.heatsinkable ? '' : ' and cannot take a heatsink';
       issues.push(blocker('thermal', `${p.ref} would be beyond its ${limitC} °C limit at ${at}${why}.`));
     }
     if (t.problem === 'no-sink-fits') {
@@ -233,7 +339,12 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     }
     if (t.problem === 'impractical') {
       impractical = true;
-      issues.push(caution('heatsink-impractical', `${p.ref} needs a heatsink of θSA ≤ ${(t.maxThetaSaCW ?? 0).toFixed(2)} K/W: impractical heatsink (large, costly or fan-cooled).`));
+      issues.push(
+        caution(
+          'heatsink-impractical',
+          `${p.ref} needs a heatsink of θSA ≤ ${(t.maxThetaSaCW ?? 0).toFixed(2)} K/W: impractical heatsink (large, costly or fan-cooled).`,
+        ),
+      );
     }
   }
 
@@ -249,8 +360,22 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const half = design.rippleVpp / 2;
   // A positive rail collapses to 0 V at worst; it never reverses.
   const vOutRange = { min: Math.max(0, eva.min - half), max: Math.max(0, eva.max + half) };
-  trace.select('vout.min', 'Lowest output (extreme values, less half the ripple; never below 0 V)', 'Vmin = max(0, min over tolerance corners − ΔV/2)', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.min, 'V');
-  trace.select('vout.max', 'Highest output (extreme values, plus half the ripple)', 'Vmax = max over tolerance corners + ΔV/2', { ΔV: [design.rippleVpp, 'V'] }, vOutRange.max, 'V');
+  trace.select(
+    'vout.min',
+    'Lowest output (extreme values, less half the ripple; never below 0 V)',
+    'Vmin = max(0, min over tolerance corners − ΔV/2)',
+    { ΔV: [design.rippleVpp, 'V'] },
+    vOutRange.min,
+    'V',
+  );
+  trace.select(
+    'vout.max',
+    'Highest output (extreme values, plus half the ripple)',
+    'Vmax = max over tolerance corners + ΔV/2',
+    { ΔV: [design.rippleVpp, 'V'] },
+    vOutRange.max,
+    'V',
+  );
   const rule = spec.overrides.toleranceRule ?? 'statistical';
   const verdict = toleranceVerdict(spread, band, rule, half);
   const bandText = `${band.lo.toFixed(3)}–${band.hi.toFixed(3)} V`;
@@ -267,7 +392,12 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
     }
   }
   if (design.rippleVpp > spec.noise.maxRippleVpp) {
-    issues.push(blocker('ripple', `The output ripple ${(design.rippleVpp * 1e3).toFixed(2)} mV exceeds the rail's ${(spec.noise.maxRippleVpp * 1e3).toFixed(2)} mV limit.`));
+    issues.push(
+      blocker(
+        'ripple',
+        `The output ripple ${(design.rippleVpp * 1e3).toFixed(2)} mV exceeds the rail's ${(spec.noise.maxRippleVpp * 1e3).toFixed(2)} mV limit.`,
+      ),
+    );
   }
 
   // Cautions.
@@ -334,7 +464,10 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   };
   if (verdict === 'statistical') {
     issues.push(
-      caution('tolerance-statistical', `The worst-case output ${worstText} leaves the rail's ${bandText}; the statistical spread, ${sigmaText} plus half the ripple, stays inside (Monte Carlo yield ${(mc.fractionInTolerance * 100).toFixed(2)} %). A few units in a large batch may fall outside: test each, or require the worst-case rule.`),
+      caution(
+        'tolerance-statistical',
+        `The worst-case output ${worstText} leaves the rail's ${bandText}; the statistical spread, ${sigmaText} plus half the ripple, stays inside (Monte Carlo yield ${(mc.fractionInTolerance * 100).toFixed(2)} %). A few units in a large batch may fall outside: test each, or require the worst-case rule.`,
+      ),
     );
   }
   return {

@@ -109,7 +109,9 @@ const byPrice = new WeakMap<Catalog, { family: CapacitorFamily; row: Case }[]>()
 function casesByPrice(catalog: Catalog): { family: CapacitorFamily; row: Case }[] {
   let list = byPrice.get(catalog);
   if (!list) {
-    list = catalog.capacitors.flatMap((family) => family.cases.map((row) => ({ family, row }))).sort((a, b) => a.row.costCents - b.row.costCents);
+    list = catalog.capacitors
+      .flatMap((family) => family.cases.map((row) => ({ family, row })))
+      .sort((a, b) => a.row.costCents - b.row.costCents);
     byPrice.set(catalog, list);
   }
   return list;
@@ -132,7 +134,8 @@ function bestFit(catalog: Catalog, need: CapacitorNeed): Fit | null {
     const cost = row.costCents * count;
     const short = life !== null && life < LIFE_TARGET_H;
     const than = short ? bestShort : best;
-    if (than !== null && !(cost < than.row.costCents * than.count || (cost === than.row.costCents * than.count && count < than.count))) continue;
+    if (than !== null && !(cost < than.row.costCents * than.count || (cost === than.row.costCents * than.count && count < than.count)))
+      continue;
     if (short) bestShort = { family, row, count, life };
     else best = { family, row, count, life };
   }
@@ -155,9 +158,19 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
   const chosen: Fit =
     fit ??
     (() => {
-      const family = [...catalog.capacitors].sort((a, b) => Math.max(...b.cases.map((c) => c.vRatedV)) - Math.max(...a.cases.map((c) => c.vRatedV)))[0]!;
+      const family = [...catalog.capacitors].sort(
+        (a, b) => Math.max(...b.cases.map((c) => c.vRatedV)) - Math.max(...a.cases.map((c) => c.vRatedV)),
+      )[0]!;
       const row = [...family.cases].sort((a, b) => b.vRatedV - a.vRatedV || b.cMaxF - a.cMaxF)[0]!;
-      return { family, row, perPartF: row.cMaxF, count: 1, effectiveF: row.cMaxF * retained(family, row, need.workingV), lifeHours: null, costCents: row.costCents };
+      return {
+        family,
+        row,
+        perPartF: row.cMaxF,
+        count: 1,
+        effectiveF: row.cMaxF * retained(family, row, need.workingV),
+        lifeHours: null,
+        costCents: row.costCents,
+      };
     })();
   const farads = chosen.perPartF * chosen.count;
   const part = makePart({
@@ -174,9 +187,15 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
   let issue: Issue | null = null;
   if (fit === null) {
     const what = need.forcedF !== undefined ? `the forced ${formatSi(need.forcedF, 'F')}` : `${formatSi(need.effectiveF, 'F')} effective`;
-    issue = blocker('capacitor', `${ref} needs ${what} at ${need.workingV.toFixed(1)} V working (rating ≥ ${(CAPACITOR_VOLTAGE_FACTOR * need.workingV).toFixed(0)} V) carrying ${need.rmsA.toFixed(2)} A RMS; no family and case in the catalog offers that in ${MAX_PARALLEL} parts or fewer.`);
+    issue = blocker(
+      'capacitor',
+      `${ref} needs ${what} at ${need.workingV.toFixed(1)} V working (rating ≥ ${(CAPACITOR_VOLTAGE_FACTOR * need.workingV).toFixed(0)} V) carrying ${need.rmsA.toFixed(2)} A RMS; no family and case in the catalog offers that in ${MAX_PARALLEL} parts or fewer.`,
+    );
   } else if (chosen.lifeHours !== null && chosen.lifeHours < LIFE_TARGET_H) {
-    issue = caution('capacitor-life', `${ref} (${chosen.family.label}) lasts about ${Math.round(chosen.lifeHours).toLocaleString('en-GB')} h at ${need.ambientC} °C with ${need.rmsA.toFixed(2)} A RMS, short of ${LIFE_TARGET_H.toLocaleString('en-GB')} h; plan its replacement or choose a longer-life series.`);
+    issue = caution(
+      'capacitor-life',
+      `${ref} (${chosen.family.label}) lasts about ${Math.round(chosen.lifeHours).toLocaleString('en-GB')} h at ${need.ambientC} °C with ${need.rmsA.toFixed(2)} A RMS, short of ${LIFE_TARGET_H.toLocaleString('en-GB')} h; plan its replacement or choose a longer-life series.`,
+    );
   }
   return {
     part,
@@ -195,7 +214,12 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
 /** A single capacitor of about the wanted nominal value (bypass, decoupling, regulator input and output). */
 export function chooseCapacitor(ref: string, role: ComponentRole, wantedF: number, worstV: number, catalog: Catalog): ChosenCapacitor {
   const nominal = snap(Math.max(wantedF, 1e-12), 'E6', 'up');
-  return chooseCapacitorBank(ref, role, { effectiveF: 0, forcedF: nominal, workingV: worstV, rmsA: 0, esrMaxOhm: Infinity, ambientC: 25 }, catalog);
+  return chooseCapacitorBank(
+    ref,
+    role,
+    { effectiveF: 0, forcedF: nominal, workingV: worstV, rmsA: 0, esrMaxOhm: Infinity, ambientC: 25 },
+    catalog,
+  );
 }
 
 /** Largest single capacitor value the catalog offers (for limits on what a search may ask). */

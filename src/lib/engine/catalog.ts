@@ -26,7 +26,10 @@ const linearRegulatorSchema = z
      * so it falls in proportion to the pass current down to floorV. Absent (NPN-Darlington pass): the
      * dropout is set by junction drops and holds at every load.
      */
-    dropoutWithLoad: z.object({ floorV: pos, source: z.string().min(1) }).strict().optional(),
+    dropoutWithLoad: z
+      .object({ floorV: pos, source: z.string().min(1) })
+      .strict()
+      .optional(),
     /** Largest input-output differential (floating classes) — null where the input is limited absolutely. */
     vDiffMaxV: pos.nullable(),
     /** Largest input voltage to ground — null for floating classes, which only see the differential. */
@@ -292,7 +295,8 @@ const RZ_1W3 = [
 const scaleRz = (k: number) => RZ_1W3.map((p) => ({ v: p.v, ohm: p.ohm * k }));
 
 /** Why an LDO's dropout is scaled with its load: data sheets plot it against load current. */
-const RESISTIVE_DROPOUT_SOURCE = 'common practice: data sheets give a PMOS LDO’s dropout against load current, near-proportional to it; the no-load floor from memory';
+const RESISTIVE_DROPOUT_SOURCE =
+  'common practice: data sheets give a PMOS LDO’s dropout against load current, near-proportional to it; the no-load floor from memory';
 
 /** Every figure below: typical — confirm against the chosen part's data. */
 export const defaultCatalog: Catalog = {
@@ -323,7 +327,10 @@ export const defaultCatalog: Catalog = {
       psrrHfDb: 25,
       costCents: 25,
       // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
+      refGrades: [
+        { tolerance: 0.02, extraCents: 10 },
+        { tolerance: 0.01, extraCents: 25 },
+      ],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -357,7 +364,10 @@ export const defaultCatalog: Catalog = {
       psrrHfDb: 25,
       costCents: 45,
       // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
+      refGrades: [
+        { tolerance: 0.02, extraCents: 10 },
+        { tolerance: 0.01, extraCents: 25 },
+      ],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -391,7 +401,10 @@ export const defaultCatalog: Catalog = {
       psrrHfDb: 25,
       costCents: 120,
       // from memory: the adjustable regulator is also sold as a ±1 % reference selection, for precision and high-voltage rails.
-      refGrades: [{ tolerance: 0.02, extraCents: 10 }, { tolerance: 0.01, extraCents: 25 }],
+      refGrades: [
+        { tolerance: 0.02, extraCents: 10 },
+        { tolerance: 0.01, extraCents: 25 },
+      ],
       vRefDriftPpmK: 50,
       loadRegulation: 0.005,
       lineRegulationPerV: 0.0002,
@@ -701,10 +714,42 @@ export const defaultCatalog: Catalog = {
     },
   ],
   resistorGrades: [
-    { id: 'thick-5', label: 'thick film, 5 %', tolerance: 0.05, tcrPpmK: 200, series: 'E24', extraCents: 0, source: 'common practice: general-purpose thick-film chip resistors' },
-    { id: 'thick-1', label: 'thick film, 1 %', tolerance: 0.01, tcrPpmK: 100, series: 'E96', extraCents: 0, source: 'common practice: 1 % thick film at the price of 5 %' },
-    { id: 'thin-0.5', label: 'thin film, 0.5 %', tolerance: 0.005, tcrPpmK: 50, series: 'E192', extraCents: 3, source: 'from memory: distributor prices for small quantities' },
-    { id: 'thin-0.1', label: 'thin film, 0.1 %', tolerance: 0.001, tcrPpmK: 25, series: 'E192', extraCents: 9, source: 'from memory: distributor prices for small quantities' },
+    {
+      id: 'thick-5',
+      label: 'thick film, 5 %',
+      tolerance: 0.05,
+      tcrPpmK: 200,
+      series: 'E24',
+      extraCents: 0,
+      source: 'common practice: general-purpose thick-film chip resistors',
+    },
+    {
+      id: 'thick-1',
+      label: 'thick film, 1 %',
+      tolerance: 0.01,
+      tcrPpmK: 100,
+      series: 'E96',
+      extraCents: 0,
+      source: 'common practice: 1 % thick film at the price of 5 %',
+    },
+    {
+      id: 'thin-0.5',
+      label: 'thin film, 0.5 %',
+      tolerance: 0.005,
+      tcrPpmK: 50,
+      series: 'E192',
+      extraCents: 3,
+      source: 'from memory: distributor prices for small quantities',
+    },
+    {
+      id: 'thin-0.1',
+      label: 'thin film, 0.1 %',
+      tolerance: 0.001,
+      tcrPpmK: 25,
+      series: 'E192',
+      extraCents: 9,
+      source: 'from memory: distributor prices for small quantities',
+    },
   ],
   passDevices: [
     {
@@ -1021,7 +1066,8 @@ export const defaultCatalog: Catalog = {
       thetaJaCW: 45,
       tjMaxC: 150,
       costCents: 320,
-      source: 'from memory: typical of 120–150 V synchronous buck parts for telecom, e-bike and rectified low-voltage buses with surge margin',
+      source:
+        'from memory: typical of 120–150 V synchronous buck parts for telecom, e-bike and rectified low-voltage buses with surge margin',
     },
     {
       id: 'buck-diode-100v',
@@ -1309,7 +1355,8 @@ export const defaultCatalog: Catalog = {
       thetaJaCW: 35,
       tjMaxC: 150,
       costCents: 520,
-      source: 'from memory: typical of 60 V four-switch buck-boost controllers (sense resistor sets the limit) with four logic-level 80 V MOSFETs, for 12–48 V industrial and vehicle buses',
+      source:
+        'from memory: typical of 60 V four-switch buck-boost controllers (sense resistor sets the limit) with four logic-level 80 V MOSFETs, for 12–48 V industrial and vehicle buses',
     },
   ],
   capacitors: [

@@ -61,7 +61,9 @@ export function hotSurfaces(parts: readonly HotPart[], hotResistors: readonly st
   const hot = parts.filter((p) => p.surfaceC > HOT_SURFACE_C);
   if (hot.length === 0 && hotResistors.length === 0) return null;
   const list = [
-    ...hot.map((p) => (p.beyondLimitC === null ? `${p.ref} (about ${p.surfaceC.toFixed(0)} °C)` : `${p.ref} (beyond its ${p.beyondLimitC} °C limit)`)),
+    ...hot.map((p) =>
+      p.beyondLimitC === null ? `${p.ref} (about ${p.surfaceC.toFixed(0)} °C)` : `${p.ref} (beyond its ${p.beyondLimitC} °C limit)`,
+    ),
     ...hotResistors.map((r) => `${r} (power resistor)`),
   ].join(', ');
   return {
@@ -74,6 +76,7 @@ export function mainsScope(spec: RailSpec): Caution | null {
   if (spec.input.source !== 'rectified') return null;
   return {
     code: 'mains-scope',
-    message: 'The input is rectified mains: isolation, fusing, inrush and surge protection upstream of this regulator are outside what this engine designs. Have them designed to the applicable standard.',
+    message:
+      'The input is rectified mains: isolation, fusing, inrush and surge protection upstream of this regulator are outside what this engine designs. Have them designed to the applicable standard.',
   };
 }

@@ -85,7 +85,14 @@ export function makePart(init: PartInit): DesignPart {
 }
 
 /** gradeCents: a precision grade's extra cost per resistor, added to the power rating's price. */
-export function resistorPart(ref: string, role: ComponentRole, ohms: number, tolerance: number, series: string, gradeCents = 0): DesignPart {
+export function resistorPart(
+  ref: string,
+  role: ComponentRole,
+  ohms: number,
+  tolerance: number,
+  series: string,
+  gradeCents = 0,
+): DesignPart {
   return makePart({
     ref,
     role,

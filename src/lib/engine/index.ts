@@ -1,8 +1,18 @@
 // Public surface of the engine.
 export { evaluate, DEFAULT_SEED } from './evaluate.ts';
-export { railSpecSchema, railSpecIssues, noiseClassDefaults, defaultWeights, noiseClasses, type RailSpec, type RailSpecInput, type RailSpecIssue, type NoiseClass } from './rail-spec.ts';
+export {
+  railSpecSchema,
+  railSpecIssues,
+  noiseClassDefaults,
+  defaultWeights,
+  noiseClasses,
+  type RailSpec,
+  type RailSpecInput,
+  type RailSpecIssue,
+  type NoiseClass,
+} from './rail-spec.ts';
 export { catalogSchema, defaultCatalog, type Catalog } from './catalog.ts';
 export { formatSi, parseSi } from './units.ts';
 export { E_SERIES, snap, type SeriesName } from './eseries.ts';
-export { toSpiceNetlist, type SpiceCorner } from './spice.ts';
+export { toSpiceNetlist, type SpiceCorner } from './spice/index.ts';
 export * from './types.ts';

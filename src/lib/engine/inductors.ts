@@ -51,7 +51,14 @@ export function coreLossW(catalog: Catalog, henries: number, isatA: number, ripp
  * peak, raised to the converter's current limit when the ladder allows, so a short that drives
  * the switch to its limit leaves the inductor unsaturated.
  */
-export function chooseInductor(ref: string, catalog: Catalog, wantedH: number, peakA: number, limitA: number, forcedH: number | undefined): { chosen: ChosenInductor; issue: Issue | null } {
+export function chooseInductor(
+  ref: string,
+  catalog: Catalog,
+  wantedH: number,
+  peakA: number,
+  limitA: number,
+  forcedH: number | undefined,
+): { chosen: ChosenInductor; issue: Issue | null } {
   const ladder = catalog.inductors.isatStepsA;
   const henries = forcedH ?? snapInductance(catalog, wantedH);
   const forLimit = pickFromLadder(ladder, Math.max(ISAT_MARGIN * peakA, limitA));
@@ -66,6 +73,12 @@ export function chooseInductor(ref: string, catalog: Catalog, wantedH: number, p
     tolerance: 0.2,
     costCents: inductorCost(catalog, henries, isatA),
   });
-  const issue = forPeak === null ? blocker('inductor', `The peak inductor current ${peakA.toFixed(2)} A needs a saturation rating of ${(ISAT_MARGIN * peakA).toFixed(1)} A, beyond the catalog.`) : null;
+  const issue =
+    forPeak === null
+      ? blocker(
+          'inductor',
+          `The peak inductor current ${peakA.toFixed(2)} A needs a saturation rating of ${(ISAT_MARGIN * peakA).toFixed(1)} A, beyond the catalog.`,
+        )
+      : null;
   return { chosen: { part, henries, isatA, dcrOhm: inductorDcr(catalog, henries, isatA), survivesLimit: isatA >= limitA }, issue };
 }

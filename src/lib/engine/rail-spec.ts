@@ -103,10 +103,16 @@ const overridesSchema = z.strictObject({
   /** statistical: the ±3σ output may decide feasibility (with a caution); worst-case: only the extreme values may. */
   toleranceRule: z.optional(z.enum(['statistical', 'worst-case'], { error: 'The tolerance rule must be statistical or worst-case.' })),
   parts: z.optional(
-    z.record(z.string().check(z.regex(/^[A-Z]{1,3}[0-9]{1,3}$/, 'A part reference looks like R1 or HS1.')), positive('A forced part value', 1e12)),
+    z.record(
+      z.string().check(z.regex(/^[A-Z]{1,3}[0-9]{1,3}$/, 'A part reference looks like R1 or HS1.')),
+      positive('A forced part value', 1e12),
+    ),
   ),
   mcDraws: z.optional(
-    whole('The number of Monte Carlo draws', 100, 100_000, { min: 'Use at least 100 Monte Carlo draws.', max: 'Use at most 100 000 Monte Carlo draws.' }),
+    whole('The number of Monte Carlo draws', 100, 100_000, {
+      min: 'Use at least 100 Monte Carlo draws.',
+      max: 'Use at most 100 000 Monte Carlo draws.',
+    }),
   ),
   seed: z.optional(whole('The seed', 0, 0xffffffff, { min: 'The seed must not be negative.', max: 'The seed must fit in 32 bits.' })),
 });

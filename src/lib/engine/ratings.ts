@@ -28,9 +28,7 @@ export const RESISTOR_LIMIT_V: Readonly<Record<number, number>> = {
 };
 
 /** Capacitor voltage ratings, V (common practice ladder). */
-export const CAPACITOR_V = [
-  6.3, 10, 16, 25, 35, 50, 63, 100, 160, 250, 400, 450, 630, 1000, 1500, 2000, 3000, 6000,
-] as const;
+export const CAPACITOR_V = [6.3, 10, 16, 25, 35, 50, 63, 100, 160, 250, 400, 450, 630, 1000, 1500, 2000, 3000, 6000] as const;
 
 /** Zener power ratings, W (common practice). */
 export const ZENER_POWER_W = [0.5, 1, 1.3, 3, 5] as const;

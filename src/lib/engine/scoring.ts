@@ -114,9 +114,18 @@ const LINEAR_OUTPUT = new Set<TopologyId>(['shunt', 'linear', 'linear-predrop', 
 const BARE_SWITCHER = new Set<TopologyId>(['buck', 'boost', 'buck-boost']);
 
 /** Why an option is handicapped in the ranking (points and the sentence that says so), if it is. */
-export function rankingHandicap(option: Option, feasible: readonly Option[], spec?: Pick<RailSpec, 'noise'>): { points: number; why: string } | null {
+export function rankingHandicap(
+  option: Option,
+  feasible: readonly Option[],
+  spec?: Pick<RailSpec, 'noise'>,
+): { points: number; why: string } | null {
   const has = (t: TopologyId) => feasible.some((o) => o.topology === t);
-  if (spec && (spec.noise.class === 'rf' || spec.noise.class === 'precision') && BARE_SWITCHER.has(option.topology) && feasible.some((o) => LINEAR_OUTPUT.has(o.topology))) {
+  if (
+    spec &&
+    (spec.noise.class === 'rf' || spec.noise.class === 'precision') &&
+    BARE_SWITCHER.has(option.topology) &&
+    feasible.some((o) => LINEAR_OUTPUT.has(o.topology))
+  ) {
     return {
       points: QUIET_RAIL_MARGIN_POINTS,
       why: `on an ${spec.noise.class === 'rf' ? 'RF' : 'precision-analog'} rail a linear output stage is preferred to a filtered switching output unless the switcher wins by more than ${QUIET_RAIL_MARGIN_POINTS} points (common practice)`,
@@ -165,14 +174,21 @@ const SUB_SCORE_WORDS: Record<keyof SubScores, string> = {
 /** In words, why the first option of a ranked list is the pick. */
 export function pickReason(ranked: readonly Option[], weights: RailSpec['weights'], spec?: Pick<RailSpec, 'noise'>): string {
   const [pick, next] = ranked;
-  if (!pick || !pick.feasible) return 'No option meets every requirement; each one lists its blockers and, where a change clears them, what it costs.';
+  if (!pick || !pick.feasible)
+    return 'No option meets every requirement; each one lists its blockers and, where a change clears them, what it costs.';
   const blocked = ranked.filter((o) => !o.feasible).map((o) => o.topology);
   const blockedText = blocked.length > 0 ? ` Not feasible: ${blocked.join(', ')}.` : '';
   if (!next || !next.feasible) return `${pick.label} is the only option that meets every requirement.${blockedText}`;
   const a = pick.score ?? 0;
   const b = next.score ?? 0;
   const passedOver = ranked.find((o) => o.feasible && (o.score ?? 0) > a + TIE_POINTS);
-  const handicap = passedOver ? rankingHandicap(passedOver, ranked.filter((o) => o.feasible), spec) : null;
+  const handicap = passedOver
+    ? rankingHandicap(
+        passedOver,
+        ranked.filter((o) => o.feasible),
+        spec,
+      )
+    : null;
   if (passedOver && handicap) {
     return `${pick.label} (score ${a.toFixed(1)}) is preferred to ${passedOver.label} (${(passedOver.score ?? 0).toFixed(1)}): ${handicap.why}.${blockedText}`;
   }

@@ -15,7 +15,14 @@ export function junctionTemperature(ambientC: number, powerW: number, thetasCW: 
  * Null when the part dissipates nothing, or when no heatsink can work (the budget is spent before
  * the sink: a θSA at or below zero does not exist).
  */
-export function maxSinkTheta(tjDesignC: number, ambientC: number, powerW: number, thetaJcCW: number, thetaCsCW: number, airflow: number): number | null {
+export function maxSinkTheta(
+  tjDesignC: number,
+  ambientC: number,
+  powerW: number,
+  thetaJcCW: number,
+  thetaCsCW: number,
+  airflow: number,
+): number | null {
   if (!(powerW > 0)) return null;
   const theta = ((tjDesignC - ambientC) / powerW - thetaJcCW - thetaCsCW) / airflow;
   return theta > 0 ? theta : null;

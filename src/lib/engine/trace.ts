@@ -19,7 +19,15 @@ export class Trace {
     return this.push('selection', id, label, equation, inputs, value, unit);
   }
 
-  private push(kind: TraceEntry['kind'], id: string, label: string, equation: string, inputs: TraceInputs, value: number, unit: string): number {
+  private push(
+    kind: TraceEntry['kind'],
+    id: string,
+    label: string,
+    equation: string,
+    inputs: TraceInputs,
+    value: number,
+    unit: string,
+  ): number {
     const mapped: Record<string, Quantity> = {};
     // for…in visits own keys in the order Object.entries would, without the pairs it allocates.
     for (const name in inputs) {

@@ -77,7 +77,10 @@ const PREFIX_FACTOR: Readonly<Record<string, number>> = {
  * trailing unit symbol ("4.7 kΩ", "220uF"). Returns null when the text is not a number.
  */
 export function parseSi(text: string): number | null {
-  const trimmed = text.trim().replace(/[ΩVAFHWs]$|Hz$|ohm$/i, '').trim();
+  const trimmed = text
+    .trim()
+    .replace(/[ΩVAFHWs]$|Hz$|ohm$/i, '')
+    .trim();
   // Either "<number><prefix>?" or the resistor-code form "<digits><prefix><digits>".
   const plain = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)\s*([TGMkKmuµμnpRr]?)$/.exec(trimmed);
   if (plain) {

@@ -63,9 +63,7 @@ export function zenerModel(series: ZenerSeries, vz: number): { rz: number; vKnee
 
 /** Series that offer this voltage, smallest power first. */
 export function seriesFor(catalog: Catalog, vz: number): ZenerSeries[] {
-  return catalog.zenerSeries
-    .filter((s) => vz >= s.vMinV * (1 - 1e-9) && vz <= s.vMaxV * (1 + 1e-9))
-    .sort((a, b) => a.powerW - b.powerW);
+  return catalog.zenerSeries.filter((s) => vz >= s.vMinV * (1 - 1e-9) && vz <= s.vMaxV * (1 + 1e-9)).sort((a, b) => a.powerW - b.powerW);
 }
 
 /** The smallest series whose rating is at least twice the worst power; the largest when none is. */

@@ -38,7 +38,10 @@ describe('what can be bought', () => {
   });
 
   test('ripple current sets the number of parts: 2 A RMS on 0.45 A cans needs five of them', () => {
-    const only = { ...defaultCatalog, capacitors: [{ ...family('alu-lowesr'), cases: [family('alu-lowesr').cases.find((c) => c.name === '16×25')!] }] };
+    const only = {
+      ...defaultCatalog,
+      capacitors: [{ ...family('alu-lowesr'), cases: [family('alu-lowesr').cases.find((c) => c.name === '16×25')!] }],
+    };
     const bank = chooseCapacitorBank('C1', 'input-capacitor', { ...need, effectiveF: 1e-6, workingV: 300, rmsA: 2 }, only);
     // ceil(2 / 0.45) = 5 parts, each carrying 0.4 A.
     expect(bank.count).toBe(5);
@@ -65,7 +68,12 @@ describe('electrolytic life: halving per 10 K (common practice, Arrhenius rule o
   test('ceramics have no wear-out term; a short-lived bank carries a caution', () => {
     expect(electrolyticLife(family('mlcc-x7r'), 65, 1, 1)).toBeNull();
     const onlyAlu = { ...defaultCatalog, capacitors: [alu] };
-    const bank = chooseCapacitorBank('C1', 'output-capacitor', { ...need, effectiveF: 100e-6, workingV: 12, ambientC: 95, rmsA: 0.5 }, onlyAlu);
+    const bank = chooseCapacitorBank(
+      'C1',
+      'output-capacitor',
+      { ...need, effectiveF: 100e-6, workingV: 12, ambientC: 95, rmsA: 0.5 },
+      onlyAlu,
+    );
     expect(bank.lifeHours!).toBeLessThan(LIFE_TARGET_H);
     expect(bank.issue?.code).toBe('capacitor-life');
   });

@@ -84,7 +84,17 @@ describe('thermal chain Tj = Ta + P·Σθ (JEDEC JESD51 definitions of θJA, θJ
   });
 });
 
-const lossless = (base: SwitcherClass): SwitcherClass => ({ ...base, rdsOnOhm: 0, diodeVfV: 0, riseS: 0, fallS: 0, qgC: 0, iqA: 0, cossF: 0, deadTimeS: 0 });
+const lossless = (base: SwitcherClass): SwitcherClass => ({
+  ...base,
+  rdsOnOhm: 0,
+  diodeVfV: 0,
+  riseS: 0,
+  fallS: 0,
+  qgC: 0,
+  iqA: 0,
+  cossF: 0,
+  deadTimeS: 0,
+});
 
 describe('switching converters (Erickson & Maksimović, Fundamentals of Power Electronics, ch. 2 — from memory; their Δi and Δv are half the peak-to-peak values)', () => {
   const buckStage = lossless(defaultCatalog.switchers.find((s) => s.converter === 'buck')!);

@@ -28,7 +28,11 @@ function loosen(base: RailSpecInput, k: Loosening): RailSpecInput {
   return {
     ...base,
     input: { ...spec.input, vMin: toward(spec.input.vMin, spec.input.vNom), vMax: toward(spec.input.vMax, spec.input.vNom) },
-    output: { ...spec.output, tolerance: Math.min(0.5, spec.output.tolerance * (1 + k.t)), iMax: toward(spec.output.iMax, spec.output.iTyp) },
+    output: {
+      ...spec.output,
+      tolerance: Math.min(0.5, spec.output.tolerance * (1 + k.t)),
+      iMax: toward(spec.output.iMax, spec.output.iTyp),
+    },
     noise: { class: spec.noise.class, maxRippleVpp: Math.min(100, spec.noise.maxRippleVpp * (1 + k.r)) },
     thermal: { ...spec.thermal, ambientMaxC: Math.max(-40, spec.thermal.ambientMaxC - k.a) },
   };

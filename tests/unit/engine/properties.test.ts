@@ -32,7 +32,13 @@ const validBrief: fc.Arbitrary<RailSpecInput> = fc
     const iTyp = r.iMax * r.typFraction;
     return {
       input: { vMin, vNom: r.vNom, vMax: Math.max(vMax, r.vNom), rippleVpp: vMin * r.ripple, source: r.source },
-      output: { v: Math.min(5000, Math.max(0.5, r.vNom * r.vOutRatio)), tolerance: r.tolerance, iMin: iTyp * r.minFraction, iTyp, iMax: r.iMax },
+      output: {
+        v: Math.min(5000, Math.max(0.5, r.vNom * r.vOutRatio)),
+        tolerance: r.tolerance,
+        iMin: iTyp * r.minFraction,
+        iTyp,
+        iMax: r.iMax,
+      },
       noise: { class: r.noiseClass },
       thermal: { ambientMaxC: r.ambient, airflow: r.airflow },
       overrides: { mcDraws: r.draws, seed: r.seed },
@@ -84,7 +90,16 @@ describe('any valid brief', () => {
   });
 });
 
-type Mutation = { path: string; apply: (b: Record<string, any>) => void };
+/** A brief as plain sections of fields, to break one field at a time. */
+interface Sections {
+  input: { vMin?: number; vNom: number; vMax?: number; source?: string; extra?: number };
+  output: { v?: number; tolerance?: number; iMin?: number; iTyp: number; iMax?: number };
+  noise: { class?: string };
+  thermal: { ambientMaxC?: number };
+  weights?: unknown;
+  overrides?: unknown;
+}
+type Mutation = { path: string; apply: (b: Sections) => void };
 const mutations: Mutation[] = [
   { path: 'input.vMin', apply: (b) => (b.input.vMin = -1) },
   { path: 'input.vMin', apply: (b) => (b.input.vMin = Number.NaN) },
@@ -101,14 +116,14 @@ const mutations: Mutation[] = [
   { path: 'weights', apply: (b) => (b.weights = { efficiency: 0, heat: 0, partCount: 0, noise: 0, cost: 0 }) },
   { path: 'weights.cost', apply: (b) => (b.weights = { cost: -1 }) },
   { path: 'overrides.mcDraws', apply: (b) => (b.overrides = { mcDraws: 200_000 }) },
-  { path: 'unknown', apply: (b) => (b.unknown = true) },
+  { path: 'unknown', apply: (b) => Object.assign(b, { unknown: true }) },
 ];
 
 describe('any invalid brief', () => {
   test('is rejected with the failing field named by a dot path', () => {
     fc.assert(
       fc.property(validBrief, fc.constantFrom(...mutations), (input, mutation) => {
-        const broken = structuredClone(input) as Record<string, any>;
+        const broken = structuredClone(input) as unknown as Sections;
         mutation.apply(broken);
         const result = railSpecSchema.safeParse(broken);
         expect(result.success).toBe(false);
@@ -130,7 +145,9 @@ describe('any invalid brief', () => {
     });
     expect(r.success).toBe(false);
     if (!r.success) {
-      expect(railSpecIssues(r.error)).toEqual([{ path: 'input.vMin', message: 'The lowest input voltage must not exceed the nominal one.' }]);
+      expect(railSpecIssues(r.error)).toEqual([
+        { path: 'input.vMin', message: 'The lowest input voltage must not exceed the nominal one.' },
+      ]);
     }
   });
 

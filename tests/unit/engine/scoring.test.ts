@@ -2,7 +2,17 @@
 // more on a small rail, the simpler topology winning a tie, and no score for what cannot be built.
 import { describe, expect, test } from 'vitest';
 import { evaluate, railSpecSchema, defaultWeights, type Option, type RailSpecInput } from '~/lib/engine/index.ts';
-import { POWER_FLOOR_W, QUIET_RAIL_MARGIN_POINTS, STRADDLE_MARGIN_POINTS, TIE_POINTS, effectiveWeights, pickReason, rankOptions, subScores, type ScoreInputs } from '~/lib/engine/scoring.ts';
+import {
+  POWER_FLOOR_W,
+  QUIET_RAIL_MARGIN_POINTS,
+  STRADDLE_MARGIN_POINTS,
+  TIE_POINTS,
+  effectiveWeights,
+  pickReason,
+  rankOptions,
+  subScores,
+  type ScoreInputs,
+} from '~/lib/engine/scoring.ts';
 
 const inputs = (over: Partial<ScoreInputs>): ScoreInputs => ({
   pOutNominalW: 1,
@@ -42,18 +52,24 @@ describe('efficiency counts the power lost against the rail’s power budget', (
   });
 
   test('a battery pays for every microwatt: its losses count against the rail’s own power', () => {
-    const on = (source: ScoreInputs['source']) => subScores(inputs({ source, pOutNominalW: 0.0003, lossNominalW: 0.0003, pOutMaxW: 0.0003, lossMaxW: 0.0003 })).efficiency;
+    const on = (source: ScoreInputs['source']) =>
+      subScores(inputs({ source, pOutNominalW: 0.0003, lossNominalW: 0.0003, pOutMaxW: 0.0003, lossMaxW: 0.0003 })).efficiency;
     expect(on('battery')).toBeCloseTo(50, 9);
     expect(on('adapter')).toBeGreaterThan(on('battery'));
   });
 
   test('part count and cost weigh ×1 at 1 W and above, ×2 at 100 mW, ×3 at 10 mW and below — half that on a battery', () => {
     const w = { ...defaultWeights };
-    const rail = (watts: number, source: ScoreInputs['source'] = 'adapter') => railSpecSchema.parse({ ...usb, input: { ...usb.input, source }, output: { ...usb.output, v: 1, iTyp: watts, iMax: watts } });
+    const rail = (watts: number, source: ScoreInputs['source'] = 'adapter') =>
+      railSpecSchema.parse({ ...usb, input: { ...usb.input, source }, output: { ...usb.output, v: 1, iTyp: watts, iMax: watts } });
     expect(effectiveWeights(w, rail(5))).toEqual(w);
     expect(effectiveWeights(w, rail(0.1))).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
     expect(effectiveWeights(w, rail(0.001))).toMatchObject({ partCount: 3 * w.partCount, cost: 3 * w.cost });
-    expect(effectiveWeights(w, rail(0.001, 'battery'))).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
+    expect(effectiveWeights(w, rail(0.001, 'battery'))).toMatchObject({
+      partCount: 2 * w.partCount,
+      cost: 2 * w.cost,
+      efficiency: w.efficiency,
+    });
     expect(effectiveWeights(w, rail(5, 'battery'))).toEqual(w);
   });
 
@@ -91,8 +107,12 @@ describe('ranking', () => {
 
   // Common practice: a buck-boost only where the input straddles the output; a linear output stage on RF and precision rails.
   test('a buck-boost must beat a feasible plain buck or boost by more than the straddle margin', () => {
-    expect(rankOptions([option('buck-boost', true, 70 + STRADDLE_MARGIN_POINTS - 1), option('buck', true, 70)]).map((o) => o.topology)).toEqual(['buck', 'buck-boost']);
-    expect(rankOptions([option('buck-boost', true, 70 + STRADDLE_MARGIN_POINTS + 2), option('boost', true, 70)]).map((o) => o.topology)).toEqual(['buck-boost', 'boost']);
+    expect(
+      rankOptions([option('buck-boost', true, 70 + STRADDLE_MARGIN_POINTS - 1), option('buck', true, 70)]).map((o) => o.topology),
+    ).toEqual(['buck', 'buck-boost']);
+    expect(
+      rankOptions([option('buck-boost', true, 70 + STRADDLE_MARGIN_POINTS + 2), option('boost', true, 70)]).map((o) => o.topology),
+    ).toEqual(['buck-boost', 'boost']);
     const ranked = rankOptions([option('buck-boost', true, 75), option('boost', true, 70)]);
     expect(pickReason(ranked, defaultWeights)).toMatch(/preferred to .*a plain boost regulates over the whole input range/);
   });
@@ -104,12 +124,20 @@ describe('ranking', () => {
     expect(rankOptions(options, rf).map((o) => o.topology)).toEqual(['buck+linear', 'buck']);
     expect(pickReason(rankOptions(options, rf), defaultWeights, rf)).toMatch(/on an RF rail a linear output stage is preferred/);
     expect(rankOptions(options, digital).map((o) => o.topology)).toEqual(['buck', 'buck+linear']);
-    expect(rankOptions([option('buck', true, 72 + QUIET_RAIL_MARGIN_POINTS + TIE_POINTS + 1), option('linear', true, 72)], rf).map((o) => o.topology)).toEqual(['buck', 'linear']);
+    expect(
+      rankOptions([option('buck', true, 72 + QUIET_RAIL_MARGIN_POINTS + TIE_POINTS + 1), option('linear', true, 72)], rf).map(
+        (o) => o.topology,
+      ),
+    ).toEqual(['buck', 'linear']);
   });
 
   test('the reason names the tie, the lead or the blockers', () => {
-    expect(pickReason(rankOptions([option('buck-boost', true, 70.5), option('boost', true, 70)]), defaultWeights)).toMatch(/tie, which the simpler topology wins/);
-    expect(pickReason([option('linear', true, 80), option('shunt', false, null)], defaultWeights)).toMatch(/only option .* Not feasible: shunt/);
+    expect(pickReason(rankOptions([option('buck-boost', true, 70.5), option('boost', true, 70)]), defaultWeights)).toMatch(
+      /tie, which the simpler topology wins/,
+    );
+    expect(pickReason([option('linear', true, 80), option('shunt', false, null)], defaultWeights)).toMatch(
+      /only option .* Not feasible: shunt/,
+    );
     expect(pickReason([option('shunt', false, null)], defaultWeights)).toMatch(/No option meets every requirement/);
   });
 });

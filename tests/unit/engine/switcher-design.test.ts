@@ -117,7 +117,13 @@ describe('forced part values are used (regression: C1 = 47 µF recorded but 22 �
 
 describe('load step: ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR with fc = fsw/10 (current mode, common practice)', () => {
   test('the output capacitance is sized so a 0.5 A step stays within 50 mV', () => {
-    const d = designBuck(ctxOf(brief(10, 12, 14, 3.3, 1, { output: { v: 3.3, tolerance: 0.03, iMin: 0.1, iTyp: 0.5, iMax: 1, loadStep: 0.5, maxStepDeviation: 0.05 } })));
+    const d = designBuck(
+      ctxOf(
+        brief(10, 12, 14, 3.3, 1, {
+          output: { v: 3.3, tolerance: 0.03, iMin: 0.1, iTyp: 0.5, iMax: 1, loadStep: 0.5, maxStepDeviation: 0.05 },
+        }),
+      ),
+    );
     const step = traced(d, 'buck.step');
     const { ΔI, fc, Cout, ESR } = step.inputs as Record<string, { value: number }>;
     expect(step.result.value).toBeCloseTo(ΔI!.value / (2 * Math.PI * fc!.value * Cout!.value) + ΔI!.value * ESR!.value, 12);
@@ -143,14 +149,22 @@ describe('four-switch buck-boost: buck duty above the class’s limit switches b
   });
 
   test('a quiet 3.3 V rail from one Li-ion cell: the post-regulated option uses a buck-boost', () => {
-    const d = designSwitcherLinear(ctxOf({ input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' }, output: { v: 3.3, tolerance: 0.03, iMin: 0.01, iTyp: 0.2, iMax: 0.5 }, noise: { class: 'precision' }, thermal }));
+    const d = designSwitcherLinear(
+      ctxOf({
+        input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' },
+        output: { v: 3.3, tolerance: 0.03, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+        noise: { class: 'precision' },
+        thermal,
+      }),
+    );
     expect(d.label).toMatch(/buck-boost/);
   });
 });
 
 describe('output ripple: exact peak-to-peak of vC + ESR·iC (Erickson & Maksimović, 2nd ed., ch. 2, capacitor charge balance)', () => {
   test('without ESR a zero-mean triangle gives ΔIL·Ts/(8·C) at any duty: 0.4785 A at 500 kHz on 22 µF is 5.4375 mV', () => {
-    for (const d of [0.2, 0.5, 0.8]) expect(ripplePeakToPeak(buckSegments('ccm', d, 0.4785, 1, 500e3), 22e-6, 0)).toBeCloseTo(0.4785 / (8 * 500e3 * 22e-6), 12);
+    for (const d of [0.2, 0.5, 0.8])
+      expect(ripplePeakToPeak(buckSegments('ccm', d, 0.4785, 1, 500e3), 22e-6, 0)).toBeCloseTo(0.4785 / (8 * 500e3 * 22e-6), 12);
   });
 
   test('with a huge capacitor only the ESR step is left: ΔIL·ESR', () => {
@@ -222,7 +236,14 @@ describe('every switcher trace entry recomputes from its own printed inputs', ()
   });
 
   test('buck-boost from a Li-ion cell', () => {
-    const d = designBuckBoost(ctxOf({ input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' }, output: { v: 3.3, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 }, noise: { class: 'digital' }, thermal }));
+    const d = designBuckBoost(
+      ctxOf({
+        input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' },
+        output: { v: 3.3, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+        noise: { class: 'digital' },
+        thermal,
+      }),
+    );
     expect(check(d.trace.entries, 'buckboost', { cout: equations.cout!, rds: equations.rds!, fb: equations.fb! })).toBe(3);
   });
 });
@@ -250,7 +271,9 @@ describe('post-regulated switcher: the converter that fits the input, its ripple
   });
 
   test('Li-ion → 3.3 V, rf: the bus straddles the cell, so a four-switch buck-boost', () => {
-    const d = designSwitcherLinear(ctxOf({ ...brief(3, 3.7, 4.2, 3.3, 0.1), input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' }, noise: { class: 'rf' } }));
+    const d = designSwitcherLinear(
+      ctxOf({ ...brief(3, 3.7, 4.2, 3.3, 0.1), input: { vMin: 3, vNom: 3.7, vMax: 4.2, source: 'battery' }, noise: { class: 'rf' } }),
+    );
     expect(d.label).toMatch(/^Four-switch buck-boost converter with linear post-regulator/);
     expect(blockers(d)).toEqual([]);
   });
@@ -269,19 +292,25 @@ describe('post-regulated switcher: the converter that fits the input, its ripple
 
 describe('briefs the switcher search must make buildable', () => {
   test('9–36 V → 12 V ±5 %, 0.5 A: the 60 V four-switch controller takes a bus the 36 V part cannot (36 V > 28.8 V derated)', () => {
-    const d = designBuckBoost(ctxOf({ ...brief(9, 24, 36, 12, 0.5), output: { v: 12, tolerance: 0.05, iMin: 0.01, iTyp: 0.25, iMax: 0.5 } }));
+    const d = designBuckBoost(
+      ctxOf({ ...brief(9, 24, 36, 12, 0.5), output: { v: 12, tolerance: 0.05, iMin: 0.01, iTyp: 0.25, iMax: 0.5 } }),
+    );
     expect(part(d, 'switch').part).toMatch(/60 V/);
     expect(blockers(d)).toEqual([]);
   });
 
   test('24 V → 5 V ±2 %, 1 A, rf: the post-regulator class is one whose reference holds ±2 % at 1 A', () => {
-    const d = designSwitcherLinear(ctxOf({ ...brief(22, 24, 26, 5, 1), output: { v: 5, tolerance: 0.02, iMin: 0.02, iTyp: 0.5, iMax: 1 }, noise: { class: 'rf' } }));
+    const d = designSwitcherLinear(
+      ctxOf({ ...brief(22, 24, 26, 5, 1), output: { v: 5, tolerance: 0.02, iMin: 0.02, iTyp: 0.5, iMax: 1 }, noise: { class: 'rf' } }),
+    );
     expect(part(d, 'regulator').part).toMatch(/Precision low-dropout adjustable regulator, 1\.5 A/);
     expect(blockers(d)).toEqual([]);
   });
 
-  test('90–110 V → 48 V ±3 %, 50 mA: a class whose ±1 % feedback holds the band, not the off-line part\'s ±3 %', () => {
-    const d = designBuck(ctxOf({ ...brief(90, 100, 110, 48, 0.05), output: { v: 48, tolerance: 0.03, iMin: 0.001, iTyp: 0.025, iMax: 0.05 } }));
+  test("90–110 V → 48 V ±3 %, 50 mA: a class whose ±1 % feedback holds the band, not the off-line part's ±3 %", () => {
+    const d = designBuck(
+      ctxOf({ ...brief(90, 100, 110, 48, 0.05), output: { v: 48, tolerance: 0.03, iMin: 0.001, iTyp: 0.025, iMax: 0.05 } }),
+    );
     expect(part(d, 'switch').part).toMatch(/150 V/);
     // 110 V × 1.25 = 137.5 V of rating needed: the 100 V classes are out, the 150 V one fits.
     expect(blockers(d)).toEqual([]);

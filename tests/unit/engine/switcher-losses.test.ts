@@ -3,12 +3,22 @@
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog, type SwitcherClass } from '~/lib/engine/catalog.ts';
 import { chooseInductor, coreLossW } from '~/lib/engine/inductors.ts';
-import { BODY_DIODE_V, boostDcmDuty, buckDcmDuty, cycleLosses, rdsAt } from '~/lib/engine/switcher-losses.ts';
+import { BODY_DIODE_V, boostDcmDuty, buckDcmDuty, cycleLosses, rdsAt } from '~/lib/engine/topologies/switcher-losses.ts';
 import { buckPoint } from '~/lib/engine/topologies/buck.ts';
 import { boostPoint } from '~/lib/engine/topologies/boost.ts';
 
 const stage = (id: string) => defaultCatalog.switchers.find((s) => s.id === id)!;
-const lossless = (base: SwitcherClass): SwitcherClass => ({ ...base, rdsOnOhm: 0, diodeVfV: 0, riseS: 0, fallS: 0, qgC: 0, iqA: 0, cossF: 0, deadTimeS: 0 });
+const lossless = (base: SwitcherClass): SwitcherClass => ({
+  ...base,
+  rdsOnOhm: 0,
+  diodeVfV: 0,
+  riseS: 0,
+  fallS: 0,
+  qgC: 0,
+  iqA: 0,
+  cossF: 0,
+  deadTimeS: 0,
+});
 
 describe('loss terms beside conduction', () => {
   const s = stage('buck-sync-36v');

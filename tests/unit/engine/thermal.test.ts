@@ -17,11 +17,17 @@ const entry = (o: Option, id: string) => o.trace.find((t) => t.id === id);
 describe('enclosure air rise: steady heat balance P = (k·A + ρ·cp·V̇)·ΔT', () => {
   test('hand example: 5 W in a painted metal box of 0.1 m², sealed and with a 10 m³/h fan', () => {
     // k = 5.5 W/(m²·K) for painted sheet metal (IEC TR 60890, from memory): ΔT = 5/(5.5·0.1) = 9.09 K.
-    const sealed = railSpecSchema.parse({ ...bus, thermal: { ambientMaxC: 40, airflow: 'enclosed', enclosure: { surfaceCm2: 1000, otherW: 3 } } });
+    const sealed = railSpecSchema.parse({
+      ...bus,
+      thermal: { ambientMaxC: 40, airflow: 'enclosed', enclosure: { surfaceCm2: 1000, otherW: 3 } },
+    });
     expect(ENCLOSURE_K_W_M2K.metal).toBe(5.5);
     expect(enclosureRise(sealed, 2)!.riseK).toBeCloseTo(5 / 0.55, 9);
     // ρ·cp of air ≈ 1.2 kg/m³ × 1005 J/(kg·K) (common practice); 10 m³/h = 2.78 l/s carries 3.35 W/K: ΔT = 5/(0.55 + 3.35) = 1.28 K.
-    const fanned = railSpecSchema.parse({ ...bus, thermal: { ambientMaxC: 40, airflow: 'forced-air', enclosure: { surfaceCm2: 1000, otherW: 3, fanFlowM3h: 10 } } });
+    const fanned = railSpecSchema.parse({
+      ...bus,
+      thermal: { ambientMaxC: 40, airflow: 'forced-air', enclosure: { surfaceCm2: 1000, otherW: 3, fanFlowM3h: 10 } },
+    });
     expect(enclosureRise(fanned, 2)!.riseK).toBeCloseTo(5 / (0.55 + (AIR_RHO_CP_J_M3K * 10) / 3600), 9);
     // Without an enclosure in the brief there is no rise to add.
     expect(enclosureRise(railSpecSchema.parse(bus), 2)).toBeNull();
@@ -64,7 +70,11 @@ describe('heatsink budget θSA,max = ((Tj,max − margin − Ta)/P − θJC − 
 
 describe('a heatsink beyond the catalog', () => {
   test('says what forced air would change and what that heatsink costs', () => {
-    const o = linearOf({ ...bus, input: { vMin: 10.8, vNom: 12, vMax: 13.2, source: 'bus' }, output: { ...bus.output, v: 3.3, iTyp: 0.5, iMax: 1 } });
+    const o = linearOf({
+      ...bus,
+      input: { vMin: 10.8, vNom: 12, vMax: 13.2, source: 'bus' },
+      output: { ...bus.output, v: 3.3, iTyp: 0.5, iMax: 1 },
+    });
     const budget = o.trace.find((t) => t.id === 'U1.thetasa')!.result.value;
     const fix = o.fixes.find((f) => f.code === 'heatsink')!;
     // The still-air budget times its factor (1) is what the sink may take once scaled by forced air (0.6).
@@ -85,7 +95,8 @@ describe('a part past its limit', () => {
     const limit = entry(o, 'U1.plimit')!;
     expect(limit.result.value).toBeCloseTo(powerAtLimit(u1.tjMaxC, 40, limit.inputs.θJA!.value * limit.inputs.kair!.value), 12);
     expect(entry(o, 'U1.tj')).toBeUndefined();
-    for (const i of o.issues) for (const m of i.message.matchAll(/(\d+(?:\.\d+)?) ?°C/g)) expect(Number(m[1])).toBeLessThanOrEqual(u1.tjMaxC);
+    for (const i of o.issues)
+      for (const m of i.message.matchAll(/(\d+(?:\.\d+)?) ?°C/g)) expect(Number(m[1])).toBeLessThanOrEqual(u1.tjMaxC);
   });
 
   test('the power at the limit is never negative, even at an ambient above it', () => {

@@ -9,9 +9,24 @@ import { evaluateEquation } from './trace-formula.ts';
 
 describe('the formula evaluator', () => {
   test('reads the trace syntax: names with commas and Unicode, implicit 2π, √, ², ^, min/max, definitions after the equation', () => {
-    expect(evaluateEquation('θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair', { 'Tj,max': 150, margin: 25, Ta: 40, P: 10, θJC: 1.5, θCS: 0.5, kair: 1.3 })).toBeCloseTo((8.5 - 2) / 1.3, 12);
-    expect(evaluateEquation('ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR', { ΔI: 1, fc: 1e4, Cout: 1e-5, ESR: 0.01 })).toBeCloseTo(1 / (2 * Math.PI * 0.1) + 0.01, 12);
-    expect(evaluateEquation('D = M·√(K/(1 − M)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', { Vout: 5, Vin: 10, L: 1e-5, fsw: 1e5, Iout: 0.1 })).toBeCloseTo(0.5 * Math.sqrt(0.04 / 0.5), 12);
+    expect(
+      evaluateEquation('θSA,max = ((Tj,max − margin − Ta)/P − θJC − θCS)/kair', {
+        'Tj,max': 150,
+        margin: 25,
+        Ta: 40,
+        P: 10,
+        θJC: 1.5,
+        θCS: 0.5,
+        kair: 1.3,
+      }),
+    ).toBeCloseTo((8.5 - 2) / 1.3, 12);
+    expect(evaluateEquation('ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR', { ΔI: 1, fc: 1e4, Cout: 1e-5, ESR: 0.01 })).toBeCloseTo(
+      1 / (2 * Math.PI * 0.1) + 0.01,
+      12,
+    );
+    expect(
+      evaluateEquation('D = M·√(K/(1 − M)), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', { Vout: 5, Vin: 10, L: 1e-5, fsw: 1e5, Iout: 0.1 }),
+    ).toBeCloseTo(0.5 * Math.sqrt(0.04 / 0.5), 12);
     expect(evaluateEquation('ΔVout = ΔVin·rz/(Rb + rz)·10^(−PSRR/20)', { ΔVin: 1, rz: 10, Rb: 90, PSRR: 20 })).toBeCloseTo(0.01, 12);
     expect(evaluateEquation('Pmax = max(0, (Tj,max − Ta)/(θJA·kair))', { 'Tj,max': 125, Ta: 150, θJA: 50, kair: 1 })).toBe(0);
     expect(evaluateEquation('|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²)', { ESR: 3, Xc: 4, XL: 4 })).toBeCloseTo(5 / 3, 12);
@@ -51,7 +66,10 @@ function mismatchesOf(pick: (o: Option, e: TraceEntry) => boolean): string[] {
       checked += 1;
       const m = mismatch(e);
       // One line per entry kind: the same step fails the same way on many briefs.
-      if (m !== null) seen.add(`${o.topology} ${m.replace(/gives .*/, 'disagrees with its result').replace(/ is not an evaluable formula \(.*\); /, ' is not an evaluable formula; ')}`);
+      if (m !== null)
+        seen.add(
+          `${o.topology} ${m.replace(/gives .*/, 'disagrees with its result').replace(/ is not an evaluable formula \(.*\); /, ' is not an evaluable formula; ')}`,
+        );
     }
   }
   // A group with nothing to recompute would pass without checking anything.

@@ -17,13 +17,26 @@ export interface SpiceCorner {
 export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const rs = partOf(option, 'series-resistor');
   const dz = byRole(option, 'zener')[0];
-  const holder = dz ? [`D${dz.ref} 0 out DZ${dz.ref}`, zenerModel(`DZ${dz.ref}`, dz, catalog)] : shuntReferenceLines(option, partOf(option, 'regulator'), catalog);
-  return [`V1 in 0 DC ${num(corner.vIn)}`, `R${rs.ref} in out ${num(rs.value ?? 0)}`, ...holder, `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
+  const holder = dz
+    ? [`D${dz.ref} 0 out DZ${dz.ref}`, zenerModel(`DZ${dz.ref}`, dz, catalog)]
+    : shuntReferenceLines(option, partOf(option, 'regulator'), catalog);
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
+    ...holder,
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
 }
 
 export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const reg = partOf(option, 'regulator');
-  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut), `Iload out 0 DC ${num(corner.iOut)}`, '.op'];
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut),
+    `Iload out 0 DC ${num(corner.iOut)}`,
+    '.op',
+  ];
 }
 
 /**
@@ -39,7 +52,11 @@ function currentLimiter(option: Option): { lines: string[]; divider: Option['com
   if (!ra || !rb) return { lines: senseTransistorLines(limiter, 'b', 'e', 'rin'), divider: [] };
   const base = `${limiter.ref}_b`;
   return {
-    lines: [...senseTransistorLines(limiter, 'b', base, 'rin'), `R${ra.ref} e ${base} ${num(ra.value ?? 0)}`, `R${rb.ref} ${base} 0 ${num(rb.value ?? 0)}`],
+    lines: [
+      ...senseTransistorLines(limiter, 'b', base, 'rin'),
+      `R${ra.ref} e ${base} ${num(ra.value ?? 0)}`,
+      `R${rb.ref} ${base} 0 ${num(rb.value ?? 0)}`,
+    ],
     divider: [ra, rb],
   };
 }

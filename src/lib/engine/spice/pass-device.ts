@@ -18,10 +18,16 @@ export function passDeviceLines(q: Component, d: string, g: string, s: string, c
   if (dev.kind === 'nmos') {
     // Saturation: iD = KP/2·(vGS − VTO)² (Sedra & Smith, Microelectronic Circuits, 7th ed., §5.2 — from memory).
     const vto = dev.vControlV - MOSFET_OVERDRIVE_V;
-    return [`M${q.ref} ${d} ${g} ${s} ${s} NHV${q.ref}`, `.model NHV${q.ref} NMOS(LEVEL=1 VTO=${num(vto)} KP=${num((2 * dev.iMaxA) / MOSFET_OVERDRIVE_V ** 2)})`];
+    return [
+      `M${q.ref} ${d} ${g} ${s} ${s} NHV${q.ref}`,
+      `.model NHV${q.ref} NMOS(LEVEL=1 VTO=${num(vto)} KP=${num((2 * dev.iMaxA) / MOSFET_OVERDRIVE_V ** 2)})`,
+    ];
   }
   // iC = IS·exp(vBE/Vt) with the data sheet's least current gain (Sedra & Smith, 7th ed., §6.2 — from memory).
-  return [`Q${q.ref} ${d} ${g} ${s} QHV${q.ref}`, `.model QHV${q.ref} NPN(BF=${num(dev.gainMin)} IS=${num(dev.iMaxA * Math.exp(-dev.vControlV / VT))})`];
+  return [
+    `Q${q.ref} ${d} ${g} ${s} QHV${q.ref}`,
+    `.model QHV${q.ref} NPN(BF=${num(dev.gainMin)} IS=${num(dev.iMaxA * Math.exp(-dev.vControlV / VT))})`,
+  ];
 }
 
 /** The limiter's small-signal NPN `q`: collector `c`, base `b`, emitter `e`. */

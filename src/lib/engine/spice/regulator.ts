@@ -40,7 +40,8 @@ export function regulatorParts(option: Option, regRef: string, catalog: Catalog)
   const at = option.components.findIndex((c) => c.ref === regRef);
   const reg = option.components[at];
   const cls = reg ? catalogEntry(catalog.linearRegulators, reg.part) : undefined;
-  if (!reg || !cls) throw new Error(`The catalog has no regulator class "${reg?.part ?? regRef}"; the netlist needs its data-sheet figures.`);
+  if (!reg || !cls)
+    throw new Error(`The catalog has no regulator class "${reg?.part ?? regRef}"; the netlist needs its data-sheet figures.`);
   const after = option.components.slice(at);
   return { cls, lower: after.find((c) => c.role === 'feedback-lower'), upper: after.find((c) => c.role === 'feedback-upper') };
 }
@@ -96,7 +97,11 @@ function pmosPass(u: string, inNode: string, cls: LinearRegulatorClass): PassSta
 
 /** The amplifier's gain stage: node `<u>_a` carries gain × (V(plus) − V(minus)) after the pole; it starts at `start`. */
 export function errorAmplifier(u: string, plus: string, minus: string, start: number): string[] {
-  return [`G${u}ea 0 ${u}_a ${plus} ${minus} ${num(ERROR_GM)}`, `R${u}ea ${u}_a 0 ${num(ERROR_R)}`, `C${u}ea ${u}_a 0 ${num(ERROR_C)} IC=${num(start)}`];
+  return [
+    `G${u}ea 0 ${u}_a ${plus} ${minus} ${num(ERROR_GM)}`,
+    `R${u}ea ${u}_a 0 ${num(ERROR_R)}`,
+    `C${u}ea ${u}_a 0 ${num(ERROR_C)} IC=${num(start)}`,
+  ];
 }
 
 /**

@@ -6,7 +6,7 @@ import { forced } from '../context.ts';
 import { Refs, caution, makePart, type Design, type DesignPart, type PartStress } from '../design.ts';
 import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
-import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
+import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import { inputCautions } from './switcher-input.ts';
 import {
@@ -67,7 +67,17 @@ export interface BoostPoint {
  * across the n = pathSwitches switches in its path and its winding: ΔIL = (Vin − IL·(n·Rds + DCR))·D/(fsw·L).
  * Below the boundary (IL < ΔIL/2) DCM for a diode stage, bursts or forced PWM as in the buck.
  */
-export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, pathSwitches = 1, coreLoss?: (rippleA: number) => number): BoostPoint {
+export function boostPoint(
+  stage: SwitcherClass,
+  vIn: number,
+  vOut: number,
+  iOut: number,
+  fsw: number,
+  henries: number,
+  dcrOhm: number,
+  pathSwitches = 1,
+  coreLoss?: (rippleA: number) => number,
+): BoostPoint {
   const sync = stage.rectification === 'sync';
   const pOut = vOut * iOut;
   let eta = 1;
@@ -115,7 +125,20 @@ export function boostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut
   const coreW = (coreLoss?.(ripple) ?? 0) * share;
   const switchW = sw + (sync ? rect : 0) + share * sumCycle(cycle) + stage.iqA * vIn;
   const rectifierW = sync ? 0 : rect;
-  return { mode, d, etaPath: etaUsed, inductorA: il, rippleA: ripple, peakA: peak, switchW, rectifierW, dcrW: dcr, coreW, pInW: pOut + switchW + rectifierW + dcr + coreW, pOutW: pOut };
+  return {
+    mode,
+    d,
+    etaPath: etaUsed,
+    inductorA: il,
+    rippleA: ripple,
+    peakA: peak,
+    switchW,
+    rectifierW,
+    dcrW: dcr,
+    coreW,
+    pInW: pOut + switchW + rectifierW + dcr + coreW,
+    pOutW: pOut,
+  };
 }
 
 /** Boost output ripple: Iout·D/(fsw·Cout) + Ipk·ESR (Cout the capacitance left at the working bias). */
@@ -134,7 +157,16 @@ interface BoostSizing extends SizingBase {
   point(vIn: number, iOut: number): BoostPoint;
 }
 
-function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BoostSizing {
+function sizeBoost(
+  ctx: Context,
+  r: StageRefs,
+  base: SwitcherClass,
+  fsw: number,
+  input: { vTrough: number; vMax: number },
+  vOut: number,
+  load: Load,
+  rippleLimit: number,
+): BoostSizing {
   const { catalog, spec } = ctx;
   const { vMax, vTrough: vLow } = input;
   const { iMax } = load;
@@ -154,7 +186,14 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   // The switch node sits at the regulated output plus the rectifier's drop.
   const switchNodeV = vOut + stage.diodeVfV;
   const findings = classVoltageFindings(stage, vMax, vLow, vOut, switchNodeV, stage.vOutMaxV);
-  if (vMax >= vOut) findings.push(finding('step-up-only', `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`, 'a buck-boost stage, or an input that stays below the output'));
+  if (vMax >= vOut)
+    findings.push(
+      finding(
+        'step-up-only',
+        `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`,
+        'a buck-boost stage, or an input that stays below the output',
+      ),
+    );
   const peak = peakFinding(stage, low.peakA);
   if (peak) findings.push(peak);
   const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
@@ -163,7 +202,13 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   const window = dutyWindow(stage, fsw);
   if (low.d > window.dMax) {
     const need = (vOut * (1 - window.dMax)) / low.etaPath;
-    findings.push(finding('duty', `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz.`, `input ≥ ${need.toFixed(2)} V`));
+    findings.push(
+      finding(
+        'duty',
+        `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz.`,
+        `input ≥ ${need.toFixed(2)} V`,
+      ),
+    );
   }
   if (vMax < vOut && (high.mode === 'ccm' || stage.lightLoad === 'forced-pwm')) {
     const onTime = onTimeFinding(stage, fsw, high.d, `At ${vMax} V in`);
@@ -172,14 +217,35 @@ function sizeBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number,
   const budget = RIPPLE_BUDGET * rippleLimit;
   const cNeed = Math.max((iMax * low.d) / (fsw * (budget / 2)), stepCapacitance(ctx, fsw));
   // Output capacitor RMS: Iout·√(D/(1 − D)) (common practice for the boost's pulsed output current).
-  const cout = outputBank(ctx, r.cout, cNeed, vOut, iMax * Math.sqrt(low.d / Math.max(1e-3, 1 - low.d)), budget / (2 * Math.max(low.peakA, 1e-9)));
+  const cout = outputBank(
+    ctx,
+    r.cout,
+    cNeed,
+    vOut,
+    iMax * Math.sqrt(low.d / Math.max(1e-3, 1 - low.d)),
+    budget / (2 * Math.max(low.peakA, 1e-9)),
+  );
   // The boost draws a continuous input current: the input capacitor carries only ΔIL (RMS ΔIL/√12).
   const cin = inputBank(ctx, r.cin, vMax, vLow, low.rippleA / 8, low.rippleA / Math.sqrt(12), fsw);
   findings.push(...capacitorFindings(cout, cin));
   const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
   const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
   const nominal = point(Math.min(Math.max(spec.input.vNom, vLow), vMax, vOut), load.iTyp);
-  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
+  return {
+    stage,
+    rds25: base.rdsOnOhm,
+    tjC,
+    fsw,
+    lWanted,
+    inductor,
+    cout,
+    cin,
+    low,
+    findings,
+    costCents,
+    nominalLossW: nominal.pInW - nominal.pOutW,
+    point,
+  };
 }
 
 export interface BoostStage extends ConverterStage {
@@ -196,7 +262,13 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
   const r = stageRefs(refs);
   const quiet = quietRail(ctx);
   const need = feedbackNeed(ctx, req);
-  const s = searchStage(ctx, req, 'boost', (stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV));
+  const s = searchStage(
+    ctx,
+    req,
+    'boost',
+    (stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV),
+  );
   const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
   const budget = RIPPLE_BUDGET * rippleLimit(fsw);
@@ -208,29 +280,106 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
 
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
   const dIdeal = Math.min(0.99, Math.max(0, 1 - vLow / vTarget));
-  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the lowest input', 'L = Vin·D/(fsw·r·Iref)', {
-    Vin: [vLow, 'V'], D: [dIdeal, ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, iMax / (1 - dIdeal)), 'A'],
-  }, s.lWanted, 'H');
-  const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  trace.add(
+    `${idPrefix}.l`,
+    'Inductance for the ripple ratio at the lowest input',
+    'L = Vin·D/(fsw·r·Iref)',
+    {
+      Vin: [vLow, 'V'],
+      D: [dIdeal, ''],
+      fsw: [fsw, 'Hz'],
+      r: [RIPPLE_RATIO, ''],
+      Iref: [rippleReference(stage, iMax / (1 - dIdeal)), 'A'],
+    },
+    s.lWanted,
+    'H',
+  );
+  const point = (vIn: number, iOut: number) =>
+    boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, (ripple) =>
+      coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw),
+    );
   const worst = point(vLow, iMax);
   if (worst.mode !== 'dcm') {
-    trace.add(`${idPrefix}.d`, 'Duty cycle at the lowest input', 'D = min(0.99, max(0, 1 − η·Vin/Vout))', { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] }, worst.d, '');
-    trace.add(`${idPrefix}.ipk`, 'Peak inductor current', 'Ipk = Iout/(1 − D) + ΔIL/2', { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
+    trace.add(
+      `${idPrefix}.d`,
+      'Duty cycle at the lowest input',
+      'D = min(0.99, max(0, 1 − η·Vin/Vout))',
+      { η: [worst.etaPath, ''], Vin: [vLow, 'V'], Vout: [vOut, 'V'] },
+      worst.d,
+      '',
+    );
+    trace.add(
+      `${idPrefix}.ipk`,
+      'Peak inductor current',
+      'Ipk = Iout/(1 − D) + ΔIL/2',
+      { Iout: [iMax, 'A'], D: [worst.d, ''], ΔIL: [worst.rippleA, 'A'] },
+      worst.peakA,
+      'A',
+    );
   } else {
-    trace.add(`${idPrefix}.d`, 'Duty cycle at the lowest input (discontinuous conduction)', 'D = min(1, √(K·M·(M − 1))), M = Vout/Vin, K = 2·L·fsw·Iout/Vout', {
-      Vout: [vOut, 'V'], Vin: [vLow, 'V'], L: [inductor.henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iMax, 'A'],
-    }, worst.d, '');
-    trace.add(`${idPrefix}.ipk`, 'Peak inductor current (discontinuous conduction)', 'Ipk = Vin·D/(fsw·L)', { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] }, worst.peakA, 'A');
+    trace.add(
+      `${idPrefix}.d`,
+      'Duty cycle at the lowest input (discontinuous conduction)',
+      'D = min(1, √(K·M·(M − 1))), M = Vout/Vin, K = 2·L·fsw·Iout/Vout',
+      {
+        Vout: [vOut, 'V'],
+        Vin: [vLow, 'V'],
+        L: [inductor.henries, 'H'],
+        fsw: [fsw, 'Hz'],
+        Iout: [iMax, 'A'],
+      },
+      worst.d,
+      '',
+    );
+    trace.add(
+      `${idPrefix}.ipk`,
+      'Peak inductor current (discontinuous conduction)',
+      'Ipk = Vin·D/(fsw·L)',
+      { Vin: [vLow, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'] },
+      worst.peakA,
+      'A',
+    );
   }
-  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
-  }, cout.effectiveF, 'F');
-  trace.add(`${idPrefix}.cout.rms`, 'Output capacitor RMS current at the lowest input', 'Irms = Iout·√(D/(1 − D))', { Iout: [iMax, 'A'], D: [worst.d, ''] }, iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)), 'A');
+  trace.add(
+    `${idPrefix}.cout`,
+    'Output capacitance left at the working bias',
+    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
+    {
+      C: [cout.farads, 'F'],
+      tol: [cout.family.tolerance, ''],
+      k: [cout.family.biasLossAtRated, ''],
+      V: [cout.workingV, 'V'],
+      Vrated: [cout.part.ratingV ?? 0, 'V'],
+    },
+    cout.effectiveF,
+    'F',
+  );
+  trace.add(
+    `${idPrefix}.cout.rms`,
+    'Output capacitor RMS current at the lowest input',
+    'Irms = Iout·√(D/(1 − D))',
+    { Iout: [iMax, 'A'], D: [worst.d, ''] },
+    iMax * Math.sqrt(worst.d / Math.max(1e-3, 1 - worst.d)),
+    'A',
+  );
   // Iout·D/(fsw·C) + Ipk·ESR is no bound once the inductor's valley dips below the load: the
   // capacitor then keeps discharging after the switch opens. The exact waveform is used.
-  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple at the lowest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = −Iout while the switch conducts, then the inductor current less the load', {
-    Iout: [iMax, 'A'], D: [worst.d, ''], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], Ipk: [worst.peakA, 'A'], ΔIL: [worst.rippleA, 'A'], ESR: [cout.esrOhm, 'Ω'],
-  }, ripplePeakToPeak(boostSegments(worst.mode, worst.d, worst.peakA, worst.rippleA, iMax, fsw), cout.effectiveF, cout.esrOhm), 'V');
+  const rippleStage = trace.select(
+    `${idPrefix}.ripple`,
+    'Converter output ripple at the lowest input and full load',
+    'ΔV = max − min over one period of vC + ESR·iC, iC = −Iout while the switch conducts, then the inductor current less the load',
+    {
+      Iout: [iMax, 'A'],
+      D: [worst.d, ''],
+      fsw: [fsw, 'Hz'],
+      Cout: [cout.effectiveF, 'F'],
+      Ipk: [worst.peakA, 'A'],
+      ΔIL: [worst.rippleA, 'A'],
+      ESR: [cout.esrOhm, 'Ω'],
+    },
+    ripplePeakToPeak(boostSegments(worst.mode, worst.d, worst.peakA, worst.rippleA, iMax, fsw), cout.effectiveF, cout.esrOhm),
+    'V',
+  );
   const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
   if (step) {
     issues.push(step.issue);
@@ -248,7 +397,13 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
       part: stage.label,
       ratingV: stage.vOutMaxV,
       costCents: stage.costCents,
-      thermal: { thetaJcCW: stage.thetaJaCW, thetaJaCW: stage.thetaJaCW, tjMaxC: stage.tjMaxC, heatsinkable: false, protectedInFault: true },
+      thermal: {
+        thetaJcCW: stage.thetaJaCW,
+        thetaJaCW: stage.thetaJaCW,
+        tjMaxC: stage.tjMaxC,
+        heatsinkable: false,
+        protectedInFault: true,
+      },
     }),
     inductor.part,
     cin.part,
@@ -263,12 +418,23 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
         part: `Schottky output diode, Vf ${stage.diodeVfV} V`,
         ratingV: pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * vOut),
         costCents: catalog.diode.costCents * 3,
-        thermal: { thetaJcCW: catalog.diode.thetaJaCW, thetaJaCW: catalog.diode.thetaJaCW, tjMaxC: catalog.diode.tjMaxC, heatsinkable: false, protectedInFault: true },
+        thermal: {
+          thetaJcCW: catalog.diode.thetaJaCW,
+          thetaJaCW: catalog.diode.thetaJaCW,
+          tjMaxC: catalog.diode.tjMaxC,
+          heatsinkable: false,
+          protectedInFault: true,
+        },
       }),
     );
   }
   if (post) parts.push(...post.parts);
-  issues.push(caution('no-short-protection', `A boost stage connects the input to the output through ${inductor.part.ref}${sync ? '' : ` and ${dRef}`}; a shorted output is limited only by the source. Fit a fuse or an input current limit rated below ${inductor.isatA} A.`));
+  issues.push(
+    caution(
+      'no-short-protection',
+      `A boost stage connects the input to the output through ${inductor.part.ref}${sync ? '' : ` and ${dRef}`}; a shorted output is limited only by the source. Fit a fuse or an input current limit rated below ${inductor.isatA} A.`,
+    ),
+  );
   issues.push(...inputCautions(ctx, { vMax, vTrough: vLow, cin, pInW: low.pInW, ratingV: stage.vInMaxV }));
 
   const stress = (vIn: number, iOut: number, at?: BoostPoint): Record<string, PartStress> => {
@@ -335,5 +501,10 @@ export function designBoost(ctx: Context): Design {
   const refs = new Refs();
   const b = boostStage(ctx, refs, trace, railRequest(ctx, 'boost'));
   const label = `Boost converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'output diode'})`;
-  return converterDesign('boost', label, b, trace, { regulates: false, pInW: spec.input.vMax * b.faultA, pOutW: 0, stress: b.faultStress(spec.input.vMax) });
+  return converterDesign('boost', label, b, trace, {
+    regulates: false,
+    pInW: spec.input.vMax * b.faultA,
+    pOutW: 0,
+    stress: b.faultStress(spec.input.vMax),
+  });
 }

@@ -6,7 +6,7 @@ import { forced } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
 import { Refs, info, makePart, type Design, type PartStress } from '../design.ts';
 import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
-import { cycleLosses, sumCycle } from '../switcher-losses.ts';
+import { cycleLosses, sumCycle } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import { boostPoint, boostRipple } from './boost.ts';
 import { buckPoint, buckRipple } from './buck.ts';
@@ -76,17 +76,54 @@ export interface BuckBoostPoint {
  * the boost leg at D2 = 1 − η·Vin·D1/Vout, so Vout = Vin·D1/(1 − D2); the inductor sees
  * Vin − drop for D2·Ts, then Vin − Vout − drop until D1·Ts, then −Vout − drop.
  */
-export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, coreLoss?: (rippleA: number) => number): BuckBoostPoint {
+export function buckBoostPoint(
+  stage: SwitcherClass,
+  vIn: number,
+  vOut: number,
+  iOut: number,
+  fsw: number,
+  henries: number,
+  dcrOhm: number,
+  coreLoss?: (rippleA: number) => number,
+): BuckBoostPoint {
   const window = dutyWindow(stage, fsw);
   if (vIn > vOut) {
     const p = buckPoint({ ...stage, rdsOnOhm: 2 * stage.rdsOnOhm }, vIn, vOut, iOut, fsw, henries, dcrOhm, coreLoss);
     if (p.d <= window.dMax) {
-      return { region: 'buck', d: p.d, dBuck: p.d, dBoost: 0, il: iOut, rippleA: p.rippleA, peakA: p.peakA, switchW: p.switchW, dcrW: p.dcrW, coreW: p.coreW, pInW: p.pInW, pOutW: p.pOutW, boost: false };
+      return {
+        region: 'buck',
+        d: p.d,
+        dBuck: p.d,
+        dBoost: 0,
+        il: iOut,
+        rippleA: p.rippleA,
+        peakA: p.peakA,
+        switchW: p.switchW,
+        dcrW: p.dcrW,
+        coreW: p.coreW,
+        pInW: p.pInW,
+        pOutW: p.pOutW,
+        boost: false,
+      };
     }
   } else {
     const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcrOhm, 2, coreLoss);
     if (p.d >= window.dMin || p.mode !== 'ccm') {
-      return { region: 'boost', d: p.d, dBuck: 1, dBoost: p.d, il: p.inductorA, rippleA: p.rippleA, peakA: p.peakA, switchW: p.switchW, dcrW: p.dcrW, coreW: p.coreW, pInW: p.pInW, pOutW: p.pOutW, boost: true };
+      return {
+        region: 'boost',
+        d: p.d,
+        dBuck: 1,
+        dBoost: p.d,
+        il: p.inductorA,
+        rippleA: p.rippleA,
+        peakA: p.peakA,
+        switchW: p.switchW,
+        dcrW: p.dcrW,
+        coreW: p.coreW,
+        pInW: p.pInW,
+        pOutW: p.pOutW,
+        boost: true,
+      };
     }
   }
   const pOut = vOut * iOut;
@@ -121,7 +158,21 @@ export function buckBoostPoint(stage: SwitcherClass, vIn: number, vOut: number, 
   const cycles = sumCycle(cycleLosses(stage, vIn, il, fsw, 2)) + sumCycle(cycleLosses(stage, vOut, il, fsw, 2));
   const coreW = coreLoss?.(ripple) ?? 0;
   const switchW = conduction + cycles + stage.iqA * vIn;
-  return { region: 'transition', d: d2, dBuck: d1, dBoost: d2, il, rippleA: ripple, peakA: peak, switchW, dcrW: dcr, coreW, pInW: pOut + switchW + dcr + coreW, pOutW: pOut, boost: true };
+  return {
+    region: 'transition',
+    d: d2,
+    dBuck: d1,
+    dBoost: d2,
+    il,
+    rippleA: ripple,
+    peakA: peak,
+    switchW,
+    dcrW: dcr,
+    coreW,
+    pInW: pOut + switchW + dcr + coreW,
+    pOutW: pOut,
+    boost: true,
+  };
 }
 
 /** Output ripple: pulsed output current in the boost and transition regions, triangular in the buck region. */
@@ -141,7 +192,16 @@ interface BuckBoostSizing extends SizingBase {
   point(vIn: number, iOut: number): BuckBoostPoint;
 }
 
-function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BuckBoostSizing {
+function sizeBuckBoost(
+  ctx: Context,
+  r: StageRefs,
+  base: SwitcherClass,
+  fsw: number,
+  input: { vTrough: number; vMax: number },
+  vOut: number,
+  load: Load,
+  rippleLimit: number,
+): BuckBoostSizing {
   const { catalog } = ctx;
   const { vMax, vTrough: vLow } = input;
   const iMax = load.iMax;
@@ -157,7 +217,14 @@ function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: num
   const coldLow = coldAt(vLow);
   const coldHigh = coldAt(vMax);
   const { stage, tjC } = hotStage(ctx, base, Math.max(coldLow.switchW, coldHigh.switchW));
-  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, Math.max(coldLow.peakA, coldHigh.peakA), base.iSwitchMaxA, forcedL);
+  const { chosen: inductor, issue: lIssue } = chooseInductor(
+    r.l,
+    catalog,
+    lWanted,
+    Math.max(coldLow.peakA, coldHigh.peakA),
+    base.iSwitchMaxA,
+    forcedL,
+  );
   const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
   const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, core);
   const low = point(vLow, iMax);
@@ -171,7 +238,13 @@ function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: num
   if (lIssue) findings.push({ issue: lIssue, fix: null });
   const window = dutyWindow(stage, fsw);
   if (low.boost && low.dBoost > window.dMax) {
-    findings.push(finding('duty', `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(low.dBoost * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} %.`, `input ≥ ${((vOut * (1 - window.dMax) * low.pInW) / Math.max(low.pOutW, 1e-9)).toFixed(2)} V`));
+    findings.push(
+      finding(
+        'duty',
+        `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(low.dBoost * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} %.`,
+        `input ≥ ${((vOut * (1 - window.dMax) * low.pInW) / Math.max(low.pOutW, 1e-9)).toFixed(2)} V`,
+      ),
+    );
   }
   if (high.region === 'buck') {
     const onTime = onTimeFinding(stage, fsw, high.dBuck, `At ${vMax} V in`);
@@ -191,7 +264,22 @@ function sizeBuckBoost(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: num
   findings.push(...capacitorFindings(cout, cin));
   const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents;
   const nominal = point(Math.min(Math.max(ctx.spec.input.vNom, vLow), vMax), load.iTyp);
-  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, low, high, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
+  return {
+    stage,
+    rds25: base.rdsOnOhm,
+    tjC,
+    fsw,
+    lWanted,
+    inductor,
+    cout,
+    cin,
+    low,
+    high,
+    findings,
+    costCents,
+    nominalLossW: nominal.pInW - nominal.pOutW,
+    point,
+  };
 }
 
 export interface BuckBoostStage extends ConverterStage {
@@ -208,33 +296,92 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
   const r = stageRefs(refs);
   const quiet = quietRail(ctx);
   const need = feedbackNeed(ctx, req);
-  const s = searchStage(ctx, req, 'buck-boost', (stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)));
+  const s = searchStage(
+    ctx,
+    req,
+    'buck-boost',
+    (stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)),
+  );
   const { stage, fsw, inductor, cout, cin } = s;
   const budget = RIPPLE_BUDGET * rippleLimit(fsw);
-  const estimate = Math.max(buckBoostRipple(s.low, load.iMax, fsw, cout.effectiveF, cout.esrOhm), buckBoostRipple(s.high, load.iMax, fsw, cout.effectiveF, cout.esrOhm));
+  const estimate = Math.max(
+    buckBoostRipple(s.low, load.iMax, fsw, cout.effectiveF, cout.esrOhm),
+    buckBoostRipple(s.high, load.iMax, fsw, cout.effectiveF, cout.esrOhm),
+  );
   const filtered = allowPostFilter && (quiet || estimate > budget);
   const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
   const vOut = fb.divider.vOut;
   const { issues, fixes } = sizingIssues(s);
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
-  trace.select(`${idPrefix}.l`, 'Inductance for the ripple ratio at the worse end of the input range', 'L = max((vInMax − Vout)·D/(fsw·r·Iref), Vin,min·D/(fsw·r·IL,ref))', {
-    vInMax: [input.vMax, 'V'], 'Vin,min': [input.vTrough, 'V'], Vout: [vTarget, 'V'], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''],
-  }, s.lWanted, 'H');
-  const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  trace.select(
+    `${idPrefix}.l`,
+    'Inductance for the ripple ratio at the worse end of the input range',
+    'L = max((vInMax − Vout)·D/(fsw·r·Iref), Vin,min·D/(fsw·r·IL,ref))',
+    {
+      vInMax: [input.vMax, 'V'],
+      'Vin,min': [input.vTrough, 'V'],
+      Vout: [vTarget, 'V'],
+      fsw: [fsw, 'Hz'],
+      r: [RIPPLE_RATIO, ''],
+    },
+    s.lWanted,
+    'H',
+  );
+  const point = (vIn: number, iOut: number) =>
+    buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) =>
+      coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw),
+    );
   const lowP = point(input.vTrough, load.iMax);
   const highP = point(input.vMax, load.iMax);
   const peak = Math.max(lowP.peakA, highP.peakA);
-  trace.select(`${idPrefix}.ipk`, 'Peak inductor current (worse end of the input range)', 'Ipk = max(IL + ΔIL/2) at Vin,min and vInMax', {
-    'IL(Vin,min)': [lowP.il, 'A'], 'ΔIL(Vin,min)': [lowP.rippleA, 'A'], 'IL(vInMax)': [highP.il, 'A'], 'ΔIL(vInMax)': [highP.rippleA, 'A'],
-  }, peak, 'A');
-  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
-  }, cout.effectiveF, 'F');
+  trace.select(
+    `${idPrefix}.ipk`,
+    'Peak inductor current (worse end of the input range)',
+    'Ipk = max(IL + ΔIL/2) at Vin,min and vInMax',
+    {
+      'IL(Vin,min)': [lowP.il, 'A'],
+      'ΔIL(Vin,min)': [lowP.rippleA, 'A'],
+      'IL(vInMax)': [highP.il, 'A'],
+      'ΔIL(vInMax)': [highP.rippleA, 'A'],
+    },
+    peak,
+    'A',
+  );
+  trace.add(
+    `${idPrefix}.cout`,
+    'Output capacitance left at the working bias',
+    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
+    {
+      C: [cout.farads, 'F'],
+      tol: [cout.family.tolerance, ''],
+      k: [cout.family.biasLossAtRated, ''],
+      V: [cout.workingV, 'V'],
+      Vrated: [cout.part.ratingV ?? 0, 'V'],
+    },
+    cout.effectiveF,
+    'F',
+  );
   const rippleOf = (p: BuckBoostPoint) =>
-    ripplePeakToPeak(p.boost ? boostSegments('ccm', p.dBoost, p.peakA, p.rippleA, load.iMax, fsw) : buckSegments('ccm', p.dBuck, p.rippleA, load.iMax, fsw), cout.effectiveF, cout.esrOhm);
-  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple (worse end of the input range)', 'ΔV = the larger of max − min over one period of vC + ESR·iC at the two ends', {
-    Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
-  }, Math.max(rippleOf(lowP), rippleOf(highP)), 'V');
+    ripplePeakToPeak(
+      p.boost
+        ? boostSegments('ccm', p.dBoost, p.peakA, p.rippleA, load.iMax, fsw)
+        : buckSegments('ccm', p.dBuck, p.rippleA, load.iMax, fsw),
+      cout.effectiveF,
+      cout.esrOhm,
+    );
+  const rippleStage = trace.select(
+    `${idPrefix}.ripple`,
+    'Converter output ripple (worse end of the input range)',
+    'ΔV = the larger of max − min over one period of vC + ESR·iC at the two ends',
+    {
+      Cout: [cout.effectiveF, 'F'],
+      ESR: [cout.esrOhm, 'Ω'],
+      fsw: [fsw, 'Hz'],
+    },
+    Math.max(rippleOf(lowP), rippleOf(highP)),
+    'V',
+  );
   const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
   if (step) {
     issues.push(step.issue);
@@ -247,7 +394,12 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
   if (spec.input.vNom > vOut) {
     const nominal = point(spec.input.vNom, load.iTyp);
     if (nominal.region === 'transition') {
-      issues.push(info('transition', `At ${spec.input.vNom} V in the buck duty would pass ${(window.dMax * 100).toFixed(0)} %, so both legs switch (buck leg at ${(nominal.dBuck * 100).toFixed(0)} %, boost leg at ${(nominal.dBoost * 100).toFixed(0)} %).`));
+      issues.push(
+        info(
+          'transition',
+          `At ${spec.input.vNom} V in the buck duty would pass ${(window.dMax * 100).toFixed(0)} %, so both legs switch (buck leg at ${(nominal.dBuck * 100).toFixed(0)} %, boost leg at ${(nominal.dBoost * 100).toFixed(0)} %).`,
+        ),
+      );
     }
   }
 
@@ -258,7 +410,13 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
       part: stage.label,
       ratingV: stage.vInMaxV,
       costCents: stage.costCents,
-      thermal: { thetaJcCW: stage.thetaJaCW, thetaJaCW: stage.thetaJaCW, tjMaxC: stage.tjMaxC, heatsinkable: false, protectedInFault: true },
+      thermal: {
+        thetaJcCW: stage.thetaJaCW,
+        thetaJaCW: stage.thetaJaCW,
+        tjMaxC: stage.tjMaxC,
+        heatsinkable: false,
+        protectedInFault: true,
+      },
     }),
     inductor.part,
     cin.part,
@@ -317,7 +475,12 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     point,
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
-      return { regulates: p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+      return {
+        regulates: p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax,
+        pInW: p.pInW,
+        pOutW: p.pOutW,
+        stress: stress(vIn, iOut, p),
+      };
     },
     stress,
     faultStress,
@@ -330,5 +493,10 @@ export function designBuckBoost(ctx: Context): Design {
   const refs = new Refs();
   const b = buckBoostStage(ctx, refs, trace, railRequest(ctx, 'buckboost'));
   const lim = b.stage.iSwitchMaxA;
-  return converterDesign('buck-boost', 'Four-switch buck-boost converter', b, trace, { regulates: false, pInW: lim * lim * (2 * b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) });
+  return converterDesign('buck-boost', 'Four-switch buck-boost converter', b, trace, {
+    regulates: false,
+    pInW: lim * lim * (2 * b.stage.rdsOnOhm + b.inductor.dcrOhm),
+    pOutW: 0,
+    stress: b.faultStress(spec.input.vMax),
+  });
 }

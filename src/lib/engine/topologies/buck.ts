@@ -7,7 +7,7 @@ import type { ChosenCapacitor } from '../capacitors.ts';
 import { Refs, info, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
 import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
-import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from '../switcher-losses.ts';
+import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import type { Quantity } from '../types.ts';
 import { inputCautions } from './switcher-input.ts';
@@ -73,7 +73,16 @@ export interface BuckPoint {
  * Switching, Coss, dead-time, gate, quiescent and core losses come from the input without
  * changing D.
  */
-export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut: number, fsw: number, henries: number, dcrOhm: number, coreLoss?: (rippleA: number) => number): BuckPoint {
+export function buckPoint(
+  stage: SwitcherClass,
+  vIn: number,
+  vOut: number,
+  iOut: number,
+  fsw: number,
+  henries: number,
+  dcrOhm: number,
+  coreLoss?: (rippleA: number) => number,
+): BuckPoint {
   const sync = stage.rectification === 'sync';
   const switches = sync ? 2 : 1;
   const pOut = vOut * iOut;
@@ -116,7 +125,19 @@ export function buckPoint(stage: SwitcherClass, vIn: number, vOut: number, iOut:
   const cycle = cycleLosses(stage, vIn, mode === 'dcm' ? peak / 2 : iOut, fsw, switches);
   const coreW = (coreLoss?.(ripple) ?? 0) * share;
   const switchW = conduction + share * sumCycle(cycle) + stage.iqA * vIn;
-  return { mode, d, etaPath: etaUsed, rippleA: ripple, peakA: peak, switchW, diodeW: diode, dcrW: dcr, coreW, pInW: pOut + switchW + diode + dcr + coreW, pOutW: pOut };
+  return {
+    mode,
+    d,
+    etaPath: etaUsed,
+    rippleA: ripple,
+    peakA: peak,
+    switchW,
+    diodeW: diode,
+    dcrW: dcr,
+    coreW,
+    pInW: pOut + switchW + diode + dcr + coreW,
+    pOutW: pOut,
+  };
 }
 
 /** Buck output ripple: ΔIL/(8·fsw·Cout) + ΔIL·ESR (Cout the capacitance left at the working bias). */
@@ -144,7 +165,16 @@ export interface BuckSizing extends SizingBase {
 }
 
 /** Sizes one class at one frequency: inductor for the ripple, capacitors, and every limit check. */
-export function sizeBuck(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: number, input: { vTrough: number; vMax: number }, vOut: number, load: Load, rippleLimit: number): BuckSizing {
+export function sizeBuck(
+  ctx: Context,
+  r: StageRefs,
+  base: SwitcherClass,
+  fsw: number,
+  input: { vTrough: number; vMax: number },
+  vOut: number,
+  load: Load,
+  rippleLimit: number,
+): BuckSizing {
   const { catalog } = ctx;
   const d0 = Math.min(1, vOut / input.vMax);
   const lWanted = (Math.max(0, input.vMax - vOut) * d0) / (fsw * RIPPLE_RATIO * rippleReference(base, load.iMax));
@@ -171,7 +201,13 @@ export function sizeBuck(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: n
   const window = dutyWindow(stage, fsw);
   if (low.d > window.dMax || input.vTrough <= vOut) {
     const need = vOut / (low.etaPath * window.dMax);
-    findings.push(finding('headroom', `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz (Dmax and the ${(stage.tOffMinS * 1e9).toFixed(0)} ns minimum off-time).`, `input ≥ ${need.toFixed(2)} V`));
+    findings.push(
+      finding(
+        'headroom',
+        `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz (Dmax and the ${(stage.tOffMinS * 1e9).toFixed(0)} ns minimum off-time).`,
+        `input ≥ ${need.toFixed(2)} V`,
+      ),
+    );
   }
 
   const budget = RIPPLE_BUDGET * rippleLimit;
@@ -184,7 +220,22 @@ export function sizeBuck(ctx: Context, r: StageRefs, base: SwitcherClass, fsw: n
   const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
   const vNominal = Math.min(Math.max(ctx.spec.input.vNom, input.vTrough), input.vMax);
   const nominal = point(vNominal, load.iTyp);
-  return { stage, rds25: base.rdsOnOhm, tjC, fsw, lWanted, inductor, cout, cin, high, low, findings, costCents, nominalLossW: nominal.pInW - nominal.pOutW, point };
+  return {
+    stage,
+    rds25: base.rdsOnOhm,
+    tjC,
+    fsw,
+    lWanted,
+    inductor,
+    cout,
+    cin,
+    high,
+    low,
+    findings,
+    costCents,
+    nominalLossW: nominal.pInW - nominal.pOutW,
+    point,
+  };
 }
 
 export interface BuckStage extends ConverterStage {
@@ -202,7 +253,13 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   const r = stageRefs(refs);
   const quiet = quietRail(ctx);
   const need = feedbackNeed(ctx, req);
-  const s = searchStage(ctx, req, 'buck', (stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit), (stage) => voltageFits(stage, input.vMax, input.vMax));
+  const s = searchStage(
+    ctx,
+    req,
+    'buck',
+    (stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (stage) => voltageFits(stage, input.vMax, input.vMax),
+  );
   const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
   const budget = RIPPLE_BUDGET * rippleLimit(fsw);
@@ -216,34 +273,119 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   }
 
   traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
-  trace.add(`${idPrefix}.l`, 'Inductance for the ripple ratio at the highest input', 'L = max(0, vInMax − Vout)·D/(fsw·r·Iref)', {
-    vInMax: [input.vMax, 'V'], Vout: [vTarget, 'V'], D: [Math.min(1, vTarget / input.vMax), ''], fsw: [fsw, 'Hz'], r: [RIPPLE_RATIO, ''], Iref: [rippleReference(stage, load.iMax), 'A'],
-  }, s.lWanted, 'H');
-  const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw));
+  trace.add(
+    `${idPrefix}.l`,
+    'Inductance for the ripple ratio at the highest input',
+    'L = max(0, vInMax − Vout)·D/(fsw·r·Iref)',
+    {
+      vInMax: [input.vMax, 'V'],
+      Vout: [vTarget, 'V'],
+      D: [Math.min(1, vTarget / input.vMax), ''],
+      fsw: [fsw, 'Hz'],
+      r: [RIPPLE_RATIO, ''],
+      Iref: [rippleReference(stage, load.iMax), 'A'],
+    },
+    s.lWanted,
+    'H',
+  );
+  const point = (vIn: number, iOut: number) =>
+    buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, (ripple) =>
+      coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw),
+    );
   const worst = point(input.vMax, load.iMax);
   if (worst.mode !== 'dcm') {
-    trace.add(`${idPrefix}.dil`, 'Inductor ripple at the highest input', 'ΔIL = max(0, vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)', {
-      vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], iOutMax: [load.iMax, 'A'], Rds: [stage.rdsOnOhm, 'Ω'], DCR: [inductor.dcrOhm, 'Ω'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
-    }, worst.rippleA, 'A');
-    trace.add(`${idPrefix}.ipk`, 'Peak switch and inductor current', 'Ipk = iOutMax + ΔIL/2', { iOutMax: [load.iMax, 'A'], ΔIL: [worst.rippleA, 'A'] }, worst.peakA, 'A');
+    trace.add(
+      `${idPrefix}.dil`,
+      'Inductor ripple at the highest input',
+      'ΔIL = max(0, vInMax − Vout − iOutMax·(Rds + DCR))·D/(fsw·L)',
+      {
+        vInMax: [input.vMax, 'V'],
+        Vout: [vOut, 'V'],
+        iOutMax: [load.iMax, 'A'],
+        Rds: [stage.rdsOnOhm, 'Ω'],
+        DCR: [inductor.dcrOhm, 'Ω'],
+        D: [worst.d, ''],
+        fsw: [fsw, 'Hz'],
+        L: [inductor.henries, 'H'],
+      },
+      worst.rippleA,
+      'A',
+    );
+    trace.add(
+      `${idPrefix}.ipk`,
+      'Peak switch and inductor current',
+      'Ipk = iOutMax + ΔIL/2',
+      { iOutMax: [load.iMax, 'A'], ΔIL: [worst.rippleA, 'A'] },
+      worst.peakA,
+      'A',
+    );
   } else {
-    trace.add(`${idPrefix}.dil`, 'Inductor peak current at the highest input (discontinuous conduction)', 'Ipk = (vInMax − Vout)·D/(fsw·L)', {
-      vInMax: [input.vMax, 'V'], Vout: [vOut, 'V'], D: [worst.d, ''], fsw: [fsw, 'Hz'], L: [inductor.henries, 'H'],
-    }, worst.rippleA, 'A');
+    trace.add(
+      `${idPrefix}.dil`,
+      'Inductor peak current at the highest input (discontinuous conduction)',
+      'Ipk = (vInMax − Vout)·D/(fsw·L)',
+      {
+        vInMax: [input.vMax, 'V'],
+        Vout: [vOut, 'V'],
+        D: [worst.d, ''],
+        fsw: [fsw, 'Hz'],
+        L: [inductor.henries, 'H'],
+      },
+      worst.rippleA,
+      'A',
+    );
   }
-  trace.add(`${idPrefix}.ton`, 'On-time at the highest input and full load', 'tON = D/fsw', { D: [worst.d, ''], fsw: [fsw, 'Hz'] }, worst.d / fsw, 's');
-  trace.add(`${idPrefix}.cout`, 'Output capacitance left at the working bias', 'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)', {
-    C: [cout.farads, 'F'], tol: [cout.family.tolerance, ''], k: [cout.family.biasLossAtRated, ''], V: [cout.workingV, 'V'], Vrated: [cout.part.ratingV ?? 0, 'V'],
-  }, cout.effectiveF, 'F');
+  trace.add(
+    `${idPrefix}.ton`,
+    'On-time at the highest input and full load',
+    'tON = D/fsw',
+    { D: [worst.d, ''], fsw: [fsw, 'Hz'] },
+    worst.d / fsw,
+    's',
+  );
+  trace.add(
+    `${idPrefix}.cout`,
+    'Output capacitance left at the working bias',
+    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
+    {
+      C: [cout.farads, 'F'],
+      tol: [cout.family.tolerance, ''],
+      k: [cout.family.biasLossAtRated, ''],
+      V: [cout.workingV, 'V'],
+      Vrated: [cout.part.ratingV ?? 0, 'V'],
+    },
+    cout.effectiveF,
+    'F',
+  );
   // The textbook ΔIL/(8·fsw·C) + ΔIL·ESR adds two peaks that do not coincide (it sized the
   // capacitor, as a bound); the figure stated is the exact waveform's.
-  const rippleStage = trace.select(`${idPrefix}.ripple`, 'Converter output ripple at the highest input and full load', 'ΔV = max − min over one period of vC + ESR·iC, iC = the inductor current less the load', {
-    ΔIL: [worst.rippleA, 'A'], D: [worst.d, ''], Iout: [load.iMax, 'A'], fsw: [fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
-  }, ripplePeakToPeak(buckSegments(worst.mode, worst.d, worst.rippleA, load.iMax, fsw), cout.effectiveF, cout.esrOhm), 'V');
+  const rippleStage = trace.select(
+    `${idPrefix}.ripple`,
+    'Converter output ripple at the highest input and full load',
+    'ΔV = max − min over one period of vC + ESR·iC, iC = the inductor current less the load',
+    {
+      ΔIL: [worst.rippleA, 'A'],
+      D: [worst.d, ''],
+      Iout: [load.iMax, 'A'],
+      fsw: [fsw, 'Hz'],
+      Cout: [cout.effectiveF, 'F'],
+      ESR: [cout.esrOhm, 'Ω'],
+    },
+    ripplePeakToPeak(buckSegments(worst.mode, worst.d, worst.rippleA, load.iMax, fsw), cout.effectiveF, cout.esrOhm),
+    'V',
+  );
   const stressFactor = dutyStress(s.low.d, high.d);
-  trace.add(`${idPrefix}.cin.rms`, 'Input capacitor RMS current (worst duty over the input range)', 'Irms = iOutMax·√(D·(1 − D))', {
-    iOutMax: [load.iMax, 'A'], 'D·(1 − D)': [stressFactor, ''],
-  }, load.iMax * Math.sqrt(stressFactor), 'A');
+  trace.add(
+    `${idPrefix}.cin.rms`,
+    'Input capacitor RMS current (worst duty over the input range)',
+    'Irms = iOutMax·√(D·(1 − D))',
+    {
+      iOutMax: [load.iMax, 'A'],
+      'D·(1 − D)': [stressFactor, ''],
+    },
+    load.iMax * Math.sqrt(stressFactor),
+    'A',
+  );
   const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
   if (step) {
     issues.push(step.issue);
@@ -262,7 +404,13 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
       part: stage.label,
       ratingV: stage.vInMaxV,
       costCents: stage.costCents,
-      thermal: { thetaJcCW: stage.thetaJaCW, thetaJaCW: stage.thetaJaCW, tjMaxC: stage.tjMaxC, heatsinkable: false, protectedInFault: true },
+      thermal: {
+        thetaJcCW: stage.thetaJaCW,
+        thetaJaCW: stage.thetaJaCW,
+        tjMaxC: stage.tjMaxC,
+        heatsinkable: false,
+        protectedInFault: true,
+      },
     }),
     inductor.part,
     cin.part,
@@ -275,19 +423,36 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
       makePart({
         ref: dRef,
         role: 'diode',
-        part: (ratingV ?? Infinity) > 200 ? `Ultrafast catch diode, Vf ${stage.diodeVfV} V` : `Schottky catch diode, Vf ${stage.diodeVfV} V`,
+        part:
+          (ratingV ?? Infinity) > 200 ? `Ultrafast catch diode, Vf ${stage.diodeVfV} V` : `Schottky catch diode, Vf ${stage.diodeVfV} V`,
         ratingV,
         costCents: catalog.diode.costCents * 3,
-        thermal: { thetaJcCW: catalog.diode.thetaJaCW, thetaJaCW: catalog.diode.thetaJaCW, tjMaxC: catalog.diode.tjMaxC, heatsinkable: false, protectedInFault: true },
+        thermal: {
+          thetaJcCW: catalog.diode.thetaJaCW,
+          thetaJaCW: catalog.diode.thetaJaCW,
+          tjMaxC: catalog.diode.tjMaxC,
+          heatsinkable: false,
+          protectedInFault: true,
+        },
       }),
     );
   }
   if (post) parts.push(...post.parts);
   const lim = stage.iSwitchMaxA;
   if (inductor.survivesLimit) {
-    issues.push(info('fault-protected', `${stage.label} limits its switch current to about ${lim} A and shuts down when overheated; ${inductor.part.ref} (Isat ${inductor.isatA} A) stays out of saturation, so a shorted output is survived.`));
+    issues.push(
+      info(
+        'fault-protected',
+        `${stage.label} limits its switch current to about ${lim} A and shuts down when overheated; ${inductor.part.ref} (Isat ${inductor.isatA} A) stays out of saturation, so a shorted output is survived.`,
+      ),
+    );
   } else {
-    issues.push(caution('short-saturates', `A shorted output drives the switch to its ${lim} A limit, beyond ${inductor.part.ref}'s ${inductor.isatA} A saturation current: the short is not survived without an upstream fuse or a larger inductor.`));
+    issues.push(
+      caution(
+        'short-saturates',
+        `A shorted output drives the switch to its ${lim} A limit, beyond ${inductor.part.ref}'s ${inductor.isatA} A saturation current: the short is not survived without an upstream fuse or a larger inductor.`,
+      ),
+    );
   }
   issues.push(...inputCautions(ctx, { vMax: input.vMax, vTrough: input.vTrough, cin, pInW: high.pInW, ratingV: stage.vInMaxV }));
 
@@ -342,17 +507,56 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     const p = point(vIn, iOut);
     return { regulates: p.d <= window.dMax && vIn > vOut, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
   };
-  return { stage, fsw, vOut, inductor, cout, post, parts, issues, fixes, switchRef: r.u, rippleVpp, output: fb.output, assumptions, point, operate, stress, faultStress };
+  return {
+    stage,
+    fsw,
+    vOut,
+    inductor,
+    cout,
+    post,
+    parts,
+    issues,
+    fixes,
+    switchRef: r.u,
+    rippleVpp,
+    output: fb.output,
+    assumptions,
+    point,
+    operate,
+    stress,
+    faultStress,
+  };
 }
 
 /** Trace of the duty cycle at a corner, in the form that recomputes from its own inputs. */
-export function traceBuckDuty(trace: Trace, id: string, label: string, p: BuckPoint, vIn: number, vOut: number, iOut: number, fsw: number, henries: number): void {
+export function traceBuckDuty(
+  trace: Trace,
+  id: string,
+  label: string,
+  p: BuckPoint,
+  vIn: number,
+  vOut: number,
+  iOut: number,
+  fsw: number,
+  henries: number,
+): void {
   if (p.mode !== 'dcm') {
     trace.add(id, label, 'D = min(1, Vout/(η·Vin))', { Vout: [vOut, 'V'], η: [p.etaPath, ''], Vin: [vIn, 'V'] }, p.d, '');
   } else {
-    trace.add(id, `${label} (discontinuous conduction)`, 'D = min(1, M·√(K/(1 − M))), M = min(0.999, Vout/Vin), K = 2·L·fsw·Iout/Vout', {
-      Vout: [vOut, 'V'], Vin: [vIn, 'V'], L: [henries, 'H'], fsw: [fsw, 'Hz'], Iout: [iOut, 'A'],
-    }, p.d, '');
+    trace.add(
+      id,
+      `${label} (discontinuous conduction)`,
+      'D = min(1, M·√(K/(1 − M))), M = min(0.999, Vout/Vin), K = 2·L·fsw·Iout/Vout',
+      {
+        Vout: [vOut, 'V'],
+        Vin: [vIn, 'V'],
+        L: [henries, 'H'],
+        fsw: [fsw, 'Hz'],
+        Iout: [iOut, 'A'],
+      },
+      p.d,
+      '',
+    );
   }
 }
 
@@ -362,8 +566,23 @@ export function designBuck(ctx: Context): Design {
   const refs = new Refs();
   const b = buckStage(ctx, refs, trace, railRequest(ctx, 'buck'));
   const nominal = b.point(spec.input.vNom, spec.output.iTyp);
-  traceBuckDuty(trace, 'buck.d.nom', 'Duty cycle at the nominal corner', nominal, spec.input.vNom, b.vOut, spec.output.iTyp, b.fsw, b.inductor.henries);
+  traceBuckDuty(
+    trace,
+    'buck.d.nom',
+    'Duty cycle at the nominal corner',
+    nominal,
+    spec.input.vNom,
+    b.vOut,
+    spec.output.iTyp,
+    b.fsw,
+    b.inductor.henries,
+  );
   const lim = b.stage.iSwitchMaxA;
-  const fault: OperatingPoint = { regulates: false, pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm), pOutW: 0, stress: b.faultStress(spec.input.vMax) };
+  const fault: OperatingPoint = {
+    regulates: false,
+    pInW: lim * lim * (b.stage.rdsOnOhm + b.inductor.dcrOhm),
+    pOutW: 0,
+    stress: b.faultStress(spec.input.vMax),
+  };
   return converterDesign('buck', `Buck converter (${b.stage.rectification === 'sync' ? 'synchronous' : 'catch diode'})`, b, trace, fault);
 }

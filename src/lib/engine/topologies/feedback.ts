@@ -104,7 +104,15 @@ export function dividerModel(
   iAdjMax: number,
   iAdjTyp: number,
 ): ToleranceModel {
-  return dividerOutputModel(vRef, divider, { vRefTolerance, vRefDrift: 0, resistor: resistorTolerance, iAdjMin, iAdjMax, iAdjTyp, extra: [] });
+  return dividerOutputModel(vRef, divider, {
+    vRefTolerance,
+    vRefDrift: 0,
+    resistor: resistorTolerance,
+    iAdjMin,
+    iAdjMax,
+    iAdjTyp,
+    extra: [],
+  });
 }
 
 /** A nominal error below this fraction is finer than any resistor grade (0.1 %): such pairs count as equal. */
@@ -225,9 +233,18 @@ const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 export function searchDivider(input: DividerSearchInput): DividerSearchResult {
   // A grade no cheaper, no tighter and no steadier than another is never the better choice.
   const dominated = (g: ResistorGrade) =>
-    input.grades.some((h) => h !== g && h.extraCents <= g.extraCents && h.tolerance <= g.tolerance && h.tcrPpmK <= g.tcrPpmK && (h.tolerance < g.tolerance || h.tcrPpmK < g.tcrPpmK || h.extraCents < g.extraCents));
+    input.grades.some(
+      (h) =>
+        h !== g &&
+        h.extraCents <= g.extraCents &&
+        h.tolerance <= g.tolerance &&
+        h.tcrPpmK <= g.tcrPpmK &&
+        (h.tolerance < g.tolerance || h.tcrPpmK < g.tcrPpmK || h.extraCents < g.extraCents),
+    );
   const grades = input.grades
-    .filter((g) => (input.series === undefined ? !dominated(g) : g.series === input.series || (input.series === 'E96' && g.series === 'E192')))
+    .filter((g) =>
+      input.series === undefined ? !dominated(g) : g.series === input.series || (input.series === 'E96' && g.series === 'E192'),
+    )
     .slice()
     .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
   const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
@@ -237,7 +254,9 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     let pair = pairs.get(key);
     if (!pair) {
       if (pairs.size >= PAIR_MEMO_SIZE) pairs.clear();
-      pair = Object.freeze(bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced));
+      pair = Object.freeze(
+        bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced),
+      );
       pairs.set(key, pair);
     }
     return pair;
@@ -258,7 +277,17 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     const model = dividerOutputModel(input.vRef, pair, spread);
     const summary = analyseTolerance(model);
     const verdict = toleranceVerdict(summary, input.band, input.rule, input.marginV ?? 0);
-    return { ...pair, grade, series, refTolerance: ref.tolerance, extraCents: 2 * grade.extraCents + ref.extraCents, model, summary, verdict, why: '' };
+    return {
+      ...pair,
+      grade,
+      series,
+      refTolerance: ref.tolerance,
+      extraCents: 2 * grade.extraCents + ref.extraCents,
+      model,
+      summary,
+      verdict,
+      why: '',
+    };
   };
   // Written only for the designs handed back: text is the dearest part of a candidate.
   const explain = (d: DividerDesign): DividerDesign => {

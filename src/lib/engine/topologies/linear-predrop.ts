@@ -8,7 +8,19 @@ import { forced } from '../context.ts';
 import type { LinearRegulatorClass, PassDeviceClass } from '../catalog.ts';
 import { chooseCapacitor } from '../capacitors.ts';
 import { ES1_DC_LIMIT_V } from '../cautions.ts';
-import { Refs, atLeast, blocker, caution, info, makePart, resistorPart, type Design, type Fix, type OperatingPoint, type PartStress } from '../design.ts';
+import {
+  Refs,
+  atLeast,
+  blocker,
+  caution,
+  info,
+  makePart,
+  resistorPart,
+  type Design,
+  type Fix,
+  type OperatingPoint,
+  type PartStress,
+} from '../design.ts';
 import { snap } from '../eseries.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { airflowFactor, assessThermal, type ThermalPart } from '../thermal.ts';
@@ -53,14 +65,23 @@ const FUSE_CLEAR_MULTIPLE = 4;
 function passDeviceCandidates(ctx: Context): PassDeviceClass[] {
   const kind = ctx.spec.overrides.passDevice;
   const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
-  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
+  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices)
+    .slice()
+    .sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
   const rated = pool.filter((d) => d.vMaxV >= SEMICONDUCTOR_VOLTAGE_FACTOR * ctx.spec.input.vMax);
-  return rated.length > 0 ? rated : pool.slice().sort((a, b) => b.vMaxV - a.vMaxV).slice(0, 1);
+  return rated.length > 0
+    ? rated
+    : pool
+        .slice()
+        .sort((a, b) => b.vMaxV - a.vMaxV)
+        .slice(0, 1);
 }
 
 /** The cheapest floating (adjustable) class that carries the load with margin. */
 function chooseFloatingClass(ctx: Context, iMax: number): LinearRegulatorClass {
-  const adjustable = ctx.catalog.linearRegulators.filter((c) => c.kind === 'adjustable').sort((a, b) => a.costCents - b.costCents || a.iOutMaxA - b.iOutMaxA);
+  const adjustable = ctx.catalog.linearRegulators
+    .filter((c) => c.kind === 'adjustable')
+    .sort((a, b) => a.costCents - b.costCents || a.iOutMaxA - b.iOutMaxA);
   const forcedCls = adjustable.find((c) => c.id === ctx.spec.overrides.linearClass);
   return (
     forcedCls ??
@@ -102,7 +123,15 @@ function sizeProtection(ctx: Context, dev: PassDeviceClass, thermal: ThermalPart
   return fallback!;
 }
 
-function sizeProtectionAt(ctx: Context, dev: PassDeviceClass, thermal: ThermalPart, iPath: number, vTarget: number, vs: number, ratio: number): Protection {
+function sizeProtectionAt(
+  ctx: Context,
+  dev: PassDeviceClass,
+  thermal: ThermalPart,
+  iPath: number,
+  vTarget: number,
+  vs: number,
+  ratio: number,
+): Protection {
   const { vMax } = ctx.spec.input;
   const iLimit = ratio * iPath;
   const vNormal = vTarget + vs;
@@ -151,7 +180,18 @@ function sizeProtectionAt(ctx: Context, dev: PassDeviceClass, thermal: ThermalPa
     caseC = fits(lo);
   }
   const fb = caseC === null ? null : designFoldback(iLimit, folded, vNormal, vs, SENSE_VBE_V);
-  if (fb && caseC !== null) return { mode: 'foldback', foldback: fb, iLimit, iShort: folded, worstW: lineWorst(folded), caseC, fuseA: null, clearS: null, problems };
+  if (fb && caseC !== null)
+    return {
+      mode: 'foldback',
+      foldback: fb,
+      iLimit,
+      iShort: folded,
+      worstW: lineWorst(folded),
+      caseC,
+      fuseA: null,
+      clearS: null,
+      problems,
+    };
   // No foldback holds a continuous short: a fast fuse, with the limit raised so it clears quickly.
   const fuseA = FUSE_RATINGS_A.find((r) => r >= FUSE_RATING_FACTOR * iPath) ?? FUSE_RATINGS_A[FUSE_RATINGS_A.length - 1]!;
   const iFault = Math.max(iLimit, FUSE_CLEAR_MULTIPLE * fuseA);
@@ -163,7 +203,10 @@ function sizeProtectionAt(ctx: Context, dev: PassDeviceClass, thermal: ThermalPa
   const ambientCase = ctx.ambientC;
   if (clearS === null || pShort > pulsedSoaW(dev, vceShort, ambientCase, clearS)) {
     problems.push(
-      blocker('soa', `A shorted output puts ${pShort.toFixed(0)} W into the pass device; no foldback keeps that inside its SOA continuously, and a ${formatSi(fuseA, 'A', 3)} fuse clearing at ${formatSi(iFault, 'A', 3)} takes ${clearS === null ? 'too long' : formatSi(clearS, 's', 2)}, beyond its pulsed SOA.`),
+      blocker(
+        'soa',
+        `A shorted output puts ${pShort.toFixed(0)} W into the pass device; no foldback keeps that inside its SOA continuously, and a ${formatSi(fuseA, 'A', 3)} fuse clearing at ${formatSi(iFault, 'A', 3)} takes ${clearS === null ? 'too long' : formatSi(clearS, 's', 2)}, beyond its pulsed SOA.`,
+      ),
     );
   }
   return { mode: 'fuse', foldback: plain, iLimit: iFault, iShort: iFault, worstW: pShort, caseC: ambientCase, fuseA, clearS, problems };
@@ -187,10 +230,21 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const gain = npn ? dev.gainMin : Number.POSITIVE_INFINITY;
   const vc = dev.vControlV;
   if (dev.vMaxV < SEMICONDUCTOR_VOLTAGE_FACTOR * vMax) {
-    issues.push(blocker('pass-voltage', `The pass device must be rated ${(SEMICONDUCTOR_VOLTAGE_FACTOR * vMax).toFixed(0)} V; the largest in the catalog is ${dev.vMaxV} V.`));
+    issues.push(
+      blocker(
+        'pass-voltage',
+        `The pass device must be rated ${(SEMICONDUCTOR_VOLTAGE_FACTOR * vMax).toFixed(0)} V; the largest in the catalog is ${dev.vMaxV} V.`,
+      ),
+    );
   }
   const live = vMax > ES1_DC_LIMIT_V;
-  const thermal: ThermalPart = { thetaJcCW: dev.thetaJcCW, thetaJaCW: dev.thetaJaCW, tjMaxC: dev.tjMaxC, heatsinkable: true, ...(live ? { thetaCsCW: INSULATING_PAD_CW } : {}) };
+  const thermal: ThermalPart = {
+    thetaJcCW: dev.thetaJcCW,
+    thetaJaCW: dev.thetaJaCW,
+    tjMaxC: dev.tjMaxC,
+    heatsinkable: true,
+    ...(live ? { thetaCsCW: INSULATING_PAD_CW } : {}),
+  };
 
   const cls = chooseFloatingClass(ctx, iMax);
   const iDiv = dividerCurrent(cls, iMax) * 1.5;
@@ -214,9 +268,20 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
   }
   const vs = vz - vc;
-  trace.select('predrop.vz', 'Standoff Zener voltage (E24 at or above the need)', 'Vz ≥ Vbe + Vdropout + margin + Ipath,max·Rs', {
-    Vbe: [vc, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [HEADROOM_MARGIN_V, 'V'], 'Ipath,max': [iPathMax, 'A'], Rs: [rs, 'Ω'],
-  }, vz, 'V');
+  trace.select(
+    'predrop.vz',
+    'Standoff Zener voltage (E24 at or above the need)',
+    'Vz ≥ Vbe + Vdropout + margin + Ipath,max·Rs',
+    {
+      Vbe: [vc, 'V'],
+      Vdropout: [cls.dropoutV, 'V'],
+      margin: [HEADROOM_MARGIN_V, 'V'],
+      'Ipath,max': [iPathMax, 'A'],
+      Rs: [rs, 'Ω'],
+    },
+    vz,
+    'V',
+  );
   issues.push(...prot.problems);
 
   // Foldback divider: k = RA/RB, about FOLDBACK_DIVIDER_A through both from the sense node (none for a plain limit).
@@ -229,40 +294,94 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const fb: Foldback = { k: folds && rbf > 0 ? ra / rbf : 0, rs };
   const limitAt = (id: string, label: string, vn: number): number =>
     folds
-      ? trace.add(id, `${label} (foldback line)`, 'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs', {
-          Vbe: [SENSE_VBE_V, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vn, 'V'], Rs: [rs, 'Ω'],
-        }, foldbackCurrent(fb, SENSE_VBE_V, vn), 'A')
-      : trace.add(id, `${label} (sense transistor across Rs)`, 'I = Vbe/Rs', { Vbe: [SENSE_VBE_V, 'V'], Rs: [rs, 'Ω'] }, SENSE_VBE_V / rs, 'A');
+      ? trace.add(
+          id,
+          `${label} (foldback line)`,
+          'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs',
+          {
+            Vbe: [SENSE_VBE_V, 'V'],
+            RA: [ra, 'Ω'],
+            RB: [rbf, 'Ω'],
+            Vn: [vn, 'V'],
+            Rs: [rs, 'Ω'],
+          },
+          foldbackCurrent(fb, SENSE_VBE_V, vn),
+          'A',
+        )
+      : trace.add(
+          id,
+          `${label} (sense transistor across Rs)`,
+          'I = Vbe/Rs',
+          { Vbe: [SENSE_VBE_V, 'V'], Rs: [rs, 'Ω'] },
+          SENSE_VBE_V / rs,
+          'A',
+        );
   const iLimit = limitAt('predrop.ilimit', 'Current limit at full output', vNormal);
   const iFault = limitAt('predrop.ifault', 'Short-circuit current', vs);
   if (iLimit < iPathMax) {
-    issues.push(blocker('current-limit', `The limit ${formatSi(iLimit, 'A', 3)} (from the forced parts) is below the full-load path current ${formatSi(iPathMax, 'A', 3)}.`));
+    issues.push(
+      blocker(
+        'current-limit',
+        `The limit ${formatSi(iLimit, 'A', 3)} (from the forced parts) is below the full-load path current ${formatSi(iPathMax, 'A', 3)}.`,
+      ),
+    );
   }
   const vceFault = Math.max(0, vMax - vs);
-  const pFault = trace.add('predrop.pq.fault', 'Pass device dissipation with the output shorted', 'P = max(0, vInMax − (Vz − Vbe))·Ifault', {
-    vInMax: [vMax, 'V'], Vz: [vz, 'V'], Vbe: [vc, 'V'], Ifault: [iFault, 'A'],
-  }, vceFault * iFault, 'W');
+  const pFault = trace.add(
+    'predrop.pq.fault',
+    'Pass device dissipation with the output shorted',
+    'P = max(0, vInMax − (Vz − Vbe))·Ifault',
+    {
+      vInMax: [vMax, 'V'],
+      Vz: [vz, 'V'],
+      Vbe: [vc, 'V'],
+      Ifault: [iFault, 'A'],
+    },
+    vceFault * iFault,
+    'W',
+  );
   const soaShort = soaDeratedW(dev, vceFault, prot.caseC);
   if (prot.mode === 'foldback') {
     issues.push(
-      caution('soa', `Foldback limit: ${formatSi(iLimit, 'A', 3)} at full output, folding into a short, where ${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) for as long as the short lasts. Its SOA hint (${soaAllowedW(dev, vceFault).toFixed(1)} W at a 25 °C case) derated to the ${prot.caseC.toFixed(0)} °C case its heatsink gives, used to ${(SOA_MARGIN * 100).toFixed(0)} %, allows ${soaShort.toFixed(1)} W; the worst point of the foldback line is ${prot.worstW.toFixed(1)} W. A load that draws constant current may not start against a deep foldback. Confirm against the device's SOA curve.`),
+      caution(
+        'soa',
+        `Foldback limit: ${formatSi(iLimit, 'A', 3)} at full output, folding into a short, where ${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) for as long as the short lasts. Its SOA hint (${soaAllowedW(dev, vceFault).toFixed(1)} W at a 25 °C case) derated to the ${prot.caseC.toFixed(0)} °C case its heatsink gives, used to ${(SOA_MARGIN * 100).toFixed(0)} %, allows ${soaShort.toFixed(1)} W; the worst point of the foldback line is ${prot.worstW.toFixed(1)} W. A load that draws constant current may not start against a deep foldback. Confirm against the device's SOA curve.`,
+      ),
     );
   } else if (prot.fuseA !== null) {
     const clear = prot.clearS;
     issues.push(
-      caution('fuse', `No foldback keeps a continuous short inside ${qRef}'s SOA, so a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse in the input clears it: at the ${formatSi(iFault, 'A', 3)} limit it opens in about ${clear === null ? 'an unbounded time' : formatSi(clear, 's', 2)}, putting ${clear === null ? 'unbounded energy' : formatSi(pFault * clear, 'J', 2)} (${pFault.toFixed(0)} W) into ${qRef} — inside its pulsed SOA (√(τ/t) widening of the DC hint, τ = ${formatSi(dev.thermalTauS, 's', 2)}, from memory). Clearing time from a typical fast-acting curve (from memory): confirm against the chosen fuse; replace it after a fault.`),
+      caution(
+        'fuse',
+        `No foldback keeps a continuous short inside ${qRef}'s SOA, so a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse in the input clears it: at the ${formatSi(iFault, 'A', 3)} limit it opens in about ${clear === null ? 'an unbounded time' : formatSi(clear, 's', 2)}, putting ${clear === null ? 'unbounded energy' : formatSi(pFault * clear, 'J', 2)} (${pFault.toFixed(0)} W) into ${qRef} — inside its pulsed SOA (√(τ/t) widening of the DC hint, τ = ${formatSi(dev.thermalTauS, 's', 2)}, from memory). Clearing time from a typical fast-acting curve (from memory): confirm against the chosen fuse; replace it after a fault.`,
+      ),
     );
-    fixes.push({ code: 'soa', change: 'a pass device with a larger safe operating area', message: 'A device whose SOA carries the foldback line continuously would survive a short without the fuse.' });
+    fixes.push({
+      code: 'soa',
+      change: 'a pass device with a larger safe operating area',
+      message: 'A device whose SOA carries the foldback line continuously would survive a short without the fuse.',
+    });
   }
   if (live) {
     issues.push(
-      caution('live-heatsink', `${qRef}'s tab and heatsink sit at up to ${vMax.toFixed(0)} V: mount it on an insulating pad (θCS ${INSULATING_PAD_CW} K/W assumed, 1–3 K/W typical) with an insulating bush, keep the heatsink away from touch, and lay out clearance and creepage for basic insulation at this working voltage from the tables of IEC 62368-1 (from memory: a few millimetres at 400–500 V, pollution degree 2 — take the figures from the standard).`),
+      caution(
+        'live-heatsink',
+        `${qRef}'s tab and heatsink sit at up to ${vMax.toFixed(0)} V: mount it on an insulating pad (θCS ${INSULATING_PAD_CW} K/W assumed, 1–3 K/W typical) with an insulating bush, keep the heatsink away from touch, and lay out clearance and creepage for basic insulation at this working voltage from the tables of IEC 62368-1 (from memory: a few millimetres at 400–500 V, pollution degree 2 — take the figures from the standard).`,
+      ),
     );
   }
 
   // The regulator stage (divider, capacitors, protection diodes) sees only the standoff.
   const regInMax = vTarget + vs;
-  const stage = regulatorStage(ctx, refs, trace, { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true }, vTarget, iMax, cls.id);
+  const stage = regulatorStage(
+    ctx,
+    refs,
+    trace,
+    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true },
+    vTarget,
+    iMax,
+    cls.id,
+  );
   issues.push(...stage.issues.filter((i) => i.code !== 'class-unknown' && i.code !== 'headroom'));
   fixes.push(...stage.fixes.filter((f) => f.code !== 'headroom'));
   const vOut = stage.vOut;
@@ -270,7 +389,9 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const iAdj = cls.iAdjTypA;
   const regHeadroom = vs - iPathMax * rs;
   if (regHeadroom < cls.dropoutV) {
-    issues.push(blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`));
+    issues.push(
+      blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`),
+    );
   }
   if (cls.vDiffMaxV !== null && vs > cls.vDiffMaxV) {
     issues.push(blocker('standoff', `The standoff puts ${vs.toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
@@ -289,13 +410,32 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
   const rbDrop = ctx.vInTrough - (vOut + vz) > 0 ? ctx.vInTrough - (vOut + vz) : Math.max(1, vMax - vOut - vz);
   const rb = forced(ctx, rbRef) ?? snap(atLeast(rbDrop / iBias, 1), 'E24', 'down');
-  trace.select('predrop.rb', 'Bias resistor, snapped down to E24', 'Rb = (vInTrough − (Vout + Vz)) / Ibias', {
-    vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Ibias: [iBias, 'A'],
-  }, rb, 'Ω');
+  trace.select(
+    'predrop.rb',
+    'Bias resistor, snapped down to E24',
+    'Rb = (vInTrough − (Vout + Vz)) / Ibias',
+    {
+      vInTrough: [ctx.vInTrough, 'V'],
+      Vout: [vOut, 'V'],
+      Vz: [vz, 'V'],
+      Ibias: [iBias, 'A'],
+    },
+    rb,
+    'Ω',
+  );
   if (ctx.vInTrough < vOut + vz + BIAS_HEADROOM_V) {
     const need = vOut + vz + BIAS_HEADROOM_V;
-    issues.push(blocker('headroom', `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${need.toFixed(1)} V.`));
-    fixes.push({ code: 'headroom', change: `input trough at least ${need.toFixed(1)} V`, message: `Needs ≥ ${need.toFixed(1)} V input at the trough; a pre-drop stage only helps well above the output.` });
+    issues.push(
+      blocker(
+        'headroom',
+        `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${need.toFixed(1)} V.`,
+      ),
+    );
+    fixes.push({
+      code: 'headroom',
+      change: `input trough at least ${need.toFixed(1)} V`,
+      message: `Needs ≥ ${need.toFixed(1)} V input at the trough; a pre-drop stage only helps well above the output.`,
+    });
   }
 
   // The Zener's current flows into the output node and bypasses the regulator; solve the path current.
@@ -310,14 +450,39 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const izFault = Math.max(0, (vMax - vz) / rb - iFault / gain);
   const pzWorst = vz * Math.max(zNormal.iz, izFault);
   const zener = seriesForPower(zSeries, pzWorst) ?? catalog.zenerSeries[0]!;
-  trace.add('predrop.pz', 'Standoff Zener worst power (output shorted)', 'Pz = Vz·max(0, (vInMax − Vz)/Rb − Ifault/β)', {
-    Vz: [vz, 'V'], vInMax: [vMax, 'V'], Rb: [rb, 'Ω'], Ifault: [iFault, 'A'], β: [npn ? gain : 1e12, ''],
-  }, vz * izFault, 'W');
+  trace.add(
+    'predrop.pz',
+    'Standoff Zener worst power (output shorted)',
+    'Pz = Vz·max(0, (vInMax − Vz)/Rb − Ifault/β)',
+    {
+      Vz: [vz, 'V'],
+      vInMax: [vMax, 'V'],
+      Rb: [rb, 'Ω'],
+      Ifault: [iFault, 'A'],
+      β: [npn ? gain : 1e12, ''],
+    },
+    vz * izFault,
+    'W',
+  );
   if (zNormal.iz > spec.output.iMin + iDivActual) {
-    issues.push(blocker('zener-feed', `The standoff Zener feeds ${(zNormal.iz * 1e3).toFixed(1)} mA into the output at the highest input, more than the divider and the lightest load draw; the regulator cannot sink it.`));
-    fixes.push({ code: 'zener-feed', change: 'a MOSFET pass device (no base current to supply) or a higher minimum load', message: `A lightest load of at least ${formatSi(zNormal.iz - iDivActual, 'A', 2)} would absorb the Zener's current.` });
+    issues.push(
+      blocker(
+        'zener-feed',
+        `The standoff Zener feeds ${(zNormal.iz * 1e3).toFixed(1)} mA into the output at the highest input, more than the divider and the lightest load draw; the regulator cannot sink it.`,
+      ),
+    );
+    fixes.push({
+      code: 'zener-feed',
+      change: 'a MOSFET pass device (no base current to supply) or a higher minimum load',
+      message: `A lightest load of at least ${formatSi(zNormal.iz - iDivActual, 'A', 2)} would absorb the Zener's current.`,
+    });
   }
-  issues.push(caution('no-potentiometer', 'Never use a potentiometer in this high-voltage feedback path: a wiper that opens drives the output up to the input.'));
+  issues.push(
+    caution(
+      'no-potentiometer',
+      'Never use a potentiometer in this high-voltage feedback path: a wiper that opens drives the output up to the input.',
+    ),
+  );
 
   const cinHv = chooseCapacitor(refs.next('C'), 'input-capacitor', 0.1e-6, vMax, catalog);
   if (cinHv.issue) issues.push(cinHv.issue);
@@ -340,17 +505,31 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
       ratingW: zener.powerW,
       tolerance: zener.tolerance,
       costCents: zener.costCents,
-      thermal: { thetaJcCW: zener.thetaJaCW, thetaJaCW: zener.thetaJaCW, tjMaxC: zener.tjMaxC, heatsinkable: false, protectedInFault: false },
+      thermal: {
+        thetaJcCW: zener.thetaJaCW,
+        thetaJaCW: zener.thetaJaCW,
+        tjMaxC: zener.tjMaxC,
+        heatsinkable: false,
+        protectedInFault: false,
+      },
     }),
     resistorPart(rsRef, 'sense-resistor', rs, 0.05, 'E24'),
     ...stage.parts,
     resistorPart(rbRef, 'bias-resistor', rb, 0.05, 'E24'),
-    makePart({ ref: q2Ref, role: 'limit-transistor', part: 'Small-signal NPN, foldback current sense', ratingV: vz, costCents: catalog.costs.protectionDiodeCents }),
+    makePart({
+      ref: q2Ref,
+      role: 'limit-transistor',
+      part: 'Small-signal NPN, foldback current sense',
+      ratingV: vz,
+      costCents: catalog.costs.protectionDiodeCents,
+    }),
     ...(folds ? [resistorPart(raRef, 'bias-resistor', ra, 0.01, 'E96'), resistorPart(rbfRef, 'bias-resistor', rbf, 0.01, 'E96')] : []),
     cinHv.part,
   ];
   if (prot.mode === 'fuse' && prot.fuseA !== null) {
-    issues.push(info('fuse-part', `Fit a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse rated for ${vMax.toFixed(0)} V DC in the input.`));
+    issues.push(
+      info('fuse-part', `Fit a ${formatSi(prot.fuseA, 'A', 3)} fast-acting fuse rated for ${vMax.toFixed(0)} V DC in the input.`),
+    );
   }
 
   const rz = dynamicImpedance(zener, vz);
@@ -399,10 +578,22 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   // Input ripple reaches the regulator only through Rb and the Zener's rz.
   const rippleAtReg = spec.input.rippleVpp * (rz / (rb + rz));
   const psrr = cls.psrrDb;
-  const rippleVpp = trace.add('predrop.ripple', 'Output ripple', 'ΔVout = ΔVin·rz/(Rb + rz)·10^(−PSRR/20)', {
-    ΔVin: [spec.input.rippleVpp, 'V'], rz: [rz, 'Ω'], Rb: [rb, 'Ω'], PSRR: [psrr, 'dB'],
-  }, rippleAtReg * 10 ** (-psrr / 20), 'V');
-  issues.push(info('pass-rating', `${qRef} is rated ${dev.vMaxV} V for a ${vMax} V input and heat-sunk for the worst point of its current limit.`));
+  const rippleVpp = trace.add(
+    'predrop.ripple',
+    'Output ripple',
+    'ΔVout = ΔVin·rz/(Rb + rz)·10^(−PSRR/20)',
+    {
+      ΔVin: [spec.input.rippleVpp, 'V'],
+      rz: [rz, 'Ω'],
+      Rb: [rb, 'Ω'],
+      PSRR: [psrr, 'dB'],
+    },
+    rippleAtReg * 10 ** (-psrr / 20),
+    'V',
+  );
+  issues.push(
+    info('pass-rating', `${qRef} is rated ${dev.vMaxV} V for a ${vMax} V input and heat-sunk for the worst point of its current limit.`),
+  );
 
   const design: Design & { fixes: Fix[] } = {
     topology: 'linear-predrop',

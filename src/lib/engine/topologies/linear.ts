@@ -35,9 +35,19 @@ export function designLinear(ctx: Context): Design {
     'W',
   );
   if (stage.cls.kind === 'adjustable') {
-    issues.push(info('min-load', `The divider draws ${((stage.divider?.iDivider ?? 0) * 1e3).toFixed(1)} mA so the regulator always has its minimum load.`));
+    issues.push(
+      info(
+        'min-load',
+        `The divider draws ${((stage.divider?.iDivider ?? 0) * 1e3).toFixed(1)} mA so the regulator always has its minimum load.`,
+      ),
+    );
   }
-  issues.push(info('fault-protected', `${stage.regRef} limits current and shuts down when overheated, so a shorted output is survived; the heatsink is sized for normal operation.`));
+  issues.push(
+    info(
+      'fault-protected',
+      `${stage.regRef} limits current and shuts down when overheated, so a shorted output is survived; the heatsink is sized for normal operation.`,
+    ),
+  );
 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const iIn = stage.inputCurrent(iOut);

@@ -24,7 +24,12 @@ export function rippleRejectionDb(cls: LinearRegulatorClass, fHz: number, bypass
  * Output noise, V RMS, over the band: the unity-gain density times the divider's gain Vout/Vref
  * (a bypassed adjust pin keeps the gain at one for noise), flat over the band.
  */
-export function outputNoiseRms(cls: LinearRegulatorClass, vOut: number, bypassed: boolean, band: { lo: number; hi: number } = NOISE_BAND_HZ): number {
+export function outputNoiseRms(
+  cls: LinearRegulatorClass,
+  vOut: number,
+  bypassed: boolean,
+  band: { lo: number; hi: number } = NOISE_BAND_HZ,
+): number {
   const gain = cls.kind === 'fixed' || bypassed ? 1 : Math.max(1, vOut / cls.vRefV);
   return cls.noiseDensityVrtHz * gain * Math.sqrt(Math.max(0, band.hi - band.lo));
 }

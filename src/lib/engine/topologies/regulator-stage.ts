@@ -8,7 +8,14 @@ import { chooseCapacitor } from '../capacitors.ts';
 import { Refs, blocker, caution, info, makePart, resistorPart, type DesignPart, type Fix, type PartStress } from '../design.ts';
 import { snap } from '../eseries.ts';
 import { junctionTemperature } from '../thermal.ts';
-import { analyseTolerance, temperatureSwingK, toleranceVerdict, type ToleranceModel, type ToleranceParam, type ToleranceSummary } from '../tolerance.ts';
+import {
+  analyseTolerance,
+  temperatureSwingK,
+  toleranceVerdict,
+  type ToleranceModel,
+  type ToleranceParam,
+  type ToleranceSummary,
+} from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import { formatSi } from '../units.ts';
@@ -66,11 +73,23 @@ export function dividerCurrent(cls: LinearRegulatorClass, iLoadMax: number): num
  * Blockers a class would meet on this rail (empty when it fits). Headroom is checked at vOutHigh,
  * the highest output the design's tolerance allows (the nominal output when not yet known).
  */
-export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput, vOut: number, iMax: number, vOutHigh = vOut): Issue[] {
+export function checkClass(
+  ctx: Context,
+  cls: LinearRegulatorClass,
+  input: StageInput,
+  vOut: number,
+  iMax: number,
+  vOutHigh = vOut,
+): Issue[] {
   const out: Issue[] = [];
   const iDiv = cls.kind === 'fixed' ? 0 : dividerCurrent(cls, iMax);
   if (iMax + iDiv > CURRENT_DERATING * cls.iOutMaxA) {
-    out.push(blocker('current', `${cls.label} is rated ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`));
+    out.push(
+      blocker(
+        'current',
+        `${cls.label} is rated ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`,
+      ),
+    );
   }
   const dropout = dropoutAt(cls, iMax + iDiv);
   if (input.vTrough < vOutHigh + dropout) {
@@ -83,10 +102,12 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
   }
   if (cls.vDiffMaxV !== null && input.vMax - vOut > cls.vDiffMaxV) {
     out.push(
-      blocker('differential', `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${cls.label} allows ${cls.vDiffMaxV} V.`),
+      blocker(
+        'differential',
+        `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${cls.label} allows ${cls.vDiffMaxV} V.`,
+      ),
     );
-  }
-  else if (cls.vDiffMaxV !== null && !input.tracksOutput && input.vMax > cls.vDiffMaxV) {
+  } else if (cls.vDiffMaxV !== null && !input.tracksOutput && input.vMax > cls.vDiffMaxV) {
     // A three-terminal regulator's differential is an absolute limit: a shorted output, or a
     // discharged output capacitor at switch-on, puts the whole input across it (common practice).
     out.push(
@@ -106,7 +127,12 @@ export function checkClass(ctx: Context, cls: LinearRegulatorClass, input: Stage
     const p = (input.vMax - vOut) * (iMax + Math.max(cls.minLoadA, iDiv)) + input.vMax * cls.iqA;
     const tj = junctionTemperature(ctx.ambientC, p, [cls.thetaJaCW * ctx.catalog.thermal.airflowFactor[ctx.spec.thermal.airflow]]);
     if (tj > cls.tjMaxC - ctx.catalog.thermal.tjMarginK) {
-      out.push(blocker('thermal', `${cls.label} cannot take a heatsink and would pass its ${cls.tjMaxC - ctx.catalog.thermal.tjMarginK} °C design limit at ${p.toFixed(2)} W.`));
+      out.push(
+        blocker(
+          'thermal',
+          `${cls.label} cannot take a heatsink and would pass its ${cls.tjMaxC - ctx.catalog.thermal.tjMarginK} °C design limit at ${p.toFixed(2)} W.`,
+        ),
+      );
     }
   }
   return out;
@@ -121,12 +147,20 @@ function eligible(ctx: Context, vOut: number): LinearRegulatorClass[] {
  * Quick class choice without the tolerance search (for callers that only need a class to size
  * around): the cheapest class that fits, otherwise the one with the fewest blockers.
  */
-export function chooseRegulatorClass(ctx: Context, input: StageInput, vOut: number, iMax: number, forcedId: string | undefined): ClassCheck {
+export function chooseRegulatorClass(
+  ctx: Context,
+  input: StageInput,
+  vOut: number,
+  iMax: number,
+  forcedId: string | undefined,
+): ClassCheck {
   const all = ctx.catalog.linearRegulators;
   const wanted = forcedId === undefined ? undefined : all.find((c) => c.id === forcedId);
   if (wanted) return { cls: wanted, failures: checkClass(ctx, wanted, input, vOut, iMax) };
   let best: ClassCheck | null = null;
-  for (const cls of eligible(ctx, vOut).slice().sort((a, b) => a.costCents - b.costCents)) {
+  for (const cls of eligible(ctx, vOut)
+    .slice()
+    .sort((a, b) => a.costCents - b.costCents)) {
     const failures = checkClass(ctx, cls, input, vOut, iMax);
     if (failures.length === 0) return { cls, failures };
     if (best === null || failures.length < best.failures.length) best = { cls, failures };
@@ -162,7 +196,14 @@ function regulationSpread(cls: LinearRegulatorClass, input: StageInput, iMin: nu
   ];
 }
 
-function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput, vTarget: number, iMax: number, forcedR: { r1?: number; r2?: number }): ClassDesign {
+function designClass(
+  ctx: Context,
+  cls: LinearRegulatorClass,
+  input: StageInput,
+  vTarget: number,
+  iMax: number,
+  forcedR: { r1?: number; r2?: number },
+): ClassDesign {
   const { spec } = ctx;
   const band = { lo: spec.output.v * (1 - spec.output.tolerance), hi: spec.output.v * (1 + spec.output.tolerance) };
   const rule = spec.overrides.toleranceRule ?? 'statistical';
@@ -170,7 +211,14 @@ function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput,
   // The adjust-pin bypass also keeps the reference's noise from being multiplied by Vout/Vref.
   const noisy = NOISE_CREST_FACTOR * outputNoiseRms(cls, vTarget, false) > spec.noise.maxRippleVpp;
   const bypass = cls.kind === 'adjustable' && (input.rippleVpp > 0 || quiet || noisy);
-  const psrrDb = input.rippleHz !== undefined ? rippleRejectionDb(cls, input.rippleHz, bypass) : input.rippleIsHf ? cls.psrrHfDb : bypass ? cls.psrrBypassDb : cls.psrrDb;
+  const psrrDb =
+    input.rippleHz !== undefined
+      ? rippleRejectionDb(cls, input.rippleHz, bypass)
+      : input.rippleIsHf
+        ? cls.psrrHfDb
+        : bypass
+          ? cls.psrrBypassDb
+          : cls.psrrDb;
   const rippleOutVpp = input.rippleVpp * 10 ** (-psrrDb / 20);
   const tempSwingK = temperatureSwingK(ctx.ambientC);
   const extra = regulationSpread(cls, input, spec.output.iMin, iMax);
@@ -183,11 +231,22 @@ function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput,
   let extraCents = 0;
   if (cls.kind === 'fixed') {
     // A preset output is a divider with R2 = 0: only the reference grade is chosen.
-    let chosen: { output: ToleranceModel; summary: ToleranceSummary; verdict: ClassDesign['verdict']; tol: number; cents: number } | null = null;
+    let chosen: { output: ToleranceModel; summary: ToleranceSummary; verdict: ClassDesign['verdict']; tol: number; cents: number } | null =
+      null;
     for (const g of refGrades) {
-      const model = dividerOutputModel(cls.vRefV, { r1: 1, r2: 0, vOut: cls.vRefV, iDivider: 0 }, {
-        vRefTolerance: g.tolerance, vRefDrift: cls.vRefDriftPpmK * 1e-6 * tempSwingK, resistor: 0, iAdjMin: 0, iAdjMax: 0, iAdjTyp: 0, extra,
-      });
+      const model = dividerOutputModel(
+        cls.vRefV,
+        { r1: 1, r2: 0, vOut: cls.vRefV, iDivider: 0 },
+        {
+          vRefTolerance: g.tolerance,
+          vRefDrift: cls.vRefDriftPpmK * 1e-6 * tempSwingK,
+          resistor: 0,
+          iAdjMin: 0,
+          iAdjMax: 0,
+          iAdjTyp: 0,
+          extra,
+        },
+      );
       const s = analyseTolerance(model);
       const v = toleranceVerdict(s, band, rule, rippleOutVpp / 2);
       chosen = { output: model, summary: s, verdict: v, tol: g.tolerance, cents: g.extraCents };
@@ -231,7 +290,21 @@ function designClass(ctx: Context, cls: LinearRegulatorClass, input: StageInput,
   const vOutHigh = input.tracksOutput ? vTarget : summary.worstCase.max + rippleOutVpp / 2;
   const failures = checkClass(ctx, cls, input, vTarget, iMax, vOutHigh);
   const dropoutV = dropoutAt(cls, iMax + (divider?.iDivider ?? 0));
-  return { cls, failures, divider, refTolerance, output, summary, verdict, psrrDb, bypass, dropoutV, rippleOutVpp, costCents: cls.costCents + extraCents, extraCents };
+  return {
+    cls,
+    failures,
+    divider,
+    refTolerance,
+    output,
+    summary,
+    verdict,
+    psrrDb,
+    bypass,
+    dropoutV,
+    rippleOutVpp,
+    costCents: cls.costCents + extraCents,
+    extraCents,
+  };
 }
 
 const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);
@@ -289,7 +362,12 @@ function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: 
   }
   if (clean.length > 0 && blockerCount(chosen) > 0) {
     const alt = clean.slice().sort((a, b) => a.costCents - b.costCents)[0]!;
-    fixes.push({ code: 'class', change: `regulator class ${alt.cls.id}`, costCents: alt.costCents - chosen.costCents, message: `${alt.cls.label} meets the rail${alt.extraCents > 0 ? ' with its dearer grades' : ''}.` });
+    fixes.push({
+      code: 'class',
+      change: `regulator class ${alt.cls.id}`,
+      costCents: alt.costCents - chosen.costCents,
+      message: `${alt.cls.label} meets the rail${alt.extraCents > 0 ? ' with its dearer grades' : ''}.`,
+    });
   }
   return fixes;
 }
@@ -333,7 +411,16 @@ export function regulatorStage(
   let cleanCents = Number.POSITIVE_INFINITY;
   for (const cls of (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).slice().sort((a, b) => a.costCents - b.costCents)) {
     if (cls.costCents >= cleanCents) continue;
-    const d = designClass(ctx, cls, input, vTarget, iMax, cls.kind === 'fixed' ? {} : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) });
+    const d = designClass(
+      ctx,
+      cls,
+      input,
+      vTarget,
+      iMax,
+      cls.kind === 'fixed'
+        ? {}
+        : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) },
+    );
     designs.push(d);
     if (blockerCount(d) === 0) cleanCents = Math.min(cleanCents, d.costCents);
   }
@@ -353,12 +440,25 @@ export function regulatorStage(
       ratingV: cls.vDiffMaxV ?? cls.vInMaxV,
       tolerance: d.refTolerance,
       costCents: cls.costCents + refCents,
-      thermal: { thetaJcCW: cls.thetaJcCW, thetaJaCW: cls.thetaJaCW, tjMaxC: cls.tjMaxC, heatsinkable: cls.heatsinkable, protectedInFault: true },
+      thermal: {
+        thetaJcCW: cls.thetaJcCW,
+        thetaJaCW: cls.thetaJaCW,
+        tjMaxC: cls.tjMaxC,
+        heatsinkable: cls.heatsinkable,
+        protectedInFault: true,
+      },
     }),
   ];
   const divider = d.divider;
   if (divider) {
-    trace.add(`${regRef}.idiv`, 'Divider current (the divider alone carries the minimum load; it swamps the adjust-pin current)', 'Idiv = Vref / R1', { Vref: [cls.vRefV, 'V'], R1: [divider.r1, 'Ω'] }, divider.iDivider, 'A');
+    trace.add(
+      `${regRef}.idiv`,
+      'Divider current (the divider alone carries the minimum load; it swamps the adjust-pin current)',
+      'Idiv = Vref / R1',
+      { Vref: [cls.vRefV, 'V'], R1: [divider.r1, 'Ω'] },
+      divider.iDivider,
+      'A',
+    );
     trace.add(
       `${regRef}.vout`,
       `Output with the searched pair (${divider.series}, ${divider.grade.label})`,
@@ -378,7 +478,14 @@ export function regulatorStage(
   if ((forcedR.r1 !== undefined || forcedR.r2 !== undefined) && !divider) {
     issues.push(info('forced-unused', `The forced divider value is not used: ${cls.label} presets its output and has no divider.`));
   }
-  trace.select(`${regRef}.sigma`, 'Output sigma (root-sum-square of the parts’ uniform bands)', 'σ = √Σ(a_i²/3)', Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])), d.summary.sigma, 'V');
+  trace.select(
+    `${regRef}.sigma`,
+    'Output sigma (root-sum-square of the parts’ uniform bands)',
+    'σ = √Σ(a_i²/3)',
+    Object.fromEntries(d.summary.contributions.map((c) => [c.name, [c.halfSwing, 'V'] as const])),
+    d.summary.sigma,
+    'V',
+  );
   const vOut = divider?.vOut ?? cls.vRefV;
   const iPass = iMax + (divider?.iDivider ?? 0);
   if (cls.dropoutWithLoad) {
@@ -386,12 +493,24 @@ export function regulatorStage(
       `${regRef}.dropout`,
       'Dropout at the highest pass current (resistive pass device: it scales with current, down to its floor)',
       'Vdo = min(Vdo,rated, max(Vdo,floor, Vdo,rated·Ipass/Irated))',
-      { 'Vdo,rated': [cls.dropoutV, 'V'], 'Vdo,floor': [cls.dropoutWithLoad.floorV, 'V'], Ipass: [iPass, 'A'], Irated: [cls.iOutMaxA, 'A'] },
+      {
+        'Vdo,rated': [cls.dropoutV, 'V'],
+        'Vdo,floor': [cls.dropoutWithLoad.floorV, 'V'],
+        Ipass: [iPass, 'A'],
+        Irated: [cls.iOutMaxA, 'A'],
+      },
       d.dropoutV,
       'V',
     );
   } else {
-    trace.add(`${regRef}.dropout`, 'Dropout (junction-limited pass device: the rated figure at every load)', 'Vdo = Vdo,rated', { 'Vdo,rated': [cls.dropoutV, 'V'] }, d.dropoutV, 'V');
+    trace.add(
+      `${regRef}.dropout`,
+      'Dropout (junction-limited pass device: the rated figure at every load)',
+      'Vdo = Vdo,rated',
+      { 'Vdo,rated': [cls.dropoutV, 'V'] },
+      d.dropoutV,
+      'V',
+    );
   }
 
   const rippleOutVpp = trace.add(
@@ -406,13 +525,21 @@ export function regulatorStage(
     `${regRef}.noise`,
     `Output noise over ${NOISE_BAND_HZ.lo} Hz–${NOISE_BAND_HZ.hi / 1e3} kHz`,
     'Vn = en·G·√(fhi − flo)',
-    { en: [cls.noiseDensityVrtHz, 'V/√Hz'], G: [cls.kind === 'fixed' || d.bypass ? 1 : Math.max(1, vOut / cls.vRefV), ''], fhi: [NOISE_BAND_HZ.hi, 'Hz'], flo: [NOISE_BAND_HZ.lo, 'Hz'] },
+    {
+      en: [cls.noiseDensityVrtHz, 'V/√Hz'],
+      G: [cls.kind === 'fixed' || d.bypass ? 1 : Math.max(1, vOut / cls.vRefV), ''],
+      fhi: [NOISE_BAND_HZ.hi, 'Hz'],
+      flo: [NOISE_BAND_HZ.lo, 'Hz'],
+    },
     outputNoiseRms(cls, vOut, d.bypass),
     'V',
   );
   if (NOISE_CREST_FACTOR * noiseRms + rippleOutVpp > spec.noise.maxRippleVpp) {
     issues.push(
-      caution('noise', `${regRef}'s own noise is about ${formatSi(noiseRms, 'V', 2)} RMS (${formatSi(NOISE_CREST_FACTOR * noiseRms, 'V', 2)} p-p) over ${NOISE_BAND_HZ.lo} Hz–${NOISE_BAND_HZ.hi / 1e3} kHz, beside the ${formatSi(spec.noise.maxRippleVpp, 'V', 2)} p-p limit; a low-noise class or a filtered reference would lower it.`),
+      caution(
+        'noise',
+        `${regRef}'s own noise is about ${formatSi(noiseRms, 'V', 2)} RMS (${formatSi(NOISE_CREST_FACTOR * noiseRms, 'V', 2)} p-p) over ${NOISE_BAND_HZ.lo} Hz–${NOISE_BAND_HZ.hi / 1e3} kHz, beside the ${formatSi(spec.noise.maxRippleVpp, 'V', 2)} p-p limit; a low-noise class or a filtered reference would lower it.`,
+      ),
     );
   }
 
@@ -425,7 +552,12 @@ export function regulatorStage(
   // Stability: the loop needs its minimum capacitance and, for some classes, ESR inside a window.
   let esrRef = '';
   if (cout.farads < cls.coutMinF) {
-    issues.push(caution('cout-min', `${cls.label} needs at least ${formatSi(cls.coutMinF, 'F', 2)} on its output for stability; the forced ${formatSi(cout.farads, 'F', 2)} is below it.`));
+    issues.push(
+      caution(
+        'cout-min',
+        `${cls.label} needs at least ${formatSi(cls.coutMinF, 'F', 2)} on its output for stability; the forced ${formatSi(cout.farads, 'F', 2)} is below it.`,
+      ),
+    );
   }
   if (cls.esrMinOhm > 0 && cout.esrOhm < cls.esrMinOhm) {
     // A resistor in series with a ceramic output capacitor supplies the missing ESR; it carries only the capacitor's AC current.
@@ -433,9 +565,19 @@ export function regulatorStage(
     const esr = snap(Math.sqrt(cls.esrMinOhm * (cls.esrMaxOhm ?? 10 * cls.esrMinOhm)) / 3, 'E24', 'nearest');
     const rEsr = Math.min(Math.max(esr, cls.esrMinOhm * 1.5), cls.esrMaxOhm ?? Number.POSITIVE_INFINITY);
     parts.push(resistorPart(esrRef, 'series-resistor', rEsr, 0.05, 'E24', 0));
-    issues.push(info('esr-resistor', `${cls.label} is stable only with ${cls.esrMinOhm}–${cls.esrMaxOhm ?? '∞'} Ω of output ESR; ${cout.part.ref} has about ${cout.esrOhm.toFixed(3)} Ω, so ${esrRef} (${rEsr} Ω) is placed in series with it. It carries only the capacitor's AC current: its DC loss is nil.`));
+    issues.push(
+      info(
+        'esr-resistor',
+        `${cls.label} is stable only with ${cls.esrMinOhm}–${cls.esrMaxOhm ?? '∞'} Ω of output ESR; ${cout.part.ref} has about ${cout.esrOhm.toFixed(3)} Ω, so ${esrRef} (${rEsr} Ω) is placed in series with it. It carries only the capacitor's AC current: its DC loss is nil.`,
+      ),
+    );
   } else if (cls.esrMaxOhm !== null && cout.esrOhm > cls.esrMaxOhm) {
-    issues.push(caution('esr-high', `${cout.part.ref}'s ESR of about ${cout.esrOhm.toFixed(2)} Ω exceeds the ${cls.esrMaxOhm} Ω ${cls.label} stays stable with; use a lower-ESR capacitor.`));
+    issues.push(
+      caution(
+        'esr-high',
+        `${cout.part.ref}'s ESR of about ${cout.esrOhm.toFixed(2)} Ω exceeds the ${cls.esrMaxOhm} Ω ${cls.label} stays stable with; use a lower-ESR capacitor.`,
+      ),
+    );
   }
   let cadjRef = '';
   if (d.bypass) {
@@ -448,11 +590,27 @@ export function regulatorStage(
   if (vOut >= PROTECTION_DIODE_V || cout.farads >= 25e-6) {
     const dRef = refs.next('D');
     diodes.push(dRef);
-    parts.push(makePart({ ref: dRef, role: 'protection-diode', part: 'Rectifier diode, output to input', ratingV: input.vMax, costCents: catalog.costs.protectionDiodeCents }));
+    parts.push(
+      makePart({
+        ref: dRef,
+        role: 'protection-diode',
+        part: 'Rectifier diode, output to input',
+        ratingV: input.vMax,
+        costCents: catalog.costs.protectionDiodeCents,
+      }),
+    );
     if (d.bypass) {
       const d2 = refs.next('D');
       diodes.push(d2);
-      parts.push(makePart({ ref: d2, role: 'protection-diode', part: 'Rectifier diode, adjust to output', ratingV: vOut, costCents: catalog.costs.protectionDiodeCents }));
+      parts.push(
+        makePart({
+          ref: d2,
+          role: 'protection-diode',
+          part: 'Rectifier diode, adjust to output',
+          ratingV: vOut,
+          costCents: catalog.costs.protectionDiodeCents,
+        }),
+      );
     }
   }
 
@@ -492,5 +650,19 @@ export function regulatorStage(
     [`${regRef}.dropout`]: { value: d.dropoutV, unit: 'V' },
     [`${regRef}.iLimit`]: { value: cls.iLimitA, unit: 'A' },
   };
-  return { cls, regRef, parts, issues, fixes, divider, vOut, output: d.output, rippleOutVpp, assumptions, inputCurrent, stress, faultStress };
+  return {
+    cls,
+    regRef,
+    parts,
+    issues,
+    fixes,
+    divider,
+    vOut,
+    output: d.output,
+    rippleOutVpp,
+    assumptions,
+    inputCurrent,
+    stress,
+    faultStress,
+  };
 }

@@ -30,7 +30,13 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   const r2Ref = refs.next('R');
 
   if (vTarget < ref.vRefV) issues.push(blocker('below-reference', `${ref.label} cannot hold a rail below its ${ref.vRefV} V reference.`));
-  if (vTarget > ref.vKaMaxV / 1.25) issues.push(blocker('input-max', `${ref.label} allows ${ref.vKaMaxV} V on its cathode; a ${vTarget} V rail needs ${(1.25 * vTarget).toFixed(0)} V with margin.`));
+  if (vTarget > ref.vKaMaxV / 1.25)
+    issues.push(
+      blocker(
+        'input-max',
+        `${ref.label} allows ${ref.vKaMaxV} V on its cathode; a ${vTarget} V rail needs ${(1.25 * vTarget).toFixed(0)} V with margin.`,
+      ),
+    );
 
   // Rs and the output depend on each other only weakly: size Rs at the target, then check at the spread.
   const iDiv = DIVIDER_BIAS_RATIO * ref.iRefA;
@@ -39,10 +45,24 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   // Without headroom (a blocker below) Rs is sized from the highest input, or the rail, so the figures stay sane.
   const rsDrop = rsIdeal > 0 ? ctx.vInTrough - band.hi : vMax > band.hi ? vMax - band.hi : vTarget;
   const rs = forced(ctx, rsRef) ?? snap(atLeast(rsDrop / (iMax + ref.iKMinA + 1.5 * iDiv), 1e-3), 'E24', 'down');
-  trace.select('shunt.rs', 'Series resistor, snapped down so the reference never starves at the highest output', 'Rs = (vInTrough − Vout,max) / (iOutMax + IKmin + Idiv)', {
-    vInTrough: [ctx.vInTrough, 'V'], 'Vout,max': [band.hi, 'V'], iOutMax: [iMax, 'A'], IKmin: [ref.iKMinA, 'A'], Idiv: [1.5 * iDiv, 'A'],
-  }, rs, 'Ω');
-  if (rsIdeal <= 0) issues.push(blocker('headroom', `The lowest input ${ctx.vInTrough.toFixed(2)} V must exceed the rail's highest ${band.hi.toFixed(3)} V.`));
+  trace.select(
+    'shunt.rs',
+    'Series resistor, snapped down so the reference never starves at the highest output',
+    'Rs = (vInTrough − Vout,max) / (iOutMax + IKmin + Idiv)',
+    {
+      vInTrough: [ctx.vInTrough, 'V'],
+      'Vout,max': [band.hi, 'V'],
+      iOutMax: [iMax, 'A'],
+      IKmin: [ref.iKMinA, 'A'],
+      Idiv: [1.5 * iDiv, 'A'],
+    },
+    rs,
+    'Ω',
+  );
+  if (rsIdeal <= 0)
+    issues.push(
+      blocker('headroom', `The lowest input ${ctx.vInTrough.toFixed(2)} V must exceed the rail's highest ${band.hi.toFixed(3)} V.`),
+    );
 
   // Cathode current from its extremes: closed-loop output impedance zKa·(1 + R2/R1) turns it into output spread.
   const ikMax = (vMax - band.lo) / rs - iMin - iDiv;
@@ -70,18 +90,60 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   });
   const d = search.pick;
   issues.push(info('divider-search', d.why));
-  trace.add('shunt.vout', `Output with the searched pair (${d.series}, ${d.grade.label})`, 'Vout = Vref·(1 + R2/R1) + Iref·R2', {
-    Vref: [ref.vRefV, 'V'], R1: [d.r1, 'Ω'], R2: [d.r2, 'Ω'], Iref: [ref.iRefA / 2, 'A'],
-  }, d.vOut, 'V');
-  const ikWorst = trace.add('shunt.ik', 'Reference cathode current, highest input and lightest load', 'Ik = max(0, (vInMax − Vout)/Rs − iOutMin − Vout/(R1 + R2))', {
-    vInMax: [vMax, 'V'], Vout: [d.vOut, 'V'], Rs: [rs, 'Ω'], iOutMin: [iMin, 'A'], R1: [d.r1, 'Ω'], R2: [d.r2, 'Ω'],
-  }, Math.max(0, (vMax - d.vOut) / rs - iMin - d.vOut / (d.r1 + d.r2)), 'A');
+  trace.add(
+    'shunt.vout',
+    `Output with the searched pair (${d.series}, ${d.grade.label})`,
+    'Vout = Vref·(1 + R2/R1) + Iref·R2',
+    {
+      Vref: [ref.vRefV, 'V'],
+      R1: [d.r1, 'Ω'],
+      R2: [d.r2, 'Ω'],
+      Iref: [ref.iRefA / 2, 'A'],
+    },
+    d.vOut,
+    'V',
+  );
+  const ikWorst = trace.add(
+    'shunt.ik',
+    'Reference cathode current, highest input and lightest load',
+    'Ik = max(0, (vInMax − Vout)/Rs − iOutMin − Vout/(R1 + R2))',
+    {
+      vInMax: [vMax, 'V'],
+      Vout: [d.vOut, 'V'],
+      Rs: [rs, 'Ω'],
+      iOutMin: [iMin, 'A'],
+      R1: [d.r1, 'Ω'],
+      R2: [d.r2, 'Ω'],
+    },
+    Math.max(0, (vMax - d.vOut) / rs - iMin - d.vOut / (d.r1 + d.r2)),
+    'A',
+  );
   const pRef = ikWorst * d.vOut;
-  if (ikWorst > ref.iKMaxA) issues.push(blocker('reference-current', `${ref.label} would sink ${formatSi(ikWorst, 'A', 3)} at the highest input and lightest load; it allows ${formatSi(ref.iKMaxA, 'A', 3)}.`));
-  if (pRef * RATING_FACTOR > ref.powerW) issues.push(blocker('rating', `${uRef} would dissipate ${formatSi(pRef, 'W', 2)}; its ${ref.powerW} W package needs twice that in margin.`));
+  if (ikWorst > ref.iKMaxA)
+    issues.push(
+      blocker(
+        'reference-current',
+        `${ref.label} would sink ${formatSi(ikWorst, 'A', 3)} at the highest input and lightest load; it allows ${formatSi(ref.iKMaxA, 'A', 3)}.`,
+      ),
+    );
+  if (pRef * RATING_FACTOR > ref.powerW)
+    issues.push(
+      blocker('rating', `${uRef} would dissipate ${formatSi(pRef, 'W', 2)}; its ${ref.powerW} W package needs twice that in margin.`),
+    );
   const starved = (ctx.vInTrough - d.vOut) / rs - iMax - d.vOut / (d.r1 + d.r2);
-  if (starved < ref.iKMinA * 0.999) issues.push(blocker('reference-starved', `At the lowest input and highest load ${uRef} carries only ${formatSi(Math.max(0, starved), 'A', 2)}, below the ${formatSi(ref.iKMinA, 'A', 2)} it needs to regulate.`));
-  if (d.verdict === 'fails') fixes.push({ code: 'tolerance', change: 'a series reference or a looser tolerance', message: `The tightest this reference reaches: ${d.why}` });
+  if (starved < ref.iKMinA * 0.999)
+    issues.push(
+      blocker(
+        'reference-starved',
+        `At the lowest input and highest load ${uRef} carries only ${formatSi(Math.max(0, starved), 'A', 2)}, below the ${formatSi(ref.iKMinA, 'A', 2)} it needs to regulate.`,
+      ),
+    );
+  if (d.verdict === 'fails')
+    fixes.push({
+      code: 'tolerance',
+      change: 'a series reference or a looser tolerance',
+      message: `The tightest this reference reaches: ${d.why}`,
+    });
 
   const refCents = d.refTolerance < ref.vRefTolerance ? (ref.refGrades.find((g) => g.tolerance === d.refTolerance)?.extraCents ?? 0) : 0;
   const parts = [
@@ -130,10 +192,21 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
     stress: { [rsRef]: { w: (vMax * vMax) / rs, v: vMax }, [uRef]: { w: 0, v: 0 }, [r1Ref]: { w: 0, v: 0 }, [r2Ref]: { w: 0, v: 0 } },
   };
   // Input ripple divides between Rs and the closed-loop output impedance.
-  const rippleVpp = trace.add('shunt.ripple', 'Output ripple (input ripple through Rs and the loop’s output impedance)', 'ΔVout = ΔVin · Zout/(Rs + Zout)', {
-    ΔVin: [spec.input.rippleVpp, 'V'], Zout: [zOut, 'Ω'], Rs: [rs, 'Ω'],
-  }, (spec.input.rippleVpp * zOut) / (rs + zOut), 'V');
-  issues.push(info('light-load', 'A shunt regulator draws the same input current at every load; the reference absorbs what the load does not take.'));
+  const rippleVpp = trace.add(
+    'shunt.ripple',
+    'Output ripple (input ripple through Rs and the loop’s output impedance)',
+    'ΔVout = ΔVin · Zout/(Rs + Zout)',
+    {
+      ΔVin: [spec.input.rippleVpp, 'V'],
+      Zout: [zOut, 'Ω'],
+      Rs: [rs, 'Ω'],
+    },
+    (spec.input.rippleVpp * zOut) / (rs + zOut),
+    'V',
+  );
+  issues.push(
+    info('light-load', 'A shunt regulator draws the same input current at every load; the reference absorbs what the load does not take.'),
+  );
   return {
     topology: 'shunt',
     label: `Shunt regulator (${ref.label})`,

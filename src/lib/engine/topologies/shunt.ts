@@ -127,17 +127,26 @@ function designZenerShunt(ctx: Context): Design {
   );
 
   if (ctx.vInTrough <= vz) {
-    issues.push(blocker('headroom', `The lowest input (${ctx.vInTrough.toFixed(2)} V at the ripple trough) must exceed the Zener voltage ${vz} V.`));
+    issues.push(
+      blocker('headroom', `The lowest input (${ctx.vInTrough.toFixed(2)} V at the ripple trough) must exceed the Zener voltage ${vz} V.`),
+    );
   }
   const starved = solveShunt(ctx.vInTrough, iMax, rs, vKnee, rz);
   if (starved.iZener < series.kneeCurrentA * 0.999) {
-    issues.push(blocker('zener-starved', `At the lowest input and highest load the Zener carries only ${(starved.iZener * 1e3).toFixed(2)} mA, below its knee.`));
+    issues.push(
+      blocker(
+        'zener-starved',
+        `At the lowest input and highest load the Zener carries only ${(starved.iZener * 1e3).toFixed(2)} mA, below its knee.`,
+      ),
+    );
   }
   issues.push(
     info('light-load', 'A shunt regulator draws the same input current at every load; the Zener absorbs what the load does not take.'),
   );
   if ((vMax * vMax) / rs > 1) {
-    issues.push(info('short-circuit', `A shorted output puts ${(vMax * vMax / rs).toFixed(2)} W into ${rsRef}; it is rated for that case.`));
+    issues.push(
+      info('short-circuit', `A shorted output puts ${((vMax * vMax) / rs).toFixed(2)} W into ${rsRef}; it is rated for that case.`),
+    );
   }
 
   const lineGain = rz / (rs + rz);
@@ -161,7 +170,13 @@ function designZenerShunt(ctx: Context): Design {
       ratingW: series.powerW,
       tolerance: series.tolerance,
       costCents: series.costCents,
-      thermal: { thetaJcCW: series.thetaJaCW, thetaJaCW: series.thetaJaCW, tjMaxC: series.tjMaxC, heatsinkable: false, protectedInFault: false },
+      thermal: {
+        thetaJcCW: series.thetaJaCW,
+        thetaJaCW: series.thetaJaCW,
+        tjMaxC: series.tjMaxC,
+        heatsinkable: false,
+        protectedInFault: false,
+      },
     }),
   ];
 
@@ -186,9 +201,20 @@ function designZenerShunt(ctx: Context): Design {
   // (TC·ΔT, ΔT including Pz·θJA), Rs tolerance, and the line/load corners through rz.
   const zTol = series.tolerance;
   const selfRiseK = pzWorst * series.thetaJaCW;
-  const zDrift = trace.add('shunt.drift', 'Zener voltage drift over temperature (ambient swing plus self-heating, |TC| from 25 °C)', 'δ = TC·max(Ta + Pz·θJA − 25, 25 − Tcold)', {
-    TC: [Math.abs(zenerTempco(vz)), '1/K'], Ta: [ctx.ambientC, '°C'], Pz: [pzWorst, 'W'], θJA: [series.thetaJaCW, 'K/W'], Tcold: [COLD_AMBIENT_C, '°C'],
-  }, Math.abs(zenerTempco(vz)) * temperatureSwingK(ctx.ambientC, selfRiseK), '');
+  const zDrift = trace.add(
+    'shunt.drift',
+    'Zener voltage drift over temperature (ambient swing plus self-heating, |TC| from 25 °C)',
+    'δ = TC·max(Ta + Pz·θJA − 25, 25 − Tcold)',
+    {
+      TC: [Math.abs(zenerTempco(vz)), '1/K'],
+      Ta: [ctx.ambientC, '°C'],
+      Pz: [pzWorst, 'W'],
+      θJA: [series.thetaJaCW, 'K/W'],
+      Tcold: [COLD_AMBIENT_C, '°C'],
+    },
+    Math.abs(zenerTempco(vz)) * temperatureSwingK(ctx.ambientC, selfRiseK),
+    '',
+  );
   const output = {
     params: [
       { name: 'Vz', nominal: vz, lo: vz * (1 - zTol - zDrift), hi: vz * (1 + zTol + zDrift) },

@@ -56,7 +56,10 @@ function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: Line
   const fitting = forcedCls
     ? [forcedCls]
     : catalog.linearRegulators
-        .filter((c) => checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget))
+        .filter(
+          (c) =>
+            checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget),
+        )
         .sort((a, b) => a.dropoutV - b.dropoutV);
   const band = railBand(spec);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
@@ -85,9 +88,19 @@ export function designSwitcherLinear(ctx: Context): Design {
   const { iMin, iTyp, iMax, v: vTarget } = spec.output;
   const { cls, vOutHigh } = postRegulator(ctx, vTarget, iMax);
   const spread = busSpread(ctx);
-  const vBusTarget = trace.add('hybrid.vbus', 'Intermediate rail', 'Vbus = (Vout + Vdropout + margin) / (1 − spread)', {
-    Vout: [vTarget, 'V'], Vdropout: [cls.dropoutV, 'V'], margin: [POST_REG_MARGIN_V, 'V'], spread: [spread, ''],
-  }, busTarget(ctx, vTarget, cls), 'V');
+  const vBusTarget = trace.add(
+    'hybrid.vbus',
+    'Intermediate rail',
+    'Vbus = (Vout + Vdropout + margin) / (1 − spread)',
+    {
+      Vout: [vTarget, 'V'],
+      Vdropout: [cls.dropoutV, 'V'],
+      margin: [POST_REG_MARGIN_V, 'V'],
+      spread: [spread, ''],
+    },
+    busTarget(ctx, vTarget, cls),
+    'V',
+  );
 
   // Divider current of the post-regulator loads the switcher; estimate it from the class.
   const iExtra = Math.max(cls.minLoadA, 100e-6) + cls.iAdjMaxA + cls.iqA;
@@ -101,7 +114,16 @@ export function designSwitcherLinear(ctx: Context): Design {
   // and not far above its set point.
   const busBand = { lo: vOutHigh + cls.dropoutV, hi: vBusTarget * (1 + spread) };
   const kind = preRegulatorKind(input.vTrough, input.vMax, vBusTarget);
-  const request = (idPrefix: string): StageRequest => ({ input, vTarget: vBusTarget, load, rippleLimit, allowPostFilter: false, idPrefix, band: busBand, rule: 'worst-case' });
+  const request = (idPrefix: string): StageRequest => ({
+    input,
+    vTarget: vBusTarget,
+    load,
+    rippleLimit,
+    allowPostFilter: false,
+    idPrefix,
+    band: busBand,
+    rule: 'worst-case',
+  });
   const stageOf: Record<PreRegulatorKind, () => ConverterStage> = {
     buck: () => buckStage(ctx, refs, trace, request('hybrid.buck')),
     boost: () => boostStage(ctx, refs, trace, request('hybrid.boost')),
@@ -111,16 +133,33 @@ export function designSwitcherLinear(ctx: Context): Design {
   // The bus spread is the switcher's own feedback spread, at its extremes; a stage that fails can
   // ripple more than its whole output, and the bus never dips below ground.
   const bus = extremeValues(pre.output);
-  const reg = regulatorStage(ctx, refs, trace, { vTrough: Math.max(0, bus.min - pre.rippleVpp / 2), vMax: bus.max, rippleVpp: pre.rippleVpp, rippleIsHf: true, rippleHz: pre.fsw }, vTarget, iMax, cls.id);
+  const reg = regulatorStage(
+    ctx,
+    refs,
+    trace,
+    { vTrough: Math.max(0, bus.min - pre.rippleVpp / 2), vMax: bus.max, rippleVpp: pre.rippleVpp, rippleIsHf: true, rippleHz: pre.fsw },
+    vTarget,
+    iMax,
+    cls.id,
+  );
   const issues = [...pre.issues, ...reg.issues.filter((i) => i.code !== 'class-unknown')];
-  issues.push(info('hybrid', `The ${kind} stage makes ${pre.vOut.toFixed(2)} V; ${reg.regRef} drops ${(pre.vOut - reg.vOut).toFixed(2)} V and rejects the switching ripple.`));
+  issues.push(
+    info(
+      'hybrid',
+      `The ${kind} stage makes ${pre.vOut.toFixed(2)} V; ${reg.regRef} drops ${(pre.vOut - reg.vOut).toFixed(2)} V and rejects the switching ripple.`,
+    ),
+  );
 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = pre.operate(vIn, reg.inputCurrent(iOut));
     return { regulates: p.regulates, pInW: p.pInW, pOutW: reg.vOut * iOut, stress: Object.assign(p.stress, reg.stress(pre.vOut, iOut)) };
   };
   const shorted = pre.operate(spec.input.vMax, reg.cls.iLimitA);
-  const names: Record<PreRegulatorKind, string> = { buck: 'Buck converter', boost: 'Boost converter', 'buck-boost': 'Four-switch buck-boost converter' };
+  const names: Record<PreRegulatorKind, string> = {
+    buck: 'Buck converter',
+    boost: 'Boost converter',
+    'buck-boost': 'Four-switch buck-boost converter',
+  };
   return {
     topology: 'buck+linear',
     label: `${names[kind]} with linear post-regulator (${reg.cls.label})`,

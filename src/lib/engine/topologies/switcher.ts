@@ -4,10 +4,20 @@ import type { Catalog, SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import { chooseCapacitorBank, type ChosenCapacitor } from '../capacitors.ts';
-import { blocker, info, resistorPart, type Design, type DesignPart, type Fix, type OperatingPoint, type PartStress, type Refs } from '../design.ts';
+import {
+  blocker,
+  info,
+  resistorPart,
+  type Design,
+  type DesignPart,
+  type Fix,
+  type OperatingPoint,
+  type PartStress,
+  type Refs,
+} from '../design.ts';
 import { chooseInductor, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
-import { rdsAt } from '../switcher-losses.ts';
+import { rdsAt } from './switcher-losses.ts';
 import { temperatureSwingK, type ToleranceModel, type ToleranceParam, type ToleranceRule } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
@@ -83,18 +93,58 @@ export function deratedLimit(ratedV: number): number {
 }
 
 /** Blockers from the class's voltage ratings (derated), its input range and output range. */
-export function classVoltageFindings(stage: SwitcherClass, vInMax: number, vTrough: number, vOut: number, switchNodeV: number, switchRatingV: number): Finding[] {
+export function classVoltageFindings(
+  stage: SwitcherClass,
+  vInMax: number,
+  vTrough: number,
+  vOut: number,
+  switchNodeV: number,
+  switchRatingV: number,
+): Finding[] {
   const out: Finding[] = [];
   const f = SEMICONDUCTOR_VOLTAGE_FACTOR;
   if (vInMax > deratedLimit(stage.vInMaxV)) {
-    out.push(finding('input-max', `The input reaches ${vInMax} V; ${stage.label} is rated ${stage.vInMaxV} V, so with the ${f}× voltage derating it takes at most ${deratedLimit(stage.vInMaxV).toFixed(1)} V.`, `a ${stage.converter} class rated ≥ ${Math.ceil(f * vInMax)} V input`));
+    out.push(
+      finding(
+        'input-max',
+        `The input reaches ${vInMax} V; ${stage.label} is rated ${stage.vInMaxV} V, so with the ${f}× voltage derating it takes at most ${deratedLimit(stage.vInMaxV).toFixed(1)} V.`,
+        `a ${stage.converter} class rated ≥ ${Math.ceil(f * vInMax)} V input`,
+      ),
+    );
   }
   if (switchNodeV > deratedLimit(switchRatingV)) {
-    out.push(finding('switch-voltage', `The switch sees ${switchNodeV.toFixed(1)} V; ${stage.label}'s ${switchRatingV} V switch takes at most ${deratedLimit(switchRatingV).toFixed(1)} V with the ${f}× derating.`, `a ${stage.converter} class with a switch rated ≥ ${Math.ceil(f * switchNodeV)} V`));
+    out.push(
+      finding(
+        'switch-voltage',
+        `The switch sees ${switchNodeV.toFixed(1)} V; ${stage.label}'s ${switchRatingV} V switch takes at most ${deratedLimit(switchRatingV).toFixed(1)} V with the ${f}× derating.`,
+        `a ${stage.converter} class with a switch rated ≥ ${Math.ceil(f * switchNodeV)} V`,
+      ),
+    );
   }
-  if (vTrough < stage.vInMinV) out.push(finding('input-min', `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`, `input ≥ ${stage.vInMinV} V`));
-  if (vOut > stage.vOutMaxV) out.push(finding('output-max', `${stage.label} regulates up to ${stage.vOutMaxV} V.`, `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`));
-  if (vOut < stage.vFbV) out.push(finding('output-min', `${stage.label} cannot regulate below its ${stage.vFbV} V feedback reference.`, `a ${stage.converter} class with a feedback reference ≤ ${vOut.toFixed(2)} V`));
+  if (vTrough < stage.vInMinV)
+    out.push(
+      finding(
+        'input-min',
+        `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`,
+        `input ≥ ${stage.vInMinV} V`,
+      ),
+    );
+  if (vOut > stage.vOutMaxV)
+    out.push(
+      finding(
+        'output-max',
+        `${stage.label} regulates up to ${stage.vOutMaxV} V.`,
+        `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`,
+      ),
+    );
+  if (vOut < stage.vFbV)
+    out.push(
+      finding(
+        'output-min',
+        `${stage.label} cannot regulate below its ${stage.vFbV} V feedback reference.`,
+        `a ${stage.converter} class with a feedback reference ≤ ${vOut.toFixed(2)} V`,
+      ),
+    );
   return out;
 }
 
@@ -105,14 +155,22 @@ export function voltageFits(stage: SwitcherClass, vInMax: number, switchNodeV: n
 
 export function peakFinding(stage: SwitcherClass, peakA: number): Finding | null {
   if (peakA <= LIMIT_HEADROOM * stage.iSwitchMaxA) return null;
-  return finding('current', `The peak current ${peakA.toFixed(2)} A exceeds ${LIMIT_HEADROOM * 100} % of the ${stage.iSwitchMaxA} A current limit of ${stage.label}.`, `a class with a current limit ≥ ${(peakA / LIMIT_HEADROOM).toFixed(1)} A`);
+  return finding(
+    'current',
+    `The peak current ${peakA.toFixed(2)} A exceeds ${LIMIT_HEADROOM * 100} % of the ${stage.iSwitchMaxA} A current limit of ${stage.label}.`,
+    `a class with a current limit ≥ ${(peakA / LIMIT_HEADROOM).toFixed(1)} A`,
+  );
 }
 
 export function onTimeFinding(stage: SwitcherClass, fsw: number, d: number, where: string): Finding | null {
   if (d / fsw >= stage.tOnMinS) return null;
   const fMax = fswForOnTime(stage, d);
   const can = fMax >= stage.fswMinHz;
-  return finding('min-on-time', `${where} the on-time D/fsw = ${((d / fsw) * 1e9).toFixed(0)} ns is below the ${(stage.tOnMinS * 1e9).toFixed(0)} ns minimum of ${stage.label}; the converter would skip pulses.`, can ? `fsw ≤ ${(fMax / 1e3).toFixed(0)} kHz` : 'a class with a shorter minimum on-time, or a two-stage design');
+  return finding(
+    'min-on-time',
+    `${where} the on-time D/fsw = ${((d / fsw) * 1e9).toFixed(0)} ns is below the ${(stage.tOnMinS * 1e9).toFixed(0)} ns minimum of ${stage.label}; the converter would skip pulses.`,
+    can ? `fsw ≤ ${(fMax / 1e3).toFixed(0)} kHz` : 'a class with a shorter minimum on-time, or a two-stage design',
+  );
 }
 
 /** Ripple reference current: the load, floored at a fraction of the class's current limit. */
@@ -131,13 +189,26 @@ export function hotStage(ctx: Context, stage: SwitcherClass, icLossW: number): {
 export function thermalFinding(ctx: Context, stage: SwitcherClass, tjC: number): Finding | null {
   const limit = stage.tjMaxC - ctx.catalog.thermal.tjMarginK;
   if (tjC <= limit) return null;
-  return finding('thermal', `${stage.label} would reach about ${tjC >= stage.tjMaxC ? `its ${stage.tjMaxC} °C limit` : `${tjC.toFixed(0)} °C`} at full load, above the ${limit} °C design limit.`, 'a larger class (lower θJA), a lower switching frequency, or more airflow');
+  return finding(
+    'thermal',
+    `${stage.label} would reach about ${tjC >= stage.tjMaxC ? `its ${stage.tjMaxC} °C limit` : `${tjC.toFixed(0)} °C`} at full load, above the ${limit} °C design limit.`,
+    'a larger class (lower θJA), a lower switching frequency, or more airflow',
+  );
 }
 
 export function traceRds(trace: Trace, id: string, rds25: number, tjC: number, rdsHot: number): void {
-  trace.add(id, 'Switch on-resistance at the full-load junction temperature', 'Rds = Rds25·(1 + α·(Tj − 25))', {
-    Rds25: [rds25, 'Ω'], α: [0.004, '1/K'], Tj: [tjC, '°C'],
-  }, rdsHot, 'Ω');
+  trace.add(
+    id,
+    'Switch on-resistance at the full-load junction temperature',
+    'Rds = Rds25·(1 + α·(Tj − 25))',
+    {
+      Rds25: [rds25, 'Ω'],
+      α: [0.004, '1/K'],
+      Tj: [tjC, '°C'],
+    },
+    rdsHot,
+    'Ω',
+  );
 }
 
 /** Reference designators of a switching stage, handed out before the search so forced values apply. */
@@ -156,26 +227,44 @@ export function stageRefs(refs: Refs): StageRefs {
 
 /** Output capacitance for a ripple budget and an optional load step, with its RMS current. */
 export function outputBank(ctx: Context, ref: string, effectiveF: number, vOut: number, rmsA: number, esrMaxOhm: number): ChosenCapacitor {
-  return chooseCapacitorBank(ref, 'output-capacitor', {
-    effectiveF: Math.max(COUT_MIN_EFFECTIVE_F, effectiveF),
-    workingV: vOut,
-    rmsA,
-    esrMaxOhm,
-    ambientC: ctx.ambientC,
-    forcedF: forced(ctx, ref),
-  }, ctx.catalog);
+  return chooseCapacitorBank(
+    ref,
+    'output-capacitor',
+    {
+      effectiveF: Math.max(COUT_MIN_EFFECTIVE_F, effectiveF),
+      workingV: vOut,
+      rmsA,
+      esrMaxOhm,
+      ambientC: ctx.ambientC,
+      forcedF: forced(ctx, ref),
+    },
+    ctx.catalog,
+  );
 }
 
 /** Input capacitor: RMS current Iout·√(D(1 − D)) (buck-type input) and ripple ≤ INPUT_RIPPLE_FRACTION of the trough. */
-export function inputBank(ctx: Context, ref: string, vMax: number, vTrough: number, chargeA: number, rmsA: number, fsw: number): ChosenCapacitor {
-  return chooseCapacitorBank(ref, 'input-capacitor', {
-    effectiveF: Math.max(CIN_MIN_EFFECTIVE_F, chargeA / (fsw * INPUT_RIPPLE_FRACTION * Math.max(vTrough, 0.1))),
-    workingV: vMax,
-    rmsA,
-    esrMaxOhm: Infinity,
-    ambientC: ctx.ambientC,
-    forcedF: forced(ctx, ref),
-  }, ctx.catalog);
+export function inputBank(
+  ctx: Context,
+  ref: string,
+  vMax: number,
+  vTrough: number,
+  chargeA: number,
+  rmsA: number,
+  fsw: number,
+): ChosenCapacitor {
+  return chooseCapacitorBank(
+    ref,
+    'input-capacitor',
+    {
+      effectiveF: Math.max(CIN_MIN_EFFECTIVE_F, chargeA / (fsw * INPUT_RIPPLE_FRACTION * Math.max(vTrough, 0.1))),
+      workingV: vMax,
+      rmsA,
+      esrMaxOhm: Infinity,
+      ambientC: ctx.ambientC,
+      forcedF: forced(ctx, ref),
+    },
+    ctx.catalog,
+  );
 }
 
 /**
@@ -220,13 +309,21 @@ export function quietRail(ctx: Context): boolean {
 /** The feedback requirement of a stage, with or without a post-filter's winding after it. */
 export function feedbackNeed(ctx: Context, req: StageRequest): (filtered: boolean, marginV: number) => FeedbackNeed {
   const { vTarget, band, load, input, rule } = req;
-  return (filtered, marginV) => ({ vTarget, band, load, input, dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0, marginV, ...(rule ? { rule } : {}) });
+  return (filtered, marginV) => ({
+    vTarget,
+    band,
+    load,
+    input,
+    dcrAfterFb: filtered ? postFilterDcr(ctx, load.iMax) : 0,
+    marginV,
+    ...(rule ? { rule } : {}),
+  });
 }
 
 /** Ripple limit the converter stage is sized for: the rail's, or a looser one when a post-filter will follow. */
 export function stageRippleLimit(ctx: Context, rippleLimit: number, allowPostFilter: boolean, vOut: number): number {
   const quiet = ctx.spec.noise.class === 'precision' || ctx.spec.noise.class === 'rf';
-  return allowPostFilter && quiet ? Math.max(rippleLimit, PRE_FILTER_RIPPLE_FRACTION * vOut / RIPPLE_BUDGET) : rippleLimit;
+  return allowPostFilter && quiet ? Math.max(rippleLimit, (PRE_FILTER_RIPPLE_FRACTION * vOut) / RIPPLE_BUDGET) : rippleLimit;
 }
 
 /** A stretch of the capacitor current: it runs linearly from i0 to i1 over t seconds. */
@@ -260,7 +357,7 @@ export function ripplePeakToPeak(segments: readonly CurrentSegment[], capF: numb
       lo = Math.min(lo, v);
       hi = Math.max(hi, v);
     }
-    vc += ((i0 + i1) / 2) * t / capF;
+    vc += (((i0 + i1) / 2) * t) / capF;
   }
   return Number.isFinite(hi - lo) ? hi - lo : 0;
 }
@@ -268,7 +365,11 @@ export function ripplePeakToPeak(segments: readonly CurrentSegment[], capF: numb
 /** Buck capacitor current: the inductor's triangle less the load (CCM), or its pulse and the idle gap (DCM). */
 export function buckSegments(mode: 'ccm' | 'dcm' | 'burst', d: number, rippleA: number, iOut: number, fsw: number): CurrentSegment[] {
   const period = 1 / fsw;
-  if (mode !== 'dcm') return [{ t: d * period, i0: -rippleA / 2, i1: rippleA / 2 }, { t: (1 - d) * period, i0: rippleA / 2, i1: -rippleA / 2 }];
+  if (mode !== 'dcm')
+    return [
+      { t: d * period, i0: -rippleA / 2, i1: rippleA / 2 },
+      { t: (1 - d) * period, i0: rippleA / 2, i1: -rippleA / 2 },
+    ];
   // DCM: the inductor current averages Iout over its triangle, so the fall lasts 2·Iout/Ipk − D.
   const d2 = Math.min(1 - d, Math.max(0, (2 * iOut) / Math.max(rippleA, 1e-12) - d));
   return [
@@ -279,9 +380,20 @@ export function buckSegments(mode: 'ccm' | 'dcm' | 'burst', d: number, rippleA: 
 }
 
 /** Boost capacitor current: −Iout while the switch conducts, then the falling inductor current less the load. */
-export function boostSegments(mode: 'ccm' | 'dcm' | 'burst', d: number, peakA: number, rippleA: number, iOut: number, fsw: number): CurrentSegment[] {
+export function boostSegments(
+  mode: 'ccm' | 'dcm' | 'burst',
+  d: number,
+  peakA: number,
+  rippleA: number,
+  iOut: number,
+  fsw: number,
+): CurrentSegment[] {
   const period = 1 / fsw;
-  if (mode !== 'dcm') return [{ t: d * period, i0: -iOut, i1: -iOut }, { t: (1 - d) * period, i0: peakA - iOut, i1: peakA - rippleA - iOut }];
+  if (mode !== 'dcm')
+    return [
+      { t: d * period, i0: -iOut, i1: -iOut },
+      { t: (1 - d) * period, i0: peakA - iOut, i1: peakA - rippleA - iOut },
+    ];
   // DCM: the rectifier passes the whole triangle's fall, whose charge is Iout·Ts: it lasts 2·Iout/Ipk.
   const d2 = Math.min(1 - d, (2 * iOut) / Math.max(peakA, 1e-12));
   return [
@@ -306,11 +418,25 @@ export function stepCapacitance(ctx: Context, fsw: number): number {
 export function traceStep(ctx: Context, trace: Trace, id: string, fsw: number, cout: ChosenCapacitor): Finding | null {
   const { loadStep, maxStepDeviation } = ctx.spec.output;
   if (!loadStep) return null;
-  const dv = trace.add(id, 'Output deviation for the load step (loop crossover fc = fsw/10)', 'ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR', {
-    ΔI: [loadStep, 'A'], fc: [CROSSOVER_FRACTION * fsw, 'Hz'], Cout: [cout.effectiveF, 'F'], ESR: [cout.esrOhm, 'Ω'],
-  }, stepDeviation(loadStep, fsw, cout.effectiveF, cout.esrOhm), 'V');
+  const dv = trace.add(
+    id,
+    'Output deviation for the load step (loop crossover fc = fsw/10)',
+    'ΔV = ΔI/(2π·fc·Cout) + ΔI·ESR',
+    {
+      ΔI: [loadStep, 'A'],
+      fc: [CROSSOVER_FRACTION * fsw, 'Hz'],
+      Cout: [cout.effectiveF, 'F'],
+      ESR: [cout.esrOhm, 'Ω'],
+    },
+    stepDeviation(loadStep, fsw, cout.effectiveF, cout.esrOhm),
+    'V',
+  );
   if (!maxStepDeviation || dv <= maxStepDeviation) return null;
-  return finding('load-step', `A ${loadStep} A load step moves the output by ${(dv * 1e3).toFixed(0)} mV, beyond the ${(maxStepDeviation * 1e3).toFixed(0)} mV allowed.`, `more output capacitance (about ${((loadStep / (2 * Math.PI * CROSSOVER_FRACTION * fsw * maxStepDeviation)) * 1e6).toFixed(0)} µF effective) or a faster loop`);
+  return finding(
+    'load-step',
+    `A ${loadStep} A load step moves the output by ${(dv * 1e3).toFixed(0)} mV, beyond the ${(maxStepDeviation * 1e3).toFixed(0)} mV allowed.`,
+    `more output capacitance (about ${((loadStep / (2 * Math.PI * CROSSOVER_FRACTION * fsw * maxStepDeviation)) * 1e6).toFixed(0)} µF effective) or a faster loop`,
+  );
 }
 
 export interface FeedbackParts {
@@ -363,7 +489,10 @@ export function switcherRegulation(stage: SwitcherClass, need: FeedbackNeed): To
 function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, forcedR: { r1?: number; r2?: number }): DividerDesign {
   const { vTarget, load, dcrAfterFb } = need;
   const drop = (i: number) => 1 - (i * dcrAfterFb) / vTarget;
-  const extra = [...switcherRegulation(stage, need), ...(dcrAfterFb > 0 ? [{ name: 'post-filter drop', nominal: drop(load.iTyp), lo: drop(load.iMax), hi: drop(load.iMin) }] : [])];
+  const extra = [
+    ...switcherRegulation(stage, need),
+    ...(dcrAfterFb > 0 ? [{ name: 'post-filter drop', nominal: drop(load.iTyp), lo: drop(load.iMax), hi: drop(load.iMin) }] : []),
+  ];
   const series = ctx.spec.overrides.resistorSeries;
   return searchDivider({
     vTarget,
@@ -397,13 +526,29 @@ export function feedbackPenalty(ctx: Context, stage: SwitcherClass, need: Feedba
  * class's Vfb tolerance (specified over temperature by the part, so no separate drift), the pin's
  * bias current, line and load regulation, and the post-filter's drop as a load-dependent spread.
  */
-export function switcherFeedback(ctx: Context, r: StageRefs, trace: Trace, stage: SwitcherClass, need: FeedbackNeed, idPrefix: string): FeedbackParts {
+export function switcherFeedback(
+  ctx: Context,
+  r: StageRefs,
+  trace: Trace,
+  stage: SwitcherClass,
+  need: FeedbackNeed,
+  idPrefix: string,
+): FeedbackParts {
   const r1 = forced(ctx, r.r1);
   const r2 = forced(ctx, r.r2);
   const pick = feedbackSearch(ctx, stage, need, { ...(r1 !== undefined ? { r1 } : {}), ...(r2 !== undefined ? { r2 } : {}) });
-  trace.add(`${idPrefix}.fb`, 'Feedback divider output with the chosen pair', 'Vout = Vfb·(1 + R2/R1)', {
-    Vfb: [stage.vFbV, 'V'], R1: [pick.r1, 'Ω'], R2: [pick.r2, 'Ω'],
-  }, pick.vOut, 'V');
+  trace.add(
+    `${idPrefix}.fb`,
+    'Feedback divider output with the chosen pair',
+    'Vout = Vfb·(1 + R2/R1)',
+    {
+      Vfb: [stage.vFbV, 'V'],
+      R1: [pick.r1, 'Ω'],
+      R2: [pick.r2, 'Ω'],
+    },
+    pick.vOut,
+    'V',
+  );
   return {
     divider: pick,
     parts: [
@@ -435,7 +580,16 @@ export function postFilterDcr(ctx: Context, iMax: number): number {
 }
 
 /** Second-order LC after the output capacitor: |H| = |Zc| / |ZL + Zc| at the switching frequency. */
-export function postFilter(ctx: Context, refs: Refs, trace: Trace, fsw: number, vOut: number, iMax: number, capF: number, idPrefix: string): PostFilter {
+export function postFilter(
+  ctx: Context,
+  refs: Refs,
+  trace: Trace,
+  fsw: number,
+  vOut: number,
+  iMax: number,
+  capF: number,
+  idPrefix: string,
+): PostFilter {
   const { catalog } = ctx;
   const issues: Issue[] = [];
   const lRef = refs.next('L');
@@ -446,11 +600,34 @@ export function postFilter(ctx: Context, refs: Refs, trace: Trace, fsw: number, 
   const w = 2 * Math.PI * fsw;
   const xc = 1 / (w * cap.effectiveF);
   const xl = w * chosen.henries;
-  const attenuation = trace.add(`${idPrefix}.postfilter`, 'Post-filter attenuation at the switching frequency', '|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²), Xc = 1/(2π·fsw·C), XL = 2π·fsw·L', {
-    L: [chosen.henries, 'H'], C: [cap.effectiveF, 'F'], ESR: [cap.esrOhm, 'Ω'], fsw: [fsw, 'Hz'],
-  }, Math.sqrt(cap.esrOhm ** 2 + xc * xc) / Math.sqrt(cap.esrOhm ** 2 + (xl - xc) ** 2), '');
-  issues.push(info('post-filter', `An LC post-filter (${lRef}, ${cap.part.ref}) attenuates the switching ripple by ${(20 * Math.log10(1 / attenuation)).toFixed(0)} dB for this quiet rail.`));
-  return { parts: [chosen.part, cap.part], inductorRef: lRef, capRef: cap.part.ref, dcrOhm: chosen.dcrOhm, esrOhm: cap.esrOhm, attenuation, issues };
+  const attenuation = trace.add(
+    `${idPrefix}.postfilter`,
+    'Post-filter attenuation at the switching frequency',
+    '|H| = √(ESR² + Xc²) / √(ESR² + (XL − Xc)²), Xc = 1/(2π·fsw·C), XL = 2π·fsw·L',
+    {
+      L: [chosen.henries, 'H'],
+      C: [cap.effectiveF, 'F'],
+      ESR: [cap.esrOhm, 'Ω'],
+      fsw: [fsw, 'Hz'],
+    },
+    Math.sqrt(cap.esrOhm ** 2 + xc * xc) / Math.sqrt(cap.esrOhm ** 2 + (xl - xc) ** 2),
+    '',
+  );
+  issues.push(
+    info(
+      'post-filter',
+      `An LC post-filter (${lRef}, ${cap.part.ref}) attenuates the switching ripple by ${(20 * Math.log10(1 / attenuation)).toFixed(0)} dB for this quiet rail.`,
+    ),
+  );
+  return {
+    parts: [chosen.part, cap.part],
+    inductorRef: lRef,
+    capRef: cap.part.ref,
+    dcrOhm: chosen.dcrOhm,
+    esrOhm: cap.esrOhm,
+    attenuation,
+    issues,
+  };
 }
 
 /** The band the rail's output must hold. */
@@ -476,7 +653,13 @@ export interface ConverterStage {
 }
 
 /** A converter alone as a design option; its label gains the post-filter when one follows. */
-export function converterDesign(topology: Design['topology'], label: string, b: ConverterStage, trace: Trace, fault: OperatingPoint): Design {
+export function converterDesign(
+  topology: Design['topology'],
+  label: string,
+  b: ConverterStage,
+  trace: Trace,
+  fault: OperatingPoint,
+): Design {
   return {
     topology,
     label: `${label}${b.post ? ' with post-filter' : ''}`,
@@ -561,14 +744,25 @@ export function searchStage<T extends SizingBase>(
   fits: (stage: SwitcherClass) => boolean,
 ): T {
   const need = feedbackNeed(ctx, req)(req.allowPostFilter && quietRail(ctx), 0);
-  return searchClasses(ctx, converter, (stage, fsw) => size(stage, fsw, stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget)), fits, (stage) => feedbackPenalty(ctx, stage, need));
+  return searchClasses(
+    ctx,
+    converter,
+    (stage, fsw) => size(stage, fsw, stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget)),
+    fits,
+    (stage) => feedbackPenalty(ctx, stage, need),
+  );
 }
 
 /** The chosen candidate's blockers, fixes and capacitor cautions, and why it was chosen. */
 export function sizingIssues(s: SizingBase): { issues: Issue[]; fixes: Fix[] } {
   const issues = s.findings.map((f) => f.issue);
   for (const c of [s.cout, s.cin]) if (c.issue && c.issue.severity !== 'blocker') issues.push(c.issue);
-  issues.push(info('switcher-class', `${s.stage.label} at ${(s.fsw / 1e3).toFixed(0)} kHz: the cheapest class and frequency meeting the requirements (parts plus ${LOSS_CENTS_PER_W} ¢ per watt lost). Figures ${s.stage.source}.`));
+  issues.push(
+    info(
+      'switcher-class',
+      `${s.stage.label} at ${(s.fsw / 1e3).toFixed(0)} kHz: the cheapest class and frequency meeting the requirements (parts plus ${LOSS_CENTS_PER_W} ¢ per watt lost). Figures ${s.stage.source}.`,
+    ),
+  );
   return { issues, fixes: s.findings.flatMap((f) => (f.fix ? [f.fix] : [])) };
 }
 

@@ -44,7 +44,8 @@ describe.each(corpusFamilies)('%s briefs', (family) => {
     if (id in KNOWN_GAPS) {
       // The gap is real: no accepted topology is recommended, and each accepted one says what blocks it.
       expect(brief.accept).not.toContain(result.recommended);
-      for (const o of result.options.filter((x) => brief.accept.includes(x.topology))) expect(o.issues.some((i) => i.severity === 'blocker')).toBe(true);
+      for (const o of result.options.filter((x) => brief.accept.includes(x.topology)))
+        expect(o.issues.some((i) => i.severity === 'blocker')).toBe(true);
       return;
     }
     const blockers = result.options
@@ -52,7 +53,10 @@ describe.each(corpusFamilies)('%s briefs', (family) => {
       .map((o) =>
         o.feasible
           ? `${o.topology}: feasible, score ${o.score}, outranked — ${result.reason ?? ''}`
-          : `${o.topology}: ${o.issues.filter((i) => i.severity === 'blocker').map((i) => i.message).join(' | ')}`,
+          : `${o.topology}: ${o.issues
+              .filter((i) => i.severity === 'blocker')
+              .map((i) => i.message)
+              .join(' | ')}`,
       );
     expect({ recommended: result.recommended, accepted: brief.accept.includes(result.recommended!) ? 'yes' : blockers }).toEqual({
       recommended: expect.toSatisfy((r: string | null) => r !== null && brief.accept.includes(r as never)),

@@ -65,7 +65,10 @@ export function impossibleInText(text: string, where: string): string[] {
 function optionFigures(o: Option, spec: RailSpec): string[] {
   const out: string[] = [];
   const at = (what: string) => `${o.topology}.${what}`;
-  for (const [k, v] of [['nominal', o.efficiency.nominal], ['worst', o.efficiency.worst]] as const) {
+  for (const [k, v] of [
+    ['nominal', o.efficiency.nominal],
+    ['worst', o.efficiency.worst],
+  ] as const) {
     if (v < 0 || v > 1) out.push(`${at(`efficiency.${k}`)}: ${v} outside 0–1`);
   }
   o.curves.efficiency.forEach((e, k) => {
@@ -74,7 +77,11 @@ function optionFigures(o: Option, spec: RailSpec): string[] {
   o.curves.dissipationW.forEach((d, k) => {
     if (d !== null && d < 0) out.push(`${at(`curves.dissipationW[${k}]`)}: negative ${d}`);
   });
-  for (const [k, v] of [['vOutRange.min', o.vOutRange.min], ['tolerance.worstCase.min', o.tolerance.worstCase.min], ['monteCarlo.mean', o.monteCarlo.mean]] as const) {
+  for (const [k, v] of [
+    ['vOutRange.min', o.vOutRange.min],
+    ['tolerance.worstCase.min', o.tolerance.worstCase.min],
+    ['monteCarlo.mean', o.monteCarlo.mean],
+  ] as const) {
     if (v < 0) out.push(`${at(k)}: ${v} V on a positive rail`);
   }
   const ambient = spec.overrides.ambientC ?? spec.thermal.ambientMaxC;
@@ -94,7 +101,8 @@ function optionFigures(o: Option, spec: RailSpec): string[] {
   }
   // Device parameters (a Zener knee, a reference, a dropout) are magnitudes: never negative.
   for (const [name, q] of Object.entries(o.assumptions)) {
-    if ((NON_NEGATIVE_UNITS.has(q.unit) || q.unit === 'V') && q.value < 0) out.push(`${at(`assumption ${name}`)}: negative ${q.value} ${q.unit}`);
+    if ((NON_NEGATIVE_UNITS.has(q.unit) || q.unit === 'V') && q.value < 0)
+      out.push(`${at(`assumption ${name}`)}: negative ${q.value} ${q.unit}`);
   }
   for (const i of o.issues) out.push(...impossibleInText(i.message, at(`issue ${i.code}`)));
   for (const f of o.fixes) out.push(...impossibleInText(f.message, at(`fix ${f.code}`)));

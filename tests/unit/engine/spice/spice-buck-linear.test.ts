@@ -5,7 +5,7 @@
 import { Simulation } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { defaultCatalog, toSpiceNetlist } from '~/lib/engine/index.ts';
-import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
+import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice/index.ts';
 import { regulatorLines } from '~/lib/engine/spice/regulator.ts';
 import { buckPoint } from '~/lib/engine/topologies/buck.ts';
 import { DEMO_BRIEFS } from '~/lib/demo/scenario.ts';
@@ -33,7 +33,7 @@ const busCurrent = (iOut: number) => iOut + figure(`${reg}.vRef`) / regLower.val
 const t0 = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / fsw;
 
 describe('buck + linear post-regulator design against an ngspice switching transient', () => {
-  test('the design is feasible and its netlist feeds the post-regulator from the buck\'s bus', () => {
+  test("the design is feasible and its netlist feeds the post-regulator from the buck's bus", () => {
     expect(option.feasible).toBe(true);
     const netlist = toSpiceNetlist(option, { vIn: 12, iOut: 0.3 });
     expect(netlist).toMatch(/^RL\S+ nl2 bus /m);
@@ -47,7 +47,11 @@ describe('buck + linear post-regulator design against an ngspice switching trans
   //   13.2 V, 0.6 A: 5.8991 V, 4.99927 V, 0.6017 A / 0.6011 A, 180.7 mA / 180.9 mA, 0.895 V
   //   10.8 V, 0.6 A: 5.8986 V, 4.99905 V, 0.6015 A / 0.6011 A, 146.6 mA / 146.8 mA, 0.897 V
   // against the engine's bus 5.8977 V and output 4.99984 V.
-  for (const corner of [{ vIn: 12, iOut: 0.3 }, { vIn: 13.2, iOut: 0.6 }, { vIn: 10.8, iOut: 0.6 }]) {
+  for (const corner of [
+    { vIn: 12, iOut: 0.3 },
+    { vIn: 13.2, iOut: 0.6 },
+    { vIn: 10.8, iOut: 0.6 },
+  ]) {
     test(`${corner.vIn} V in, ${corner.iOut} A out: bus within 0.5 %, output within 0.1 %, headroom above dropout, inductor current and ripple`, async () => {
       const w = await transient(sim, toSpiceNetlist(option, corner));
       const bus = w.wave('v(bus)');
@@ -72,7 +76,7 @@ describe('buck + linear post-regulator design against an ngspice switching trans
     });
   }
 
-  test('highest input, full load: the engine\'s ripple figures for the bus hold against the simulation', async () => {
+  test("highest input, full load: the engine's ripple figures for the bus hold against the simulation", async () => {
     const w = await transient(sim, toSpiceNetlist(option, { vIn: 13.2, iOut: 0.6 }));
     // The engine states ΔIL at the highest input and full load; measured 180.7 mA against 180.9 mA.
     const dil = traced('hybrid.buck.dil');
@@ -87,7 +91,14 @@ describe('buck + linear post-regulator design against an ngspice switching trans
   /** The post-regulator alone at full load, its input swept from below its output to the bus set point. */
   async function dropoutSweep() {
     const iOut = 0.6;
-    const deck = ['* post-regulator input sweep', `Vbus bus 0 DC ${vBusEngine}`, ...regulatorLines(option, reg, 'bus', defaultCatalog, iOut), `Iload out 0 DC ${iOut}`, `.dc Vbus ${vOutEngine - 0.5} ${vBusEngine} 0.005`, '.end'].join('\n');
+    const deck = [
+      '* post-regulator input sweep',
+      `Vbus bus 0 DC ${vBusEngine}`,
+      ...regulatorLines(option, reg, 'bus', defaultCatalog, iOut),
+      `Iload out 0 DC ${iOut}`,
+      `.dc Vbus ${vOutEngine - 0.5} ${vBusEngine} 0.005`,
+      '.end',
+    ].join('\n');
     sim.setNetList(deck);
     const result = await sim.runSim();
     expect(sim.getError().filter((m) => /error|no convergence|abort/i.test(m))).toEqual([]);
@@ -97,7 +108,10 @@ describe('buck + linear post-regulator design against an ngspice switching trans
     const out = wave('v(out)');
     /** The output with the input at `v`, interpolated between the sweep's points. */
     const outputAt = (v: number) => {
-      const k = Math.max(1, bus.findIndex((b) => b >= v));
+      const k = Math.max(
+        1,
+        bus.findIndex((b) => b >= v),
+      );
       return out[k - 1]! + ((out[k]! - out[k - 1]!) * (v - bus[k - 1]!)) / (bus[k]! - bus[k - 1]!);
     };
     const regulated = out[out.length - 1]!;
@@ -106,7 +120,7 @@ describe('buck + linear post-regulator design against an ngspice switching trans
     return { regulated, dropout: bus[k]! - out[k]!, outputAt };
   }
 
-  test('at the lowest bus the engine allows, the post-regulator still regulates; its dropout at full load is within the class\'s figure', async () => {
+  test("at the lowest bus the engine allows, the post-regulator still regulates; its dropout at full load is within the class's figure", async () => {
     const sweep = await dropoutSweep();
     // Measured 0.177 V at 0.6 A against the class's 0.3 V (stated at its rated 1 A).
     expect(sweep.dropout).toBeLessThanOrEqual(dropout);
@@ -129,7 +143,10 @@ describe('four-switch buck-boost + linear post-regulator design against an ngspi
   const u = node.option.components.find((c) => c.role === 'regulator')!.ref;
   const tail = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / node.fsw;
 
-  for (const corner of [{ vIn: 3, iOut: 0.15 }, { vIn: 4.2, iOut: 0.15 }]) {
+  for (const corner of [
+    { vIn: 3, iOut: 0.15 },
+    { vIn: 4.2, iOut: 0.15 },
+  ]) {
     test(`${corner.vIn} V in, ${corner.iOut} A out: the four-switch stage makes the bus, the post-regulator the rail`, async () => {
       const netlist = toSpiceNetlist(node.option, corner);
       expect(netlist).toMatch(/^S4 sw2 bus /m);

@@ -120,10 +120,19 @@ describe('root-sum-square sigma (uniform parts: σ = a/√3)', () => {
 
 describe('monotone extremes', () => {
   test('the divider model’s two-vertex extremes equal the full 2ⁿ enumeration', () => {
-    const model = dividerOutputModel(1.25, { r1: 240, r2: 720, vOut: 5, iDivider: 1.25 / 240 }, {
-      vRefTolerance: 0.04, vRefDrift: 0.002, resistor: 0.012, iAdjMin: 0, iAdjMax: 100e-6, iAdjTyp: 50e-6,
-      extra: [{ name: 'Line', nominal: 1, lo: 0.999, hi: 1.001 }],
-    });
+    const model = dividerOutputModel(
+      1.25,
+      { r1: 240, r2: 720, vOut: 5, iDivider: 1.25 / 240 },
+      {
+        vRefTolerance: 0.04,
+        vRefDrift: 0.002,
+        resistor: 0.012,
+        iAdjMin: 0,
+        iAdjMax: 100e-6,
+        iAdjTyp: 50e-6,
+        extra: [{ name: 'Line', nominal: 1, lo: 0.999, hi: 1.001 }],
+      },
+    );
     const full = extremeValues({ params: model.params, f: model.f, batch: model.batch });
     const fast = extremeValues(model);
     expect(fast.min).toBeCloseTo(full.min, 12);

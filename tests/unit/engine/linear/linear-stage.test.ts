@@ -51,7 +51,10 @@ describe('5 V → 3.3 V ±3 %, 100 mA, quiet', () => {
     const rr = grade.tolerance + grade.tcrPpmK * 1e-6 * 25;
     const line = (cls.lineRegulationPerV * (5.25 - 4.75)) / 2;
     const load = (cls.loadRegulation * (0.1 - 0.01)) / cls.iOutMaxA / 2;
-    const high = (cls.vRefV * (1 + ref) * (1 + drift) * (1 + (r2.value! * (1 + rr)) / (r1.value! * (1 - rr))) + cls.iAdjMaxA * r2.value! * (1 + rr)) * (1 + line) * (1 + load);
+    const high =
+      (cls.vRefV * (1 + ref) * (1 + drift) * (1 + (r2.value! * (1 + rr)) / (r1.value! * (1 - rr))) + cls.iAdjMaxA * r2.value! * (1 + rr)) *
+      (1 + line) *
+      (1 + load);
     expect(option.vOutRange.max).toBeCloseTo(high, 6);
     expect(high).toBeLessThanOrEqual(3.3 * 1.03);
   });
@@ -82,8 +85,19 @@ describe('battery 3.6–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest ou
 // proportional (common practice), down to a small floor (from memory). An NPN-Darlington pass
 // device's dropout is two junction drops and a saturation, the same at every load (common practice).
 describe('dropout at the actual load', () => {
-  const battery = (vin: readonly [number, number, number], v: number, tolerance: number, load: readonly [number, number, number], noise: 'digital' | 'sensor') =>
-    ({ input: { vMin: vin[0], vNom: vin[1], vMax: vin[2], source: 'battery' }, output: { v, tolerance, iMin: load[0], iTyp: load[1], iMax: load[2] }, noise: { class: noise }, thermal }) as const;
+  const battery = (
+    vin: readonly [number, number, number],
+    v: number,
+    tolerance: number,
+    load: readonly [number, number, number],
+    noise: 'digital' | 'sensor',
+  ) =>
+    ({
+      input: { vMin: vin[0], vNom: vin[1], vMax: vin[2], source: 'battery' },
+      output: { v, tolerance, iMin: load[0], iTyp: load[1], iMax: load[2] },
+      noise: { class: noise },
+      thermal,
+    }) as const;
   const byHand = (input: RailSpecInput) => {
     const { option } = linearOption(input);
     const reg = option.components.find((c) => c.role === 'regulator')!;
@@ -109,7 +123,9 @@ describe('dropout at the actual load', () => {
   });
 
   test('Li-ion 3.2–4.2 V → 3.0 V ±3 %, 50 µA, sensor: the low-quiescent LDO at its dropout floor', () => {
-    const { option, cls, dropout, traced, recommended } = byHand(battery([3.2, 3.7, 4.2], 3.0, 0.03, [0.000005, 0.00002, 0.00005], 'sensor'));
+    const { option, cls, dropout, traced, recommended } = byHand(
+      battery([3.2, 3.7, 4.2], 3.0, 0.03, [0.000005, 0.00002, 0.00005], 'sensor'),
+    );
     expect(option.feasible).toBe(true);
     expect(cls.id).toBe('ldo-lowiq-0a2');
     // 0.25 V · 50 µA / 0.2 A = 62.5 µV, below the floor: the floor holds.

@@ -4,7 +4,7 @@
 import { Simulation } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { defaultCatalog, toSpiceNetlist } from '~/lib/engine/index.ts';
-import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
+import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice/index.ts';
 import { buckBoostPoint } from '~/lib/engine/topologies/buck-boost.ts';
 import { DEMO_BRIEFS } from '~/lib/demo/scenario.ts';
 import { average, ripplePerPeriod, switcherDesign, transient } from './spice-waves';
@@ -40,7 +40,12 @@ describe('four-switch buck-boost design against an ngspice switching transient',
   //   3.7 V, 0.02 A buck:  3.3290 V, 0.0200 A, 19.6 mA against 19.7 mA (the exported corner)
   //   3.0 V, 0.15 A boost: 3.3280 V, 0.1728 A, 23.0 mA against 23.1 mA
   // The engine's figure is 3.3280 V throughout.
-  for (const corner of [{ vIn: 4.2, iOut: 0.15 }, { vIn: 3.7, iOut: 0.15 }, { vIn: 3.7, iOut: 0.02 }, { vIn: 3, iOut: 0.15 }]) {
+  for (const corner of [
+    { vIn: 4.2, iOut: 0.15 },
+    { vIn: 3.7, iOut: 0.15 },
+    { vIn: 3.7, iOut: 0.02 },
+    { vIn: 3, iOut: 0.15 },
+  ]) {
     const engine = engineAt(corner.vIn, corner.iOut);
     test(`${corner.vIn} V in, ${corner.iOut} A out (${engine.boost ? 'boost' : 'buck'} mode): average output within 0.5 %, inductor current within 2 %, ripple within 5 %`, async () => {
       const w = await transient(sim, toSpiceNetlist(option, corner));
@@ -56,7 +61,7 @@ describe('four-switch buck-boost design against an ngspice switching transient',
     });
   }
 
-  test('lowest input, full load: the engine\'s output ripple bounds the simulated one from above, within 10 %', async () => {
+  test("lowest input, full load: the engine's output ripple bounds the simulated one from above, within 10 %", async () => {
     const w = await transient(sim, toSpiceNetlist(option, { vIn: 3, iOut: 0.15 }));
     // Boost-mode ripple Iout·D/(fsw·C) + Ipk·ESR (Erickson & Maksimović ch. 2 — from memory; the ESR
     // term is common practice) adds two peaks that do not coincide: measured 4.75 mV against 4.87 mV.

@@ -1,14 +1,14 @@
 // SPICE netlist export (ngspice dialect) of a designed option at one operating corner. The linear
 // family uses the simulator's own device models (see spice/); the switchers are driven open loop at
 // the engine's duty cycle with ideal switches carrying the stage's Rds(on).
-import { defaultCatalog, type Catalog } from './catalog.ts';
-import type { Option } from './types.ts';
-import { boostPoint } from './topologies/boost.ts';
-import { buckBoostPoint } from './topologies/buck-boost.ts';
-import { buckPoint } from './topologies/buck.ts';
-import { linear, predrop, shunt, type SpiceCorner } from './spice/linear-family.ts';
-import { VT, assumed, byRole, num } from './spice/netlist-text.ts';
-import { regulatorInputCurrent, regulatorLines, regulatorParts } from './spice/regulator.ts';
+import { defaultCatalog, type Catalog } from '../catalog.ts';
+import type { Option } from '../types.ts';
+import { boostPoint } from '../topologies/boost.ts';
+import { buckBoostPoint } from '../topologies/buck-boost.ts';
+import { buckPoint } from '../topologies/buck.ts';
+import { linear, predrop, shunt, type SpiceCorner } from './linear-family.ts';
+import { VT, assumed, byRole, num } from './netlist-text.ts';
+import { regulatorInputCurrent, regulatorLines, regulatorParts } from './regulator.ts';
 
 export type { SpiceCorner };
 
@@ -63,7 +63,10 @@ const diodeModel = (name: string, iA: number, vf: number) => `.model ${name} D(I
 function outputNetwork(option: Option, net: SwitcherParts, node: string, iOut: number): { lines: string[]; rail: string } {
   const c1 = net.couts[0]!;
   // The capacitance left at the working DC bias, where the engine states it.
-  const lines = [`C${c1.ref} ${node} nc1 ${num(assumed(option, `${c1.ref}.cEff`, c1.value ?? 0))} IC=${num(net.vOut)}`, `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`];
+  const lines = [
+    `C${c1.ref} ${node} nc1 ${num(assumed(option, `${c1.ref}.cEff`, c1.value ?? 0))} IC=${num(net.vOut)}`,
+    `RESR${c1.ref} nc1 0 ${num(Math.max(net.esr, 1e-6))}`,
+  ];
   const c2 = net.couts[1];
   if (!net.l2 || !c2) return { lines, rail: node };
   lines.push(
@@ -81,7 +84,8 @@ function loadedOutput(option: Option, net: SwitcherParts, corner: SpiceCorner): 
   return [...lines, `Iload ${rail} 0 DC ${num(corner.iOut)}`, transientLine(net)];
 }
 
-const transientLine = (net: SwitcherParts) => `.tran ${num(net.period / 100)} ${num(BUCK_PERIODS * net.period)} 0 ${num(net.period / 100)} uic`;
+const transientLine = (net: SwitcherParts) =>
+  `.tran ${num(net.period / 100)} ${num(BUCK_PERIODS * net.period)} 0 ${num(net.period / 100)} uic`;
 
 /** Buck power stage from `in` to the capacitor at `node`, carrying iOut on average. */
 function buckStageLines(net: SwitcherParts, vIn: number, iOut: number, node: string): string[] {
@@ -89,7 +93,11 @@ function buckStageLines(net: SwitcherParts, vIn: number, iOut: number, node: str
   const lines = [`V1 in 0 DC ${num(vIn)}`, gateDrive(net, p.d), `S1 in sw g 0 SWHI`, SWITCH_ON_HIGH(net.rds)];
   if (net.stage.rectification === 'sync') lines.push(`S2 sw 0 0 g SWLO`, SWITCH_ON_LOW(net.rds));
   else lines.push(`Dcatch 0 sw DCATCH`, diodeModel('DCATCH', iOut, net.vf));
-  lines.push(`L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(valley(iOut, p.rippleA))}`, `Vsense nl nl2 DC 0`, `RL${net.l1.ref} nl2 ${node} ${num(net.dcr)}`);
+  lines.push(
+    `L${net.l1.ref} sw nl ${num(net.henries)} IC=${num(valley(iOut, p.rippleA))}`,
+    `Vsense nl nl2 DC 0`,
+    `RL${net.l1.ref} nl2 ${node} ${num(net.dcr)}`,
+  );
   return lines;
 }
 
@@ -188,5 +196,10 @@ const BODIES: Record<Option['topology'], (option: Option, corner: SpiceCorner, c
 /** The netlist of an option at a corner. */
 export function toSpiceNetlist(option: Option, corner: SpiceCorner, catalog: Catalog = defaultCatalog): string {
   const body = BODIES[option.topology](option, corner, catalog);
-  return [`* ${option.label} at ${num(corner.vIn)} V in, ${num(corner.iOut)} A out (generic models, typical parameters)`, ...body, '.end', ''].join('\n');
+  return [
+    `* ${option.label} at ${num(corner.vIn)} V in, ${num(corner.iOut)} A out (generic models, typical parameters)`,
+    ...body,
+    '.end',
+    '',
+  ].join('\n');
 }

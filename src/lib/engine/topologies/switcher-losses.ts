@@ -1,7 +1,7 @@
 // Loss terms of a switching stage beside conduction: switching overlap, output capacitance,
 // dead time, gate drive, quiescent current and inductor core loss; Rds(on) at temperature; and
 // the discontinuous-conduction duty cycles.
-import type { SwitcherClass } from './catalog.ts';
+import type { SwitcherClass } from '../catalog.ts';
 
 /** Rds(on) rises about 0.4 %/K in silicon MOSFETs, some +40 % from 25 to 125 °C (common practice). */
 export const RDS_TEMPCO_PER_K = 0.004;

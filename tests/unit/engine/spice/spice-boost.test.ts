@@ -3,7 +3,7 @@
 import { Simulation } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { toSpiceNetlist } from '~/lib/engine/index.ts';
-import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
+import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice/index.ts';
 import { average, ripplePerPeriod, switcherDesign, transient } from './spice-waves';
 
 let sim: Simulation;
@@ -13,12 +13,20 @@ beforeAll(async () => {
 }, 60_000);
 
 // A 12 V bus raised to 24 V at 0.5 A (one of the benchmark's briefs).
-const { option: boost, traced, fsw, henries } = switcherDesign({
-  input: { vMin: 9, vNom: 12, vMax: 16, rippleVpp: 0.2, source: 'bus' },
-  output: { v: 24, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
-  noise: { class: 'digital' },
-  thermal: { ambientMaxC: 50, airflow: 'forced-air' },
-}, 'boost');
+const {
+  option: boost,
+  traced,
+  fsw,
+  henries,
+} = switcherDesign(
+  {
+    input: { vMin: 9, vNom: 12, vMax: 16, rippleVpp: 0.2, source: 'bus' },
+    output: { v: 24, tolerance: 0.05, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+    noise: { class: 'digital' },
+    thermal: { ambientMaxC: 50, airflow: 'forced-air' },
+  },
+  'boost',
+);
 const vOutEngine = traced('boost.fb');
 const t0 = (BUCK_PERIODS - BUCK_AVERAGE_PERIODS) / fsw;
 
@@ -32,7 +40,10 @@ describe('boost design against an ngspice switching transient', () => {
 
   // Measured: 12 V → 24.103 V (engine 24.12 V), ΔIL 0.453 A against 0.446 A, inductor current
   // 1.019·Iout·Vout/Vin; 9 V → 24.100 V, ΔIL 0.417 A against 0.418 A, 1.056·Iout·Vout/Vin.
-  for (const corner of [{ vIn: 12, iOut: 0.5 }, { vIn: 9, iOut: 0.5 }]) {
+  for (const corner of [
+    { vIn: 12, iOut: 0.5 },
+    { vIn: 9, iOut: 0.5 },
+  ]) {
     test(`${corner.vIn} V in, ${corner.iOut} A out: average output within 2 %, inductor current, ripple within 10 %`, async () => {
       const w = await transient(sim, toSpiceNetlist(boost, corner));
       const vOut = average(w.time, w.vOut, t0);

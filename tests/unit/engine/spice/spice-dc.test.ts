@@ -7,7 +7,16 @@
 // engine made with one term removed from its view of the parts, and must fail there.
 import { Simulation, type ResultType } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { defaultCatalog, railSpecSchema, evaluate, toSpiceNetlist, type Catalog, type Option, type RailSpec, type SpiceCorner } from '~/lib/engine/index.ts';
+import {
+  defaultCatalog,
+  railSpecSchema,
+  evaluate,
+  toSpiceNetlist,
+  type Catalog,
+  type Option,
+  type RailSpec,
+  type SpiceCorner,
+} from '~/lib/engine/index.ts';
 import { solveShunt } from '~/lib/engine/topologies/shunt.ts';
 import { testCurrent } from '~/lib/engine/zeners.ts';
 
@@ -88,7 +97,14 @@ describe('Zener shunt against ngspice (the Zener as the diode model with reverse
       // The source current is the series-resistor current; the Zener takes what the load does not.
       const iZener = -op['i(v1)']! - corner.iOut;
       const biased = iZener >= izt / 4;
-      rows.push({ corner, engine, vOut: op['v(out)']!, iZener, biased, pass: relative(op['v(out)']!, engine.vOut) <= (biased ? BIASED_TOLERANCE : KNEE_TOLERANCE) });
+      rows.push({
+        corner,
+        engine,
+        vOut: op['v(out)']!,
+        iZener,
+        biased,
+        pass: relative(op['v(out)']!, engine.vOut) <= (biased ? BIASED_TOLERANCE : KNEE_TOLERANCE),
+      });
     }
     return rows;
   }
@@ -106,7 +122,7 @@ describe('Zener shunt against ngspice (the Zener as the diode model with reverse
     }
   });
 
-  test('the Zener\'s worst power (highest input, lightest load) agrees within 0.5 %', async () => {
+  test("the Zener's worst power (highest input, lightest load) agrees within 0.5 %", async () => {
     const shunt = design(lowVoltage, 'shunt');
     const { vMax } = lowVoltage.input;
     const op = await operatingPoint(toSpiceNetlist(shunt, { vIn: vMax, iOut: lowVoltage.output.iMin }));
@@ -114,7 +130,7 @@ describe('Zener shunt against ngspice (the Zener as the diode model with reverse
     expect(relative(op['v(out)']! * (-op['i(v1)']! - lowVoltage.output.iMin), traced(shunt, 'shunt.pz'))).toBeLessThanOrEqual(0.005);
   });
 
-  test('an engine that takes the Zener\'s dynamic impedance as zero fails the same check', async () => {
+  test("an engine that takes the Zener's dynamic impedance as zero fails the same check", async () => {
     // Measured: 7.0 % off at the knee (against 2 %), 1.95–4.2 % at four of the five biased corners
     // (against 0.5 %); only near Izt, where the line and the part meet anyway, does it pass (0.19 %).
     const rows = await shuntCorners(design(lowVoltage, 'shunt', withoutZenerImpedance));
@@ -122,7 +138,7 @@ describe('Zener shunt against ngspice (the Zener as the diode model with reverse
   });
 });
 
-describe('precision shunt reference against ngspice (reference source, finite-gain amplifier, cathode sink with the data sheet\'s zKa)', () => {
+describe("precision shunt reference against ngspice (reference source, finite-gain amplifier, cathode sink with the data sheet's zKa)", () => {
   const tight = railSpecSchema.parse({ ...lowVoltage, output: { v: 5, tolerance: 0.02, iMin: 0.001, iTyp: 0.005, iMax: 0.01 } });
   const shunt = design(tight, 'shunt');
 
@@ -167,7 +183,7 @@ describe('linear regulator against ngspice (reference source, finite-gain amplif
     for (const r of rows) expect(r.deviation, `${r.corner.vIn} V, ${r.corner.iOut} A`).toBeLessThanOrEqual(REGULATOR_TOLERANCE);
   });
 
-  test('the regulator\'s worst dissipation (highest input, full load) agrees within 1 %', async () => {
+  test("the regulator's worst dissipation (highest input, full load) agrees within 1 %", async () => {
     // Against P = (vInMax − Vout)·(iOutMax + Idivider + Iadj) + vInMax·Iq: measured within 0.02 %.
     const linear = design(lowVoltage, 'linear');
     const corner = { vIn: lowVoltage.input.vMax, iOut: lowVoltage.output.iMax };
@@ -188,7 +204,14 @@ describe('linear regulator against ngspice (reference source, finite-gain amplif
 });
 
 describe.each([
-  { name: 'low-dropout (PMOS pass device, ground-referenced feedback)', kind: 'ldo', vIn: [4.75, 5, 5.25], vOut: 3.3, tolerance: 0.05, i: [0.01, 0.5] },
+  {
+    name: 'low-dropout (PMOS pass device, ground-referenced feedback)',
+    kind: 'ldo',
+    vIn: [4.75, 5, 5.25],
+    vOut: 3.3,
+    tolerance: 0.05,
+    i: [0.01, 0.5],
+  },
   { name: 'fixed (internal divider)', kind: 'fixed', vIn: [10, 12, 14], vOut: 5, tolerance: 0.08, i: [0.01, 0.4] },
 ])('$name linear regulator against ngspice', ({ kind, vIn, vOut, tolerance, i }) => {
   const spec = railSpecSchema.parse({
@@ -199,7 +222,7 @@ describe.each([
   });
   const linear = design(spec, 'linear');
 
-  test('every corner: the output within 0.05 % of the engine\'s', async () => {
+  test("every corner: the output within 0.05 % of the engine's", async () => {
     expect(defaultCatalog.linearRegulators.find((c) => part(linear, 'regulator').part.startsWith(c.label))!.kind).toBe(kind);
     const rows = await regulatorOutputs(linear, cornersOf(spec));
     // Measured within 0.017 % (low-dropout) and 0.003 % (fixed): the amplifier's finite gain.
@@ -211,7 +234,7 @@ describe.each(['nmos', 'npn'] as const)('linear regulator with a high-voltage %s
   const spec = railSpecSchema.parse({ ...highVoltage, overrides: { passDevice: kind } });
   const hv = design(spec, 'linear-predrop');
 
-  test('every corner: the output within 0.05 %, the regulator above its dropout, the pass device\'s worst dissipation', async () => {
+  test("every corner: the output within 0.05 %, the regulator above its dropout, the pass device's worst dissipation", async () => {
     const dropout = hv.assumptions[`${part(hv, 'regulator').ref}.dropout`]!.value;
     // The pass device's bias resistor is listed first; a foldback limiter's divider follows it.
     const rb = part(hv, 'bias-resistor').value!;

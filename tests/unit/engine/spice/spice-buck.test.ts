@@ -3,7 +3,7 @@
 import { Simulation } from 'eecircuit-engine';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { toSpiceNetlist } from '~/lib/engine/index.ts';
-import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice.ts';
+import { BUCK_AVERAGE_PERIODS, BUCK_PERIODS } from '~/lib/engine/spice/index.ts';
 import { average, ripplePerPeriod, switcherDesign, transient } from './spice-waves';
 
 let sim: Simulation;
@@ -12,12 +12,20 @@ beforeAll(async () => {
   await sim.start();
 }, 60_000);
 
-const { option: buck, traced, fsw, henries } = switcherDesign({
-  input: { vMin: 10, vNom: 12, vMax: 14, source: 'adapter' },
-  output: { v: 3.3, tolerance: 0.05, iMin: 0.1, iTyp: 0.5, iMax: 1 },
-  noise: { class: 'digital' },
-  thermal: { ambientMaxC: 40, airflow: 'still-air' },
-}, 'buck');
+const {
+  option: buck,
+  traced,
+  fsw,
+  henries,
+} = switcherDesign(
+  {
+    input: { vMin: 10, vNom: 12, vMax: 14, source: 'adapter' },
+    output: { v: 3.3, tolerance: 0.05, iMin: 0.1, iTyp: 0.5, iMax: 1 },
+    noise: { class: 'digital' },
+    thermal: { ambientMaxC: 40, airflow: 'still-air' },
+  },
+  'buck',
+);
 const vOutEngine = traced('buck.fb');
 
 describe('buck design against an ngspice switching transient', () => {
