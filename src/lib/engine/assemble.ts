@@ -165,7 +165,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
           issues.push(
             caution(
               'resistor-string',
-              `${p.ref} is a string of ${r.count} equal resistors (${((p.value ?? 0) / r.count).toPrecision(3)} Ω each) so no single resistor exceeds its limiting voltage.`,
+              `${p.ref} is a string of ${r.count} equal resistors (${formatSi((p.value ?? 0) / r.count, 'Ω', 3)} each) so no single resistor exceeds its limiting voltage.`,
             ),
           );
         }

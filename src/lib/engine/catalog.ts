@@ -1012,7 +1012,7 @@ export const defaultCatalog: Catalog = {
       vInMinV: 6,
       vInMaxV: 100,
       vOutMaxV: 60,
-      vFbV: 1.2,
+      vFbV: 0.8,
       vFbTolerance: 0.01,
       rdsOnOhm: 0.12,
       qgC: 8e-9,
@@ -1034,7 +1034,7 @@ export const defaultCatalog: Catalog = {
       thetaJaCW: 35,
       tjMaxC: 125,
       costCents: 280,
-      source: 'from memory: typical of 100 V synchronous buck parts for 48 V and telecom buses',
+      source: 'from memory: typical of 100 V synchronous buck parts for 48 V and telecom buses (0.8 V feedback, so 1 V rails are in reach)',
     },
     {
       id: 'buck-sync-150v-1a',

@@ -113,7 +113,7 @@ export function checkClass(
     out.push(
       blocker(
         'differential-short',
-        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${input.vMax} V input stands across ${cls.label}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
+        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${formatSi(input.vMax, 'V', 3)} input stands across ${cls.label}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
       ),
     );
   }
@@ -302,9 +302,19 @@ function designClass(
     bypass,
     dropoutV,
     rippleOutVpp,
-    costCents: cls.costCents + extraCents,
+    costCents: cls.costCents + extraCents + fittingCents(ctx, divider !== null, bypass, vTarget - cls.vRefV),
     extraCents,
   };
+}
+
+/**
+ * What a class brings with it beyond its own price, so classes compare on the parts they need:
+ * the divider's two resistors and the adjust-pin bypass capacitor.
+ */
+function fittingCents(ctx: Context, hasDivider: boolean, bypass: boolean, vAcrossBypass: number): number {
+  const resistor = ctx.catalog.costs.resistorCentsByW[0]?.cents ?? 0;
+  const cap = bypass ? chooseCapacitor('C', 'bypass-capacitor', 10e-6, Math.max(0, vAcrossBypass), ctx.catalog).part.costCents : 0;
+  return (hasDivider ? 2 * resistor : 0) + cap;
 }
 
 const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);

@@ -59,8 +59,9 @@ export interface Finding {
   fix: Fix | null;
 }
 
+/** The fix says what to change, not the blocker again. */
 export function finding(code: string, message: string, change: string | null): Finding {
-  return { issue: blocker(code, message), fix: change === null ? null : { code, change, message } };
+  return { issue: blocker(code, message), fix: change === null ? null : { code, change, message: `Would clear with ${change}.` } };
 }
 
 /** Frequencies to try: the forced one (clamped to the class), else steps across the class's range. */

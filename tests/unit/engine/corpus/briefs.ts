@@ -379,6 +379,29 @@ export const CORPUS: readonly CorpusBrief[] = [
     accept: ['buck-boost', 'buck+linear'],
     why: 'common practice: a 9–36 V industrial input straddles 12 V; a four-switch buck-boost rated for the whole range with derating (a 60 V controller with external MOSFETs)',
   },
+  {
+    id: 'bus48-1v0-2a',
+    family: 'bus',
+    spec: rail({ vin: [40, 48, 56], source: 'bus', vout: 1.0, tol: 0.03, load: [0.1, 1, 2], ambient: 50, airflow: 'enclosed' }),
+    accept: ['buck'],
+    why: 'common practice: a 100 V-rated synchronous buck with a sub-volt feedback reference, run slow enough for its minimum on-time (or a two-stage design); a linear stage would burn about 110 W',
+  },
+  {
+    id: 'liion-3v3-2pct-200ma-sensor',
+    family: 'battery',
+    spec: rail({
+      vin: LI_ION,
+      source: 'battery',
+      vout: 3.3,
+      tol: 0.02,
+      load: [0.001, 0.05, 0.2],
+      noise: 'sensor',
+      ambient: 50,
+      airflow: 'enclosed',
+    }),
+    accept: ['buck-boost', 'buck+linear'],
+    why: STRADDLE,
+  },
 
   // Quiet analog and RF rails.
   {
