@@ -2,7 +2,7 @@
 // spread, cautions, curves and sub-scores — the same way for every topology.
 import type { Context } from './context.ts';
 import { CURVE_POINTS, curveInputs, normalCorners } from './corners.ts';
-import { blocker, caution, info, makePart, type Design, type DesignPart, type OperatingPoint } from './design.ts';
+import { blocker, caution, info, makePart, resistorCents, type Design, type DesignPart, type OperatingPoint } from './design.ts';
 import { hazardousVoltage, hotSurfaces, mainsScope, storedEnergy, HOT_RESISTOR_W, type HotPart } from './cautions.ts';
 import { RATING_FACTOR, SEMICONDUCTOR_VOLTAGE_FACTOR, ZENER_POWER_W, rateResistor, ratingFor } from './ratings.ts';
 import { effectiveWeights, subScores, weightedScore } from './scoring.ts';
@@ -23,11 +23,6 @@ const QUIET_CLASSES = new Set<NoiseClass>(['rf', 'precision']);
 
 function efficiencyOf(p: OperatingPoint): number {
   return p.pInW > 0 ? Math.min(1, Math.max(0, p.pOutW / p.pInW)) : 0;
-}
-
-function resistorCents(ctx: Context, ratingW: number): number {
-  const row = ctx.catalog.costs.resistorCentsByW.find((r) => r.w >= ratingW);
-  return (row ?? ctx.catalog.costs.resistorCentsByW[ctx.catalog.costs.resistorCentsByW.length - 1]!).cents;
 }
 
 function toComponent(p: DesignPart): Component {
@@ -160,7 +155,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
         p.ratingV = r.ratingV;
         p.quantity = r.count;
         // A designer's costCents on a resistor is its grade's extra cost per part.
-        p.costCents = (resistorCents(ctx, r.ratingW) + p.costCents) * r.count;
+        p.costCents = (resistorCents(ctx.catalog, r.ratingW) + p.costCents) * r.count;
         if (r.count > 1) {
           issues.push(
             caution(

@@ -1,5 +1,6 @@
 // What every topology designer hands to the common assembly step (corners, ratings, thermal,
 // tolerance, cautions, scoring): the parts, an operating-point model and an output model.
+import type { Catalog } from './catalog.ts';
 import type { Component, ComponentRole, Fix, Issue, Quantity, TopologyId } from './types.ts';
 import type { ThermalPart } from './thermal.ts';
 import type { ToleranceModel } from './tolerance.ts';
@@ -85,6 +86,12 @@ export function makePart(init: PartInit): DesignPart {
 }
 
 /** gradeCents: a precision grade's extra cost per resistor, added to the power rating's price. */
+/** Price of one resistor of this power rating (the largest on the list past its end). */
+export function resistorCents(catalog: Catalog, ratingW: number): number {
+  const rows = catalog.costs.resistorCentsByW;
+  return (rows.find((r) => r.w >= ratingW) ?? rows[rows.length - 1]!).cents;
+}
+
 export function resistorPart(
   ref: string,
   role: ComponentRole,

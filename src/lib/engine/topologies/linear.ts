@@ -2,6 +2,7 @@
 import type { Context } from '../context.ts';
 import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
 import { Trace } from '../trace.ts';
+import { inputRippleHz } from './regulator-noise.ts';
 import { dropoutAt, regulatorStage } from './regulator-stage.ts';
 
 export function designLinear(ctx: Context): Design {
@@ -9,11 +10,12 @@ export function designLinear(ctx: Context): Design {
   const trace = new Trace();
   const refs = new Refs();
   const { vMax } = spec.input;
+  const rippleHz = inputRippleHz(spec.input.source);
   const stage = regulatorStage(
     ctx,
     refs,
     trace,
-    { vTrough: ctx.vInTrough, vMax, rippleVpp: spec.input.rippleVpp, rippleIsHf: false },
+    { vTrough: ctx.vInTrough, vMax, rippleVpp: spec.input.rippleVpp, rippleIsHf: false, ...(rippleHz !== undefined ? { rippleHz } : {}) },
     spec.output.v,
     spec.output.iMax,
     spec.overrides.linearClass,

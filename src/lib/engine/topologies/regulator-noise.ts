@@ -7,6 +7,17 @@ export const PSRR_HF_HZ = 1e6;
 export const NOISE_BAND_HZ = { lo: 10, hi: 100e3 } as const;
 /** Peak-to-peak over RMS for Gaussian noise, exceeded about 0.1 % of the time (common practice). */
 export const NOISE_CREST_FACTOR = 6.6;
+/**
+ * Ripple on a mains-derived input (an adapter or a rectified supply) is at twice the line
+ * frequency: 100 Hz on 50 Hz mains, 120 Hz on 60 Hz (common practice). Rejection is read at the
+ * higher, where it is lower; a filter is sized at the lower, where it attenuates less.
+ */
+export const MAINS_RIPPLE_HZ = { lo: 100, hi: 120 } as const;
+
+/** The input ripple's frequency when the source tells it (mains-derived), else undefined. */
+export function inputRippleHz(source: 'battery' | 'adapter' | 'rectified' | 'bus'): number | undefined {
+  return source === 'adapter' || source === 'rectified' ? MAINS_RIPPLE_HZ.hi : undefined;
+}
 
 /**
  * Ripple rejection at fHz: the low-frequency figure (with the adjust-pin bypass when fitted) until

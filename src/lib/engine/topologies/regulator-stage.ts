@@ -5,8 +5,20 @@ import type { LinearRegulatorClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
 import { chooseCapacitor } from '../capacitors.ts';
-import { Refs, blocker, caution, info, makePart, resistorPart, type DesignPart, type Fix, type PartStress } from '../design.ts';
+import {
+  Refs,
+  blocker,
+  caution,
+  info,
+  makePart,
+  resistorCents,
+  resistorPart,
+  type DesignPart,
+  type Fix,
+  type PartStress,
+} from '../design.ts';
 import { snap } from '../eseries.ts';
+import { RESISTOR_POWER_W, ratingFor } from '../ratings.ts';
 import { junctionTemperature } from '../thermal.ts';
 import {
   analyseTolerance,
@@ -20,7 +32,7 @@ import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import { formatSi } from '../units.ts';
 import { dividerOutputModel, searchDivider, type DividerDesign } from './feedback.ts';
-import { NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
+import { MAINS_RIPPLE_HZ, NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
 
 /** A divider current of about 100 µA keeps the feedback-pin bias error small (common practice). */
 export const DIVIDER_MIN_A = 100e-6;
@@ -182,6 +194,8 @@ interface ClassDesign {
   /** Dropout at the highest pass current. */
   dropoutV: number;
   rippleOutVpp: number;
+  /** The ripple let through exceeds the rail's limit: the class's rejection falls short. */
+  rippleFails: boolean;
   /** Class price plus the grades' extra cost. */
   costCents: number;
   extraCents: number;
@@ -302,6 +316,7 @@ function designClass(
     bypass,
     dropoutV,
     rippleOutVpp,
+    rippleFails: rippleOutVpp > spec.noise.maxRippleVpp,
     costCents: cls.costCents + extraCents + fittingCents(ctx, divider !== null, bypass, vTarget - cls.vRefV),
     extraCents,
   };
@@ -318,7 +333,8 @@ function fittingCents(ctx: Context, hasDivider: boolean, bypass: boolean, vAcros
 }
 
 const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind === 'adjustable' ? 1 : 2);
-const blockerCount = (d: ClassDesign) => d.failures.length + (d.verdict === 'fails' ? 1 : 0);
+// The ripple limit is a blocker the assembly raises on the finished design; the search counts it here so it picks a class whose rejection meets it.
+const blockerCount = (d: ClassDesign) => d.failures.length + (d.verdict === 'fails' ? 1 : 0) + (d.rippleFails ? 1 : 0);
 
 /** The cheapest class design with no blocker; otherwise the one with the fewest (cheapest first). */
 function pickDesign(designs: ClassDesign[]): ClassDesign {
@@ -339,10 +355,40 @@ const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 /** Highest output plus dropout: the input trough a design needs. */
 const inputNeeded = (d: ClassDesign) => d.summary.worstCase.max + d.rippleOutVpp / 2 + d.dropoutV;
 
+/**
+ * An RC low-pass ahead of the regulator for the ripple its rejection leaves over: R as large as the
+ * spare headroom allows at full load, C for the rest, |H| = 1/√(1 + (2π·f·R·C)²) (first-order
+ * low-pass). Sized at the lowest frequency the ripple may have, where it attenuates least.
+ * Null when there is no headroom to spare or the catalog has no such capacitor.
+ */
+function inputFilterFix(ctx: Context, chosen: ClassDesign, input: StageInput, iMax: number): Fix | null {
+  const k = chosen.rippleOutVpp / ctx.spec.noise.maxRippleVpp;
+  const iIn = iMax + (chosen.divider?.iDivider ?? 0) + chosen.cls.iqA;
+  const spare = input.vTrough - inputNeeded(chosen);
+  if (!(k > 1) || !(spare > 0) || !(iIn > 0)) return null;
+  const fHz = input.rippleHz !== undefined && input.rippleHz > MAINS_RIPPLE_HZ.hi ? input.rippleHz : MAINS_RIPPLE_HZ.lo;
+  const rOhm = snap(spare / iIn, 'E24', 'down');
+  if (!(rOhm > 0) || rOhm * iIn > spare) return null;
+  const cF = Math.sqrt(k * k - 1) / (2 * Math.PI * fHz * rOhm);
+  const cap = chooseCapacitor('C', 'input-capacitor', cF, input.vMax, ctx.catalog);
+  const rW = ratingFor(RESISTOR_POWER_W, iIn * iIn * rOhm);
+  if (cap.issue?.severity === 'blocker' || rW === null) return null;
+  return {
+    code: 'ripple',
+    change: `input RC filter ${formatSi(rOhm, 'Ω', 2)} + ${formatSi(cap.farads, 'F', 2)}`,
+    costCents: cap.part.costCents + resistorCents(ctx.catalog, rW),
+    message: `${chosen.cls.label} rejects ${chosen.psrrDb.toFixed(0)} dB of the input ripple, leaving ${formatSi(chosen.rippleOutVpp, 'V', 2)} p-p against the ${formatSi(ctx.spec.noise.maxRippleVpp, 'V', 2)} limit. A ${formatSi(rOhm, 'Ω', 2)} resistor (${rW} W, dropping ${formatSi(rOhm * iIn, 'V', 2)} at full load) and ${formatSi(cap.farads, 'F', 2)} ahead of it take a further ${(20 * Math.log10(k)).toFixed(0)} dB off the ${fHz} Hz ripple.`,
+  };
+}
+
 /** What would clear each blocker of the chosen design, from the other designs searched. */
-function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: StageInput): Fix[] {
+function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: StageInput, iMax: number): Fix[] {
   const fixes: Fix[] = [];
   const clean = all.filter((d) => blockerCount(d) === 0);
+  if (chosen.rippleFails && clean.length === 0) {
+    const filter = inputFilterFix(ctx, chosen, input, iMax);
+    if (filter) fixes.push(filter);
+  }
   if (chosen.failures.some((f) => f.code === 'headroom')) {
     // The class needing the least input among those whose only trouble is headroom.
     const onlyHeadroom = all.filter((d) => d.verdict !== 'fails' && d.failures.every((f) => f.code === 'headroom'));
@@ -437,7 +483,7 @@ export function regulatorStage(
   const d = pickDesign(designs);
   const cls = d.cls;
   const issues: Issue[] = [...d.failures];
-  const fixes = fixesFor(ctx, d, designs, input);
+  const fixes = fixesFor(ctx, d, designs, input, iMax);
   if (forcedClassId !== undefined && !wanted) {
     issues.push(info('class-unknown', `The catalog has no regulator class "${forcedClassId}"; the engine chose ${cls.label}.`));
   }

@@ -10,7 +10,8 @@ import { evaluate } from '~/lib/engine/evaluate.ts';
 import { railSpecSchema, type RailSpecInput } from '~/lib/engine/rail-spec.ts';
 import { designLinear } from '~/lib/engine/topologies/linear.ts';
 import { dropoutAt } from '~/lib/engine/topologies/regulator-stage.ts';
-import { PSRR_HF_HZ, outputNoiseRms, rippleRejectionDb } from '~/lib/engine/topologies/regulator-noise.ts';
+import { MAINS_RIPPLE_HZ, PSRR_HF_HZ, outputNoiseRms, rippleRejectionDb } from '~/lib/engine/topologies/regulator-noise.ts';
+import { parseSi } from '~/lib/engine/units.ts';
 
 const thermal = { ambientMaxC: 40, airflow: 'still-air' } as const;
 const linearOption = (input: RailSpecInput) => {
@@ -195,5 +196,48 @@ describe('ripple rejection against frequency (single-pole roll-off, 20 dB/decade
   });
   test('noise: density × Vout/Vref × √(100 kHz − 10 Hz)', () => {
     expect(outputNoiseRms(ldo, 3.6, false)).toBeCloseTo(ldo.noiseDensityVrtHz * 3 * Math.sqrt(100e3 - 10), 12);
+  });
+});
+
+describe('a quiet rail from a 12 V adapter with 100–120 Hz ripple: the class search weighs ripple rejection', () => {
+  // Mains-derived ripple sits at twice the line frequency, 100 or 120 Hz (common practice); the
+  // output ripple is ΔVin·10^(−PSRR/20) with the class's rejection at 120 Hz.
+  const quiet = (maxRippleVpp: number) =>
+    linearOption({
+      input: { vMin: 11.4, vNom: 12, vMax: 12.6, rippleVpp: 0.15, source: 'adapter' },
+      output: { v: 3.3, tolerance: 0.05, iMin: 0.005, iTyp: 0.03, iMax: 0.05 },
+      noise: { class: 'precision', maxRippleVpp },
+      thermal,
+    });
+
+  test('100 µV from 150 mV needs 63.5 dB: the cheaper 60 dB fixed class is passed over for one that meets it', () => {
+    const { option } = quiet(100e-6);
+    const need = 20 * Math.log10(0.15 / 100e-6);
+    const fixed = defaultCatalog.linearRegulators.find((c) => c.id === 'fixed-3v3')!;
+    expect(rippleRejectionDb(fixed, MAINS_RIPPLE_HZ.hi, false)).toBeLessThan(need);
+    expect(option.feasible).toBe(true);
+    expect(option.outputRippleVpp).toBeLessThanOrEqual(100e-6);
+    const cls = classOf(option.components.find((c) => c.role === 'regulator')!.part);
+    const bypassed = option.components.some((c) => c.role === 'bypass-capacitor');
+    expect(rippleRejectionDb(cls, MAINS_RIPPLE_HZ.hi, bypassed)).toBeGreaterThanOrEqual(need);
+    expect(option.outputRippleVpp).toBeCloseTo(0.15 * 10 ** (-rippleRejectionDb(cls, MAINS_RIPPLE_HZ.hi, bypassed) / 20), 12);
+  });
+
+  test('10 µV is beyond every class: the fix is an input RC filter whose attenuation at 100 Hz closes the gap', () => {
+    const { design, option } = quiet(10e-6);
+    expect(option.feasible).toBe(false);
+    expect(option.issues).toContainEqual(expect.objectContaining({ code: 'ripple', severity: 'blocker' }));
+    const fix = (design.fixes ?? []).find((f) => f.code === 'ripple')!;
+    expect(fix.costCents).toBeGreaterThan(0);
+    const [r, c] = /filter (\S+ \S+) \+ (\S+ \S+)/
+      .exec(fix.change)!
+      .slice(1)
+      .map((t) => parseSi(t)!);
+    // First-order low-pass |H| = 1/√(1 + (2π·f·R·C)²), at 100 Hz where it attenuates least.
+    const h = 1 / Math.sqrt(1 + (2 * Math.PI * MAINS_RIPPLE_HZ.lo * r! * c!) ** 2);
+    expect(option.outputRippleVpp * h).toBeLessThanOrEqual(10e-6);
+    // The resistor's drop at full load leaves the regulator its headroom at the trough.
+    const reg = classOf(option.components.find((c) => c.role === 'regulator')!.part);
+    expect(11.4 - 0.075 - r! * (0.05 + reg.iqA)).toBeGreaterThanOrEqual(option.vOutRange.max + reg.dropoutV);
   });
 });
