@@ -9,10 +9,7 @@ import { impossibleFigures } from './impossible.ts';
  * Briefs the engine cannot yet design as an engineer would, and why. Each must still fail, so
  * the day the engine meets one, this list loses it.
  */
-const KNOWN_GAPS: Record<string, string> = {
-  'prec-24-5v-1pct-1a':
-    'a worst-case ±1 % 5 V rail at 1 A from 24 V needs a switcher with a ±0.5 % reference grade (or a 0.5 % LDO after it); the catalog gives each switcher class one reference tolerance and has no ±0.5 % regulator for 1 A',
-};
+const KNOWN_GAPS: Record<string, string> = {};
 
 const evaluated = new Map<string, Evaluation>();
 function run(id: string): Evaluation {

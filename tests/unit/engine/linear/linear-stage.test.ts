@@ -61,14 +61,14 @@ describe('5 V → 3.3 V ±3 %, 100 mA, quiet', () => {
   });
 });
 
-describe('battery 3.6–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest output', () => {
+describe('battery 3.5–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest output', () => {
   const { design, option } = linearOption({
-    input: { vMin: 3.6, vNom: 3.8, vMax: 4.2, source: 'battery' },
+    input: { vMin: 3.5, vNom: 3.8, vMax: 4.2, source: 'battery' },
     output: { v: 3.3, tolerance: 0.05, iMin: 0.01, iTyp: 0.5, iMax: 0.9 },
     noise: { class: 'digital' },
     thermal,
   });
-  test('no linear option is offered: the worst-case output plus dropout exceeds the 3.6 V trough', () => {
+  test('no linear option is offered: the worst-case output plus dropout exceeds the 3.5 V trough', () => {
     expect(option.feasible).toBe(false);
     expect(option.issues).toContainEqual(expect.objectContaining({ code: 'headroom', severity: 'blocker' }));
   });
@@ -77,7 +77,7 @@ describe('battery 3.6–4.2 V → 3.3 V ±5 %, 0.9 A: headroom at the highest ou
     const reg = classOf(option.components.find((c) => c.role === 'regulator')!.part);
     const need = Number(/at least ([0-9.]+) V/.exec(fix.change)![1]);
     // The chosen class's requirement is the option's highest output plus its dropout.
-    expect(need).toBeGreaterThan(3.6);
+    expect(need).toBeGreaterThan(3.5);
     expect(need).toBeLessThanOrEqual(option.vOutRange.max + reg.dropoutV + 0.005);
   });
 });
