@@ -73,16 +73,20 @@ interface Fit {
   costCents: number;
 }
 
-/** E6 value at or above the wanted one, capped at the case's largest. */
+/** The smallest value the family makes at this rating: an electrolytic series starts near 1 µF. */
+const smallest = (row: Case) => row.cMinF ?? 0;
+
+/** E6 value at or above the wanted one (and the family's smallest), capped at the case's largest. */
 function valueIn(row: Case, wanted: number): number {
-  const v = snap(Math.max(wanted, 1e-12), 'E6', 'up');
+  const v = snap(Math.max(wanted, smallest(row), 1e-12), 'E6', 'up');
   return v <= row.cMaxF * (1 + 1e-9) ? v : row.cMaxF;
 }
 
-/** Parts a forced total needs in this case: equal standard values (E12), or 0 when none fits. */
+/** Parts a forced total needs in this case: equal standard values (E12) inside its envelope, or 0 when none fits. */
 function forcedCount(forcedF: number, row: Case): number {
   for (let k = 1; k <= MAX_PARALLEL; k += 1) {
     const each = forcedF / k;
+    if (each < smallest(row) * (1 - 1e-9)) break;
     if (each <= row.cMaxF * (1 + 1e-9) && Math.abs(snap(each, 'E12') / each - 1) < 0.01) return k;
   }
   return 0;

@@ -193,6 +193,8 @@ const capacitorCaseSchema = z
     vRatedV: pos,
     /** Largest capacitance this case offers at this rating. */
     cMaxF: pos,
+    /** Smallest value the family makes at this rating (absent: no lower limit). Small values at high voltage are film or ceramic parts. */
+    cMinF: pos.optional(),
     esrOhm: nonNeg,
     /** RMS ripple-current rating at the family's rated temperature. */
     rippleA: pos,
@@ -1468,19 +1470,20 @@ export const defaultCatalog: Catalog = {
       lifeHours: 2000,
       ratedTempC: 105,
       cases: [
-        { name: '5×11', vRatedV: 16, cMaxF: 100e-6, esrOhm: 0.3, rippleA: 0.25, costCents: 5 },
-        { name: '6.3×11', vRatedV: 25, cMaxF: 220e-6, esrOhm: 0.12, rippleA: 0.45, costCents: 7 },
-        { name: '8×11.5', vRatedV: 16, cMaxF: 1000e-6, esrOhm: 0.06, rippleA: 0.9, costCents: 10 },
-        { name: '8×11.5', vRatedV: 50, cMaxF: 100e-6, esrOhm: 0.12, rippleA: 0.55, costCents: 10 },
-        { name: '10×16', vRatedV: 35, cMaxF: 1000e-6, esrOhm: 0.04, rippleA: 1.5, costCents: 18 },
-        { name: '10×20', vRatedV: 100, cMaxF: 100e-6, esrOhm: 0.1, rippleA: 0.8, costCents: 25 },
-        { name: '12.5×20', vRatedV: 250, cMaxF: 47e-6, esrOhm: 1.5, rippleA: 0.35, costCents: 45 },
-        { name: '8×12', vRatedV: 450, cMaxF: 4.7e-6, esrOhm: 6, rippleA: 0.06, costCents: 15 },
-        { name: '10×20', vRatedV: 450, cMaxF: 10e-6, esrOhm: 4, rippleA: 0.1, costCents: 25 },
-        { name: '16×25', vRatedV: 450, cMaxF: 47e-6, esrOhm: 2, rippleA: 0.45, costCents: 90 },
-        { name: '18×35', vRatedV: 35, cMaxF: 10e-3, esrOhm: 0.02, rippleA: 3, costCents: 120 },
+        { name: '5×11', vRatedV: 16, cMinF: 1e-6, cMaxF: 100e-6, esrOhm: 0.3, rippleA: 0.25, costCents: 5 },
+        { name: '6.3×11', vRatedV: 25, cMinF: 1e-6, cMaxF: 220e-6, esrOhm: 0.12, rippleA: 0.45, costCents: 7 },
+        { name: '8×11.5', vRatedV: 16, cMinF: 1e-6, cMaxF: 1000e-6, esrOhm: 0.06, rippleA: 0.9, costCents: 10 },
+        { name: '8×11.5', vRatedV: 50, cMinF: 1e-6, cMaxF: 100e-6, esrOhm: 0.12, rippleA: 0.55, costCents: 10 },
+        { name: '10×16', vRatedV: 35, cMinF: 1e-6, cMaxF: 1000e-6, esrOhm: 0.04, rippleA: 1.5, costCents: 18 },
+        { name: '10×20', vRatedV: 100, cMinF: 1e-6, cMaxF: 100e-6, esrOhm: 0.1, rippleA: 0.8, costCents: 25 },
+        { name: '12.5×20', vRatedV: 250, cMinF: 1e-6, cMaxF: 47e-6, esrOhm: 1.5, rippleA: 0.35, costCents: 45 },
+        { name: '8×12', vRatedV: 450, cMinF: 1e-6, cMaxF: 4.7e-6, esrOhm: 6, rippleA: 0.06, costCents: 15 },
+        { name: '10×20', vRatedV: 450, cMinF: 1e-6, cMaxF: 10e-6, esrOhm: 4, rippleA: 0.1, costCents: 25 },
+        { name: '16×25', vRatedV: 450, cMinF: 1e-6, cMaxF: 47e-6, esrOhm: 2, rippleA: 0.45, costCents: 90 },
+        { name: '18×35', vRatedV: 35, cMinF: 1e-6, cMaxF: 10e-3, esrOhm: 0.02, rippleA: 3, costCents: 120 },
       ],
-      source: 'from memory: typical 105 °C, 2000 h radial cans; life doubles per 10 K below the rated temperature (common practice)',
+      source:
+        'from memory: typical 105 °C, 2000 h radial cans, series starting at about 1 µF; life doubles per 10 K below the rated temperature (common practice)',
     },
     {
       id: 'film-hv',
@@ -1491,12 +1494,14 @@ export const defaultCatalog: Catalog = {
       lifeHours: 0,
       ratedTempC: 105,
       cases: [
-        { name: '7.5 mm pitch', vRatedV: 630, cMaxF: 0.47e-6, esrOhm: 0.05, rippleA: 1, costCents: 25 },
-        { name: '15 mm pitch', vRatedV: 630, cMaxF: 2.2e-6, esrOhm: 0.03, rippleA: 2, costCents: 60 },
+        { name: '7.5 mm pitch', vRatedV: 630, cMinF: 1e-9, cMaxF: 0.1e-6, esrOhm: 0.05, rippleA: 0.5, costCents: 15 },
+        { name: '15 mm pitch', vRatedV: 630, cMinF: 10e-9, cMaxF: 0.47e-6, esrOhm: 0.04, rippleA: 1, costCents: 25 },
+        { name: '27.5 mm pitch', vRatedV: 630, cMinF: 0.1e-6, cMaxF: 2.2e-6, esrOhm: 0.03, rippleA: 2, costCents: 60 },
         { name: '27.5 mm pitch', vRatedV: 1000, cMaxF: 10e-6, esrOhm: 0.02, rippleA: 5, costCents: 220 },
         { name: '37.5 mm pitch', vRatedV: 2000, cMaxF: 10e-6, esrOhm: 0.02, rippleA: 6, costCents: 450 },
       ],
-      source: 'from memory: typical polypropylene film boxes',
+      source:
+        'from memory: typical polypropylene film boxes; a 630 V box holds about 0.1 µF at 7.5 mm pitch, 0.47 µF at 15 mm, 2.2 µF at 27.5 mm',
     },
   ],
   inductors: {

@@ -2,7 +2,14 @@
 // life and forced values, each against a hand calculation.
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog } from '~/lib/engine/catalog.ts';
-import { CAPACITOR_VOLTAGE_FACTOR, LIFE_TARGET_H, biasRetention, chooseCapacitorBank, electrolyticLife } from '~/lib/engine/capacitors.ts';
+import {
+  CAPACITOR_VOLTAGE_FACTOR,
+  LIFE_TARGET_H,
+  biasRetention,
+  chooseCapacitor,
+  chooseCapacitorBank,
+  electrolyticLife,
+} from '~/lib/engine/capacitors.ts';
 
 const family = (id: string) => defaultCatalog.capacitors.find((f) => f.id === id)!;
 const need = { effectiveF: 10e-6, workingV: 12, rmsA: 0, esrMaxOhm: Infinity, ambientC: 40 };
@@ -46,6 +53,27 @@ describe('what can be bought', () => {
     // ceil(2 / 0.45) = 5 parts, each carrying 0.4 A.
     expect(bank.count).toBe(5);
     expect(bank.rippleRatingA).toBeCloseTo(2.25, 12);
+  });
+
+  test('100 nF at 400 V is a film or high-voltage ceramic part: aluminium electrolytic series start near 1 µF (from memory)', () => {
+    const c = chooseCapacitor('C1', 'input-capacitor', 100e-9, 400, defaultCatalog);
+    expect(c.issue).toBeNull();
+    expect(c.farads).toBeCloseTo(100e-9, 15);
+    expect(['film', 'mlcc']).toContain(c.family.kind);
+    expect(c.part.ratingV!).toBeGreaterThanOrEqual(CAPACITOR_VOLTAGE_FACTOR * 400);
+  });
+
+  test('every value chosen lies inside its case’s envelope, smallest to largest', () => {
+    for (const v of [3.3, 12, 48, 160, 400, 700])
+      for (const f of [1e-9, 10e-9, 100e-9, 0.47e-6, 2.2e-6, 22e-6, 220e-6]) {
+        const c = chooseCapacitor('C1', 'input-capacitor', f, v, defaultCatalog);
+        if (c.issue?.severity === 'blocker') continue;
+        const each = c.farads / c.count;
+        const fits = c.family.cases.some(
+          (row) => row.vRatedV >= CAPACITOR_VOLTAGE_FACTOR * v && each >= (row.cMinF ?? 0) * (1 - 1e-9) && each <= row.cMaxF * (1 + 1e-9),
+        );
+        expect({ v, f, part: c.part.part, fits }).toEqual({ v, f, part: c.part.part, fits: true });
+      }
   });
 
   test('a need no family meets is a blocker that says what was asked', () => {
