@@ -11,7 +11,12 @@ import { zenerModel } from './zener.ts';
 export interface SpiceCorner {
   vIn: number;
   iOut: number;
+  /** The output shorted to ground through a 0 V source `Vshort` (its current is the short-circuit current) instead of the load. */
+  short?: boolean;
 }
+
+/** The load on `out`: the corner's current, or a short. */
+const load = (corner: SpiceCorner) => (corner.short ? 'Vshort out 0 DC 0' : `Iload out 0 DC ${num(corner.iOut)}`);
 
 /** Series resistor into the rail, held by a Zener or by a precision shunt reference with its divider. */
 export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
@@ -20,23 +25,12 @@ export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): st
   const holder = dz
     ? [`D${dz.ref} 0 out DZ${dz.ref}`, zenerModel(`DZ${dz.ref}`, dz, catalog)]
     : shuntReferenceLines(option, partOf(option, 'regulator'), catalog);
-  return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    `R${rs.ref} in out ${num(rs.value ?? 0)}`,
-    ...holder,
-    `Iload out 0 DC ${num(corner.iOut)}`,
-    '.op',
-  ];
+  return [`V1 in 0 DC ${num(corner.vIn)}`, `R${rs.ref} in out ${num(rs.value ?? 0)}`, ...holder, load(corner), '.op'];
 }
 
 export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const reg = partOf(option, 'regulator');
-  return [
-    `V1 in 0 DC ${num(corner.vIn)}`,
-    ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut),
-    `Iload out 0 DC ${num(corner.iOut)}`,
-    '.op',
-  ];
+  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut), load(corner), '.op'];
 }
 
 /**
@@ -83,7 +77,7 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
     `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
     ...limiter.lines,
     ...regulatorLines(option, reg.ref, 'rin', catalog, corner.iOut),
-    `Iload out 0 DC ${num(corner.iOut)}`,
+    load(corner),
     '.op',
   ];
 }

@@ -3,11 +3,11 @@
 // Vbe or Vgs follows the load as a real part's does instead of staying at one figure.
 import type { Catalog } from '../catalog.ts';
 import type { Component } from '../types.ts';
+import { ROOM_C, SENSE_BETA_TYP, SENSE_VBE_AT_A, senseVbe } from '../topologies/foldback.ts';
 import { VT, catalogEntry, num } from './netlist-text.ts';
 
-/** Small-signal NPN of the current limiter: Vbe 0.65 V at 1 mA, current gain 200 (typical, from memory). */
-const SENSE_VBE_1MA_V = 0.65;
-const SENSE_BF = 200;
+/** Small-signal NPN of the current limiter at the simulator's 27 °C: the engine's typical Vbe at 1 mA and typical gain. */
+const SENSE_VBE_1MA_V = senseVbe(ROOM_C, SENSE_VBE_AT_A);
 /** Gate overdrive above threshold at which a power MOSFET carries its rated current (typical transfer curve, from memory). */
 const MOSFET_OVERDRIVE_V = 1;
 
@@ -32,5 +32,8 @@ export function passDeviceLines(q: Component, d: string, g: string, s: string, c
 
 /** The limiter's small-signal NPN `q`: collector `c`, base `b`, emitter `e`. */
 export function senseTransistorLines(q: Component, c: string, b: string, e: string): string[] {
-  return [`Q${q.ref} ${c} ${b} ${e} QS${q.ref}`, `.model QS${q.ref} NPN(BF=${SENSE_BF} IS=${num(1e-3 * Math.exp(-SENSE_VBE_1MA_V / VT))})`];
+  return [
+    `Q${q.ref} ${c} ${b} ${e} QS${q.ref}`,
+    `.model QS${q.ref} NPN(BF=${SENSE_BETA_TYP} IS=${num(SENSE_VBE_AT_A * Math.exp(-SENSE_VBE_1MA_V / VT))})`,
+  ];
 }

@@ -28,8 +28,22 @@ import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
 import { formatSi } from '../units.ts';
 import { dynamicImpedance, seriesFor, seriesForPower, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
-import { designFoldback, foldbackCurrent, minShortCurrent, type Foldback } from './foldback.ts';
-import { CURRENT_DERATING, dividerCurrent, regulatorStage } from './regulator-stage.ts';
+import { COLD_AMBIENT_C } from '../tolerance.ts';
+import {
+  ROOM_C,
+  SENSE_BETA_MIN,
+  SENSE_BETA_TYP,
+  SENSE_VBE_25C_V,
+  SENSE_VBE_AT_A,
+  SENSE_VBE_TEMPCO_V_PER_K,
+  designFoldback,
+  foldbackCurrent,
+  minShortCurrent,
+  senseVbe,
+  thermalVoltage,
+  type Foldback,
+} from './foldback.ts';
+import { CURRENT_DERATING, dividerCurrent, dropoutAt, regulatorStage } from './regulator-stage.ts';
 import { SOA_MARGIN, fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from './soa.ts';
 
 export { soaAllowedW } from './soa.ts';
@@ -46,10 +60,13 @@ const BIAS_HEADROOM_V = 2;
 export const FOLDBACK_MIN_SHARE = 0.05;
 /** Where the SOA allows more, the short-circuit current is folded to this share of the limit (common practice: a third to a half). */
 const FOLDBACK_SHARE = 0.5;
-/** Current in the foldback divider: well above the sense transistor's base current (common practice). */
+/** Least current in the foldback divider at full output (common practice). */
 const FOLDBACK_DIVIDER_A = 0.1e-3;
-/** Base-emitter voltage of the small sense transistor at the limit (common practice). */
-export const SENSE_VBE_V = 0.6;
+/**
+ * The divider carries at least ten times the sense transistor's largest base current (common
+ * practice); where RA·Ib still lifts the short-circuit current past the SOA, a stiffer one.
+ */
+const DIVIDER_TO_BASE = [10, 30] as const;
 /** Insulating pad under a live tab: θCS of 1–3 K/W (from memory of pad data); 2 K/W assumed. */
 export const INSULATING_PAD_CW = 2;
 /** Points along the foldback line where the pass device's stress is checked against its SOA. */
@@ -91,13 +108,32 @@ function chooseFloatingClass(ctx: Context, iMax: number): LinearRegulatorClass {
   );
 }
 
+/**
+ * The sense transistor at the two ends of its temperature range: the hottest junction (lowest Vbe)
+ * sets the knee, which must still carry the full load; the coldest (highest Vbe, least gain, the
+ * bias resistor's whole current at the highest input) sets the short-circuit current, its power
+ * and the SOA check.
+ */
+export interface SenseCorners {
+  vbeHot: number;
+  vbeCold: number;
+  /** Base current in a short at the coldest corner, least gain. */
+  ibCold: number;
+}
+
+/** Current in the foldback divider at full output: at least `multiple` times the sense transistor's base current. */
+const foldbackDividerA = (ib: number, multiple: number) => Math.max(FOLDBACK_DIVIDER_A, multiple * ib);
+
 interface Protection {
   mode: 'foldback' | 'fuse';
   foldback: Foldback;
-  /** Current at the normal sense-node voltage and with the output shorted. */
+  /** Current in the foldback divider at full output. */
+  dividerA: number;
+  /** Knee current at the normal sense-node voltage (hottest junction). */
   iLimit: number;
+  /** Current with the output shorted (coldest junction). */
   iShort: number;
-  /** Largest pass-device power along the limit line (or in the short, fuse mode). */
+  /** Largest pass-device power along the limit line at the coldest junction (or in the short, fuse mode). */
   worstW: number;
   /** Case temperature the thermal chain gives at that power. */
   caseC: number;
@@ -113,12 +149,22 @@ interface Protection {
  * reaches (two passes: the case temperature depends on the power it sets). Where even the
  * smallest useful foldback leaves the SOA, a fuse clears the short inside the pulsed SOA.
  */
-function sizeProtection(ctx: Context, dev: PassDeviceClass, thermal: ThermalPart, iPath: number, vTarget: number, vs: number): Protection {
+function sizeProtection(
+  ctx: Context,
+  dev: PassDeviceClass,
+  thermal: ThermalPart,
+  iPath: number,
+  vTarget: number,
+  vs: number,
+  sense: SenseCorners,
+): Protection {
   let fallback: Protection | null = null;
   for (const ratio of LIMIT_RATIOS) {
-    const p = sizeProtectionAt(ctx, dev, thermal, iPath, vTarget, vs, ratio);
-    if (p.mode === 'foldback' && p.problems.length === 0) return p;
-    fallback ??= p;
+    for (const multiple of DIVIDER_TO_BASE) {
+      const p = sizeProtectionAt(ctx, dev, thermal, iPath, vTarget, vs, sense, ratio, foldbackDividerA(sense.ibCold, multiple));
+      if (p.mode === 'foldback' && p.problems.length === 0) return p;
+      fallback ??= p;
+    }
   }
   return fallback!;
 }
@@ -130,38 +176,44 @@ function sizeProtectionAt(
   iPath: number,
   vTarget: number,
   vs: number,
+  sense: SenseCorners,
   ratio: number,
+  dividerA: number,
 ): Protection {
   const { vMax } = ctx.spec.input;
   const iLimit = ratio * iPath;
   const vNormal = vTarget + vs;
-  const lowest = minShortCurrent(iLimit, vNormal, vs, SENSE_VBE_V);
+  const lowest = minShortCurrent(iLimit, vNormal, vs, sense.vbeHot);
   const floor = Math.max(FOLDBACK_MIN_SHARE * iLimit, lowest + 0.02 * (iLimit - lowest));
   const airflow = airflowFactor(ctx.spec, ctx.catalog);
-  const lineWorst = (iShort: number) => {
-    let worst = 0;
-    for (let k = 0; k <= FOLDBACK_SAMPLES; k += 1) {
-      const x = k / FOLDBACK_SAMPLES;
-      worst = Math.max(worst, Math.max(0, vMax - (x * vTarget + vs)) * (iShort + (iLimit - iShort) * x));
-    }
-    return worst;
+  // The foldback designed at the hottest junction, and its line at the coldest: lo in the short, hi at full output.
+  const coldLine = (folded: number) => {
+    const fb = designFoldback(iLimit, folded, vNormal, vs, sense.vbeHot);
+    if (!fb) return null;
+    // RA·Ib with RB = vNormal/(Idiv·(1 + k)).
+    const drop = (fb.k * vNormal * sense.ibCold) / (dividerA * (1 + fb.k));
+    return { fb, lo: foldbackCurrent(fb, sense.vbeCold, vs, drop), hi: foldbackCurrent(fb, sense.vbeCold, vNormal, drop) };
   };
+  const pointsOf = (line: { lo: number; hi: number }) =>
+    Array.from({ length: FOLDBACK_SAMPLES + 1 }, (_, n) => {
+      const x = n / FOLDBACK_SAMPLES;
+      const vce = Math.max(0, vMax - (x * vTarget + vs));
+      return { vce, w: vce * (line.lo + (line.hi - line.lo) * x) };
+    });
+  const lineWorst = (line: { lo: number; hi: number }) => Math.max(...pointsOf(line).map((p) => p.w));
   // Case temperature the heatsink gives at this power; null when no heatsink holds it.
   const caseAt = (powerW: number): number | null => {
     const t = assessThermal(thermal, powerW, ctx.ambientC, airflow, ctx.catalog, ctx.spec.overrides.heatsinkThetaSaCW);
     return t.problem === 'none' || t.problem === 'impractical' ? t.tjC - powerW * thermal.thetaJcCW : null;
   };
-  // A short-circuit current fits when the heatsink holds the line's worst power and every point
-  // of the line lies inside the SOA derated to that case temperature.
-  const fits = (iShort: number): number | null => {
-    const caseC = caseAt(lineWorst(iShort));
+  // A short-circuit current fits when the heatsink holds the cold line's worst power and every
+  // point of that line lies inside the SOA derated to that case temperature.
+  const fits = (folded: number): number | null => {
+    const line = coldLine(folded);
+    if (!line) return null;
+    const caseC = caseAt(lineWorst(line));
     if (caseC === null) return null;
-    for (let k = 0; k <= FOLDBACK_SAMPLES; k += 1) {
-      const x = k / FOLDBACK_SAMPLES;
-      const vce = Math.max(0, vMax - (x * vTarget + vs));
-      if (vce * (iShort + (iLimit - iShort) * x) > soaDeratedW(dev, vce, caseC)) return null;
-    }
-    return caseC;
+    return pointsOf(line).every((p) => p.w <= soaDeratedW(dev, p.vce, caseC)) ? caseC : null;
   };
   const problems: Issue[] = [];
   // Fold to half the limit where the SOA allows it (common practice), else as deep as needed
@@ -179,14 +231,15 @@ function sizeProtectionAt(
     folded = lo;
     caseC = fits(lo);
   }
-  const fb = caseC === null ? null : designFoldback(iLimit, folded, vNormal, vs, SENSE_VBE_V);
-  if (fb && caseC !== null)
+  const line = caseC === null ? null : coldLine(folded);
+  if (line && caseC !== null)
     return {
       mode: 'foldback',
-      foldback: fb,
+      foldback: line.fb,
+      dividerA,
       iLimit,
-      iShort: folded,
-      worstW: lineWorst(folded),
+      iShort: line.lo,
+      worstW: lineWorst(line),
       caseC,
       fuseA: null,
       clearS: null,
@@ -194,10 +247,11 @@ function sizeProtectionAt(
     };
   // No foldback holds a continuous short: a fast fuse, with the limit raised so it clears quickly.
   const fuseA = FUSE_RATINGS_A.find((r) => r >= FUSE_RATING_FACTOR * iPath) ?? FUSE_RATINGS_A[FUSE_RATINGS_A.length - 1]!;
-  const iFault = Math.max(iLimit, FUSE_CLEAR_MULTIPLE * fuseA);
-  // A plain (unfolded) limit: the sense transistor alone across Rs.
-  const plain: Foldback = { k: 0, rs: SENSE_VBE_V / iFault };
-  const clearS = fuseClearingS(iFault, fuseA);
+  const iFaultHot = Math.max(iLimit, FUSE_CLEAR_MULTIPLE * fuseA);
+  // A plain (unfolded) limit: the sense transistor alone across Rs, set at the hottest junction.
+  const plain: Foldback = { k: 0, rs: sense.vbeHot / iFaultHot };
+  const iFault = foldbackCurrent(plain, sense.vbeCold, 0);
+  const clearS = fuseClearingS(iFaultHot, fuseA);
   const vceShort = vMax - vs;
   const pShort = vceShort * iFault;
   const ambientCase = ctx.ambientC;
@@ -205,11 +259,22 @@ function sizeProtectionAt(
     problems.push(
       blocker(
         'soa',
-        `A shorted output puts ${pShort.toFixed(0)} W into the pass device; no foldback keeps that inside its SOA continuously, and a ${formatSi(fuseA, 'A', 3)} fuse clearing at ${formatSi(iFault, 'A', 3)} takes ${clearS === null ? 'too long' : formatSi(clearS, 's', 2)}, beyond its pulsed SOA.`,
+        `A shorted output puts ${pShort.toFixed(0)} W into the pass device; no foldback keeps that inside its SOA continuously, and a ${formatSi(fuseA, 'A', 3)} fuse clearing at ${formatSi(iFaultHot, 'A', 3)} takes ${clearS === null ? 'too long' : formatSi(clearS, 's', 2)}, beyond its pulsed SOA.`,
       ),
     );
   }
-  return { mode: 'fuse', foldback: plain, iLimit: iFault, iShort: iFault, worstW: pShort, caseC: ambientCase, fuseA, clearS, problems };
+  return {
+    mode: 'fuse',
+    foldback: plain,
+    dividerA: 0,
+    iLimit: iFaultHot,
+    iShort: iFault,
+    worstW: pShort,
+    caseC: ambientCase,
+    fuseA,
+    clearS,
+    problems,
+  };
 }
 
 interface Candidate {
@@ -255,16 +320,34 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const dzRef = refs.next('D');
   const rsRef = refs.next('R');
   const forcedVz = forced(ctx, dzRef) ?? (spec.overrides.standoffV !== undefined ? zenerVoltage(spec.overrides.standoffV) : undefined);
+  // Bias current through Rb: the pass device's base current with margin plus the Zener's knee.
+  const ibNormal = npn ? iPathMax / gain : 0;
+  const seriesOf = (v: number) => {
+    const offered = seriesFor(catalog, v);
+    return offered.length > 0 ? offered : catalog.zenerSeries.slice(0, 1);
+  };
+  const biasFor = (v: number) => Math.max(BIAS_MIN_A, 1.5 * ibNormal + Math.min(...seriesOf(v).map((z) => z.kneeCurrentA)));
+  // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
+  const rbDropFor = (v: number, vOut: number) =>
+    ctx.vInTrough - (vOut + v) > 0 ? ctx.vInTrough - (vOut + v) : Math.max(1, vMax - vOut - v);
+  const coldC = Math.min(COLD_AMBIENT_C, ctx.ambientC);
+  // The sense transistor takes the whole bias current when it limits: at the trough (knee) and at the highest input (short).
+  const senseAt = (iBias: number, iBiasShort: number): SenseCorners => ({
+    vbeHot: senseVbe(ctx.ambientC, iBias),
+    vbeCold: senseVbe(coldC, iBiasShort),
+    ibCold: iBiasShort / SENSE_BETA_MIN,
+  });
+  const senseFor = (v: number) => senseAt(biasFor(v), (biasFor(v) * Math.max(0, vMax - v)) / rbDropFor(v, vTarget));
   // Standoff and sense resistor together: the regulator keeps dropout + margin after the sense
   // resistor's drop, and that drop depends on the foldback the standoff allows.
-  let vz = forcedVz ?? zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + SENSE_VBE_V);
-  let prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc);
+  let vz = forcedVz ?? zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + SENSE_VBE_25C_V);
+  let prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc, senseFor(vz));
   let rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
   for (let pass = 0; pass < 3 && forcedVz === undefined; pass += 1) {
     const next = zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + iPathMax * rs);
     if (next === vz) break;
     vz = next;
-    prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc);
+    prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc, senseFor(vz));
     rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
   }
   const vs = vz - vc;
@@ -284,40 +367,136 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   );
   issues.push(...prot.problems);
 
-  // Foldback divider: k = RA/RB, about FOLDBACK_DIVIDER_A through both from the sense node (none for a plain limit).
+  // Foldback divider: k = RA/RB, the sized current through both from the sense node (none for a plain limit).
   const folds = prot.foldback.k > 0;
   const raRef = folds ? refs.next('R') : '';
   const rbfRef = folds ? refs.next('R') : '';
   const vNormal = vTarget + vs;
-  const rbf = folds ? (forced(ctx, rbfRef) ?? snap(vNormal / (FOLDBACK_DIVIDER_A * (1 + prot.foldback.k)), 'E96', 'nearest')) : 0;
+  const rbf = folds ? (forced(ctx, rbfRef) ?? snap(vNormal / (prot.dividerA * (1 + prot.foldback.k)), 'E96', 'nearest')) : 0;
   const ra = folds ? (forced(ctx, raRef) ?? snap(atLeast(prot.foldback.k * rbf, 1e-3), 'E96', 'nearest')) : 0;
   const fb: Foldback = { k: folds && rbf > 0 ? ra / rbf : 0, rs };
-  const limitAt = (id: string, label: string, vn: number): number =>
+  if (live) {
+    issues.push(
+      caution(
+        'live-heatsink',
+        `${qRef}'s tab and heatsink sit at up to ${vMax.toFixed(0)} V: mount it on an insulating pad (θCS ${INSULATING_PAD_CW} K/W assumed, 1–3 K/W typical) with an insulating bush, keep the heatsink away from touch, and lay out clearance and creepage for basic insulation at this working voltage from the tables of IEC 62368-1 (from memory: a few millimetres at 400–500 V, pollution degree 2 — take the figures from the standard).`,
+      ),
+    );
+  }
+
+  // The regulator stage (divider, capacitors, protection diodes) sees only the standoff.
+  const regInMax = vTarget + vs;
+  const stage = regulatorStage(
+    ctx,
+    refs,
+    trace,
+    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true },
+    vTarget,
+    iMax,
+    cls.id,
+  );
+  issues.push(...stage.issues.filter((i) => i.code !== 'class-unknown' && i.code !== 'headroom'));
+  fixes.push(...stage.fixes.filter((f) => f.code !== 'headroom'));
+  const vOut = stage.vOut;
+  const iDivActual = stage.divider?.iDivider ?? 0;
+  const iAdj = cls.iAdjTypA;
+  const regHeadroom = vs - iPathMax * rs;
+  if (regHeadroom < cls.dropoutV) {
+    issues.push(
+      blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`),
+    );
+  }
+  if (cls.vDiffMaxV !== null && vs > cls.vDiffMaxV) {
+    issues.push(blocker('standoff', `The standoff puts ${vs.toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
+  }
+
+  // Bias resistor from the input to the base/gate.
+  const rbRef = refs.next('R');
+  if (seriesFor(catalog, vz).length === 0) issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
+  const zSeries = seriesOf(vz);
+  const iBias = biasFor(vz);
+  const rb = forced(ctx, rbRef) ?? snap(atLeast(rbDropFor(vz, vOut) / iBias, 1), 'E24', 'down');
+  trace.select(
+    'predrop.rb',
+    'Bias resistor, snapped down to E24',
+    'Rb = (vInTrough − (Vout + Vz)) / Ibias',
+    {
+      vInTrough: [ctx.vInTrough, 'V'],
+      Vout: [vOut, 'V'],
+      Vz: [vz, 'V'],
+      Ibias: [iBias, 'A'],
+    },
+    rb,
+    'Ω',
+  );
+  if (ctx.vInTrough < vOut + vz + BIAS_HEADROOM_V) {
+    const need = vOut + vz + BIAS_HEADROOM_V;
+    issues.push(
+      blocker(
+        'headroom',
+        `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${need.toFixed(1)} V.`,
+      ),
+    );
+    fixes.push({
+      code: 'headroom',
+      change: `input trough at least ${need.toFixed(1)} V`,
+      message: `Needs ≥ ${need.toFixed(1)} V input at the trough; a pre-drop stage only helps well above the output.`,
+    });
+  }
+
+  // The sense transistor with the chosen Rb: it takes the bias current at the trough when it
+  // starts to limit (the knee) and Rb's whole current at the highest input in a short.
+  const iRbShort = Math.max(0, vMax - vz) / rb;
+  const vbeAt = (id: string, label: string, tempC: number, ic: number) =>
+    trace.add(
+      id,
+      label,
+      'Vbe = Vbe25 + TC·(T − 25) + Vt·ln(Ic/I0)',
+      {
+        Vbe25: [SENSE_VBE_25C_V, 'V'],
+        TC: [SENSE_VBE_TEMPCO_V_PER_K, 'V/K'],
+        T: [tempC, '°C'],
+        Vt: [thermalVoltage(tempC), 'V'],
+        Ic: [ic, 'A'],
+        I0: [SENSE_VBE_AT_A, 'A'],
+      },
+      senseVbe(tempC, ic),
+      'V',
+    );
+  const vbeHot = vbeAt('predrop.vbe.hot', 'Sense transistor Vbe, hottest junction, at the knee', ctx.ambientC, rbDropFor(vz, vOut) / rb);
+  const vbeCold = vbeAt('predrop.vbe.cold', 'Sense transistor Vbe, coldest junction, output shorted', coldC, iRbShort);
+  const vbeRoom = vbeAt('predrop.vbe.room', `Sense transistor Vbe at ${ROOM_C} °C, output shorted`, ROOM_C, iRbShort);
+  // The knee leaves out the base current (the highest gain); a short adds RA·Ic/β through RA.
+  const limitAt = (id: string, label: string, vbe: number, vn: number, beta: number | null): number =>
     folds
-      ? trace.add(
-          id,
-          `${label} (foldback line)`,
-          'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs',
-          {
-            Vbe: [SENSE_VBE_V, 'V'],
-            RA: [ra, 'Ω'],
-            RB: [rbf, 'Ω'],
-            Vn: [vn, 'V'],
-            Rs: [rs, 'Ω'],
-          },
-          foldbackCurrent(fb, SENSE_VBE_V, vn),
-          'A',
-        )
-      : trace.add(
-          id,
-          `${label} (sense transistor across Rs)`,
-          'I = Vbe/Rs',
-          { Vbe: [SENSE_VBE_V, 'V'], Rs: [rs, 'Ω'] },
-          SENSE_VBE_V / rs,
-          'A',
-        );
-  const iLimit = limitAt('predrop.ilimit', 'Current limit at full output', vNormal);
-  const iFault = limitAt('predrop.ifault', 'Short-circuit current', vs);
+      ? beta === null
+        ? trace.add(
+            id,
+            `${label} (foldback line)`,
+            'I = (Vbe·(1 + RA/RB) + Vn·RA/RB)/Rs',
+            { Vbe: [vbe, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vn, 'V'], Rs: [rs, 'Ω'] },
+            foldbackCurrent(fb, vbe, vn),
+            'A',
+          )
+        : trace.add(
+            id,
+            `${label} (foldback line)`,
+            'I = (Vbe·(1 + RA/RB) + Vn·RA/RB + RA·Ic/β)/Rs',
+            { Vbe: [vbe, 'V'], RA: [ra, 'Ω'], RB: [rbf, 'Ω'], Vn: [vn, 'V'], Ic: [iRbShort, 'A'], β: [beta, ''], Rs: [rs, 'Ω'] },
+            foldbackCurrent(fb, vbe, vn, (ra * iRbShort) / beta),
+            'A',
+          )
+      : trace.add(id, `${label} (sense transistor across Rs)`, 'I = Vbe/Rs', { Vbe: [vbe, 'V'], Rs: [rs, 'Ω'] }, vbe / rs, 'A');
+  const iLimit = limitAt('predrop.ilimit', 'Current limit at full output, hottest junction', vbeHot, vNormal, null);
+  const iFault = limitAt('predrop.ifault', 'Short-circuit current, coldest junction, least gain', vbeCold, vs, SENSE_BETA_MIN);
+  // On the bench the shorted regulator saturates: the sense node sits at its dropout, not at the standoff the worst case takes.
+  limitAt(
+    'predrop.ifault.room',
+    `Short-circuit current at ${ROOM_C} °C, typical gain, regulator saturated (bench check)`,
+    vbeRoom,
+    Math.min(vs, dropoutAt(cls, iFault)),
+    SENSE_BETA_TYP,
+  );
   if (iLimit < iPathMax) {
     issues.push(
       blocker(
@@ -362,82 +541,6 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
       message: 'A device whose SOA carries the foldback line continuously would survive a short without the fuse.',
     });
   }
-  if (live) {
-    issues.push(
-      caution(
-        'live-heatsink',
-        `${qRef}'s tab and heatsink sit at up to ${vMax.toFixed(0)} V: mount it on an insulating pad (θCS ${INSULATING_PAD_CW} K/W assumed, 1–3 K/W typical) with an insulating bush, keep the heatsink away from touch, and lay out clearance and creepage for basic insulation at this working voltage from the tables of IEC 62368-1 (from memory: a few millimetres at 400–500 V, pollution degree 2 — take the figures from the standard).`,
-      ),
-    );
-  }
-
-  // The regulator stage (divider, capacitors, protection diodes) sees only the standoff.
-  const regInMax = vTarget + vs;
-  const stage = regulatorStage(
-    ctx,
-    refs,
-    trace,
-    { vTrough: regInMax - iPathMax * rs, vMax: regInMax, rippleVpp: 0, rippleIsHf: false, tracksOutput: true },
-    vTarget,
-    iMax,
-    cls.id,
-  );
-  issues.push(...stage.issues.filter((i) => i.code !== 'class-unknown' && i.code !== 'headroom'));
-  fixes.push(...stage.fixes.filter((f) => f.code !== 'headroom'));
-  const vOut = stage.vOut;
-  const iDivActual = stage.divider?.iDivider ?? 0;
-  const iAdj = cls.iAdjTypA;
-  const regHeadroom = vs - iPathMax * rs;
-  if (regHeadroom < cls.dropoutV) {
-    issues.push(
-      blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`),
-    );
-  }
-  if (cls.vDiffMaxV !== null && vs > cls.vDiffMaxV) {
-    issues.push(blocker('standoff', `The standoff puts ${vs.toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
-  }
-
-  // Bias resistor from the input to the base/gate.
-  const rbRef = refs.next('R');
-  const ibNormal = npn ? iPathMax / gain : 0;
-  let zSeries = seriesFor(catalog, vz);
-  if (zSeries.length === 0) {
-    issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
-    zSeries = catalog.zenerSeries.slice(0, 1);
-  }
-  const knee = Math.min(...zSeries.map((s) => s.kneeCurrentA));
-  const iBias = Math.max(BIAS_MIN_A, 1.5 * ibNormal + knee);
-  // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
-  const rbDrop = ctx.vInTrough - (vOut + vz) > 0 ? ctx.vInTrough - (vOut + vz) : Math.max(1, vMax - vOut - vz);
-  const rb = forced(ctx, rbRef) ?? snap(atLeast(rbDrop / iBias, 1), 'E24', 'down');
-  trace.select(
-    'predrop.rb',
-    'Bias resistor, snapped down to E24',
-    'Rb = (vInTrough − (Vout + Vz)) / Ibias',
-    {
-      vInTrough: [ctx.vInTrough, 'V'],
-      Vout: [vOut, 'V'],
-      Vz: [vz, 'V'],
-      Ibias: [iBias, 'A'],
-    },
-    rb,
-    'Ω',
-  );
-  if (ctx.vInTrough < vOut + vz + BIAS_HEADROOM_V) {
-    const need = vOut + vz + BIAS_HEADROOM_V;
-    issues.push(
-      blocker(
-        'headroom',
-        `The input trough ${ctx.vInTrough.toFixed(1)} V must exceed Vout + Vz + ${BIAS_HEADROOM_V} V = ${need.toFixed(1)} V.`,
-      ),
-    );
-    fixes.push({
-      code: 'headroom',
-      change: `input trough at least ${need.toFixed(1)} V`,
-      message: `Needs ≥ ${need.toFixed(1)} V input at the trough; a pre-drop stage only helps well above the output.`,
-    });
-  }
-
   // The Zener's current flows into the output node and bypasses the regulator; solve the path current.
   const pathCurrent = (vIn: number, iOut: number) => {
     const iRb = Math.max(0, vIn - vOut - vz) / rb;
@@ -612,7 +715,8 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
       [`${qRef}.caseC`]: { value: prot.caseC, unit: '°C' },
       [`${qRef}.thetaCs`]: { value: thermal.thetaCsCW ?? catalog.thermal.thetaCsCW, unit: 'K/W' },
       [`${dzRef}.rz`]: { value: rz, unit: 'Ω' },
-      [`${q2Ref}.vbe`]: { value: SENSE_VBE_V, unit: 'V' },
+      [`${q2Ref}.vbeHot`]: { value: vbeHot, unit: 'V' },
+      [`${q2Ref}.vbeCold`]: { value: vbeCold, unit: 'V' },
     },
     fixes,
   };

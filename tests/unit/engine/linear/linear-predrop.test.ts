@@ -6,7 +6,7 @@ import { assemble } from '~/lib/engine/assemble.ts';
 import { defaultCatalog } from '~/lib/engine/catalog.ts';
 import { makeContext } from '~/lib/engine/context.ts';
 import { railSpecSchema } from '~/lib/engine/rail-spec.ts';
-import { designFoldback, foldbackCurrent, minShortCurrent } from '~/lib/engine/topologies/foldback.ts';
+import { designFoldback, foldbackCurrent, minShortCurrent, senseVbe } from '~/lib/engine/topologies/foldback.ts';
 import { INSULATING_PAD_CW, designLinearPredrop } from '~/lib/engine/topologies/linear-predrop.ts';
 import { fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from '~/lib/engine/topologies/soa.ts';
 
@@ -22,6 +22,15 @@ describe('foldback limit (hand calculation)', () => {
   test('the deepest fold this swing allows: Ilim·(Vbe + Vs)/(swing + Vbe + Vs) = 0.15·10.6/310.6', () => {
     expect(minShortCurrent(0.15, 310, 10, 0.6)).toBeCloseTo((0.15 * 10.6) / 310.6, 12);
     expect(designFoldback(0.15, 0.005, 310, 10, 0.6)).toBeNull();
+  });
+});
+
+describe('sense transistor Vbe over temperature and current', () => {
+  test('0.65 V at 1 mA and 25 °C (typical, from memory), −2 mV/K (common practice), +Vt·ln(Ic/1 mA) (Ebers–Moll)', () => {
+    expect(senseVbe(25, 1e-3)).toBeCloseTo(0.65, 12);
+    expect(senseVbe(0, 1e-3)).toBeCloseTo(0.7, 12);
+    // kT/q at 298.15 K = 25.69 mV; ln 10 = 2.3026.
+    expect(senseVbe(25, 10e-3) - 0.65).toBeCloseTo(0.025693 * Math.log(10), 5);
   });
 });
 
@@ -77,6 +86,16 @@ describe.each([0.02, 0.1])('380–420 V → 300 V at %s A', (iMax) => {
     expect(iFault).toBeLessThan(trace('predrop.ilimit'));
   });
 
+  test('the knee is set at the hottest junction and still carries the full load; the short and its power at the coldest', () => {
+    expect(trace('predrop.vbe.cold')).toBeGreaterThan(trace('predrop.vbe.hot'));
+    // The knee leaves out the sense transistor's base current (its highest gain): the least limit the load can meet.
+    const iPath = option.trace.find((t) => t.id === 'predrop.vz')!.inputs['Ipath,max']!.value;
+    expect(trace('predrop.ilimit')).toBeGreaterThanOrEqual(iPath);
+    const fault = option.trace.find((t) => t.id === 'predrop.pq.fault')!;
+    expect(fault.inputs['Ifault']!.value).toBe(trace('predrop.ifault'));
+    expect(trace('predrop.ifault')).toBeGreaterThan(trace('predrop.ifault.room'));
+  });
+
   test('the regulator class carries the load with margin, the standoff Zener feeds no more than the light load takes', () => {
     const reg = option.components.find((c) => c.role === 'regulator')!;
     const cls = defaultCatalog.linearRegulators.find((c) => reg.part.startsWith(c.label))!;
@@ -130,6 +149,10 @@ describe.each([
     expect(half).toBeLessThan(0.02 * v);
     expect(option.vOutRange.max).toBeGreaterThan(v + half - 0.2);
     expect(option.vOutRange.max).toBeLessThanOrEqual(v * 1.02);
-    expect(option.vOutRange.min).toBeGreaterThanOrEqual(v * 0.98);
+    // A deep foldback's sense resistor swings the regulator's input by Rs·(iMax − iMin); through the
+    // class's line regulation that may take the low end past the band by up to this much.
+    const rs = option.components.find((c) => c.role === 'sense-resistor')!.value!;
+    const lineSwing = cls.lineRegulationPerV * v * rs * (iMax - iMax / 5);
+    expect(option.vOutRange.min).toBeGreaterThanOrEqual(v * 0.98 - lineSwing);
   });
 });
