@@ -26,6 +26,8 @@ interface Rail {
   /** Load: lowest, typical, highest, A. */
   load: readonly [number, number, number];
   noise?: NoiseClass;
+  /** Ripple limit, V p-p, where the load states one tighter than its class's default. */
+  maxRipple?: number;
   ambient?: number;
   airflow?: 'enclosed' | 'still-air' | 'forced-air';
 }
@@ -34,7 +36,7 @@ function rail(r: Rail): RailSpecInput {
   return {
     input: { vMin: r.vin[0], vNom: r.vin[1], vMax: r.vin[2], rippleVpp: r.ripple ?? 0, source: r.source },
     output: { v: r.vout, tolerance: r.tol ?? 0.05, iMin: r.load[0], iTyp: r.load[1], iMax: r.load[2] },
-    noise: { class: r.noise ?? 'digital' },
+    noise: { class: r.noise ?? 'digital', ...(r.maxRipple !== undefined ? { maxRippleVpp: r.maxRipple } : {}) },
     thermal: { ambientMaxC: r.ambient ?? 40, airflow: r.airflow ?? 'still-air' },
   };
 }
@@ -52,6 +54,16 @@ const VEHICLE_12 = [9, 13.5, 16] as const;
 const VEHICLE_24 = [18, 27, 32] as const;
 /** Rectified and smoothed 230 V mains with tolerance, about 300–360 V (common practice). */
 const MAINS_230 = [300, 325, 360] as const;
+/** A 9 V alkaline battery from end of life to fresh (common practice). */
+const NINE_VOLT = [6, 9, 9.6] as const;
+/** Three alkaline AA cells from end of life to fresh (common practice). */
+const THREE_AA = [2.7, 3.6, 4.8] as const;
+/** A powered device's input behind a PoE link, 37–57 V (IEEE 802.3af/at PD input range, from memory). */
+const POE = [37, 48, 57] as const;
+/** A nominal 12 V solar panel from dim light under load to open circuit on a cold day, about 10–22 V (common practice). */
+const SOLAR_12 = [10, 17, 22] as const;
+/** A 110 V railway battery, 0.7–1.25 × nominal in steady state (EN 50155 supply range, from memory). */
+const RAIL_110 = [77, 110, 137.5] as const;
 
 const LDO_SMALL = 'common practice: a small LDO dissipates well under 1 W here; a switcher saves too little to pay for its parts and noise';
 const BUCK_LOSS = 'common practice: a linear regulator would burn several watts here; a buck converter is the standard answer';
@@ -645,8 +657,8 @@ export const CORPUS: readonly CorpusBrief[] = [
     id: 'hv-150-100v-10ma',
     family: 'high-voltage',
     spec: rail({ vin: [140, 150, 160], ripple: 2, source: 'bus', vout: 100, load: [0.001, 0.005, 0.01] }),
-    accept: ['linear-predrop'],
-    why: PREDROP,
+    accept: ['linear-predrop', 'buck'],
+    why: 'common practice: a pre-drop transistor ahead of a floating regulator (which needs its minimum load through the divider), or a buck controller with a 250 V MOSFET that loses less',
   },
   {
     id: 'hv-200-48v-50ma',
@@ -775,5 +787,211 @@ export const CORPUS: readonly CorpusBrief[] = [
     spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 1.8, load: [0.001, 0.01, 0.014] }),
     accept: ['linear'],
     why: 'common practice: a 25 mW rail; an LDO loses a few tens of milliwatts, not worth a switcher and its inductor',
+  },
+  // Further ordinary rails: other batteries, PoE, solar, railway, fan and analog rails, ADC references.
+  {
+    id: '9v-5v-20ma',
+    family: 'battery',
+    spec: rail({ vin: NINE_VOLT, source: 'battery', vout: 5, load: [0.0005, 0.01, 0.02] }),
+    accept: ['linear', 'buck'],
+    why: 'common practice: under 0.1 W lost in a low-quiescent LDO on a 9 V battery; a small buck only to stretch its life',
+  },
+  {
+    id: '3aa-3v3-100ma',
+    family: 'battery',
+    spec: rail({ vin: THREE_AA, source: 'battery', vout: 3.3, load: [0.001, 0.04, 0.1] }),
+    accept: ['buck-boost'],
+    why: STRADDLE,
+  },
+  {
+    id: '4aa-5v-200ma',
+    family: 'battery',
+    spec: rail({ vin: [3.6, 5, 6.4], source: 'battery', vout: 5, load: [0.001, 0.1, 0.2] }),
+    accept: ['buck-boost'],
+    why: STRADDLE,
+  },
+  {
+    id: 'liion-5v-500ma',
+    family: 'battery',
+    spec: rail({ vin: LI_ION, source: 'battery', vout: 5, load: [0.005, 0.2, 0.5] }),
+    accept: ['boost'],
+    why: BOOST_ONLY,
+  },
+  {
+    id: '2s-liion-1v8-1a',
+    family: 'battery',
+    spec: rail({ vin: [6, 7.4, 8.4], source: 'battery', vout: 1.8, load: [0.01, 0.4, 1] }),
+    accept: ['buck'],
+    why: BUCK_LOSS,
+  },
+  {
+    id: 'bus24-12v-2a-fan',
+    family: 'bus',
+    spec: rail({ vin: [21.6, 24, 26.4], ripple: 0.2, source: 'bus', vout: 12, tol: 0.1, load: [0.1, 1.2, 2] }),
+    accept: ['buck'],
+    why: 'common practice: a fan tolerates ±10 %; 24 W through a linear regulator would waste as much as it delivers, a buck is standard',
+  },
+  {
+    id: 'poe-3v3-1a',
+    family: 'bus',
+    spec: rail({ vin: POE, ripple: 0.3, source: 'bus', vout: 3.3, load: [0.05, 0.5, 1] }),
+    accept: ['buck'],
+    why: BUCK_LOSS,
+  },
+  {
+    id: 'poe-12v-500ma',
+    family: 'bus',
+    spec: rail({ vin: POE, ripple: 0.3, source: 'bus', vout: 12, load: [0.02, 0.3, 0.5] }),
+    accept: ['buck'],
+    why: BUCK_LOSS,
+  },
+  {
+    id: 'vehicle12-3v3-1a',
+    family: 'bus',
+    spec: rail({ vin: VEHICLE_12, source: 'bus', vout: 3.3, load: [0.02, 0.4, 1] }),
+    accept: ['buck'],
+    why: BUCK_LOSS,
+  },
+  {
+    id: 'solar-5v-500ma',
+    family: 'bus',
+    spec: rail({ vin: SOLAR_12, source: 'bus', vout: 5, load: [0.005, 0.2, 0.5] }),
+    accept: ['buck'],
+    why: 'common practice: a panel from 10 V to 22 V open-circuit; a buck rated past the open-circuit voltage, a linear would waste most of the harvest',
+  },
+  {
+    id: 'rail110-24v-500ma',
+    family: 'high-voltage',
+    spec: rail({ vin: RAIL_110, ripple: 2, source: 'bus', vout: 24, load: [0.02, 0.3, 0.5] }),
+    accept: ['buck'],
+    why: 'common practice: a non-isolated buck rated past 137.5 V; a linear stage would lose over 50 W',
+  },
+  {
+    id: 'bus3v3-1v8-2pct-2a',
+    family: 'precision',
+    spec: rail({ vin: [3.135, 3.3, 3.465], ripple: 0.03, source: 'bus', vout: 1.8, tol: 0.02, load: [0.05, 1, 2] }),
+    accept: ['buck'],
+    why: 'common practice: a low-voltage synchronous buck with a ±1 % feedback reference; an LDO would lose 3 W',
+  },
+  {
+    id: 'bus3v3-2v5-300ma',
+    family: 'bus',
+    spec: rail({ vin: [3.135, 3.3, 3.465], ripple: 0.03, source: 'bus', vout: 2.5, load: [0.01, 0.15, 0.3] }),
+    accept: ['linear', 'buck'],
+    why: LDO_SMALL,
+  },
+  {
+    id: 'bus12-9v-300ma',
+    family: 'bus',
+    spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'bus', vout: 9, load: [0.01, 0.15, 0.3] }),
+    accept: ['linear', 'buck'],
+    why: 'common practice: about 1 W in a regulator in a tab package; a buck is also usual',
+  },
+  {
+    id: 'bus5-3v3-2a',
+    family: 'usb-adapter',
+    spec: rail({ vin: [4.75, 5, 5.25], ripple: 0.05, source: 'bus', vout: 3.3, load: [0.05, 1, 2] }),
+    accept: ['buck'],
+    why: BUCK_LOSS,
+  },
+  {
+    id: 'up-5-15v-100ma',
+    family: 'step-up',
+    spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 15, load: [0.002, 0.05, 0.1] }),
+    accept: ['boost'],
+    why: BOOST_ONLY,
+  },
+  {
+    id: 'up-3v3-5v-300ma',
+    family: 'step-up',
+    spec: rail({ vin: [3.135, 3.3, 3.465], ripple: 0.03, source: 'bus', vout: 5, load: [0.01, 0.15, 0.3] }),
+    accept: ['boost'],
+    why: BOOST_ONLY,
+  },
+  {
+    id: 'quiet-adapter12-5v-150mv-100ma',
+    family: 'quiet',
+    spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.15, source: 'adapter', vout: 5, load: [0.005, 0.05, 0.1], noise: 'precision' }),
+    accept: ['linear', 'buck+linear'],
+    why: 'common practice: a linear regulator rejects 60–80 dB of the 100–120 Hz ripple, leaving well under the 1 mV limit; 0.7 W is fine in a tab package',
+  },
+  {
+    id: 'quiet-adapter12-3v3-200mv-50ma',
+    family: 'quiet',
+    spec: rail({
+      vin: [11.4, 12, 12.6],
+      ripple: 0.2,
+      source: 'adapter',
+      vout: 3.3,
+      load: [0.005, 0.03, 0.05],
+      noise: 'sensor',
+      maxRipple: 100e-6,
+    }),
+    accept: ['linear'],
+    why: 'common practice: 100 µV from 200 mV of 100–120 Hz ripple needs 66 dB, which a bypassed adjustable regulator gives (about 80 dB, from memory); a switcher would add its own ripple',
+  },
+  {
+    id: 'quiet-24-15v-analog-100ma',
+    family: 'quiet',
+    spec: rail({ vin: [21.6, 24, 26.4], ripple: 0.2, source: 'bus', vout: 15, tol: 0.03, load: [0.005, 0.05, 0.1], noise: 'precision' }),
+    accept: ['linear', 'buck+linear'],
+    why: QUIET_LINEAR,
+  },
+  {
+    id: 'prec-5-3v3-0p5pct-adc-5ma',
+    family: 'precision',
+    spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 3.3, tol: 0.005, load: [0.0005, 0.002, 0.005], noise: 'precision' }),
+    accept: ['linear'],
+    why: 'common practice: an ADC reference rail; a precision series reference (±0.1 %, from memory) holds ±0.5 % at a few mA',
+  },
+  {
+    id: 'prec-12-3v3-1pct-adc-50ma',
+    family: 'precision',
+    spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'bus', vout: 3.3, tol: 0.01, load: [0.005, 0.02, 0.05], noise: 'precision' }),
+    accept: ['linear', 'buck+linear'],
+    why: 'common practice: a quiet ratiometric rail for an ADC and its sensors; a precision LDO with 0.1 % resistors, or one after a small buck',
+  },
+  {
+    id: 'prec-12-2v5-0p5pct-ref-10ma',
+    family: 'precision',
+    spec: rail({
+      vin: [11.4, 12, 12.6],
+      ripple: 0.1,
+      source: 'bus',
+      vout: 2.5,
+      tol: 0.005,
+      load: [0.001, 0.005, 0.01],
+      noise: 'precision',
+    }),
+    accept: ['linear'],
+    why: 'common practice: an ADC reference rail; a precision series reference (±0.1 %, from memory) holds ±0.5 % at 10 mA from 12 V',
+  },
+  {
+    id: 'hv-200-180v-5ma',
+    family: 'high-voltage',
+    spec: rail({ vin: [190, 200, 220], ripple: 2, source: 'bus', vout: 180, tol: 0.03, load: [0.0005, 0.003, 0.005] }),
+    accept: ['linear-predrop'],
+    why: PREDROP,
+  },
+  {
+    id: 'hv-400-15v-10ma-bias',
+    family: 'high-voltage',
+    spec: rail({ vin: [370, 400, 420], ripple: 5, source: 'bus', vout: 15, load: [0.001, 0.005, 0.01] }),
+    accept: ['buck', 'linear-predrop'],
+    why: 'common practice: a gate-drive bias from a 400 V link; an off-line buck, or a pre-drop transistor at 4 W where simplicity matters',
+  },
+  {
+    id: 'hv-mains120-24v-20ma',
+    family: 'high-voltage',
+    spec: rail({ vin: [140, 165, 190], ripple: 10, source: 'rectified', vout: 24, load: [0.001, 0.01, 0.02] }),
+    accept: ['buck', 'linear-predrop'],
+    why: 'common practice: rectified 120 V mains; an off-line buck, or a pre-drop transistor at 3 W',
+  },
+  {
+    id: 'light-48-5v-10ma',
+    family: 'light-load',
+    spec: rail({ vin: [40, 48, 57], ripple: 0.3, source: 'bus', vout: 5, load: [0.001, 0.005, 0.01] }),
+    accept: ['linear', 'linear-predrop', 'buck', 'shunt'],
+    why: 'common practice: a high-voltage LDO loses 0.5 W, a small buck less; a shunt reference with a 2 W feed resistor is the cheapest and is still built at 10 mA, though it wastes about 1 W',
   },
 ];
