@@ -3,7 +3,6 @@ import { serverReady } from './boot';
 import { auth } from '~/lib/platform/auth';
 import { isRole } from '~/lib/platform/auth/roles';
 import { config } from '~/lib/platform/config';
-import { limitSignInApi } from '~/lib/platform/rate-limit/sign-in-limit';
 import { apiError, internalError } from '~/lib/platform/http/responses';
 import { logFailure } from '~/lib/platform/log';
 import { expireLapsedQuotes } from '~/lib/quotes/expiry.server';
@@ -37,8 +36,6 @@ const hardening = defineMiddleware(async (context, next) => {
   return response;
 });
 
-const signInLimit = defineMiddleware((context, next) => limitSignInApi(context, next));
-
 const session = defineMiddleware(async (context, next) => {
   // No session cookie, no session: skip the lookup (anonymous pages, the public evaluate route).
   if (context.url.pathname.startsWith('/_astro/') || !(context.request.headers.get('cookie') ?? '').includes('session_token'))
@@ -53,4 +50,4 @@ const session = defineMiddleware(async (context, next) => {
   return next();
 });
 
-export const onRequest = sequence(hardening, signInLimit, session);
+export const onRequest = sequence(hardening, session);

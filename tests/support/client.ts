@@ -51,6 +51,13 @@ export class Visitor {
     });
   }
 
+  /** Follows a post/redirect/get answer to the page it names, as a browser does. */
+  async follow(response: Response): Promise<Response> {
+    const location = response.headers.get('location');
+    if (response.status !== 303 || !location) throw new Error(`Expected a 303 with a location, got ${response.status}: ${await response.text()}`);
+    return this.request(location);
+  }
+
   async signIn(email: string, password = DEMO_PASSWORD): Promise<this> {
     const response = await this.request('/api/auth/sign-in/email', { method: 'POST', json: { email, password } });
     if (response.status !== 200) throw new Error(`Sign-in of ${email} answered ${response.status}: ${await response.text()}`);

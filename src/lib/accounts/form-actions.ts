@@ -17,10 +17,3 @@ export function homeFor(role: string | null | undefined): string {
   if (role === 'client') return '/briefs';
   return '/';
 }
-
-export async function readForm(request: Request): Promise<Record<string, string>> {
-  const form = await request.formData();
-  const out: Record<string, string> = {};
-  for (const [key, value] of form) if (typeof value === 'string') out[key] = value;
-  return out;
-}

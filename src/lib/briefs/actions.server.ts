@@ -12,14 +12,9 @@ import type { BriefRow } from './briefs.server';
 import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
 import { brief, stateChange } from '../platform/db/schema';
-import type { FieldIssue } from '../platform/http/responses';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 import type { SignedInUser } from '../platform/http/guard';
 import { notifySubmitted } from './mail.server';
-
-export type ActionResult<T> =
-  | { ok: true; value: T }
-  | { ok: false; status: 400; error: string; issues: FieldIssue[] }
-  | { ok: false; status: 403 | 409; message: string };
 
 /** Full check of a spec at submission; issue paths are prefixed with `spec.` as the body has them. */
 async function validateForSubmission(spec: unknown) {
@@ -31,9 +26,9 @@ async function validateForSubmission(spec: unknown) {
   return { ok: true as const, spec: parsed.data, result };
 }
 
-export async function createBrief(owner: SignedInUser, body: CreateBrief): Promise<ActionResult<BriefRow>> {
+export async function createBrief(owner: SignedInUser, body: CreateBrief): Promise<Outcome<BriefRow>> {
   const checked = body.submit ? await validateForSubmission(body.spec) : null;
-  if (checked && !checked.ok) return { ok: false, status: 400, error: 'invalid_brief', issues: checked.issues };
+  if (checked && !checked.ok) return invalidInput('invalid_brief', checked.issues);
   const now = new Date();
   const row = await db.transaction(async (tx) => {
     const [created] = await tx
@@ -58,7 +53,7 @@ export async function createBrief(owner: SignedInUser, body: CreateBrief): Promi
     return created;
   });
   if (row.status === 'submitted') await notifySubmitted(row);
-  return { ok: true, value: row };
+  return succeed(row);
 }
 
 interface DraftEdit {
@@ -70,22 +65,18 @@ interface DraftEdit {
 }
 
 /** The owner edits a draft, submits it, or cancels a brief not yet taken into review. */
-export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: DraftEdit): Promise<ActionResult<BriefRow>> {
+export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: DraftEdit): Promise<Outcome<BriefRow>> {
   const changesContent = edit.title !== undefined || edit.spec !== undefined || edit.notes !== undefined || edit.submit === true;
   if (changesContent && row.status !== 'draft') {
-    return {
-      ok: false,
-      status: 409,
-      message: 'Only a draft can be changed. This brief has been submitted; write to the consultancy to change it.',
-    };
+    return refuse('wrong-state', 'Only a draft can be changed. This brief has been submitted; write to the consultancy to change it.');
   }
   if (edit.status === 'cancelled') {
     const moved = await db.transaction((tx) => moveBrief(tx, row, 'cancelled', 'owner', owner.id));
-    return moved.ok ? { ok: true, value: moved.row } : { ok: false, status: 409, message: moved.message };
+    return moved.ok ? succeed(moved.row) : refuse('wrong-state', moved.message);
   }
   const spec = edit.spec ?? (row.spec as Record<string, unknown>);
   const checked = edit.submit ? await validateForSubmission(spec) : null;
-  if (checked && !checked.ok) return { ok: false, status: 400, error: 'invalid_brief', issues: checked.issues };
+  if (checked && !checked.ok) return invalidInput('invalid_brief', checked.issues);
 
   const result = await db.transaction(async (tx) => {
     const [updated] = await tx
@@ -106,13 +97,13 @@ export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: Dra
       summary: summarise(checked.result),
     });
   });
-  if (!result.ok) return { ok: false, status: 409, message: result.message };
+  if (!result.ok) return refuse('wrong-state', result.message);
   if (result.row.status === 'submitted') await notifySubmitted(result.row);
-  return { ok: true, value: result.row };
+  return succeed(result.row);
 }
 
 /** An engineer or admin moves a brief along (into review, declined, in design…). */
-export async function moveAsStaff(staff: SignedInUser, row: BriefRow, to: BriefStatus, note: string): Promise<ActionResult<BriefRow>> {
+export async function moveAsStaff(staff: SignedInUser, row: BriefRow, to: BriefStatus, note: string): Promise<Outcome<BriefRow>> {
   const moved = await db.transaction((tx) => moveBrief(tx, row, to, 'staff', staff.id, note));
-  return moved.ok ? { ok: true, value: moved.row } : { ok: false, status: 409, message: moved.message };
+  return moved.ok ? succeed(moved.row) : refuse('wrong-state', moved.message);
 }

@@ -1,3 +1,4 @@
+import { notYours, succeed, type Outcome } from '../platform/outcome';
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { BriefSummary } from './summary';
 import { db } from '../platform/db';
@@ -120,6 +121,12 @@ export async function findBriefFor(viewer: SignedInUser, id: string): Promise<Br
   if (!row) return null;
   if (!isStaff(viewer) && row.ownerId !== viewer.id) return null;
   return row;
+}
+
+/** The same lookup as an outcome, for actions that continue with the brief. */
+export async function briefOf(viewer: SignedInUser, id: string | undefined): Promise<Outcome<BriefRow>> {
+  const row = await findBriefFor(viewer, id ?? '');
+  return row ? succeed(row) : notYours();
 }
 
 export async function briefDetail(row: BriefRow) {

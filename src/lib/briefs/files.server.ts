@@ -9,7 +9,8 @@ import type { Database } from '../platform/db/connect';
 import { brief, briefFile, type BriefStatus, type BriefFileRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { safeFileName } from '../platform/uploads/file-names';
-import { decideUploadType, MAX_UPLOAD_BYTES, MAX_UPLOAD_LABEL, type FileKind } from '../platform/uploads/file-policy';
+import { decideUploadType, MAX_UPLOAD_BYTES, uploadTooLarge, type FileKind } from '../platform/uploads/file-policy';
+import { invalidInput, notYours, refuse, succeed, type Outcome, type Refusal } from '../platform/outcome';
 import { newStorageKey, type UploadStore } from '../platform/uploads/store';
 
 export interface BriefFileDeps {
@@ -39,16 +40,9 @@ export interface SavedFile {
   loadSummary: LoadSummary | null;
 }
 
-export type Refusal =
-  | { reason: 'invalid'; error: 'invalid_upload' | 'invalid_load_log'; path: 'file'; message: string }
-  | { reason: 'too_large'; message: string }
-  | { reason: 'type_not_accepted'; message: string }
-  | { reason: 'not_found' }
-  | { reason: 'closed'; message: string };
-
-export type SaveOutcome = { ok: true; file: SavedFile } | ({ ok: false } & Refusal);
-
 export const closedMessage = (status: BriefStatus) => `This brief is ${status}; files can no longer be added to it.`;
+
+const unreadable = (code: 'invalid_upload' | 'invalid_load_log', message: string) => invalidInput(code, [{ path: 'file', message }]);
 
 /** Raised inside the transaction so that the row is rolled back and the bytes removed. */
 class BriefUnavailable extends Error {
@@ -57,20 +51,19 @@ class BriefUnavailable extends Error {
   }
 }
 
-export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadInput): Promise<SaveOutcome> {
+export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadInput): Promise<Outcome<SavedFile>> {
   const { bytes } = input;
-  if (bytes.length === 0) return { ok: false, reason: 'invalid', error: 'invalid_upload', path: 'file', message: 'The file is empty.' };
-  if (bytes.length > MAX_UPLOAD_BYTES)
-    return { ok: false, reason: 'too_large', message: `The file is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.` };
+  if (bytes.length === 0) return unreadable('invalid_upload', 'The file is empty.');
+  if (bytes.length > MAX_UPLOAD_BYTES) return uploadTooLarge();
 
   const verdict = await decideUploadType(bytes, input.name, input.kind);
-  if (!verdict.ok) return { ok: false, reason: 'type_not_accepted', message: verdict.message };
+  if (!verdict.ok) return refuse('unsupported-type', verdict.message, { code: 'file_type_not_accepted' });
   const { type } = verdict;
 
   let loadSummary: LoadSummary | null = null;
   if (type.kind === 'load-log') {
     const reduced = reduceLoadLog(type.text ?? '');
-    if (!reduced.ok) return { ok: false, reason: 'invalid', error: 'invalid_load_log', path: 'file', message: reduced.message };
+    if (!reduced.ok) return unreadable('invalid_load_log', reduced.message);
     loadSummary = reduced.summary;
   }
 
@@ -81,8 +74,8 @@ export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadI
     const row = await db.transaction(async (tx) => {
       // Read inside the (write-locked) transaction: a brief closed meanwhile takes no file.
       const [target] = await tx.select({ status: brief.status }).from(brief).where(eq(brief.id, input.briefId)).limit(1);
-      if (!target) throw new BriefUnavailable({ reason: 'not_found' });
-      if (isClosedBrief(target.status)) throw new BriefUnavailable({ reason: 'closed', message: closedMessage(target.status) });
+      if (!target) throw new BriefUnavailable(notYours());
+      if (isClosedBrief(target.status)) throw new BriefUnavailable(refuse('wrong-state', closedMessage(target.status)));
       const [inserted] = await tx
         .insert(briefFile)
         .values({
@@ -98,10 +91,10 @@ export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadI
         .returning({ id: briefFile.id });
       return inserted!;
     });
-    return { ok: true, file: { id: row.id, name, kind: type.kind, mimeType: type.mimeType, sizeBytes: bytes.length, loadSummary } };
+    return succeed({ id: row.id, name, kind: type.kind, mimeType: type.mimeType, sizeBytes: bytes.length, loadSummary });
   } catch (error) {
     await store.remove(storageKey);
-    if (error instanceof BriefUnavailable) return { ok: false, ...error.refusal };
+    if (error instanceof BriefUnavailable) return error.refusal;
     throw error;
   }
 }

@@ -1,4 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 import { catalogSchema, defaultCatalog, type Catalog } from '../engine/catalog';
 import { draftFromRows, rowsToCatalog } from './rows';
 import { db } from '../platform/db';
@@ -25,36 +27,45 @@ export function forgetCatalog(): void {
   cached = null;
 }
 
-export type CatalogEdit = { ok: true } | { ok: false; message: string };
+export const deviceClassEditSchema = z.object({
+  id: z.string().min(1, { error: 'Choose a device class.' }),
+  params: z.string().max(32_000, { error: 'Keep the parameters under 32 000 characters.' }),
+});
+
+export const CATALOG_SAVED =
+  'Saved. New evaluations use the edited figures within a few seconds; saved revisions keep the figures they were made with.';
 
 /**
  * An admin's edit of one device class: the whole catalog is rebuilt and checked
  * with the engine's schema before anything is written, so a bad figure never
  * reaches an evaluation.
  */
-export async function updateDeviceClass(id: string, paramsJson: string, adminId: string): Promise<CatalogEdit> {
+const notSaved = (message: string) => invalidInput('invalid_device_class', [{ path: 'params', message }]);
+
+export async function updateDeviceClass(edit: z.infer<typeof deviceClassEditSchema>, adminId: string): Promise<Outcome<void>> {
+  const { id } = edit;
   let params: unknown;
   try {
-    params = JSON.parse(paramsJson);
+    params = JSON.parse(edit.params);
   } catch {
-    return { ok: false, message: 'The parameters are not valid JSON; check commas, quotes and brackets.' };
+    return notSaved('The parameters are not valid JSON; check commas, quotes and brackets.');
   }
   const rows = await db
     .select()
     .from(deviceClass)
     .orderBy(sql`rowid`);
   const target = rows.find((row) => row.id === id);
-  if (!target) return { ok: false, message: 'That device class no longer exists.' };
+  if (!target) return refuse('not-found', 'That device class no longer exists.');
   const edited = rows.map((row) => (row.id === id ? { ...row, params } : row));
   const checked = catalogSchema.safeParse(draftFromRows(edited));
   if (!checked.success) {
     const issue = checked.error.issues[0];
-    return { ok: false, message: `Not saved: ${issue?.path.slice(2).join('.') || 'the parameters'} — ${issue?.message ?? 'invalid'}.` };
+    return notSaved(`Not saved: ${issue?.path.slice(2).join('.') || 'the parameters'} — ${issue?.message ?? 'invalid'}.`);
   }
   const name = typeof (params as { label?: unknown }).label === 'string' ? (params as { label: string }).label : target.name;
   await db.update(deviceClass).set({ params, name, updatedBy: adminId, updatedAt: new Date() }).where(eq(deviceClass.id, id));
   forgetCatalog();
-  return { ok: true };
+  return succeed(undefined);
 }
 
 export async function listDeviceClasses() {

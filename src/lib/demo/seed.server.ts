@@ -50,23 +50,23 @@ async function seedQuote(
     const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
     const paidAt = new Date(acceptedAt.getTime() + 600_000);
     steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
-    await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.quote.id));
+    await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.value.id));
     await tx.insert(payment).values({
-      quoteId: drafted.quote.id,
-      checkoutSessionId: `cs_demo_${drafted.quote.id.slice(0, 8)}`,
-      paymentIntentId: `pi_demo_${drafted.quote.id.slice(0, 8)}`,
-      amountMinor: drafted.quote.depositMinor,
-      currency: drafted.quote.currency,
+      quoteId: drafted.value.id,
+      checkoutSessionId: `cs_demo_${drafted.value.id.slice(0, 8)}`,
+      paymentIntentId: `pi_demo_${drafted.value.id.slice(0, 8)}`,
+      amountMinor: drafted.value.depositMinor,
+      currency: drafted.value.currency,
       status: 'paid',
       paidAt,
     });
   } else {
-    await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.quote.id));
+    await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.value.id));
   }
   for (const [from, to, actorId, at] of steps) {
     await tx
       .insert(stateChange)
-      .values({ subjectType: 'quote', subjectId: drafted.quote.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
+      .values({ subjectType: 'quote', subjectId: drafted.value.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
   }
 }
 

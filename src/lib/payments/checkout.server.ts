@@ -4,9 +4,10 @@ import { brief, payment, quote, type QuoteRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { appUrl } from '../platform/links';
 import { movePayment } from './moves.server';
-import { paymentProvider } from './provider.server';
+import { paymentProvider, PaymentsNotConfigured } from './provider.server';
+import { refuse, succeed, type Outcome } from '../platform/outcome';
 
-export type CheckoutOutcome = { ok: true; url: string } | { ok: false; status: 404 | 409; message: string };
+export type CheckoutOutcome = Outcome<{ url: string }>;
 
 /** The quote if this client owns it and it has been sent (drafts stay with the consultancy), else null → 404. */
 export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): Promise<QuoteRow | null> {
@@ -27,14 +28,23 @@ export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): 
  */
 export async function startDepositCheckout(viewer: SignedInUser, quoteId: string, now = new Date()): Promise<CheckoutOutcome> {
   const row = await findQuoteForPayer(viewer, quoteId);
-  if (!row) return { ok: false, status: 404, message: 'No such quote.' };
-  if (row.status === 'deposit-paid') return { ok: false, status: 409, message: 'The deposit for this quote is already paid.' };
-  if (row.status !== 'accepted')
-    return { ok: false, status: 409, message: 'Accept the quote first; the deposit is paid on an accepted quote.' };
-  if (row.validUntil.getTime() < now.getTime())
-    return { ok: false, status: 409, message: 'This quote has expired; ask the consultancy for a new one.' };
-  if (row.depositMinor <= 0) return { ok: false, status: 409, message: 'This quote asks for no deposit.' };
+  if (!row) return refuse('not-found', 'No such quote.');
+  if (row.status === 'deposit-paid') return refuse('wrong-state', 'The deposit for this quote is already paid.');
+  if (row.status !== 'accepted') return refuse('wrong-state', 'Accept the quote first; the deposit is paid on an accepted quote.');
+  if (row.validUntil.getTime() < now.getTime()) return refuse('wrong-state', 'This quote has expired; ask the consultancy for a new one.');
+  if (row.depositMinor <= 0) return refuse('wrong-state', 'This quote asks for no deposit.');
+  try {
+    return succeed({ url: await openDepositSession(viewer, row) });
+  } catch (error) {
+    if (error instanceof PaymentsNotConfigured) return refuse('unavailable', error.message, { code: 'payments_not_configured' });
+    return refuse('upstream-failed', 'The payment service did not answer; try again in a minute.', {
+      code: 'payment_provider_unavailable',
+    });
+  }
+}
 
+/** The hosted page's address: the open session of this quote if there is one, else a new session. */
+async function openDepositSession(viewer: SignedInUser, row: QuoteRow): Promise<string> {
   const provider = paymentProvider();
   const [pending] = await db
     .select()
@@ -43,7 +53,7 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
     .limit(1);
   if (pending) {
     const session = await provider.checkout.sessions.retrieve(pending.checkoutSessionId);
-    if (session.status === 'open' && session.url) return { ok: true, url: session.url };
+    if (session.status === 'open' && session.url) return session.url;
     await movePayment(db, pending, 'expired');
   }
 
@@ -83,5 +93,5 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
       status: 'pending',
     })
     .onConflictDoNothing();
-  return { ok: true, url: session.url };
+  return session.url;
 }

@@ -4,6 +4,7 @@
  * argument (free of the app's settings) so the demo seed drafts quotes the
  * same way the quote builder does.
  */
+import { refuse, succeed, type Outcome } from '../platform/outcome';
 import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
@@ -44,8 +45,6 @@ export async function writeLines(tx: DbOrTx, quoteId: string, lines: readonly Qu
   return totals;
 }
 
-export type DraftOutcome = { ok: true; quote: QuoteRow } | { ok: false; status: 404 | 409; message: string };
-
 export interface DraftRequest {
   revisionId: string;
   createdBy: string;
@@ -58,7 +57,7 @@ export interface DraftRequest {
  * year; the unique year+sequence index backs it), the quote, its lines and
  * the first state record.
  */
-export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<DraftOutcome> {
+export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Outcome<QuoteRow>> {
   const now = request.now ?? new Date();
   const quantity = request.quantity ?? 1;
   const [found] = await db
@@ -67,12 +66,10 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Dra
     .innerJoin(brief, eq(brief.id, designRevision.briefId))
     .where(eq(designRevision.id, request.revisionId))
     .limit(1);
-  if (!found) return { ok: false, status: 404, message: 'No such design revision.' };
-  if (!QUOTABLE_BRIEF_STATES.has(found.briefStatus)) {
-    return { ok: false, status: 409, message: `A brief that is ${found.briefStatus} cannot be quoted.` };
-  }
+  if (!found) return refuse('not-found', 'No such design revision.');
+  if (!QUOTABLE_BRIEF_STATES.has(found.briefStatus)) return refuse('wrong-state', `A brief that is ${found.briefStatus} cannot be quoted.`);
   const card = await readRateCard(db);
-  if (!card) return { ok: false, status: 409, message: 'There is no rate card yet; an admin sets one on the rate card page.' };
+  if (!card) return refuse('wrong-state', 'There is no rate card yet; an admin sets one on the rate card page.');
   const revision = found.revision;
   const facts = designFacts({
     topology: revision.topology,
@@ -80,7 +77,7 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Dra
     input: revision.input as RailSpec,
     result: revision.result as Evaluation,
   });
-  if (!facts) return { ok: false, status: 409, message: `Revision ${revision.number} holds no design for ${revision.topology}.` };
+  if (!facts) return refuse('wrong-state', `Revision ${revision.number} holds no design for ${revision.topology}.`);
   const lines = draftLines(card, facts, quantity);
   const year = now.getUTCFullYear();
 
@@ -122,7 +119,7 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Dra
     });
     return priced ?? inserted;
   });
-  return { ok: true, quote: created };
+  return succeed(created);
 }
 
 /** A quote's lines in their order. */

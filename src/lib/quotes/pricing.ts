@@ -95,6 +95,12 @@ export const createQuoteSchema = z
   })
   .strict();
 
+/** The quote builder's start form: the same fields, typed into text boxes. */
+export const createQuoteFormSchema = z.object({
+  revisionId: createQuoteSchema.shape.revisionId,
+  quantity: z.coerce.number({ error: 'Enter a whole number of units.' }).pipe(units),
+});
+
 const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Give the date as YYYY-MM-DD.');
 
 export const patchQuoteSchema = z

@@ -9,7 +9,7 @@ import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
 import { brief, quote } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
-import { apiError, invalid, json, type FieldIssue } from '../platform/http/responses';
+import { invalidInput, notYours, refuse, succeed, type Outcome } from '../platform/outcome';
 import { appUrl } from '../platform/links';
 import { mailer } from '../platform/mail/mailer';
 import { renderQuotePdf } from './render.server';
@@ -18,20 +18,8 @@ import { quoteMail } from './mail.server';
 import { loadQuoteView, type QuoteView } from './view.server';
 import { DAY_MS } from '../platform/time';
 
-export type QuoteResult<T> =
-  | { ok: true; value: T }
-  | { ok: false; status: 400; error: string; issues: FieldIssue[] }
-  | { ok: false; status: 404 | 409 | 502; message: string };
-
-const wrong = (message: string): QuoteResult<never> => ({ ok: false, status: 409, message });
-
-/** The one translation of an action's outcome into an API answer. */
-export function answer<T>(result: QuoteResult<T>, present: (value: T) => unknown, status = 200): Response {
-  if (result.ok) return json(present(result.value), status);
-  if (result.status === 400) return invalid(result.error, result.issues);
-  const error = result.status === 409 ? 'wrong_state' : result.status === 404 ? 'not_found' : 'mail_failed';
-  return apiError(result.status, error, { message: result.message });
-}
+const wrong = (message: string) => refuse('wrong-state', message);
+const badDate = (message: string) => invalidInput('invalid_quote', [{ path: 'validUntil', message }]);
 
 export const quotePageUrl = (id: string) => appUrl(`/quotes/${id}`);
 
@@ -47,6 +35,16 @@ export async function findQuoteFor(viewer: SignedInUser, id: string, { ownDrafts
   if (isStaff(viewer)) return view;
   if (view.brief.ownerId !== viewer.id) return null;
   return view.quote.status !== 'draft' || ownDrafts ? view : null;
+}
+
+/** The same lookup as an outcome, for actions that continue with the quote. */
+export async function quoteOf(
+  viewer: SignedInUser,
+  id: string | undefined,
+  options: { ownDrafts?: boolean } = {},
+): Promise<Outcome<QuoteView>> {
+  const view = await findQuoteFor(viewer, id ?? '', options);
+  return view ? succeed(view) : notYours();
 }
 
 export async function quotesOfBrief(briefId: string): Promise<QuoteRow[]> {
@@ -103,11 +101,11 @@ export function quoteJson(view: QuoteView) {
   };
 }
 
-export async function createQuote(staff: SignedInUser, revisionId: string, quantity: number): Promise<QuoteResult<QuoteView>> {
+export async function createQuote(staff: SignedInUser, revisionId: string, quantity: number): Promise<Outcome<QuoteView>> {
   const drafted = await draftQuote(db, { revisionId, createdBy: staff.id, quantity });
   if (!drafted.ok) return drafted;
-  const view = await loadQuoteView(db, drafted.quote.id);
-  return view ? { ok: true, value: view } : { ok: false, status: 404, message: 'The quote vanished after drafting; try again.' };
+  const view = await loadQuoteView(db, drafted.value.id);
+  return view ? succeed(view) : refuse('not-found', 'The quote vanished after drafting; try again.');
 }
 
 /** A send that has not finished in this long is taken to have died (a crashed process); it may be retried. */
@@ -115,29 +113,16 @@ const SEND_CLAIM_MS = 120_000;
 const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.sendingSince, new Date(now.getTime() - SEND_CLAIM_MS)));
 
 /** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
-export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<QuoteResult<QuoteView>> {
+export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.quote.status !== 'draft')
     return wrong(`Only a draft can be edited; this quote is ${view.status}. Draft a new quote to change it.`);
   let validUntil: Date | undefined;
   if (patch.validUntil !== undefined) {
     const day = new Date(`${patch.validUntil}T00:00:00Z`);
-    if (Number.isNaN(day.getTime()))
-      return { ok: false, status: 400, error: 'invalid_quote', issues: [{ path: 'validUntil', message: 'That is not a calendar date.' }] };
+    if (Number.isNaN(day.getTime())) return badDate('That is not a calendar date.');
     validUntil = validUntilFrom(day, 0);
-    if (validUntil.getTime() < now.getTime())
-      return {
-        ok: false,
-        status: 400,
-        error: 'invalid_quote',
-        issues: [{ path: 'validUntil', message: 'The validity date must be today or later.' }],
-      };
-    if (validUntil.getTime() - now.getTime() > 366 * DAY_MS)
-      return {
-        ok: false,
-        status: 400,
-        error: 'invalid_quote',
-        issues: [{ path: 'validUntil', message: 'Keep the validity within a year.' }],
-      };
+    if (validUntil.getTime() < now.getTime()) return badDate('The validity date must be today or later.');
+    if (validUntil.getTime() - now.getTime() > 366 * DAY_MS) return badDate('Keep the validity within a year.');
   }
   const taxRateBp = patch.taxRateBp ?? view.quote.taxRateBp;
   const depositBp = patch.depositBp ?? view.quote.depositBp;
@@ -176,9 +161,9 @@ export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new 
   return reload(updated.id);
 }
 
-async function reload(id: string): Promise<QuoteResult<QuoteView>> {
+async function reload(id: string): Promise<Outcome<QuoteView>> {
   const view = await loadQuoteView(db, id);
-  return view ? { ok: true, value: view } : { ok: false, status: 404, message: 'The quote no longer exists.' };
+  return view ? succeed(view) : refuse('not-found', 'The quote no longer exists.');
 }
 
 export function quotePdf(view: QuoteView): Promise<Buffer> {
@@ -190,7 +175,7 @@ export function quotePdf(view: QuoteView): Promise<Buffer> {
  * has taken the message marks the quote sent and the brief quoted. A failed
  * mail leaves the draft as it was (and logged) so sending can be retried.
  */
-export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new Date()): Promise<QuoteResult<QuoteView>> {
+export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.quote.status !== 'draft') return wrong(`This quote is ${view.status} already; only a draft is sent.`);
   if (view.brief.status !== 'in-review')
     return wrong(`The brief is ${view.brief.status}; take it into review before sending a quote for it.`);
@@ -214,11 +199,11 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
     .catch((err: unknown) => ({ ok: false as const, error: err instanceof Error ? err.message : String(err) }));
   if (!mailed.ok) {
     await db.update(quote).set({ sendingSince: null }).where(eq(quote.id, view.quote.id));
-    return {
-      ok: false,
-      status: 502,
-      message: `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.`,
-    };
+    return refuse(
+      'upstream-failed',
+      `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.`,
+      { code: 'mail_failed' },
+    );
   }
 
   const marked = await db.transaction(async (tx) => {
@@ -236,8 +221,8 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
 class Refused extends Error {}
 
 /** The client accepts a sent quote that is still valid; the brief moves to accepted with it. */
-export async function acceptQuote(view: QuoteView, client: SignedInUser, now = new Date()): Promise<QuoteResult<QuoteView>> {
-  if (view.brief.ownerId !== client.id) return { ok: false, status: 404, message: 'Nothing here, or it is not yours.' };
+export async function acceptQuote(view: QuoteView, client: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
+  if (view.brief.ownerId !== client.id) return refuse('not-found', 'Nothing here, or it is not yours.');
   if (view.quote.status === 'accepted' || view.quote.status === 'deposit-paid')
     return wrong(`Quote ${view.quote.number} is accepted already.`);
   if (view.quote.status === 'draft') return wrong('This quote has not been sent yet; it can be accepted once it reaches you.');

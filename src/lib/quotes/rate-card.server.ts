@@ -3,11 +3,12 @@
  * Takes the database as an argument so the seed and scripts use it too.
  */
 import { eq } from 'drizzle-orm';
+import { z } from 'zod';
 import { topologyIds } from '../engine/types';
 import { minorDigits, parseDecimal, rateCardSchema, type RateCard } from './pricing';
 import type { DbOrTx } from '../platform/db/connect';
 import { rateCard } from '../platform/db/schema';
-import type { FieldIssue } from '../platform/http/responses';
+import { invalidInput, succeed, type FieldIssue, type Outcome } from '../platform/outcome';
 import { zodIssues } from '../platform/http/validation';
 
 const RATE_CARD_ID = 1;
@@ -43,7 +44,7 @@ export const complexityField = (driver: string) => `complexity.${driver}`;
  * as decimals) read into a card in minor units and basis points, with an
  * issue per field a person can correct.
  */
-export function rateCardFromForm(form: Record<string, string>): { ok: true; card: RateCard } | { ok: false; issues: FieldIssue[] } {
+export function rateCardFromForm(form: Record<string, string>): Outcome<RateCard> {
   const issues: FieldIssue[] = [];
   const currency = (form.currency ?? '').trim().toUpperCase();
   let digits = 2;
@@ -83,11 +84,28 @@ export function rateCardFromForm(form: Record<string, string>): { ok: true; card
     depositBp: percent('deposit'),
     validityDays: read('validityDays', 0, 'a number of days'),
   };
-  if (issues.length) return { ok: false, issues };
+  if (issues.length) return refused(issues);
   const parsed = rateCardSchema.safeParse(draft);
-  if (!parsed.success) return { ok: false, issues: zodIssues(parsed.error).map((i) => ({ ...i, path: formFieldOf(i.path) })) };
-  return { ok: true, card: parsed.data };
+  if (!parsed.success) return refused(zodIssues(parsed.error).map((i) => ({ ...i, path: formFieldOf(i.path) })));
+  return succeed(parsed.data);
 }
+
+const refused = (issues: FieldIssue[]) => ({
+  ...invalidInput('invalid_rate_card', issues),
+  message: 'Some figures need correcting; see the fields marked below.',
+});
+
+/** An admin's save from the rate card page: every figure read and checked before anything is written. */
+export async function saveRateCardForm(db: DbOrTx, form: Record<string, string>, updatedBy: string): Promise<Outcome<void>> {
+  const read = rateCardFromForm(form);
+  if (!read.ok) return read;
+  await saveRateCard(db, read.value, updatedBy);
+  return succeed(undefined);
+}
+
+export const RATE_CARD_SAVED = 'Rate card saved. New quotes are priced with it; quotes already drafted keep their prices.';
+/** The form's fields arrive as strings, one per figure; `rateCardFromForm` reads each. */
+export const rateCardFormSchema = z.record(z.string(), z.string());
 
 /** Maps a schema path back to the form field that holds it, so the error lands beside the input. */
 function formFieldOf(path: string): string {

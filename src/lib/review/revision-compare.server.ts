@@ -3,14 +3,14 @@ import { z } from 'zod';
 import type { Evaluation } from '../engine';
 import { chosenOption, figureRows, inputChanges } from './compare';
 import { findRevisionWithBrief, partsCurrency } from './exports.server';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 
 export const compareQuerySchema = z.object({
   a: z.string({ error: 'Name the first revision (a).' }).min(1, { error: 'Name the first revision (a).' }).max(64),
   b: z.string({ error: 'Name the second revision (b).' }).min(1, { error: 'Name the second revision (b).' }).max(64),
 });
 
-export type CompareOutcome =
-  { ok: true; value: Awaited<ReturnType<typeof buildComparison>> } | { ok: false; status: 400 | 404; message: string };
+export type CompareOutcome = Outcome<Awaited<ReturnType<typeof buildComparison>>>;
 
 async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>, b: typeof a) {
   const currency = await partsCurrency();
@@ -39,7 +39,8 @@ async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevi
 
 export async function compareRevisions(aId: string, bId: string): Promise<CompareOutcome> {
   const [a, b] = await Promise.all([findRevisionWithBrief(aId), findRevisionWithBrief(bId)]);
-  if (!a || !b) return { ok: false, status: 404, message: 'One of the revisions does not exist.' };
-  if (a.revision.briefId !== b.revision.briefId) return { ok: false, status: 400, message: 'Compare two revisions of the same brief.' };
-  return { ok: true, value: await buildComparison(a, b) };
+  if (!a || !b) return refuse('not-found', 'One of the revisions does not exist.');
+  if (a.revision.briefId !== b.revision.briefId)
+    return invalidInput('invalid_query', [{ path: 'b', message: 'Compare two revisions of the same brief.' }]);
+  return succeed(await buildComparison(a, b));
 }

@@ -6,7 +6,7 @@ import type { BriefRow } from '~/lib/briefs/index.server';
 import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
 import { designRevision, user, type RevisionRow } from '../platform/db/schema';
-import type { ActionResult } from '~/lib/briefs/index.server';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 
 export type { RevisionRow };
 
@@ -17,14 +17,13 @@ const DESIGNABLE = new Set(['submitted', 'in-review', 'quoted', 'accepted', 'dep
  * Re-runs the engine with the engineer's choices and stores inputs and the
  * full result, so a revision reads the same forever, whatever the catalog becomes.
  */
-export async function saveRevision(row: BriefRow, authorId: string, request: RevisionRequest): Promise<ActionResult<RevisionRow>> {
-  if (!DESIGNABLE.has(row.status)) return { ok: false, status: 409, message: `A brief that is ${row.status} takes no new revisions.` };
+export async function saveRevision(row: BriefRow, authorId: string, request: RevisionRequest): Promise<Outcome<RevisionRow>> {
+  if (!DESIGNABLE.has(row.status)) return refuse('wrong-state', `A brief that is ${row.status} takes no new revisions.`);
   const parsed = briefWithChoices(row.spec, request);
-  if (!parsed.success) return { ok: false, status: 400, error: 'invalid_revision', issues: railSpecIssues(parsed.error) };
+  if (!parsed.success) return invalidInput('invalid_revision', railSpecIssues(parsed.error));
   const result: Evaluation = evaluate(parsed.data, await currentCatalog());
   const topology = request.topology ?? result.recommended ?? result.options[0]?.topology;
-  if (!topology)
-    return { ok: false, status: 400, error: 'invalid_revision', issues: [{ path: 'topology', message: 'No option to choose.' }] };
+  if (!topology) return invalidInput('invalid_revision', [{ path: 'topology', message: 'No option to choose.' }]);
 
   const saved = await db.transaction(async (tx) => {
     const [last] = await tx
@@ -48,7 +47,7 @@ export async function saveRevision(row: BriefRow, authorId: string, request: Rev
     if (!inserted) throw new Error('Insert returned no row');
     return inserted;
   });
-  return { ok: true, value: saved };
+  return succeed(saved);
 }
 
 /** A brief's revisions, newest first, each with the requirement it was designed to where that departs from the brief. */

@@ -103,8 +103,8 @@ describe('accounts', () => {
 
     const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
     const changed = await admin.form('/admin/users', { userId: user.id, role: 'engineer' });
-    expect(changed.status).toBe(200);
-    expect(await changed.text()).toContain('Role changed to Engineer.');
+    expect(changed.status).toBe(303);
+    expect(await (await admin.follow(changed)).text()).toContain('Role changed to Engineer.');
     expect((await person.request('/desk')).status).toBe(200);
   });
 

@@ -54,8 +54,8 @@ describe('device catalog (admin)', () => {
         id: 'thermal',
         params: JSON.stringify({ ...before.params, tjMarginK: before.params.tjMarginK + 20 }),
       });
-      expect(saved.status).toBe(200);
-      expect(await saved.text()).toContain('Saved.');
+      expect(saved.status).toBe(303);
+      expect(await (await admin.follow(saved)).text()).toContain('Saved.');
       const sinkAfter = await evaluateMargin();
       expect(sinkBefore).not.toBeNull();
       expect(sinkAfter).not.toBeNull();

@@ -48,6 +48,35 @@ describe('security on every answer', () => {
     expect((await visitor.request('/admin/users')).status).toBe(200);
   });
 
+  // A chunked body declares no length: the limit must hold while the bytes arrive.
+  test.each([
+    ['/api/v1/payments/webhook', 'application/json'],
+    ['/api/auth/sign-in/email', 'application/json'],
+    ['/api/v1/evaluate', 'application/json'],
+    ['/api/v1/account', 'application/json'],
+    ['/sign-in', 'application/x-www-form-urlencoded'],
+  ])('a 300 MB chunked body to %s is cut off at the limit with 413', async (path, type) => {
+    const chunk = new Uint8Array(64 * 1024).fill(0x20);
+    let sent = 0;
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (sent >= 300 * 1024 * 1024) return controller.close();
+        sent += chunk.byteLength;
+        controller.enqueue(chunk);
+      },
+    });
+    const response = await fetch(new URL(path, baseUrl), {
+      method: 'POST',
+      headers: { 'content-type': type, origin: baseUrl, 'stripe-signature': 't=1,v1=00' },
+      body,
+      duplex: 'half',
+    } as RequestInit);
+    expect(response.status).toBe(413);
+    await response.body?.cancel();
+    // The server stopped reading long before the end (the rest was never buffered).
+    expect(sent).toBeLessThan(32 * 1024 * 1024);
+  });
+
   test('sign-in is rate-limited per account and address', async () => {
     const visitor = new Visitor(baseUrl);
     const email = `limited-${Date.now()}@example.test`;

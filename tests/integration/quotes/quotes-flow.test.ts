@@ -253,8 +253,8 @@ describe('editing, sending and accepting', () => {
     expect(page).toContain('Payment opens once the quote is accepted.');
     expect(page).toContain(`Accept quote ${quote.number}`);
     const posted = await rail.client.form(`/quotes/${quote.id}`, {});
-    expect(posted.status).toBe(200);
-    expect(await posted.text()).toContain(`quote ${quote.number} is accepted`);
+    expect(posted.status).toBe(303);
+    expect(await (await rail.client.follow(posted)).text()).toContain(`quote ${quote.number} is accepted`);
     expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('accepted');
   });
 });

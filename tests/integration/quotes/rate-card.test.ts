@@ -36,8 +36,8 @@ describe('the rate card', () => {
         '/admin/rate-card',
         form({ hourlyRate: '120.50', 'hours.buck': '10.25', 'complexity.perRevision': '2', taxRate: '7.5' }),
       );
-      expect(saved.status).toBe(200);
-      expect(await saved.text()).toContain('Rate card saved');
+      expect(saved.status).toBe(303);
+      expect(await (await admin.follow(saved)).text()).toContain('Rate card saved');
 
       const after = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
       expect(after.lines[0]).toMatchObject({ quantityMilli: 10_250, unitPriceMinor: 12_050, totalMinor: 123_513 }); // 10.25 h × €120.50 = €1 235.125 → €1 235.13
@@ -46,7 +46,7 @@ describe('the rate card', () => {
       const kept = await (await rail.engineer.request(`/api/v1/quotes/${before.id}`)).json();
       expect(kept.lines[0].unitPriceMinor).toBe(11_500);
     } finally {
-      expect((await admin.form('/admin/rate-card', form())).status).toBe(200);
+      expect((await admin.form('/admin/rate-card', form())).status).toBe(303);
     }
   });
 

@@ -48,10 +48,10 @@ describe('saving a brief file', () => {
     );
     expect(outcome).toMatchObject({
       ok: true,
-      file: { name: 'passwd.pdf', kind: 'datasheet', mimeType: 'application/pdf', sizeBytes: pdf.length, loadSummary: null },
+      value: { name: 'passwd.pdf', kind: 'datasheet', mimeType: 'application/pdf', sizeBytes: pdf.length, loadSummary: null },
     });
     if (!outcome.ok) return;
-    const [row] = await db.select().from(briefFile).where(eq(briefFile.id, outcome.file.id));
+    const [row] = await db.select().from(briefFile).where(eq(briefFile.id, outcome.value.id));
     expect(row).toMatchObject({ briefId: open, uploadedBy: owner.id, originalName: 'passwd.pdf' });
     expect(stored()).toHaveLength(before + 1);
     expect(await store.get(row!.storageKey)).toEqual(pdf);
@@ -65,10 +65,10 @@ describe('saving a brief file', () => {
     expect(outcome.ok).toBe(true);
     if (!outcome.ok) return;
     // Trapezoids 0.2 + 0.2 + 0.2 = 0.6 A·s over 4 s (see load-log.test.ts for the arithmetic).
-    expect(outcome.file.kind).toBe('load-log');
-    expect(outcome.file.loadSummary?.iTypA).toBeCloseTo(0.15, 12);
-    const [row] = await db.select().from(briefFile).where(eq(briefFile.id, outcome.file.id));
-    expect(row?.loadSummary).toEqual(outcome.file.loadSummary);
+    expect(outcome.value.kind).toBe('load-log');
+    expect(outcome.value.loadSummary?.iTypA).toBeCloseTo(0.15, 12);
+    const [row] = await db.select().from(briefFile).where(eq(briefFile.id, outcome.value.id));
+    expect(row?.loadSummary).toEqual(outcome.value.loadSummary);
   });
 
   test.each([
@@ -76,15 +76,15 @@ describe('saving a brief file', () => {
       'an empty file',
       new Uint8Array(),
       'datasheet' as const,
-      { reason: 'invalid', error: 'invalid_upload', message: 'The file is empty.' },
+      { kind: 'invalid', code: 'invalid_upload', message: 'The file is empty.' },
     ],
-    ['a bad load log', new TextEncoder().encode('0,0.1\n'), 'load-log' as const, { reason: 'invalid', error: 'invalid_load_log' }],
-    ['a file over 10 MB', new Uint8Array(10 * 1024 * 1024 + 1), 'other' as const, { reason: 'too_large' }],
+    ['a bad load log', new TextEncoder().encode('0,0.1\n'), 'load-log' as const, { kind: 'invalid', code: 'invalid_load_log' }],
+    ['a file over 10 MB', new Uint8Array(10 * 1024 * 1024 + 1), 'other' as const, { kind: 'too-large', code: 'file_too_large' }],
     [
       'a program',
       new Uint8Array([0x4d, 0x5a, 0x90, 0, 3, 0, 0, 0, 4, 0, 0, 0, 0xff, 0xff, 0, 0]),
       'datasheet' as const,
-      { reason: 'type_not_accepted' },
+      { kind: 'unsupported-type', code: 'file_type_not_accepted' },
     ],
   ])('%s is refused before anything is written', async (_case, bytes, kind, refusal) => {
     const [files, rows] = [stored().length, (await rowsOf(open)).length];
@@ -100,7 +100,7 @@ describe('saving a brief file', () => {
       { db, store },
       { briefId: closed, uploaderId: owner.id, kind: 'datasheet', name: 'late.pdf', bytes: pdf },
     );
-    expect(outcome).toEqual({ ok: false, reason: 'closed', message: 'This brief is cancelled; files can no longer be added to it.' });
+    expect(outcome).toEqual({ ok: false, kind: 'wrong-state', message: 'This brief is cancelled; files can no longer be added to it.' });
     expect(stored()).toHaveLength(files);
     expect(await rowsOf(closed)).toHaveLength(0);
   });
@@ -111,7 +111,7 @@ describe('saving a brief file', () => {
       { db, store },
       { briefId: 'gone', uploaderId: owner.id, kind: 'datasheet', name: 'a.pdf', bytes: pdf },
     );
-    expect(outcome).toEqual({ ok: false, reason: 'not_found' });
+    expect(outcome).toMatchObject({ ok: false, kind: 'not-found' });
     expect(stored()).toHaveLength(files);
   });
 
@@ -149,9 +149,9 @@ describe('finding a brief file', () => {
   test('its brief’s owner and staff find it; another client does not', async () => {
     const outcome = await saveBriefFile({ db, store }, { briefId: open, uploaderId: owner.id, kind: 'other', name: 'a.pdf', bytes: pdf });
     if (!outcome.ok) throw new Error('setup upload refused');
-    expect((await findBriefFileFor(db, owner, outcome.file.id))?.id).toBe(outcome.file.id);
-    expect((await findBriefFileFor(db, engineer, outcome.file.id))?.id).toBe(outcome.file.id);
-    expect(await findBriefFileFor(db, stranger, outcome.file.id)).toBeNull();
+    expect((await findBriefFileFor(db, owner, outcome.value.id))?.id).toBe(outcome.value.id);
+    expect((await findBriefFileFor(db, engineer, outcome.value.id))?.id).toBe(outcome.value.id);
+    expect(await findBriefFileFor(db, stranger, outcome.value.id)).toBeNull();
     expect(await findBriefFileFor(db, engineer, 'no-such-file')).toBeNull();
   });
 });

@@ -1,9 +1,7 @@
 /** JSON answers in the one shape every API route uses (docs/api.md). */
+import type { FieldIssue, Refusal, RefusalKind } from '../outcome';
 
-export interface FieldIssue {
-  path: string;
-  message: string;
-}
+export type { FieldIssue };
 
 const JSON_HEADERS = { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' };
 
@@ -34,6 +32,43 @@ export const forbidden = () => apiError(403, 'forbidden', { message: 'Your role 
 export const notFound = () => apiError(404, 'not_found', { message: 'Nothing here, or it is not yours.' });
 export const invalid = (error: string, issues: FieldIssue[]) => apiError(400, error, { issues });
 export const conflict = (message: string) => apiError(409, 'wrong_state', { message });
+const STATUS_OF: Record<RefusalKind, number> = {
+  invalid: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  'not-found': 404,
+  'wrong-state': 409,
+  'too-large': 413,
+  'unsupported-type': 415,
+  'rate-limited': 429,
+  'upstream-failed': 502,
+  unavailable: 503,
+};
+
+const CODE_OF: Record<RefusalKind, string> = {
+  invalid: 'invalid_body',
+  unauthenticated: 'not_signed_in',
+  forbidden: 'forbidden',
+  'not-found': 'not_found',
+  'wrong-state': 'wrong_state',
+  'too-large': 'body_too_large',
+  'unsupported-type': 'unsupported_media_type',
+  'rate-limited': 'rate_limited',
+  'upstream-failed': 'upstream_failed',
+  unavailable: 'unavailable',
+};
+
+export const statusOf = (refusal: Pick<Refusal, 'kind'>): number => STATUS_OF[refusal.kind];
+
+/** The one translation of a domain refusal into a JSON answer. */
+export function refusalResponse(refusal: Refusal): Response {
+  const extra: Record<string, unknown> = { message: refusal.message };
+  if (refusal.issues) extra.issues = refusal.issues;
+  const headers: Record<string, string> =
+    refusal.retryAfterSeconds === undefined ? {} : { 'retry-after': String(refusal.retryAfterSeconds) };
+  return apiError(statusOf(refusal), refusal.code ?? CODE_OF[refusal.kind], extra, headers);
+}
+
 export const tooMany = (retryAfterSeconds: number) =>
   apiError(
     429,
@@ -41,25 +76,3 @@ export const tooMany = (retryAfterSeconds: number) =>
     { message: `Too many attempts. Try again in ${retryAfterSeconds} s.` },
     { 'retry-after': String(retryAfterSeconds) },
   );
-
-/** Reads a JSON body with a size cap; answers 400/413 itself so routes never see a half-read body. */
-export async function readJson(
-  request: Request,
-  maxBytes = 64 * 1024,
-): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
-  const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > maxBytes)
-    return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
-  const type = request.headers.get('content-type') ?? '';
-  if (!type.toLowerCase().includes('application/json')) {
-    return { ok: false, response: apiError(415, 'unsupported_media_type', { message: 'Send the body as application/json.' }) };
-  }
-  const text = await request.text();
-  if (Buffer.byteLength(text) > maxBytes)
-    return { ok: false, response: apiError(413, 'body_too_large', { message: `The body may be at most ${maxBytes} bytes.` }) };
-  try {
-    return { ok: true, value: JSON.parse(text) };
-  } catch {
-    return { ok: false, response: invalid('malformed_json', [{ path: '', message: 'The body is not valid JSON.' }]) };
-  }
-}

@@ -1,7 +1,8 @@
 import type { APIContext } from 'astro';
 import { config } from '../config';
 import { db } from '../db';
-import { tooMany } from '../http/responses';
+import { readLimitedBytes } from '../http/body';
+import { refusalResponse, tooMany } from '../http/responses';
 import { consumeRate, peekRate, RATE_RULES, type RateVerdict } from './limiter';
 
 /**
@@ -29,26 +30,37 @@ export async function recordFailedSignIn(address: string, email: string): Promis
   await consumeRate(db, k.account, RATE_RULES.signInPerAccount);
 }
 
-async function jsonEmail(request: Request): Promise<string> {
+function jsonEmail(body: Uint8Array): string {
   try {
-    const body: unknown = await request.clone().json();
-    const email = (body as { email?: unknown } | null)?.email;
+    const parsed: unknown = JSON.parse(new TextDecoder().decode(body));
+    const email = (parsed as { email?: unknown } | null)?.email;
     return typeof email === 'string' ? email : '';
   } catch {
     return '';
   }
 }
 
-/** better-auth's own sign-in route, with the limit checked before and a miss counted after. */
-export async function limitSignInApi(
+/** The most a better-auth request body may hold (sign-in, sign-up, reset: a few hundred bytes). */
+const AUTH_BODY_LIMIT = 16 * 1024;
+
+/**
+ * better-auth's own routes, behind our byte limit (read while streaming, so a
+ * huge chunked body is cut off) and, for the e-mail sign-in, the limit on misses.
+ */
+export async function guardAuthRoute(
   context: Pick<APIContext, 'request' | 'url' | 'clientAddress'>,
-  next: () => Promise<Response>,
+  handler: (request: Request) => Promise<Response>,
 ): Promise<Response> {
-  if (context.request.method !== 'POST' || context.url.pathname !== '/api/auth/sign-in/email') return next();
-  const email = await jsonEmail(context.request);
+  const { request } = context;
+  if (request.method === 'GET' || request.method === 'HEAD') return handler(request);
+  const body = await readLimitedBytes(request, AUTH_BODY_LIMIT);
+  if (!body.ok) return refusalResponse(body);
+  const replay = new Request(request.url, { method: request.method, headers: request.headers, body: body.value });
+  if (context.url.pathname !== '/api/auth/sign-in/email') return handler(replay);
+  const email = jsonEmail(body.value);
   const verdict = await signInAllowed(context.clientAddress, email);
   if (!verdict.allowed) return tooMany(verdict.retryAfterSeconds);
-  const response = await next();
+  const response = await handler(replay);
   if (response.status === 401) await recordFailedSignIn(context.clientAddress, email);
   return response;
 }

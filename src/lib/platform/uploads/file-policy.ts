@@ -4,6 +4,7 @@
  * magic numbers; text has none, so it is accepted only as a load log or a
  * .csv/.txt file, and only when it really is UTF-8 text.
  */
+import { refuse } from '../outcome';
 import { fileTypeFromBuffer } from 'file-type';
 import type { FILE_KINDS } from '../db/schema';
 
@@ -11,6 +12,9 @@ export type FileKind = (typeof FILE_KINDS)[number];
 
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
 export const MAX_UPLOAD_LABEL = '10 MB';
+
+export const uploadTooLarge = () =>
+  refuse('too-large', `The file is larger than ${MAX_UPLOAD_LABEL}, the most a file may be.`, { code: 'file_too_large' });
 
 interface Accepted {
   label: string;

@@ -2,15 +2,16 @@ import type { APIRoute } from 'astro';
 import { currentCatalog } from '~/lib/catalog/catalog.server';
 import { railSpecIssues, railSpecSchema } from '~/lib/engine';
 import { EngineBusyError, evaluateToJson } from '~/lib/platform/engine-pool';
-import { apiError, invalid, jsonText, readJson, tooMany } from '~/lib/platform/http/responses';
+import { readJsonBody } from '~/lib/platform/http/body';
+import { apiError, invalid, jsonText, refusalResponse, tooMany } from '~/lib/platform/http/responses';
 import { limitEvaluate } from '~/lib/platform/rate-limit/evaluate-limit';
 
 /** Ranks the options for a brief; anyone may call it (rate-limited), nothing is stored. */
 export const POST: APIRoute = async (context) => {
   const limited = await limitEvaluate(context.clientAddress);
   if (!limited.allowed) return tooMany(limited.retryAfterSeconds);
-  const body = await readJson(context.request, 32 * 1024);
-  if (!body.ok) return body.response;
+  const body = await readJsonBody(context.request, 32 * 1024);
+  if (!body.ok) return refusalResponse(body);
   const parsed = railSpecSchema.safeParse(body.value);
   if (!parsed.success) return invalid('invalid_brief', railSpecIssues(parsed.error));
   try {

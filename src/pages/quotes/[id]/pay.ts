@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { startDepositCheckout } from '~/lib/payments/checkout.server';
-import { PaymentsNotConfigured } from '~/lib/payments/provider.server';
+import type { RefusalKind } from '~/lib/platform/outcome';
 
 /**
  * The quote page's "pay deposit" form: opens the hosted checkout and sends the
@@ -11,12 +11,11 @@ export const POST: APIRoute = async (context) => {
   const back = (problem: string) => context.redirect(`/quotes/${id}?payment=${problem}`, 303);
   const user = context.locals.user;
   if (!user) return context.redirect(`/sign-in?next=${encodeURIComponent(`/quotes/${id}`)}`, 303);
-  try {
-    const outcome = await startDepositCheckout(user, id);
-    if (outcome.ok) return context.redirect(outcome.url, 303);
-    if (outcome.status === 404) return context.rewrite('/404');
-    return back('refused');
-  } catch (error) {
-    return back(error instanceof PaymentsNotConfigured ? 'unavailable' : 'provider-down');
-  }
+  const outcome = await startDepositCheckout(user, id);
+  if (outcome.ok) return context.redirect(outcome.value.url, 303);
+  if (outcome.kind === 'not-found') return context.rewrite('/404');
+  return back(PROBLEM_OF[outcome.kind] ?? 'refused');
 };
+
+/** The quote page words each problem (payments/deposit-state); anything else is a plain refusal. */
+const PROBLEM_OF: Partial<Record<RefusalKind, string>> = { unavailable: 'unavailable', 'upstream-failed': 'provider-down' };

@@ -1,11 +1,11 @@
 import type { APIRoute } from 'astro';
 import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/briefs/requests';
-import { editOwnBrief, moveAsStaff, type ActionResult } from '~/lib/briefs/actions.server';
+import { editOwnBrief, moveAsStaff } from '~/lib/briefs/actions.server';
 import { briefDetailJson, briefJson } from '~/lib/briefs/json';
-import { briefDetail, findBriefFor, type BriefRow } from '~/lib/briefs/briefs.server';
-import { ANY_ROLE, guardApi, isStaff } from '~/lib/platform/http/guard';
-import { apiError, invalid, json, notFound, readJson } from '~/lib/platform/http/responses';
-import { zodIssues } from '~/lib/platform/http/validation';
+import { briefDetail, briefOf, findBriefFor } from '~/lib/briefs/briefs.server';
+import { ANY_ROLE, guardApi, isStaff, STAFF } from '~/lib/platform/http/guard';
+import { apiMutation } from '~/lib/platform/http/mutation';
+import { json, notFound } from '~/lib/platform/http/responses';
 import { quotesOfBrief } from '~/lib/quotes/quotes.server';
 import { listRevisions } from '~/lib/review/revisions.server';
 
@@ -49,27 +49,25 @@ export const GET: APIRoute = async (context) => {
   });
 };
 
-function answer(result: ActionResult<BriefRow>): Response {
-  if (result.ok) return json(briefJson(result.value));
-  if (result.status === 400) return invalid(result.error, result.issues);
-  return apiError(result.status, result.status === 409 ? 'wrong_state' : 'forbidden', { message: result.message });
-}
+const staffMove = apiMutation({
+  access: STAFF,
+  body: staffBriefPatchSchema,
+  run: async ({ user, body, context }) => {
+    const found = await briefOf(user, context.params.id);
+    return found.ok ? moveAsStaff(user, found.value, body.status, body.note) : found;
+  },
+  answer: (row) => json(briefJson(row)),
+});
+
+const ownerEdit = apiMutation({
+  access: ['client'],
+  body: clientBriefPatchSchema,
+  run: async ({ user, body, context }) => {
+    const found = await briefOf(user, context.params.id);
+    return found.ok ? editOwnBrief(user, found.value, body) : found;
+  },
+  answer: (row) => json(briefJson(row)),
+});
 
 /** Owners edit their drafts (or submit / cancel); staff move the state. */
-export const PATCH: APIRoute = async (context) => {
-  const body = await readJson(context.request);
-  if (!body.ok) return body.response;
-  const gate = guardApi(context, ANY_ROLE);
-  if (!gate.ok) return gate.response;
-  const row = await findBriefFor(gate.user, context.params.id ?? '');
-  if (!row) return notFound();
-
-  if (isStaff(gate.user)) {
-    const parsed = staffBriefPatchSchema.safeParse(body.value);
-    if (!parsed.success) return invalid('invalid_body', zodIssues(parsed.error));
-    return answer(await moveAsStaff(gate.user, row, parsed.data.status, parsed.data.note));
-  }
-  const parsed = clientBriefPatchSchema.safeParse(body.value);
-  if (!parsed.success) return invalid('invalid_body', zodIssues(parsed.error));
-  return answer(await editOwnBrief(gate.user, row, parsed.data));
-};
+export const PATCH: APIRoute = (context) => (isStaff(context.locals.user) ? staffMove(context) : ownerEdit(context));

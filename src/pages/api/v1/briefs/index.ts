@@ -4,8 +4,9 @@ import { createBrief } from '~/lib/briefs/actions.server';
 import { briefJson } from '~/lib/briefs/json';
 import { briefListJson, listBriefs } from '~/lib/briefs/briefs.server';
 import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
-import { apiError, invalid, json } from '~/lib/platform/http/responses';
-import { parseBody, zodIssues } from '~/lib/platform/http/validation';
+import { apiMutation } from '~/lib/platform/http/mutation';
+import { invalid, json } from '~/lib/platform/http/responses';
+import { zodIssues } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const query = briefListQuerySchema.safeParse(Object.fromEntries(context.url.searchParams));
@@ -17,15 +18,9 @@ export const GET: APIRoute = async (context) => {
   return json(briefListJson(list));
 };
 
-export const POST: APIRoute = async (context) => {
-  const body = await parseBody(context.request, createBriefSchema);
-  if (!body.ok) return body.response;
-  const gate = guardApi(context, ['client']);
-  if (!gate.ok) return gate.response;
-  const created = await createBrief(gate.user, body.value);
-  if (!created.ok)
-    return created.status === 400
-      ? invalid(created.error, created.issues)
-      : apiError(created.status, 'wrong_state', { message: created.message });
-  return json(briefJson(created.value), 201, { location: `/api/v1/briefs/${created.value.id}` });
-};
+export const POST = apiMutation({
+  access: ['client'],
+  body: createBriefSchema,
+  run: ({ user, body }) => createBrief(user, body),
+  answer: (row) => json(briefJson(row), 201, { location: `/api/v1/briefs/${row.id}` }),
+});

@@ -1,5 +1,6 @@
 import type { APIRoute } from 'astro';
-import { apiError, json } from '~/lib/platform/http/responses';
+import { readLimitedText } from '~/lib/platform/http/body';
+import { apiError, json, refusalResponse } from '~/lib/platform/http/responses';
 import { paymentProvider, PaymentsNotConfigured, webhookSecret } from '~/lib/payments/provider.server';
 import { applyPaymentEvent } from '~/lib/payments/webhook.server';
 
@@ -9,8 +10,9 @@ const MAX_EVENT_BYTES = 256 * 1024;
 export const POST: APIRoute = async ({ request }) => {
   const signature = request.headers.get('stripe-signature');
   if (!signature) return apiError(400, 'missing_signature', { message: 'The Stripe-Signature header is missing.' });
-  if (Number(request.headers.get('content-length') ?? 0) > MAX_EVENT_BYTES) return apiError(413, 'body_too_large');
-  const body = await request.text();
+  const read = await readLimitedText(request, MAX_EVENT_BYTES);
+  if (!read.ok) return refusalResponse(read);
+  const body = read.value;
   let event;
   try {
     event = paymentProvider().webhooks.constructEvent(body, signature, webhookSecret());

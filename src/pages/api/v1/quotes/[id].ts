@@ -2,8 +2,8 @@ import type { APIRoute } from 'astro';
 import { patchQuoteSchema } from '~/lib/quotes/pricing';
 import { ANY_ROLE, guardApi, STAFF } from '~/lib/platform/http/guard';
 import { json, notFound } from '~/lib/platform/http/responses';
-import { answer, findQuoteFor, quoteJson, updateDraft } from '~/lib/quotes/quotes.server';
-import { parseBody } from '~/lib/platform/http/validation';
+import { findQuoteFor, quoteJson, quoteOf, updateDraft } from '~/lib/quotes/quotes.server';
+import { apiMutation } from '~/lib/platform/http/mutation';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
@@ -13,12 +13,13 @@ export const GET: APIRoute = async (context) => {
 };
 
 /** Edits a draft's lines, units, rates, validity and terms; the server prices it. */
-export const PATCH: APIRoute = async (context) => {
-  const body = await parseBody(context.request, patchQuoteSchema, 'invalid_quote');
-  if (!body.ok) return body.response;
-  const gate = guardApi(context, STAFF);
-  if (!gate.ok) return gate.response;
-  const view = await findQuoteFor(gate.user, context.params.id ?? '');
-  if (!view) return notFound();
-  return answer(await updateDraft(view, body.value), quoteJson);
-};
+export const PATCH = apiMutation({
+  access: STAFF,
+  body: patchQuoteSchema,
+  invalidCode: 'invalid_quote',
+  run: async ({ user, body, context }) => {
+    const found = await quoteOf(user, context.params.id);
+    return found.ok ? updateDraft(found.value, body) : found;
+  },
+  answer: (view) => json(quoteJson(view)),
+});

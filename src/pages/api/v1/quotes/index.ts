@@ -1,14 +1,14 @@
-import type { APIRoute } from 'astro';
 import { createQuoteSchema } from '~/lib/quotes/pricing';
-import { guardApi, STAFF } from '~/lib/platform/http/guard';
-import { answer, createQuote, quoteJson } from '~/lib/quotes/quotes.server';
-import { parseBody } from '~/lib/platform/http/validation';
+import { STAFF } from '~/lib/platform/http/guard';
+import { apiMutation } from '~/lib/platform/http/mutation';
+import { json } from '~/lib/platform/http/responses';
+import { createQuote, quoteJson } from '~/lib/quotes/quotes.server';
 
 /** Drafts a priced quote from a design revision. */
-export const POST: APIRoute = async (context) => {
-  const body = await parseBody(context.request, createQuoteSchema, 'invalid_quote');
-  if (!body.ok) return body.response;
-  const gate = guardApi(context, STAFF);
-  if (!gate.ok) return gate.response;
-  return answer(await createQuote(gate.user, body.value.revisionId, body.value.quantity), quoteJson, 201);
-};
+export const POST = apiMutation({
+  access: STAFF,
+  body: createQuoteSchema,
+  invalidCode: 'invalid_quote',
+  run: ({ user, body }) => createQuote(user, body.revisionId, body.quantity),
+  answer: (view) => json(quoteJson(view), 201),
+});

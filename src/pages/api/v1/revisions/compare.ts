@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
-import { apiError, invalid, json } from '~/lib/platform/http/responses';
+import { invalid, json, refusalResponse } from '~/lib/platform/http/responses';
 import { compareQuerySchema, compareRevisions } from '~/lib/review/revision-compare.server';
 import { zodIssues } from '~/lib/platform/http/validation';
 
@@ -11,10 +11,5 @@ export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, STAFF);
   if (!gate.ok) return gate.response;
   const compared = await compareRevisions(query.data.a, query.data.b);
-  if (!compared.ok) {
-    return compared.status === 404
-      ? apiError(404, 'not_found', { message: compared.message })
-      : invalid('invalid_query', [{ path: 'b', message: compared.message }]);
-  }
-  return json(compared.value);
+  return compared.ok ? json(compared.value) : refusalResponse(compared);
 };

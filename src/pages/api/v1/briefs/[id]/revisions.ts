@@ -1,10 +1,10 @@
 import type { APIRoute } from 'astro';
 import { revisionRequestSchema } from '~/lib/review/requests';
-import { findBriefFor } from '~/lib/briefs/briefs.server';
+import { briefOf, findBriefFor } from '~/lib/briefs/briefs.server';
+import { apiMutation } from '~/lib/platform/http/mutation';
 import { guardApi, STAFF } from '~/lib/platform/http/guard';
-import { apiError, invalid, json, notFound } from '~/lib/platform/http/responses';
+import { json, notFound } from '~/lib/platform/http/responses';
 import { listRevisions, revisionJson, saveRevision } from '~/lib/review/revisions.server';
-import { parseBody } from '~/lib/platform/http/validation';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, STAFF);
@@ -15,15 +15,13 @@ export const GET: APIRoute = async (context) => {
   return json({ items: items.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) });
 };
 
-export const POST: APIRoute = async (context) => {
-  const body = await parseBody(context.request, revisionRequestSchema, 'invalid_revision');
-  if (!body.ok) return body.response;
-  const gate = guardApi(context, STAFF);
-  if (!gate.ok) return gate.response;
-  const row = await findBriefFor(gate.user, context.params.id ?? '');
-  if (!row) return notFound();
-  const saved = await saveRevision(row, gate.user.id, body.value);
-  if (!saved.ok)
-    return saved.status === 400 ? invalid(saved.error, saved.issues) : apiError(saved.status, 'wrong_state', { message: saved.message });
-  return json(revisionJson(saved.value), 201);
-};
+export const POST = apiMutation({
+  access: STAFF,
+  body: revisionRequestSchema,
+  invalidCode: 'invalid_revision',
+  run: async ({ user, body, context }) => {
+    const found = await briefOf(user, context.params.id);
+    return found.ok ? saveRevision(found.value, user.id, body) : found;
+  },
+  answer: (revision) => json(revisionJson(revision), 201),
+});

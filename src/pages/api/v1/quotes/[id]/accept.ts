@@ -1,13 +1,14 @@
-import type { APIRoute } from 'astro';
-import { guardApi } from '~/lib/platform/http/guard';
-import { notFound } from '~/lib/platform/http/responses';
-import { acceptQuote, answer, findQuoteFor, quoteJson } from '~/lib/quotes/quotes.server';
+import { apiMutation } from '~/lib/platform/http/mutation';
+import { json } from '~/lib/platform/http/responses';
+import { acceptQuote, quoteJson, quoteOf } from '~/lib/quotes/quotes.server';
 
 /** The owner client accepts a sent, unexpired quote; staff read quotes but do not accept for clients. */
-export const POST: APIRoute = async (context) => {
-  const gate = guardApi(context, ['client']);
-  if (!gate.ok) return gate.response;
-  const view = await findQuoteFor(gate.user, context.params.id ?? '', { ownDrafts: true });
-  if (!view) return notFound();
-  return answer(await acceptQuote(view, gate.user), quoteJson);
-};
+export const POST = apiMutation({
+  access: ['client'],
+  run: async ({ user, context }) => {
+    // Their own unsent quote answers "not sent yet" (409) rather than 404, without showing it.
+    const found = await quoteOf(user, context.params.id, { ownDrafts: true });
+    return found.ok ? acceptQuote(found.value, user) : found;
+  },
+  answer: (view) => json(quoteJson(view)),
+});
