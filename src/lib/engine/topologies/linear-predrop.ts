@@ -5,7 +5,7 @@
 // no foldback can, a fuse clears the short inside the device's pulsed SOA.
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import type { LinearRegulatorClass, PassDeviceClass } from '../catalog.ts';
+import type { LinearRegulatorClass, PassDeviceClass, ZenerSeries } from '../catalog.ts';
 import { chooseCapacitor } from '../capacitors.ts';
 import { ES1_DC_LIMIT_V } from '../cautions.ts';
 import {
@@ -27,7 +27,7 @@ import { airflowFactor, assessThermal, type ThermalPart } from '../thermal.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
 import { formatSi } from '../units.ts';
-import { dynamicImpedance, seriesFor, seriesForPower, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
+import { dynamicImpedance, seriesFor, seriesForPower, zenerModel, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
 import { COLD_AMBIENT_C } from '../tolerance.ts';
 import {
   ROOM_C,
@@ -320,16 +320,27 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const dzRef = refs.next('D');
   const rsRef = refs.next('R');
   const forcedVz = forced(ctx, dzRef) ?? (spec.overrides.standoffV !== undefined ? zenerVoltage(spec.overrides.standoffV) : undefined);
-  // Bias current through Rb: the pass device's base current with margin plus the Zener's knee.
   const ibNormal = npn ? iPathMax / gain : 0;
   const seriesOf = (v: number) => {
     const offered = seriesFor(catalog, v);
     return offered.length > 0 ? offered : catalog.zenerSeries.slice(0, 1);
   };
-  const biasFor = (v: number) => Math.max(BIAS_MIN_A, 1.5 * ibNormal + Math.min(...seriesOf(v).map((z) => z.kneeCurrentA)));
   // With no headroom (a blocker below) Rb is sized from the highest input so the figures stay sane.
   const rbDropFor = (v: number, vOut: number) =>
     ctx.vInTrough - (vOut + v) > 0 ? ctx.vInTrough - (vOut + v) : Math.max(1, vMax - vOut - v);
+  // Bias current through Rb: the pass device's base current with margin plus the Zener's knee. Not
+  // its test current: what the Zener passes flows into the output, which at the highest input
+  // cannot absorb tens of milliamperes, and Rb would burn watts from a high input. So the Zener
+  // runs below its test current and its voltage is taken there, on the same line Vz(I) = Vk + rz·I
+  // as the shunt's Zener (Sedra & Smith, 7th ed., §4.4.1 — from memory).
+  const biasFor = (v: number) => Math.max(BIAS_MIN_A, 1.5 * ibNormal + Math.min(...seriesOf(v).map((z) => z.kneeCurrentA)));
+  // The Zener's voltage at current iz: rated at or above its test current, else on its line.
+  const zenerAt = (series: ZenerSeries, v: number, iz: number) => {
+    const line = zenerModel(series, v);
+    return iz >= line.iTest ? v : line.vKnee + line.rz * Math.max(0, iz);
+  };
+  // How far below its rated voltage the Zener sits at the trough, full load (the least bias it gets).
+  const sagFor = (v: number) => v - zenerAt(seriesOf(v)[0]!, v, biasFor(v) - ibNormal);
   const coldC = Math.min(COLD_AMBIENT_C, ctx.ambientC);
   // The sense transistor takes the whole bias current when it limits: at the trough (knee) and at the highest input (short).
   const senseAt = (iBias: number, iBiasShort: number): SenseCorners => ({
@@ -337,14 +348,17 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     vbeCold: senseVbe(coldC, iBiasShort),
     ibCold: iBiasShort / SENSE_BETA_MIN,
   });
-  const senseFor = (v: number) => senseAt(biasFor(v), (biasFor(v) * Math.max(0, vMax - v)) / rbDropFor(v, vTarget));
+  // Rb as it will be snapped, with the output at its target.
+  const rbFor = (v: number, vOut: number) => snap(atLeast(rbDropFor(v, vOut) / biasFor(v), 1), 'E24', 'down');
+  const senseFor = (v: number) => senseAt(rbDropFor(v, vTarget) / rbFor(v, vTarget), Math.max(0, vMax - v) / rbFor(v, vTarget));
   // Standoff and sense resistor together: the regulator keeps dropout + margin after the sense
   // resistor's drop, and that drop depends on the foldback the standoff allows.
-  let vz = forcedVz ?? zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + SENSE_VBE_25C_V);
+  const standoffNeed = (drop: number, v: number) => zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + drop + sagFor(v));
+  let vz = forcedVz ?? standoffNeed(SENSE_VBE_25C_V, zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + SENSE_VBE_25C_V));
   let prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc, senseFor(vz));
   let rs = forced(ctx, rsRef) ?? snap(atLeast(prot.foldback.rs, 1e-3), 'E24', 'nearest');
   for (let pass = 0; pass < 3 && forcedVz === undefined; pass += 1) {
-    const next = zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + iPathMax * rs);
+    const next = standoffNeed(iPathMax * rs, vz);
     if (next === vz) break;
     vz = next;
     prot = sizeProtection(ctx, dev, thermal, iPathMax, vTarget, vz - vc, senseFor(vz));
@@ -354,13 +368,14 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   trace.select(
     'predrop.vz',
     'Standoff Zener voltage (E24 at or above the need)',
-    'Vz ≥ Vbe + Vdropout + margin + Ipath,max·Rs',
+    'Vz ≥ Vbe + Vdropout + margin + Ipath,max·Rs + sag',
     {
       Vbe: [vc, 'V'],
       Vdropout: [cls.dropoutV, 'V'],
       margin: [HEADROOM_MARGIN_V, 'V'],
       'Ipath,max': [iPathMax, 'A'],
       Rs: [rs, 'Ω'],
+      sag: [sagFor(vz), 'V'],
     },
     vz,
     'V',
@@ -400,12 +415,6 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const vOut = stage.vOut;
   const iDivActual = stage.divider?.iDivider ?? 0;
   const iAdj = cls.iAdjTypA;
-  const regHeadroom = vs - iPathMax * rs;
-  if (regHeadroom < cls.dropoutV) {
-    issues.push(
-      blocker('standoff', `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load; it needs ${cls.dropoutV} V.`),
-    );
-  }
   if (cls.vDiffMaxV !== null && vs > cls.vDiffMaxV) {
     issues.push(blocker('standoff', `The standoff puts ${vs.toFixed(1)} V across the regulator; it allows ${cls.vDiffMaxV} V.`));
   }
@@ -415,7 +424,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   if (seriesFor(catalog, vz).length === 0) issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
   const zSeries = seriesOf(vz);
   const iBias = biasFor(vz);
-  const rb = forced(ctx, rbRef) ?? snap(atLeast(rbDropFor(vz, vOut) / iBias, 1), 'E24', 'down');
+  const rb = forced(ctx, rbRef) ?? rbFor(vz, vOut);
   trace.select(
     'predrop.rb',
     'Bias resistor, snapped down to E24',
@@ -553,6 +562,43 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const izFault = Math.max(0, (vMax - vz) / rb - iFault / gain);
   const pzWorst = vz * Math.max(zNormal.iz, izFault);
   const zener = seriesForPower(zSeries, pzWorst) ?? catalog.zenerSeries[0]!;
+  // The Zener's least current (the trough, full load, least gain) and the voltage it holds there.
+  const izMin = trace.add(
+    'predrop.iz',
+    'Standoff Zener current at the trough, full load',
+    'Iz = max(0, max(0, vInTrough − (Vout + Vz))/Rb − Ib)',
+    { vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Rb: [rb, 'Ω'], Ib: [ibNormal, 'A'] },
+    Math.max(0, Math.max(0, ctx.vInTrough - (vOut + vz)) / rb - ibNormal),
+    'A',
+  );
+  const zLine = zenerModel(zener, vz);
+  const vzWork =
+    izMin >= zLine.iTest
+      ? trace.select(
+          'predrop.vz.work',
+          'Standoff Zener voltage at its least current (at or above its test current: rated)',
+          'Vz = Vz,rated at Iz ≥ Izt',
+          { 'Vz,rated': [vz, 'V'], Iz: [izMin, 'A'], Izt: [zLine.iTest, 'A'] },
+          vz,
+          'V',
+        )
+      : trace.add(
+          'predrop.vz.work',
+          'Standoff Zener voltage at its least current, below its test current (linear model through Vz at Izt)',
+          'Vz = Vk + rz·Iz',
+          { Vk: [zLine.vKnee, 'V'], rz: [zLine.rz, 'Ω'], Iz: [izMin, 'A'] },
+          zenerAt(zener, vz, izMin),
+          'V',
+        );
+  const regHeadroom = vzWork - vc - iPathMax * rs;
+  if (regHeadroom < cls.dropoutV) {
+    issues.push(
+      blocker(
+        'standoff',
+        `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}); it needs ${cls.dropoutV} V.`,
+      ),
+    );
+  }
   trace.add(
     'predrop.pz',
     'Standoff Zener worst power (output shorted)',
@@ -602,7 +648,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     makePart({
       ref: dzRef,
       role: 'standoff-zener',
-      part: zener.label,
+      part: `${zener.label}, biased at ${formatSi(izMin, 'A', 2)} (test current ${formatSi(zLine.iTest, 'A', 2)}), holding ${formatSi(vzWork, 'V', 3)}`,
       value: vz,
       unit: 'V',
       ratingW: zener.powerW,

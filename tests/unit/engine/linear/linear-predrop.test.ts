@@ -9,6 +9,8 @@ import { railSpecSchema } from '~/lib/engine/rail-spec.ts';
 import { designFoldback, foldbackCurrent, minShortCurrent, senseVbe } from '~/lib/engine/topologies/foldback.ts';
 import { INSULATING_PAD_CW, designLinearPredrop } from '~/lib/engine/topologies/linear-predrop.ts';
 import { fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from '~/lib/engine/topologies/soa.ts';
+import { formatSi } from '~/lib/engine/units.ts';
+import { zenerModel } from '~/lib/engine/zeners.ts';
 
 describe('foldback limit (hand calculation)', () => {
   test('150 mA at a 310 V sense node folding to 30 mA at 10 V: k = 0.6/(0.03·300/0.12 − 0.6 − 10), Rs = k·300/0.12', () => {
@@ -154,5 +156,54 @@ describe.each([
     const rs = option.components.find((c) => c.role === 'sense-resistor')!.value!;
     const lineSwing = cls.lineRegulationPerV * v * rs * (iMax - iMax / 5);
     expect(option.vOutRange.min).toBeGreaterThanOrEqual(v * 0.98 - lineSwing);
+  });
+});
+
+// The standoff Zener runs on a few milliamperes, far below its test current (a quarter of its rated
+// power over Vz, from memory of data sheets): its voltage there is taken on the line through Vz at
+// Izt with slope rz (Sedra & Smith, Microelectronic Circuits, 7th ed., §4.4.1 — from memory).
+describe.each(['npn', 'nmos'] as const)('standoff Zener and its bias resistor, %s pass device', (kind) => {
+  const spec = railSpecSchema.parse({
+    input: { vMin: 380, vNom: 400, vMax: 420, source: 'rectified' },
+    output: { v: 300, tolerance: 0.05, iMin: 0.005, iTyp: 0.01, iMax: 0.02 },
+    noise: { class: 'digital' },
+    thermal: { ambientMaxC: 40, airflow: 'still-air' },
+    overrides: { passDevice: kind },
+  });
+  const ctx = makeContext(spec, defaultCatalog);
+  const option = assemble(designLinearPredrop(ctx), ctx, 7);
+  const trace = (id: string) => option.trace.find((t) => t.id === id)!;
+  const dz = option.components.find((c) => c.role === 'standoff-zener')!;
+  const rb = option.components.find((c) => c.role === 'bias-resistor')!;
+  const series = defaultCatalog.zenerSeries.find((s) => dz.part.startsWith(`${s.label},`))!;
+
+  test('its least current is Rb’s at the trough less the base current, and its voltage there sits on the line below the rating', () => {
+    const iz = trace('predrop.iz').result.value;
+    const vOut = trace('predrop.iz').inputs['Vout']!.value;
+    const dev = defaultCatalog.passDevices.find((d) =>
+      option.components.find((c) => c.role === 'pass-transistor')!.part.startsWith(d.label),
+    )!;
+    const ib = kind === 'npn' ? trace('predrop.vz').inputs['Ipath,max']!.value / dev.gainMin : 0;
+    expect(iz).toBeCloseTo((380 - (vOut + dz.value!)) / rb.value! - ib, 12);
+    const line = zenerModel(series, dz.value!);
+    expect(iz).toBeLessThan(line.iTest);
+    const vWork = trace('predrop.vz.work').result.value;
+    expect(vWork).toBeCloseTo(line.vKnee + line.rz * iz, 12);
+    expect(vWork).toBeLessThan(dz.value!);
+    // The standoff is chosen with that sag: the regulator keeps its dropout at full load.
+    const rs = option.components.find((c) => c.role === 'sense-resistor')!.value!;
+    const reg = defaultCatalog.linearRegulators.find((c) =>
+      option.components.find((x) => x.role === 'regulator')!.part.startsWith(c.label),
+    )!;
+    expect(vWork - dev.vControlV - trace('predrop.vz').inputs['Ipath,max']!.value * rs).toBeGreaterThanOrEqual(reg.dropoutV);
+    expect(dz.part).toContain(`holding ${formatSi(vWork, 'V', 3)}`);
+  });
+
+  test('Rb is rated for its short-circuit stress: twice (vInMax − Vz)²/Rb and twice vInMax − Vz over its string', () => {
+    const vRb = 420 - dz.value!;
+    const n = rb.quantity;
+    expect(rb.ratingW! * n).toBeGreaterThanOrEqual((2 * vRb * vRb) / rb.value!);
+    expect(rb.ratingV! * n).toBeGreaterThanOrEqual(2 * vRb);
+    expect(option.dissipation.parts.find((p) => p.ref === rb.ref)!.faultW).toBeCloseTo((vRb * vRb) / rb.value!, 9);
   });
 });
