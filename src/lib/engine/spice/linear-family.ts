@@ -2,9 +2,9 @@
 // pre-drop, built from the design's part list (snapped values) and the catalog's device figures.
 import type { Catalog } from '../catalog.ts';
 import type { Option } from '../types.ts';
-import { byRole, num, partOf } from './netlist-text.ts';
+import { byRole, catalogEntry, num, partOf } from './netlist-text.ts';
 import { passDeviceLines, senseTransistorLines } from './pass-device.ts';
-import { regulatorLines } from './regulator.ts';
+import { regulatorInputCurrent, regulatorLines, regulatorParts, setpointOf } from './regulator.ts';
 import { shuntReferenceLines } from './shunt-reference.ts';
 import { zenerModel } from './zener.ts';
 
@@ -30,7 +30,12 @@ export function shunt(option: Option, corner: SpiceCorner, catalog: Catalog): st
 
 export function linear(option: Option, corner: SpiceCorner, catalog: Catalog): string[] {
   const reg = partOf(option, 'regulator');
-  return [`V1 in 0 DC ${num(corner.vIn)}`, ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut), load(corner), '.op'];
+  return [
+    `V1 in 0 DC ${num(corner.vIn)}`,
+    ...regulatorLines(option, reg.ref, 'in', catalog, corner.iOut, { vIn: corner.vIn, shorted: corner.short === true }),
+    load(corner),
+    '.op',
+  ];
 }
 
 /**
@@ -68,6 +73,21 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
   const limiter = currentLimiter(option);
   const rb = byRole(option, 'bias-resistor').find((c) => !limiter.divider.includes(c));
   if (!rb) throw new Error('The linear-predrop design has no bias resistor for its pass device; its netlist cannot be written.');
+  // Starting point: the Zener in breakdown, the pass device at its control voltage, the regulator
+  // at its setpoint; with the output shorted, the regulator saturated at its dropout carrying the
+  // limiter's 27 °C short-circuit current.
+  const parts = regulatorParts(option, reg.ref, catalog);
+  const vc = catalogEntry(catalog.passDevices, q.part)?.vControlV ?? 0;
+  const shorted = corner.short === true;
+  const iShort = option.trace.find((t) => t.id === 'predrop.ifault.room')?.result.value ?? parts.cls.iLimitA;
+  const i = shorted ? iShort : regulatorInputCurrent(parts, corner.iOut);
+  const vOut = shorted ? 0 : setpointOf(parts);
+  // A low input leaves the base short of the standoff: it cannot rise above the input.
+  const base = Math.min(vOut + (dz.value ?? 0), corner.vIn);
+  const rin = shorted ? parts.cls.dropoutV : base - vc - i * (rs.value ?? 0);
+  const e = rin + i * (rs.value ?? 0);
+  // A corner where the regulator would sit below its dropout has no such state to start from.
+  const consistent = shorted || rin >= vOut + parts.cls.dropoutV;
   return [
     `V1 in 0 DC ${num(corner.vIn)}`,
     ...passDeviceLines(q, 'in', 'b', 'e', catalog),
@@ -76,7 +96,8 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
     zenerModel(`DZ${dz.ref}`, dz, catalog),
     `R${rs.ref} e rin ${num(rs.value ?? 0)}`,
     ...limiter.lines,
-    ...regulatorLines(option, reg.ref, 'rin', catalog, corner.iOut),
+    ...regulatorLines(option, reg.ref, 'rin', catalog, corner.iOut, consistent ? { vIn: rin, shorted, iShort } : undefined),
+    ...(consistent ? [`.nodeset V(b)=${num(e + vc)} V(e)=${num(e)} V(rin)=${num(rin)}`] : []),
     load(corner),
     '.op',
   ];

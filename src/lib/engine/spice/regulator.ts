@@ -56,6 +56,8 @@ interface PassStage {
   lines: string[];
   /** The amplifier output that carries `i` through the pass device: where a transient starts it. */
   driveAt(i: number): number;
+  /** The pass stage's internal nodes carrying `i` from an input at vIn to an output at vOut, as `.nodeset` terms. */
+  guess(i: number, vIn: number, vOut: number): string[];
 }
 
 /** Darlington follower from `inNode` to `out`, driven from `<u>_d`; the amplifier's output stage stops `headroom` below the input. */
@@ -64,6 +66,7 @@ function darlington(u: string, inNode: string, cls: LinearRegulatorClass): PassS
   // The class's dropout at its rated current is the amplifier's headroom plus the two Vbe.
   const headroom = Math.max(0, cls.dropoutV - VBE_PASS_V - VBE_DRIVER_V);
   const above = `min(max(V(${u}_a), 0), max(V(${inNode}) - V(out) - ${num(headroom)}, 0))`;
+  const driveAt = (i: number) => VBE_PASS_V + VBE_DRIVER_V + 2 * VT * Math.log(Math.max(i, 1e-6) / cls.iOutMaxA);
   return {
     lines: [
       // The output stage rides on OUT; it sits between the input and the base, so the base current comes from the input.
@@ -73,7 +76,11 @@ function darlington(u: string, inNode: string, cls: LinearRegulatorClass): PassS
       `.model QD${u} NPN(BF=${BF_DRIVER} IS=${num(iDriver * Math.exp(-VBE_DRIVER_V / VT))})`,
       `.model QP${u} NPN(BF=${BF_PASS} IS=${num(cls.iOutMaxA * Math.exp(-VBE_PASS_V / VT))})`,
     ],
-    driveAt: (i) => VBE_PASS_V + VBE_DRIVER_V + 2 * VT * Math.log(Math.max(i, 1e-6) / cls.iOutMaxA),
+    driveAt,
+    guess: (i, _vIn, vOut) => [
+      `V(${u}_d)=${num(vOut + driveAt(i))}`,
+      `V(${u}_e)=${num(vOut + VBE_PASS_V + VT * Math.log(Math.max(i, 1e-6) / cls.iOutMaxA))}`,
+    ],
   };
 }
 
@@ -85,13 +92,15 @@ function darlington(u: string, inNode: string, cls: LinearRegulatorClass): PassS
 function pmosPass(u: string, inNode: string, cls: LinearRegulatorClass): PassStage {
   const vov = PMOS_DRIVE_V - PMOS_THRESHOLD_V;
   const kp = cls.iOutMaxA / (vov * cls.dropoutV - (cls.dropoutV * cls.dropoutV) / 2);
+  const driveAt = (i: number) => PMOS_THRESHOLD_V + Math.sqrt((2 * Math.max(i, 0)) / kp);
   return {
     lines: [
       `B${u}ea ${u}_g ${inNode} V = -min(max(V(${u}_a), 0), min(max(V(${inNode}), 0), ${PMOS_DRIVE_V}))`,
       `M${u}p out ${u}_g ${inNode} ${inNode} PM${u}`,
       `.model PM${u} PMOS(LEVEL=1 VTO=${-PMOS_THRESHOLD_V} KP=${num(kp)})`,
     ],
-    driveAt: (i) => PMOS_THRESHOLD_V + Math.sqrt((2 * Math.max(i, 0)) / kp),
+    driveAt,
+    guess: (i, vIn) => [`V(${u}_g)=${num(vIn - driveAt(i))}`],
   };
 }
 
@@ -104,6 +113,11 @@ export function errorAmplifier(u: string, plus: string, minus: string, start: nu
   ];
 }
 
+/** The output the divider sets (the class's own value for a preset class). */
+export function setpointOf({ cls, lower, upper }: RegulatorParts): number {
+  return lower && upper && cls.kind !== 'fixed' ? cls.vRefV * (1 + (upper.value ?? 0) / (lower.value ?? 1)) : cls.vRefV;
+}
+
 /**
  * The regulator's output capacitor (the first listed after it) with its ESR, in series with the
  * resistor the design adds where the class needs more ESR. A transient starts it at the divider's
@@ -114,8 +128,7 @@ function outputCapacitorLines(option: Option, regRef: string, parts: RegulatorPa
   const cout = after.find((c) => c.role === 'output-capacitor');
   if (!cout) return [];
   const extra = after.find((c) => c.role === 'series-resistor')?.value ?? 0;
-  const { cls, lower, upper } = parts;
-  const setpoint = lower && upper && cls.kind !== 'fixed' ? cls.vRefV * (1 + (upper.value ?? 0) / (lower.value ?? 1)) : cls.vRefV;
+  const setpoint = setpointOf(parts);
   return [
     `C${cout.ref} out ${cout.ref}_esr ${num(assumed(option, `${cout.ref}.cEff`, cout.value ?? 0))} IC=${num(setpoint)}`,
     `RESR${cout.ref} ${cout.ref}_esr 0 ${num(Math.max(assumed(option, `${cout.ref}.esr`, 0) + extra, 1e-3))}`,
@@ -123,10 +136,29 @@ function outputCapacitorLines(option: Option, regRef: string, parts: RegulatorPa
 }
 
 /**
- * The regulator `regRef` fed from `inNode`, its output on node `out`, its divider and pin currents.
- * `iOut` is the corner's load, where a transient starts the amplifier.
+ * Where the operating-point search starts (ngspice `.nodeset`): the regulator at the state the
+ * engine expects, its input at vIn. A high-gain loop started from all nodes at zero otherwise
+ * needs the simulator's gmin or source stepping to find its way; the answer does not depend on it.
  */
-export function regulatorLines(option: Option, regRef: string, inNode: string, catalog: Catalog, iOut: number): string[] {
+export interface RegulatorGuess {
+  vIn: number;
+  /** The output shorted, carrying iShort (the class's current limit unless a limiter ahead of it holds less). */
+  shorted: boolean;
+  iShort?: number;
+}
+
+/**
+ * The regulator `regRef` fed from `inNode`, its output on node `out`, its divider and pin currents.
+ * `iOut` is the corner's load, where a transient starts the amplifier; `guess` adds the starting point of a DC operating point.
+ */
+export function regulatorLines(
+  option: Option,
+  regRef: string,
+  inNode: string,
+  catalog: Catalog,
+  iOut: number,
+  guess?: RegulatorGuess,
+): string[] {
   const parts = regulatorParts(option, regRef, catalog);
   const { cls, lower, upper } = parts;
   const u = regRef;
@@ -159,5 +191,13 @@ export function regulatorLines(option: Option, regRef: string, inNode: string, c
     lines.push(`V${u}ref ${u}_r 0 DC ${num(cls.vRefV)}`, ...errorAmplifier(u, `${u}_r`, 'out', start), ...pass.lines);
   }
   if (cls.iqA > 0) lines.push(`I${u}q ${inNode} 0 DC ${num(cls.iqA)}`);
+  if (guess) {
+    const i = guess.shorted ? (guess.iShort ?? cls.iLimitA) : regulatorInputCurrent(parts, iOut) - cls.iqA;
+    const vOut = guess.shorted ? 0 : setpointOf(parts);
+    const adj = !divided || guess.shorted ? [] : [`V(adj)=${num(cls.kind === 'adjustable' ? vOut - cls.vRefV : cls.vRefV)}`];
+    lines.push(
+      ['.nodeset', `V(out)=${num(vOut)}`, ...adj, `V(${u}_a)=${num(pass.driveAt(i))}`, ...pass.guess(i, guess.vIn, vOut)].join(' '),
+    );
+  }
   return [...lines, ...outputCapacitorLines(option, regRef, parts)];
 }
