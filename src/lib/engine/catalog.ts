@@ -690,7 +690,8 @@ export const defaultCatalog: Catalog = {
       source: 'common practice: the classic fixed three-terminal regulator; drift, regulation and noise from memory',
     })),
     // A series voltage reference is a fixed low-current regulator with a tight, stable output.
-    ...[2.5, 3.3, 4.096, 5].map((v) => ({
+    // The standard series-reference voltages (common practice: 1.25, 2.048, 2.5, 3.0, 3.3, 4.096, 5 V).
+    ...[1.25, 2.048, 2.5, 3.0, 3.3, 4.096, 5].map((v) => ({
       id: `ref-series-${String(v).replace('.', 'v')}`,
       label: `Precision series voltage reference, ${v} V, 20 mA`,
       kind: 'fixed' as const,

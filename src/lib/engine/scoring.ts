@@ -1,6 +1,6 @@
 // Sub-scores 0–100, the weighted score, the ranking of the option list and the words that say why
 // the pick won.
-import type { RailSpec } from './rail-spec.ts';
+import { noiseClassDefaults, type RailSpec } from './rail-spec.ts';
 import { topologyIds, type Option, type SubScores, type TopologyId } from './types.ts';
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
@@ -110,8 +110,24 @@ export const STRADDLE_MARGIN_POINTS = 8;
  */
 export const QUIET_RAIL_MARGIN_POINTS = 10;
 
+/**
+ * A switcher followed by a linear post-regulator is the answer where one stage alone falls short:
+ * a plain linear regulator whose loss is bearable, or on a rail that is not quiet a bare switcher
+ * that meets the limit, is the usual answer — fewer parts, and on a quiet load no switcher on the
+ * board (common practice). The hybrid must win by this much.
+ */
+export const HYBRID_MARGIN_POINTS = 5;
+
 const LINEAR_OUTPUT = new Set<TopologyId>(['shunt', 'linear', 'linear-predrop', 'buck+linear']);
 const BARE_SWITCHER = new Set<TopologyId>(['buck', 'boost', 'buck-boost']);
+
+/** An RF or precision-analog load, or any load that asks for no more ripple than a precision one does. */
+function quietRail(spec: Pick<RailSpec, 'noise'>): boolean {
+  return spec.noise.class === 'rf' || spec.noise.class === 'precision' || spec.noise.maxRippleVpp <= noiseClassDefaults.precision;
+}
+
+const railWords = (spec: Pick<RailSpec, 'noise'>) =>
+  spec.noise.class === 'rf' ? 'an RF' : spec.noise.class === 'precision' ? 'a precision-analog' : 'a quiet';
 
 /** Why an option is handicapped in the ranking (points and the sentence that says so), if it is. */
 export function rankingHandicap(
@@ -120,16 +136,22 @@ export function rankingHandicap(
   spec?: Pick<RailSpec, 'noise'>,
 ): { points: number; why: string } | null {
   const has = (t: TopologyId) => feasible.some((o) => o.topology === t);
-  if (
-    spec &&
-    (spec.noise.class === 'rf' || spec.noise.class === 'precision') &&
-    BARE_SWITCHER.has(option.topology) &&
-    feasible.some((o) => LINEAR_OUTPUT.has(o.topology))
-  ) {
+  if (spec && quietRail(spec) && BARE_SWITCHER.has(option.topology) && feasible.some((o) => LINEAR_OUTPUT.has(o.topology))) {
     return {
       points: QUIET_RAIL_MARGIN_POINTS,
-      why: `on an ${spec.noise.class === 'rf' ? 'RF' : 'precision-analog'} rail a linear output stage is preferred to a filtered switching output unless the switcher wins by more than ${QUIET_RAIL_MARGIN_POINTS} points (common practice)`,
+      why: `on ${railWords(spec)} rail a linear output stage is preferred to a filtered switching output unless the switcher wins by more than ${QUIET_RAIL_MARGIN_POINTS} points (common practice)`,
     };
+  }
+  if (option.topology === 'buck+linear' && spec) {
+    const quiet = quietRail(spec);
+    const single: readonly TopologyId[] = quiet ? ['linear', 'linear-predrop'] : ['linear', 'linear-predrop', ...BARE_SWITCHER];
+    const plain = single.find(has);
+    if (plain) {
+      return {
+        points: HYBRID_MARGIN_POINTS,
+        why: `a single ${plain} stage meets this rail${quiet ? ' and keeps a switcher off the board of a quiet load' : ''}, and a switcher with a linear post-regulator is taken over it only when it wins by more than ${HYBRID_MARGIN_POINTS} points (common practice)`,
+      };
+    }
   }
   if (option.topology === 'buck-boost' && (has('buck') || has('boost'))) {
     return {

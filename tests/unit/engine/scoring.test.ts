@@ -3,6 +3,7 @@
 import { describe, expect, test } from 'vitest';
 import { evaluate, railSpecSchema, defaultWeights, type Option, type RailSpecInput } from '~/lib/engine/index.ts';
 import {
+  HYBRID_MARGIN_POINTS,
   POWER_FLOOR_W,
   QUIET_RAIL_MARGIN_POINTS,
   STRADDLE_MARGIN_POINTS,
@@ -129,6 +130,33 @@ describe('ranking', () => {
         (o) => o.topology,
       ),
     ).toEqual(['buck', 'linear']);
+  });
+
+  // Common practice: a switcher with a linear post-regulator where one stage alone falls short.
+  test('a switcher + post-regulator must beat a feasible single stage by more than the hybrid margin', () => {
+    const sensor = { noise: { class: 'sensor' as const, maxRippleVpp: 0.01 } };
+    const quietSensor = { noise: { class: 'sensor' as const, maxRippleVpp: 100e-6 } };
+    const near = 70 + HYBRID_MARGIN_POINTS - 1;
+    // A plain linear regulator whose loss is bearable, on any rail.
+    expect(rankOptions([option('buck+linear', true, near), option('linear', true, 70)], sensor).map((o) => o.topology)).toEqual([
+      'linear',
+      'buck+linear',
+    ]);
+    // A bare switcher that meets the limit, on a rail that is not quiet.
+    expect(rankOptions([option('buck+linear', true, near), option('buck', true, 70)], sensor).map((o) => o.topology)).toEqual([
+      'buck',
+      'buck+linear',
+    ]);
+    // A load asking for 100 µV is quiet whatever its class: the bare switcher is the one handicapped.
+    expect(rankOptions([option('buck+linear', true, near), option('buck', true, 70)], quietSensor).map((o) => o.topology)).toEqual([
+      'buck+linear',
+      'buck',
+    ]);
+    const far = [option('buck+linear', true, 70 + HYBRID_MARGIN_POINTS + TIE_POINTS + 1), option('linear', true, 70)];
+    expect(rankOptions(far, sensor).map((o) => o.topology)).toEqual(['buck+linear', 'linear']);
+    expect(
+      pickReason(rankOptions([option('buck+linear', true, near), option('linear', true, 70)], sensor), defaultWeights, sensor),
+    ).toMatch(/a single linear stage meets this rail/);
   });
 
   test('the reason names the tie, the lead or the blockers', () => {

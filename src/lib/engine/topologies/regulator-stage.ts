@@ -32,6 +32,7 @@ import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import { formatSi } from '../units.ts';
 import { dividerOutputModel, searchDivider, type DividerDesign } from './feedback.ts';
+import { LOSS_CENTS_PER_W } from './switcher.ts';
 import { MAINS_RIPPLE_HZ, NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
 
 /** A divider current of about 100 µA keeps the feedback-pin bias error small (common practice). */
@@ -199,6 +200,12 @@ interface ClassDesign {
   /** Class price plus the grades' extra cost. */
   costCents: number;
   extraCents: number;
+  /** What the stage draws besides the load: divider, adjust-pin and quiescent current. */
+  standingA: number;
+  /** Parts plus LOSS_CENTS_PER_W per watt of standing loss at the highest input: what classes are ranked on. */
+  rankCents: number;
+  /** On a battery, the stage's own draw is more than DIVIDER_LOAD_SHARE of the typical load. */
+  drainsBattery: boolean;
 }
 
 function regulationSpread(cls: LinearRegulatorClass, input: StageInput, iMin: number, iMax: number): ToleranceParam[] {
@@ -304,6 +311,8 @@ function designClass(
   const vOutHigh = input.tracksOutput ? vTarget : summary.worstCase.max + rippleOutVpp / 2;
   const failures = checkClass(ctx, cls, input, vTarget, iMax, vOutHigh);
   const dropoutV = dropoutAt(cls, iMax + (divider?.iDivider ?? 0));
+  const costCents = cls.costCents + extraCents + fittingCents(ctx, divider !== null, bypass, vTarget - cls.vRefV);
+  const standingA = (divider?.iDivider ?? 0) + (divider ? cls.iAdjTypA : 0) + cls.iqA;
   return {
     cls,
     failures,
@@ -317,8 +326,11 @@ function designClass(
     dropoutV,
     rippleOutVpp,
     rippleFails: rippleOutVpp > spec.noise.maxRippleVpp,
-    costCents: cls.costCents + extraCents + fittingCents(ctx, divider !== null, bypass, vTarget - cls.vRefV),
+    costCents,
     extraCents,
+    standingA,
+    rankCents: costCents + LOSS_CENTS_PER_W * input.vMax * standingA,
+    drainsBattery: spec.input.source === 'battery' && standingA > DIVIDER_LOAD_SHARE * spec.output.iTyp,
   };
 }
 
@@ -336,14 +348,18 @@ const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind =
 // The ripple limit is a blocker the assembly raises on the finished design; the search counts it here so it picks a class whose rejection meets it.
 const blockerCount = (d: ClassDesign) => d.failures.length + (d.verdict === 'fails' ? 1 : 0) + (d.rippleFails ? 1 : 0);
 
-/** The cheapest class design with no blocker; otherwise the one with the fewest (cheapest first). */
+/**
+ * The cheapest class design with no blocker, its standing loss priced in (on a battery, one that
+ * does not drain it first); otherwise the one with the fewest blockers, cheapest first.
+ */
 function pickDesign(designs: ClassDesign[]): ClassDesign {
   return designs
     .map((d, index) => ({ d, index }))
     .sort(
       (a, b) =>
         blockerCount(a.d) - blockerCount(b.d) ||
-        a.d.costCents - b.d.costCents ||
+        Number(a.d.drainsBattery) - Number(b.d.drainsBattery) ||
+        a.d.rankCents - b.d.rankCents ||
         kindRank(a.d.cls) - kindRank(b.d.cls) ||
         a.d.cls.iOutMaxA - b.d.cls.iOutMaxA ||
         a.index - b.index,
@@ -462,7 +478,8 @@ export function regulatorStage(
   const forcedR = { r1: spec.overrides.r1Ohm ?? (r1Ref ? forced(ctx, r1Ref) : undefined), r2: r2Ref ? forced(ctx, r2Ref) : undefined };
   const wanted = forcedClassId === undefined ? undefined : catalog.linearRegulators.find((c) => c.id === forcedClassId);
   const pool = wanted ? [wanted] : eligible(ctx, vTarget);
-  // Cheapest class first: once a clean design exists, a class whose bare price is no lower cannot beat it.
+  // Cheapest class first: once a clean design exists, a class whose bare price is no lower than its
+  // ranked cost cannot beat it (one that drains a battery does not end the search).
   const designs: ClassDesign[] = [];
   let cleanCents = Number.POSITIVE_INFINITY;
   for (const cls of (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).slice().sort((a, b) => a.costCents - b.costCents)) {
@@ -478,7 +495,7 @@ export function regulatorStage(
         : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) },
     );
     designs.push(d);
-    if (blockerCount(d) === 0) cleanCents = Math.min(cleanCents, d.costCents);
+    if (blockerCount(d) === 0 && !d.drainsBattery) cleanCents = Math.min(cleanCents, d.rankCents);
   }
   const d = pickDesign(designs);
   const cls = d.cls;

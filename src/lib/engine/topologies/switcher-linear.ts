@@ -11,7 +11,7 @@ import { Trace } from '../trace.ts';
 import { boostStage } from './boost.ts';
 import { buckBoostStage } from './buck-boost.ts';
 import { buckStage } from './buck.ts';
-import { checkClass, chooseRegulatorClass, regulatorStage, type StageInput } from './regulator-stage.ts';
+import { checkClass, chooseRegulatorClass, dropoutAt, regulatorStage, type StageInput } from './regulator-stage.ts';
 import { rippleRejectionDb } from './regulator-noise.ts';
 import { railBand, type ConverterStage, type StageRequest } from './switcher.ts';
 
@@ -29,14 +29,23 @@ export function preRegulatorKind(vTrough: number, vMax: number, vBus: number): P
   return 'buck-boost';
 }
 
-/** The bus is only as exact as the switcher's feedback (plus 2 % for its divider). */
-function busSpread(ctx: Context): number {
-  return Math.max(...ctx.catalog.switchers.map((s) => s.vFbTolerance)) + 0.02;
+/**
+ * The bus is only as exact as the switcher's feedback (plus 2 % for its divider): the loosest
+ * feedback among the classes of the kind that will make it and can take this input.
+ */
+function busSpread(ctx: Context, vTarget: number): number {
+  const { vMax } = ctx.spec.input;
+  const kind = preRegulatorKind(ctx.vInTrough, vMax, vTarget + 1);
+  const fitting = ctx.catalog.switchers.filter((s) => s.converter === kind && s.vInMinV <= ctx.vInTrough && s.vInMaxV >= vMax);
+  return Math.max(...(fitting.length > 0 ? fitting : ctx.catalog.switchers).map((s) => s.vFbTolerance)) + 0.02;
 }
 
+/** The post-regulator's dropout at the rail's full load (a resistive pass device drops less than its rated figure). */
+const postDropout = (cls: LinearRegulatorClass, iMax: number) => dropoutAt(cls, iMax);
+
 /** Bus set point: raised until even its low extreme leaves the post-regulator its dropout and margin. */
-function busTarget(ctx: Context, vTarget: number, cls: LinearRegulatorClass): number {
-  return (vTarget + cls.dropoutV + POST_REG_MARGIN_V) / (1 - busSpread(ctx));
+function busTarget(ctx: Context, vTarget: number, cls: LinearRegulatorClass, iMax: number): number {
+  return (vTarget + postDropout(cls, iMax) + POST_REG_MARGIN_V) / (1 - busSpread(ctx, vTarget));
 }
 
 /** A tolerance loose enough that the post-regulator's cheapest grades meet it. */
@@ -63,9 +72,9 @@ function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: Line
         .sort((a, b) => a.dropoutV - b.dropoutV);
   const band = railBand(spec);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
-  const spread = busSpread(ctx);
+  const spread = busSpread(ctx, vTarget);
   const busRange = (cls: LinearRegulatorClass): StageInput => {
-    const vBus = busTarget(ctx, vTarget, cls);
+    const vBus = busTarget(ctx, vTarget, cls, iMax);
     return { ...probe, vTrough: vBus * (1 - spread), vMax: vBus * (1 + spread) };
   };
   const loose = { ...ctx, spec: { ...spec, output: { ...spec.output, tolerance: LOOSEST_TOLERANCE } } };
@@ -87,18 +96,18 @@ export function designSwitcherLinear(ctx: Context): Design {
   const refs = new Refs();
   const { iMin, iTyp, iMax, v: vTarget } = spec.output;
   const { cls, vOutHigh } = postRegulator(ctx, vTarget, iMax);
-  const spread = busSpread(ctx);
+  const spread = busSpread(ctx, vTarget);
   const vBusTarget = trace.add(
     'hybrid.vbus',
     'Intermediate rail',
     'Vbus = (Vout + Vdropout + margin) / (1 − spread)',
     {
       Vout: [vTarget, 'V'],
-      Vdropout: [cls.dropoutV, 'V'],
+      Vdropout: [postDropout(cls, iMax), 'V'],
       margin: [POST_REG_MARGIN_V, 'V'],
       spread: [spread, ''],
     },
-    busTarget(ctx, vTarget, cls),
+    busTarget(ctx, vTarget, cls, iMax),
     'V',
   );
 
@@ -112,7 +121,7 @@ export function designSwitcherLinear(ctx: Context): Design {
   const rippleLimit = (fsw: number) => spec.noise.maxRippleVpp * 10 ** (rippleRejectionDb(cls, fsw, bypass) / 20);
   // The bus must stay above the post-regulator's highest output plus its dropout, in the worst case,
   // and not far above its set point.
-  const busBand = { lo: vOutHigh + cls.dropoutV, hi: vBusTarget * (1 + spread) };
+  const busBand = { lo: vOutHigh + postDropout(cls, iMax), hi: vBusTarget * (1 + spread) };
   const kind = preRegulatorKind(input.vTrough, input.vMax, vBusTarget);
   const request = (idPrefix: string): StageRequest => ({
     input,

@@ -241,3 +241,34 @@ describe('a quiet rail from a 12 V adapter with 100–120 Hz ripple: the class s
     expect(11.4 - 0.075 - r! * (0.05 + reg.iqA)).toBeGreaterThanOrEqual(option.vOutRange.max + reg.dropoutV);
   });
 });
+
+describe('the class search prices what a class draws for itself', () => {
+  test('9 V battery → 5 V at 1 mA: a µA-quiescent class, not the cheaper adjustable whose 10 mA minimum load would drain the battery', () => {
+    const { option } = linearOption({
+      input: { vMin: 7, vNom: 9, vMax: 9.6, source: 'battery' },
+      output: { v: 5, tolerance: 0.05, iMin: 0.0001, iTyp: 0.0005, iMax: 0.001 },
+      noise: { class: 'digital' },
+      thermal,
+    });
+    expect(option.feasible).toBe(true);
+    const cls = classOf(option.components.find((c) => c.role === 'regulator')!.part);
+    const adjustable = defaultCatalog.linearRegulators.find((c) => c.id === 'adj-0a1')!;
+    expect(adjustable.costCents).toBeLessThan(cls.costCents);
+    // Battery practice: the stage's own draw (quiescent, and a divider that swamps the feedback-pin
+    // current) stays within 5 % of the typical load — common practice.
+    const r1 = option.components.find((c) => c.role === 'feedback-lower')!;
+    const standing = cls.iqA + cls.vRefV / r1.value!;
+    expect(standing).toBeLessThanOrEqual(0.05 * 0.0005);
+  });
+
+  test('5 V → 2.048 V ±0.5 % at 1 mA: the 2.048 V series reference, one of the standard reference voltages (common practice)', () => {
+    const { option } = linearOption({
+      input: { vMin: 4.6, vNom: 5, vMax: 5.4, source: 'adapter' },
+      output: { v: 2.048, tolerance: 0.005, iMin: 0, iTyp: 0.0005, iMax: 0.001 },
+      noise: { class: 'precision' },
+      thermal,
+    });
+    expect(option.feasible).toBe(true);
+    expect(option.components.find((c) => c.role === 'regulator')!.part).toMatch(/series voltage reference, 2\.048 V/);
+  });
+});
