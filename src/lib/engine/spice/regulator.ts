@@ -1,7 +1,8 @@
 // A three-terminal regulator as a small macro model: the reference as a source with the class's
 // value, an error amplifier with finite gain whose output is limited by the input rail, and a real
-// pass device (Darlington NPN follower, or a PMOS for the low-dropout class). The output setting,
-// load regulation and dropout come out of the simulated circuit, not out of the engine's equation.
+// pass device (Darlington NPN follower, or a PMOS for the low-dropout class) with the class's
+// current limit. The output setting, load regulation, dropout and short-circuit current come out of
+// the simulated circuit, not out of the engine's equation.
 // Structure: Horowitz & Hill, The Art of Electronics, 3rd ed., §9.3 (three-terminal and low-dropout
 // regulators — from memory); finite-gain feedback: Sedra & Smith, Microelectronic Circuits, 7th ed.,
 // §2.2 and §11.1 (closed-loop error 1/(1 + Aβ) — from memory).
@@ -72,7 +73,7 @@ function darlington(u: string, inNode: string, cls: LinearRegulatorClass): PassS
       // The output stage rides on OUT; it sits between the input and the base, so the base current comes from the input.
       `B${u}ea ${u}_d ${inNode} V = V(out) + ${above} - V(${inNode})`,
       `Q${u}d ${inNode} ${u}_d ${u}_e QD${u}`,
-      `Q${u}p ${inNode} ${u}_e out QP${u}`,
+      `Q${u}p ${inNode} ${u}_e ${u}_o QP${u}`,
       `.model QD${u} NPN(BF=${BF_DRIVER} IS=${num(iDriver * Math.exp(-VBE_DRIVER_V / VT))})`,
       `.model QP${u} NPN(BF=${BF_PASS} IS=${num(cls.iOutMaxA * Math.exp(-VBE_PASS_V / VT))})`,
     ],
@@ -96,12 +97,25 @@ function pmosPass(u: string, inNode: string, cls: LinearRegulatorClass): PassSta
   return {
     lines: [
       `B${u}ea ${u}_g ${inNode} V = -min(max(V(${u}_a), 0), min(max(V(${inNode}), 0), ${PMOS_DRIVE_V}))`,
-      `M${u}p out ${u}_g ${inNode} ${inNode} PM${u}`,
+      `M${u}p ${u}_o ${u}_g ${inNode} ${inNode} PM${u}`,
       `.model PM${u} PMOS(LEVEL=1 VTO=${-PMOS_THRESHOLD_V} KP=${num(kp)})`,
     ],
     driveAt,
     guess: (i, vIn) => [`V(${u}_g)=${num(vIn - driveAt(i))}`],
   };
+}
+
+/**
+ * Current limit: the pass device's current, sensed by a 0 V source between its output `<u>_o`
+ * and OUT, pulls the amplifier's node down once it passes the class's limit, with a
+ * transconductance that overwhelms the amplifier's largest error current (gm × its input) within
+ * a fraction of a milliampere: a behavioural stand-in for the sense resistor and transistor of an
+ * integrated regulator (Horowitz & Hill, The Art of Electronics, 3rd ed., §9.3 — from memory).
+ */
+const LIMIT_GAIN = 10;
+
+function currentLimitLines(u: string, cls: LinearRegulatorClass): string[] {
+  return [`V${u}lim ${u}_o out DC 0`, `B${u}lim ${u}_a 0 I = ${LIMIT_GAIN}*max(i(V${u}lim) - ${num(cls.iLimitA)}, 0)`];
 }
 
 /** The amplifier's gain stage: node `<u>_a` carries gain × (V(plus) − V(minus)) after the pole; it starts at `start`. */
@@ -191,10 +205,24 @@ export function regulatorLines(
     lines.push(`V${u}ref ${u}_r 0 DC ${num(cls.vRefV)}`, ...errorAmplifier(u, `${u}_r`, 'out', start), ...pass.lines);
   }
   if (cls.iqA > 0) lines.push(`I${u}q ${inNode} 0 DC ${num(cls.iqA)}`);
+  lines.push(...currentLimitLines(u, cls));
   if (guess) {
-    const i = guess.shorted ? (guess.iShort ?? cls.iLimitA) : regulatorInputCurrent(parts, iOut) - cls.iqA;
+    // Shorted at the limit, the pass current sits above it by the amplifier's full error current over the limit's gain.
+    const i = guess.shorted
+      ? (guess.iShort ?? cls.iLimitA + (ERROR_GM * cls.vRefV) / LIMIT_GAIN)
+      : regulatorInputCurrent(parts, iOut) - cls.iqA;
     const vOut = guess.shorted ? 0 : setpointOf(parts);
-    const adj = !divided || guess.shorted ? [] : [`V(adj)=${num(cls.kind === 'adjustable' ? vOut - cls.vRefV : cls.vRefV)}`];
+    // The divider's tap: a reference below OUT (floating) or at the reference (ground-referenced); shorted, what the adjust-pin current lifts it.
+    const r1 = lower?.value ?? 0;
+    const r2 = upper?.value ?? 0;
+    const tap = guess.shorted
+      ? cls.kind === 'adjustable'
+        ? (cls.iAdjTypA * r1 * r2) / Math.max(r1 + r2, 1e-9)
+        : 0
+      : cls.kind === 'adjustable'
+        ? vOut - cls.vRefV
+        : cls.vRefV;
+    const adj = divided ? [`V(adj)=${num(tap)}`] : [];
     lines.push(
       ['.nodeset', `V(out)=${num(vOut)}`, ...adj, `V(${u}_a)=${num(pass.driveAt(i))}`, ...pass.guess(i, guess.vIn, vOut)].join(' '),
     );

@@ -37,8 +37,9 @@ describe('buck + linear post-regulator design against an ngspice switching trans
     expect(option.feasible).toBe(true);
     const netlist = toSpiceNetlist(option, { vIn: 12, iOut: 0.3 });
     expect(netlist).toMatch(/^RL\S+ nl2 bus /m);
-    // The low-dropout class's PMOS pass device from the bus (source) to the output (drain).
-    expect(netlist).toMatch(new RegExp(`^M${reg}p out \\S+ bus bus `, 'm'));
+    // The low-dropout class's PMOS pass device from the bus (source) to the output (drain), through its current-limit sense.
+    expect(netlist).toMatch(new RegExp(`^M${reg}p ${reg}_o \\S+ bus bus `, 'm'));
+    expect(netlist).toMatch(new RegExp(`^V${reg}lim ${reg}_o out DC 0`, 'm'));
   });
 
   // Measured (bus, regulator output, average IL against the bus current, ΔIL against the engine's,

@@ -331,3 +331,52 @@ describe('pre-drop foldback limit with the output shorted, against ngspice at it
     }
   });
 });
+
+describe("three-terminal regulator with its output shorted, against ngspice (the class's current limit in the model)", () => {
+  /**
+   * Measured within 0.04 % (the limit's transconductance against the amplifier's error current),
+   * the regulator's fault dissipation within 0.25 % (the divider and pin currents); the catalog's
+   * limit itself is a typical figure.
+   */
+  const LIMIT_TOLERANCE = 0.02;
+  const designs = [
+    { name: 'adjustable', option: design(lowVoltage, 'linear'), vIn: lowVoltage.input.vMax },
+    ...[
+      { vIn: [4.75, 5, 5.25], v: 3.3, tolerance: 0.05, i: 0.5 },
+      { vIn: [10, 12, 14], v: 5, tolerance: 0.08, i: 0.4 },
+    ].map(({ vIn, v, tolerance, i }) => {
+      const spec = railSpecSchema.parse({
+        input: { vMin: vIn[0], vNom: vIn[1], vMax: vIn[2], source: 'adapter' },
+        output: { v, tolerance, iMin: 0.01, iTyp: i / 2, iMax: i },
+        noise: { class: 'digital' },
+        thermal: { ambientMaxC: 40, airflow: 'still-air' },
+      });
+      const option = design(spec, 'linear');
+      return { name: part(option, 'regulator').part, option, vIn: vIn[2]! };
+    }),
+  ];
+  const netlistOf = (d: (typeof designs)[number]) => toSpiceNetlist(d.option, { vIn: d.vIn, iOut: 0, short: true });
+
+  test.each(designs)('$name: the short draws the limit within 2 %, and the engine’s fault dissipation agrees', async (d) => {
+    const u = part(d.option, 'regulator').ref;
+    const limit = d.option.assumptions[`${u}.iLimit`]!.value;
+    const op = await operatingPoint(netlistOf(d));
+    expect(relative(op['i(vshort)']!, limit)).toBeLessThanOrEqual(LIMIT_TOLERANCE);
+    // Engine: P = Ilimit·vInMax (the whole input across the regulator); the simulation's input power, nearly all in the regulator.
+    const faultW = d.option.dissipation.parts.find((p) => p.ref === u)!.faultW;
+    expect(relative(d.vIn * -op['i(v1)']!, faultW)).toBeLessThanOrEqual(LIMIT_TOLERANCE);
+  });
+
+  test('a regulator model without its current limit fails the same check', async () => {
+    for (const d of designs) {
+      const u = part(d.option, 'regulator').ref;
+      const unlimited = netlistOf(d).replace(new RegExp(`^B${u}lim .*$`, 'm'), '');
+      sim.setNetList(unlimited);
+      const result: ResultType = await sim.runSim();
+      const out = result.dataType === 'real' ? result.data.find((x) => x.name === 'i(vshort)')?.values[0] : undefined;
+      // Measured 0.90 A against a 0.3 A limit, 6.9 A against 1.5 A, and no bound at all for the Darlington.
+      expect(typeof out).toBe('number');
+      if (typeof out === 'number') expect(relative(out, d.option.assumptions[`${u}.iLimit`]!.value)).toBeGreaterThan(LIMIT_TOLERANCE);
+    }
+  });
+});
