@@ -10,7 +10,7 @@ import { median } from './engine';
 export async function pdfMedianMs(databaseUrl: string, runs = 30): Promise<number> {
   const { db, client } = connect(databaseUrl);
   try {
-    const [row] = await db.select({ id: quote.id }).from(quote).where(eq(quote.status, 'sent')).limit(1);
+    const [row] = await db.select({ id: quote.id }).from(quote).where(eq(quote.state, 'sent')).limit(1);
     const view = row ? await loadQuoteView(db, row.id) : null;
     if (!view) throw new Error('The benchmark database has no sent quote to render.');
     const options = { quoteUrl: 'https://railwright.example/quotes/bench' };

@@ -42,7 +42,7 @@ try {
   const base = server.baseUrl;
   const engineerCookie = await signedInCookie(base, 'engineer@demo.railwright.test');
   const clientCookie = await signedInCookie(base, 'client@demo.railwright.test');
-  const briefs = (await (await fetch(`${base}/api/v1/briefs?status=submitted`, { headers: { cookie: engineerCookie } })).json()) as {
+  const briefs = (await (await fetch(`${base}/api/v1/briefs?state=submitted`, { headers: { cookie: engineerCookie } })).json()) as {
     items: { id: string }[];
   };
   const reviewId = briefs.items[0]?.id;

@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import type { briefListJson } from '~/lib/briefs/briefs.server';
-import { BRIEF_STATUSES } from '~/lib/briefs/status';
+import { BRIEF_STATES } from '~/lib/briefs/states';
 import { ES1_DC_LIMIT_V } from '~/lib/engine/cautions';
 import { formatSi } from '~/lib/engine/units';
 import { formatDate, formatMoney } from '~/lib/platform/format';
@@ -95,7 +95,7 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           </div>
         ),
       }),
-      column.accessor('status', {
+      column.accessor('state', {
         header: 'State',
         enableSorting: false,
         cell: (c) => <StateBadge table={BRIEF_STATE_LOOK} state={c.getValue()} />,
@@ -115,7 +115,7 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
         enableSorting: false,
         cell: (c) => {
           const s = c.row.original.summary;
-          if (!s) return <span className="text-ink-faint">{c.row.original.status === 'draft' ? 'Not yet ranked' : '—'}</span>;
+          if (!s) return <span className="text-ink-faint">{c.row.original.state === 'draft' ? 'Not yet ranked' : '—'}</span>;
           return (
             <>
               {c.getValue() ? (
@@ -196,17 +196,17 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
           />
         </div>
         <div className="flex flex-col gap-1">
-          <label htmlFor="desk-status" className="text-sm font-semibold">
+          <label htmlFor="desk-state" className="text-sm font-semibold">
             State
           </label>
           <select
-            id="desk-status"
-            value={view.status}
-            onChange={(e) => setView((v) => ({ ...v, status: e.target.value, page: 1 }))}
+            id="desk-state"
+            value={view.state}
+            onChange={(e) => setView((v) => ({ ...v, state: e.target.value, page: 1 }))}
             className={controlClass}
           >
             <option value="">All states</option>
-            {BRIEF_STATUSES.map((s) => (
+            {BRIEF_STATES.map((s) => (
               <option key={s} value={s}>
                 {lookOf(BRIEF_STATE_LOOK, s).label}
               </option>

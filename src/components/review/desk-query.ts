@@ -4,7 +4,7 @@ import { BRIEF_SORT_KEYS, type BriefSortKey } from '~/lib/briefs/sorting';
 export type DeskSortKey = BriefSortKey;
 
 export interface DeskView {
-  status: string;
+  state: string;
   client: string;
   q: string;
   sort: DeskSortKey;
@@ -17,7 +17,7 @@ export const PAGE_SIZES = [10, 25, 50] as const;
 
 export function viewToParams(view: DeskView): URLSearchParams {
   const params = new URLSearchParams();
-  if (view.status) params.set('status', view.status);
+  if (view.state) params.set('state', view.state);
   if (view.client) params.set('client', view.client);
   if (view.q.trim()) params.set('q', view.q.trim());
   params.set('sort', `${view.desc ? '-' : ''}${view.sort}`);

@@ -5,7 +5,7 @@
 import { eq } from 'drizzle-orm';
 import { railSpecIssues, railSpecSchema, evaluate } from '../engine';
 import { summarise } from './summary';
-import type { BriefStatus } from './status';
+import type { BriefState } from './states';
 import type { CreateBrief } from './requests';
 import { moveBrief } from './moves.server';
 import type { BriefRow } from './briefs.server';
@@ -38,21 +38,21 @@ export async function createBrief(owner: SignedInUser, body: CreateBrief): Promi
         title: body.title,
         notes: body.notes,
         spec: checked?.ok ? checked.spec : body.spec,
-        status: checked?.ok ? 'submitted' : 'draft',
+        state: checked?.ok ? 'submitted' : 'draft',
         ...(checked?.ok ? { submittedAt: now, recommendedTopology: checked.result.recommended, summary: summarise(checked.result) } : {}),
       })
       .returning();
     if (!created) throw new Error('Insert returned no row');
     await tx
       .insert(stateChange)
-      .values({ subjectType: 'brief', subjectId: created.id, fromStatus: null, toStatus: 'draft', actorId: owner.id });
+      .values({ subjectType: 'brief', subjectId: created.id, fromState: null, toState: 'draft', actorId: owner.id });
     if (checked?.ok)
       await tx
         .insert(stateChange)
-        .values({ subjectType: 'brief', subjectId: created.id, fromStatus: 'draft', toStatus: 'submitted', actorId: owner.id });
+        .values({ subjectType: 'brief', subjectId: created.id, fromState: 'draft', toState: 'submitted', actorId: owner.id });
     return created;
   });
-  if (row.status === 'submitted') await notifySubmitted(row);
+  if (row.state === 'submitted') await notifySubmitted(row);
   return succeed(row);
 }
 
@@ -61,16 +61,16 @@ interface DraftEdit {
   spec?: Record<string, unknown> | undefined;
   notes?: string | undefined;
   submit?: boolean | undefined;
-  status?: 'cancelled' | undefined;
+  state?: 'cancelled' | undefined;
 }
 
 /** The owner edits a draft, submits it, or cancels a brief not yet taken into review. */
 export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: DraftEdit): Promise<Outcome<BriefRow>> {
   const changesContent = edit.title !== undefined || edit.spec !== undefined || edit.notes !== undefined || edit.submit === true;
-  if (changesContent && row.status !== 'draft') {
+  if (changesContent && row.state !== 'draft') {
     return refuse('wrong-state', 'Only a draft can be changed. This brief has been submitted; write to the consultancy to change it.');
   }
-  if (edit.status === 'cancelled') {
+  if (edit.state === 'cancelled') {
     const moved = await db.transaction((tx) => moveBrief(tx, row, 'cancelled', 'owner', owner.id));
     return moved.ok ? succeed(moved.row) : refuse('wrong-state', moved.message);
   }
@@ -98,12 +98,12 @@ export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: Dra
     });
   });
   if (!result.ok) return refuse('wrong-state', result.message);
-  if (result.row.status === 'submitted') await notifySubmitted(result.row);
+  if (result.row.state === 'submitted') await notifySubmitted(result.row);
   return succeed(result.row);
 }
 
 /** An engineer or admin moves a brief along (into review, declined, in design…). */
-export async function moveAsStaff(staff: SignedInUser, row: BriefRow, to: BriefStatus, note: string): Promise<Outcome<BriefRow>> {
+export async function moveAsStaff(staff: SignedInUser, row: BriefRow, to: BriefState, note: string): Promise<Outcome<BriefRow>> {
   const moved = await db.transaction((tx) => moveBrief(tx, row, to, 'staff', staff.id, note));
   return moved.ok ? succeed(moved.row) : refuse('wrong-state', moved.message);
 }

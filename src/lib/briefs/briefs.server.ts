@@ -2,12 +2,12 @@ import { notYours, succeed, type Outcome } from '../platform/outcome';
 import { and, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { BriefSummary } from './summary';
 import { db } from '../platform/db';
-import { brief, BRIEF_STATUSES, briefFile, clientProfile, stateChange, user, type BriefStatus, type BriefRow } from '../platform/db/schema';
+import { brief, BRIEF_STATES, briefFile, clientProfile, stateChange, user, type BriefState, type BriefRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import type { BriefSort } from './sorting';
 
 export interface BriefListQuery {
-  status?: BriefStatus | undefined;
+  state?: BriefState | undefined;
   q?: string | undefined;
   ownerId?: string | undefined;
   page?: number;
@@ -15,8 +15,8 @@ export interface BriefListQuery {
   sort?: BriefSort;
 }
 
-export function isBriefStatus(value: unknown): value is BriefStatus {
-  return typeof value === 'string' && (BRIEF_STATUSES as readonly string[]).includes(value);
+export function isBriefState(value: unknown): value is BriefState {
+  return typeof value === 'string' && (BRIEF_STATES as readonly string[]).includes(value);
 }
 
 function orderFor(sort: BriefSort) {
@@ -32,7 +32,7 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
   const where: SQL[] = [];
   if (!isStaff(viewer)) where.push(eq(brief.ownerId, viewer.id));
   else if (query.ownerId) where.push(eq(brief.ownerId, query.ownerId));
-  if (query.status) where.push(eq(brief.status, query.status));
+  if (query.state) where.push(eq(brief.state, query.state));
   if (query.q) {
     const pattern = `%${query.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
     const match = or(
@@ -48,7 +48,7 @@ export async function listBriefs(viewer: SignedInUser, query: BriefListQuery = {
       .select({
         id: brief.id,
         title: brief.title,
-        status: brief.status,
+        state: brief.state,
         ownerId: brief.ownerId,
         recommendedTopology: brief.recommendedTopology,
         summary: brief.summary,
@@ -86,7 +86,7 @@ export function briefListJson(list: BriefList) {
     items: list.rows.map((row) => ({
       id: row.id,
       title: row.title,
-      status: row.status,
+      state: row.state,
       client: { id: row.ownerId, name: row.clientName, company: row.company },
       recommendedTopology: row.recommendedTopology,
       summary: row.summary as BriefSummary | null,
@@ -145,7 +145,7 @@ export async function briefDetail(row: BriefRow) {
       .where(eq(briefFile.briefId, row.id))
       .orderBy(briefFile.createdAt),
     db
-      .select({ from: stateChange.fromStatus, to: stateChange.toStatus, at: stateChange.createdAt, by: user.name, note: stateChange.note })
+      .select({ from: stateChange.fromState, to: stateChange.toState, at: stateChange.createdAt, by: user.name, note: stateChange.note })
       .from(stateChange)
       .leftJoin(user, eq(user.id, stateChange.actorId))
       .where(and(eq(stateChange.subjectType, 'brief'), eq(stateChange.subjectId, row.id)))

@@ -6,7 +6,7 @@
 import { eq } from 'drizzle-orm';
 import { reduceLoadLog, type LoadSummary } from './load-log';
 import type { Database } from '../platform/db/connect';
-import { brief, briefFile, type BriefStatus, type BriefFileRow } from '../platform/db/schema';
+import { brief, briefFile, type BriefState, type BriefFileRow } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { safeFileName } from '../platform/uploads/file-names';
 import { decideUploadType, MAX_UPLOAD_BYTES, uploadTooLarge, type FileKind } from '../platform/uploads/file-policy';
@@ -19,9 +19,9 @@ export interface BriefFileDeps {
 }
 
 /** A brief in one of these states is closed: nothing more is attached to it. */
-export const CLOSED_BRIEF_STATUSES: readonly BriefStatus[] = ['declined', 'cancelled', 'delivered', 'expired'];
+export const CLOSED_BRIEF_STATES: readonly BriefState[] = ['declined', 'cancelled', 'delivered', 'expired'];
 
-export const isClosedBrief = (status: BriefStatus) => CLOSED_BRIEF_STATUSES.includes(status);
+export const isClosedBrief = (state: BriefState) => CLOSED_BRIEF_STATES.includes(state);
 
 export interface UploadInput {
   briefId: string;
@@ -40,7 +40,7 @@ export interface SavedFile {
   loadSummary: LoadSummary | null;
 }
 
-export const closedMessage = (status: BriefStatus) => `This brief is ${status}; files can no longer be added to it.`;
+export const closedMessage = (state: BriefState) => `This brief is ${state}; files can no longer be added to it.`;
 
 const unreadable = (code: 'invalid_upload' | 'invalid_load_log', message: string) => invalidInput(code, [{ path: 'file', message }]);
 
@@ -73,9 +73,9 @@ export async function saveBriefFile({ db, store }: BriefFileDeps, input: UploadI
   try {
     const row = await db.transaction(async (tx) => {
       // Read inside the (write-locked) transaction: a brief closed meanwhile takes no file.
-      const [target] = await tx.select({ status: brief.status }).from(brief).where(eq(brief.id, input.briefId)).limit(1);
+      const [target] = await tx.select({ state: brief.state }).from(brief).where(eq(brief.id, input.briefId)).limit(1);
       if (!target) throw new BriefUnavailable(notYours());
-      if (isClosedBrief(target.status)) throw new BriefUnavailable(refuse('wrong-state', closedMessage(target.status)));
+      if (isClosedBrief(target.state)) throw new BriefUnavailable(refuse('wrong-state', closedMessage(target.state)));
       const [inserted] = await tx
         .insert(briefFile)
         .values({

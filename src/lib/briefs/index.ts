@@ -3,7 +3,7 @@ export * from './json';
 export * from './load-log';
 export * from './requests';
 export * from './sorting';
-export * from './status';
+export * from './states';
 export * from './summary';
 export * from './transitions';
 export * from './wizard-defaults';

@@ -5,7 +5,7 @@ export function briefJson(row: BriefRow) {
   return {
     id: row.id,
     title: row.title,
-    status: row.status,
+    state: row.state,
     spec: row.spec,
     notes: row.notes,
     recommendedTopology: row.recommendedTopology,

@@ -2,7 +2,7 @@
 import { and, eq } from 'drizzle-orm';
 import { canMove, type Actor } from './transitions';
 import type { Transaction } from '../platform/db/connect';
-import { brief, stateChange, type BriefRow, type BriefStatus } from '../platform/db/schema';
+import { brief, stateChange, type BriefRow, type BriefState } from '../platform/db/schema';
 
 export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wrong_state'; message: string };
 
@@ -14,21 +14,21 @@ export type MoveOutcome = { ok: true; row: BriefRow } | { ok: false; reason: 'wr
 export async function moveBrief(
   tx: Transaction,
   row: BriefRow,
-  to: BriefStatus,
+  to: BriefState,
   actor: Actor,
   actorId: string | null,
   note = '',
   extra: Partial<typeof brief.$inferInsert> = {},
 ): Promise<MoveOutcome> {
-  if (!canMove(row.status, to, actor)) {
-    return { ok: false, reason: 'wrong_state', message: `A brief that is ${row.status} cannot move to ${to}.` };
+  if (!canMove(row.state, to, actor)) {
+    return { ok: false, reason: 'wrong_state', message: `A brief that is ${row.state} cannot move to ${to}.` };
   }
   const [updated] = await tx
     .update(brief)
-    .set({ status: to, updatedAt: new Date(), ...extra })
-    .where(and(eq(brief.id, row.id), eq(brief.status, row.status)))
+    .set({ state: to, updatedAt: new Date(), ...extra })
+    .where(and(eq(brief.id, row.id), eq(brief.state, row.state)))
     .returning();
   if (!updated) return { ok: false, reason: 'wrong_state', message: 'The brief changed state meanwhile; reload and try again.' };
-  await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId, note });
+  await tx.insert(stateChange).values({ subjectType: 'brief', subjectId: row.id, fromState: row.state, toState: to, actorId, note });
   return { ok: true, row: updated };
 }

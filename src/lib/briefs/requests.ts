@@ -3,7 +3,7 @@
  * the routes and the tests. The supply brief itself is the engine's schema.
  */
 import { z } from 'zod';
-import { BRIEF_STATUSES } from './status';
+import { BRIEF_STATES } from './states';
 
 export const DEFAULT_BRIEF_TITLE = 'Untitled supply rail';
 const MAX_SPEC_CHARS = 16_000;
@@ -35,19 +35,19 @@ export const clientBriefPatchSchema = z
     spec: draftSpec.optional(),
     notes: notes.optional(),
     submit: z.boolean({ error: 'submit must be true or false.' }).optional(),
-    status: z.literal('cancelled', { error: 'You can only cancel a brief yourself.' }).optional(),
+    state: z.literal('cancelled', { error: 'You can only cancel a brief yourself.' }).optional(),
   })
   .strict();
 
 export const staffBriefPatchSchema = z
   .object({
-    status: z.enum(BRIEF_STATUSES, { error: 'Choose one of the brief states.' }),
+    state: z.enum(BRIEF_STATES, { error: 'Choose one of the brief states.' }),
     note: z.string().max(2_000).default(''),
   })
   .strict();
 
 export const briefListQuerySchema = z.object({
-  status: z.enum(BRIEF_STATUSES, { error: 'Unknown state.' }).optional(),
+  state: z.enum(BRIEF_STATES, { error: 'Unknown state.' }).optional(),
   q: z.string().max(100).optional(),
   client: z.string().max(64).optional(),
   page: z.coerce.number().int().min(1).max(10_000).default(1),

@@ -1,5 +1,5 @@
 /** The states of a brief (docs/product.md, moves in docs/states.md): browser-safe, so forms and islands share them with the database. */
-export const BRIEF_STATUSES = [
+export const BRIEF_STATES = [
   'draft',
   'submitted',
   'in-review',
@@ -12,4 +12,4 @@ export const BRIEF_STATUSES = [
   'expired',
   'cancelled',
 ] as const;
-export type BriefStatus = (typeof BRIEF_STATUSES)[number];
+export type BriefState = (typeof BRIEF_STATES)[number];

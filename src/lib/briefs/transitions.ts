@@ -2,11 +2,11 @@
  * Who may move a brief from which state to which. Shared by the API, the
  * pages (to offer only the moves that will be accepted) and the tests.
  */
-import type { BriefStatus } from './status';
+import type { BriefState } from './states';
 
 export type Actor = 'owner' | 'staff' | 'system';
 
-const MOVES: Record<Actor, Partial<Record<BriefStatus, readonly BriefStatus[]>>> = {
+const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> = {
   owner: {
     draft: ['submitted', 'cancelled'],
     submitted: ['cancelled'],
@@ -26,10 +26,10 @@ const MOVES: Record<Actor, Partial<Record<BriefStatus, readonly BriefStatus[]>>>
   },
 };
 
-export function canMove(from: BriefStatus, to: BriefStatus, actor: Actor): boolean {
+export function canMove(from: BriefState, to: BriefState, actor: Actor): boolean {
   return MOVES[actor][from]?.includes(to) ?? false;
 }
 
-export function movesFor(from: BriefStatus, actor: Actor): readonly BriefStatus[] {
+export function movesFor(from: BriefState, actor: Actor): readonly BriefState[] {
   return MOVES[actor][from] ?? [];
 }

@@ -1,8 +1,8 @@
-import type { BriefStatus } from '../platform/db/schema';
+import type { BriefState } from '../platform/db/schema';
 
 interface Step {
-  from: BriefStatus | null;
-  to: BriefStatus;
+  from: BriefState | null;
+  to: BriefState;
   by: 'client' | 'staff';
 }
 
@@ -18,9 +18,9 @@ const MAIN_LINE: Step[] = [
   { from: 'in-design', to: 'delivered', by: 'staff' },
 ];
 
-/** The recorded history of a demo brief that has reached `status` along the main line. */
-export function lifecycleTo(status: BriefStatus): Step[] {
-  const end = MAIN_LINE.findIndex((s) => s.to === status);
-  if (end < 0) throw new Error(`The demo scenario only uses main-line states, not ${status}`);
+/** The recorded history of a demo brief that has reached `state` along the main line. */
+export function lifecycleTo(state: BriefState): Step[] {
+  const end = MAIN_LINE.findIndex((s) => s.to === state);
+  if (end < 0) throw new Error(`The demo scenario only uses main-line states, not ${state}`);
   return MAIN_LINE.slice(0, end + 1);
 }

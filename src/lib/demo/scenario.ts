@@ -3,7 +3,7 @@
  * Specs follow the engine's brief schema (SI units, tolerances as fractions).
  */
 import type { RailSpecInput } from '../engine/rail-spec';
-import type { BriefStatus } from '../platform/db/schema';
+import type { BriefState } from '../platform/db/schema';
 import type { Role } from '../platform/auth/roles';
 
 export const DEMO_PASSWORD = 'railwright-demo';
@@ -41,7 +41,7 @@ export interface DemoBrief {
   key: string;
   owner: string;
   title: string;
-  status: BriefStatus;
+  state: BriefState;
   notes: string;
   /** Days before the seed time that the brief was submitted (drafts have none). */
   submittedDaysAgo?: number;
@@ -57,7 +57,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     key: 'sensor-node',
     owner: 'client',
     title: 'Soil-moisture node, 3.3 V from one Li-ion cell',
-    status: 'deposit-paid',
+    state: 'deposit-paid',
     submittedDaysAgo: 12,
     revisionNote: 'Buck-boost keeps 3.3 V across the whole discharge; quiescent current checked for the sleep budget.',
     quote: 'deposit-paid',
@@ -73,7 +73,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     key: 'sensor-gateway',
     owner: 'client',
     title: 'Gateway logic rail, 5 V from a 12 V adapter',
-    status: 'draft',
+    state: 'draft',
     notes: 'Still deciding on the adapter; a 12 V, 1 A brick is likely.',
     spec: {
       input: { vMin: 10.8, vNom: 12, vMax: 13.2, rippleVpp: 0.1, source: 'adapter' },
@@ -86,7 +86,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     key: 'bench-analog',
     owner: 'quillon',
     title: 'Bench meter analog front-end, quiet 12 V',
-    status: 'quoted',
+    state: 'quoted',
     submittedDaysAgo: 6,
     revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
     quote: 'sent',
@@ -102,7 +102,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     key: 'controller-24v',
     owner: 'harrow',
     title: 'PLC I/O card, 5 V at 1.5 A from the 24 V bus',
-    status: 'in-review',
+    state: 'in-review',
     submittedDaysAgo: 3,
     revisionNote: 'First pass as briefed; check the load-dump clamp level with the client before quoting.',
     notes: 'Cabinet reaches 55 °C in summer. The 24 V bus sags to 18 V during motor starts and reaches 30 V on load dump clamps.',
@@ -117,7 +117,7 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     key: 'detector-hv',
     owner: 'aster',
     title: 'Detector bias, 150 V from a 300–350 V supply',
-    status: 'submitted',
+    state: 'submitted',
     submittedDaysAgo: 1,
     notes: 'Bias for a drift detector; the lab already has a 300–350 V rectified supply. Load is small but must be stable.',
     spec: {

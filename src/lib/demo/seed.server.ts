@@ -31,7 +31,7 @@ async function seedQuote(
   tx: Transaction,
   p: {
     briefId: string;
-    finalStatus: DemoBrief['status'];
+    finalState: DemoBrief['state'];
     revisionId: string;
     engineerId: string;
     ownerId: string;
@@ -40,33 +40,33 @@ async function seedQuote(
   },
 ) {
   // Drafting needs a brief still under review; the scenario's state is restored right after.
-  await tx.update(brief).set({ status: 'in-review' }).where(eq(brief.id, p.briefId));
+  await tx.update(brief).set({ state: 'in-review' }).where(eq(brief.id, p.briefId));
   const drafted = await draftQuote(tx, { revisionId: p.revisionId, createdBy: p.engineerId, now: p.at });
   if (!drafted.ok) throw new Error(`Demo quote could not be drafted: ${drafted.message}`);
-  await tx.update(brief).set({ status: p.finalStatus }).where(eq(brief.id, p.briefId));
+  await tx.update(brief).set({ state: p.finalState }).where(eq(brief.id, p.briefId));
   const sentAt = new Date(p.at.getTime() + 3_600_000);
   const steps: [string, string, string | null, Date][] = [['draft', 'sent', p.engineerId, sentAt]];
   if (p.plan === 'deposit-paid') {
     const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
     const paidAt = new Date(acceptedAt.getTime() + 600_000);
     steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
-    await tx.update(quote).set({ status: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.value.id));
+    await tx.update(quote).set({ state: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.value.id));
     await tx.insert(payment).values({
       quoteId: drafted.value.id,
       checkoutSessionId: `cs_demo_${drafted.value.id.slice(0, 8)}`,
       paymentIntentId: `pi_demo_${drafted.value.id.slice(0, 8)}`,
       amountMinor: drafted.value.depositMinor,
       currency: drafted.value.currency,
-      status: 'paid',
+      state: 'paid',
       paidAt,
     });
   } else {
-    await tx.update(quote).set({ status: 'sent', sentAt }).where(eq(quote.id, drafted.value.id));
+    await tx.update(quote).set({ state: 'sent', sentAt }).where(eq(quote.id, drafted.value.id));
   }
   for (const [from, to, actorId, at] of steps) {
     await tx
       .insert(stateChange)
-      .values({ subjectType: 'quote', subjectId: drafted.value.id, fromStatus: from, toStatus: to, actorId, createdAt: at });
+      .values({ subjectType: 'quote', subjectId: drafted.value.id, fromState: from, toState: to, actorId, createdAt: at });
   }
 }
 
@@ -127,7 +127,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
         id: briefId,
         ownerId,
         title: item.title,
-        status: item.status,
+        state: item.state,
         spec,
         notes: item.notes,
         submittedAt,
@@ -155,7 +155,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
         if (item.quote)
           await seedQuote(tx, {
             briefId,
-            finalStatus: item.status,
+            finalState: item.state,
             revisionId,
             engineerId,
             ownerId,
@@ -163,14 +163,14 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
             at: new Date(revisedAt.getTime() + DAY_MS),
           });
       }
-      const steps = lifecycleTo(item.status);
+      const steps = lifecycleTo(item.state);
       let at = submittedAt?.getTime() ?? createdAt.getTime();
       for (const [index, step] of steps.entries()) {
         await tx.insert(stateChange).values({
           subjectType: 'brief',
           subjectId: briefId,
-          fromStatus: step.from,
-          toStatus: step.to,
+          fromState: step.from,
+          toState: step.to,
           actorId: step.by === 'client' ? ownerId : engineerId,
           createdAt: new Date(at),
         });

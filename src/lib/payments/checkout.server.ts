@@ -18,7 +18,7 @@ export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): 
     .innerJoin(brief, eq(brief.id, quote.briefId))
     .where(and(eq(quote.id, quoteId), eq(brief.ownerId, viewer.id)))
     .limit(1);
-  return row && row.quote.status !== 'draft' ? row.quote : null;
+  return row && row.quote.state !== 'draft' ? row.quote : null;
 }
 
 /**
@@ -29,8 +29,8 @@ export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): 
 export async function startDepositCheckout(viewer: SignedInUser, quoteId: string, now = new Date()): Promise<CheckoutOutcome> {
   const row = await findQuoteForPayer(viewer, quoteId);
   if (!row) return refuse('not-found', 'No such quote.');
-  if (row.status === 'deposit-paid') return refuse('wrong-state', 'The deposit for this quote is already paid.');
-  if (row.status !== 'accepted') return refuse('wrong-state', 'Accept the quote first; the deposit is paid on an accepted quote.');
+  if (row.state === 'deposit-paid') return refuse('wrong-state', 'The deposit for this quote is already paid.');
+  if (row.state !== 'accepted') return refuse('wrong-state', 'Accept the quote first; the deposit is paid on an accepted quote.');
   if (row.validUntil.getTime() < now.getTime()) return refuse('wrong-state', 'This quote has expired; ask the consultancy for a new one.');
   if (row.depositMinor <= 0) return refuse('wrong-state', 'This quote asks for no deposit.');
   try {
@@ -49,7 +49,7 @@ async function openDepositSession(viewer: SignedInUser, row: QuoteRow): Promise<
   const [pending] = await db
     .select()
     .from(payment)
-    .where(and(eq(payment.quoteId, row.id), eq(payment.kind, 'deposit'), eq(payment.status, 'pending')))
+    .where(and(eq(payment.quoteId, row.id), eq(payment.kind, 'deposit'), eq(payment.state, 'pending')))
     .limit(1);
   if (pending) {
     const session = await provider.checkout.sessions.retrieve(pending.checkoutSessionId);
@@ -90,7 +90,7 @@ async function openDepositSession(viewer: SignedInUser, row: QuoteRow): Promise<
       checkoutSessionId: session.id,
       amountMinor: row.depositMinor,
       currency: row.currency,
-      status: 'pending',
+      state: 'pending',
     })
     .onConflictDoNothing();
   return session.url;

@@ -9,7 +9,7 @@ export async function depositState(quoteId: string): Promise<{ paid: PaymentRow 
   const [paid] = await db
     .select()
     .from(payment)
-    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit'), eq(payment.status, 'paid')))
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit'), eq(payment.state, 'paid')))
     .limit(1);
   const [latest] = await db
     .select()
@@ -26,7 +26,7 @@ export async function paidDeposits(quoteIds: readonly string[]): Promise<Map<str
   const rows = await db
     .select()
     .from(payment)
-    .where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.kind, 'deposit'), eq(payment.status, 'paid')));
+    .where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.kind, 'deposit'), eq(payment.state, 'paid')));
   return new Map(rows.map((row) => [row.quoteId, row]));
 }
 

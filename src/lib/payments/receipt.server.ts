@@ -33,7 +33,7 @@ export async function sendReceipt(paymentId: string): Promise<void> {
       `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
       '',
       'Design work starts now; your engineer will keep you posted.',
-      `The quote and its status: ${appUrl(`/quotes/${row.quote.id}`)}`,
+      `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
       '',
       '— Railwright',
     ].join('\n'),

@@ -5,9 +5,9 @@
  * stopped waiting for that the provider then confirms as paid still counts.
  * Browser-safe.
  */
-import type { PaymentStatus } from '../platform/db/schema';
+import type { PaymentState } from '../platform/db/schema';
 
-const PAYMENT_MOVES: Record<PaymentStatus, readonly PaymentStatus[]> = {
+const PAYMENT_MOVES: Record<PaymentState, readonly PaymentState[]> = {
   pending: ['paid', 'failed', 'expired'],
   paid: ['refunded'],
   failed: [],
@@ -15,6 +15,6 @@ const PAYMENT_MOVES: Record<PaymentStatus, readonly PaymentStatus[]> = {
   refunded: [],
 };
 
-export function canMovePayment(from: PaymentStatus, to: PaymentStatus): boolean {
+export function canMovePayment(from: PaymentState, to: PaymentState): boolean {
   return PAYMENT_MOVES[from].includes(to);
 }

@@ -39,14 +39,14 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOut
     }
 
     if (session.payment_status !== 'paid') return finish('not-paid');
-    if (found.status === 'paid') return finish('already-paid');
+    if (found.state === 'paid') return finish('already-paid');
     const paymentIntent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
     if (!(await movePayment(tx, found, 'paid', { paidAt: new Date(), paymentIntentId: paymentIntent }))) return finish('ignored');
 
     const [quoteRow] = await tx.select().from(quote).where(eq(quote.id, found.quoteId)).limit(1);
     if (quoteRow && (await moveQuote(tx, quoteRow, 'deposit-paid', null, {}, `Payment ${paymentIntent ?? session.id}`))) {
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, quoteRow.briefId)).limit(1);
-      if (briefRow && briefRow.status === 'accepted')
+      if (briefRow && briefRow.state === 'accepted')
         await moveBrief(tx, briefRow, 'deposit-paid', 'system', null, 'Deposit received online');
     }
     return finish('deposit-paid', found.id);

@@ -9,7 +9,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from './pricing';
-import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow, type QuoteRow } from '../platform/db/schema';
+import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow, type QuoteRow, type QuoteState } from '../platform/db/schema';
 import type { DbOrTx } from '../platform/db/connect';
 import { readRateCard } from './rate-card.server';
 import { canMoveQuote } from './transitions';
@@ -61,13 +61,13 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Out
   const now = request.now ?? new Date();
   const quantity = request.quantity ?? 1;
   const [found] = await db
-    .select({ revision: designRevision, briefStatus: brief.status })
+    .select({ revision: designRevision, briefState: brief.state })
     .from(designRevision)
     .innerJoin(brief, eq(brief.id, designRevision.briefId))
     .where(eq(designRevision.id, request.revisionId))
     .limit(1);
   if (!found) return refuse('not-found', 'No such design revision.');
-  if (!QUOTABLE_BRIEF_STATES.has(found.briefStatus)) return refuse('wrong-state', `A brief that is ${found.briefStatus} cannot be quoted.`);
+  if (!QUOTABLE_BRIEF_STATES.has(found.briefState)) return refuse('wrong-state', `A brief that is ${found.briefState} cannot be quoted.`);
   const card = await readRateCard(db);
   if (!card) return refuse('wrong-state', 'There is no rate card yet; an admin sets one on the rate card page.');
   const revision = found.revision;
@@ -112,8 +112,8 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Out
     await tx.insert(stateChange).values({
       subjectType: 'quote',
       subjectId: inserted.id,
-      fromStatus: null,
-      toStatus: 'draft',
+      fromState: null,
+      toState: 'draft',
       actorId: request.createdBy,
       createdAt: now,
     });
@@ -131,18 +131,18 @@ export async function quoteLines(db: DbOrTx, quoteId: string): Promise<QuoteLine
 export async function moveQuote(
   tx: DbOrTx,
   row: QuoteRow,
-  to: QuoteRow['status'],
+  to: QuoteState,
   actorId: string | null,
   extra: Partial<typeof quote.$inferInsert> = {},
   note = '',
 ) {
-  if (!canMoveQuote(row.status, to)) return null;
+  if (!canMoveQuote(row.state, to)) return null;
   const [updated] = await tx
     .update(quote)
-    .set({ status: to, updatedAt: new Date(), ...extra })
-    .where(and(eq(quote.id, row.id), eq(quote.status, row.status)))
+    .set({ state: to, updatedAt: new Date(), ...extra })
+    .where(and(eq(quote.id, row.id), eq(quote.state, row.state)))
     .returning();
   if (!updated) return null;
-  await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: row.id, fromStatus: row.status, toStatus: to, actorId, note });
+  await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: row.id, fromState: row.state, toState: to, actorId, note });
   return updated;
 }

@@ -68,7 +68,7 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
   const { quote } = view;
   const money = (minor: number) => formatMoney(minor, quote.currency);
   const issued = quote.sentAt ?? options.now ?? new Date();
-  const draft = quote.status === 'draft';
+  const draft = quote.state === 'draft';
 
   const header: Node = {
     columns: [

@@ -15,7 +15,7 @@ export async function expireLapsedQuotes(now = new Date()): Promise<number> {
   const lapsed = await db
     .select()
     .from(quote)
-    .where(and(eq(quote.status, 'sent'), lt(quote.validUntil, now)))
+    .where(and(eq(quote.state, 'sent'), lt(quote.validUntil, now)))
     .limit(50);
   let expired = 0;
   for (const row of lapsed) {
@@ -23,12 +23,12 @@ export async function expireLapsedQuotes(now = new Date()): Promise<number> {
       if (!(await moveQuote(tx, row, 'expired', null))) return;
       expired++;
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, row.briefId)).limit(1);
-      if (briefRow?.status !== 'quoted') return;
+      if (briefRow?.state !== 'quoted') return;
       // A newer quote on the same brief that still stands keeps the brief open.
       const [standing] = await tx
         .select({ id: quote.id })
         .from(quote)
-        .where(and(eq(quote.briefId, row.briefId), ne(quote.id, row.id), eq(quote.status, 'sent'), gte(quote.validUntil, now)))
+        .where(and(eq(quote.briefId, row.briefId), ne(quote.id, row.id), eq(quote.state, 'sent'), gte(quote.validUntil, now)))
         .limit(1);
       if (!standing)
         await moveBrief(tx, briefRow, 'expired', 'system', null, `Quote ${row.number} lapsed on ${formatDate(row.validUntil)}`);

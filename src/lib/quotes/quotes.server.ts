@@ -34,7 +34,7 @@ export async function findQuoteFor(viewer: SignedInUser, id: string, { ownDrafts
   if (!view) return null;
   if (isStaff(viewer)) return view;
   if (view.brief.ownerId !== viewer.id) return null;
-  return view.quote.status !== 'draft' || ownDrafts ? view : null;
+  return view.quote.state !== 'draft' || ownDrafts ? view : null;
 }
 
 /** The same lookup as an outcome, for actions that continue with the quote. */
@@ -60,7 +60,7 @@ export async function latestQuotes(briefIds: readonly string[], includeDrafts = 
     .where(inArray(quote.briefId, [...briefIds]))
     .orderBy(quote.createdAt);
   const latest = new Map<string, QuoteRow>();
-  for (const row of rows) if (includeDrafts || row.status !== 'draft') latest.set(row.briefId, row);
+  for (const row of rows) if (includeDrafts || row.state !== 'draft') latest.set(row.briefId, row);
   return latest;
 }
 
@@ -69,7 +69,7 @@ export function quoteJson(view: QuoteView) {
   return {
     id: q.id,
     number: q.number,
-    status: view.status,
+    state: view.state,
     briefId: view.brief.id,
     briefTitle: view.brief.title,
     revisionId: view.revision.id,
@@ -114,8 +114,8 @@ const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.send
 
 /** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
 export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<Outcome<QuoteView>> {
-  if (view.quote.status !== 'draft')
-    return wrong(`Only a draft can be edited; this quote is ${view.status}. Draft a new quote to change it.`);
+  if (view.quote.state !== 'draft')
+    return wrong(`Only a draft can be edited; this quote is ${view.state}. Draft a new quote to change it.`);
   let validUntil: Date | undefined;
   if (patch.validUntil !== undefined) {
     const day = new Date(`${patch.validUntil}T00:00:00Z`);
@@ -151,7 +151,7 @@ export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new 
         ...(validUntil ? { validUntil } : {}),
         updatedAt: now,
       })
-      .where(and(eq(quote.id, view.quote.id), eq(quote.status, 'draft'), notBeingSent(now)))
+      .where(and(eq(quote.id, view.quote.id), eq(quote.state, 'draft'), notBeingSent(now)))
       .returning();
     if (!row) return null;
     await writeLines(tx, row.id, lines, taxRateBp, depositBp);
@@ -176,9 +176,9 @@ export function quotePdf(view: QuoteView): Promise<Buffer> {
  * mail leaves the draft as it was (and logged) so sending can be retried.
  */
 export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
-  if (view.quote.status !== 'draft') return wrong(`This quote is ${view.status} already; only a draft is sent.`);
-  if (view.brief.status !== 'in-review')
-    return wrong(`The brief is ${view.brief.status}; take it into review before sending a quote for it.`);
+  if (view.quote.state !== 'draft') return wrong(`This quote is ${view.state} already; only a draft is sent.`);
+  if (view.brief.state !== 'in-review')
+    return wrong(`The brief is ${view.brief.state}; take it into review before sending a quote for it.`);
   if (view.quote.totalMinor <= 0) return wrong('The quote totals nothing; add priced lines before sending it.');
   if (view.quote.validUntil.getTime() < now.getTime())
     return wrong(`The validity date ${formatDate(view.quote.validUntil)} has passed; set a new one before sending.`);
@@ -187,13 +187,13 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
   const [claimed] = await db
     .update(quote)
     .set({ sendingSince: now })
-    .where(and(eq(quote.id, view.quote.id), eq(quote.status, 'draft'), notBeingSent(now)))
+    .where(and(eq(quote.id, view.quote.id), eq(quote.state, 'draft'), notBeingSent(now)))
     .returning({ id: quote.id });
   if (!claimed) return wrong('This quote is being sent right now; reload in a moment to see the outcome.');
 
   // Read again under the claim, so the PDF shows exactly what is stored as sent.
   const current = (await loadQuoteView(db, view.quote.id)) ?? view;
-  const asSent: QuoteView = { ...current, status: 'sent', quote: { ...current.quote, status: 'sent', sentAt: now } };
+  const asSent: QuoteView = { ...current, state: 'sent', quote: { ...current.quote, state: 'sent', sentAt: now } };
   const mailed = await quotePdf(asSent)
     .then((pdf) => mailer.send(quoteMail(asSent, pdf, quotePageUrl(view.quote.id))))
     .catch((err: unknown) => ({ ok: false as const, error: err instanceof Error ? err.message : String(err) }));
@@ -223,10 +223,10 @@ class Refused extends Error {}
 /** The client accepts a sent quote that is still valid; the brief moves to accepted with it. */
 export async function acceptQuote(view: QuoteView, client: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.brief.ownerId !== client.id) return refuse('not-found', 'Nothing here, or it is not yours.');
-  if (view.quote.status === 'accepted' || view.quote.status === 'deposit-paid')
+  if (view.quote.state === 'accepted' || view.quote.state === 'deposit-paid')
     return wrong(`Quote ${view.quote.number} is accepted already.`);
-  if (view.quote.status === 'draft') return wrong('This quote has not been sent yet; it can be accepted once it reaches you.');
-  if (view.quote.status !== 'sent') return wrong(`Quote ${view.quote.number} is ${view.status} and cannot be accepted.`);
+  if (view.quote.state === 'draft') return wrong('This quote has not been sent yet; it can be accepted once it reaches you.');
+  if (view.quote.state !== 'sent') return wrong(`Quote ${view.quote.number} is ${view.state} and cannot be accepted.`);
   if (view.quote.validUntil.getTime() < now.getTime()) {
     return wrong(
       `Quote ${view.quote.number} expired on ${formatDate(view.quote.validUntil)}. Reply to the quote e-mail and we will send a fresh one.`,

@@ -3,9 +3,9 @@
  * table (sending, acceptance, expiry, the paid deposit), so no path sets a
  * state that the product does not know how to leave. Browser-safe.
  */
-import type { QuoteStatus } from '../platform/db/schema';
+import type { QuoteState } from '../platform/db/schema';
 
-const QUOTE_MOVES: Record<QuoteStatus, readonly QuoteStatus[]> = {
+const QUOTE_MOVES: Record<QuoteState, readonly QuoteState[]> = {
   draft: ['sent'],
   sent: ['accepted', 'expired'],
   accepted: ['deposit-paid'],
@@ -14,6 +14,6 @@ const QUOTE_MOVES: Record<QuoteStatus, readonly QuoteStatus[]> = {
   withdrawn: [],
 };
 
-export function canMoveQuote(from: QuoteStatus, to: QuoteStatus): boolean {
+export function canMoveQuote(from: QuoteState, to: QuoteState): boolean {
   return QUOTE_MOVES[from].includes(to);
 }

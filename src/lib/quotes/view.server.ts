@@ -9,7 +9,7 @@ import type { Evaluation, Option } from '../engine/types';
 import { formatSi } from '../engine/units';
 import { chosenOption, TOPOLOGY_NAMES, percent } from '~/lib/review';
 import { ES1_DC_LIMIT_V } from '../engine/cautions';
-import { brief, clientProfile, designRevision, quote, user } from '../platform/db/schema';
+import { brief, clientProfile, designRevision, quote, user, type QuoteState } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './core.server';
 import type { DbOrTx } from '../platform/db/connect';
 
@@ -40,11 +40,9 @@ export interface DesignSummary {
   cautions: string[];
 }
 
-export type QuoteStatus = QuoteRow['status'];
-
 /** A sent quote past its validity reads as expired, whether or not anyone has marked it. */
-export function statusAt(row: Pick<QuoteRow, 'status' | 'validUntil'>, now = new Date()): QuoteStatus {
-  return row.status === 'sent' && row.validUntil.getTime() < now.getTime() ? 'expired' : row.status;
+export function stateAt(row: Pick<QuoteRow, 'state' | 'validUntil'>, now = new Date()): QuoteState {
+  return row.state === 'sent' && row.validUntil.getTime() < now.getTime() ? 'expired' : row.state;
 }
 
 const SOURCES: Record<string, string> = { battery: 'battery', adapter: 'mains adapter', rectified: 'rectified mains', bus: 'DC bus' };
@@ -144,9 +142,9 @@ export function designSummary(option: Option): DesignSummary {
 
 export interface QuoteView {
   quote: QuoteRow;
-  status: QuoteStatus;
+  state: QuoteState;
   lines: QuoteLineRow[];
-  brief: { id: string; title: string; status: string; ownerId: string };
+  brief: { id: string; title: string; state: string; ownerId: string };
   client: { name: string; email: string; company: string | null };
   revision: { id: string; number: number; topology: string; note: string };
   requirements: Row[];
@@ -168,9 +166,9 @@ export async function loadQuoteView(db: DbOrTx, quoteId: string, now = new Date(
   const option = chosenOption({ topology: found.revision.topology, result: found.revision.result as Evaluation });
   return {
     quote: found.quote,
-    status: statusAt(found.quote, now),
+    state: stateAt(found.quote, now),
     lines,
-    brief: { id: found.brief.id, title: found.brief.title, status: found.brief.status, ownerId: found.brief.ownerId },
+    brief: { id: found.brief.id, title: found.brief.title, state: found.brief.state, ownerId: found.brief.ownerId },
     client: found.client,
     revision: { id: found.revision.id, number: found.revision.number, topology: found.revision.topology, note: found.revision.note },
     requirements: requirementRows(found.revision.input as RailSpec, found.brief.spec),

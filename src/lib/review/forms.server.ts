@@ -31,7 +31,7 @@ export async function handleReviewForm(
     await addNote(row.id, staff.id, fields.body);
     return succeed('noted');
   }
-  const moved = await moveAsStaff(staff, row, fields.status, fields.note);
+  const moved = await moveAsStaff(staff, row, fields.state, fields.note);
   if (moved.ok) return succeed('moved');
-  return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.status).label.toLowerCase()}.`);
+  return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.state).label.toLowerCase()}.`);
 }

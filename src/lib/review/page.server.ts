@@ -44,6 +44,6 @@ export async function reviewPageData(row: BriefRow, fromRevisionId: string | nul
     })),
     linearClasses: catalog.linearRegulators.map((c) => ({ id: c.id, label: c.label })),
     currency,
-    moves: movesFor(row.status, 'staff'),
+    moves: movesFor(row.state, 'staff'),
   };
 }

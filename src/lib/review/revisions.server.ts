@@ -18,7 +18,7 @@ const DESIGNABLE = new Set(['submitted', 'in-review', 'quoted', 'accepted', 'dep
  * full result, so a revision reads the same forever, whatever the catalog becomes.
  */
 export async function saveRevision(row: BriefRow, authorId: string, request: RevisionRequest): Promise<Outcome<RevisionRow>> {
-  if (!DESIGNABLE.has(row.status)) return refuse('wrong-state', `A brief that is ${row.status} takes no new revisions.`);
+  if (!DESIGNABLE.has(row.state)) return refuse('wrong-state', `A brief that is ${row.state} takes no new revisions.`);
   const parsed = briefWithChoices(row.spec, request);
   if (!parsed.success) return invalidInput('invalid_revision', railSpecIssues(parsed.error));
   const result: Evaluation = evaluate(parsed.data, await currentCatalog());

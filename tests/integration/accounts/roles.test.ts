@@ -5,9 +5,9 @@ const baseUrl = inject('baseUrl');
 
 describe('pages by role', () => {
   test('anonymous visitors are sent to sign-in, with the page they wanted kept', async () => {
-    const response = await new Visitor(baseUrl).request('/desk?status=submitted');
+    const response = await new Visitor(baseUrl).request('/desk?state=submitted');
     expect(response.status).toBe(303);
-    expect(response.headers.get('location')).toBe('/sign-in?next=%2Fdesk%3Fstatus%3Dsubmitted');
+    expect(response.headers.get('location')).toBe('/sign-in?next=%2Fdesk%3Fstate%3Dsubmitted');
   });
 
   test('the front page is public and ships no script', async () => {
@@ -50,9 +50,9 @@ describe('pages by role', () => {
       ((await (await engineer.request(`/api/v1/briefs?${query}`)).json()) as { items: { title: string }[] }).items.map((b) => b.title);
     expect(await titles('q=Soil-moisture')).toContain('Soil-moisture node, 3.3 V from one Li-ion cell');
     expect(await titles('q=Bench%20meter')).toContain('Bench meter analog front-end, quiet 12 V');
-    const submitted = await titles('status=submitted&q=Detector');
+    const submitted = await titles('state=submitted&q=Detector');
     expect(submitted).toContain('Detector bias, 150 V from a 300–350 V supply');
-    expect(await titles('status=submitted&q=Soil-moisture')).toEqual([]);
+    expect(await titles('state=submitted&q=Soil-moisture')).toEqual([]);
   });
 });
 

@@ -20,7 +20,7 @@ describe('briefs API', () => {
     });
     expect(created.status).toBe(201);
     const draft = await created.json();
-    expect(draft.status).toBe('draft');
+    expect(draft.state).toBe('draft');
     expect(created.headers.get('location')).toBe(`/api/v1/briefs/${draft.id}`);
 
     const edited = await client.request(`/api/v1/briefs/${draft.id}`, { method: 'PATCH', json: { spec: goodSpec, notes: 'now complete' } });
@@ -30,7 +30,7 @@ describe('briefs API', () => {
     const submitted = await client.request(`/api/v1/briefs/${draft.id}`, { method: 'PATCH', json: { submit: true } });
     expect(submitted.status).toBe(200);
     const after = await submitted.json();
-    expect(after.status).toBe('submitted');
+    expect(after.state).toBe('submitted');
     expect(after.submittedAt).not.toBeNull();
     expect(after.summary.feasibleCount).toBeGreaterThan(0);
 
@@ -67,14 +67,14 @@ describe('briefs API', () => {
     expect(own.items.every((b: { client: { name: string } }) => b.client.name === 'Jonas Brekke')).toBe(true);
 
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const submitted = await (await engineer.request('/api/v1/briefs?status=submitted&pageSize=100')).json();
-    expect(submitted.items.every((b: { status: string }) => b.status === 'submitted')).toBe(true);
+    const submitted = await (await engineer.request('/api/v1/briefs?state=submitted&pageSize=100')).json();
+    expect(submitted.items.every((b: { state: string }) => b.state === 'submitted')).toBe(true);
     const found = await (await engineer.request('/api/v1/briefs?q=Quillon')).json();
     expect(found.items.map((b: { title: string }) => b.title)).toContain('Bench meter analog front-end, quiet 12 V');
     const paged = await (await engineer.request('/api/v1/briefs?pageSize=2&page=2&sort=title')).json();
     expect(paged.items).toHaveLength(2);
     expect(paged.page).toBe(2);
-    expect((await engineer.request('/api/v1/briefs?status=lost')).status).toBe(400);
+    expect((await engineer.request('/api/v1/briefs?state=lost')).status).toBe(400);
     expect((await new Visitor(baseUrl).request('/api/v1/briefs')).status).toBe(401);
   });
 
@@ -83,7 +83,7 @@ describe('briefs API', () => {
     const mine = await (await client.request('/api/v1/briefs?q=Soil-moisture')).json();
     const detail = await (await client.request(`/api/v1/briefs/${mine.items[0].id}`)).json();
     expect(detail.quotes).toHaveLength(1);
-    expect(detail.quotes[0]).toMatchObject({ status: 'deposit-paid', currency: 'EUR' });
+    expect(detail.quotes[0]).toMatchObject({ state: 'deposit-paid', currency: 'EUR' });
     expect(detail.quotes[0].number).toMatch(/^RW-\d{4}-\d{4}$/);
     expect(detail).not.toHaveProperty('revisions');
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
@@ -97,7 +97,7 @@ describe('briefs API', () => {
     const theirs = (await (await owner.request('/api/v1/briefs')).json()).items[0];
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
     expect((await client.request(`/api/v1/briefs/${theirs.id}`)).status).toBe(404);
-    expect((await client.request(`/api/v1/briefs/${theirs.id}`, { method: 'PATCH', json: { status: 'cancelled' } })).status).toBe(404);
+    expect((await client.request(`/api/v1/briefs/${theirs.id}`, { method: 'PATCH', json: { state: 'cancelled' } })).status).toBe(404);
     expect((await client.request('/api/v1/briefs/does-not-exist')).status).toBe(404);
   });
 
@@ -109,10 +109,10 @@ describe('briefs API', () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
     const review = await engineer.request(`/api/v1/briefs/${created.id}`, {
       method: 'PATCH',
-      json: { status: 'in-review', note: 'Taking it' },
+      json: { state: 'in-review', note: 'Taking it' },
     });
     expect(review.status).toBe(200);
-    const jump = await engineer.request(`/api/v1/briefs/${created.id}`, { method: 'PATCH', json: { status: 'delivered' } });
+    const jump = await engineer.request(`/api/v1/briefs/${created.id}`, { method: 'PATCH', json: { state: 'delivered' } });
     expect(jump.status).toBe(409);
     const detail = await (await engineer.request(`/api/v1/briefs/${created.id}`)).json();
     expect(detail.history.at(-1)).toMatchObject({ from: 'submitted', to: 'in-review', by: 'Idris Valcourt', note: 'Taking it' });

@@ -48,7 +48,7 @@ async function until<T>(read: () => Promise<T>, ok: (value: T) => boolean, what:
   throw new Error(`Timed out waiting for ${what}`);
 }
 
-const quoteStatus = async (visitor: Visitor, id: string) => (await (await visitor.request(`/api/v1/quotes/${id}`)).json()).status as string;
+const quoteState = async (visitor: Visitor, id: string) => (await (await visitor.request(`/api/v1/quotes/${id}`)).json()).state as string;
 
 function signed(event: object, timestamp?: number) {
   const payload = JSON.stringify(event);
@@ -95,18 +95,18 @@ describe('deposit checkout', () => {
     const { url } = await (await rail.client.request(`/api/v1/quotes/${rail.quote.id}/checkout`, { method: 'POST' })).json();
     const declined = await pay(url, DECLINE_CARD);
     expect(declined.status).toBe(402);
-    expect(await quoteStatus(rail.client, rail.quote.id)).toBe('accepted');
+    expect(await quoteState(rail.client, rail.quote.id)).toBe('accepted');
 
     const paid = await pay(url, SUCCESS_CARD);
     expect(paid.status).toBe(303);
     expect(paid.headers.get('location')).toContain(`/quotes/${rail.quote.id}?payment=returned`);
     await until(
-      () => quoteStatus(rail.client, rail.quote.id),
+      () => quoteState(rail.client, rail.quote.id),
       (s) => s === 'deposit-paid',
       'the quote to be paid',
     );
     const briefNow = await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json();
-    expect(briefNow.status).toBe('deposit-paid');
+    expect(briefNow.state).toBe('deposit-paid');
     expect(briefNow.history.at(-1)).toMatchObject({ from: 'accepted', to: 'deposit-paid' });
 
     const mail = await until(
@@ -153,7 +153,7 @@ describe('webhook', () => {
     const sessionId = new URL(url).pathname.split('/').pop() ?? '';
     await pay(url, SUCCESS_CARD);
     await until(
-      () => quoteStatus(rail.client, rail.quote.id),
+      () => quoteState(rail.client, rail.quote.id),
       (s) => s === 'deposit-paid',
       'the quote to be paid',
     );
@@ -174,7 +174,7 @@ describe('webhook', () => {
     try {
       const payments = await db.select().from(payment).where(eq(payment.checkoutSessionId, sessionId));
       expect(payments).toHaveLength(1);
-      expect(payments[0]?.status).toBe('paid');
+      expect(payments[0]?.state).toBe('paid');
       const [recorded] = await db
         .select({ n: count() })
         .from(webhookEvent)
@@ -189,7 +189,7 @@ describe('webhook', () => {
       });
       expect(late.status).toBe(200);
       expect((await late.json()).outcome).toBe('ignored');
-      expect(await quoteStatus(rail.client, rail.quote.id)).toBe('deposit-paid');
+      expect(await quoteState(rail.client, rail.quote.id)).toBe('deposit-paid');
 
       const stranger = await signed({
         id: `evt_unknown_${Date.now()}`,

@@ -90,25 +90,25 @@ describe('crash safety', () => {
       for (const row of crashBriefs) {
         const history = await db.select().from(stateChange).where(eq(stateChange.subjectId, row.id));
         // Every brief that exists is whole: submitted, with its engine summary and both history steps.
-        expect(row.status).toBe('submitted');
+        expect(row.state).toBe('submitted');
         expect(row.summary).not.toBeNull();
-        expect(history.map((h) => h.toStatus).sort()).toEqual(['draft', 'submitted']);
+        expect(history.map((h) => h.toState).sort()).toEqual(['draft', 'submitted']);
       }
       // A quote is marked sent only after its e-mail went out, and then whole: sent time, brief quoted.
       for (const d of drafts) {
         const [row] = await db.select().from(quote).where(eq(quote.id, d.id));
         const lines = await db.select().from(quoteLine).where(eq(quoteLine.quoteId, d.id));
         expect(lines.length, 'a quote without its lines').toBeGreaterThan(0);
-        if (sentConfirmed.includes(d.id)) expect(row?.status).toBe('sent');
-        if (row?.status === 'sent') {
+        if (sentConfirmed.includes(d.id)) expect(row?.state).toBe('sent');
+        if (row?.state === 'sent') {
           expect(row.sentAt).not.toBeNull();
           const mails = await db
             .select()
             .from(mailLog)
-            .where(and(eq(mailLog.relatedId, d.id), eq(mailLog.status, 'sent')));
+            .where(and(eq(mailLog.relatedId, d.id), eq(mailLog.state, 'sent')));
           expect(mails.length, 'a quote marked sent without its e-mail').toBeGreaterThan(0);
           const [ofBrief] = await db.select().from(brief).where(eq(brief.id, row.briefId));
-          expect(ofBrief?.status).toBe('quoted');
+          expect(ofBrief?.state).toBe('quoted');
         }
       }
       const integrity = await sql.execute('PRAGMA integrity_check');

@@ -20,9 +20,9 @@ beforeAll(async () => {
   server = await startAppServer({ RATE_LIMIT_DISABLED: '1' });
   client = await new Visitor(server.baseUrl).signIn(DEMO.client);
   engineer = await new Visitor(server.baseUrl).signIn(DEMO.engineer);
-  const drafts = await (await client.request('/api/v1/briefs?status=draft')).json();
+  const drafts = await (await client.request('/api/v1/briefs?state=draft')).json();
   ownDraftId = drafts.items[0].id;
-  const inReview = await (await engineer.request('/api/v1/briefs?status=in-review')).json();
+  const inReview = await (await engineer.request('/api/v1/briefs?state=in-review')).json();
   reviewBriefId = inReview.items[0].id;
 });
 afterAll(async () => {

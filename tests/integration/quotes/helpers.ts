@@ -45,7 +45,7 @@ export async function railUnderReview(
   if (created.status !== 201) throw new Error(`Brief creation answered ${created.status}: ${await created.text()}`);
   const briefId = (await created.json()).id as string;
   const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-  const review = await engineer.request(`/api/v1/briefs/${briefId}`, { method: 'PATCH', json: { status: 'in-review' } });
+  const review = await engineer.request(`/api/v1/briefs/${briefId}`, { method: 'PATCH', json: { state: 'in-review' } });
   if (review.status !== 200) throw new Error(`Moving into review answered ${review.status}: ${await review.text()}`);
   const revision = await engineer.request(`/api/v1/briefs/${briefId}/revisions`, { method: 'POST', json: { note: 'As briefed' } });
   if (revision.status !== 201) throw new Error(`Saving a revision answered ${revision.status}: ${await revision.text()}`);

@@ -31,8 +31,8 @@ describe('when the mail server refuses', () => {
       expect(body.message).toContain(rail.email);
       expect(body.message).toContain('still a draft');
     }
-    expect((await (await rail.engineer.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('draft');
-    expect((await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('in-review');
+    expect((await (await rail.engineer.request(`/api/v1/quotes/${quote.id}`)).json()).state).toBe('draft');
+    expect((await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('in-review');
 
     // The builder shows the failure; the admin's mail log has both failed attempts.
     const builder = await (await rail.engineer.request(`/desk/quotes/${quote.id}`)).text();

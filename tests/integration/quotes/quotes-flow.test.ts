@@ -27,7 +27,7 @@ describe('drafting a quote from a revision', () => {
     const rail = await railUnderReview(baseUrl);
     const quote = await draft(rail.engineer, rail.revisionId);
     expect(quote.number).toMatch(new RegExp(`^RW-${new Date().getUTCFullYear()}-\\d{4}$`));
-    expect(quote).toMatchObject({ status: 'draft', currency: 'EUR', quantity: 1, taxRateBp: 2000, depositBp: 3000 });
+    expect(quote).toMatchObject({ state: 'draft', currency: 'EUR', quantity: 1, taxRateBp: 2000, depositBp: 3000 });
     const lines: Line[] = quote.lines;
     expect(lines.map((l) => l.kind)).toEqual(['design', 'design', 'parts', 'prototype', 'test-report']);
     // Buck: 12 h of design plus 1.5 h for its one revision, at the demo card's €115.00 an hour.
@@ -118,9 +118,9 @@ describe('editing, sending and accepting', () => {
     const sent = await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' });
     expect(sent.status).toBe(200);
     const sentQuote = await sent.json();
-    expect(sentQuote.status).toBe('sent');
+    expect(sentQuote.state).toBe('sent');
     expect(sentQuote.sentAt).not.toBeNull();
-    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('quoted');
+    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('quoted');
 
     const messages = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
     expect(messages).toHaveLength(1);
@@ -198,8 +198,8 @@ describe('editing, sending and accepting', () => {
 
     const accepted = await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' });
     expect(accepted.status).toBe(200);
-    expect((await accepted.json()).status).toBe('accepted');
-    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('accepted');
+    expect((await accepted.json()).state).toBe('accepted');
+    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('accepted');
     const twice = await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' });
     expect(twice.status).toBe(409);
     expect((await twice.json()).message).toContain('accepted already');
@@ -214,12 +214,12 @@ describe('editing, sending and accepting', () => {
     const late = await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' });
     expect(late.status).toBe(409);
     expect((await late.json()).message).toContain('expired');
-    expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('expired');
+    expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).state).toBe('expired');
     const briefNow = await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json();
-    expect(briefNow.status).toBe('expired');
+    expect(briefNow.state).toBe('expired');
     expect(JSON.stringify(briefNow)).toContain(`Quote ${quote.number} lapsed on`);
-    const [stored] = await execSql(databaseUrl, 'SELECT status FROM quote WHERE id = ?', [quote.id]);
-    expect(stored?.status).toBe('expired');
+    const [stored] = await execSql(databaseUrl, 'SELECT state FROM quote WHERE id = ?', [quote.id]);
+    expect(stored?.state).toBe('expired');
   });
 
   test('an older quote lapsing leaves the brief open while a newer sent quote stands', async () => {
@@ -230,15 +230,15 @@ describe('editing, sending and accepting', () => {
       (
         await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`, {
           method: 'PATCH',
-          json: { status: 'in-review', note: 'New quantity' },
+          json: { state: 'in-review', note: 'New quantity' },
         })
       ).status,
     ).toBe(200);
     const second = await draft(rail.engineer, rail.revisionId, 5);
     expect((await rail.engineer.request(`/api/v1/quotes/${second.id}/send`, { method: 'POST' })).status).toBe(200);
     await execSql(databaseUrl, 'UPDATE quote SET valid_until = ? WHERE id = ?', [Date.now() - 60_000, first.id]);
-    expect((await (await rail.client.request(`/api/v1/quotes/${first.id}`)).json()).status).toBe('expired');
-    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('quoted');
+    expect((await (await rail.client.request(`/api/v1/quotes/${first.id}`)).json()).state).toBe('expired');
+    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('quoted');
     expect((await rail.client.request(`/api/v1/quotes/${second.id}/accept`, { method: 'POST' })).status).toBe(200);
   });
 
@@ -255,6 +255,6 @@ describe('editing, sending and accepting', () => {
     const posted = await rail.client.form(`/quotes/${quote.id}`, {});
     expect(posted.status).toBe(303);
     expect(await (await rail.client.follow(posted)).text()).toContain(`quote ${quote.number} is accepted`);
-    expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).status).toBe('accepted');
+    expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).state).toBe('accepted');
   });
 });

@@ -6,7 +6,7 @@ const baseUrl = inject('baseUrl');
 interface Item {
   id: string;
   title: string;
-  status: string;
+  state: string;
   client: { id: string; name: string; company: string | null };
   submittedAt: string | null;
   updatedAt: string;
@@ -23,9 +23,9 @@ async function list(visitor: Visitor, query: string): Promise<{ items: Item[]; t
 describe('the desk list', () => {
   test('filters by state, by client and by text', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const submitted = await list(engineer, 'status=submitted&pageSize=100');
+    const submitted = await list(engineer, 'state=submitted&pageSize=100');
     expect(submitted.items.length).toBeGreaterThan(0);
-    expect(submitted.items.every((b) => b.status === 'submitted')).toBe(true);
+    expect(submitted.items.every((b) => b.state === 'submitted')).toBe(true);
     expect(submitted.items.map((b) => b.title)).toContain('Detector bias, 150 V from a 300–350 V supply');
     expect(submitted.items.map((b) => b.title)).not.toContain('PLC I/O card, 5 V at 1.5 A from the 24 V bus');
     // The 350 V input is flagged on the desk before anyone opens the brief (ES1 limit of IEC 62368-1: 60 V DC).
@@ -50,7 +50,7 @@ describe('the desk list', () => {
     expect([...up].sort((a, b) => (Buffer.from(a) < Buffer.from(b) ? -1 : 1))).toEqual(up);
     expect(down).toEqual([...up].reverse());
 
-    const newest = (await list(engineer, 'status=submitted&sort=-submitted&pageSize=100')).items.map((b) => Date.parse(b.submittedAt!));
+    const newest = (await list(engineer, 'state=submitted&sort=-submitted&pageSize=100')).items.map((b) => Date.parse(b.submittedAt!));
     expect(newest).toEqual([...newest].sort((a, b) => b - a));
     const oldest = (await list(engineer, 'sort=submitted&pageSize=100')).items
       .filter((b) => b.submittedAt)

@@ -74,18 +74,18 @@ describe('state moves and internal notes on the review page', () => {
   test('an engineer moves a brief with a reason through the page form; the history records who and why', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
     const briefId = movingId;
-    const moved = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', status: 'in-review', note: 'Taking this one' });
+    const moved = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', state: 'in-review', note: 'Taking this one' });
     expect(moved.status).toBe(303);
     expect(moved.headers.get('location')).toBe(`/desk/briefs/${briefId}?done=moved`);
     const detail = await (await engineer.request(`/api/v1/briefs/${briefId}`)).json();
-    expect(detail.status).toBe('in-review');
+    expect(detail.state).toBe('in-review');
     expect(detail.history.at(-1)).toMatchObject({ from: 'submitted', to: 'in-review', by: 'Idris Valcourt', note: 'Taking this one' });
 
     // Only moves open from the current state are offered, and others are refused.
     const html = await (await engineer.request(`/desk/briefs/${briefId}`)).text();
     expect(html).toContain('<option value="declined">');
     expect(html).not.toContain('<option value="in-review">');
-    const wrong = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', status: 'delivered', note: '' });
+    const wrong = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', state: 'delivered', note: '' });
     expect(wrong.status).toBe(409);
     expect(await wrong.text()).toContain('cannot move to delivered');
   });

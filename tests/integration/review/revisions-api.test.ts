@@ -53,7 +53,7 @@ describe('design revisions', () => {
 
   test('a draft takes no revision', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const list = await (await engineer.request('/api/v1/briefs?status=draft')).json();
+    const list = await (await engineer.request('/api/v1/briefs?state=draft')).json();
     const draft = list.items[0];
     expect((await engineer.request(`/api/v1/briefs/${draft.id}/revisions`, { method: 'POST', json: {} })).status).toBe(409);
   });

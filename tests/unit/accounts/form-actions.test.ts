@@ -3,7 +3,7 @@ import { homeFor, redirectWithCookies, safeNext } from '../../../src/lib/account
 
 describe('where a sign-in may send the visitor next', () => {
   test.each([
-    ['/desk?status=submitted', '/desk?status=submitted'],
+    ['/desk?state=submitted', '/desk?state=submitted'],
     ['//evil.example/path', '/home'],
     ['/\\evil.example', '/home'],
     ['https://evil.example', '/home'],

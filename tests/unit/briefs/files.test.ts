@@ -32,7 +32,7 @@ beforeAll(async () => {
     .insert(brief)
     .values([
       { ownerId: owner.id, title: 'Sensor rail', spec: {} },
-      { ownerId: owner.id, title: 'Old rail', spec: {}, status: 'cancelled' },
+      { ownerId: owner.id, title: 'Old rail', spec: {}, state: 'cancelled' },
     ])
     .returning({ id: brief.id });
   open = a!.id;

@@ -42,7 +42,7 @@ function highVoltageView(): QuoteView {
     number: 'RW-2026-0042',
     year: 2026,
     sequence: 42,
-    status: 'sent',
+    state: 'sent',
     currency: 'EUR',
     quantity: 2,
     taxRateBp: 2_000,
@@ -59,9 +59,9 @@ function highVoltageView(): QuoteView {
   };
   return {
     quote,
-    status: 'sent',
+    state: 'sent',
     lines,
-    brief: { id: 'b', title: 'Detector bias, 150 V', status: 'quoted', ownerId: 'c' },
+    brief: { id: 'b', title: 'Detector bias, 150 V', state: 'quoted', ownerId: 'c' },
     client: { name: 'Łukasz Żak', email: 'lz@detector.test', company: 'Żak Instruments' },
     revision: { id: 'r', number: 1, topology: option.topology, note: '' },
     requirements: requirementRows(input),

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { BRIEF_STATUSES } from '../../../src/lib/platform/db/schema';
+import { BRIEF_STATES } from '../../../src/lib/platform/db/schema';
 import { lifecycleTo } from '../../../src/lib/demo/lifecycle';
 import { BRIEF_STATE_LOOK, lookOf } from '../../../src/components/ui/state-look';
 import { formatMoney } from '../../../src/lib/platform/format';
@@ -7,12 +7,12 @@ import { navigationFor } from '../../../src/lib/accounts/navigation';
 
 describe('state vocabulary', () => {
   test('every brief state has a word and a glyph, so none is told by colour alone', () => {
-    for (const status of BRIEF_STATUSES) {
-      const look = lookOf(BRIEF_STATE_LOOK, status);
-      expect(look.label.length, status).toBeGreaterThan(2);
-      expect(look.glyph.length, status).toBeGreaterThan(0);
+    for (const state of BRIEF_STATES) {
+      const look = lookOf(BRIEF_STATE_LOOK, state);
+      expect(look.label.length, state).toBeGreaterThan(2);
+      expect(look.glyph.length, state).toBeGreaterThan(0);
     }
-    expect(new Set(BRIEF_STATUSES.map((s) => BRIEF_STATE_LOOK[s]?.label)).size).toBe(BRIEF_STATUSES.length);
+    expect(new Set(BRIEF_STATES.map((s) => BRIEF_STATE_LOOK[s]?.label)).size).toBe(BRIEF_STATES.length);
   });
 
   test('the demo history of a paid brief walks the main line in order', () => {

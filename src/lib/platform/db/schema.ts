@@ -4,7 +4,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { BRIEF_STATUSES, type BriefStatus } from '../../briefs/status';
+import { BRIEF_STATES, type BriefState } from '../../briefs/states';
 import { QUOTE_LINE_KINDS } from '../../quotes/pricing';
 import { user } from './auth-schema';
 
@@ -24,10 +24,10 @@ const updatedAt = () =>
     .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`)
     .$onUpdateFn(() => new Date());
 
-export { BRIEF_STATUSES, type BriefStatus };
+export { BRIEF_STATES, type BriefState };
 
-export const QUOTE_STATUSES = ['draft', 'sent', 'accepted', 'deposit-paid', 'expired', 'withdrawn'] as const;
-export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
+export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit-paid', 'expired', 'withdrawn'] as const;
+export type QuoteState = (typeof QUOTE_STATES)[number];
 
 export const clientProfile = sqliteTable('client_profile', {
   userId: text('user_id')
@@ -47,7 +47,7 @@ export const brief = sqliteTable(
       .notNull()
       .references(() => user.id),
     title: text('title').notNull(),
-    status: text('status', { enum: BRIEF_STATUSES }).notNull().default('draft'),
+    state: text('state', { enum: BRIEF_STATES }).notNull().default('draft'),
     /** The supply brief as the engine's schema defines it (JSON). */
     spec: text('spec', { mode: 'json' }).notNull(),
     notes: text('notes').notNull().default(''),
@@ -58,7 +58,7 @@ export const brief = sqliteTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index('brief_owner_idx').on(t.ownerId), index('brief_status_idx').on(t.status, t.submittedAt)],
+  (t) => [index('brief_owner_idx').on(t.ownerId), index('brief_state_idx').on(t.state, t.submittedAt)],
 );
 
 export const FILE_KINDS = ['schematic', 'datasheet', 'photo', 'load-log', 'other'] as const;
@@ -139,7 +139,7 @@ export const quote = sqliteTable(
     number: text('number').notNull().unique(),
     year: integer('year').notNull(),
     sequence: integer('sequence').notNull(),
-    status: text('status', { enum: QUOTE_STATUSES }).notNull().default('draft'),
+    state: text('state', { enum: QUOTE_STATES }).notNull().default('draft'),
     currency: text('currency').notNull(),
     quantity: integer('quantity').notNull().default(1),
     /** Tax and deposit as basis points (1 % = 100) so all arithmetic stays in integers. */
@@ -165,7 +165,7 @@ export const quote = sqliteTable(
     uniqueIndex('quote_year_sequence_idx').on(t.year, t.sequence),
     index('quote_brief_idx').on(t.briefId),
     // The lapsed-quote sweep runs before every brief or quote read.
-    index('quote_status_valid_until_idx').on(t.status, t.validUntil),
+    index('quote_state_valid_until_idx').on(t.state, t.validUntil),
   ],
 );
 
@@ -190,8 +190,8 @@ export const quoteLine = sqliteTable(
   (t) => [index('quote_line_quote_idx').on(t.quoteId, t.position)],
 );
 
-export const PAYMENT_STATUSES = ['pending', 'paid', 'failed', 'expired', 'refunded'] as const;
-export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+export const PAYMENT_STATES = ['pending', 'paid', 'failed', 'expired', 'refunded'] as const;
+export type PaymentState = (typeof PAYMENT_STATES)[number];
 /** What a payment is for: the deposit that starts design work, the balance at delivery, or money given back. */
 export const PAYMENT_KINDS = ['deposit', 'balance', 'refund'] as const;
 export type PaymentKind = (typeof PAYMENT_KINDS)[number];
@@ -209,7 +209,7 @@ export const payment = sqliteTable(
     paymentIntentId: text('payment_intent_id'),
     amountMinor: integer('amount_minor').notNull(),
     currency: text('currency').notNull(),
-    status: text('status', { enum: PAYMENT_STATUSES }).notNull().default('pending'),
+    state: text('state', { enum: PAYMENT_STATES }).notNull().default('pending'),
     paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -226,7 +226,7 @@ export const webhookEvent = sqliteTable('webhook_event', {
   receivedAt: createdAt(),
 });
 
-export const MAIL_STATUSES = ['sent', 'failed'] as const;
+export const MAIL_STATES = ['sent', 'failed'] as const;
 
 export const mailLog = sqliteTable(
   'mail_log',
@@ -237,7 +237,7 @@ export const mailLog = sqliteTable(
     subject: text('subject').notNull(),
     bodyText: text('body_text').notNull(),
     attachmentName: text('attachment_name'),
-    status: text('status', { enum: MAIL_STATUSES }).notNull(),
+    state: text('state', { enum: MAIL_STATES }).notNull(),
     error: text('error'),
     messageId: text('message_id'),
     relatedId: text('related_id'),
@@ -280,8 +280,8 @@ export const stateChange = sqliteTable(
     id: id(),
     subjectType: text('subject_type', { enum: ['brief', 'quote'] }).notNull(),
     subjectId: text('subject_id').notNull(),
-    fromStatus: text('from_status'),
-    toStatus: text('to_status').notNull(),
+    fromState: text('from_state'),
+    toState: text('to_state').notNull(),
     actorId: text('actor_id').references(() => user.id),
     note: text('note').notNull().default(''),
     createdAt: createdAt(),

@@ -15,7 +15,7 @@ export async function listMailLog(limit = 100) {
 /** The error of the latest mail about this thing, when that latest attempt failed. */
 export async function lastMailFailure(relatedId: string): Promise<string | null> {
   const [latest] = await db.select().from(mailLog).where(eq(mailLog.relatedId, relatedId)).orderBy(desc(mailLog.createdAt)).limit(1);
-  return latest?.status === 'failed' ? (latest.error ?? 'unknown error') : null;
+  return latest?.state === 'failed' ? (latest.error ?? 'unknown error') : null;
 }
 
 export type CaughtMessage = Omit<StoredMessage, 'rawBase64' | 'attachments'> & { attachments: MessageSummary['attachments'] };

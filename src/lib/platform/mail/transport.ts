@@ -44,7 +44,7 @@ export function createMailer(db: Database, smtpUrl: string, from: string): Maile
           subject: mail.subject,
           bodyText: mail.text,
           attachmentName,
-          status: 'sent',
+          state: 'sent',
           messageId,
           relatedId: mail.relatedId ?? null,
         });
@@ -57,7 +57,7 @@ export function createMailer(db: Database, smtpUrl: string, from: string): Maile
           subject: mail.subject,
           bodyText: mail.text,
           attachmentName,
-          status: 'failed',
+          state: 'failed',
           error,
           relatedId: mail.relatedId ?? null,
         });

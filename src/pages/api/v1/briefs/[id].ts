@@ -24,11 +24,11 @@ export const GET: APIRoute = async (context) => {
     ...briefDetailJson(detail),
     // Clients see a quote once it is sent; drafts stay with the consultancy.
     quotes: quotes
-      .filter((q) => staff || q.status !== 'draft')
+      .filter((q) => staff || q.state !== 'draft')
       .map((q) => ({
         id: q.id,
         number: q.number,
-        status: q.status,
+        state: q.state,
         currency: q.currency,
         totalMinor: q.totalMinor,
         depositMinor: q.depositMinor,
@@ -54,7 +54,7 @@ const staffMove = apiMutation({
   body: staffBriefPatchSchema,
   run: async ({ user, body, context }) => {
     const found = await briefOf(user, context.params.id);
-    return found.ok ? moveAsStaff(user, found.value, body.status, body.note) : found;
+    return found.ok ? moveAsStaff(user, found.value, body.state, body.note) : found;
   },
   answer: (row) => json(briefJson(row)),
 });

@@ -13,8 +13,8 @@ export const GET: APIRoute = async (context) => {
   if (!query.success) return invalid('invalid_query', zodIssues(query.error));
   const gate = guardApi(context, ANY_ROLE);
   if (!gate.ok) return gate.response;
-  const { status, q, client, page, pageSize, sort } = query.data;
-  const list = await listBriefs(gate.user, { status, q, ownerId: client, page, pageSize, sort });
+  const { state, q, client, page, pageSize, sort } = query.data;
+  const list = await listBriefs(gate.user, { state, q, ownerId: client, page, pageSize, sort });
   return json(briefListJson(list));
 };
 

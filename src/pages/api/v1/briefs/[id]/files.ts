@@ -15,7 +15,7 @@ export const POST = apiMutation({
     // Clients find only their own briefs; staff find every brief.
     const target = await briefOf(user, context.params.id);
     if (!target.ok) return target;
-    if (isClosedBrief(target.value.status)) return refuse('wrong-state', closedMessage(target.value.status));
+    if (isClosedBrief(target.value.state)) return refuse('wrong-state', closedMessage(target.value.state));
     const form = await readUploadForm(context.request);
     if (!form.ok) return form;
     return saveUpload({
