@@ -70,7 +70,7 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     await screenshot(client, 'quote-client-accepted');
     await phone.close();
 
-    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).status).toBe('accepted');
+    expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('accepted');
     expect(errors).toEqual([]);
   });
 });
