@@ -2,13 +2,13 @@
 // searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { forced } from '../context.ts';
-import { Refs, caution, makePart, type Design, type DesignPart, type PartStress } from '../design.ts';
-import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
+import { Refs, caution, type Design, type DesignPart, type PartStress } from '../design.ts';
+import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import { inputCautions } from './switcher-input.ts';
+import * as shared from './switcher-stress.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
@@ -16,27 +16,15 @@ import {
   classVoltageFindings,
   dutyWindow,
   finding,
-  hotStage,
   inputBank,
   onTimeFinding,
   outputBank,
-  peakFinding,
-  postFilter,
   boostSegments,
   ripplePeakToPeak,
   rippleReference,
-  stageRefs,
-  thermalFinding,
   stepCapacitance,
-  switcherFeedback,
   converterDesign,
-  feedbackNeed,
-  quietRail,
   railRequest,
-  traceRds,
-  searchStage,
-  sizingIssues,
-  traceStep,
   voltageFits,
   type ConverterStage,
   type StageRequest,
@@ -173,12 +161,9 @@ function sizeBoost(
   const dLow = Math.min(0.99, Math.max(0, 1 - vLow / vOut));
   const ilMax = iMax / (1 - dLow);
   const lWanted = (vLow * dLow) / (fsw * RIPPLE_RATIO * rippleReference(base, ilMax));
-  const forcedL = forced(ctx, r.l);
-  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
-  const cold = boostPoint(base, vLow, vOut, iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
-  const { stage, tjC } = hotStage(ctx, base, cold.switchW);
-  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, cold.peakA, base.iSwitchMaxA, forcedL);
-  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
+  const { stage, tjC, inductor, issue, core } = shared.sizeInductor(ctx, r, base, fsw, lWanted, (henries, dcrOhm) => [
+    boostPoint(base, vLow, vOut, iMax, fsw, henries, dcrOhm),
+  ]);
   const point = (vIn: number, iOut: number) => boostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, 1, core);
   const low = point(vLow, iMax);
   const high = point(vMax, iMax);
@@ -194,11 +179,7 @@ function sizeBoost(
         'a buck-boost stage, or an input that stays below the output',
       ),
     );
-  const peak = peakFinding(stage, low.peakA);
-  if (peak) findings.push(peak);
-  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
-  if (hot) findings.push(hot);
-  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  findings.push(...shared.commonFindings(ctx, base, stage, low.peakA, Math.max(high.switchW, low.switchW), issue));
   const window = dutyWindow(stage, fsw);
   if (low.d > window.dMax) {
     const need = (vOut * (1 - window.dMax)) / low.etaPath;
@@ -228,8 +209,7 @@ function sizeBoost(
   // The boost draws a continuous input current: the input capacitor carries only ΔIL (RMS ΔIL/√12).
   const cin = inputBank(ctx, r.cin, vMax, vLow, low.rippleA / 8, low.rippleA / Math.sqrt(12), fsw);
   findings.push(...capacitorFindings(cout, cin));
-  const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
-  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
+  const costCents = shared.stageCostCents(catalog, stage, [inductor.part, cout.part, cin.part], true);
   const nominal = point(Math.min(Math.max(spec.input.vNom, vLow), vMax, vOut), load.iTyp);
   return {
     stage,
@@ -256,29 +236,22 @@ export interface BoostStage extends ConverterStage {
 
 export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BoostStage {
   const { catalog } = ctx;
-  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
+  const { input, vTarget, load, idPrefix } = req;
   const { vMax, vTrough: vLow } = input;
   const { iMax } = load;
-  const r = stageRefs(refs);
-  const quiet = quietRail(ctx);
-  const need = feedbackNeed(ctx, req);
-  const s = searchStage(
+  const { r, s, fb, vOut, filtered, issues, fixes } = shared.setupStage(
     ctx,
+    refs,
+    trace,
     req,
     'boost',
-    (stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (r, stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
     (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV),
+    (sized) => boostRipple(iMax, sized.low.d, sized.low.peakA, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
   );
   const { stage, fsw, inductor, cout, cin, low } = s;
   const sync = stage.rectification === 'sync';
-  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
-  const estimate = boostRipple(iMax, low.d, low.peakA, fsw, cout.effectiveF, cout.esrOhm);
-  const filtered = allowPostFilter && (quiet || estimate > budget);
-  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
-  const vOut = fb.divider.vOut;
-  const { issues, fixes } = sizingIssues(s);
 
-  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
   const dIdeal = Math.min(0.99, Math.max(0, 1 - vLow / vTarget));
   trace.add(
     `${idPrefix}.l`,
@@ -340,20 +313,7 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
       'A',
     );
   }
-  trace.add(
-    `${idPrefix}.cout`,
-    'Output capacitance left at the working bias',
-    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
-    {
-      C: [cout.farads, 'F'],
-      tol: [cout.family.tolerance, ''],
-      k: [cout.family.biasLossAtRated, ''],
-      V: [cout.workingV, 'V'],
-      Vrated: [cout.part.ratingV ?? 0, 'V'],
-    },
-    cout.effectiveF,
-    'F',
-  );
+  shared.traceEffectiveCout(trace, `${idPrefix}.cout`, cout);
   trace.add(
     `${idPrefix}.cout.rms`,
     'Output capacitor RMS current at the lowest input',
@@ -380,52 +340,19 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
     ripplePeakToPeak(boostSegments(worst.mode, worst.d, worst.peakA, worst.rippleA, iMax, fsw), cout.effectiveF, cout.esrOhm),
     'V',
   );
-  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
-  if (step) {
-    issues.push(step.issue);
-    if (step.fix) fixes.push(step.fix);
-  }
-  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, iMax, cout.effectiveF, idPrefix) : null;
-  if (post) issues.push(...post.issues);
+  const post = shared.stepAndFilter(ctx, refs, trace, { fsw, vOut, iMax, cout, filtered, idPrefix }, issues, fixes);
 
   const uRef = r.u;
   const dRef = sync ? '' : refs.next('D');
-  const parts: DesignPart[] = [
-    makePart({
-      ref: uRef,
-      role: 'switch',
-      part: stage.label,
-      ratingV: stage.vOutMaxV,
-      costCents: stage.costCents,
-      thermal: {
-        thetaJcCW: stage.thetaJaCW,
-        thetaJaCW: stage.thetaJaCW,
-        tjMaxC: stage.tjMaxC,
-        heatsinkable: false,
-        protectedInFault: true,
-      },
-    }),
-    inductor.part,
-    cin.part,
-    cout.part,
-    ...fb.parts,
-  ];
+  const parts: DesignPart[] = [shared.switchPart(uRef, stage, stage.vOutMaxV), inductor.part, cin.part, cout.part, ...fb.parts];
   if (!sync) {
     parts.push(
-      makePart({
-        ref: dRef,
-        role: 'diode',
-        part: `Schottky output diode, Vf ${stage.diodeVfV} V`,
-        ratingV: pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * vOut),
-        costCents: catalog.diode.costCents * 3,
-        thermal: {
-          thetaJcCW: catalog.diode.thetaJaCW,
-          thetaJaCW: catalog.diode.thetaJaCW,
-          tjMaxC: catalog.diode.tjMaxC,
-          heatsinkable: false,
-          protectedInFault: true,
-        },
-      }),
+      shared.rectifierPart(
+        dRef,
+        `Schottky output diode, Vf ${stage.diodeVfV} V`,
+        pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * vOut),
+        catalog,
+      ),
     );
   }
   if (post) parts.push(...post.parts);
@@ -437,21 +364,12 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
   );
   issues.push(...inputCautions(ctx, { vMax, vTrough: vLow, cin, pInW: low.pInW, ratingV: stage.vInMaxV }));
 
+  const stressParts = { u: uRef, inductor, cin, cout, fb, stage };
   const stress = (vIn: number, iOut: number, at?: BoostPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const st: Record<string, PartStress> = {
-      [uRef]: { w: p.switchW, v: vOut },
-      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: vOut },
-      [cin.part.ref]: { w: 0, v: vIn },
-      [cout.part.ref]: { w: 0, v: vOut },
-      [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
-      [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
-    };
+    const st = shared.coreStress(stressParts, p, vIn, vOut, vOut);
     if (!sync) st[dRef] = { w: p.rectifierW, v: vOut };
-    if (post) {
-      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      st[post.capRef] = { w: 0, v: vOut };
-    }
+    shared.postFilterStress(st, post, iOut, vOut);
     return st;
   };
   // Shorted output: the inductor current is limited by the fuse the caution asks for (≈ Isat).
@@ -477,16 +395,7 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
     faultA,
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
     output: fb.output,
-    assumptions: {
-      [`${uRef}.fsw`]: { value: fsw, unit: 'Hz' },
-      [`${uRef}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
-      [`${uRef}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
-      [`${uRef}.iLimit`]: { value: stage.iSwitchMaxA, unit: 'A' },
-      [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
-      [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
-      [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
-      [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
-    },
+    assumptions: shared.stageAssumptions(uRef, stage, fsw, inductor, cout, false),
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
       return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };

@@ -2,15 +2,15 @@
 // switches both legs in between, so it regulates an input range that straddles the output.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { forced } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, makePart, type Design, type PartStress } from '../design.ts';
-import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
+import { Refs, info, type Design, type PartStress } from '../design.ts';
+import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { cycleLosses, sumCycle } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import { boostPoint, boostRipple } from './boost.ts';
 import { buckPoint, buckRipple } from './buck.ts';
 import { inputCautions } from './switcher-input.ts';
+import * as shared from './switcher-stress.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
@@ -18,28 +18,16 @@ import {
   classVoltageFindings,
   dutyWindow,
   finding,
-  hotStage,
   inputBank,
   onTimeFinding,
   outputBank,
-  peakFinding,
-  postFilter,
   boostSegments,
   buckSegments,
   ripplePeakToPeak,
   rippleReference,
-  stageRefs,
-  thermalFinding,
   stepCapacitance,
-  switcherFeedback,
   converterDesign,
-  feedbackNeed,
-  quietRail,
   railRequest,
-  traceRds,
-  searchStage,
-  sizingIssues,
-  traceStep,
   voltageFits,
   type ConverterStage,
   type StageRequest,
@@ -68,6 +56,18 @@ export interface BuckBoostPoint {
   boost: boolean;
 }
 
+/** One leg switching as a plain buck or boost, the other's top switch held on. */
+function onlyLeg(
+  region: 'buck' | 'boost',
+  p: Pick<BuckBoostPoint, 'd' | 'rippleA' | 'peakA' | 'switchW' | 'dcrW' | 'coreW' | 'pInW' | 'pOutW'>,
+  dBuck: number,
+  dBoost: number,
+  il: number,
+): BuckBoostPoint {
+  const { d, rippleA, peakA, switchW, dcrW, coreW, pInW, pOutW } = p;
+  return { region, d, dBuck, dBoost, il, rippleA, peakA, switchW, dcrW, coreW, pInW, pOutW, boost: region === 'boost' };
+}
+
 /**
  * Above the output the buck leg switches while the boost leg's top switch stays on; below it the
  * boost leg switches while the buck leg's top switch stays on: two switches always carry the
@@ -90,40 +90,12 @@ export function buckBoostPoint(
   if (vIn > vOut) {
     const p = buckPoint({ ...stage, rdsOnOhm: 2 * stage.rdsOnOhm }, vIn, vOut, iOut, fsw, henries, dcrOhm, coreLoss);
     if (p.d <= window.dMax) {
-      return {
-        region: 'buck',
-        d: p.d,
-        dBuck: p.d,
-        dBoost: 0,
-        il: iOut,
-        rippleA: p.rippleA,
-        peakA: p.peakA,
-        switchW: p.switchW,
-        dcrW: p.dcrW,
-        coreW: p.coreW,
-        pInW: p.pInW,
-        pOutW: p.pOutW,
-        boost: false,
-      };
+      return onlyLeg('buck', p, p.d, 0, iOut);
     }
   } else {
     const p = boostPoint(stage, vIn, vOut, iOut, fsw, henries, dcrOhm, 2, coreLoss);
     if (p.d >= window.dMin || p.mode !== 'ccm') {
-      return {
-        region: 'boost',
-        d: p.d,
-        dBuck: 1,
-        dBoost: p.d,
-        il: p.inductorA,
-        rippleA: p.rippleA,
-        peakA: p.peakA,
-        switchW: p.switchW,
-        dcrW: p.dcrW,
-        coreW: p.coreW,
-        pInW: p.pInW,
-        pOutW: p.pOutW,
-        boost: true,
-      };
+      return onlyLeg('boost', p, 1, p.d, p.inductorA);
     }
   }
   const pOut = vOut * iOut;
@@ -211,31 +183,17 @@ function sizeBuckBoost(
   const ilBoost = iMax / (1 - dBoost);
   const lBoost = (vLow * dBoost) / (fsw * RIPPLE_RATIO * rippleReference(base, ilBoost));
   const lWanted = Math.max(lBuck, lBoost, 1e-9);
-  const forcedL = forced(ctx, r.l);
-  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
-  const coldAt = (vIn: number) => buckBoostPoint(base, vIn, vOut, iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
-  const coldLow = coldAt(vLow);
-  const coldHigh = coldAt(vMax);
-  const { stage, tjC } = hotStage(ctx, base, Math.max(coldLow.switchW, coldHigh.switchW));
-  const { chosen: inductor, issue: lIssue } = chooseInductor(
-    r.l,
-    catalog,
-    lWanted,
-    Math.max(coldLow.peakA, coldHigh.peakA),
-    base.iSwitchMaxA,
-    forcedL,
+  const { stage, tjC, inductor, issue, core } = shared.sizeInductor(ctx, r, base, fsw, lWanted, (henries, dcrOhm) =>
+    [vLow, vMax].map((vIn) => buckBoostPoint(base, vIn, vOut, iMax, fsw, henries, dcrOhm)),
   );
-  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
   const point = (vIn: number, iOut: number) => buckBoostPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, core);
   const low = point(vLow, iMax);
   const high = point(vMax, iMax);
 
-  const findings = classVoltageFindings(stage, vMax, vLow, vOut, Math.max(vMax, vOut * 1.05), stage.vOutMaxV);
-  const peak = peakFinding(stage, Math.max(low.peakA, high.peakA));
-  if (peak) findings.push(peak);
-  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
-  if (hot) findings.push(hot);
-  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  const findings = [
+    ...classVoltageFindings(stage, vMax, vLow, vOut, Math.max(vMax, vOut * 1.05), stage.vOutMaxV),
+    ...shared.commonFindings(ctx, base, stage, Math.max(low.peakA, high.peakA), Math.max(high.switchW, low.switchW), issue),
+  ];
   const window = dutyWindow(stage, fsw);
   if (low.boost && low.dBoost > window.dMax) {
     findings.push(
@@ -262,7 +220,7 @@ function sizeBuckBoost(
   const cinRms = Math.max(iMax * Math.sqrt(dHigh * (1 - dHigh)), low.rippleA / Math.sqrt(12));
   const cin = inputBank(ctx, r.cin, vMax, vLow, iMax * dHigh * (1 - dHigh), cinRms, fsw);
   findings.push(...capacitorFindings(cout, cin));
-  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents;
+  const costCents = shared.stageCostCents(catalog, stage, [inductor.part, cout.part, cin.part], false);
   const nominal = point(Math.min(Math.max(ctx.spec.input.vNom, vLow), vMax), load.iTyp);
   return {
     stage,
@@ -292,28 +250,22 @@ export interface BuckBoostStage extends ConverterStage {
 
 export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BuckBoostStage {
   const { spec, catalog } = ctx;
-  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
-  const r = stageRefs(refs);
-  const quiet = quietRail(ctx);
-  const need = feedbackNeed(ctx, req);
-  const s = searchStage(
+  const { input, vTarget, load, idPrefix } = req;
+  const { r, s, fb, vOut, filtered, issues, fixes } = shared.setupStage(
     ctx,
+    refs,
+    trace,
     req,
     'buck-boost',
-    (stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (r, stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
     (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)),
+    (sized) =>
+      Math.max(
+        buckBoostRipple(sized.low, load.iMax, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
+        buckBoostRipple(sized.high, load.iMax, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
+      ),
   );
   const { stage, fsw, inductor, cout, cin } = s;
-  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
-  const estimate = Math.max(
-    buckBoostRipple(s.low, load.iMax, fsw, cout.effectiveF, cout.esrOhm),
-    buckBoostRipple(s.high, load.iMax, fsw, cout.effectiveF, cout.esrOhm),
-  );
-  const filtered = allowPostFilter && (quiet || estimate > budget);
-  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
-  const vOut = fb.divider.vOut;
-  const { issues, fixes } = sizingIssues(s);
-  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
   trace.select(
     `${idPrefix}.l`,
     'Inductance for the ripple ratio at the worse end of the input range',
@@ -348,20 +300,7 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     peak,
     'A',
   );
-  trace.add(
-    `${idPrefix}.cout`,
-    'Output capacitance left at the working bias',
-    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
-    {
-      C: [cout.farads, 'F'],
-      tol: [cout.family.tolerance, ''],
-      k: [cout.family.biasLossAtRated, ''],
-      V: [cout.workingV, 'V'],
-      Vrated: [cout.part.ratingV ?? 0, 'V'],
-    },
-    cout.effectiveF,
-    'F',
-  );
+  shared.traceEffectiveCout(trace, `${idPrefix}.cout`, cout);
   const rippleOf = (p: BuckBoostPoint) =>
     ripplePeakToPeak(
       p.boost
@@ -382,13 +321,7 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     Math.max(rippleOf(lowP), rippleOf(highP)),
     'V',
   );
-  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
-  if (step) {
-    issues.push(step.issue);
-    if (step.fix) fixes.push(step.fix);
-  }
-  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, load.iMax, cout.effectiveF, idPrefix) : null;
-  if (post) issues.push(...post.issues);
+  const post = shared.stepAndFilter(ctx, refs, trace, { fsw, vOut, iMax: load.iMax, cout, filtered, idPrefix }, issues, fixes);
   issues.push(...inputCautions(ctx, { vMax: input.vMax, vTrough: input.vTrough, cin, pInW: lowP.pInW, ratingV: stage.vInMaxV }));
   const window = dutyWindow(stage, fsw);
   if (spec.input.vNom > vOut) {
@@ -403,41 +336,12 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     }
   }
 
-  const parts = [
-    makePart({
-      ref: r.u,
-      role: 'switch',
-      part: stage.label,
-      ratingV: stage.vInMaxV,
-      costCents: stage.costCents,
-      thermal: {
-        thetaJcCW: stage.thetaJaCW,
-        thetaJaCW: stage.thetaJaCW,
-        tjMaxC: stage.tjMaxC,
-        heatsinkable: false,
-        protectedInFault: true,
-      },
-    }),
-    inductor.part,
-    cin.part,
-    cout.part,
-    ...fb.parts,
-    ...(post?.parts ?? []),
-  ];
+  const parts = [shared.switchPart(r.u, stage, stage.vInMaxV), inductor.part, cin.part, cout.part, ...fb.parts, ...(post?.parts ?? [])];
+  const stressParts = { u: r.u, inductor, cin, cout, fb, stage };
   const stress = (vIn: number, iOut: number, at?: BuckBoostPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const st: Record<string, PartStress> = {
-      [r.u]: { w: p.switchW, v: Math.max(vIn, vOut) },
-      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: Math.max(vIn, vOut) },
-      [cin.part.ref]: { w: 0, v: vIn },
-      [cout.part.ref]: { w: 0, v: vOut },
-      [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
-      [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
-    };
-    if (post) {
-      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      st[post.capRef] = { w: 0, v: vOut };
-    }
+    const st = shared.coreStress(stressParts, p, vIn, vOut, Math.max(vIn, vOut));
+    shared.postFilterStress(st, post, iOut, vOut);
     return st;
   };
   const lim = stage.iSwitchMaxA;
@@ -462,16 +366,7 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     switchRef: r.u,
     rippleVpp: rippleStage * (post?.attenuation ?? 1),
     output: fb.output,
-    assumptions: {
-      [`${r.u}.fsw`]: { value: fsw, unit: 'Hz' },
-      [`${r.u}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
-      [`${r.u}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
-      [`${r.u}.iLimit`]: { value: lim, unit: 'A' },
-      [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
-      [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
-      [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
-      [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
-    },
+    assumptions: shared.stageAssumptions(r.u, stage, fsw, inductor, cout, false),
     point,
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);

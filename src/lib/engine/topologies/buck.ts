@@ -2,15 +2,15 @@
 // The class and switching frequency are searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { forced } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, caution, makePart, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
-import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenInductor } from '../inductors.ts';
+import { Refs, info, caution, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
 import type { Quantity } from '../types.ts';
 import { inputCautions } from './switcher-input.ts';
+import * as shared from './switcher-stress.ts';
 import {
   RIPPLE_BUDGET,
   RIPPLE_RATIO,
@@ -18,27 +18,15 @@ import {
   classVoltageFindings,
   dutyWindow,
   finding,
-  hotStage,
   inputBank,
   onTimeFinding,
   outputBank,
-  peakFinding,
-  postFilter,
   rippleReference,
-  stageRefs,
-  thermalFinding,
   stepCapacitance,
-  switcherFeedback,
   converterDesign,
-  feedbackNeed,
-  quietRail,
   railRequest,
   buckSegments,
   ripplePeakToPeak,
-  traceRds,
-  searchStage,
-  sizingIssues,
-  traceStep,
   voltageFits,
   type ConverterStage,
   type Finding,
@@ -178,22 +166,17 @@ export function sizeBuck(
   const { catalog } = ctx;
   const d0 = Math.min(1, vOut / input.vMax);
   const lWanted = (Math.max(0, input.vMax - vOut) * d0) / (fsw * RIPPLE_RATIO * rippleReference(base, load.iMax));
-  const forcedL = forced(ctx, r.l);
-  const lGuess = forcedL ?? snapInductance(catalog, lWanted);
-  const cold = buckPoint(base, input.vMax, vOut, load.iMax, fsw, lGuess, inductorDcr(catalog, lGuess, base.iSwitchMaxA));
-  const { stage, tjC } = hotStage(ctx, base, cold.switchW);
-  const { chosen: inductor, issue: lIssue } = chooseInductor(r.l, catalog, lWanted, cold.peakA, base.iSwitchMaxA, forcedL);
-  const core = (ripple: number) => coreLossW(catalog, inductor.henries, inductor.isatA, ripple, fsw);
+  const { stage, tjC, inductor, issue, core } = shared.sizeInductor(ctx, r, base, fsw, lWanted, (henries, dcrOhm) => [
+    buckPoint(base, input.vMax, vOut, load.iMax, fsw, henries, dcrOhm),
+  ]);
   const point = (vIn: number, iOut: number) => buckPoint(stage, vIn, vOut, iOut, fsw, inductor.henries, inductor.dcrOhm, core);
   const high = point(input.vMax, load.iMax);
   const low = point(input.vTrough, load.iMax);
 
-  const findings: Finding[] = classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV);
-  const peak = peakFinding(stage, high.peakA);
-  if (peak) findings.push(peak);
-  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, Math.max(high.switchW, low.switchW)).tjC);
-  if (hot) findings.push(hot);
-  if (lIssue) findings.push({ issue: lIssue, fix: null });
+  const findings: Finding[] = [
+    ...classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV),
+    ...shared.commonFindings(ctx, base, stage, high.peakA, Math.max(high.switchW, low.switchW), issue),
+  ];
   if (high.mode === 'ccm' || stage.lightLoad === 'forced-pwm') {
     const onTime = onTimeFinding(stage, fsw, high.d, `At ${input.vMax} V in`);
     if (onTime) findings.push(onTime);
@@ -216,8 +199,7 @@ export function sizeBuck(
   const stressFactor = dutyStress(low.d, high.d);
   const cin = inputBank(ctx, r.cin, input.vMax, input.vTrough, load.iMax * stressFactor, load.iMax * Math.sqrt(stressFactor), fsw);
   findings.push(...capacitorFindings(cout, cin));
-  const diodeCents = stage.rectification === 'sync' ? 0 : catalog.diode.costCents * 3;
-  const costCents = stage.costCents + inductor.part.costCents + cout.part.costCents + cin.part.costCents + diodeCents;
+  const costCents = shared.stageCostCents(catalog, stage, [inductor.part, cout.part, cin.part], true);
   const vNominal = Math.min(Math.max(ctx.spec.input.vNom, input.vTrough), input.vMax);
   const nominal = point(vNominal, load.iTyp);
   return {
@@ -249,30 +231,23 @@ export interface BuckStage extends ConverterStage {
 
 export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequest): BuckStage {
   const { spec, catalog } = ctx;
-  const { input, vTarget, load, rippleLimit, allowPostFilter, idPrefix } = req;
-  const r = stageRefs(refs);
-  const quiet = quietRail(ctx);
-  const need = feedbackNeed(ctx, req);
-  const s = searchStage(
+  const { input, vTarget, load, idPrefix } = req;
+  const { r, s, fb, vOut, filtered, issues, fixes } = shared.setupStage(
     ctx,
+    refs,
+    trace,
     req,
     'buck',
-    (stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit),
+    (r, stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit),
     (stage) => voltageFits(stage, input.vMax, input.vMax),
+    (sized) => buckRipple(sized.high.rippleA, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
   );
   const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
-  const budget = RIPPLE_BUDGET * rippleLimit(fsw);
-  const estimate = buckRipple(high.rippleA, fsw, cout.effectiveF, cout.esrOhm);
-  const filtered = allowPostFilter && (quiet || estimate > budget);
-  const fb = switcherFeedback(ctx, r, trace, stage, need(filtered, filtered ? 0 : estimate / 2), idPrefix);
-  const vOut = fb.divider.vOut;
-  const { issues, fixes } = sizingIssues(s);
   if (spec.overrides.fswHz !== undefined && spec.overrides.fswHz !== fsw) {
     issues.push(info('fsw-clamped', `${stage.label} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`));
   }
 
-  traceRds(trace, `${idPrefix}.rds`, s.rds25, s.tjC, stage.rdsOnOhm);
   trace.add(
     `${idPrefix}.l`,
     'Inductance for the ripple ratio at the highest input',
@@ -343,20 +318,7 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     worst.d / fsw,
     's',
   );
-  trace.add(
-    `${idPrefix}.cout`,
-    'Output capacitance left at the working bias',
-    'Ceff = C·(1 − tol)·max(0.2, 1 − k·V/Vrated)',
-    {
-      C: [cout.farads, 'F'],
-      tol: [cout.family.tolerance, ''],
-      k: [cout.family.biasLossAtRated, ''],
-      V: [cout.workingV, 'V'],
-      Vrated: [cout.part.ratingV ?? 0, 'V'],
-    },
-    cout.effectiveF,
-    'F',
-  );
+  shared.traceEffectiveCout(trace, `${idPrefix}.cout`, cout);
   // The textbook ΔIL/(8·fsw·C) + ΔIL·ESR adds two peaks that do not coincide (it sized the
   // capacitor, as a bound); the figure stated is the exact waveform's.
   const rippleStage = trace.select(
@@ -386,56 +348,16 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     load.iMax * Math.sqrt(stressFactor),
     'A',
   );
-  const step = traceStep(ctx, trace, `${idPrefix}.step`, fsw, cout);
-  if (step) {
-    issues.push(step.issue);
-    if (step.fix) fixes.push(step.fix);
-  }
-
-  const post = filtered ? postFilter(ctx, refs, trace, fsw, vOut, load.iMax, cout.effectiveF, idPrefix) : null;
-  if (post) issues.push(...post.issues);
+  const post = shared.stepAndFilter(ctx, refs, trace, { fsw, vOut, iMax: load.iMax, cout, filtered, idPrefix }, issues, fixes);
   const rippleVpp = rippleStage * (post?.attenuation ?? 1);
 
   const dRef = sync ? '' : refs.next('D');
-  const parts: DesignPart[] = [
-    makePart({
-      ref: r.u,
-      role: 'switch',
-      part: stage.label,
-      ratingV: stage.vInMaxV,
-      costCents: stage.costCents,
-      thermal: {
-        thetaJcCW: stage.thetaJaCW,
-        thetaJaCW: stage.thetaJaCW,
-        tjMaxC: stage.tjMaxC,
-        heatsinkable: false,
-        protectedInFault: true,
-      },
-    }),
-    inductor.part,
-    cin.part,
-    cout.part,
-    ...fb.parts,
-  ];
+  const parts: DesignPart[] = [shared.switchPart(r.u, stage, stage.vInMaxV), inductor.part, cin.part, cout.part, ...fb.parts];
   if (!sync) {
     const ratingV = pickFromLadder(TRANSISTOR_V, SEMICONDUCTOR_VOLTAGE_FACTOR * input.vMax);
-    parts.push(
-      makePart({
-        ref: dRef,
-        role: 'diode',
-        part:
-          (ratingV ?? Infinity) > 200 ? `Ultrafast catch diode, Vf ${stage.diodeVfV} V` : `Schottky catch diode, Vf ${stage.diodeVfV} V`,
-        ratingV,
-        costCents: catalog.diode.costCents * 3,
-        thermal: {
-          thetaJcCW: catalog.diode.thetaJaCW,
-          thetaJaCW: catalog.diode.thetaJaCW,
-          tjMaxC: catalog.diode.tjMaxC,
-          heatsinkable: false,
-          protectedInFault: true,
-        },
-      }),
-    );
+    const label =
+      (ratingV ?? Infinity) > 200 ? `Ultrafast catch diode, Vf ${stage.diodeVfV} V` : `Schottky catch diode, Vf ${stage.diodeVfV} V`;
+    parts.push(shared.rectifierPart(dRef, label, ratingV, catalog));
   }
   if (post) parts.push(...post.parts);
   const lim = stage.iSwitchMaxA;
@@ -456,21 +378,12 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   }
   issues.push(...inputCautions(ctx, { vMax: input.vMax, vTrough: input.vTrough, cin, pInW: high.pInW, ratingV: stage.vInMaxV }));
 
+  const stressParts = { u: r.u, inductor, cin, cout, fb, stage };
   const stress = (vIn: number, iOut: number, at?: BuckPoint): Record<string, PartStress> => {
     const p = at ?? point(vIn, iOut);
-    const st: Record<string, PartStress> = {
-      [r.u]: { w: p.switchW, v: vIn },
-      [inductor.part.ref]: { w: p.dcrW + p.coreW, v: vIn },
-      [cin.part.ref]: { w: 0, v: vIn },
-      [cout.part.ref]: { w: 0, v: vOut },
-      [fb.r1Ref]: { w: stage.vFbV ** 2 / fb.divider.r1, v: stage.vFbV },
-      [fb.r2Ref]: { w: (vOut - stage.vFbV) ** 2 / fb.divider.r2, v: vOut - stage.vFbV },
-    };
+    const st = shared.coreStress(stressParts, p, vIn, vOut, vIn);
     if (!sync) st[dRef] = { w: p.diodeW, v: vIn };
-    if (post) {
-      st[post.inductorRef] = { w: iOut * iOut * post.dcrOhm, v: 0 };
-      st[post.capRef] = { w: 0, v: vOut };
-    }
+    shared.postFilterStress(st, post, iOut, vOut);
     return st;
   };
   // Shorted output: the switch runs at its current limit; the inductor carries it (saturated when Isat is lower).
@@ -486,17 +399,7 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     }
     return st;
   };
-  const assumptions: Record<string, Quantity> = {
-    [`${r.u}.fsw`]: { value: fsw, unit: 'Hz' },
-    [`${r.u}.rdsOn`]: { value: stage.rdsOnOhm, unit: 'Ω' },
-    [`${r.u}.vFb`]: { value: stage.vFbV, unit: 'V' },
-    [`${r.u}.tOnMin`]: { value: stage.tOnMinS, unit: 's' },
-    [`${r.u}.iLimit`]: { value: lim, unit: 'A' },
-    [`${inductor.part.ref}.dcr`]: { value: inductor.dcrOhm, unit: 'Ω' },
-    [`${inductor.part.ref}.isat`]: { value: inductor.isatA, unit: 'A' },
-    [`${cout.part.ref}.esr`]: { value: cout.esrOhm, unit: 'Ω' },
-    [`${cout.part.ref}.cEff`]: { value: cout.effectiveF, unit: 'F' },
-  };
+  const assumptions: Record<string, Quantity> = shared.stageAssumptions(r.u, stage, fsw, inductor, cout, true);
   if (!sync) assumptions[`${dRef}.vf`] = { value: stage.diodeVfV, unit: 'V' };
   if (post) {
     assumptions[`${post.inductorRef}.dcr`] = { value: post.dcrOhm, unit: 'Ω' };
