@@ -13,12 +13,14 @@ import {
   designRevision,
   deviceClass,
   payment,
-  quote,
   rateCard,
   stateChange,
   user,
+  type QuoteRow,
+  type QuoteState,
 } from '../platform/db/schema';
-import { draftQuote } from '~/lib/quotes/index.server';
+import { draftQuote, moveQuote } from '~/lib/quotes/index.server';
+import { movePayment } from '~/lib/payments/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { lifecycleTo } from './lifecycle';
 import { DAY_MS } from '../platform/time';
@@ -44,30 +46,33 @@ async function seedQuote(
   const drafted = await draftQuote(tx, { revisionId: p.revisionId, createdBy: p.engineerId, now: p.at });
   if (!drafted.ok) throw new Error(`Demo quote could not be drafted: ${drafted.message}`);
   await tx.update(brief).set({ state: p.finalState }).where(eq(brief.id, p.briefId));
+  // Every later step goes through the quote's and the payment's transition tables, as in use.
+  let row = drafted.value;
+  const move = async (to: QuoteState, actorId: string | null, at: Date, extra: Partial<QuoteRow> = {}) => {
+    const moved = await moveQuote(tx, row, to, actorId, extra, '', at);
+    if (!moved) throw new Error(`Demo quote ${row.number} cannot move from ${row.state} to ${to}`);
+    row = moved;
+  };
   const sentAt = new Date(p.at.getTime() + 3_600_000);
-  const steps: [string, string, string | null, Date][] = [['draft', 'sent', p.engineerId, sentAt]];
-  if (p.plan === 'deposit-paid') {
-    const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
-    const paidAt = new Date(acceptedAt.getTime() + 600_000);
-    steps.push(['sent', 'accepted', p.ownerId, acceptedAt], ['accepted', 'deposit-paid', null, paidAt]);
-    await tx.update(quote).set({ state: 'deposit-paid', sentAt, acceptedAt }).where(eq(quote.id, drafted.value.id));
-    await tx.insert(payment).values({
-      quoteId: drafted.value.id,
-      checkoutSessionId: `cs_demo_${drafted.value.id.slice(0, 8)}`,
-      paymentIntentId: `pi_demo_${drafted.value.id.slice(0, 8)}`,
-      amountMinor: drafted.value.depositMinor,
-      currency: drafted.value.currency,
-      state: 'paid',
-      paidAt,
-    });
-  } else {
-    await tx.update(quote).set({ state: 'sent', sentAt }).where(eq(quote.id, drafted.value.id));
-  }
-  for (const [from, to, actorId, at] of steps) {
-    await tx
-      .insert(stateChange)
-      .values({ subjectType: 'quote', subjectId: drafted.value.id, fromState: from, toState: to, actorId, createdAt: at });
-  }
+  await move('sent', p.engineerId, sentAt, { sentAt });
+  if (p.plan === 'sent') return;
+  const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
+  const paidAt = new Date(acceptedAt.getTime() + 600_000);
+  await move('accepted', p.ownerId, acceptedAt, { acceptedAt });
+  const [pending] = await tx
+    .insert(payment)
+    .values({
+      quoteId: row.id,
+      kind: 'deposit',
+      checkoutSessionId: `cs_demo_${row.id.slice(0, 8)}`,
+      amountMinor: row.depositMinor,
+      currency: row.currency,
+      createdAt: paidAt,
+    })
+    .returning();
+  if (!pending || !(await movePayment(tx, pending, 'paid', { paidAt, paymentIntentId: `pi_demo_${row.id.slice(0, 8)}` })))
+    throw new Error(`Demo deposit for quote ${row.number} could not be recorded`);
+  await move('deposit-paid', null, paidAt);
 }
 
 /**

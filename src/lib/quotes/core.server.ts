@@ -9,7 +9,16 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from './pricing';
-import { brief, designRevision, quote, quoteLine, stateChange, type QuoteLineRow, type QuoteRow, type QuoteState } from '../platform/db/schema';
+import {
+  brief,
+  designRevision,
+  quote,
+  quoteLine,
+  stateChange,
+  type QuoteLineRow,
+  type QuoteRow,
+  type QuoteState,
+} from '../platform/db/schema';
 import type { DbOrTx } from '../platform/db/connect';
 import { readRateCard } from './rate-card.server';
 import { canMoveQuote } from './transitions';
@@ -135,14 +144,17 @@ export async function moveQuote(
   actorId: string | null,
   extra: Partial<typeof quote.$inferInsert> = {},
   note = '',
+  at = new Date(),
 ) {
   if (!canMoveQuote(row.state, to)) return null;
   const [updated] = await tx
     .update(quote)
-    .set({ state: to, updatedAt: new Date(), ...extra })
+    .set({ state: to, updatedAt: at, ...extra })
     .where(and(eq(quote.id, row.id), eq(quote.state, row.state)))
     .returning();
   if (!updated) return null;
-  await tx.insert(stateChange).values({ subjectType: 'quote', subjectId: row.id, fromState: row.state, toState: to, actorId, note });
+  await tx
+    .insert(stateChange)
+    .values({ subjectType: 'quote', subjectId: row.id, fromState: row.state, toState: to, actorId, note, createdAt: at });
   return updated;
 }

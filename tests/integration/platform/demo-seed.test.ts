@@ -1,0 +1,39 @@
+/** The demo scenario is seeded through the same transition tables as real use, with its own dates. */
+import { asc, eq } from 'drizzle-orm';
+import { expect, inject, test } from 'vitest';
+import { connect } from '../../../src/lib/platform/db/connect';
+import { brief, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
+
+test('the demo’s paid quote went draft → sent → accepted → deposit-paid, in time order, with a paid deposit', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [paid] = await db.select().from(brief).where(eq(brief.title, 'Soil-moisture node, 3.3 V from one Li-ion cell'));
+    const [row] = await db
+      .select()
+      .from(quote)
+      .where(eq(quote.briefId, paid?.id ?? ''));
+    expect(row?.state).toBe('deposit-paid');
+    const history = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, row?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(history.map((h) => `${h.fromState ?? '∅'}→${h.toState}`)).toEqual([
+      '∅→draft',
+      'draft→sent',
+      'sent→accepted',
+      'accepted→deposit-paid',
+    ]);
+    expect(row?.sentAt?.getTime()).toBe(history[1]?.createdAt.getTime());
+    expect(row?.acceptedAt?.getTime()).toBe(history[2]?.createdAt.getTime());
+    const deposits = await db
+      .select()
+      .from(payment)
+      .where(eq(payment.quoteId, row?.id ?? ''));
+    expect(deposits).toHaveLength(1);
+    expect(deposits[0]).toMatchObject({ kind: 'deposit', state: 'paid', amountMinor: row?.depositMinor });
+    expect(deposits[0]?.paidAt?.getTime()).toBe(history[3]?.createdAt.getTime());
+  } finally {
+    client.close();
+  }
+});
