@@ -133,8 +133,9 @@ describe('quiet rail from a switcher', () => {
     const vbus = hybrid.trace.find((t) => t.id === 'hybrid.vbus')!.result.value;
     const regPart = hybrid.components.find((c) => c.role === 'regulator')!.part;
     const ldo = defaultCatalog.linearRegulators.find((c) => regPart.startsWith(c.label))!;
-    // The set point covers the bus's own low extreme: (Vout + dropout + margin) / (1 − spread),
-    // with the post-regulator's dropout at the 0.5 A load (a PMOS pass device scales its rated
+    // The set point covers the bus's own low extreme: (Vout,max + dropout + margin) / (1 − spread),
+    // Vout,max the highest output the post-regulator's grades allow (inside the ±5 % band, at or
+    // above what the design reaches), with the post-regulator's dropout at the 0.5 A load (a PMOS pass device scales its rated
     // figure with current — common practice) and spread = the loosest feedback tolerance among the
     // buck classes that take 20–28 V, + 2 % for its divider (hand arithmetic).
     const dropout = ldo.dropoutWithLoad
@@ -142,7 +143,44 @@ describe('quiet rail from a switcher', () => {
       : ldo.dropoutV;
     const bucks = defaultCatalog.switchers.filter((s) => s.converter === 'buck' && s.vInMinV <= 20 && s.vInMaxV >= 28);
     const spread = Math.max(...bucks.map((s) => s.vFbTolerance)) + 0.02;
-    expect(vbus).toBeCloseTo((3.3 + dropout + 0.3) / (1 - spread), 9);
+    const vHigh = 3.3 + hybrid.trace.find((t) => t.id === 'hybrid.vbus')!.inputs['ΔVhigh']!.value;
+    expect(vHigh).toBeLessThanOrEqual(3.3 * 1.05);
+    expect(vHigh).toBeGreaterThanOrEqual(hybrid.tolerance.worstCase.max - hybrid.outputRippleVpp / 2 - 1e-9);
+    expect(vbus).toBeCloseTo((vHigh + dropout + 0.3) / (1 - spread), 9);
+  });
+});
+
+describe('quiet rails at 1–2 A from a 24 V bus', () => {
+  const quiet = (v: number, iMax: number) =>
+    run({
+      input: { vMin: 21.6, vNom: 24, vMax: 26.4, rippleVpp: 0.2, source: 'bus' },
+      output: { v, tolerance: 0.05, iMin: iMax / 20, iTyp: iMax / 2, iMax },
+      noise: { class: 'rf' },
+      thermal,
+    });
+
+  test('3.3 V at 2 A: the post-regulator carries 2 A within 90 % of its rating (common practice), and the hybrid is the pick', () => {
+    const result = quiet(3.3, 2);
+    const hybrid = pick(result.options, 'buck+linear');
+    expect(hybrid.feasible).toBe(true);
+    const regPart = hybrid.components.find((c) => c.role === 'regulator')!.part;
+    const cls = defaultCatalog.linearRegulators.find((c) => regPart.startsWith(c.label))!;
+    expect(0.9 * cls.iOutMaxA).toBeGreaterThanOrEqual(2);
+    expect(result.recommended).toBe('buck+linear');
+  });
+
+  test('the post-regulator is the class that drops least at the load: the bus sits lowest and the loss is least', () => {
+    const hybrid = pick(quiet(5, 1).options, 'buck+linear');
+    const regPart = hybrid.components.find((c) => c.role === 'regulator')!.part;
+    const chosen = defaultCatalog.linearRegulators.find((c) => regPart.startsWith(c.label))!;
+    const drop = hybrid.trace.find((t) => t.id === 'hybrid.vbus')!.inputs.Vdropout!.value;
+    // Resistive dropout at 1 A, Vdo = max(floor, Vdo,rated·I/Irated) (data-sheet curves, common practice),
+    // for every class able to carry 1 A at 90 % of its rating with at most ±1 % reference.
+    const at1A = (c: (typeof defaultCatalog.linearRegulators)[number]) =>
+      c.dropoutWithLoad ? Math.min(c.dropoutV, Math.max(c.dropoutWithLoad.floorV, (c.dropoutV * 1) / c.iOutMaxA)) : c.dropoutV;
+    expect(drop).toBeCloseTo(at1A(chosen), 12);
+    for (const c of defaultCatalog.linearRegulators.filter((c) => c.kind === 'ldo' && 0.9 * c.iOutMaxA >= 1 && c.vRefTolerance <= 0.01))
+      expect(at1A(chosen)).toBeLessThanOrEqual(at1A(c));
   });
 });
 

@@ -43,9 +43,13 @@ function busSpread(ctx: Context, vTarget: number): number {
 /** The post-regulator's dropout at the rail's full load (a resistive pass device drops less than its rated figure). */
 const postDropout = (cls: LinearRegulatorClass, iMax: number) => dropoutAt(cls, iMax);
 
-/** Bus set point: raised until even its low extreme leaves the post-regulator its dropout and margin. */
-function busTarget(ctx: Context, vTarget: number, cls: LinearRegulatorClass, iMax: number): number {
-  return (vTarget + postDropout(cls, iMax) + POST_REG_MARGIN_V) / (1 - busSpread(ctx, vTarget));
+/**
+ * Bus set point: raised until even its low extreme leaves the post-regulator, at the highest output
+ * its grades allow (the set point plus aboveV), its dropout and margin.
+ */
+function busTarget(ctx: Context, aboveV: number, cls: LinearRegulatorClass, iMax: number): number {
+  const { v } = ctx.spec.output;
+  return (v + aboveV + postDropout(cls, iMax) + POST_REG_MARGIN_V) / (1 - busSpread(ctx, v));
 }
 
 /** A tolerance loose enough that the post-regulator's cheapest grades meet it. */
@@ -69,12 +73,13 @@ function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: Line
           (c) =>
             checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget),
         )
-        .sort((a, b) => a.dropoutV - b.dropoutV);
+        .sort((a, b) => dropoutAt(a, iMax) - dropoutAt(b, iMax));
   const band = railBand(spec);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
   const spread = busSpread(ctx, vTarget);
   const busRange = (cls: LinearRegulatorClass): StageInput => {
-    const vBus = busTarget(ctx, vTarget, cls, iMax);
+    // Before the class's own spread is known, the rail's upper limit bounds its highest output.
+    const vBus = busTarget(ctx, band.hi - vTarget, cls, iMax);
     return { ...probe, vTrough: vBus * (1 - spread), vMax: vBus * (1 + spread) };
   };
   const loose = { ...ctx, spec: { ...spec, output: { ...spec.output, tolerance: LOOSEST_TOLERANCE } } };
@@ -97,17 +102,19 @@ export function designSwitcherLinear(ctx: Context): Design {
   const { iMin, iTyp, iMax, v: vTarget } = spec.output;
   const { cls, vOutHigh } = postRegulator(ctx, vTarget, iMax);
   const spread = busSpread(ctx, vTarget);
+  const aboveV = Math.max(0, vOutHigh - vTarget);
   const vBusTarget = trace.add(
     'hybrid.vbus',
-    'Intermediate rail',
-    'Vbus = (Vout + Vdropout + margin) / (1 − spread)',
+    'Intermediate rail (ΔVhigh: how far above the set point the post-regulator’s grades may put the output)',
+    'Vbus = (Vout + ΔVhigh + Vdropout + margin) / (1 − spread)',
     {
       Vout: [vTarget, 'V'],
+      ΔVhigh: [aboveV, 'V'],
       Vdropout: [postDropout(cls, iMax), 'V'],
       margin: [POST_REG_MARGIN_V, 'V'],
       spread: [spread, ''],
     },
-    busTarget(ctx, vTarget, cls, iMax),
+    busTarget(ctx, aboveV, cls, iMax),
     'V',
   );
 
