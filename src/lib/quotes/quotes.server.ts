@@ -2,7 +2,7 @@
  * What engineers and clients do to quotes: draft, edit while draft, render,
  * send, accept. Each action is one transaction; routes and pages only translate.
  */
-import { and, eq, inArray, isNull, lt, or } from 'drizzle-orm';
+import { and, eq, inArray, isNull, lt, ne, or } from 'drizzle-orm';
 import { formatDate } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
 import { moveBrief } from '~/lib/briefs/index.server';
@@ -209,6 +209,12 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
   const marked = await db.transaction(async (tx) => {
     const sent = await moveQuote(tx, current.quote, 'sent', staff.id, { sentAt: now, sendingSince: null });
     if (!sent) return false;
+    // One offer stands at a time: the brief's earlier sent quotes are withdrawn, so only this one can be accepted.
+    const earlier = await tx
+      .select()
+      .from(quote)
+      .where(and(eq(quote.briefId, view.brief.id), eq(quote.state, 'sent'), ne(quote.id, view.quote.id)));
+    for (const old of earlier) await moveQuote(tx, old, 'withdrawn', staff.id, {}, `Replaced by quote ${view.quote.number}`, now);
     const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
     // The mail is out, so the quote is sent whatever happened to the brief meanwhile.
     if (briefRow) await moveBrief(tx, briefRow, 'quoted', 'system', staff.id, `Quote ${view.quote.number} sent`);

@@ -1,13 +1,13 @@
 /**
  * Which state a quote may move to from which. Every move goes through this
- * table (sending, acceptance, expiry, the paid deposit), so no path sets a
+ * table (sending, withdrawal by a newer quote, acceptance, expiry, the paid deposit), so no path sets a
  * state that the product does not know how to leave. Browser-safe.
  */
 import type { QuoteState } from '../platform/db/schema';
 
 const QUOTE_MOVES: Record<QuoteState, readonly QuoteState[]> = {
   draft: ['sent'],
-  sent: ['accepted', 'expired'],
+  sent: ['accepted', 'expired', 'withdrawn'],
   accepted: ['deposit-paid'],
   'deposit-paid': [],
   expired: [],

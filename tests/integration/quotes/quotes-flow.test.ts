@@ -222,7 +222,7 @@ describe('editing, sending and accepting', () => {
     expect(stored?.state).toBe('expired');
   });
 
-  test('an older quote lapsing leaves the brief open while a newer sent quote stands', async () => {
+  test('sending a newer quote withdraws the older one; the client can accept only the newer', async () => {
     const rail = await railUnderReview(baseUrl);
     const first = await draft(rail.engineer, rail.revisionId);
     expect((await rail.engineer.request(`/api/v1/quotes/${first.id}/send`, { method: 'POST' })).status).toBe(200);
@@ -236,8 +236,12 @@ describe('editing, sending and accepting', () => {
     ).toBe(200);
     const second = await draft(rail.engineer, rail.revisionId, 5);
     expect((await rail.engineer.request(`/api/v1/quotes/${second.id}/send`, { method: 'POST' })).status).toBe(200);
-    await execSql(databaseUrl, 'UPDATE quote SET valid_until = ? WHERE id = ?', [Date.now() - 60_000, first.id]);
-    expect((await (await rail.client.request(`/api/v1/quotes/${first.id}`)).json()).state).toBe('expired');
+    expect((await (await rail.client.request(`/api/v1/quotes/${first.id}`)).json()).state).toBe('withdrawn');
+    const history = (await (await rail.engineer.request(`/api/v1/briefs/${rail.briefId}`)).json()).quotes;
+    expect(history.map((q: { state: string }) => q.state)).toEqual(['withdrawn', 'sent']);
+    const refused = await rail.client.request(`/api/v1/quotes/${first.id}/accept`, { method: 'POST' });
+    expect(refused.status).toBe(409);
+    expect((await refused.json()).message).toContain('withdrawn');
     expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('quoted');
     expect((await rail.client.request(`/api/v1/quotes/${second.id}/accept`, { method: 'POST' })).status).toBe(200);
   });

@@ -31,4 +31,11 @@ describe('quote moves', () => {
     expect(canMoveQuote('draft', 'accepted')).toBe(false);
     expect(canMoveQuote('accepted', 'expired')).toBe(false);
   });
+
+  it('only a sent quote is withdrawn (by a newer one), and a withdrawn quote goes nowhere', () => {
+    expect(canMoveQuote('sent', 'withdrawn')).toBe(true);
+    expect(canMoveQuote('accepted', 'withdrawn')).toBe(false);
+    expect(canMoveQuote('withdrawn', 'accepted')).toBe(false);
+    expect(canMoveQuote('withdrawn', 'sent')).toBe(false);
+  });
 });
