@@ -797,6 +797,13 @@ export const CORPUS: readonly CorpusBrief[] = [
     why: 'common practice: under 0.1 W lost in a low-quiescent LDO on a 9 V battery; a small buck only to stretch its life',
   },
   {
+    id: '2aa-12v-20ma',
+    family: 'battery',
+    spec: rail({ vin: TWO_AA, source: 'battery', vout: 12, load: [0.0005, 0.01, 0.02] }),
+    accept: ['boost'],
+    why: 'common practice: a bias rail for a display or a relay from two cells; a small boost that runs down to the cells’ 1.8 V end of life',
+  },
+  {
     id: '3aa-3v3-100ma',
     family: 'battery',
     spec: rail({ vin: THREE_AA, source: 'battery', vout: 3.3, load: [0.001, 0.04, 0.1] }),
