@@ -342,15 +342,17 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   // How far below its rated voltage the Zener sits at the trough, full load (the least bias it gets).
   const sagFor = (v: number) => v - zenerAt(seriesOf(v)[0]!, v, biasFor(v) - ibNormal);
   const coldC = Math.min(COLD_AMBIENT_C, ctx.ambientC);
-  // The sense transistor takes the whole bias current when it limits: at the trough (knee) and at the highest input (short).
-  const senseAt = (iBias: number, iBiasShort: number): SenseCorners => ({
-    vbeHot: senseVbe(ctx.ambientC, iBias),
-    vbeCold: senseVbe(coldC, iBiasShort),
-    ibCold: iBiasShort / SENSE_BETA_MIN,
-  });
   // Rb as it will be snapped, with the output at its target.
   const rbFor = (v: number, vOut: number) => snap(atLeast(rbDropFor(v, vOut) / biasFor(v), 1), 'E24', 'down');
-  const senseFor = (v: number) => senseAt(rbDropFor(v, vTarget) / rbFor(v, vTarget), Math.max(0, vMax - v) / rbFor(v, vTarget));
+  // The sense transistor takes Rb's whole current when it limits: at the trough (the knee, hottest) and at the highest input (the short, coldest).
+  const senseFor = (v: number): SenseCorners => {
+    const iShort = Math.max(0, vMax - v) / rbFor(v, vTarget);
+    return {
+      vbeHot: senseVbe(ctx.ambientC, rbDropFor(v, vTarget) / rbFor(v, vTarget)),
+      vbeCold: senseVbe(coldC, iShort),
+      ibCold: iShort / SENSE_BETA_MIN,
+    };
+  };
   // Standoff and sense resistor together: the regulator keeps dropout + margin after the sense
   // resistor's drop, and that drop depends on the foldback the standoff allows.
   const standoffNeed = (drop: number, v: number) => zenerVoltageUp(vc + cls.dropoutV + HEADROOM_MARGIN_V + drop + sagFor(v));
@@ -499,7 +501,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const iLimit = limitAt('predrop.ilimit', 'Current limit at full output, hottest junction', vbeHot, vNormal, null);
   const iFault = limitAt('predrop.ifault', 'Short-circuit current, coldest junction, least gain', vbeCold, vs, SENSE_BETA_MIN);
   // On the bench the shorted regulator saturates: the sense node sits at its dropout, not at the standoff the worst case takes.
-  limitAt(
+  const iFaultRoom = limitAt(
     'predrop.ifault.room',
     `Short-circuit current at ${ROOM_C} °C, typical gain, regulator saturated (bench check)`,
     vbeRoom,
@@ -533,7 +535,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     issues.push(
       caution(
         'soa',
-        `Foldback limit: ${formatSi(iLimit, 'A', 3)} at full output, folding into a short, where ${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) for as long as the short lasts. Its SOA hint (${soaAllowedW(dev, vceFault).toFixed(1)} W at a 25 °C case) derated to the ${prot.caseC.toFixed(0)} °C case its heatsink gives, used to ${(SOA_MARGIN * 100).toFixed(0)} %, allows ${soaShort.toFixed(1)} W; the worst point of the foldback line is ${prot.worstW.toFixed(1)} W. A load that draws constant current may not start against a deep foldback. Confirm against the device's SOA curve.`,
+        `Foldback limit: ${formatSi(iLimit, 'A', 3)} at full output with the sense transistor at its hottest, folding into a short, where ${qRef} sees ${vceFault.toFixed(0)} V at ${(iFault * 1e3).toFixed(0)} mA (${pFault.toFixed(1)} W) with the sense transistor at ${coldC.toFixed(0)} °C and its least gain, for as long as the short lasts; a bench short at ${ROOM_C} °C draws about ${(iFaultRoom * 1e3).toFixed(0)} mA. Its SOA hint (${soaAllowedW(dev, vceFault).toFixed(1)} W at a 25 °C case) derated to the ${prot.caseC.toFixed(0)} °C case its heatsink gives, used to ${(SOA_MARGIN * 100).toFixed(0)} %, allows ${soaShort.toFixed(1)} W; the worst point of the foldback line is ${prot.worstW.toFixed(1)} W. A load that draws constant current may not start against a deep foldback. Confirm against the device's SOA curve.`,
       ),
     );
   } else if (prot.fuseA !== null) {
