@@ -3,6 +3,8 @@
  * the routes and the tests. The supply brief itself is the engine's schema.
  */
 import { z } from 'zod';
+import { railSpecSchema } from '../engine/rail-spec';
+import type { FieldIssue } from '../platform/outcome';
 import { BRIEF_STATES } from './states';
 
 export const DEFAULT_BRIEF_TITLE = 'Untitled supply rail';
@@ -15,10 +17,59 @@ const title = z
   .max(160, { error: 'Keep the title under 160 characters.' });
 const notes = z.string().max(8_000, { error: 'Keep the notes under 8 000 characters.' });
 
-/** A draft may be incomplete: any JSON object of bounded size; it is checked in full on submit. */
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let at = root;
+  for (const key of path) {
+    if (at === null || typeof at !== 'object') return undefined;
+    at = (at as Record<PropertyKey, unknown>)[key];
+  }
+  return at;
+}
+
+// What a draft may not hold even before submit: a value of the wrong kind, an unknown choice, a field that is not part of a brief.
+const WRONG_KIND = new Set(['invalid_type', 'invalid_value', 'unrecognized_keys']);
+
+/**
+ * The values a draft holds that can never be right: a draft may lack fields
+ * until it is submitted, but what it has must be of its kind (a known source,
+ * a number where a number goes). Ranges and cross-field rules wait for submit.
+ */
+export function draftSpecIssues(spec: Record<string, unknown>): (FieldIssue & { segments: PropertyKey[] })[] {
+  const parsed = railSpecSchema.safeParse(spec);
+  if (parsed.success) return [];
+  return parsed.error.issues.flatMap((issue) => {
+    if (!WRONG_KIND.has(issue.code)) return [];
+    if (issue.code === 'unrecognized_keys') {
+      return issue.keys.map((key) => ({
+        segments: [...issue.path, key],
+        path: [...issue.path, key].map(String).join('.'),
+        message: 'This field is not part of a supply brief.',
+      }));
+    }
+    // A missing or cleared field is fine in a draft; a present one of the wrong kind is not.
+    const value = valueAt(spec, issue.path);
+    if (value === undefined || value === null || value === '') return [];
+    return [{ segments: [...issue.path], path: issue.path.map(String).join('.'), message: issue.message }];
+  });
+}
+
+/** A stored draft with its impossible values left out, so the wizard opens on what can be kept. */
+export function keepableDraftSpec(spec: Record<string, unknown>): Record<string, unknown> {
+  const copy = structuredClone(spec);
+  for (const { segments } of draftSpecIssues(spec)) {
+    const parent = valueAt(copy, segments.slice(0, -1));
+    if (parent && typeof parent === 'object') delete (parent as Record<PropertyKey, unknown>)[segments.at(-1) as PropertyKey];
+  }
+  return copy;
+}
+
+/** A draft may be incomplete: an object of bounded size whose values are of their kind; it is checked in full on submit. */
 const draftSpec = z
   .record(z.string(), z.unknown(), { error: 'The spec must be an object of brief fields.' })
-  .refine((value) => JSON.stringify(value).length <= MAX_SPEC_CHARS, { error: 'The spec is too large.' });
+  .refine((value) => JSON.stringify(value).length <= MAX_SPEC_CHARS, { error: 'The spec is too large.' })
+  .superRefine((value, ctx) => {
+    for (const issue of draftSpecIssues(value)) ctx.addIssue({ code: 'custom', path: issue.segments.map(String), message: issue.message });
+  });
 
 export const createBriefSchema = z
   .object({

@@ -1,8 +1,10 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
+import { execSql } from '../quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
+const databaseUrl = inject('databaseUrl');
 
 const goodSpec = {
   input: { vMin: 10.8, vNom: 12, vMax: 13.2, rippleVpp: 0.1, source: 'adapter' },
@@ -179,5 +181,28 @@ describe('evaluate API', () => {
     const body = await response.json();
     expect(body.error).toBe('invalid_brief');
     expect(body.issues[0].path).toBe('output.v');
+  });
+
+  test('a draft with an unknown choice is refused on save; one stored before the check still opens in the wizard', async () => {
+    const client = await new Visitor(baseUrl).signIn(DEMO.client);
+    const refused = await client.request('/api/v1/briefs', {
+      method: 'POST',
+      json: { title: 'Reactor rail', spec: { input: { source: 'nuclear', vMin: 10 } } },
+    });
+    expect(refused.status).toBe(400);
+    expect((await refused.json()).issues).toEqual([{ path: 'spec.input.source', message: expect.stringContaining('source') }]);
+
+    const created = await (
+      await client.request('/api/v1/briefs', { method: 'POST', json: { title: 'Reactor rail', spec: { input: { vMin: 10 } } } })
+    ).json();
+    await execSql(databaseUrl, 'UPDATE brief SET spec = ? WHERE id = ?', [
+      JSON.stringify({ input: { source: 'nuclear', vMin: 10 } }),
+      created.id,
+    ]);
+    const page = await client.request(`/briefs/new?draft=${created.id}`);
+    expect(page.status).toBe(200);
+    const html = await page.text();
+    expect(html).toContain('Describe your rail');
+    expect(html).not.toContain('nuclear');
   });
 });

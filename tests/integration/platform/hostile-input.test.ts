@@ -160,4 +160,24 @@ describe('hostile JSON bodies never reach a 5xx', () => {
     const huge = await answer(null, 'POST', '/api/v1/evaluate', JSON.stringify({ pad: 'x'.repeat(200_000) }), true);
     expect(huge.status).toBe(413);
   }, 120_000);
+
+  test('a brief whose spec nests 10 000 deep is refused with a 400 naming the depth, not a 500', async () => {
+    const spec = '{"input":' + '['.repeat(10_000) + ']'.repeat(10_000) + '}';
+    const result = await answer(client, 'POST', '/api/v1/briefs', `{"title":"deep","spec":${spec}}`, true);
+    expect(result.status).toBe(400);
+    expect(JSON.parse(result.text)).toMatchObject({ error: 'too_deep' });
+    const strings = await answer(client, 'POST', '/api/v1/briefs', JSON.stringify({ title: '[[[[{{{{'.repeat(10), spec: {} }), true);
+    expect(strings.status).toBe(201);
+  });
+
+  test('only application/json bodies are read as JSON', async () => {
+    for (const type of ['text/plain', 'application/jsonp', 'text/html; application/json']) {
+      const response = await new Visitor(server.baseUrl).request('/api/v1/evaluate', {
+        method: 'POST',
+        headers: { 'content-type': type },
+        body: '{}',
+      });
+      expect(response.status, type).toBe(415);
+    }
+  });
 });

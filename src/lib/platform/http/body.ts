@@ -41,13 +41,44 @@ export async function readLimitedText(request: Request, maxBytes: number): Promi
   return bytes.ok ? succeed(new TextDecoder().decode(bytes.value)) : bytes;
 }
 
-/** A JSON body: 415 unless sent as JSON, 413 past the limit, 400 when it does not parse. */
+/** No request of the product nests deeper than this; deeper bodies are refused before parsing. */
+export const JSON_MAX_DEPTH = 32;
+
+/** How deep the brackets of a JSON text nest, outside strings; stops counting past `limit`. */
+export function jsonDepth(text: string, limit = JSON_MAX_DEPTH): number {
+  let depth = 0;
+  let deepest = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 0x5c)
+        i++; // backslash: skip the escaped character
+      else if (c === 0x22) inString = false;
+    } else if (c === 0x22) inString = true;
+    else if (c === 0x7b || c === 0x5b) {
+      depth++;
+      if (depth > deepest) deepest = depth;
+      if (deepest > limit) return deepest;
+    } else if (c === 0x7d || c === 0x5d) depth--;
+  }
+  return deepest;
+}
+
+/** `application/json`, optionally with a charset parameter: nothing that merely contains the words. */
+export function isJsonType(header: string | null): boolean {
+  const [type, ...params] = (header ?? '').split(';').map((part) => part.trim().toLowerCase());
+  return type === 'application/json' && params.every((p) => p === '' || /^charset="?utf-8"?$/.test(p));
+}
+
+/** A JSON body: 415 unless sent as JSON, 413 past the limit, 400 when it does not parse or nests too deep. */
 export async function readJsonBody(request: Request, maxBytes = JSON_BODY_LIMIT): Promise<Outcome<unknown>> {
-  const type = request.headers.get('content-type') ?? '';
-  if (!type.toLowerCase().includes('application/json'))
-    return refuse('unsupported-type', 'Send the body as application/json.', { code: 'unsupported_media_type' });
+  if (!isJsonType(request.headers.get('content-type')))
+    return refuse('unsupported-type', 'Send the body as application/json (UTF-8).', { code: 'unsupported_media_type' });
   const text = await readLimitedText(request, maxBytes);
   if (!text.ok) return text;
+  if (jsonDepth(text.value) > JSON_MAX_DEPTH)
+    return invalidInput('too_deep', [{ path: '', message: `The body nests deeper than ${JSON_MAX_DEPTH} levels.` }]);
   try {
     return succeed(JSON.parse(text.value));
   } catch {

@@ -2,7 +2,7 @@
 import type { APIContext } from 'astro';
 import { describe, expect, test } from 'vitest';
 import { z } from 'zod';
-import { readJsonBody, readLimitedBytes } from '../../../../src/lib/platform/http/body';
+import { isJsonType, jsonDepth, readJsonBody, readLimitedBytes } from '../../../../src/lib/platform/http/body';
 import { apiMutation } from '../../../../src/lib/platform/http/mutation';
 import { json, refusalResponse } from '../../../../src/lib/platform/http/responses';
 import { refuse, succeed, type RefusalKind } from '../../../../src/lib/platform/outcome';
@@ -102,5 +102,25 @@ describe('an API mutation', () => {
     const refused = await route(context(engineer, post('{"n":-1}')));
     expect(refused.status).toBe(409);
     expect(await refused.json()).toEqual({ error: 'wrong_state', message: 'Only positive numbers.' });
+  });
+});
+
+describe('JSON depth and type', () => {
+  test('depth counts brackets outside strings and stops past the limit', () => {
+    expect(jsonDepth('{"a":[1,{"b":2}]}')).toBe(3);
+    expect(jsonDepth('{"a":"[[[[[[\\"{{{{"}')).toBe(1);
+    expect(jsonDepth('['.repeat(100_000), 32)).toBe(33);
+  });
+
+  test.each([
+    ['application/json', true],
+    ['application/json; charset=utf-8', true],
+    ['Application/JSON;charset="UTF-8"', true],
+    ['application/jsonp', false],
+    ['text/plain; application/json', false],
+    ['application/json; charset=latin1', false],
+    [null, false],
+  ])('%s is JSON: %s', (type, expected) => {
+    expect(isJsonType(type)).toBe(expected);
   });
 });
