@@ -127,8 +127,9 @@ export function designSwitcherLinear(ctx: Context): Design {
   const bypass = cls.kind === 'adjustable';
   const rippleLimit = (fsw: number) => spec.noise.maxRippleVpp * 10 ** (rippleRejectionDb(cls, fsw, bypass) / 20);
   // The bus must stay above the post-regulator's highest output plus its dropout, in the worst case,
-  // and not far above its set point.
-  const busBand = { lo: vOutHigh + postDropout(cls, iMax), hi: vBusTarget * (1 + spread) };
+  // and not far above its set point: its spread, and the same margin again for its ripple (the
+  // post-regulator drops the excess).
+  const busBand = { lo: vOutHigh + postDropout(cls, iMax), hi: vBusTarget * (1 + spread) + POST_REG_MARGIN_V };
   const kind = preRegulatorKind(input.vTrough, input.vMax, vBusTarget);
   const request = (idPrefix: string): StageRequest => ({
     input,

@@ -846,6 +846,13 @@ export const CORPUS: readonly CorpusBrief[] = [
     why: BUCK_LOSS,
   },
   {
+    id: 'poe-5v-50ma',
+    family: 'bus',
+    spec: rail({ vin: POE, ripple: 0.3, source: 'bus', vout: 5, load: [0.002, 0.02, 0.05] }),
+    accept: ['buck'],
+    why: 'common practice: a housekeeping rail off a PoE input; a linear stage would burn 2.6 W for 0.25 W delivered, a small 100 V buck is usual',
+  },
+  {
     id: 'poe-12v-500ma',
     family: 'bus',
     spec: rail({ vin: POE, ripple: 0.3, source: 'bus', vout: 12, load: [0.02, 0.3, 0.5] }),
