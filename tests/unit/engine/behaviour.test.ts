@@ -184,6 +184,25 @@ describe('quiet rails at 1–2 A from a 24 V bus', () => {
   });
 });
 
+describe('a logic rail off rectified mains', () => {
+  test('the hybrid bus sits where the buck’s shortest on-time reaches: Vbus ≥ 1.2·Vin,max·tOn,min·fsw,min (D = Vout/Vin, Erickson & Maksimović, 2nd ed., §2.3)', () => {
+    const result = run({
+      input: { vMin: 300, vNom: 325, vMax: 360, rippleVpp: 15, source: 'rectified' },
+      output: { v: 3.3, tolerance: 0.05, iMin: 0.005, iTyp: 0.05, iMax: 0.1 },
+      noise: { class: 'digital' },
+      thermal,
+    });
+    const hybrid = pick(result.options, 'buck+linear');
+    expect(hybrid.feasible).toBe(true);
+    const bucks = defaultCatalog.switchers.filter((s) => s.converter === 'buck' && s.vInMinV <= 292.5 && s.vInMaxV >= 1.25 * 360);
+    const floor = 1.2 * 360 * Math.min(...bucks.map((s) => s.tOnMinS * s.fswMinHz));
+    // 360 V with a 300 ns shortest pulse at 60 kHz: 1.2 × 6.5 V = 7.8 V, far above the 3.3 V rail.
+    expect(floor).toBeGreaterThan(3.3 * 2);
+    expect(hybrid.trace.find((t) => t.id === 'hybrid.vbus')!.result.value).toBeGreaterThanOrEqual(floor - 1e-9);
+    expect(result.recommended).toBe('buck+linear');
+  });
+});
+
 describe('cautions follow the physics', () => {
   test('a 12 V → 5 V linear rail has no hazardous-voltage caution but a hot heatsink', () => {
     const result = run({

@@ -7,6 +7,7 @@ import type { LinearRegulatorClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
 import { analyseTolerance, extremeValues, toleranceVerdict, type ToleranceModel } from '../tolerance.ts';
+import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { Trace } from '../trace.ts';
 import { boostStage } from './boost.ts';
 import { buckBoostStage } from './buck-boost.ts';
@@ -43,13 +44,32 @@ function busSpread(ctx: Context, vTarget: number): number {
 /** The post-regulator's dropout at the rail's full load (a resistive pass device drops less than its rated figure). */
 const postDropout = (cls: LinearRegulatorClass, iMax: number) => dropoutAt(cls, iMax);
 
+/** Headroom kept above the shortest on-time's lowest output (common practice: 20 %). */
+const ON_TIME_MARGIN = 1.2;
+
+/**
+ * The lowest bus a buck pre-regulator can make from the highest input within its shortest on-time,
+ * D = Vbus/Vin ≥ tOn,min·fsw (the continuous-conduction buck relation, Erickson & Maksimović,
+ * Fundamentals of Power Electronics, 2nd ed., §2.3), with margin: the easiest of the buck classes
+ * that take this input. It matters off rectified mains, where a 3.3 V bus would need a
+ * 100 ns pulse; the post-regulator then drops the rest.
+ */
+function busFloor(ctx: Context): number {
+  const { vMax } = ctx.spec.input;
+  const bucks = ctx.catalog.switchers.filter(
+    (s) => s.converter === 'buck' && s.vInMinV <= ctx.vInTrough && s.vInMaxV >= SEMICONDUCTOR_VOLTAGE_FACTOR * vMax,
+  );
+  return bucks.length === 0 ? 0 : ON_TIME_MARGIN * vMax * Math.min(...bucks.map((s) => s.tOnMinS * s.fswMinHz));
+}
+
 /**
  * Bus set point: raised until even its low extreme leaves the post-regulator, at the highest output
- * its grades allow (the set point plus aboveV), its dropout and margin.
+ * its grades allow (the set point plus aboveV), its dropout and margin; never below the floor a
+ * buck's shortest on-time sets.
  */
 function busTarget(ctx: Context, aboveV: number, cls: LinearRegulatorClass, iMax: number): number {
   const { v } = ctx.spec.output;
-  return (v + aboveV + postDropout(cls, iMax) + POST_REG_MARGIN_V) / (1 - busSpread(ctx, v));
+  return Math.max((v + aboveV + postDropout(cls, iMax) + POST_REG_MARGIN_V) / (1 - busSpread(ctx, v)), busFloor(ctx));
 }
 
 /** A tolerance loose enough that the post-regulator's cheapest grades meet it. */
@@ -106,13 +126,14 @@ export function designSwitcherLinear(ctx: Context): Design {
   const vBusTarget = trace.add(
     'hybrid.vbus',
     'Intermediate rail (ΔVhigh: how far above the set point the post-regulator’s grades may put the output)',
-    'Vbus = (Vout + ΔVhigh + Vdropout + margin) / (1 − spread)',
+    'Vbus = max((Vout + ΔVhigh + Vdropout + margin) / (1 − spread), Vbus,min)',
     {
       Vout: [vTarget, 'V'],
       ΔVhigh: [aboveV, 'V'],
       Vdropout: [postDropout(cls, iMax), 'V'],
       margin: [POST_REG_MARGIN_V, 'V'],
       spread: [spread, ''],
+      'Vbus,min': [busFloor(ctx), 'V'],
     },
     busTarget(ctx, aboveV, cls, iMax),
     'V',

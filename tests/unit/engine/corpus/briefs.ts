@@ -995,6 +995,13 @@ export const CORPUS: readonly CorpusBrief[] = [
     why: 'common practice: a gate-drive bias from a 400 V link; an off-line buck, or a pre-drop transistor at 4 W where simplicity matters',
   },
   {
+    id: 'hv-mains-3v3-100ma',
+    family: 'high-voltage',
+    spec: rail({ vin: MAINS_230, ripple: 15, source: 'rectified', vout: 3.3, load: [0.005, 0.05, 0.1] }),
+    accept: ['buck+linear', 'buck'],
+    why: 'common practice: a non-isolated off-line buck to a bus of several volts (its shortest on-time cannot reach 3.3 V from 360 V) and an LDO after it, or an off-line buck that skips pulses',
+  },
+  {
     id: 'hv-mains120-24v-20ma',
     family: 'high-voltage',
     spec: rail({ vin: [140, 165, 190], ripple: 10, source: 'rectified', vout: 24, load: [0.001, 0.01, 0.02] }),
