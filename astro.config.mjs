@@ -4,11 +4,12 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import engineWorker from './src/integrations/engine-worker';
+import staticHeaders from './src/integrations/static-headers';
 
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react(), engineWorker()],
+  integrations: [react(), engineWorker(), staticHeaders()],
   // Origin checks are done in our own middleware for every state-changing request
   // (API included), so Astro's form-only check is left off to avoid two answers.
   security: { checkOrigin: false },

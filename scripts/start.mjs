@@ -6,6 +6,7 @@
  */
 import http from 'node:http';
 import compression from 'compression';
+import { readFile } from 'node:fs/promises';
 const secret = process.env.BETTER_AUTH_SECRET ?? '';
 if (secret.length < 32) {
   console.error(
@@ -19,10 +20,16 @@ if (secret.length < 32) {
 // script uncompressed, which on a phone costs more than the rendering does.
 process.env.ASTRO_NODE_AUTOSTART = 'disabled';
 const { handler } = await import('../dist/server/entry.mjs');
+// Files the adapter serves itself never pass the middleware; the build wrote their headers.
+const staticHeaders = JSON.parse(await readFile(new URL('../dist/server/static-headers.json', import.meta.url), 'utf8'));
 const compress = compression();
 const port = process.env.PORT ?? '4321';
 const listenHost = process.env.HOST ?? '0.0.0.0';
-const server = http.createServer((req, res) => compress(req, res, () => handler(req, res)));
+const server = http.createServer((req, res) => {
+  // Set first: an answer of the app carries its own values for the same names, which replace these.
+  for (const [name, value] of Object.entries(staticHeaders)) res.setHeader(name, value);
+  compress(req, res, () => handler(req, res));
+});
 server.on('error', (error) => {
   console.error(`Railwright could not listen on ${listenHost}:${port}: ${error.message}`);
   process.exit(1);

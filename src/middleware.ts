@@ -7,8 +7,10 @@ import { apiError, internalError } from '~/lib/platform/http/responses';
 import { logFailure } from '~/lib/platform/log';
 import { expireLapsedQuotes } from '~/lib/quotes/expiry.server';
 import { isCrossOriginWrite, securityHeaders } from '~/lib/platform/http/security';
+import { islandScriptHashes } from '~/lib/platform/http/island-scripts';
 
-const HEADERS = securityHeaders(config.production, config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined);
+const checkoutOrigin = config.payments.apiBase ? new URL(config.payments.apiBase).origin : undefined;
+const headersReady = islandScriptHashes().then((hashes) => securityHeaders(config.production, checkoutOrigin, hashes));
 const allowedOrigins = config.publicBaseUrl ? [new URL(config.publicBaseUrl).origin] : [];
 
 const hardening = defineMiddleware(async (context, next) => {
@@ -30,9 +32,12 @@ const hardening = defineMiddleware(async (context, next) => {
       response = await context.rewrite('/500');
     }
   }
-  for (const [name, value] of Object.entries(HEADERS)) {
+  for (const [name, value] of Object.entries(await headersReady)) {
     if (!response.headers.has(name)) response.headers.set(name, value);
   }
+  // A page shown to someone signed in holds their data: no shared cache and no back-button copy keeps it.
+  if (context.locals.user && (response.headers.get('content-type') ?? '').startsWith('text/html'))
+    response.headers.set('cache-control', 'private, no-store');
   return response;
 });
 

@@ -1,4 +1,5 @@
 import { describe, expect, inject, test } from 'vitest';
+import { scriptHash } from '../../../src/lib/platform/http/island-scripts';
 import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');
@@ -11,6 +12,43 @@ describe('security on every answer', () => {
     expect(csp).toContain("default-src 'self'");
     expect(response.headers.get('x-content-type-options')).toBe('nosniff');
     expect(response.headers.get('referrer-policy')).toBe('strict-origin-when-cross-origin');
+  });
+
+  test.each(['/desk', 'the review page', '/briefs/new'])(
+    '%s runs only inline scripts the policy names by hash, and nothing inline wholesale',
+    async (page) => {
+      const visitor = await new Visitor(baseUrl).signIn(page === '/briefs/new' ? DEMO.client : DEMO.engineer);
+      let path = page;
+      if (page === 'the review page') {
+        const list = await (await visitor.request('/api/v1/briefs?state=submitted')).json();
+        path = `/desk/briefs/${list.items[0].id}`;
+      }
+      const response = await visitor.request(path);
+      expect(response.status).toBe(200);
+      const policy = response.headers.get('content-security-policy') ?? '';
+      const scriptSrc = /script-src ([^;]*)/.exec(policy)?.[1] ?? '';
+      expect(scriptSrc).not.toContain('unsafe-inline');
+      const html = await response.text();
+      const inline = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)].filter((m) => !/\bsrc=/.test(m[1] ?? ''));
+      expect(inline.length).toBeGreaterThan(0);
+      for (const [, , body] of inline) expect(scriptSrc).toContain(`'${scriptHash(body ?? '')}'`);
+      expect(html).not.toMatch(/\son[a-z]+="/);
+      // A page shown to someone signed in is kept by no cache.
+      expect(response.headers.get('cache-control')).toBe('private, no-store');
+    },
+  );
+
+  test('the files the server sends itself carry the headers too', async () => {
+    const html = await (await new Visitor(baseUrl).request('/')).text();
+    const asset = /(?:href|src)="(\/_astro\/[^"]+)"/.exec(html)?.[1];
+    expect(asset).toBeDefined();
+    for (const path of [asset ?? '', '/favicon.svg', '/print-sheet.js']) {
+      const response = await fetch(new URL(path, baseUrl));
+      expect(response.status, path).toBe(200);
+      expect(response.headers.get('x-content-type-options'), path).toBe('nosniff');
+      expect(response.headers.get('content-security-policy'), path).toBe("default-src 'none'; frame-ancestors 'none'");
+      await response.body?.cancel();
+    }
   });
 
   test('an unknown page answers 404 with our page', async () => {

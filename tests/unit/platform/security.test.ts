@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { isCrossOriginWrite, securityHeaders } from '../../../src/lib/platform/http/security';
+import { isCrossOriginWrite, securityHeaders, staticFileHeaders } from '../../../src/lib/platform/http/security';
+import { islandScriptHashes, scriptHash } from '../../../src/lib/platform/http/island-scripts';
 
 const url = new URL('https://rails.example/api/v1/briefs');
 const req = (method: string, headers: Record<string, string> = {}) => new Request(url, { method, headers });
@@ -41,5 +42,26 @@ describe('security headers', () => {
     expect(securityHeaders(false, 'http://127.0.0.1:12111')['content-security-policy']).toContain(
       "form-action 'self' http://127.0.0.1:12111;",
     );
+  });
+  test('inline scripts run only when their hash is named; nothing inline is allowed wholesale', () => {
+    const policy = securityHeaders(true, undefined, ['sha256-abc=', 'sha256-def='])['content-security-policy'];
+    expect(policy).toContain("script-src 'self' 'sha256-abc=' 'sha256-def=';");
+    expect(policy).not.toMatch(/script-src[^;]*unsafe-inline/);
+  });
+  test('files the server sends itself run nothing and are framed nowhere', () => {
+    const headers = staticFileHeaders(true);
+    expect(headers['content-security-policy']).toBe("default-src 'none'; frame-ancestors 'none'");
+    expect(headers['x-content-type-options']).toBe('nosniff');
+    expect(headers['cross-origin-resource-policy']).toBe('same-origin');
+  });
+});
+
+describe('the island scripts Astro inlines', () => {
+  test('are read from the installed Astro and hashed as the browser hashes them', async () => {
+    const hashes = await islandScriptHashes();
+    // The directives (idle, load, media, only, visible) and the island element itself.
+    expect(hashes.length).toBeGreaterThanOrEqual(6);
+    // The browser hashes the exact text between the tags (CSP Level 3, "hash-source").
+    expect(scriptHash('alert(1)')).toBe('sha256-bhHHL3z2vDgxUt0W3dWQOrprscmda2Y5pLsLg4GF+pI=');
   });
 });

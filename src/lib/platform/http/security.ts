@@ -1,12 +1,17 @@
 /** Response headers and origin rules applied to every answer (docs/quality.md, Security). */
 
-/** `checkoutOrigin`: where the pay-deposit form may send the browser on (the provider's hosted page). */
-export function securityHeaders(production: boolean, checkoutOrigin = 'https://checkout.stripe.com'): Record<string, string> {
+/**
+ * Every answer's headers. `checkoutOrigin`: where the pay-deposit form may send the
+ * browser on (the provider's hosted page). `scriptHashes`: the inline scripts a page may run.
+ */
+export function securityHeaders(
+  production: boolean,
+  checkoutOrigin = 'https://checkout.stripe.com',
+  scriptHashes: readonly string[] = [],
+): Record<string, string> {
   const csp = [
     "default-src 'self'",
-    // Astro's island loader is an inline module script; hashing it per build is
-    // not exposed, so scripts are limited to our own origin plus inline.
-    "script-src 'self' 'unsafe-inline'",
+    ['script-src', "'self'", ...scriptHashes.map((hash) => `'${hash}'`)].join(' '),
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
     "font-src 'self' data:",
@@ -24,6 +29,20 @@ export function securityHeaders(production: boolean, checkoutOrigin = 'https://c
     'permissions-policy': 'camera=(), microphone=(), geolocation=()',
     'cross-origin-opener-policy': 'same-origin',
     ...(production ? { 'strict-transport-security': 'max-age=31536000; includeSubDomains' } : {}),
+  };
+}
+
+/**
+ * What the server sends with the files it serves itself (scripts, styles, fonts
+ * under /_astro and public/), which never pass the middleware: nothing may run
+ * or frame them, and their types are not guessed.
+ */
+export function staticFileHeaders(production: boolean): Record<string, string> {
+  const { 'content-security-policy': _pagePolicy, ...rest } = securityHeaders(production);
+  return {
+    ...rest,
+    'content-security-policy': "default-src 'none'; frame-ancestors 'none'",
+    'cross-origin-resource-policy': 'same-origin',
   };
 }
 
