@@ -725,8 +725,9 @@ export const defaultCatalog: Catalog = {
       source: 'common practice: the classic fixed three-terminal regulator; drift, regulation and noise from memory',
     })),
     // A series voltage reference is a fixed low-current regulator with a tight, stable output.
-    // The standard series-reference voltages (common practice: 1.25, 2.048, 2.5, 3.0, 3.3, 4.096, 5 V).
-    ...[1.25, 2.048, 2.5, 3.0, 3.3, 4.096, 5].map((v) => ({
+    // The standard series-reference voltages (common practice: 1.25, 1.8, 2.048, 2.5, 3.0, 3.3, 4.096, 5, 10 V);
+    // a 10 V reference takes up to about 36 V in (from memory).
+    ...[1.25, 1.8, 2.048, 2.5, 3.0, 3.3, 4.096, 5, 10].map((v) => ({
       id: `ref-series-${String(v).replace('.', 'v')}`,
       label: `Precision series voltage reference, ${v} V, 20 mA`,
       kind: 'fixed' as const,
@@ -737,7 +738,7 @@ export const defaultCatalog: Catalog = {
       minLoadA: 0,
       dropoutV: 0.3,
       vDiffMaxV: null,
-      vInMaxV: 15,
+      vInMaxV: v >= 10 ? 36 : 15,
       iqA: 0.15e-3,
       iOutMaxA: 0.02,
       iLimitA: 0.04,

@@ -271,4 +271,15 @@ describe('the class search prices what a class draws for itself', () => {
     expect(option.feasible).toBe(true);
     expect(option.components.find((c) => c.role === 'regulator')!.part).toMatch(/series voltage reference, 2\.048 V/);
   });
+
+  test('24 V → 10 V ±0.5 % at 5 mA: a 10 V series reference, which takes up to about 36 V in (from memory)', () => {
+    const { option } = linearOption({
+      input: { vMin: 21.6, vNom: 24, vMax: 26.4, source: 'bus' },
+      output: { v: 10, tolerance: 0.005, iMin: 0.0005, iTyp: 0.002, iMax: 0.005 },
+      noise: { class: 'precision' },
+      thermal,
+    });
+    expect(option.feasible).toBe(true);
+    expect(option.components.find((c) => c.role === 'regulator')!.part).toMatch(/series voltage reference, 10 V/);
+  });
 });
