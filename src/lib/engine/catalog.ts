@@ -1702,7 +1702,8 @@ export const defaultCatalog: Catalog = {
     { thetaSaCW: 1, costCents: 1100 },
     { thetaSaCW: 0.6, costCents: 2000 },
   ],
-  diode: { vfV: 0.9, thetaJaCW: 100, tjMaxC: 150, costCents: 4 },
+  // A catch diode in a power package (SMB/SMC class) on a little copper: θJA about 60 K/W (from memory).
+  diode: { vfV: 0.9, thetaJaCW: 60, tjMaxC: 150, costCents: 5 },
   thermal: {
     thetaCsCW: 0.5, // greased interface, typical
     tjMarginK: 25, // common practice: design to Tj,max − 25 K

@@ -15,6 +15,8 @@ import { searchDivider } from './feedback.ts';
 
 /** Divider current: a hundred times the reference-input current keeps its error near 1 % of R2's (common practice). */
 const DIVIDER_BIAS_RATIO = 100;
+/** The divider grade every design can have at no extra cost: 1 % thick film (common practice). */
+const COARSE_DIVIDER_TOLERANCE = 0.01;
 
 export function designShuntReference(ctx: Context, ref: ShuntReference): Design & { fixes: Fix[] } {
   const { spec } = ctx;
@@ -41,9 +43,13 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   // Rs and the output depend on each other only weakly: size Rs at the target, then check at the spread.
   const iDiv = DIVIDER_BIAS_RATIO * ref.iRefA;
   const band = { lo: vTarget * (1 - spec.output.tolerance), hi: vTarget * (1 + spec.output.tolerance) };
-  const rsIdeal = (ctx.vInTrough - band.hi) / (iMax + ref.iKMinA + 1.5 * iDiv);
+  // The highest output Rs must feed: what the reference's widest grade and a 1 % divider (ratio
+  // within ±2 %) can reach, or the band's top when that is lower. A looser tolerance then never
+  // makes Rs smaller and dearer.
+  const vHigh = Math.min(band.hi, vTarget * (1 + ref.vRefTolerance + 2 * COARSE_DIVIDER_TOLERANCE));
+  const rsIdeal = (ctx.vInTrough - vHigh) / (iMax + ref.iKMinA + 1.5 * iDiv);
   // Without headroom (a blocker below) Rs is sized from the highest input, or the rail, so the figures stay sane.
-  const rsDrop = rsIdeal > 0 ? ctx.vInTrough - band.hi : vMax > band.hi ? vMax - band.hi : vTarget;
+  const rsDrop = rsIdeal > 0 ? ctx.vInTrough - vHigh : vMax > vHigh ? vMax - vHigh : vTarget;
   const rs = forced(ctx, rsRef) ?? snap(atLeast(rsDrop / (iMax + ref.iKMinA + 1.5 * iDiv), 1e-3), 'E24', 'down');
   trace.select(
     'shunt.rs',
@@ -51,7 +57,7 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
     'Rs = (vInTrough − Vout,max) / (iOutMax + IKmin + Idiv)',
     {
       vInTrough: [ctx.vInTrough, 'V'],
-      'Vout,max': [band.hi, 'V'],
+      'Vout,max': [vHigh, 'V'],
       iOutMax: [iMax, 'A'],
       IKmin: [ref.iKMinA, 'A'],
       Idiv: [1.5 * iDiv, 'A'],

@@ -881,6 +881,13 @@ export const CORPUS: readonly CorpusBrief[] = [
     why: 'common practice: a non-isolated buck rated past 137.5 V; a linear stage would lose over 50 W',
   },
   {
+    id: 'rail110-5v-1a',
+    family: 'high-voltage',
+    spec: rail({ vin: RAIL_110, ripple: 2, source: 'bus', vout: 5, load: [0.02, 0.5, 1] }),
+    accept: ['buck'],
+    why: 'common practice: a controller buck with a 250 V MOSFET and a power catch diode; a linear stage would lose over 130 W',
+  },
+  {
     id: 'bus3v3-1v8-2pct-2a',
     family: 'precision',
     spec: rail({ vin: [3.135, 3.3, 3.465], ripple: 0.03, source: 'bus', vout: 1.8, tol: 0.02, load: [0.05, 1, 2] }),
