@@ -39,3 +39,22 @@ describe('12 V → 5 V ±2 %, 5 mA shunt rail', () => {
     expect(Math.abs(vOut - 5) / 5).toBeLessThan(0.005);
   });
 });
+
+describe('the shunt reference’s series resistor', () => {
+  // Rs = (vInTrough − Vout,max)/(iOutMax + IKmin + Idiv), snapped down (common practice): Vout,max is
+  // the highest output the cheapest grades reach, so widening the band cannot lower it.
+  const rsAt = (tolerance: number) => {
+    const spec = railSpecSchema.parse({
+      input: { vMin: 4.75, vNom: 5, vMax: 5.25, rippleVpp: 0.05, source: 'adapter' },
+      output: { v: 3.3, tolerance, iMin: 0.0001, iTyp: 0.0005, iMax: 0.001 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 40, airflow: 'still-air' },
+    });
+    const ctx = makeContext(spec, defaultCatalog);
+    return assemble(designShunt(ctx), ctx, 3).components.find((c) => c.role === 'series-resistor')!.value!;
+  };
+  test('a looser tolerance never makes it smaller (and dearer)', () => {
+    expect(rsAt(0.0615)).toBeGreaterThanOrEqual(rsAt(0.05));
+    expect(rsAt(0.1)).toBeGreaterThanOrEqual(rsAt(0.05));
+  });
+});
