@@ -173,12 +173,16 @@ export function rankOptions(options: readonly Option[], spec?: Pick<RailSpec, 'n
   const standing = new Map(feasible.map((o) => [o, (o.score ?? 0) - (rankingHandicap(o, feasible, spec)?.points ?? 0)]));
   const at = (o: Option) => standing.get(o) ?? 0;
   const pending = [...feasible].sort((a, b) => at(b) - at(a) || simplicity(a.topology) - simplicity(b.topology));
+  // On a quiet rail a bare switcher is the handicapped one: it never wins a tie against a linear output stage.
+  const quiet = spec !== undefined && quietRail(spec);
+  const winsTie = (o: Option, than: Option) =>
+    simplicity(o.topology) < simplicity(than.topology) && !(quiet && BARE_SWITCHER.has(o.topology) && LINEAR_OUTPUT.has(than.topology));
   const ranked: Option[] = [];
   while (pending.length > 0) {
     const top = at(pending[0]!);
     let pick = 0;
     pending.forEach((o, k) => {
-      if (top - at(o) <= TIE_POINTS && simplicity(o.topology) < simplicity(pending[pick]!.topology)) pick = k;
+      if (top - at(o) <= TIE_POINTS && winsTie(o, pending[pick]!)) pick = k;
     });
     ranked.push(...pending.splice(pick, 1));
   }

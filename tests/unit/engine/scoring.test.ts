@@ -152,6 +152,12 @@ describe('ranking', () => {
       'buck+linear',
       'buck',
     ]);
+    // On a quiet rail the handicapped bare switcher never wins a tie against a linear output stage:
+    // hybrid 70.6 − 5, buck 74.8 − 10, linear 63.3 leaves the hybrid and the buck within a point.
+    const rf = { noise: { class: 'rf' as const, maxRippleVpp: 0.0005 } };
+    expect(
+      rankOptions([option('buck', true, 74.8), option('buck+linear', true, 70.6), option('linear', true, 63.3)], rf).map((o) => o.topology),
+    ).toEqual(['buck+linear', 'buck', 'linear']);
     const far = [option('buck+linear', true, 70 + HYBRID_MARGIN_POINTS + TIE_POINTS + 1), option('linear', true, 70)];
     expect(rankOptions(far, sensor).map((o) => o.topology)).toEqual(['buck+linear', 'linear']);
     expect(

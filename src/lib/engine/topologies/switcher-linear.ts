@@ -77,8 +77,8 @@ const LOOSEST_TOLERANCE = 0.5;
 
 /**
  * The post-regulator class: of the classes that fit a nearby intermediate rail, the lowest dropout
- * (it wastes least) whose searched reference grade and divider hold the rail's tolerance from
- * that bus; the lowest dropout when none does. Also the highest output the class gives with its
+ * at full load (it wastes least) whose searched reference grade and divider hold the rail's
+ * tolerance from that bus; the lowest dropout when none does. Also the highest output the class gives with its
  * cheapest grades, which the bus must clear by the dropout: a bound that tighter grades only
  * lower, so the bus does not get dearer when the rail's tolerance is relaxed.
  */
@@ -93,7 +93,7 @@ function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: Line
           (c) =>
             checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget),
         )
-        .sort((a, b) => dropoutAt(a, iMax) - dropoutAt(b, iMax));
+        .sort((a, b) => postDropout(a, iMax) - postDropout(b, iMax));
   const band = railBand(spec);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
   const spread = busSpread(ctx, vTarget);
