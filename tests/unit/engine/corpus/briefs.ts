@@ -952,6 +952,27 @@ export const CORPUS: readonly CorpusBrief[] = [
     why: 'common practice: 100 µV from 200 mV of 100–120 Hz ripple needs 66 dB, which a bypassed adjustable regulator gives (about 80 dB, from memory); a switcher would add its own ripple',
   },
   {
+    id: 'quiet-usb-3v3-rf-500ma',
+    family: 'quiet',
+    spec: rail({ vin: USB, ripple: 0.05, source: 'adapter', vout: 3.3, load: [0.01, 0.2, 0.5], noise: 'rf' }),
+    accept: ['linear', 'buck+linear'],
+    why: 'common practice: a radio module from USB; an LDO losing about 1 W, or a buck to just above the rail and an LDO, keeps switching spurs off the radio',
+  },
+  {
+    id: 'quiet-24-3v3-rf-2a',
+    family: 'quiet',
+    spec: rail({ vin: [21.6, 24, 26.4], ripple: 0.2, source: 'bus', vout: 3.3, load: [0.05, 1, 2], noise: 'rf' }),
+    accept: ['buck+linear'],
+    why: 'common practice: a linear stage alone would lose 45 W; a buck to just above 3.3 V and a 3 A LDO after it',
+  },
+  {
+    id: 'quiet-adapter12-5v-rf-80ma',
+    family: 'quiet',
+    spec: rail({ vin: [11.4, 12, 12.6], ripple: 0.1, source: 'adapter', vout: 5, tol: 0.02, load: [0.005, 0.04, 0.08], noise: 'rf' }),
+    accept: ['linear', 'buck+linear'],
+    why: QUIET_LINEAR,
+  },
+  {
     id: 'quiet-24-15v-analog-100ma',
     family: 'quiet',
     spec: rail({ vin: [21.6, 24, 26.4], ripple: 0.2, source: 'bus', vout: 15, tol: 0.03, load: [0.005, 0.05, 0.1], noise: 'precision' }),
