@@ -7,6 +7,7 @@ import { auth } from '~/lib/platform/auth';
 import { config } from '~/lib/platform/config';
 import { client, db } from '~/lib/platform/db';
 import { migrateDatabase } from '~/lib/platform/db/migrate';
+import { startMailOutbox } from '~/lib/platform/mail/mailer';
 
 /** Resolves once migrations (and, when asked, the demo seed) are applied; requests wait on it. */
 export const serverReady: Promise<void> = (async () => {
@@ -15,4 +16,5 @@ export const serverReady: Promise<void> = (async () => {
     const { seedDemo } = await import('~/lib/demo/seed.server');
     await seedDemo(db, auth);
   }
+  startMailOutbox();
 })();

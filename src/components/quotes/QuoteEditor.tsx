@@ -16,7 +16,6 @@ import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
 interface Props {
   initial: QuoteJson;
   /** The last failed attempt to e-mail this quote, if the latest attempt failed. */
-  lastFailure: string | null;
 }
 
 interface LineDraft {
@@ -54,7 +53,7 @@ const isoDay = (iso: string) => iso.slice(0, 10);
 const percentText = (bp: number) => formatDecimal(bp, 2).replace(/\.00$/, '');
 
 /** The engineer's editor for a draft quote: lines, units, rates, validity, terms; save, preview, send. */
-export function QuoteEditor({ initial, lastFailure }: Props) {
+export function QuoteEditor({ initial }: Props) {
   const digits = minorDigits(initial.currency);
   const [saved, setSaved] = useState(initial);
   const [lines, setLines] = useState(() => draftsOf(initial, digits));
@@ -65,9 +64,7 @@ export function QuoteEditor({ initial, lastFailure }: Props) {
   const [terms, setTerms] = useState(initial.terms);
   const [dirty, setDirty] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(
-    lastFailure ? { tone: 'stop', text: `The last attempt to send failed: ${lastFailure}` } : null,
-  );
+  const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(null);
   const [busy, setBusy] = useState<'save' | 'send' | null>(null);
 
   const edit =

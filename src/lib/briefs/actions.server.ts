@@ -14,7 +14,9 @@ import { db } from '../platform/db';
 import { brief, stateChange } from '../platform/db/schema';
 import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 import type { SignedInUser } from '../platform/http/guard';
-import { notifySubmitted } from './mail.server';
+import { submittedMails } from './mail.server';
+import { deliverQueuedMail } from '../platform/mail/mailer';
+import { enqueueMail } from '../platform/mail/outbox';
 
 /** Full check of a spec at submission; issue paths are prefixed with `spec.` as the body has them. */
 async function validateForSubmission(spec: unknown) {
@@ -30,7 +32,7 @@ export async function createBrief(owner: SignedInUser, body: CreateBrief): Promi
   const checked = body.submit ? await validateForSubmission(body.spec) : null;
   if (checked && !checked.ok) return invalidInput('invalid_brief', checked.issues);
   const now = new Date();
-  const row = await db.transaction(async (tx) => {
+  const { row, queued } = await db.transaction(async (tx) => {
     const [created] = await tx
       .insert(brief)
       .values({
@@ -50,9 +52,9 @@ export async function createBrief(owner: SignedInUser, body: CreateBrief): Promi
       await tx
         .insert(stateChange)
         .values({ subjectType: 'brief', subjectId: created.id, fromState: 'draft', toState: 'submitted', actorId: owner.id });
-    return created;
+    return { row: created, queued: checked?.ok ? await enqueueMail(tx, await submittedMails(tx, created)) : [] };
   });
-  if (row.state === 'submitted') await notifySubmitted(row);
+  await deliverQueuedMail(queued);
   return succeed(row);
 }
 
@@ -90,15 +92,17 @@ export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: Dra
       .where(eq(brief.id, row.id))
       .returning();
     if (!updated) throw new Error('Update returned no row');
-    if (!checked?.ok) return { ok: true as const, row: updated };
-    return moveBrief(tx, updated, 'submitted', 'owner', owner.id, '', {
+    if (!checked?.ok) return { ok: true as const, row: updated, queued: [] };
+    const moved = await moveBrief(tx, updated, 'submitted', 'owner', owner.id, '', {
       submittedAt: new Date(),
       recommendedTopology: checked.result.recommended,
       summary: summarise(checked.result),
     });
+    // The engineers' notice is queued with the submission: both happen, or neither.
+    return moved.ok ? { ...moved, queued: await enqueueMail(tx, await submittedMails(tx, moved.row)) } : moved;
   });
   if (!result.ok) return refuse('wrong-state', result.message);
-  if (result.row.state === 'submitted') await notifySubmitted(result.row);
+  await deliverQueuedMail(result.queued);
   return succeed(result.row);
 }
 

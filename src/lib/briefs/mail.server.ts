@@ -1,18 +1,18 @@
 import { eq, inArray } from 'drizzle-orm';
-import { db } from '../platform/db';
+import type { DbOrTx } from '../platform/db/connect';
 import { clientProfile, user } from '../platform/db/schema';
 import type { BriefRow } from './briefs.server';
-import { mailer } from '../platform/mail/mailer';
 import { appUrl } from '../platform/links';
+import type { OutgoingMail } from '../platform/mail/transport';
 
-/** Tells every engineer that a brief arrived; a failed mail is logged and does not undo the submission. */
-export async function notifySubmitted(row: BriefRow): Promise<void> {
+/** The mail telling every engineer that a brief arrived, read inside the submitting transaction. */
+export async function submittedMails(tx: DbOrTx, row: BriefRow): Promise<OutgoingMail[]> {
   const [staff, owner] = await Promise.all([
-    db
+    tx
       .select({ email: user.email })
       .from(user)
       .where(inArray(user.role, ['engineer'])),
-    db
+    tx
       .select({ name: user.name, company: clientProfile.company })
       .from(user)
       .leftJoin(clientProfile, eq(clientProfile.userId, user.id))
@@ -21,22 +21,18 @@ export async function notifySubmitted(row: BriefRow): Promise<void> {
   ]);
   const who = owner[0] ? `${owner[0].name}${owner[0].company ? ` (${owner[0].company})` : ''}` : 'A client';
   const summary = row.summary as { topology?: string } | null;
-  await Promise.all(
-    staff.map(({ email }) =>
-      mailer.send({
-        kind: 'brief-submitted',
-        to: email,
-        subject: `New brief: ${row.title}`,
-        text: [
-          `${who} submitted a supply brief: ${row.title}.`,
-          summary?.topology
-            ? `The engine's first pick is ${summary.topology}; review it before anything is promised.`
-            : 'No option is feasible as briefed; it needs an engineer’s look.',
-          '',
-          `Open it: ${appUrl(`/desk/briefs/${row.id}`)}`,
-        ].join('\n'),
-        relatedId: row.id,
-      }),
-    ),
-  );
+  return staff.map(({ email }) => ({
+    kind: 'brief-submitted',
+    to: email,
+    subject: `New brief: ${row.title}`,
+    text: [
+      `${who} submitted a supply brief: ${row.title}.`,
+      summary?.topology
+        ? `The engine's first pick is ${summary.topology}; review it before anything is promised.`
+        : 'No option is feasible as briefed; it needs an engineer’s look.',
+      '',
+      `Open it: ${appUrl(`/desk/briefs/${row.id}`)}`,
+    ].join('\n'),
+    relatedId: row.id,
+  }));
 }

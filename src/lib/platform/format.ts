@@ -7,6 +7,14 @@ export function formatDate(value: Date | number | null | undefined): string {
   return dateFormat.format(value instanceof Date ? value : new Date(value));
 }
 
+const timeFormat = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', timeZone: 'UTC', timeZoneName: 'short' });
+
+/** A date with its time of day (UTC), for what happens within the day: a mail's next try. */
+export function formatDateTime(value: Date | number): string {
+  const at = value instanceof Date ? value : new Date(value);
+  return `${formatDate(at)}, ${timeFormat.format(at)}`;
+}
+
 export function formatMoney(minor: number, currency: string): string {
   const digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
   return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 10 ** digits);

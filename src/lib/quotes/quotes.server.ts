@@ -2,8 +2,8 @@
  * What engineers and clients do to quotes: draft, edit while draft, render,
  * send, accept. Each action is one transaction; routes and pages only translate.
  */
-import { and, eq, inArray, isNull, lt, ne, or } from 'drizzle-orm';
-import { formatDate } from '../platform/format';
+import { and, eq, inArray, ne } from 'drizzle-orm';
+import { formatDate, formatDateTime } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
 import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
@@ -11,7 +11,8 @@ import { brief, quote } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { invalidInput, notYours, refuse, succeed, type Outcome } from '../platform/outcome';
 import { appUrl } from '../platform/links';
-import { mailer } from '../platform/mail/mailer';
+import { deliverQueuedMail } from '../platform/mail/mailer';
+import { enqueueMail, latestOutboxEntry } from '../platform/mail/outbox';
 import { renderQuotePdf } from './render.server';
 import { draftQuote, moveQuote, validUntilFrom, writeLines, type QuoteRow } from './core.server';
 import { quoteMail } from './mail.server';
@@ -108,10 +109,6 @@ export async function createQuote(staff: SignedInUser, revisionId: string, quant
   return view ? succeed(view) : refuse('not-found', 'The quote vanished after drafting; try again.');
 }
 
-/** A send that has not finished in this long is taken to have died (a crashed process); it may be retried. */
-const SEND_CLAIM_MS = 120_000;
-const notBeingSent = (now: Date) => or(isNull(quote.sendingSince), lt(quote.sendingSince, new Date(now.getTime() - SEND_CLAIM_MS)));
-
 /** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
 export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.quote.state !== 'draft')
@@ -151,13 +148,13 @@ export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new 
         ...(validUntil ? { validUntil } : {}),
         updatedAt: now,
       })
-      .where(and(eq(quote.id, view.quote.id), eq(quote.state, 'draft'), notBeingSent(now)))
+      .where(and(eq(quote.id, view.quote.id), eq(quote.state, 'draft')))
       .returning();
     if (!row) return null;
     await writeLines(tx, row.id, lines, taxRateBp, depositBp);
     return row;
   });
-  if (!updated) return wrong('The quote is being sent or was sent meanwhile; reload it.');
+  if (!updated) return wrong('The quote was sent meanwhile; reload it.');
   return reload(updated.id);
 }
 
@@ -171,9 +168,10 @@ export function quotePdf(view: QuoteView): Promise<Buffer> {
 }
 
 /**
- * Renders the PDF, e-mails it to the client, and only when the mail server
- * has taken the message marks the quote sent and the brief quoted. A failed
- * mail leaves the draft as it was (and logged) so sending can be retried.
+ * Renders the PDF as it will be stored, then in one transaction marks the
+ * quote sent, withdraws the brief's earlier offers, moves the brief to quoted
+ * and queues the e-mail with the PDF (the outbox delivers and retries it), so
+ * no crash can leave a sent quote without its mail or a mail without its quote.
  */
 export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.quote.state !== 'draft') return wrong(`This quote is ${view.state} already; only a draft is sent.`);
@@ -183,45 +181,53 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
   if (view.quote.validUntil.getTime() < now.getTime())
     return wrong(`The validity date ${formatDate(view.quote.validUntil)} has passed; set a new one before sending.`);
 
-  // Claim the send first: a second click or a second engineer gets a 409 rather than a second e-mail.
-  const [claimed] = await db
-    .update(quote)
-    .set({ sendingSince: now })
-    .where(and(eq(quote.id, view.quote.id), eq(quote.state, 'draft'), notBeingSent(now)))
-    .returning({ id: quote.id });
-  if (!claimed) return wrong('This quote is being sent right now; reload in a moment to see the outcome.');
-
-  // Read again under the claim, so the PDF shows exactly what is stored as sent.
-  const current = (await loadQuoteView(db, view.quote.id)) ?? view;
-  const asSent: QuoteView = { ...current, state: 'sent', quote: { ...current.quote, state: 'sent', sentAt: now } };
-  const mailed = await quotePdf(asSent)
-    .then((pdf) => mailer.send(quoteMail(asSent, pdf, quotePageUrl(view.quote.id))))
-    .catch((err: unknown) => ({ ok: false as const, error: err instanceof Error ? err.message : String(err) }));
-  if (!mailed.ok) {
-    await db.update(quote).set({ sendingSince: null }).where(eq(quote.id, view.quote.id));
-    return refuse(
-      'upstream-failed',
-      `The e-mail to ${view.client.email} could not be sent (${mailed.error}). The quote is still a draft; try sending again.`,
-      { code: 'mail_failed' },
-    );
+  const asSent: QuoteView = { ...view, state: 'sent', quote: { ...view.quote, state: 'sent', sentAt: now } };
+  const pdf = await quotePdf(asSent);
+  let queued: string[];
+  try {
+    queued = await db.transaction(async (tx) => {
+      // The PDF shows the draft as read: an edit since then means sending again, not mailing stale figures.
+      const [stored] = await tx.select({ updatedAt: quote.updatedAt }).from(quote).where(eq(quote.id, view.quote.id)).limit(1);
+      if (stored?.updatedAt.getTime() !== view.quote.updatedAt.getTime())
+        throw new Refused('The quote changed while it was being sent; check it and send it again.');
+      const sent = await moveQuote(tx, view.quote, 'sent', staff.id, { sentAt: now }, '', now);
+      if (!sent) throw new Refused('The quote was sent by someone else meanwhile; reload it.');
+      // One offer stands at a time: the brief's earlier sent quotes are withdrawn, so only this one can be accepted.
+      const earlier = await tx
+        .select()
+        .from(quote)
+        .where(and(eq(quote.briefId, view.brief.id), eq(quote.state, 'sent'), ne(quote.id, view.quote.id)));
+      for (const old of earlier) await moveQuote(tx, old, 'withdrawn', staff.id, {}, `Replaced by quote ${view.quote.number}`, now);
+      const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
+      const moved = briefRow ? await moveBrief(tx, briefRow, 'quoted', 'system', staff.id, `Quote ${view.quote.number} sent`) : null;
+      if (!moved?.ok) throw new Refused('The brief moved on meanwhile; reload it before sending.');
+      return enqueueMail(tx, [quoteMail(asSent, pdf, quotePageUrl(view.quote.id))], now);
+    });
+  } catch (err) {
+    if (err instanceof Refused) return wrong(err.message);
+    throw err;
   }
-
-  const marked = await db.transaction(async (tx) => {
-    const sent = await moveQuote(tx, current.quote, 'sent', staff.id, { sentAt: now, sendingSince: null });
-    if (!sent) return false;
-    // One offer stands at a time: the brief's earlier sent quotes are withdrawn, so only this one can be accepted.
-    const earlier = await tx
-      .select()
-      .from(quote)
-      .where(and(eq(quote.briefId, view.brief.id), eq(quote.state, 'sent'), ne(quote.id, view.quote.id)));
-    for (const old of earlier) await moveQuote(tx, old, 'withdrawn', staff.id, {}, `Replaced by quote ${view.quote.number}`, now);
-    const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
-    // The mail is out, so the quote is sent whatever happened to the brief meanwhile.
-    if (briefRow) await moveBrief(tx, briefRow, 'quoted', 'system', staff.id, `Quote ${view.quote.number} sent`);
-    return true;
-  });
-  if (!marked) return wrong('The quote was sent by someone else meanwhile; reload it.');
+  // Deliver now while the engineer waits; what the mail server refuses stays queued and is retried.
+  await deliverQueuedMail(queued);
   return reload(view.quote.id);
+}
+
+/** Whether a sent quote's e-mail reached the mail server, in words for the builder. */
+export async function quoteMailDelivery(quoteId: string): Promise<{ delivered: boolean; message: string } | null> {
+  const entry = await latestOutboxEntry(db, quoteId);
+  if (!entry) return null;
+  if (entry.state === 'sent')
+    return { delivered: true, message: `E-mailed to ${entry.toAddress} on ${formatDate(entry.sentAt ?? entry.createdAt)}.` };
+  const reason = entry.lastError ? ` (${entry.lastError})` : '';
+  if (entry.state === 'failed')
+    return {
+      delivered: false,
+      message: `The e-mail to ${entry.toAddress} could not be delivered after ${entry.attempts} tries${reason}. Check the address and reach the client another way.`,
+    };
+  return {
+    delivered: false,
+    message: `The e-mail to ${entry.toAddress} has not gone out yet${reason}. It is retried automatically; the next try is at ${formatDateTime(entry.nextAttemptAt)}.`,
+  };
 }
 
 class Refused extends Error {}

@@ -53,7 +53,6 @@ function highVoltageView(): QuoteView {
     createdBy: 'e',
     sentAt: now,
     acceptedAt: null,
-    sendingSince: null,
     createdAt: now,
     updatedAt: now,
   };

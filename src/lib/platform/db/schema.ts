@@ -155,8 +155,6 @@ export const quote = sqliteTable(
       .notNull()
       .references(() => user.id),
     sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
-    /** Set while one request is e-mailing the quote, so a second click cannot mail it twice. */
-    sendingSince: integer('sending_since', { mode: 'timestamp_ms' }),
     acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -245,6 +243,38 @@ export const mailLog = sqliteTable(
   },
   (t) => [index('mail_log_created_idx').on(t.createdAt)],
 );
+
+export const OUTBOX_STATES = ['queued', 'sent', 'failed'] as const;
+
+/**
+ * Mail to be sent, written in the same transaction as the change it tells of
+ * and delivered (and retried) by the outbox worker of any app instance, so a
+ * crash between the two neither loses the mail nor the change.
+ */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: id(),
+    kind: text('kind').notNull(),
+    toAddress: text('to_address').notNull(),
+    subject: text('subject').notNull(),
+    bodyText: text('body_text').notNull(),
+    bodyHtml: text('body_html'),
+    /** Files to attach, their bytes in base64 (a quote's PDF as it was sent). */
+    attachments: text('attachments', { mode: 'json' }).$type<{ filename: string; contentType: string; base64: string }[]>(),
+    relatedId: text('related_id'),
+    state: text('state', { enum: OUTBOX_STATES }).notNull().default('queued'),
+    attempts: integer('attempts').notNull().default(0),
+    nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }).notNull(),
+    /** Held by one worker until then; a worker that died lets it go when the time passes. */
+    claimedUntil: integer('claimed_until', { mode: 'timestamp_ms' }),
+    lastError: text('last_error'),
+    sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('mail_outbox_due_idx').on(t.state, t.nextAttemptAt), index('mail_outbox_related_idx').on(t.relatedId)],
+);
+export type OutboxRow = typeof mailOutbox.$inferSelect;
 
 /** One row: the consultancy's prices. Hours by topology and complexity drivers are JSON maps. */
 export const rateCard = sqliteTable('rate_card', {

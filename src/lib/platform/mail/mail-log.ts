@@ -2,7 +2,7 @@
  * The admin's view of outgoing mail: every attempt the app logged, and —
  * where the local mail catcher is configured — what it actually received.
  */
-import { desc, eq } from 'drizzle-orm';
+import { desc } from 'drizzle-orm';
 import type { MessageSummary, StoredMessage } from '../../../../mail-catcher/src/stored-message';
 import { config } from '../config';
 import { db } from '../db';
@@ -10,12 +10,6 @@ import { mailLog } from '../db/schema';
 
 export async function listMailLog(limit = 100) {
   return db.select().from(mailLog).orderBy(desc(mailLog.createdAt)).limit(limit);
-}
-
-/** The error of the latest mail about this thing, when that latest attempt failed. */
-export async function lastMailFailure(relatedId: string): Promise<string | null> {
-  const [latest] = await db.select().from(mailLog).where(eq(mailLog.relatedId, relatedId)).orderBy(desc(mailLog.createdAt)).limit(1);
-  return latest?.state === 'failed' ? (latest.error ?? 'unknown error') : null;
 }
 
 export type CaughtMessage = Omit<StoredMessage, 'rawBase64' | 'attachments'> & { attachments: MessageSummary['attachments'] };

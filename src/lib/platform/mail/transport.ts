@@ -26,7 +26,8 @@ export function createMailer(db: Database, smtpUrl: string, from: string): Maile
   let transport: Transporter | undefined;
   return {
     async send(mail) {
-      transport ??= nodemailer.createTransport(smtpUrl);
+      // Bounded waits: a send ends (sent or failed) well within the outbox's 60 s claim.
+      transport ??= nodemailer.createTransport({ url: smtpUrl, connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 30_000 });
       const attachmentName = mail.attachments?.[0]?.filename ?? null;
       try {
         const info = await transport.sendMail({

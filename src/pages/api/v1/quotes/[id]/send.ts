@@ -3,7 +3,7 @@ import { apiMutation } from '~/lib/platform/http/mutation';
 import { json } from '~/lib/platform/http/responses';
 import { quoteJson, quoteOf, sendQuote } from '~/lib/quotes/quotes.server';
 
-/** Renders the PDF, e-mails it to the client and marks the quote sent (502 when the mail fails). */
+/** Renders the PDF, marks the quote sent and queues its e-mail with the PDF; the outbox delivers and retries it. */
 export const POST = apiMutation({
   access: STAFF,
   run: async ({ user, context }) => {
