@@ -22,7 +22,13 @@ const { handler } = await import('../dist/server/entry.mjs');
 const compress = compression();
 const port = process.env.PORT ?? '4321';
 const listenHost = process.env.HOST ?? '0.0.0.0';
-const server = http.createServer((req, res) => compress(req, res, () => handler(req, res)));
+// The socket's peer, for the app's rate limits (src/lib/platform/rate-limit/client-address.ts):
+// set on every request, so a caller cannot supply it, and never taken from X-Forwarded-For.
+const PEER_HEADER = 'x-railwright-peer';
+const server = http.createServer((req, res) => {
+  req.headers[PEER_HEADER] = req.socket.remoteAddress ?? '';
+  compress(req, res, () => handler(req, res));
+});
 server.on('error', (error) => {
   console.error(`Railwright could not listen on ${listenHost}:${port}: ${error.message}`);
   process.exit(1);

@@ -1,5 +1,5 @@
 import { describe, expect, inject, test } from 'vitest';
-import { Visitor } from '../../support/client';
+import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
@@ -58,6 +58,14 @@ describe('password reset by e-mail', () => {
       json: { email, password: 'second-password-2' },
     });
     expect(newPassword.status).toBe(200);
+
+    // The live link reaches the inbox only: the admin's mail log shows the e-mail without it.
+    const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
+    const mailLog = await (await admin.request('/admin/mail')).text();
+    expect(mailLog).toContain(email);
+    expect(mailLog).toContain('reset-password?token=[withheld');
+    expect(mailLog).not.toContain(token);
+    expect(mailLog).not.toContain(encodeURIComponent(token));
   });
 
   test('asking for an unknown address looks the same and sends nothing', async () => {
