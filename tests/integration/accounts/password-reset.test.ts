@@ -78,4 +78,36 @@ describe('password reset by e-mail', () => {
     const list = await (await fetch(`${mailApiUrl}/messages`)).text();
     expect(list).not.toContain(email);
   });
+
+  test('the answer takes as long for an existing account as for an unknown address', async () => {
+    const known: string[] = [];
+    for (let i = 0; i < 4; i++) {
+      const email = `timed-${Date.now()}-${i}@example.test`;
+      const signUp = await new Visitor(baseUrl).form('/sign-up', {
+        name: 'Ines Voss',
+        company: 'Voss Sensors',
+        email,
+        password: 'timed-password-1',
+      });
+      expect(signUp.status).toBe(303);
+      known.push(email);
+    }
+    const timed = async (email: string) => {
+      const started = performance.now();
+      const response = await new Visitor(baseUrl).form('/forgot-password', { email });
+      const elapsed = performance.now() - started;
+      expect(response.status).toBe(303);
+      // Let the e-mail that follows the answer go out before the next measurement.
+      await new Promise((r) => setTimeout(r, 300));
+      return elapsed;
+    };
+    const knownTimes: number[] = [];
+    const unknownTimes: number[] = [];
+    for (const [i, email] of known.entries()) {
+      knownTimes.push(await timed(email));
+      unknownTimes.push(await timed(`unknown-${Date.now()}-${i}@example.test`));
+    }
+    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? 0;
+    expect(Math.abs(median(knownTimes) - median(unknownTimes))).toBeLessThan(40);
+  });
 });
