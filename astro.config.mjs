@@ -32,6 +32,8 @@ export default defineConfig({
       // The local mail catcher's HTTP API, when there is one: the admin mail log then shows what it received.
       MAIL_FAKE_HTTP_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
       RATE_LIMIT_DISABLED: envField.string({ context: 'server', access: 'secret', optional: true }),
+      // Proxies in front of the app whose X-Forwarded-For entries are believed; 0 trusts none (README).
+      TRUSTED_PROXY_HOPS: envField.number({ context: 'server', access: 'secret', default: 0, int: true, min: 0, max: 10 }),
       // Engine threads for the evaluate route; unset means one per core but one, 0 keeps it on the event loop.
       ENGINE_THREADS: envField.number({ context: 'server', access: 'secret', optional: true, int: true, min: 0, max: 64 }),
     },

@@ -25,7 +25,11 @@ const staticHeaders = JSON.parse(await readFile(new URL('../dist/server/static-h
 const compress = compression();
 const port = process.env.PORT ?? '4321';
 const listenHost = process.env.HOST ?? '0.0.0.0';
+// The socket's peer, for the app's rate limits (src/lib/platform/rate-limit/client-address.ts):
+// set on every request, so a caller cannot supply it, and never taken from X-Forwarded-For.
+const PEER_HEADER = 'x-railwright-peer';
 const server = http.createServer((req, res) => {
+  req.headers[PEER_HEADER] = req.socket.remoteAddress ?? '';
   // Set first: an answer of the app carries its own values for the same names, which replace these.
   for (const [name, value] of Object.entries(staticHeaders)) res.setHeader(name, value);
   compress(req, res, () => handler(req, res));

@@ -1,18 +1,29 @@
 import { APIError } from 'better-auth/api';
-import { eq } from 'drizzle-orm';
+import { and, eq, or, sql } from 'drizzle-orm';
 import type { resetPasswordSchema, signInSchema, signUpSchema } from './schemas';
-import { recordFailedSignIn, signInAllowed } from '../platform/rate-limit/sign-in-limit';
+import { limitPasswordReset, limitSignUp } from '../platform/rate-limit/account-limits';
+import { countSignInAttempt } from '../platform/rate-limit/sign-in-limit';
 import { auth } from '../platform/auth';
 import { ROLE_LABELS, ROLES, type Role } from '../platform/auth/roles';
-import { refuse, succeed, type Outcome } from '../platform/outcome';
+import { refuse, succeed, type Outcome, type Refusal } from '../platform/outcome';
+import { log } from '../platform/log';
 import { z } from 'zod';
 import { db } from '../platform/db';
 import { clientProfile, user } from '../platform/db/schema';
 
+const tooManyAttempts = (retryAfterSeconds: number): Refusal =>
+  refuse('rate-limited', `Too many attempts. Wait ${retryAfterSeconds} seconds, then try again.`, { retryAfterSeconds });
+
 type SignUp = z.infer<typeof signUpSchema>;
 
 /** Creates a client account (better-auth) and its company profile, and signs it in. */
-export async function registerClient(data: SignUp, headers: Headers): Promise<Outcome<{ headers: Headers; userId: string; name: string }>> {
+export async function registerClient(
+  data: SignUp,
+  headers: Headers,
+  address: string,
+): Promise<Outcome<{ headers: Headers; userId: string; name: string }>> {
+  const verdict = await limitSignUp(address);
+  if (!verdict.allowed) return tooManyAttempts(verdict.retryAfterSeconds);
   try {
     const result = await auth.api.signUpEmail({
       body: { name: data.name, email: data.email, password: data.password },
@@ -46,50 +57,62 @@ export const roleChangeSchema = z.object({
   role: z.enum(ROLES, { error: 'Choose one of the roles.' }),
 });
 
-/** Role changes go through better-auth's admin plugin so its permission check applies too. */
-export async function changeRole(
-  admin: { id: string },
-  change: z.infer<typeof roleChangeSchema>,
-  headers: Headers,
-): Promise<Outcome<Role>> {
+/**
+ * The role is written only if the product keeps an admin afterwards: the
+ * count is taken inside the same UPDATE, so two admins demoting each other at
+ * once cannot both succeed. The caller's own admin role is checked by the page's guard.
+ */
+export async function changeRole(admin: { id: string }, change: z.infer<typeof roleChangeSchema>): Promise<Outcome<Role>> {
   if (change.userId === admin.id) return refuse('wrong-state', 'You cannot change your own role; ask another admin.');
-  try {
-    await auth.api.setRole({ body: { userId: change.userId, role: change.role }, headers });
-  } catch {
-    return refuse('invalid', 'The role could not be changed. The person may no longer exist.');
-  }
-  return succeed(change.role);
+  const keepsAnAdmin = or(
+    sql`coalesce(${user.role}, '') <> 'admin'`,
+    sql`${change.role} = 'admin'`,
+    sql`(SELECT count(*) FROM "user" AS admins WHERE admins.role = 'admin') > 1`,
+  );
+  const changed = await db
+    .update(user)
+    .set({ role: change.role, updatedAt: new Date() })
+    .where(and(eq(user.id, change.userId), keepsAnAdmin))
+    .returning({ id: user.id });
+  if (changed.length > 0) return succeed(change.role);
+  const [person] = await db.select({ id: user.id }).from(user).where(eq(user.id, change.userId));
+  if (!person) return refuse('not-found', 'That person no longer has an account.');
+  return refuse('wrong-state', 'This is the last admin. Make someone else an admin first, then change this role.');
 }
 
 export const roleChangedMessage = (role: Role) => `Role changed to ${ROLE_LABELS[role]}.`;
 
 /**
- * A password sign-in from the form page. Misses count against the address and
- * the account; a correct sign-in is never slowed down.
+ * A password sign-in from the form page. Every attempt is counted before it
+ * runs, against the address and the account; a correct one is given back.
  */
 export async function signInWithPassword(
   credentials: z.infer<typeof signInSchema>,
   headers: Headers,
   address: string,
 ): Promise<Outcome<{ headers: Headers; role: string | undefined }>> {
-  const verdict = await signInAllowed(address, credentials.email);
-  if (!verdict.allowed) {
-    return refuse('rate-limited', `Too many attempts. Wait ${verdict.retryAfterSeconds} seconds, then try again.`, {
-      retryAfterSeconds: verdict.retryAfterSeconds,
-    });
-  }
+  const attempt = await countSignInAttempt(address, credentials.email);
+  if (!attempt.verdict.allowed) return tooManyAttempts(attempt.verdict.retryAfterSeconds);
   try {
     const result = await auth.api.signInEmail({ body: credentials, headers, returnHeaders: true });
+    await attempt.forgive();
     return succeed({ headers: result.headers, role: (result.response.user as { role?: string }).role });
   } catch {
-    await recordFailedSignIn(address, credentials.email);
     return refuse('unauthenticated', 'That e-mail and password do not match an account.');
   }
 }
 
-/** Asks for a reset link. The same answer whether or not the account exists, so the form reveals nothing. */
-export async function requestPasswordReset(email: string, headers: Headers): Promise<Outcome<void>> {
-  await auth.api.requestPasswordReset({ body: { email }, headers }).catch(() => undefined);
+/**
+ * Asks for a reset link. The same answer, after the same work, whether or not
+ * the account exists: the look-up and the e-mail happen after the answer, so
+ * its timing reveals nothing either.
+ */
+export async function requestPasswordReset(email: string, headers: Headers, address: string): Promise<Outcome<void>> {
+  const verdict = await limitPasswordReset(address, email);
+  if (!verdict.allowed) return tooManyAttempts(verdict.retryAfterSeconds);
+  auth.api.requestPasswordReset({ body: { email }, headers }).catch((error: unknown) => {
+    log.warn({ err: error }, 'password reset e-mail not sent');
+  });
   return succeed(undefined);
 }
 

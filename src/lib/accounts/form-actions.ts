@@ -1,9 +1,22 @@
 /** Helpers for the no-JavaScript account forms that call better-auth on the server. */
 
-/** Only same-site paths: `next=//evil.example` or absolute URLs fall back to the role's home. */
-export function safeNext(value: string | null | undefined, fallback: string): string {
-  if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return fallback;
-  return value;
+/**
+ * Only a path on this site. `next` is read as the browser will read the
+ * Location header (WHATWG URL parsing drops tabs and line breaks and treats
+ * `\` as `/`), so `/\t/evil.example` is seen for the other site it names; what
+ * passes is re-serialised, which leaves no control character in the header.
+ */
+export function safeNext(value: string | null | undefined, fallback: string, origin: string): string {
+  if (!value) return fallback;
+  const base = new URL(origin);
+  let target: URL;
+  try {
+    target = new URL(value, base);
+  } catch {
+    return fallback;
+  }
+  if (target.origin !== base.origin) return fallback;
+  return target.pathname + target.search + target.hash;
 }
 
 export function redirectWithCookies(location: string, authHeaders: Headers): Response {

@@ -17,6 +17,7 @@ import {
   STRIPE_API_BASE,
   STRIPE_SECRET_KEY,
   STRIPE_WEBHOOK_SECRET,
+  TRUSTED_PROXY_HOPS,
   UPLOAD_DIR,
 } from 'astro:env/server';
 import { DEFAULT_DATABASE_URL } from './db/connect';
@@ -71,6 +72,12 @@ export const config = {
   seedDemo: flag(SEED_DEMO),
   /** For load benchmarks only: the sign-in and evaluate limits stop counting. */
   rateLimitDisabled: flag(RATE_LIMIT_DISABLED),
+  /**
+   * How many proxies of our own stand in front of the app. Each appends the address it saw to
+   * X-Forwarded-For, so the client is that many entries from the right; anything further left
+   * was written by the caller. 0: the socket's address is the client's.
+   */
+  trustedProxyHops: TRUSTED_PROXY_HOPS,
   payments: paymentSettings(),
   /** Engine threads for the evaluate route; undefined means one per core but one. */
   engineThreads: ENGINE_THREADS,

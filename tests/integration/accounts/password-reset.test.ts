@@ -1,5 +1,5 @@
 import { describe, expect, inject, test } from 'vitest';
-import { Visitor } from '../../support/client';
+import { DEMO, Visitor } from '../../support/client';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
@@ -58,6 +58,14 @@ describe('password reset by e-mail', () => {
       json: { email, password: 'second-password-2' },
     });
     expect(newPassword.status).toBe(200);
+
+    // The live link reaches the inbox only: the admin's mail log shows the e-mail without it.
+    const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
+    const mailLog = await (await admin.request('/admin/mail')).text();
+    expect(mailLog).toContain(email);
+    expect(mailLog).toContain('reset-password?token=[withheld');
+    expect(mailLog).not.toContain(token);
+    expect(mailLog).not.toContain(encodeURIComponent(token));
   });
 
   test('asking for an unknown address looks the same and sends nothing', async () => {
@@ -69,5 +77,37 @@ describe('password reset by e-mail', () => {
     await new Promise((r) => setTimeout(r, 300));
     const list = await (await fetch(`${mailApiUrl}/messages`)).text();
     expect(list).not.toContain(email);
+  });
+
+  test('the answer takes as long for an existing account as for an unknown address', async () => {
+    const known: string[] = [];
+    for (let i = 0; i < 4; i++) {
+      const email = `timed-${Date.now()}-${i}@example.test`;
+      const signUp = await new Visitor(baseUrl).form('/sign-up', {
+        name: 'Ines Voss',
+        company: 'Voss Sensors',
+        email,
+        password: 'timed-password-1',
+      });
+      expect(signUp.status).toBe(303);
+      known.push(email);
+    }
+    const timed = async (email: string) => {
+      const started = performance.now();
+      const response = await new Visitor(baseUrl).form('/forgot-password', { email });
+      const elapsed = performance.now() - started;
+      expect(response.status).toBe(303);
+      // Let the e-mail that follows the answer go out before the next measurement.
+      await new Promise((r) => setTimeout(r, 300));
+      return elapsed;
+    };
+    const knownTimes: number[] = [];
+    const unknownTimes: number[] = [];
+    for (const [i, email] of known.entries()) {
+      knownTimes.push(await timed(email));
+      unknownTimes.push(await timed(`unknown-${Date.now()}-${i}@example.test`));
+    }
+    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? 0;
+    expect(Math.abs(median(knownTimes) - median(unknownTimes))).toBeLessThan(40);
   });
 });

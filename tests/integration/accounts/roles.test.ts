@@ -89,12 +89,12 @@ describe('accounts', () => {
   test('an admin promotes a client to engineer, who then reaches the desk', async () => {
     const email = `promote-${Date.now()}@example.test`;
     const person = new Visitor(baseUrl);
-    const signUp = await person.request('/api/auth/sign-up/email', {
+    const signUp = await person.request('/api/v1/account', {
       method: 'POST',
-      json: { name: 'Promoted Person', email, password: 'long-enough-password' },
+      json: { name: 'Promoted Person', company: 'Promoted Labs', email, password: 'long-enough-password' },
     });
-    expect(signUp.status).toBe(200);
-    const { user } = await signUp.json();
+    expect(signUp.status).toBe(201);
+    const user = await signUp.json();
     expect((await person.request('/desk')).status).toBe(403);
 
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
@@ -116,6 +116,55 @@ describe('accounts', () => {
     const wrong = await new Visitor(baseUrl).form('/sign-in', { email: DEMO.engineer, password: 'not-the-password' });
     expect(wrong.status).toBe(401);
     expect(await wrong.text()).toContain('do not match an account');
+  });
+
+  test('a signed-in visitor is never sent to another site by `next`, however it is disguised', async () => {
+    const visitor = await new Visitor(baseUrl).signIn(DEMO.engineer);
+    // A browser drops the TAB and lands on //evil.example/phish.html.
+    const tab = await visitor.request('/sign-in?next=%2F%09%2Fevil.example%2Fphish.html');
+    expect(tab.status).toBe(303);
+    expect(tab.headers.get('location')).toBe('/desk');
+    const lineBreak = await visitor.request('/sign-in?next=%2Fdesk%0D%0Aset-cookie%3A%20x%3D1');
+    expect(lineBreak.status).toBe(303);
+    // Read as the browser reads it: the line break is dropped, the rest stays one path on this site.
+    expect(lineBreak.headers.get('location')).toBe('/deskset-cookie:%20x=1');
+    expect(lineBreak.headers.get('set-cookie')).toBeNull();
+    const kept = await visitor.request('/sign-in?next=%2Fdesk%3Fstate%3Dsubmitted');
+    expect(kept.headers.get('location')).toBe('/desk?state=submitted');
+    const posted = await new Visitor(baseUrl).form('/sign-in?next=%2F%0A%2Fevil.example', {
+      email: DEMO.client,
+      password: 'railwright-demo',
+    });
+    expect(posted.status).toBe(303);
+    expect(posted.headers.get('location')).toBe('/briefs');
+  });
+
+  test('better-auth’s own account routes are closed: roles, sign-up and names change only through the app', async () => {
+    const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
+    const adminId = (await (await admin.request('/api/auth/get-session')).json()).user.id as string;
+    const demote = await admin.request('/api/auth/admin/set-role', { method: 'POST', json: { userId: adminId, role: 'client' } });
+    expect(demote.status).toBe(404);
+    expect((await demote.json()).message).toContain('/admin/users');
+    expect((await admin.request('/admin/users')).status).toBe(200);
+
+    const email = `bypass-${Date.now()}@example.test`;
+    const signUp = await new Visitor(baseUrl).request('/api/auth/sign-up/email', {
+      method: 'POST',
+      json: { name: 'x'.repeat(10_000), email, password: 'long-enough-password' },
+    });
+    expect(signUp.status).toBe(404);
+    expect((await signUp.json()).message).toContain('/api/v1/account');
+    const signIn = await new Visitor(baseUrl).request('/api/auth/sign-in/email', {
+      method: 'POST',
+      json: { email, password: 'long-enough-password' },
+    });
+    expect(signIn.status).toBe(401);
+
+    const client = await new Visitor(baseUrl).signIn(DEMO.client);
+    const rename = await client.request('/api/auth/update-user', { method: 'POST', json: { name: 'y'.repeat(10_000) } });
+    expect(rename.status).toBe(404);
+    const ask = await client.request('/api/auth/request-password-reset', { method: 'POST', json: { email: DEMO.client } });
+    expect(ask.status).toBe(404);
   });
 
   test('sign-out ends the session', async () => {

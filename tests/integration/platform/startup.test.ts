@@ -21,12 +21,12 @@ describe('production start', () => {
       const file = server.databaseUrl.slice('file:'.length);
       expect(existsSync(file)).toBe(true);
       expect(path.dirname(file)).toBe(server.dataDir);
-      const signUp = await fetch(`${server.baseUrl}/api/auth/sign-up/email`, {
+      const signUp = await fetch(`${server.baseUrl}/api/v1/account`, {
         method: 'POST',
         headers: { 'content-type': 'application/json', origin: server.baseUrl },
-        body: JSON.stringify({ name: 'Fresh Start', email: 'fresh@example.test', password: 'long-enough-password' }),
+        body: JSON.stringify({ name: 'Fresh Start', company: 'Fresh Labs', email: 'fresh@example.test', password: 'long-enough-password' }),
       });
-      expect(signUp.status).toBe(200);
+      expect(signUp.status).toBe(201);
       const demo = await fetch(`${server.baseUrl}/api/auth/sign-in/email`, {
         method: 'POST',
         headers: { 'content-type': 'application/json', origin: server.baseUrl },

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
 import { migrateDatabase } from '../../../src/lib/platform/db/migrate';
-import { consumeRate, peekRate } from '../../../src/lib/platform/rate-limit/limiter';
+import { consumeRate, refundRate, stricter } from '../../../src/lib/platform/rate-limit/limiter';
 
 const url = `file:${path.join(mkdtempSync(path.join(tmpdir(), 'rw-rate-')), 'rate.db')}`;
 const { db, client } = connect(url);
@@ -32,15 +32,33 @@ describe('database-backed fixed-window limiter', () => {
   });
 });
 
-describe('peeking at a window', () => {
+describe('giving back a counted call', () => {
   const rule = { max: 2, windowMs: 60_000 };
   const t0 = 1_800_000_000_000;
-  test('peeking counts nothing; it refuses once the window is used up, and a new window frees it', async () => {
-    expect((await peekRate(db, 'peek', rule, t0)).allowed).toBe(true);
-    await consumeRate(db, 'peek', rule, t0);
-    expect((await peekRate(db, 'peek', rule, t0)).allowed).toBe(true);
-    await consumeRate(db, 'peek', rule, t0);
-    expect(await peekRate(db, 'peek', rule, t0 + 15_000)).toEqual({ allowed: false, retryAfterSeconds: 45 });
-    expect((await peekRate(db, 'peek', rule, t0 + 60_000)).allowed).toBe(true);
+  test('a refunded call no longer counts; a refund never goes below zero or reaches another window', async () => {
+    await consumeRate(db, 'refund', rule, t0);
+    await consumeRate(db, 'refund', rule, t0);
+    await refundRate(db, 'refund', rule, t0);
+    expect((await consumeRate(db, 'refund', rule, t0 + 1_000)).allowed).toBe(true);
+    expect((await consumeRate(db, 'refund', rule, t0 + 2_000)).allowed).toBe(false);
+    // A refund for an earlier window leaves the current count alone.
+    await consumeRate(db, 'refund', rule, t0 + 60_000);
+    await consumeRate(db, 'refund', rule, t0 + 60_000);
+    await refundRate(db, 'refund', rule, t0);
+    expect((await consumeRate(db, 'refund', rule, t0 + 61_000)).allowed).toBe(false);
+    for (let i = 0; i < 5; i++) await refundRate(db, 'empty', rule, t0);
+    expect((await consumeRate(db, 'empty', rule, t0)).allowed).toBe(true);
+    expect((await consumeRate(db, 'empty', rule, t0)).allowed).toBe(true);
+    expect((await consumeRate(db, 'empty', rule, t0)).allowed).toBe(false);
+  });
+
+  test('of two verdicts the stricter one stands', () => {
+    const open = { allowed: true } as const;
+    expect(stricter(open, open)).toEqual(open);
+    expect(stricter(open, { allowed: false, retryAfterSeconds: 5 })).toEqual({ allowed: false, retryAfterSeconds: 5 });
+    expect(stricter({ allowed: false, retryAfterSeconds: 9 }, { allowed: false, retryAfterSeconds: 5 })).toEqual({
+      allowed: false,
+      retryAfterSeconds: 9,
+    });
   });
 });

@@ -7,9 +7,12 @@ import type { MessageSummary, StoredMessage } from '../../../../mail-catcher/src
 import { config } from '../config';
 import { db } from '../db';
 import { mailLog } from '../db/schema';
+import { withoutSecrets } from './redact';
 
+/** Rows logged before bodies were stored without tokens are shown without them too. */
 export async function listMailLog(limit = 100) {
-  return db.select().from(mailLog).orderBy(desc(mailLog.createdAt)).limit(limit);
+  const rows = await db.select().from(mailLog).orderBy(desc(mailLog.createdAt)).limit(limit);
+  return rows.map((row) => ({ ...row, bodyText: withoutSecrets(row.bodyText) }));
 }
 
 export type CaughtMessage = Omit<StoredMessage, 'rawBase64' | 'attachments'> & { attachments: MessageSummary['attachments'] };
@@ -37,7 +40,12 @@ export async function caughtMessages(limit = 25): Promise<CatcherView> {
     const full = await Promise.all(
       summaries.map((s) => fetchJson<Omit<StoredMessage, 'rawBase64'>>(`${url}/messages/${encodeURIComponent(s.id)}`)),
     );
-    const messages = full.map((m, i) => ({ ...m, attachments: summaries[i]?.attachments ?? [] }));
+    const messages = full.map((m, i) => ({
+      ...m,
+      text: m.text === null ? null : withoutSecrets(m.text),
+      html: m.html === null ? null : withoutSecrets(m.html),
+      attachments: summaries[i]?.attachments ?? [],
+    }));
     return { configured: true, url, ok: true, messages };
   } catch (err) {
     return { configured: true, url, ok: false, error: err instanceof Error ? err.message : String(err) };

@@ -1,6 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Database } from '../db/connect';
 import { mailLog } from '../db/schema';
+import { withoutSecrets } from './redact';
 
 export interface OutgoingMail {
   kind: string;
@@ -20,7 +21,8 @@ export interface Mailer {
 
 /**
  * Sends over SMTP (a real server in production, the local catcher in
- * development and tests) and records every attempt, sent or failed, in the mail log.
+ * development and tests) and records every attempt, sent or failed, in the mail log
+ * (its body without one-time tokens).
  */
 export function createMailer(db: Database, smtpUrl: string, from: string): Mailer {
   let transport: Transporter | undefined;
@@ -43,7 +45,7 @@ export function createMailer(db: Database, smtpUrl: string, from: string): Maile
           kind: mail.kind,
           toAddress: mail.to,
           subject: mail.subject,
-          bodyText: mail.text,
+          bodyText: withoutSecrets(mail.text),
           attachmentName,
           state: 'sent',
           messageId,
@@ -56,7 +58,7 @@ export function createMailer(db: Database, smtpUrl: string, from: string): Maile
           kind: mail.kind,
           toAddress: mail.to,
           subject: mail.subject,
-          bodyText: mail.text,
+          bodyText: withoutSecrets(mail.text),
           attachmentName,
           state: 'failed',
           error,

@@ -26,22 +26,36 @@ export async function consumeRate(db: Database, key: string, rule: RateRule, now
   return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((row.window_start + rule.windowMs - now) / 1000)) };
 }
 
-/** Whether `key` has used up its window, without counting this call. */
-export async function peekRate(db: Database, key: string, rule: RateRule, now = Date.now()): Promise<RateVerdict> {
+/**
+ * Gives back one counted call of the window `now` falls in (a sign-in that
+ * turned out correct), so only misses use up the limit.
+ */
+export async function refundRate(db: Database, key: string, rule: RateRule, now: number): Promise<void> {
   const windowStart = now - (now % rule.windowMs);
-  const rows = await db.all<{ count: number; window_start: number }>(
-    sql`SELECT count, window_start FROM rate_limit WHERE key = ${key} AND window_start >= ${windowStart}`,
-  );
-  const row = rows[0];
-  if (!row || row.count < rule.max) return { allowed: true };
-  return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((row.window_start + rule.windowMs - now) / 1000)) };
+  await db.run(sql`UPDATE rate_limit SET count = count - 1 WHERE key = ${key} AND window_start = ${windowStart} AND count > 0`);
+}
+
+/** One account's key whatever case or spaces the e-mail was typed with. */
+export const accountKey = (email: string) => email.trim().toLowerCase();
+
+/** The stricter of two verdicts: refused if either refuses, with the longer wait. */
+export function stricter(a: RateVerdict, b: RateVerdict): RateVerdict {
+  if (a.allowed) return b;
+  if (b.allowed) return a;
+  return { allowed: false, retryAfterSeconds: Math.max(a.retryAfterSeconds, b.retryAfterSeconds) };
 }
 
 export const RATE_RULES = {
-  /** Failed sign-ins per address and e-mail: enough for typing mistakes, too few for guessing. */
+  /** Failed sign-ins per e-mail, from any address: enough for typing mistakes, too few for guessing. */
   signInPerAccount: { max: 8, windowMs: 10 * 60_000 },
   /** Failed sign-ins per address across all e-mails: stops one machine trying many accounts. */
   signInPerAddress: { max: 40, windowMs: 10 * 60_000 },
   /** Generous enough for a wizard re-ranking as someone types; stops a script hammering the engine. */
   evaluatePerAddress: { max: 600, windowMs: 60_000 },
+  /** New accounts per address: an office signs up its people, a script filling the table is stopped. */
+  signUpPerAddress: { max: 50, windowMs: 60 * 60_000 },
+  /** Reset e-mails per e-mail address: a lost first message can be asked for again, an inbox is not flooded. */
+  resetPerAccount: { max: 3, windowMs: 60 * 60_000 },
+  /** Reset requests per address across all e-mails. */
+  resetPerAddress: { max: 20, windowMs: 60 * 60_000 },
 } satisfies Record<string, RateRule>;
