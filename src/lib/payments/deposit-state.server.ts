@@ -30,6 +30,9 @@ export async function paidDeposits(quoteIds: readonly string[]): Promise<Map<str
   return new Map(rows.map((row) => [row.quoteId, row]));
 }
 
+/** What the quote page says while a payment the provider took is being confirmed, instead of offering to pay again. */
+export const RECEIVED_TEXT = 'Payment received, being confirmed. This page refreshes by itself; there is nothing more to pay.';
+
 /** What the client is told on coming back from the hosted checkout (the `payment` query value). */
 export function returnMessage(
   value: string | null,
@@ -48,6 +51,10 @@ export function returnMessage(
             text: 'We are confirming your payment with the payment provider. This page refreshes by itself in a few seconds.',
             refresh: true,
           };
+    case 'received':
+      return paid
+        ? { tone: 'ok', text: 'Your deposit is paid; there is nothing more to pay on this quote.', refresh: false }
+        : { tone: 'ok', text: RECEIVED_TEXT, refresh: true };
     case 'cancelled':
       return {
         tone: 'warn',
