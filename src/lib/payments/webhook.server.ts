@@ -35,6 +35,14 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOut
     // A late "expired" never undoes a payment that completed: the table has no move from paid to expired.
     return finish({ result: (await movePayment(tx, found, 'expired')) ? ('expired' as const) : ('ignored' as const) });
   });
-  if (outcome.result === 'deposit-paid' || outcome.result === 'refund-due') await afterSettle(outcome);
+  if (outcome.result === 'deposit-paid' || outcome.result === 'refund-due') {
+    try {
+      await afterSettle(outcome);
+    } catch (error) {
+      // A refund that did not go out leaves the event unrecorded, so the provider's retry tries the refund again.
+      if (outcome.result === 'refund-due') await db.delete(webhookEvent).where(eq(webhookEvent.id, event.id));
+      throw error;
+    }
+  }
   return outcome.result;
 }
