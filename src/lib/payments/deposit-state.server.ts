@@ -4,8 +4,10 @@ import { payment, type PaymentRow } from '../platform/db/schema';
 
 export type { PaymentRow };
 
-/** The paid deposit of a quote, if any, else the latest attempt: what the quote page tells. */
-export async function depositState(quoteId: string): Promise<{ paid: PaymentRow | null; latest: PaymentRow | null }> {
+/** The paid deposit of a quote, if any, the latest attempt, and money given back: what the quote page tells. */
+export async function depositState(
+  quoteId: string,
+): Promise<{ paid: PaymentRow | null; latest: PaymentRow | null; refunds: PaymentRow[] }> {
   const [paid] = await db
     .select()
     .from(payment)
@@ -17,7 +19,12 @@ export async function depositState(quoteId: string): Promise<{ paid: PaymentRow 
     .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit')))
     .orderBy(desc(payment.createdAt))
     .limit(1);
-  return { paid: paid ?? null, latest: latest ?? null };
+  const refunds = await db
+    .select()
+    .from(payment)
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'refund')))
+    .orderBy(payment.createdAt);
+  return { paid: paid ?? null, latest: latest ?? null, refunds };
 }
 
 /** Paid deposits of several quotes at once, by quote id (for lists). */

@@ -164,6 +164,9 @@ describe('money taken twice', () => {
     expect(atProvider).toMatchObject({ status: 'succeeded', amount: rail.quote.depositMinor, payment_intent: secondRow?.paymentIntentId });
     expect(settled.filter((p) => p.kind === 'deposit' && p.state === 'paid')).toHaveLength(1);
     expect(await quoteState(rail.client, rail.quote.id)).toBe('deposit-paid');
+    const page = await (await rail.client.request(`/quotes/${rail.quote.id}`)).text();
+    expect(page).toContain('could not count as the deposit was refunded in full');
+    expect(page).toContain(refunds[0]?.checkoutSessionId);
 
     // The second checkout's event again: nothing is refunded or recorded twice.
     await redeliver((await completedEvent(second.id))?.id ?? '');
