@@ -9,6 +9,7 @@ import { moveBrief } from '~/lib/briefs/index.server';
 import { moveQuote } from '~/lib/quotes/index.server';
 import type { Transaction } from '../platform/db/connect';
 import { brief, payment, quote, type PaymentRow } from '../platform/db/schema';
+import { log } from '../platform/log';
 import { matchesPayment, type SessionReport } from './event-checks';
 import { movePayment } from './moves.server';
 import { sendReceipt } from './receipt.server';
@@ -25,8 +26,19 @@ export async function settlePaidSession(tx: Transaction, report: SessionReport, 
   const [found] = await tx.select().from(payment).where(eq(payment.checkoutSessionId, report.id)).limit(1);
   if (!found) return { result: 'unknown-session' };
   if (!report.paid) return { result: 'not-paid' };
-  // A figure other than the one we asked for is never applied; the outcome stays on record for staff.
-  if (!matchesPayment(report, found)) return { result: 'amount-mismatch' };
+  // A figure other than the one we asked for is never applied; the webhook's outcome and the log keep it for staff.
+  if (!matchesPayment(report, found)) {
+    log.warn(
+      {
+        paymentId: found.id,
+        session: report.id,
+        stored: [found.amountMinor, found.currency],
+        reported: [report.amountMinor, report.currency],
+      },
+      'a paid checkout reports another amount or currency than the stored payment; not applied',
+    );
+    return { result: 'amount-mismatch' };
+  }
   if (found.state === 'paid') return { result: 'already-paid' };
   if (found.state === 'refunded') return { result: 'already-refunded' };
 
