@@ -18,11 +18,12 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
     'deposit-paid': ['in-design'],
     'in-design': ['delivered'],
   },
-  // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit.
+  // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit, a lapsed acceptance.
   system: {
     'in-review': ['quoted'],
     quoted: ['accepted', 'expired'],
-    accepted: ['deposit-paid'],
+    // Back to review when the accepted quote lapses unpaid: the engineer sends a fresh quote.
+    accepted: ['deposit-paid', 'in-review'],
   },
 };
 

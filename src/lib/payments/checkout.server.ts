@@ -5,6 +5,7 @@ import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { appUrl } from '../platform/links';
 import { movePayment } from './moves.server';
 import { paymentProvider, PaymentsNotConfigured } from './provider.server';
+import { checkPendingDeposit } from './reconcile.server';
 import { refuse, succeed, type Outcome } from '../platform/outcome';
 
 export type CheckoutOutcome = Outcome<{ url: string }>;
@@ -23,8 +24,10 @@ export async function findQuoteForPayer(viewer: SignedInUser, quoteId: string): 
 
 /**
  * Opens a hosted checkout for the quote's deposit. The amount comes from the
- * stored quote; an open session for the same quote is reused so a double click
- * cannot start two payments.
+ * stored quote. A pending checkout is asked about first: an open one is reused
+ * (a double click cannot start two payments), a paid or completed one is
+ * applied and never replaced, and only one the provider expired gives way to a
+ * new session.
  */
 export async function startDepositCheckout(viewer: SignedInUser, quoteId: string, now = new Date()): Promise<CheckoutOutcome> {
   const row = await findQuoteForPayer(viewer, quoteId);
@@ -34,6 +37,14 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
   if (row.validUntil.getTime() < now.getTime()) return refuse('wrong-state', 'This quote has expired; ask the consultancy for a new one.');
   if (row.depositMinor <= 0) return refuse('wrong-state', 'This quote asks for no deposit.');
   try {
+    const pending = await checkPendingDeposit(row.id);
+    if (pending.kind === 'received') {
+      return refuse('wrong-state', 'Your deposit payment was received and is being confirmed; nothing more to pay.', {
+        code: 'deposit_received',
+      });
+    }
+    if (pending.kind === 'open') return succeed({ url: pending.url });
+    if (pending.kind === 'stale') await movePayment(db, pending.payment, 'expired');
     return succeed({ url: await openDepositSession(viewer, row) });
   } catch (error) {
     if (error instanceof PaymentsNotConfigured) return refuse('unavailable', error.message, { code: 'payments_not_configured' });
@@ -43,20 +54,9 @@ export async function startDepositCheckout(viewer: SignedInUser, quoteId: string
   }
 }
 
-/** The hosted page's address: the open session of this quote if there is one, else a new session. */
+/** A new hosted checkout session for the quote's deposit, recorded as a pending payment; its page's address. */
 async function openDepositSession(viewer: SignedInUser, row: QuoteRow): Promise<string> {
   const provider = paymentProvider();
-  const [pending] = await db
-    .select()
-    .from(payment)
-    .where(and(eq(payment.quoteId, row.id), eq(payment.kind, 'deposit'), eq(payment.state, 'pending')))
-    .limit(1);
-  if (pending) {
-    const session = await provider.checkout.sessions.retrieve(pending.checkoutSessionId);
-    if (session.status === 'open' && session.url) return session.url;
-    await movePayment(db, pending, 'expired');
-  }
-
   const [attempts] = await db.select({ n: count() }).from(payment).where(eq(payment.quoteId, row.id));
   const quotePage = appUrl(`/quotes/${row.id}`);
   const session = await provider.checkout.sessions.create(

@@ -4,8 +4,10 @@ import { payment, type PaymentRow } from '../platform/db/schema';
 
 export type { PaymentRow };
 
-/** The paid deposit of a quote, if any, else the latest attempt: what the quote page tells. */
-export async function depositState(quoteId: string): Promise<{ paid: PaymentRow | null; latest: PaymentRow | null }> {
+/** The paid deposit of a quote, if any, the latest attempt, and money given back: what the quote page tells. */
+export async function depositState(
+  quoteId: string,
+): Promise<{ paid: PaymentRow | null; latest: PaymentRow | null; refunds: PaymentRow[] }> {
   const [paid] = await db
     .select()
     .from(payment)
@@ -17,7 +19,12 @@ export async function depositState(quoteId: string): Promise<{ paid: PaymentRow 
     .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit')))
     .orderBy(desc(payment.createdAt))
     .limit(1);
-  return { paid: paid ?? null, latest: latest ?? null };
+  const refunds = await db
+    .select()
+    .from(payment)
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'refund')))
+    .orderBy(payment.createdAt);
+  return { paid: paid ?? null, latest: latest ?? null, refunds };
 }
 
 /** Paid deposits of several quotes at once, by quote id (for lists). */
@@ -29,6 +36,9 @@ export async function paidDeposits(quoteIds: readonly string[]): Promise<Map<str
     .where(and(inArray(payment.quoteId, [...quoteIds]), eq(payment.kind, 'deposit'), eq(payment.state, 'paid')));
   return new Map(rows.map((row) => [row.quoteId, row]));
 }
+
+/** What the quote page says while a payment the provider took is being confirmed, instead of offering to pay again. */
+export const RECEIVED_TEXT = 'Payment received, being confirmed. This page refreshes by itself; there is nothing more to pay.';
 
 /** What the client is told on coming back from the hosted checkout (the `payment` query value). */
 export function returnMessage(
@@ -48,6 +58,10 @@ export function returnMessage(
             text: 'We are confirming your payment with the payment provider. This page refreshes by itself in a few seconds.',
             refresh: true,
           };
+    case 'received':
+      return paid
+        ? { tone: 'ok', text: 'Your deposit is paid; there is nothing more to pay on this quote.', refresh: false }
+        : { tone: 'ok', text: RECEIVED_TEXT, refresh: true };
     case 'cancelled':
       return {
         tone: 'warn',

@@ -4,4 +4,7 @@ export * from './deposit-state.server';
 export * from './moves.server';
 export * from './provider.server';
 export * from './receipt.server';
+export * from './reconcile.server';
+export * from './refund.server';
+export * from './settle.server';
 export * from './webhook.server';

@@ -5,8 +5,7 @@ import { brief, payment, quote, user } from '../platform/db/schema';
 import { appUrl } from '../platform/links';
 import { mailer } from '../platform/mail/mailer';
 
-/** The client's receipt for a paid deposit; a failed send is logged in the mail log, the payment stands. */
-export async function sendReceipt(paymentId: string): Promise<void> {
+async function paymentWithQuote(paymentId: string) {
   const [row] = await db
     .select({ payment, quote, brief, client: { name: user.name, email: user.email } })
     .from(payment)
@@ -15,6 +14,12 @@ export async function sendReceipt(paymentId: string): Promise<void> {
     .innerJoin(user, eq(user.id, brief.ownerId))
     .where(eq(payment.id, paymentId))
     .limit(1);
+  return row ?? null;
+}
+
+/** The client's receipt for a paid deposit; a failed send is logged in the mail log, the payment stands. */
+export async function sendReceipt(paymentId: string): Promise<void> {
+  const row = await paymentWithQuote(paymentId);
   if (!row) return;
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
   await mailer.send({
@@ -33,6 +38,33 @@ export async function sendReceipt(paymentId: string): Promise<void> {
       `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
       '',
       'Design work starts now; your engineer will keep you posted.',
+      `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
+      '',
+      '— Railwright',
+    ].join('\n'),
+    relatedId: row.quote.id,
+  });
+}
+
+/** Tells the client that a second payment for the same deposit was given back, and where the first stands. */
+export async function sendRefundNotice(refundPaymentId: string): Promise<void> {
+  const row = await paymentWithQuote(refundPaymentId);
+  if (!row) return;
+  const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
+  await mailer.send({
+    kind: 'deposit-refund',
+    to: row.client.email,
+    subject: `Refund: ${amount} for quote ${row.quote.number}`,
+    text: [
+      `Dear ${row.client.name},`,
+      '',
+      `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
+      'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+      '',
+      `Refund reference:  ${row.payment.checkoutSessionId}`,
+      `Payment refunded:  ${row.payment.paymentIntentId ?? 'see the reference above'}`,
+      '',
+      'Your bank shows the refund within a few working days. Nothing else is needed from you.',
       `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
       '',
       '— Railwright',

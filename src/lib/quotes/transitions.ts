@@ -8,7 +8,8 @@ import type { QuoteState } from '../platform/db/schema';
 const QUOTE_MOVES: Record<QuoteState, readonly QuoteState[]> = {
   draft: ['sent'],
   sent: ['accepted', 'expired', 'withdrawn'],
-  accepted: ['deposit-paid'],
+  // An acceptance whose deposit never came lapses with the quote's validity, so the brief can be quoted afresh.
+  accepted: ['deposit-paid', 'expired'],
   'deposit-paid': [],
   expired: [],
   withdrawn: [],

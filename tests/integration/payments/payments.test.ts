@@ -3,62 +3,18 @@
  * session, hosted page, signed webhook, receipt — and the ways it must not go wrong.
  */
 import { count, eq } from 'drizzle-orm';
-import Stripe from 'stripe';
 import { describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
 import { payment, webhookEvent } from '../../../src/lib/platform/db/schema';
 import { DECLINE_CARD, SUCCESS_CARD } from '../../../stripe-fake/index';
 import { DEMO, Visitor } from '../../support/client';
-import { TEST_STRIPE_KEY, TEST_WEBHOOK_SECRET } from '../../support/stack';
 import { railUnderReview } from '../quotes/helpers';
+import { acceptedQuote, pay, quoteState, signed, stripe, until } from './helpers';
 
 const baseUrl = inject('baseUrl');
 const stripeUrl = inject('stripeUrl');
 const mailApiUrl = inject('mailApiUrl');
 const databaseUrl = inject('databaseUrl');
-const stripeBase = new URL(stripeUrl);
-const stripe = new Stripe(TEST_STRIPE_KEY, { host: stripeBase.hostname, port: Number(stripeBase.port), protocol: 'http' });
-
-async function acceptedQuote() {
-  const rail = await railUnderReview(baseUrl);
-  const drafted = await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } });
-  expect(drafted.status).toBe(201);
-  const quote = await drafted.json();
-  expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
-  expect((await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' })).status).toBe(200);
-  return { ...rail, quote: quote as { id: string; number: string; depositMinor: number; currency: string } };
-}
-
-async function pay(url: string, card: string) {
-  const sessionPage = new URL(url);
-  return fetch(`${sessionPage.origin}${sessionPage.pathname}/pay`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams({ card_number: card }).toString(),
-    redirect: 'manual',
-  });
-}
-
-async function until<T>(read: () => Promise<T>, ok: (value: T) => boolean, what: string): Promise<T> {
-  for (let i = 0; i < 80; i++) {
-    const value = await read();
-    if (ok(value)) return value;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`Timed out waiting for ${what}`);
-}
-
-const quoteState = async (visitor: Visitor, id: string) => (await (await visitor.request(`/api/v1/quotes/${id}`)).json()).state as string;
-
-function signed(event: object, timestamp?: number) {
-  const payload = JSON.stringify(event);
-  const header = stripe.webhooks.generateTestHeaderString({ payload, secret: TEST_WEBHOOK_SECRET, ...(timestamp ? { timestamp } : {}) });
-  return fetch(`${baseUrl}/api/v1/payments/webhook`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', 'stripe-signature': header },
-    body: payload,
-  });
-}
 
 describe('deposit checkout', () => {
   test('only the owner of an accepted quote opens a checkout, for the stored deposit', async () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { canMovePayment } from '~/lib/payments';
 import { canMoveQuote } from '~/lib/quotes';
+import { canMove } from '~/lib/briefs';
 
 describe('payment moves', () => {
   it('a late "expired" never undoes a paid payment', () => {
@@ -12,9 +13,12 @@ describe('payment moves', () => {
     expect(canMovePayment('expired', 'paid')).toBe(true);
   });
 
-  it('only a paid payment is refunded', () => {
+  it('a paid payment can be refunded, and money taken on a checkout that cannot count goes straight back', () => {
     expect(canMovePayment('paid', 'refunded')).toBe(true);
-    expect(canMovePayment('pending', 'refunded')).toBe(false);
+    expect(canMovePayment('pending', 'refunded')).toBe(true);
+    expect(canMovePayment('expired', 'refunded')).toBe(true);
+    expect(canMovePayment('failed', 'refunded')).toBe(false);
+    expect(canMovePayment('refunded', 'paid')).toBe(false);
   });
 });
 
@@ -29,7 +33,14 @@ describe('quote moves', () => {
     expect(canMoveQuote('sent', 'accepted')).toBe(true);
     expect(canMoveQuote('sent', 'expired')).toBe(true);
     expect(canMoveQuote('draft', 'accepted')).toBe(false);
-    expect(canMoveQuote('accepted', 'expired')).toBe(false);
+  });
+
+  it('an acceptance whose deposit never came lapses, and its brief goes back to review for a fresh quote', () => {
+    expect(canMoveQuote('accepted', 'expired')).toBe(true);
+    expect(canMoveQuote('deposit-paid', 'expired')).toBe(false);
+    expect(canMove('accepted', 'in-review', 'system')).toBe(true);
+    expect(canMove('accepted', 'in-review', 'owner')).toBe(false);
+    expect(canMove('deposit-paid', 'in-review', 'system')).toBe(false);
   });
 
   it('only a sent quote is withdrawn (by a newer one), and a withdrawn quote goes nowhere', () => {

@@ -212,7 +212,13 @@ export const payment = sqliteTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index('payment_quote_idx').on(t.quoteId)],
+  (t) => [
+    index('payment_quote_idx').on(t.quoteId),
+    // A quote's deposit is paid once, whichever of the webhook and the quote page's check applies it first.
+    uniqueIndex('payment_one_paid_deposit_idx')
+      .on(t.quoteId)
+      .where(sql`kind = 'deposit' and state = 'paid'`),
+  ],
 );
 
 /** Each provider event id is processed once; a replay finds its row and changes nothing. */

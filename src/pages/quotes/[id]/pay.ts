@@ -14,6 +14,7 @@ export const POST: APIRoute = async (context) => {
   const outcome = await startDepositCheckout(user, id);
   if (outcome.ok) return context.redirect(outcome.value.url, 303);
   if (outcome.kind === 'not-found') return context.rewrite('/404');
+  if (outcome.code === 'deposit_received') return back('received');
   return back(PROBLEM_OF[outcome.kind] ?? 'refused');
 };
 

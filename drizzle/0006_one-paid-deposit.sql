@@ -1,0 +1,1 @@
+CREATE UNIQUE INDEX `payment_one_paid_deposit_idx` ON `payment` (`quote_id`) WHERE kind = 'deposit' and state = 'paid';
