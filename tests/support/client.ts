@@ -54,7 +54,8 @@ export class Visitor {
   /** Follows a post/redirect/get answer to the page it names, as a browser does. */
   async follow(response: Response): Promise<Response> {
     const location = response.headers.get('location');
-    if (response.status !== 303 || !location) throw new Error(`Expected a 303 with a location, got ${response.status}: ${await response.text()}`);
+    if (response.status !== 303 || !location)
+      throw new Error(`Expected a 303 with a location, got ${response.status}: ${await response.text()}`);
     return this.request(location);
   }
 

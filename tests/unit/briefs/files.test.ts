@@ -72,12 +72,7 @@ describe('saving a brief file', () => {
   });
 
   test.each([
-    [
-      'an empty file',
-      new Uint8Array(),
-      'datasheet' as const,
-      { kind: 'invalid', code: 'invalid_upload', message: 'The file is empty.' },
-    ],
+    ['an empty file', new Uint8Array(), 'datasheet' as const, { kind: 'invalid', code: 'invalid_upload', message: 'The file is empty.' }],
     ['a bad load log', new TextEncoder().encode('0,0.1\n'), 'load-log' as const, { kind: 'invalid', code: 'invalid_load_log' }],
     ['a file over 10 MB', new Uint8Array(10 * 1024 * 1024 + 1), 'other' as const, { kind: 'too-large', code: 'file_too_large' }],
     [
