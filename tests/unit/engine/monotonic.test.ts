@@ -77,3 +77,19 @@ describe('requirements and feasibility move together', () => {
     );
   });
 });
+
+describe('the output capacitor and the feedback grade are chosen together', () => {
+  // up-3v3-12v-100ma with its ripple limit ×5.5: a 6.8 µF electrolytic meets the looser ripple, but
+  // its ripple leaves the 1 % divider no room in the band, so 0.5 % resistors follow. The ceramic
+  // sized for the room the 1 % grade leaves is cheaper in total, and the looser brief must find it.
+  test('a looser ripple limit never makes the boost dearer', () => {
+    const brief = CORPUS.find((b) => b.id === 'up-3v3-12v-100ma')!;
+    const base = railSpecSchema.parse(brief.spec);
+    const cost = (maxRippleVpp: number) => {
+      const boost = evaluate({ ...base, noise: { ...base.noise, maxRippleVpp } }).options.find((o) => o.topology === 'boost')!;
+      expect(boost.feasible).toBe(true);
+      return searchCost(boost, brief.spec);
+    };
+    expect(cost(base.noise.maxRippleVpp * 5.5)).toBeLessThanOrEqual(cost(base.noise.maxRippleVpp));
+  });
+});

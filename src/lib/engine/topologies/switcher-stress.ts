@@ -10,12 +10,10 @@ import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenIndu
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import {
-  RIPPLE_BUDGET,
-  feedbackNeed,
   peakFinding,
   postFilter,
-  quietRail,
   searchStage,
+  stageFeedback,
   sizingIssues,
   switcherFeedback,
   thermalFinding,
@@ -63,11 +61,9 @@ export function setupStage<T extends SizingBase>(
   estimateOf: (s: T) => number,
 ): StageSetup<T> {
   const r = stageRefs(refs);
-  const need = feedbackNeed(ctx, req);
-  const s = searchStage(ctx, req, converter, (stage, fsw, limit) => size(r, stage, fsw, limit), fits);
-  const estimate = estimateOf(s);
-  const filtered = req.allowPostFilter && (quietRail(ctx) || estimate > RIPPLE_BUDGET * req.rippleLimit(s.fsw));
-  const fb = switcherFeedback(ctx, r, trace, s.stage, need(filtered, filtered ? 0 : estimate / 2), req.idPrefix);
+  const s = searchStage(ctx, req, converter, (stage, fsw, limit) => size(r, stage, fsw, limit), fits, estimateOf);
+  const { filtered, need } = stageFeedback(ctx, req, s.fsw, estimateOf(s));
+  const fb = switcherFeedback(ctx, r, trace, s.stage, need, req.idPrefix);
   const { issues, fixes } = sizingIssues(s);
   traceRds(trace, `${req.idPrefix}.rds`, s.rds25, s.tjC, s.stage.rdsOnOhm);
   return { r, s, fb, vOut: fb.divider.vOut, filtered, issues, fixes };

@@ -681,6 +681,11 @@ export function classesOf(catalog: Catalog, converter: SwitcherClass['converter'
   return catalog.switchers.filter((s) => s.converter === converter);
 }
 
+/** Fewest blockers first, then parts cost plus LOSS_CENTS_PER_W per watt lost at the nominal corner. */
+function searchKey(s: SizingBase): number[] {
+  return [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
+}
+
 /** What sizing one class at one frequency yields, common to every converter. */
 export interface SizingBase {
   stage: SwitcherClass;
@@ -692,6 +697,7 @@ export interface SizingBase {
   cout: ChosenCapacitor;
   cin: ChosenCapacitor;
   findings: Finding[];
+  /** Parts cost; once the search has priced the feedback, its resistor grade's premium too. */
   costCents: number;
   /** Loss at the nominal corner, W. */
   nominalLossW: number;
@@ -709,6 +715,7 @@ export function searchClasses<T extends SizingBase>(
   size: (stage: SwitcherClass, fsw: number) => T,
   fits: (stage: SwitcherClass) => boolean,
   penalty: (stage: SwitcherClass) => number = () => 0,
+  settle: (raw: T, stage: SwitcherClass, fsw: number) => T = (raw) => raw,
 ): T {
   let best: T | null = null;
   let bestKey = [Infinity, Infinity];
@@ -722,8 +729,11 @@ export function searchClasses<T extends SizingBase>(
     // The feedback check is worked out only for a candidate that would otherwise win.
     let extra: number | null = null;
     for (const fsw of fswCandidates(ctx, stage)) {
-      const s = size(stage, fsw);
-      const key = [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
+      const raw = size(stage, fsw);
+      // What settling adds (the feedback grade, a tighter capacitor) never undercuts the raw sizing's figure.
+      if (!better(searchKey(raw))) continue;
+      const s = settle(raw, stage, fsw);
+      const key = searchKey(s);
       if (!better(key)) continue;
       extra ??= penalty(stage);
       key[0] = key[0]! + extra;
@@ -736,21 +746,68 @@ export function searchClasses<T extends SizingBase>(
   return best!;
 }
 
-/** The class search for a stage request: each candidate sized for the ripple its frequency allows, its feedback checked against the band. */
+/**
+ * Whether an LC post-filter follows a stage whose own ripple is `estimate` (a quiet rail, or ripple
+ * past the budget), and what its feedback must then hold: half the ripple clear of the band's edges.
+ */
+export function stageFeedback(ctx: Context, req: StageRequest, fsw: number, estimate: number): { filtered: boolean; need: FeedbackNeed } {
+  const filtered = req.allowPostFilter && (quietRail(ctx) || estimate > RIPPLE_BUDGET * req.rippleLimit(fsw));
+  return { filtered, need: feedbackNeed(ctx, req)(filtered, filtered ? 0 : estimate / 2) };
+}
+
+/**
+ * The cheapest resistor grade that holds the band with no ripple, and the ripple (peak to peak) it
+ * leaves room for: twice the distance from its output range to the nearer edge of the band.
+ */
+function rippleRoom(ctx: Context, stage: SwitcherClass, need: FeedbackNeed): { cents: number; rippleV: number } | null {
+  const pick = feedbackSearch(ctx, stage, { ...need, marginV: 0 }, {});
+  if (pick.verdict === 'fails') return null;
+  const room = (r: { min: number; max: number }) => Math.min(r.min - need.band.lo, need.band.hi - r.max);
+  const rule = need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical';
+  const margin = Math.max(room(pick.summary.worstCase), rule === 'statistical' ? room(pick.summary.statistical) : -Infinity);
+  return { cents: pick.extraCents, rippleV: 2 * margin };
+}
+
+/**
+ * The class search for a stage request: each candidate sized for the ripple its frequency allows,
+ * its feedback checked against the band. The output capacitor and the feedback grade share the
+ * band (ripple uses up what the resistors need), so each candidate is priced with the grade its
+ * ripple leaves, and also sized for the ripple the cheapest grade leaves room for; the cheaper stays.
+ */
 export function searchStage<T extends SizingBase>(
   ctx: Context,
   req: StageRequest,
   converter: SwitcherClass['converter'],
   size: (stage: SwitcherClass, fsw: number, rippleLimit: number) => T,
   fits: (stage: SwitcherClass) => boolean,
+  estimateOf: (s: T) => number,
 ): T {
   const need = feedbackNeed(ctx, req)(req.allowPostFilter && quietRail(ctx), 0);
+  const limitAt = (fsw: number) => stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget);
+  const priced = (s: T): T => {
+    const grade = feedbackSearch(ctx, s.stage, stageFeedback(ctx, req, s.fsw, estimateOf(s)).need, {});
+    return { ...s, costCents: s.costCents + grade.extraCents };
+  };
+  const settle = (raw: T, stage: SwitcherClass, fsw: number): T => {
+    const first = priced(raw);
+    const bare = stageFeedback(ctx, req, fsw, 0);
+    if (bare.filtered) return first;
+    const room = rippleRoom(ctx, stage, bare.need);
+    if (room === null || room.cents >= first.costCents - raw.costCents || room.rippleV <= 0) return first;
+    // The sizing designs its ripple to RIPPLE_BUDGET of the limit it is given.
+    const limit = room.rippleV / RIPPLE_BUDGET;
+    if (limit >= limitAt(fsw)) return first;
+    const second = priced(size(stage, fsw, limit));
+    const [a, b] = [searchKey(second), searchKey(first)];
+    return a[0]! < b[0]! || (a[0] === b[0] && a[1]! < b[1]!) ? second : first;
+  };
   return searchClasses(
     ctx,
     converter,
-    (stage, fsw) => size(stage, fsw, stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget)),
+    (stage, fsw) => size(stage, fsw, limitAt(fsw)),
     fits,
     (stage) => feedbackPenalty(ctx, stage, need),
+    settle,
   );
 }
 
