@@ -6,6 +6,7 @@ import { defaultCatalog } from '~/lib/engine/catalog.ts';
 import { makeContext } from '~/lib/engine/context.ts';
 import type { Design } from '~/lib/engine/design.ts';
 import { railSpecSchema, type RailSpecInput } from '~/lib/engine/rail-spec.ts';
+import { evaluate } from '~/lib/engine/evaluate.ts';
 import type { TraceEntry } from '~/lib/engine/types.ts';
 import { designBoost } from '~/lib/engine/topologies/boost.ts';
 import { buckBoostPoint, designBuckBoost } from '~/lib/engine/topologies/buck-boost.ts';
@@ -323,5 +324,30 @@ describe('briefs the switcher search must make buildable', () => {
     const d = designBuck(ctxOf({ ...brief(2.1, 2.6, 3.2, 1.8, 0.05), input: { vMin: 2.1, vNom: 2.6, vMax: 3.2, source: 'battery' } }));
     expect(part(d, 'switch').part).toMatch(/from 1\.8 V/);
     expect(blockers(d).map((i) => i.code)).not.toContain('input-min');
+  });
+});
+
+describe('catch diode temperature in the class search: Tj = Ta + P·θJA·kair (JESD51 chain), P = Vf·Iout·(1 − D)', () => {
+  // 36–60 V → 5 V, 1.5 A at 70 °C in an enclosure: the 100 V diode class's catch diode loses about
+  // 0.6 V × 1.5 A × 0.9 ≈ 0.8 W, and 0.8 W × 60 K/W × 1.3 adds some 63 K: past the 125 °C design limit.
+  const hot = brief(36, 48, 60, 5, 1.5, { thermal: { ambientMaxC: 70, airflow: 'enclosed' } });
+
+  test('the search keeps a design the assembly passes, not the diode class it would then block', () => {
+    const option = evaluate(railSpecSchema.parse(hot)).options.find((o) => o.topology === 'buck')!;
+    expect(option.issues.filter((i) => i.severity === 'blocker')).toEqual([]);
+    expect(option.feasible).toBe(true);
+    const sw = option.components.find((c) => c.role === 'switch')!;
+    expect(defaultCatalog.switchers.find((s) => s.label === sw.part)!.rectification).toBe('sync');
+  });
+
+  test('with only the diode class to choose, the blocker names the diode and the synchronous fix', () => {
+    const diodeOnly = {
+      ...defaultCatalog,
+      switchers: defaultCatalog.switchers.filter((s) => s.id !== 'buck-sync-100v-3a' && s.id !== 'buck-sync-150v-1a'),
+    };
+    const d = designBuck(makeContext(railSpecSchema.parse(hot), diodeOnly));
+    const diode = blockers(d).find((i) => i.code === 'thermal' && /diode/.test(i.message));
+    expect(diode?.message).toMatch(/above the 125 °C design limit/);
+    expect(d.fixes!.map((f) => f.change)).toContain('a synchronous class (no diode to heat), a lower load, or more airflow');
   });
 });

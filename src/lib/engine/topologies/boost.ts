@@ -179,7 +179,16 @@ function sizeBoost(
         'a buck-boost stage, or an input that stays below the output',
       ),
     );
-  findings.push(...shared.commonFindings(ctx, base, stage, low.peakA, Math.max(high.switchW, low.switchW), issue));
+  findings.push(
+    ...shared.commonFindings(
+      ctx,
+      base,
+      stage,
+      low.peakA,
+      { switchW: Math.max(high.switchW, low.switchW), rectifierW: Math.max(high.rectifierW, low.rectifierW) },
+      issue,
+    ),
+  );
   const window = dutyWindow(stage, fsw);
   if (low.d > window.dMax) {
     const need = (vOut * (1 - window.dMax)) / low.etaPath;

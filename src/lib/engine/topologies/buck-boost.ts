@@ -192,7 +192,15 @@ function sizeBuckBoost(
 
   const findings = [
     ...classVoltageFindings(stage, vMax, vLow, vOut, Math.max(vMax, vOut * 1.05), stage.vOutMaxV),
-    ...shared.commonFindings(ctx, base, stage, Math.max(low.peakA, high.peakA), Math.max(high.switchW, low.switchW), issue),
+    ...shared.commonFindings(
+      ctx,
+      base,
+      stage,
+      Math.max(low.peakA, high.peakA),
+      // Four-switch stages: no diode to heat.
+      { switchW: Math.max(high.switchW, low.switchW), rectifierW: 0 },
+      issue,
+    ),
   ];
   const window = dutyWindow(stage, fsw);
   if (low.boost && low.dBoost > window.dMax) {

@@ -175,7 +175,14 @@ export function sizeBuck(
 
   const findings: Finding[] = [
     ...classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV),
-    ...shared.commonFindings(ctx, base, stage, high.peakA, Math.max(high.switchW, low.switchW), issue),
+    ...shared.commonFindings(
+      ctx,
+      base,
+      stage,
+      high.peakA,
+      { switchW: Math.max(high.switchW, low.switchW), rectifierW: Math.max(high.diodeW, low.diodeW) },
+      issue,
+    ),
   ];
   if (high.mode === 'ccm' || stage.lightLoad === 'forced-pwm') {
     const onTime = onTimeFinding(stage, fsw, high.d, `At ${input.vMax} V in`);

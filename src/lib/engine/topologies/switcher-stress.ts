@@ -10,6 +10,7 @@ import { chooseInductor, coreLossW, inductorDcr, snapInductance, type ChosenIndu
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import {
+  finding,
   peakFinding,
   postFilter,
   searchStage,
@@ -98,20 +99,40 @@ export function sizeInductor(
   return { stage, tjC, inductor, issue, core };
 }
 
-/** Findings every stage checks: the peak against the class's limit, the junction at full load, the inductor's own issue. */
+/**
+ * A diode-rectified stage's rectifier at its worst-corner conduction loss (Vf·Iout·(1 − D) in a
+ * buck, Vf·Iout in a boost) against its design limit: Tj = Ta + P·θJA·kair (JESD51 chain), as the
+ * assembly's thermal check applies it. The catalog has one diode and it cannot take a heatsink.
+ */
+export function rectifierFinding(ctx: Context, stage: SwitcherClass, rectifierW: number): Finding | null {
+  if (stage.rectification === 'sync') return null;
+  const { diode, thermal } = ctx.catalog;
+  const tjC = ctx.ambientC + rectifierW * diode.thetaJaCW * thermal.airflowFactor[ctx.spec.thermal.airflow];
+  const limit = diode.tjMaxC - thermal.tjMarginK;
+  if (tjC <= limit) return null;
+  return finding(
+    'thermal',
+    `The ${stage.label}'s diode would reach ${tjC > diode.tjMaxC ? `beyond its ${diode.tjMaxC} °C limit` : `about ${tjC.toFixed(0)} °C`} at its ${rectifierW.toFixed(2)} W full-load loss, above the ${limit} °C design limit.`,
+    'a synchronous class (no diode to heat), a lower load, or more airflow',
+  );
+}
+
+/** Findings every stage checks: the peak against the class's limit, the junctions of IC and diode at full load, the inductor's own issue. */
 export function commonFindings(
   ctx: Context,
   base: SwitcherClass,
   stage: SwitcherClass,
   peakA: number,
-  switchW: number,
+  losses: { switchW: number; rectifierW: number },
   inductorIssue: Issue | null,
 ): Finding[] {
   const findings: Finding[] = [];
   const peak = peakFinding(stage, peakA);
   if (peak) findings.push(peak);
-  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, switchW).tjC);
+  const hot = thermalFinding(ctx, stage, hotStage(ctx, base, losses.switchW).tjC);
   if (hot) findings.push(hot);
+  const rectifier = rectifierFinding(ctx, stage, losses.rectifierW);
+  if (rectifier) findings.push(rectifier);
   if (inductorIssue) findings.push({ issue: inductorIssue, fix: null });
   return findings;
 }
