@@ -125,10 +125,11 @@ const passDeviceSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
-    kind: z.enum(['npn', 'nmos']),
+    /** `nmos-depletion`: a normally-on MOSFET, used as the standoff Zener's current source, never as the pass device. */
+    kind: z.enum(['npn', 'nmos', 'nmos-depletion']),
     vMaxV: pos,
     iMaxA: pos,
-    /** Vbe (npn) or the gate-source voltage at the working current (nmos). */
+    /** Vbe (npn), the gate-source voltage at the working current (nmos), or |Vgs| at a few mA (nmos-depletion). */
     vControlV: pos,
     /** Minimum current gain (npn); ignored for nmos. */
     gainMin: pos,
@@ -861,6 +862,25 @@ export const defaultCatalog: Catalog = {
     },
   ],
   passDevices: [
+    {
+      id: 'nmos-depletion-600',
+      label: 'Depletion-mode N-MOSFET, 600 V, current source (DPAK)',
+      kind: 'nmos-depletion',
+      vMaxV: 600,
+      iMaxA: 0.1,
+      vControlV: 2,
+      gainMin: 1,
+      thetaJcCW: 3,
+      thetaJaCW: 50,
+      tjMaxC: 150,
+      soaPowerW: 2.5,
+      soaKneeV: 100,
+      soaPowerAtVMaxW: 0.5,
+      thermalTauS: 0.02,
+      costCents: 40,
+      source:
+        'from memory: typical of 600 V depletion-mode MOSFETs used as start-up and bias current sources (pinch-off about −1.5 to −3.5 V); θJA of a DPAK on about 2.5 cm² of copper',
+    },
     {
       id: 'nmos-600-1a',
       label: 'High-voltage N-MOSFET, 600 V, 1 A (small tab package)',

@@ -1,7 +1,7 @@
 // Netlists of the Zener shunt, the linear regulator and the linear regulator with a high-voltage
 // pre-drop, built from the design's part list (snapped values) and the catalog's device figures.
 import type { Catalog } from '../catalog.ts';
-import type { Option } from '../types.ts';
+import type { Component, Option } from '../types.ts';
 import { byRole, catalogEntry, num, partOf } from './netlist-text.ts';
 import { passDeviceLines, senseTransistorLines } from './pass-device.ts';
 import { regulatorInputCurrent, regulatorLines, regulatorParts, setpointOf } from './regulator.ts';
@@ -60,6 +60,26 @@ function currentLimiter(option: Option): { lines: string[]; divider: Option['com
   };
 }
 
+/** Transconductance parameter of the depletion MOSFET's level-1 card, A/V² (typical of small high-voltage parts, from memory). */
+const DEPLETION_KP = 0.05;
+
+/**
+ * The depletion MOSFET from the input, gate on `b`, its set resistor from its source to `b`: the
+ * card's threshold puts Vgs = −|Vgs| at the nominal current |Vgs|/Rset, iD = KP/2·(vGS − VTO)²
+ * (Sedra & Smith, 7th ed., §5.2 — from memory).
+ */
+function currentSourceLines(m: Component, rset: Component, catalog: Catalog): string[] {
+  const dev = catalogEntry(catalog.passDevices, m.part);
+  if (!dev) throw new Error(`The catalog has no current source "${m.part}"; the netlist needs its data-sheet figures.`);
+  const r = rset.value ?? 1;
+  const vto = -dev.vControlV - Math.sqrt((2 * dev.vControlV) / r / DEPLETION_KP);
+  return [
+    `M${m.ref} in b ${m.ref}_s ${m.ref}_s ND${m.ref}`,
+    `.model ND${m.ref} NMOS(LEVEL=1 VTO=${num(vto)} KP=${num(DEPLETION_KP)})`,
+    `R${rset.ref} ${m.ref}_s b ${num(r)}`,
+  ];
+}
+
 /**
  * The pass device from the input to `e`, its base or gate on node `b` held by the standoff Zener
  * above the output and fed through the bias resistor; the sense resistor from `e` to the
@@ -73,6 +93,8 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
   const limiter = currentLimiter(option);
   const rb = byRole(option, 'bias-resistor').find((c) => !limiter.divider.includes(c));
   if (!rb) throw new Error('The linear-predrop design has no bias resistor for its pass device; its netlist cannot be written.');
+  // A second limit-transistor is the depletion MOSFET current source; the bias resistor then sets its current.
+  const source = byRole(option, 'limit-transistor')[1];
   // Starting point: the Zener in breakdown, the pass device at its control voltage, the regulator
   // at its setpoint; with the output shorted, the regulator saturated at its dropout carrying the
   // limiter's 27 °C short-circuit current.
@@ -91,7 +113,7 @@ export function predrop(option: Option, corner: SpiceCorner, catalog: Catalog): 
   return [
     `V1 in 0 DC ${num(corner.vIn)}`,
     ...passDeviceLines(q, 'in', 'b', 'e', catalog),
-    `R${rb.ref} in b ${num(rb.value ?? 0)}`,
+    ...(source ? currentSourceLines(source, rb, catalog) : [`R${rb.ref} in b ${num(rb.value ?? 0)}`]),
     `D${dz.ref} out b DZ${dz.ref}`,
     zenerModel(`DZ${dz.ref}`, dz, catalog),
     `R${rs.ref} e rin ${num(rs.value ?? 0)}`,

@@ -44,6 +44,7 @@ import {
   type Foldback,
 } from './foldback.ts';
 import { CURRENT_DERATING, dividerCurrent, dropoutAt, regulatorStage } from './regulator-stage.ts';
+import { SOURCE_SPREAD, resistorFeed, sourceFeed, type StandoffFeed } from './standoff-feed.ts';
 import { SOA_MARGIN, fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from './soa.ts';
 
 export { soaAllowedW } from './soa.ts';
@@ -81,10 +82,9 @@ const FUSE_CLEAR_MULTIPLE = 4;
 /** Devices rated for the input with margin, of the engineer's kind when chosen, cheapest first. */
 function passDeviceCandidates(ctx: Context): PassDeviceClass[] {
   const kind = ctx.spec.overrides.passDevice;
-  const ofKind = ctx.catalog.passDevices.filter((d) => kind === undefined || d.kind === kind);
-  const pool = (ofKind.length > 0 ? ofKind : ctx.catalog.passDevices)
-    .slice()
-    .sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
+  const passing = ctx.catalog.passDevices.filter((d) => d.kind !== 'nmos-depletion');
+  const ofKind = passing.filter((d) => kind === undefined || d.kind === kind);
+  const pool = (ofKind.length > 0 ? ofKind : passing).slice().sort((a, b) => a.costCents - b.costCents || a.vMaxV - b.vMaxV);
   const rated = pool.filter((d) => d.vMaxV >= SEMICONDUCTOR_VOLTAGE_FACTOR * ctx.spec.input.vMax);
   return rated.length > 0
     ? rated
@@ -283,7 +283,8 @@ interface Candidate {
   costCents: number;
 }
 
-function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
+/** The Zener's feed: a bias resistor, or (`source`) a depletion MOSFET current source. */
+function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass | null): Candidate {
   const { spec, catalog } = ctx;
   const trace = new Trace();
   const refs = new Refs();
@@ -344,11 +345,13 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   const coldC = Math.min(COLD_AMBIENT_C, ctx.ambientC);
   // Rb as it will be snapped, with the output at its target.
   const rbFor = (v: number, vOut: number) => snap(atLeast(rbDropFor(v, vOut) / biasFor(v), 1), 'E24', 'down');
-  // The sense transistor takes Rb's whole current when it limits: at the trough (the knee, hottest) and at the highest input (the short, coldest).
+  const feedFor = (v: number, vOut: number, forcedOhms?: number): StandoffFeed =>
+    source ? sourceFeed(source, biasFor(v), forcedOhms) : resistorFeed(forcedOhms ?? rbFor(v, vOut));
+  // The sense transistor takes the feed's whole current when it limits: at the trough (the knee, hottest) and at the highest input (the short, coldest).
   const senseFor = (v: number): SenseCorners => {
-    const iShort = Math.max(0, vMax - v) / rbFor(v, vTarget);
+    const iShort = feedFor(v, vTarget).most(vMax - v);
     return {
-      vbeHot: senseVbe(ctx.ambientC, rbDropFor(v, vTarget) / rbFor(v, vTarget)),
+      vbeHot: senseVbe(ctx.ambientC, feedFor(v, vTarget).least(rbDropFor(v, vTarget))),
       vbeCold: senseVbe(coldC, iShort),
       ibCold: iShort / SENSE_BETA_MIN,
     };
@@ -426,20 +429,31 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   if (seriesFor(catalog, vz).length === 0) issues.push(blocker('zener-range', `No Zener series in the catalog offers ${vz} V.`));
   const zSeries = seriesOf(vz);
   const iBias = biasFor(vz);
-  const rb = forced(ctx, rbRef) ?? rbFor(vz, vOut);
-  trace.select(
-    'predrop.rb',
-    'Bias resistor, snapped down to E24',
-    'Rb = (vInTrough − (Vout + Vz)) / Ibias',
-    {
-      vInTrough: [ctx.vInTrough, 'V'],
-      Vout: [vOut, 'V'],
-      Vz: [vz, 'V'],
-      Ibias: [iBias, 'A'],
-    },
-    rb,
-    'Ω',
-  );
+  const feed = feedFor(vz, vOut, forced(ctx, rbRef));
+  const rb = feed.ohms;
+  if (source)
+    trace.select(
+      'predrop.rset',
+      `Current source's set resistor, snapped down to E24 (the least current, ${SOURCE_SPREAD.lo} × nominal, still meets the bias)`,
+      'Rset = spread·|Vgs| / Ibias',
+      { spread: [SOURCE_SPREAD.lo, ''], '|Vgs|': [source.vControlV, 'V'], Ibias: [iBias, 'A'] },
+      rb,
+      'Ω',
+    );
+  else
+    trace.select(
+      'predrop.rb',
+      'Bias resistor, snapped down to E24',
+      'Rb = (vInTrough − (Vout + Vz)) / Ibias',
+      {
+        vInTrough: [ctx.vInTrough, 'V'],
+        Vout: [vOut, 'V'],
+        Vz: [vz, 'V'],
+        Ibias: [iBias, 'A'],
+      },
+      rb,
+      'Ω',
+    );
   if (ctx.vInTrough < vOut + vz + BIAS_HEADROOM_V) {
     const need = vOut + vz + BIAS_HEADROOM_V;
     issues.push(
@@ -457,7 +471,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
 
   // The sense transistor with the chosen Rb: it takes the bias current at the trough when it
   // starts to limit (the knee) and Rb's whole current at the highest input in a short.
-  const iRbShort = Math.max(0, vMax - vz) / rb;
+  const iRbShort = feed.most(vMax - vz);
   const vbeAt = (id: string, label: string, tempC: number, ic: number) =>
     trace.add(
       id,
@@ -474,7 +488,12 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
       senseVbe(tempC, ic),
       'V',
     );
-  const vbeHot = vbeAt('predrop.vbe.hot', 'Sense transistor Vbe, hottest junction, at the knee', ctx.ambientC, rbDropFor(vz, vOut) / rb);
+  const vbeHot = vbeAt(
+    'predrop.vbe.hot',
+    'Sense transistor Vbe, hottest junction, at the knee',
+    ctx.ambientC,
+    feed.least(rbDropFor(vz, vOut)),
+  );
   const vbeCold = vbeAt('predrop.vbe.cold', 'Sense transistor Vbe, coldest junction, output shorted', coldC, iRbShort);
   const vbeRoom = vbeAt('predrop.vbe.room', `Sense transistor Vbe at ${ROOM_C} °C, output shorted`, ROOM_C, iRbShort);
   // The knee leaves out the base current (the highest gain); a short adds RA·Ic/β through RA.
@@ -554,25 +573,34 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   }
   // The Zener's current flows into the output node and bypasses the regulator; solve the path current.
   const pathCurrent = (vIn: number, iOut: number) => {
-    const iRb = Math.max(0, vIn - vOut - vz) / rb;
+    const iRb = feed.most(vIn - vOut - vz);
     const load = iOut + iDivActual + iAdj;
     const i = npn ? (load - iRb) / (1 - 1 / gain) : load - iRb;
     const ib = npn ? Math.max(0, i) / gain : 0;
     return { i: Math.max(0, i), iRb, ib, iz: Math.max(0, iRb - ib) };
   };
   const zNormal = pathCurrent(vMax, spec.output.iMin);
-  const izFault = Math.max(0, (vMax - vz) / rb - iFault / gain);
+  const izFault = Math.max(0, feed.most(vMax - vz) - iFault / gain);
   const pzWorst = vz * Math.max(zNormal.iz, izFault);
   const zener = seriesForPower(zSeries, pzWorst) ?? catalog.zenerSeries[0]!;
   // The Zener's least current (the trough, full load, least gain) and the voltage it holds there.
-  const izMin = trace.add(
-    'predrop.iz',
-    'Standoff Zener current at the trough, full load',
-    'Iz = max(0, max(0, vInTrough − (Vout + Vz))/Rb − Ib)',
-    { vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Rb: [rb, 'Ω'], Ib: [ibNormal, 'A'] },
-    Math.max(0, Math.max(0, ctx.vInTrough - (vOut + vz)) / rb - ibNormal),
-    'A',
-  );
+  const izMin = source
+    ? trace.add(
+        'predrop.iz',
+        "Standoff Zener current at the trough, full load (the current source's least current)",
+        'Iz = max(0, Ibias,min − Ib)',
+        { 'Ibias,min': [feed.least(ctx.vInTrough - (vOut + vz)), 'A'], Ib: [ibNormal, 'A'] },
+        Math.max(0, feed.least(ctx.vInTrough - (vOut + vz)) - ibNormal),
+        'A',
+      )
+    : trace.add(
+        'predrop.iz',
+        'Standoff Zener current at the trough, full load',
+        'Iz = max(0, max(0, vInTrough − (Vout + Vz))/Rb − Ib)',
+        { vInTrough: [ctx.vInTrough, 'V'], Vout: [vOut, 'V'], Vz: [vz, 'V'], Rb: [rb, 'Ω'], Ib: [ibNormal, 'A'] },
+        Math.max(0, Math.max(0, ctx.vInTrough - (vOut + vz)) / rb - ibNormal),
+        'A',
+      );
   const zLine = zenerModel(zener, vz);
   const vzWork =
     izMin >= zLine.iTest
@@ -601,20 +629,30 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
       ),
     );
   }
-  trace.add(
-    'predrop.pz',
-    'Standoff Zener worst power (output shorted)',
-    'Pz = Vz·max(0, (vInMax − Vz)/Rb − Ifault/β)',
-    {
-      Vz: [vz, 'V'],
-      vInMax: [vMax, 'V'],
-      Rb: [rb, 'Ω'],
-      Ifault: [iFault, 'A'],
-      β: [npn ? gain : 1e12, ''],
-    },
-    vz * izFault,
-    'W',
-  );
+  if (source)
+    trace.add(
+      'predrop.pz',
+      "Standoff Zener worst power (output shorted, the current source's most current)",
+      'Pz = Vz·max(0, Ibias,max − Ifault/β)',
+      { Vz: [vz, 'V'], 'Ibias,max': [feed.most(vMax - vz), 'A'], Ifault: [iFault, 'A'], β: [npn ? gain : 1e12, ''] },
+      vz * izFault,
+      'W',
+    );
+  else
+    trace.add(
+      'predrop.pz',
+      'Standoff Zener worst power (output shorted)',
+      'Pz = Vz·max(0, (vInMax − Vz)/Rb − Ifault/β)',
+      {
+        Vz: [vz, 'V'],
+        vInMax: [vMax, 'V'],
+        Rb: [rb, 'Ω'],
+        Ifault: [iFault, 'A'],
+        β: [npn ? gain : 1e12, ''],
+      },
+      vz * izFault,
+      'W',
+    );
   if (zNormal.iz > spec.output.iMin + iDivActual) {
     issues.push(
       blocker(
@@ -624,7 +662,9 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     );
     fixes.push({
       code: 'zener-feed',
-      change: 'a MOSFET pass device (no base current to supply) or a higher minimum load',
+      change: source
+        ? 'a higher minimum load'
+        : 'a current source feeding the Zener, a MOSFET pass device (no base current to supply) or a higher minimum load',
       message: `A lightest load of at least ${formatSi(zNormal.iz - iDivActual, 'A', 2)} would absorb the Zener's current.`,
     });
   }
@@ -636,6 +676,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   );
 
   const cinHv = chooseCapacitor(refs.next('C'), 'input-capacitor', 0.1e-6, vMax, catalog);
+  const srcRef = source ? refs.next('Q') : '';
   if (cinHv.issue) issues.push(cinHv.issue);
   const regRef = stage.regRef;
   const parts = [
@@ -676,6 +717,25 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     }),
     ...(folds ? [resistorPart(raRef, 'bias-resistor', ra, 0.01, 'E96'), resistorPart(rbfRef, 'bias-resistor', rbf, 0.01, 'E96')] : []),
     cinHv.part,
+    // Listed after the sense transistor, so the limiter stays the first limit-transistor.
+    ...(source
+      ? [
+          makePart({
+            ref: srcRef,
+            role: 'limit-transistor',
+            part: `${source.label}, feeding ${dzRef} with ${formatSi(SOURCE_SPREAD.lo * (source.vControlV / rb), 'A', 2)}–${formatSi(SOURCE_SPREAD.hi * (source.vControlV / rb), 'A', 2)} set by ${rbRef}`,
+            ratingV: source.vMaxV,
+            costCents: source.costCents,
+            thermal: {
+              thetaJcCW: source.thetaJcCW,
+              thetaJaCW: source.thetaJaCW,
+              tjMaxC: source.tjMaxC,
+              heatsinkable: false,
+              protectedInFault: false,
+            },
+          }),
+        ]
+      : []),
   ];
   if (prot.mode === 'fuse' && prot.fuseA !== null) {
     issues.push(
@@ -700,13 +760,14 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     s[regRef] = { w: vReg * p.i, v: vReg };
     s[qRef] = { w: vce * (p.i + iFb), v: vIn - vOut };
     s[rsRef] = { w: p.i * p.i * rs, v: p.i * rs };
-    s[rbRef] = { w: (vRb * vRb) / rb, v: vRb };
+    s[rbRef] = { w: feed.resistorW(vRb), v: Math.min(vRb, feed.most(vRb) * rb) };
+    if (source) s[srcRef] = { w: feed.sourceW(vRb), v: vRb };
     s[dzRef] = { w: vz * p.iz, v: vz };
     divide(s, regInMax);
     s[q2Ref] = { w: 0, v: vz };
     s[cinHv.part.ref] = { w: 0, v: vIn };
     return {
-      regulates: vRb / rb >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDivActual,
+      regulates: feed.least(vRb) >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDivActual,
       pInW: vIn * (p.i - p.ib + p.iRb + iFb),
       pOutW: vOut * iOut,
       stress: s,
@@ -719,15 +780,18 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
   // Foldback: the worst point of the limit line is a state an overload can hold, so it sizes the heatsink.
   faultStress[qRef] = { w: prot.mode === 'foldback' ? prot.worstW : pFault, v: vMax };
   faultStress[rsRef] = { w: iFault * iFault * rs, v: iFault * rs };
-  faultStress[rbRef] = { w: (vRbFault * vRbFault) / rb, v: vRbFault };
+  faultStress[rbRef] = { w: feed.resistorW(vRbFault), v: Math.min(vRbFault, feed.most(vRbFault) * rb) };
+  if (source) faultStress[srcRef] = { w: feed.sourceW(vRbFault), v: vRbFault };
   faultStress[dzRef] = { w: vz * izFault, v: vz };
   divide(faultStress, vs);
   faultStress[q2Ref] = { w: 0, v: vz };
   faultStress[cinHv.part.ref] = { w: 0, v: vMax };
   const fault: OperatingPoint = { regulates: false, pInW: vMax * (iFault + izFault), pOutW: 0, stress: faultStress };
 
-  // Input ripple reaches the regulator only through Rb and the Zener's rz.
-  const rippleAtReg = spec.input.rippleVpp * (rz / (rb + rz));
+  // Input ripple reaches the regulator only through the feed and the Zener's rz; a current source
+  // is taken as no stiffer than the resistor that would carry its least current at the trough.
+  const rFeed = source ? rbDropFor(vz, vOut) / atLeast(feed.least(rbDropFor(vz, vOut)), 1e-9) : rb;
+  const rippleAtReg = spec.input.rippleVpp * (rz / (rFeed + rz));
   const psrr = cls.psrrDb;
   const rippleVpp = trace.add(
     'predrop.ripple',
@@ -736,7 +800,7 @@ function designWith(ctx: Context, dev: PassDeviceClass): Candidate {
     {
       ΔVin: [spec.input.rippleVpp, 'V'],
       rz: [rz, 'Ω'],
-      Rb: [rb, 'Ω'],
+      Rb: [rFeed, 'Ω'],
       PSRR: [psrr, 'dB'],
     },
     rippleAtReg * 10 ** (-psrr / 20),
@@ -777,8 +841,14 @@ export function designLinearPredrop(ctx: Context): Design {
   // Devices come cheapest first and the first clean design is kept: a dearer device might need a
   // smaller heatsink, but designing every device costs more time than that rare saving is worth.
   const candidates: Candidate[] = [];
+  // A current source feeds the standoff Zener where a resistor would push more into the output than it sinks.
+  const source =
+    ctx.catalog.passDevices.find((d) => d.kind === 'nmos-depletion' && d.vMaxV >= SEMICONDUCTOR_VOLTAGE_FACTOR * ctx.spec.input.vMax) ??
+    null;
   for (const dev of passDeviceCandidates(ctx)) {
-    const c = designWith(ctx, dev);
+    const plain = designWith(ctx, dev, null);
+    const overfed = plain.design.issues.some((i) => i.code === 'zener-feed');
+    const c = overfed && source ? [plain, designWith(ctx, dev, source)].sort((a, b) => a.blockers - b.blockers)[0]! : plain;
     candidates.push(c);
     // Too little input for any standoff is the same for every device.
     if (c.blockers === 0 || c.design.issues.some((i) => i.code === 'headroom' && i.severity === 'blocker')) break;

@@ -9,10 +9,7 @@ import { impossibleFigures } from './impossible.ts';
  * Briefs the engine cannot yet design as an engineer would, and why. Each must still fail, so
  * the day the engine meets one, this list loses it.
  */
-const KNOWN_GAPS: Record<string, string> = {
-  'hv-200-180v-5ma':
-    'the pre-drop stage feeds its standoff Zener from the input through a resistor sized for the 10 V left at the 190 V low line, so at 220 V it pushes about 30 mA into an output that sinks only the divider and the load; the bias wants a current source, or the Zener returned to ground rather than the output (linear-predrop.ts)',
-};
+const KNOWN_GAPS: Record<string, string> = {};
 
 const evaluated = new Map<string, Evaluation>();
 function run(id: string): Evaluation {

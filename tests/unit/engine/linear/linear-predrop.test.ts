@@ -11,6 +11,7 @@ import { INSULATING_PAD_CW, designLinearPredrop } from '~/lib/engine/topologies/
 import { fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from '~/lib/engine/topologies/soa.ts';
 import { formatSi } from '~/lib/engine/units.ts';
 import { zenerModel } from '~/lib/engine/zeners.ts';
+import { CORPUS } from '../corpus/briefs.ts';
 
 describe('foldback limit (hand calculation)', () => {
   test('150 mA at a 310 V sense node folding to 30 mA at 10 V: k = 0.6/(0.03·300/0.12 − 0.6 − 10), Rs = k·300/0.12', () => {
@@ -205,5 +206,43 @@ describe.each(['npn', 'nmos'] as const)('standoff Zener and its bias resistor, %
     expect(rb.ratingW! * n).toBeGreaterThanOrEqual((2 * vRb * vRb) / rb.value!);
     expect(rb.ratingV! * n).toBeGreaterThanOrEqual(2 * vRb);
     expect(option.dissipation.parts.find((p) => p.ref === rb.ref)!.faultW).toBeCloseTo((vRb * vRb) / rb.value!, 9);
+  });
+});
+
+describe('standoff Zener fed by a current source where a resistor would overfeed the output', () => {
+  // 190–220 V → 180 V, 0.5–5 mA: a resistor sized for the few volts left at the 189 V trough
+  // passes about 30 mA at 220 V, all of it into an output that sinks only the divider and the
+  // lightest load (the regulator cannot sink). A depletion MOSFET with its set resistor holds
+  // I = |Vgs|/Rset, spread 0.6–1.6 × nominal (catalog, from memory), whatever the input.
+  const spec = railSpecSchema.parse(CORPUS.find((b) => b.id === 'hv-200-180v-5ma')!.spec);
+  const ctx = makeContext(spec, defaultCatalog);
+  const d = designLinearPredrop(ctx);
+  const option = assemble(d, ctx, 7);
+
+  test('the design has no blocker, and what the Zener passes at 220 V the output sinks', () => {
+    expect(d.issues.filter((i) => i.severity === 'blocker')).toEqual([]);
+    const source = d.parts.find((p) => p.role === 'limit-transistor' && /Depletion-mode/.test(p.part))!;
+    const rset = d.parts.find((p) => p.role === 'bias-resistor')!.value!;
+    const dev = defaultCatalog.passDevices.find((p) => p.kind === 'nmos-depletion')!;
+    // The most the source passes, 1.6·|Vgs|/Rset, against the lightest load plus the divider's Vref/R1.
+    const most = (1.6 * dev.vControlV) / rset;
+    const r1 = d.parts.find((p) => p.role === 'feedback-lower')!.value!;
+    expect(most).toBeLessThanOrEqual(spec.output.iMin + 1.25 / r1);
+    // The least, 0.6·|Vgs|/Rset, still carries the Zener past its knee (BIAS_MIN_A, 2 mA).
+    expect((0.6 * dev.vControlV) / rset).toBeGreaterThanOrEqual(2e-3);
+    expect(source.ratingV).toBeGreaterThanOrEqual(1.25 * spec.input.vMax);
+  });
+
+  test("the source's worst dissipation is the short: (vInMax − Vz)·Imax less its set resistor's share, inside its limit on θJA", () => {
+    const source = d.parts.find((p) => p.role === 'limit-transistor' && /Depletion-mode/.test(p.part))!;
+    const rset = d.parts.find((p) => p.role === 'bias-resistor')!.value!;
+    const dev = defaultCatalog.passDevices.find((p) => p.kind === 'nmos-depletion')!;
+    const vz = d.parts.find((p) => p.role === 'standoff-zener')!.value!;
+    const i = (1.6 * dev.vControlV) / rset;
+    const fault = option.dissipation.parts.find((p) => p.ref === source.ref)!.faultW;
+    expect(fault).toBeCloseTo((spec.input.vMax - vz - i * rset) * i, 9);
+    // Tj = Ta + P·θJA (JESD51 chain) below Tj,max less the 25 K design margin (common practice).
+    expect(spec.thermal.ambientMaxC + fault * dev.thetaJaCW).toBeLessThanOrEqual(dev.tjMaxC - 25);
+    expect(option.feasible).toBe(true);
   });
 });

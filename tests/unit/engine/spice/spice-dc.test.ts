@@ -19,6 +19,7 @@ import {
 } from '~/lib/engine/index.ts';
 import { solveShunt } from '~/lib/engine/topologies/shunt.ts';
 import { testCurrent } from '~/lib/engine/zeners.ts';
+import { CORPUS } from '../corpus/briefs.ts';
 
 let sim: Simulation;
 beforeAll(async () => {
@@ -389,5 +390,35 @@ describe("three-terminal regulator with its output shorted, against ngspice (the
       expect(typeof out).toBe('number');
       if (typeof out === 'number') expect(relative(out, d.option.assumptions[`${u}.iLimit`]!.value)).toBeGreaterThan(LIMIT_TOLERANCE);
     }
+  });
+});
+
+describe('pre-drop standoff Zener fed by a depletion MOSFET current source, against ngspice', () => {
+  // 190–220 V → 180 V, 5 mA: a bias resistor sized for the few volts left at 190 V would push some
+  // 30 mA into the output at 220 V. The current source's set resistor fixes I = |Vgs|/Rset; the
+  // simulator's level-1 depletion MOSFET (iD = KP/2·(vGS − VTO)², Sedra & Smith, 7th ed., §5.2 —
+  // from memory) carries its nominal current at every input.
+  const spec = railSpecSchema.parse(CORPUS.find((b) => b.id === 'hv-200-180v-5ma')!.spec);
+  const hv = design(spec, 'linear-predrop');
+
+  test("every corner: the output within 0.05 %, and the Zener's feed inside the engine's least–most range", async () => {
+    expect(hv.feasible).toBe(true);
+    const [, source] = hv.components.filter((c) => c.role === 'limit-transistor');
+    expect(source!.part).toMatch(/Depletion-mode/);
+    const rset = part(hv, 'bias-resistor');
+    // The least current at the trough (a MOSFET pass device draws no gate current).
+    const least = traced(hv, 'predrop.iz');
+    const most = hv.trace.find((t) => t.id === 'predrop.pz')!.inputs['Ibias,max']!.value;
+    const currents: number[] = [];
+    for (const r of await regulatorOutputs(hv, cornersOf(spec))) {
+      expect(r.deviation, `${r.corner.vIn} V, ${r.corner.iOut} A`).toBeLessThanOrEqual(REGULATOR_TOLERANCE);
+      currents.push((r.op[`v(${source!.ref.toLowerCase()}_s)`]! - r.op['v(b)']!) / rset.value!);
+    }
+    for (const i of currents) {
+      expect(i).toBeGreaterThanOrEqual(least);
+      expect(i).toBeLessThanOrEqual(most);
+    }
+    // A current source: from 190 V to 220 V its current moves by well under 1 % (a resistor's would grow several-fold).
+    expect((Math.max(...currents) - Math.min(...currents)) / Math.min(...currents)).toBeLessThan(0.01);
   });
 });
