@@ -1,11 +1,11 @@
 import { eq } from 'drizzle-orm';
 import { formatDate, formatMoney } from '../platform/format';
-import { db } from '../platform/db';
+import type { DbOrTx } from '../platform/db/connect';
 import { brief, payment, quote, user } from '../platform/db/schema';
 import { appUrl } from '../platform/links';
-import { mailer } from '../platform/mail/mailer';
+import { enqueueMail } from '../platform/mail/outbox';
 
-async function paymentWithQuote(paymentId: string) {
+async function paymentWithQuote(db: DbOrTx, paymentId: string) {
   const [row] = await db
     .select({ payment, quote, brief, client: { name: user.name, email: user.email } })
     .from(payment)
@@ -17,58 +17,62 @@ async function paymentWithQuote(paymentId: string) {
   return row ?? null;
 }
 
-/** The client's receipt for a paid deposit; a failed send is logged in the mail log, the payment stands. */
-export async function sendReceipt(paymentId: string): Promise<void> {
-  const row = await paymentWithQuote(paymentId);
-  if (!row) return;
+/** Queues the client's receipt for a paid deposit in the transaction that records it; returns the queued ids. */
+export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<string[]> {
+  const row = await paymentWithQuote(tx, paymentId);
+  if (!row) return [];
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
-  await mailer.send({
-    kind: 'deposit-receipt',
-    to: row.client.email,
-    subject: `Receipt: deposit of ${amount} for quote ${row.quote.number}`,
-    text: [
-      `Dear ${row.client.name},`,
-      '',
-      `Thank you. We received your deposit for quote ${row.quote.number} (${row.brief.title}).`,
-      '',
-      `Amount paid:   ${amount}`,
-      `Date:          ${formatDate(row.payment.paidAt ?? new Date())}`,
-      `Reference:     ${row.payment.paymentIntentId ?? row.payment.checkoutSessionId}`,
-      `Quote total:   ${formatMoney(row.quote.totalMinor, row.quote.currency)}`,
-      `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
-      '',
-      'Design work starts now; your engineer will keep you posted.',
-      `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
-      '',
-      '— Railwright',
-    ].join('\n'),
-    relatedId: row.quote.id,
-  });
+  return enqueueMail(tx, [
+    {
+      kind: 'deposit-receipt',
+      to: row.client.email,
+      subject: `Receipt: deposit of ${amount} for quote ${row.quote.number}`,
+      text: [
+        `Dear ${row.client.name},`,
+        '',
+        `Thank you. We received your deposit for quote ${row.quote.number} (${row.brief.title}).`,
+        '',
+        `Amount paid:   ${amount}`,
+        `Date:          ${formatDate(row.payment.paidAt ?? new Date())}`,
+        `Reference:     ${row.payment.paymentIntentId ?? row.payment.checkoutSessionId}`,
+        `Quote total:   ${formatMoney(row.quote.totalMinor, row.quote.currency)}`,
+        `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
+        '',
+        'Design work starts now; your engineer will keep you posted.',
+        `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
+        '',
+        '— Railwright',
+      ].join('\n'),
+      relatedId: row.quote.id,
+    },
+  ]);
 }
 
-/** Tells the client that a second payment for the same deposit was given back, and where the first stands. */
-export async function sendRefundNotice(refundPaymentId: string): Promise<void> {
-  const row = await paymentWithQuote(refundPaymentId);
-  if (!row) return;
+/** Queues the notice that a second payment for the same deposit was given back, with the refund's record. */
+export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string): Promise<string[]> {
+  const row = await paymentWithQuote(tx, refundPaymentId);
+  if (!row) return [];
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
-  await mailer.send({
-    kind: 'deposit-refund',
-    to: row.client.email,
-    subject: `Refund: ${amount} for quote ${row.quote.number}`,
-    text: [
-      `Dear ${row.client.name},`,
-      '',
-      `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
-      'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
-      '',
-      `Refund reference:  ${row.payment.checkoutSessionId}`,
-      `Payment refunded:  ${row.payment.paymentIntentId ?? 'see the reference above'}`,
-      '',
-      'Your bank shows the refund within a few working days. Nothing else is needed from you.',
-      `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
-      '',
-      '— Railwright',
-    ].join('\n'),
-    relatedId: row.quote.id,
-  });
+  return enqueueMail(tx, [
+    {
+      kind: 'deposit-refund',
+      to: row.client.email,
+      subject: `Refund: ${amount} for quote ${row.quote.number}`,
+      text: [
+        `Dear ${row.client.name},`,
+        '',
+        `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
+        'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+        '',
+        `Refund reference:  ${row.payment.checkoutSessionId}`,
+        `Payment refunded:  ${row.payment.paymentIntentId ?? 'see the reference above'}`,
+        '',
+        'Your bank shows the refund within a few working days. Nothing else is needed from you.',
+        `The quote and its state: ${appUrl(`/quotes/${row.quote.id}`)}`,
+        '',
+        '— Railwright',
+      ].join('\n'),
+      relatedId: row.quote.id,
+    },
+  ]);
 }

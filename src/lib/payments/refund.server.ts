@@ -8,7 +8,8 @@ import { payment, type PaymentRow } from '../platform/db/schema';
 import { log } from '../platform/log';
 import { movePayment } from './moves.server';
 import { paymentProvider } from './provider.server';
-import { sendRefundNotice } from './receipt.server';
+import { queueRefundNotice } from './receipt.server';
+import { deliverQueuedMail } from '../platform/mail/mailer';
 
 /** Refunds the whole of one checkout's payment; the provider's idempotency key makes a repeat return the same refund. */
 export async function refundUnappliedPayment(row: PaymentRow, paymentIntentId: string | null): Promise<PaymentRow | null> {
@@ -42,8 +43,10 @@ export async function refundUnappliedPayment(row: PaymentRow, paymentIntentId: s
       })
       .onConflictDoNothing()
       .returning();
-    return inserted ?? null;
+    // The client's notice is queued with the refund's record: both are kept, or neither.
+    return inserted ? { row: inserted, queued: await queueRefundNotice(tx, inserted.id) } : null;
   });
-  if (recorded) await sendRefundNotice(recorded.id);
-  return recorded;
+  if (!recorded) return null;
+  await deliverQueuedMail(recorded.queued);
+  return recorded.row;
 }

@@ -12,12 +12,14 @@ import { brief, payment, quote, type PaymentRow } from '../platform/db/schema';
 import { log } from '../platform/log';
 import { matchesPayment, type SessionReport } from './event-checks';
 import { movePayment } from './moves.server';
-import { sendReceipt } from './receipt.server';
+import { queueReceipt } from './receipt.server';
+import { deliverQueuedMail } from '../platform/mail/mailer';
 import { refundUnappliedPayment } from './refund.server';
 
 export type SettleResult =
   | { result: 'unknown-session' | 'not-paid' | 'amount-mismatch' | 'already-paid' | 'already-refunded' }
-  | { result: 'deposit-paid'; payment: PaymentRow }
+  /** `queued`: the receipt, queued in the same transaction. */
+  | { result: 'deposit-paid'; payment: PaymentRow; queued: string[] }
   /** Money taken that cannot count as the quote's deposit: it is given back (refund.server.ts). */
   | { result: 'refund-due'; payment: PaymentRow; paymentIntentId: string | null };
 
@@ -59,11 +61,11 @@ export async function settlePaidSession(tx: Transaction, report: SessionReport, 
     const [briefRow] = await tx.select().from(brief).where(eq(brief.id, quoteRow.briefId)).limit(1);
     if (briefRow?.state === 'accepted') await moveBrief(tx, briefRow, 'deposit-paid', 'system', null, 'Deposit received online');
   }
-  return { result: 'deposit-paid', payment: paid };
+  return { result: 'deposit-paid', payment: paid, queued: await queueReceipt(tx, paid.id) };
 }
 
 /** What follows a settled session once its transaction committed: the receipt, or the refund of money that cannot count. */
 export async function afterSettle(settled: SettleResult): Promise<void> {
-  if (settled.result === 'deposit-paid') await sendReceipt(settled.payment.id);
+  if (settled.result === 'deposit-paid') await deliverQueuedMail(settled.queued);
   if (settled.result === 'refund-due') await refundUnappliedPayment(settled.payment, settled.paymentIntentId);
 }
