@@ -8,6 +8,7 @@ import { config } from '~/lib/platform/config';
 import { client, db } from '~/lib/platform/db';
 import { migrateDatabase } from '~/lib/platform/db/migrate';
 import { startMailOutbox } from '~/lib/platform/mail/mailer';
+import { bringCatalogUpToDate } from '~/lib/catalog/index.server';
 
 /** Resolves once migrations (and, when asked, the demo seed) are applied; requests wait on it. */
 export const serverReady: Promise<void> = (async () => {
@@ -16,5 +17,6 @@ export const serverReady: Promise<void> = (async () => {
     const { seedDemo } = await import('~/lib/demo/seed.server');
     await seedDemo(db, auth);
   }
+  await bringCatalogUpToDate();
   startMailOutbox();
 })();

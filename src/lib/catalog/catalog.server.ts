@@ -2,8 +2,9 @@ import { eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 import { catalogSchema, defaultCatalog, type Catalog } from '../engine/catalog';
-import { draftFromRows, rowsToCatalog } from './rows';
+import { catalogToRows, draftFromRows, rowsToCatalog, upgradedRows } from './rows';
 import { db } from '../platform/db';
+import { log } from '../platform/log';
 import { deviceClass } from '../platform/db/schema';
 
 // A short-lived copy per instance: the catalog changes rarely (an admin edit),
@@ -73,4 +74,38 @@ export async function listDeviceClasses() {
     .select()
     .from(deviceClass)
     .orderBy(sql`rowid`);
+}
+
+/**
+ * At start: a catalog stored by an earlier version gains the classes and
+ * fields this version ships, keeping every stored figure. Written only when the
+ * whole result passes the engine's schema; otherwise the stored one stays and
+ * the reason is logged for an admin.
+ */
+export async function bringCatalogUpToDate(now = new Date()): Promise<{ added: string[]; filled: string[] }> {
+  const stored = await listDeviceClasses();
+  if (stored.length === 0) return { added: [], filled: [] };
+  const { rows, added, filled } = upgradedRows(stored, catalogToRows(defaultCatalog));
+  if (added.length === 0 && filled.length === 0) return { added, filled };
+  const checked = catalogSchema.safeParse(draftFromRows(rows));
+  if (!checked.success) {
+    log.error({ issue: checked.error.issues[0] }, 'the stored device catalog could not be brought up to date; it is kept as it is');
+    return { added: [], filled: [] };
+  }
+  const byId = new Map(rows.map((row) => [row.id, row]));
+  await db.transaction(async (tx) => {
+    for (const id of filled)
+      await tx
+        .update(deviceClass)
+        .set({ params: byId.get(id)?.params, updatedAt: now })
+        .where(eq(deviceClass.id, id));
+    for (const id of added) {
+      const row = byId.get(id);
+      if (row)
+        await tx.insert(deviceClass).values({ id: row.id, kind: row.kind, name: row.name, params: row.params }).onConflictDoNothing();
+    }
+  });
+  forgetCatalog();
+  log.info({ added: added.length, filled: filled.length }, 'device catalog brought up to date');
+  return { added, filled };
 }

@@ -57,3 +57,37 @@ export function draftFromRows(rows: readonly DeviceClassRow[]): Record<string, u
 export function rowsToCatalog(rows: readonly DeviceClassRow[]): Catalog {
   return catalogSchema.parse(draftFromRows(rows));
 }
+
+function fillMissing(stored: unknown, shipped: unknown): unknown {
+  if (!isPlainObject(stored) || !isPlainObject(shipped)) return stored;
+  const out: Record<string, unknown> = { ...stored };
+  for (const [key, value] of Object.entries(shipped)) out[key] = key in stored ? fillMissing(stored[key], value) : value;
+  return out;
+}
+
+const isPlainObject = (value: unknown): value is Record<string, unknown> =>
+  typeof value === 'object' && value !== null && !Array.isArray(value);
+
+/**
+ * A stored catalog brought up to the one this version ships: classes it lacks
+ * are added, fields a class gained are filled from the shipped class, and every
+ * figure already stored (an admin's edit included) is kept.
+ */
+export function upgradedRows(
+  stored: readonly DeviceClassRow[],
+  shipped: readonly DeviceClassRow[],
+): { rows: DeviceClassRow[]; added: string[]; filled: string[] } {
+  const shippedById = new Map(shipped.map((row) => [row.id, row]));
+  const filled: string[] = [];
+  const rows = stored.map((row) => {
+    const fresh = shippedById.get(row.id);
+    if (!fresh) return row;
+    const params = fillMissing(row.params, fresh.params);
+    if (JSON.stringify(params) === JSON.stringify(row.params)) return row;
+    filled.push(row.id);
+    return { ...row, params };
+  });
+  const have = new Set(stored.map((row) => row.id));
+  const added = shipped.filter((row) => !have.has(row.id));
+  return { rows: [...rows, ...added], added: added.map((row) => row.id), filled };
+}
