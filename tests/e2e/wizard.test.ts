@@ -47,6 +47,9 @@ describe('a new client describes a rail', () => {
       await page.getByRole('button', { name: 'Next' }).click();
       await page.getByRole('heading', { name: /Load/ }).waitFor();
       await fill(page, 'Highest load current', '800m');
+      // The optional load step and the deviation it may cause; empty means not asked for.
+      await fill(page, 'Load step (optional)', '300m');
+      await fill(page, 'Allowed dip or overshoot during the step', '100m');
       await page.getByRole('button', { name: 'Back' }).click();
       await page.getByRole('button', { name: 'Back' }).click();
 
@@ -63,6 +66,8 @@ describe('a new client describes a rail', () => {
       await page.getByRole('button', { name: 'Next' }).click();
       expect(await page.locator('#f-spec-input-vMin-error').textContent()).toContain('The lowest input voltage must be a number.');
       expect(await page.getByLabel('Lowest input voltage', { exact: true }).getAttribute('aria-invalid')).toBe('true');
+      // What was typed stays in the box beside its error, to be corrected rather than retyped.
+      expect(await page.getByLabel('Lowest input voltage', { exact: true }).inputValue()).toBe('abc');
       await fill(page, 'Lowest input voltage', '4.5');
 
       for (let i = 0; i < 5; i++) await page.getByRole('button', { name: 'Next' }).click();
@@ -75,6 +80,11 @@ describe('a new client describes a rail', () => {
       await page.getByRole('button', { name: 'Next' }).click();
 
       await page.getByRole('heading', { name: /Review/ }).waitFor();
+      // The review shows everything that will be sent: the nominal input, the load step and the notes.
+      const review = (await page.locator('main').textContent()) ?? '';
+      expect(review).toContain('nominal 5 V');
+      expect(review).toContain('300 mA, at most 100 mV deviation');
+      expect(review).toContain('Valve coils switch every 15 s.');
       await page.getByRole('button', { name: 'Submit the brief' }).click();
       const email = `wizard-${label}-${Date.now()}@example.test`;
       await page.getByRole('heading', { name: 'Create an account to submit' }).waitFor();

@@ -248,7 +248,15 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
   const current = WIZARD_STEPS[step] ?? WIZARD_STEPS[0];
   const source = (values.spec?.input?.source ?? 'adapter') as SourceKind;
 
-  const number = (name: FieldPath<WizardInput>, label: string, unit: string, error: string | undefined, hint?: string, percent = false) => (
+  const number = (
+    name: FieldPath<WizardInput>,
+    label: string,
+    unit: string,
+    error: string | undefined,
+    hint?: string,
+    percent = false,
+    optional = false,
+  ) => (
     <Controller
       control={control}
       name={name}
@@ -263,6 +271,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
           error={error}
           hint={hint}
           percent={percent}
+          optional={optional}
         />
       )}
     />
@@ -378,6 +387,24 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
               {number('spec.output.iMin', 'Lowest load current', 'A', specErrors?.output?.iMin?.message, 'Asleep or idle.')}
               {number('spec.output.iTyp', 'Typical load current', 'A', specErrors?.output?.iTyp?.message, 'Most of the time.')}
               {number('spec.output.iMax', 'Highest load current', 'A', specErrors?.output?.iMax?.message, 'Worst burst.')}
+              {number(
+                'spec.output.loadStep',
+                'Load step (optional)',
+                'A',
+                specErrors?.output?.loadStep?.message,
+                'A sudden change in load current the rail must ride through.',
+                false,
+                true,
+              )}
+              {number(
+                'spec.output.maxStepDeviation',
+                'Allowed dip or overshoot during the step',
+                'V',
+                specErrors?.output?.maxStepDeviation?.message,
+                'Leave empty if any deviation inside the tolerance will do.',
+                false,
+                true,
+              )}
               <p className="text-sm text-ink-soft sm:col-span-3">
                 Have a measured log? Attach it as a CSV of time and current in the files step; we work these figures out from it.
               </p>
@@ -509,7 +536,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                   ['Name', values.title || '—'],
                   [
                     'Input',
-                    `${formatSi(Number(values.spec?.input?.vMin), 'V')} – ${formatSi(Number(values.spec?.input?.vMax), 'V')}, ${values.spec?.input?.source}`,
+                    `${formatSi(Number(values.spec?.input?.vMin), 'V')} – ${formatSi(Number(values.spec?.input?.vMax), 'V')} (nominal ${formatSi(Number(values.spec?.input?.vNom), 'V')}), ${values.spec?.input?.source}`,
                   ],
                   [
                     'Output',
@@ -519,11 +546,20 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
                     'Load',
                     `${formatSi(Number(values.spec?.output?.iMin), 'A')} / ${formatSi(Number(values.spec?.output?.iTyp), 'A')} / ${formatSi(Number(values.spec?.output?.iMax), 'A')}`,
                   ],
+                  ...(values.spec?.output?.loadStep
+                    ? [
+                        [
+                          'Load step',
+                          `${formatSi(Number(values.spec.output.loadStep), 'A')}${values.spec.output.maxStepDeviation ? `, at most ${formatSi(Number(values.spec.output.maxStepDeviation), 'V')} deviation` : ''}`,
+                        ],
+                      ]
+                    : []),
                   ['Ripple limit', formatSi(Number(values.spec?.noise?.maxRippleVpp), 'V')],
                   [
                     'Surroundings',
                     `${values.spec?.thermal?.ambientMaxC} °C, ${AIRFLOW_WORDS[(values.spec?.thermal?.airflow ?? 'still-air') as keyof typeof AIRFLOW_WORDS]}`,
                   ],
+                  ['Notes', values.notes?.trim() || 'none'],
                   ['Files', files.length ? files.map((f) => f.file.name).join(', ') : 'none'],
                 ].map(([term, value]) => (
                   <div key={term} className="grid grid-cols-[7rem_1fr] gap-2 px-3 py-2">

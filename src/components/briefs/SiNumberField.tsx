@@ -7,12 +7,14 @@ interface Props {
   label: string;
   unit: string;
   value: number | undefined;
-  onChange: (value: number) => void;
+  onChange: (value: number | undefined) => void;
   onBlur?: () => void;
   error?: string | undefined;
   hint?: string | undefined;
   /** Shown and typed as a percentage; stored as a fraction. */
   percent?: boolean;
+  /** An empty field means "not given" (undefined) rather than an error. */
+  optional?: boolean;
 }
 
 function show(value: number | undefined, unit: string, percent: boolean): string {
@@ -27,11 +29,12 @@ function show(value: number | undefined, unit: string, percent: boolean): string
  * A number field that accepts SI-prefixed input ("4k7", "220m", "3.3"). The
  * typed text is kept while focused; the parsed number goes to the form.
  */
-export function SiNumberField({ id, label, unit, value, onChange, onBlur, error, hint, percent = false }: Props) {
+export function SiNumberField({ id, label, unit, value, onChange, onBlur, error, hint, percent = false, optional = false }: Props) {
   const [text, setText] = useState(() => show(value, unit, percent));
   const [focused, setFocused] = useState(false);
   useEffect(() => {
-    if (!focused) setText(show(value, unit, percent));
+    // What was typed and does not read stays in the box beside its error, so it can be corrected.
+    if (!focused && !Number.isNaN(value)) setText(show(value, unit, percent));
   }, [value, unit, percent, focused]);
 
   return (
@@ -48,6 +51,7 @@ export function SiNumberField({ id, label, unit, value, onChange, onBlur, error,
         onFocus={() => setFocused(true)}
         onChange={(event) => {
           setText(event.target.value);
+          if (optional && event.target.value.trim() === '') return onChange(undefined);
           const parsed = parseSi(event.target.value.replace(new RegExp(`${unit}$`), '').trim());
           onChange(parsed === null ? Number.NaN : percent ? parsed / 100 : parsed);
         }}

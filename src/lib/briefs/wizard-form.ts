@@ -27,7 +27,11 @@ export const WIZARD_STEPS = [
     fields: ['spec.input.source', 'spec.input.vMin', 'spec.input.vNom', 'spec.input.vMax', 'spec.input.rippleVpp'],
   },
   { id: 'rail', title: 'Rail', fields: ['title', 'spec.output.v', 'spec.output.tolerance'] },
-  { id: 'load', title: 'Load', fields: ['spec.output.iMin', 'spec.output.iTyp', 'spec.output.iMax'] },
+  {
+    id: 'load',
+    title: 'Load',
+    fields: ['spec.output.iMin', 'spec.output.iTyp', 'spec.output.iMax', 'spec.output.loadStep', 'spec.output.maxStepDeviation'],
+  },
   { id: 'quietness', title: 'Quietness', fields: ['spec.noise.class', 'spec.noise.maxRippleVpp'] },
   { id: 'surroundings', title: 'Surroundings', fields: ['spec.thermal.ambientMaxC', 'spec.thermal.airflow'] },
   { id: 'files', title: 'Files and notes', fields: ['notes'] },
