@@ -26,9 +26,16 @@ const designers: Record<TopologyId, (ctx: Context) => Design> = {
   'buck+linear': designSwitcherLinear,
 };
 
-/** Each topology gets its own stream so its Monte Carlo does not depend on which others ran. */
-function topologySeed(seed: number, index: number): number {
-  return (seed + Math.imul(index + 1, 0x9e3779b9)) >>> 0;
+const GOLDEN_STEP = 0x9e3779b9;
+const TWO_32 = 2 ** 32;
+
+/**
+ * Each topology gets its own stream so its Monte Carlo does not depend on which others ran:
+ * seed + (index + 1)·0x9e3779b9 mod 2³², in exact double arithmetic (every term stays below
+ * 2⁵³), so no 32-bit multiply is involved and every thread and tier computes the same seeds.
+ */
+export function topologySeed(seed: number, index: number): number {
+  return ((seed >>> 0) + (index + 1) * GOLDEN_STEP) % TWO_32;
 }
 
 export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Evaluation {

@@ -8,7 +8,8 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { railSpecSchema, type RailSpec } from '../../../src/lib/engine/rail-spec';
 import { defaultCatalog, type Catalog } from '../../../src/lib/engine/catalog';
-import { evaluate } from '../../../src/lib/engine/evaluate';
+import { DEFAULT_SEED, evaluate, topologySeed } from '../../../src/lib/engine/evaluate';
+import { topologyIds } from '../../../src/lib/engine/types';
 import { EngineBusyError, EnginePool } from '../../../src/lib/platform/engine-pool/pool';
 import { buildEngineWorker } from '../../../src/integrations/engine-worker';
 import { DEMO_BRIEFS } from '../../../src/lib/demo/scenario';
@@ -30,6 +31,13 @@ describe('engine threads', () => {
     const pool = new EnginePool({ workerFile, size: 2 });
     try {
       const answers = await Promise.all(briefs.map((brief) => pool.evaluateJson(brief, defaultCatalog)));
+      // Each topology's Monte Carlo runs on its own seed in every thread (a clearer message than the whole text).
+      for (const json of answers) {
+        const seeds = Object.fromEntries(
+          decode(json).options.map((o: { topology: string; monteCarlo: { seed: number } }) => [o.topology, o.monteCarlo.seed]),
+        );
+        expect(seeds).toEqual(Object.fromEntries(topologyIds.map((id, index) => [id, topologySeed(DEFAULT_SEED, index)])));
+      }
       answers.forEach((json, i) => expect(json).toBe(JSON.stringify(evaluate(briefs[i]!, defaultCatalog))));
     } finally {
       await pool.close();
