@@ -84,6 +84,9 @@ describe('state moves and internal notes on the review page', () => {
     // Only moves open from the current state are offered, and others are refused.
     const html = await (await engineer.request(`/desk/briefs/${briefId}`)).text();
     expect(html).toContain('<option value="declined">');
+    // Nothing is chosen for the engineer: the first option asks, and no state is preselected.
+    expect(html).toMatch(/<select id="move-state"[^>]*>\s*<option value="" disabled selected>/);
+    expect(html).not.toMatch(/<option value="[a-z-]+" selected/);
     expect(html).not.toContain('<option value="in-review">');
     const wrong = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', state: 'delivered', note: '' });
     expect(wrong.status).toBe(409);
