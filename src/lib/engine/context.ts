@@ -2,6 +2,7 @@
 import type { RailSpec } from './rail-spec.ts';
 import type { Catalog } from './catalog.ts';
 import { enclosureRise } from './thermal.ts';
+import type { DividerDesign } from './topologies/feedback.ts';
 
 export interface Context {
   spec: RailSpec;
@@ -15,6 +16,11 @@ export interface Context {
    * other dissipation adds (the assembly adds the supply's own share per option).
    */
   ambientC: number;
+  /**
+   * Divider searches already done in this evaluation, by question: a converter's class search asks
+   * the same one for every frequency and again when pricing and settling a candidate.
+   */
+  dividerSearches: Map<string, DividerDesign>;
 }
 
 export function makeContext(spec: RailSpec, catalog: Catalog): Context {
@@ -25,6 +31,7 @@ export function makeContext(spec: RailSpec, catalog: Catalog): Context {
     vInTrough: spec.input.vMin - spec.input.rippleVpp / 2,
     roomC,
     ambientC: roomC + (enclosureRise(spec, 0)?.riseK ?? 0),
+    dividerSearches: new Map(),
   };
 }
 

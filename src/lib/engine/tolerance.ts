@@ -9,12 +9,23 @@ export interface ToleranceParam {
   hi: number;
 }
 
+/** Uniform numbers per parameter and each parameter's band, as a Monte Carlo hands them to a model. */
+export interface Draws {
+  u: readonly Float64Array[];
+  lo: Float64Array;
+  span: Float64Array;
+}
+
 export interface ToleranceModel {
   params: readonly ToleranceParam[];
   /** Output voltage for a parameter vector in `params` order. */
   f: (x: Float64Array) => number;
-  /** The same over columns of draws (one column per parameter), written into `out`: a tight loop per model. */
-  batch: (columns: readonly Float64Array[], out: Float64Array) => void;
+  /**
+   * The same over many draws, written into `out`: parameter j of draw i is lo[j] + span[j]·u[j][i]
+   * with u[j][i] uniform in [0, 1). A tight loop per model that reads the seeded stream in place
+   * instead of a copy of every column.
+   */
+  batch: (draws: Draws, out: Float64Array) => void;
   /** When the output rises (+1) or falls (−1) with each parameter over its whole band, the extremes sit at two vertices. */
   monotone?: readonly (1 | -1)[];
 }
@@ -182,49 +193,55 @@ export function monteCarlo(
   range: { min: number; max: number },
 ): MonteCarloResult {
   const n = model.params.length;
-  const buffer = scratchFor((n + 1) * draws);
-  const columns: Float64Array[] = [];
-  // Column by column, so each parameter's draws come from consecutive numbers of one seeded stream
-  // (a large Monte Carlo generates its own numbers rather than keep them).
-  const u = n * draws <= KEPT_STREAM_LENGTH ? keptStream(seed) : null;
+  const lo = new Float64Array(n);
+  const span = new Float64Array(n);
   for (let j = 0; j < n; j += 1) {
-    const p = model.params[j]!;
-    const lo = p.lo;
-    const span = p.hi - lo;
-    const column = buffer.subarray(j * draws, (j + 1) * draws);
-    columns.push(column);
-    const offset = j * draws;
-    if (u === null) drawUniform(column, seed, offset, lo, span);
-    else for (let i = 0; i < draws; i += 1) column[i] = lo + span * u[offset + i]!;
+    lo[j] = model.params[j]!.lo;
+    span[j] = model.params[j]!.hi - lo[j]!;
   }
-  const out = buffer.subarray(n * draws, (n + 1) * draws);
-  model.batch(columns, out);
+  // Parameter j takes the numbers j·draws, j·draws + 1, … of the seed's stream: straight from the
+  // kept stream when it is long enough, else generated (a large Monte Carlo does not keep them).
+  const kept = n * draws <= KEPT_STREAM_LENGTH ? keptStream(seed) : null;
+  const buffer = scratchFor((kept ? 1 : n + 1) * draws);
+  const u: Float64Array[] = [];
+  for (let j = 0; j < n; j += 1) {
+    if (kept) u.push(kept.subarray(j * draws, (j + 1) * draws));
+    else {
+      const column = buffer.subarray((j + 1) * draws, (j + 2) * draws);
+      drawUniform(column, seed, j * draws, 0, 1);
+      u.push(column);
+    }
+  }
+  const out = buffer.subarray(0, draws);
+  model.batch({ u, lo, span }, out);
+  // One pass over the outputs. Sums run about the first draw so the squares do not cancel.
+  const shift = draws > 0 ? out[0]! : 0;
   let sum = 0;
-  let inside = 0;
-  const { lo, hi } = band;
-  for (let i = 0; i < draws; i += 1) {
-    const v = out[i]!;
-    sum += v;
-    // Branch-free count: the draws fall either side of the band's edges at random.
-    inside += Number(v >= lo) & Number(v <= hi);
-  }
-  const mean = sum / draws;
   let squares = 0;
+  let inside = 0;
   const counts = new Int32Array(HISTOGRAM_BINS);
   const { min } = range;
   const width = range.max - min;
   const perBin = width > 0 ? HISTOGRAM_BINS / width : 0;
+  const lastBin = HISTOGRAM_BINS - 1;
+  const { lo: bandLo, hi: bandHi } = band;
   for (let i = 0; i < draws; i += 1) {
     const v = out[i]!;
-    squares += (v - mean) * (v - mean);
+    const d = v - shift;
+    sum += d;
+    squares += d * d;
+    // Branch-free count: the draws fall either side of the band's edges at random.
+    inside += Number(v >= bandLo) & Number(v <= bandHi);
     const k = Math.floor((v - min) * perBin);
-    counts[k < 0 ? 0 : k >= HISTOGRAM_BINS ? HISTOGRAM_BINS - 1 : k]! += 1;
+    counts[k < 0 ? 0 : k > lastBin ? lastBin : k]! += 1;
   }
+  const mean = shift + sum / draws;
+  const variance = draws > 1 ? Math.max(0, (squares - (sum * sum) / draws) / (draws - 1)) : 0;
   return {
     draws,
     seed,
     mean,
-    sigma: draws > 1 ? Math.sqrt(squares / (draws - 1)) : 0,
+    sigma: Math.sqrt(variance),
     fractionInTolerance: inside / draws,
     histogram: { min: range.min, max: range.max, counts: Array.from(counts) },
   };

@@ -6,7 +6,9 @@ import { designDivider, dividerModel } from '~/lib/engine/topologies/feedback.ts
 const uniform: ToleranceModel = {
   params: [{ name: 'x', nominal: 0.5, lo: 0, hi: 1 }],
   f: (x) => x[0]!,
-  batch: (c, out) => out.set(c[0]!),
+  batch: ({ u, lo, span }, out) => {
+    for (let i = 0; i < out.length; i += 1) out[i] = lo[0]! + span[0]! * u[0]![i]!;
+  },
 };
 
 describe('Monte Carlo against the uniform distribution’s known moments (mean ½, σ = 1/√12)', () => {
@@ -19,6 +21,15 @@ describe('Monte Carlo against the uniform distribution’s known moments (mean �
     expect(r.histogram.counts.reduce((a, b) => a + b, 0)).toBe(10_000);
     // Each of the 20 bins expects 500 draws; σ of a bin count ≈ √(500·0.95) = 21.8.
     for (const c of r.histogram.counts) expect(Math.abs(c - 500)).toBeLessThan(5 * 21.8);
+  });
+
+  test('a run too long to keep its numbers generates the same ones the kept stream holds', () => {
+    // One parameter of 2¹⁷ draws reads the kept stream; a second, ignored parameter makes the run
+    // twice as long, so it generates its numbers instead: the first column must not change.
+    const draws = 1 << 17;
+    const kept = monteCarlo(uniform, draws, 11, { lo: 0, hi: 0.3 }, { min: 0, max: 1 });
+    const firstOfTwo: ToleranceModel = { ...uniform, params: [...uniform.params, { name: 'unused', nominal: 5, lo: 4, hi: 6 }] };
+    expect(monteCarlo(firstOfTwo, draws, 11, { lo: 0, hi: 0.3 }, { min: 0, max: 1 })).toEqual(kept);
   });
 
   test('the same seed gives the same draws; another seed different ones', () => {

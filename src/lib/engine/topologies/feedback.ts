@@ -83,12 +83,19 @@ export function dividerOutputModel(vRef: number, divider: Divider, spread: Divid
       for (let j = 5; j < n; j += 1) v *= x[j]!;
       return v;
     },
-    batch: (c, out) => {
-      const [vr, dr, a, b, ia] = c as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
-      for (let i = 0; i < out.length; i += 1) out[i] = vr[i]! * dr[i]! * (1 + b[i]! / a[i]!) + ia[i]! * b[i]!;
+    batch: ({ u, lo, span }, out) => {
+      const [u0, u1, u2, u3, u4] = u as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+      const [l0, l1, l2, l3, l4] = lo as unknown as [number, number, number, number, number];
+      const [s0, s1, s2, s3, s4] = span as unknown as [number, number, number, number, number];
+      for (let i = 0; i < out.length; i += 1) {
+        const r2 = l3 + s3 * u3[i]!;
+        out[i] = (l0 + s0 * u0[i]!) * (l1 + s1 * u1[i]!) * (1 + r2 / (l2 + s2 * u2[i]!)) + (l4 + s4 * u4[i]!) * r2;
+      }
       for (let j = 5; j < n; j += 1) {
-        const col = c[j]!;
-        for (let i = 0; i < out.length; i += 1) out[i]! *= col[i]!;
+        const column = u[j]!;
+        const l = lo[j]!;
+        const s = span[j]!;
+        for (let i = 0; i < out.length; i += 1) out[i]! *= l + s * column[i]!;
       }
     },
   };

@@ -5,7 +5,7 @@ import { Refs, atLeast, blocker, info, makePart, resistorPart, type Design, type
 import { snap } from '../eseries.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { COLD_AMBIENT_C, analyseTolerance, temperatureSwingK, toleranceVerdict } from '../tolerance.ts';
+import { COLD_AMBIENT_C, analyseTolerance, temperatureSwingK, toleranceVerdict, type Draws } from '../tolerance.ts';
 import { designShuntReference } from './shunt-reference.ts';
 import { seriesFor, seriesForPower, zenerModel, zenerTempco, zenerVoltage } from '../zeners.ts';
 
@@ -223,9 +223,10 @@ function designZenerShunt(ctx: Context): Design {
       { name: 'iOut', nominal: spec.output.iTyp, lo: iMin, hi: iMax },
     ],
     f: (x: Float64Array) => shuntVout(x[2]!, x[3]!, x[1]!, x[0]! - rz * iTest, rz),
-    batch: (c: readonly Float64Array[], out: Float64Array) => {
-      const [z, r, v, i] = c as [Float64Array, Float64Array, Float64Array, Float64Array];
-      for (let k = 0; k < out.length; k += 1) out[k] = shuntVout(v[k]!, i[k]!, r[k]!, z[k]! - rz * iTest, rz);
+    batch: ({ u, lo, span }: Draws, out: Float64Array) => {
+      const [z, r, v, i] = u as [Float64Array, Float64Array, Float64Array, Float64Array];
+      const at = (j: number, x: number) => lo[j]! + span[j]! * x;
+      for (let k = 0; k < out.length; k += 1) out[k] = shuntVout(at(2, v[k]!), at(3, i[k]!), at(1, r[k]!), at(0, z[k]!) - rz * iTest, rz);
     },
   };
 

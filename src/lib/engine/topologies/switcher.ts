@@ -488,6 +488,24 @@ export function switcherRegulation(stage: SwitcherClass, need: FeedbackNeed): To
 
 /** The shared divider search for a class: its Vfb tolerance, the pin's bias current, regulation and the post-filter's drop. */
 function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, forcedR: { r1?: number; r2?: number }): DividerDesign {
+  const { vTarget, band, load, input, dcrAfterFb, marginV } = need;
+  const rule = need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical';
+  const key = `${stage.id}|${vTarget}|${band.lo}|${band.hi}|${load.iMin}|${load.iTyp}|${load.iMax}|${input.vTrough}|${input.vMax}|${dcrAfterFb}|${marginV}|${rule}|${ctx.ambientC}|${forcedR.r1}|${forcedR.r2}`;
+  let pick = ctx.dividerSearches.get(key);
+  if (!pick) {
+    pick = searchFeedback(ctx, stage, need, rule, forcedR);
+    ctx.dividerSearches.set(key, pick);
+  }
+  return pick;
+}
+
+function searchFeedback(
+  ctx: Context,
+  stage: SwitcherClass,
+  need: FeedbackNeed,
+  rule: ToleranceRule,
+  forcedR: { r1?: number; r2?: number },
+): DividerDesign {
   const { vTarget, load, dcrAfterFb } = need;
   const drop = (i: number) => 1 - (i * dcrAfterFb) / vTarget;
   const extra = [
@@ -506,7 +524,7 @@ function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, 
     iDividerMin: FB_DIVIDER_A.min,
     iDividerMax: FB_DIVIDER_A.max,
     band: need.band,
-    rule: need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical',
+    rule,
     tempSwingK: temperatureSwingK(ctx.ambientC),
     extra,
     grades: ctx.catalog.resistorGrades,

@@ -91,8 +91,8 @@ describe('root-sum-square sigma (uniform parts: σ = a/√3)', () => {
       { name: 'b', nominal: 0, lo: -1, hi: 1 },
     ],
     f: (x) => x[0]! + x[1]!,
-    batch: (c, out) => {
-      for (let i = 0; i < out.length; i += 1) out[i] = c[0]![i]! + c[1]![i]!;
+    batch: ({ u, lo, span }, out) => {
+      for (let i = 0; i < out.length; i += 1) out[i] = lo[0]! + span[0]! * u[0]![i]! + lo[1]! + span[1]! * u[1]![i]!;
     },
   };
   test('two ±1 uniform terms: σ = √(2/3), worst case ±2, 3σ clipped to the worst case', () => {
