@@ -194,13 +194,14 @@ function sizeProtectionAt(
     const drop = (fb.k * vNormal * sense.ibCold) / (dividerA * (1 + fb.k));
     return { fb, lo: foldbackCurrent(fb, sense.vbeCold, vs, drop), hi: foldbackCurrent(fb, sense.vbeCold, vNormal, drop) };
   };
-  const pointsOf = (line: { lo: number; hi: number }) =>
-    Array.from({ length: FOLDBACK_SAMPLES + 1 }, (_, n) => {
-      const x = n / FOLDBACK_SAMPLES;
-      const vce = Math.max(0, vMax - (x * vTarget + vs));
-      return { vce, w: vce * (line.lo + (line.hi - line.lo) * x) };
-    });
-  const lineWorst = (line: { lo: number; hi: number }) => Math.max(...pointsOf(line).map((p) => p.w));
+  // Vce along the line does not depend on the currents: worked out once per sizing.
+  const vces = Array.from({ length: FOLDBACK_SAMPLES + 1 }, (_, n) => Math.max(0, vMax - ((n / FOLDBACK_SAMPLES) * vTarget + vs)));
+  const powerAt = (line: { lo: number; hi: number }, n: number) => vces[n]! * (line.lo + (line.hi - line.lo) * (n / FOLDBACK_SAMPLES));
+  const lineWorst = (line: { lo: number; hi: number }) => {
+    let worst = Number.NEGATIVE_INFINITY;
+    for (let n = 0; n <= FOLDBACK_SAMPLES; n += 1) worst = Math.max(worst, powerAt(line, n));
+    return worst;
+  };
   // Case temperature the heatsink gives at this power; null when no heatsink holds it.
   const caseAt = (powerW: number): number | null => {
     const t = assessThermal(thermal, powerW, ctx.ambientC, airflow, ctx.catalog, ctx.spec.overrides.heatsinkThetaSaCW);
@@ -213,7 +214,8 @@ function sizeProtectionAt(
     if (!line) return null;
     const caseC = caseAt(lineWorst(line));
     if (caseC === null) return null;
-    return pointsOf(line).every((p) => p.w <= soaDeratedW(dev, p.vce, caseC)) ? caseC : null;
+    for (let n = 0; n <= FOLDBACK_SAMPLES; n += 1) if (powerAt(line, n) > soaDeratedW(dev, vces[n]!, caseC)) return null;
+    return caseC;
   };
   const problems: Issue[] = [];
   // Fold to half the limit where the SOA allows it (common practice), else as deep as needed
