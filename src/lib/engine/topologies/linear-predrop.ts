@@ -46,6 +46,7 @@ import {
 import { CURRENT_DERATING, dividerCurrent, dropoutAt, regulatorStage } from './regulator-stage.ts';
 import { SOURCE_SPREAD, resistorFeed, sourceFeed, type StandoffFeed } from './standoff-feed.ts';
 import { SOA_MARGIN, fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from './soa.ts';
+import { shortBy } from '../words.ts';
 
 export { soaAllowedW } from './soa.ts';
 
@@ -625,7 +626,9 @@ function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass 
     issues.push(
       blocker(
         'standoff',
-        `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}); it needs ${cls.dropoutV} V.`,
+        regHeadroom < 0
+          ? `The standoff leaves no headroom across the regulator at full load: it is ${shortBy(regHeadroom - cls.dropoutV)} of the ${cls.dropoutV} V the regulator needs (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}).`
+          : `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}); it needs ${cls.dropoutV} V.`,
       ),
     );
   }
