@@ -77,15 +77,22 @@ export function clientBlocker(option: Pick<Option, 'feasible' | 'issues'>): stri
   return CLIENT_BLOCKERS[code] ?? CLIENT_BLOCKER_FALLBACK;
 }
 
-/** When no option can be built: the reason most of them share, said plainly. */
+/**
+ * When no option can be built: the reason most of them share, or else the reason of the closest
+ * (the options come best first), said plainly.
+ */
 export function nothingBuildable(options: readonly Pick<Option, 'feasible' | 'issues'>[]): string {
+  const reasons = options.map((o) => clientBlocker(o) ?? CLIENT_BLOCKER_FALLBACK);
   const counts = new Map<string, number>();
-  for (const o of options) {
-    const reason = clientBlocker(o) ?? CLIENT_BLOCKER_FALLBACK;
-    counts.set(reason, (counts.get(reason) ?? 0) + 1);
-  }
-  const [reason, count] = [...counts].reduce((best, entry) => (entry[1] > best[1] ? entry : best), ['', 0]);
-  return `None of the ${options.length} ways can be built as the brief stands: the main reason is that ${count === options.length ? 'every one' : `${count} of them`} ${reason}.`;
+  for (const r of reasons) counts.set(r, (counts.get(r) ?? 0) + 1);
+  const [shared = '', count = 0] = [...counts].reduce((best, entry) => (entry[1] > best[1] ? entry : best), ['', 0]);
+  const why =
+    count === options.length
+      ? `every one ${shared}`
+      : count * 2 > options.length
+        ? `${count} of them ${shared}`
+        : `the closest of them ${reasons[0] ?? CLIENT_BLOCKER_FALLBACK}`;
+  return `None of the ${options.length} ways can be built as the brief stands: the main reason is that ${why}.`;
 }
 
 /** Safety cautions the client reads; a hot part or a charged capacitor in plain words, without part references. */

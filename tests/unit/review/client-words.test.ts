@@ -32,6 +32,12 @@ describe('the live panel in a client’s words', () => {
     expect(nothingBuildable([blocked('thermal'), blocked('heatsink'), blocked('thermal')])).toBe(
       'None of the 3 ways can be built as the brief stands: the main reason is that 2 of them would run too hot.',
     );
+    // No shared majority: the closest option's reason (the options come best first).
+    expect(
+      nothingBuildable([blocked('current'), blocked('output-max'), blocked('output-max'), blocked('input-max'), blocked('input-max')]),
+    ).toBe(
+      'None of the 5 ways can be built as the brief stands: the main reason is that the closest of them cannot deliver the load current.',
+    );
     expect(nothingBuildable([blocked('tolerance'), blocked('tolerance')])).toBe(
       'None of the 2 ways can be built as the brief stands: the main reason is that every one cannot hold the output within the allowed deviation.',
     );
