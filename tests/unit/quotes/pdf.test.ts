@@ -126,6 +126,20 @@ describe('the quote PDF', () => {
     }
   }, 60_000);
 
+  test('a heatsink figure reads in K/W with two significant figures', () => {
+    const option = evaluate(
+      railSpecSchema.parse({
+        input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
+        output: { v: 150, tolerance: 0.02, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
+        noise: { class: 'sensor', maxRippleVpp: 0.01 },
+        thermal: { ambientMaxC: 35, airflow: 'still-air' },
+      }),
+      defaultCatalog,
+    ).options[0]!;
+    const summary = designSummary({ ...option, heatsink: { required: true, maxThetaSaCW: 0.36 } });
+    expect(summary.figures.find((r) => r.label === 'Heatsink')?.value).toBe('needed, at most 0.36 K/W');
+  });
+
   test('characters go to the font subset that draws them', () => {
     expect(runs('R1 10 kΩ, Łódź')).toEqual([
       'R1 10 k',
