@@ -11,8 +11,7 @@ import type { Trace } from './trace.ts';
 import { analyseTolerance, monteCarlo, toleranceVerdict } from './tolerance.ts';
 import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation, TopologyId } from './types.ts';
 import type { NoiseClass } from './rail-spec.ts';
-import { formatSi } from './units.ts';
-import { formatKPerW } from './words.ts';
+import { formatKPerW, formatSi } from './units.ts';
 
 const ZENER_ROLES = new Set(['zener', 'standoff-zener']);
 /** Monte Carlo draws for an option that can be built, and for one that is blocked (its histogram is a sketch). */

@@ -6,8 +6,7 @@ import type { ComponentRole, Issue } from './types.ts';
 import { makePart, blocker, caution, type DesignPart } from './design.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from './ratings.ts';
 import { snap } from './eseries.ts';
-import { formatSi } from './units.ts';
-import { lowerFirst } from './words.ts';
+import { formatSi, lowerFirst } from './units.ts';
 
 /** Common practice: a capacitor works at no more than 80 % of its rated voltage (MLCC bias loss is counted separately). */
 export const CAPACITOR_VOLTAGE_FACTOR = SEMICONDUCTOR_VOLTAGE_FACTOR;

@@ -13,7 +13,7 @@ export {
 } from './rail-spec.ts';
 export { catalogSchema, defaultCatalog, type Catalog } from './catalog.ts';
 export { formatSi, numberFormsHint, parseSi } from './units.ts';
-export { classPhrase, formatKPerW, lowerFirst, shortBy } from './words.ts';
+export { classPhrase, formatKPerW, lowerFirst, shortBy } from './units.ts';
 export { E_SERIES, snap, type SeriesName } from './eseries.ts';
 export { toSpiceNetlist, type SpiceCorner } from './spice/index.ts';
 export * from './types.ts';

@@ -3,8 +3,7 @@
  * the revision comparison and the calculation sheet (browser-safe, pure).
  */
 import type { Component, Fix, Option } from '../engine/types';
-import { formatSi } from '../engine/units';
-import { formatKPerW } from '../engine/words';
+import { formatKPerW, formatSi } from '../engine/units';
 import { formatMoney } from '../platform/format';
 import { percent } from './option-words';
 

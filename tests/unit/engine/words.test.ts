@@ -2,7 +2,7 @@
 // the engine writes for the corpus of ordinary briefs.
 import { describe, expect, test } from 'vitest';
 import { defaultCatalog, evaluate, railSpecSchema } from '~/lib/engine/index.ts';
-import { classPhrase, formatKPerW, lowerFirst, shortBy } from '~/lib/engine/words.ts';
+import { classPhrase, formatKPerW, lowerFirst, shortBy } from '~/lib/engine/units.ts';
 import { CORPUS } from './corpus/briefs.ts';
 
 describe('class labels read as sentences', () => {

@@ -31,7 +31,7 @@ import {
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
-import { classPhrase } from '../words.ts';
+import { classPhrase } from '../units.ts';
 
 export interface BoostPoint {
   mode: ConductionMode;

@@ -34,7 +34,7 @@ import {
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
-import { classPhrase } from '../words.ts';
+import { classPhrase } from '../units.ts';
 
 export interface BuckPoint {
   mode: ConductionMode;

@@ -26,7 +26,7 @@ import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { airflowFactor, assessThermal, type ThermalPart } from '../thermal.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { formatSi, shortBy } from '../units.ts';
 import { dynamicImpedance, seriesFor, seriesForPower, zenerModel, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
 import { COLD_AMBIENT_C } from '../tolerance.ts';
 import {
@@ -46,7 +46,6 @@ import {
 import { CURRENT_DERATING, dividerCurrent, dropoutAt, regulatorStage } from './regulator-stage.ts';
 import { SOURCE_SPREAD, resistorFeed, sourceFeed, type StandoffFeed } from './standoff-feed.ts';
 import { SOA_MARGIN, fuseClearingS, pulsedSoaW, soaAllowedW, soaDeratedW } from './soa.ts';
-import { shortBy } from '../words.ts';
 
 export { soaAllowedW } from './soa.ts';
 

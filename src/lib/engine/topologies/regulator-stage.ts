@@ -30,11 +30,10 @@ import {
 } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { classPhrase, formatSi } from '../units.ts';
 import { dividerOutputModel, searchDivider, type DividerDesign } from './feedback.ts';
 import { LOSS_CENTS_PER_W } from './switcher.ts';
 import { MAINS_RIPPLE_HZ, NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
-import { classPhrase } from '../words.ts';
 
 /** A divider current of about 100 µA keeps the feedback-pin bias error small (common practice). */
 export const DIVIDER_MIN_A = 100e-6;

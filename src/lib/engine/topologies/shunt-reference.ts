@@ -10,9 +10,8 @@ import { RATING_FACTOR } from '../ratings.ts';
 import { temperatureSwingK } from '../tolerance.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { classPhrase, formatSi } from '../units.ts';
 import { searchDivider } from './feedback.ts';
-import { classPhrase } from '../words.ts';
 
 /** Divider current: a hundred times the reference-input current keeps its error near 1 % of R2's (common practice). */
 const DIVIDER_BIAS_RATIO = 100;

@@ -29,7 +29,7 @@ import {
   type StageRefs,
   type StageRequest,
 } from './switcher.ts';
-import { classPhrase } from '../words.ts';
+import { classPhrase } from '../units.ts';
 
 /** Losses of a corner that load the converter IC and the inductor. */
 interface CornerLosses {

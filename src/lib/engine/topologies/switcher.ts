@@ -22,7 +22,7 @@ import { temperatureSwingK, type ToleranceModel, type ToleranceParam, type Toler
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import { searchDivider, type DividerDesign } from './feedback.ts';
-import { classPhrase } from '../words.ts';
+import { classPhrase } from '../units.ts';
 
 /** Inductor ripple current as a fraction of the reference current (common practice 0.2–0.4). */
 export const RIPPLE_RATIO = 0.3;
