@@ -117,19 +117,10 @@ describe('the wizard reads as a client expects', () => {
   });
 });
 
-describe('history times', () => {
-  test('a brief’s history gives the date and time in the viewer’s time zone, with the instant in datetime', async () => {
-    const zone = 'America/New_York';
-    const context = await browser().newContext({ timezoneId: zone, viewport: { width: 390, height: 844 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, baseUrl, 'client@demo.railwright.test');
-    await page.goto(`${baseUrl}/briefs`);
-    await page.locator('a[href^="/briefs/"]:not([href="/briefs/new"])').first().click();
-    await islandsReady(page);
-    const first = page.getByRole('list', { name: 'State history, oldest first' }).locator('time').first();
-    const iso = (await first.getAttribute('datetime'))!;
-    expect(iso).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/);
-    const expected = new Intl.DateTimeFormat('en-GB', {
+describe('times in the viewer’s time zone', () => {
+  const zone = 'America/New_York';
+  const inZone = (iso: string) =>
+    new Intl.DateTimeFormat('en-GB', {
       day: 'numeric',
       month: 'short',
       year: 'numeric',
@@ -138,8 +129,32 @@ describe('history times', () => {
       timeZoneName: 'short',
       timeZone: zone,
     }).format(new Date(iso));
-    await expect.poll(() => first.textContent()).toBe(expected);
-    await screenshot(page, 'brief-history-phone');
+
+  test.each([
+    ['a client’s brief history', 'client@demo.railwright.test', 'brief-history-phone'],
+    ['the mail log', 'admin@demo.railwright.test', 'mail-log-phone'],
+  ] as const)('%s gives the date and time in the viewer’s zone, with the instant in datetime', async (_what, email, shot) => {
+    const context = await browser().newContext({ timezoneId: zone, viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    await signInThroughForm(page, baseUrl, email);
+    if (email.startsWith('client')) {
+      await page.goto(`${baseUrl}/briefs`);
+      await page.locator('a[href^="/briefs/"]:not([href="/briefs/new"])').first().click();
+    } else {
+      // A password-reset request puts a mail in the log.
+      await page.goto(`${baseUrl}/forgot-password`);
+      await page.getByLabel('E-mail').fill('client@demo.railwright.test');
+      await page.locator('main form button[type="submit"]').click();
+      await page.waitForLoadState('networkidle');
+      await page.goto(`${baseUrl}/admin/mail`);
+    }
+    await islandsReady(page);
+    const first = page.locator('main time').first();
+    await first.scrollIntoViewIfNeeded();
+    const iso = (await first.getAttribute('datetime'))!;
+    expect(iso).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/);
+    await expect.poll(() => first.textContent()).toBe(inZone(iso));
+    await screenshot(page, shot);
     await context.close();
   });
 });
