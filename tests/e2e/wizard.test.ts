@@ -64,7 +64,9 @@ describe('a new client describes a rail', () => {
       // Bad input gets a message in plain words beside the field.
       await fill(page, 'Lowest input voltage', 'abc');
       await page.getByRole('button', { name: 'Next' }).click();
-      expect(await page.locator('#f-spec-input-vMin-error').textContent()).toContain('The lowest input voltage must be a number.');
+      expect(await page.locator('#f-spec-input-vMin-error').textContent()).toContain(
+        '“abc” does not read as a number. Write a number like 3.3, 3,3, 3V3, 4k7 or 100m.',
+      );
       expect(await page.getByLabel('Lowest input voltage', { exact: true }).getAttribute('aria-invalid')).toBe('true');
       // What was typed stays in the box beside its error, to be corrected rather than retyped.
       expect(await page.getByLabel('Lowest input voltage', { exact: true }).inputValue()).toBe('abc');

@@ -40,6 +40,15 @@ interface QueuedFile {
 }
 
 const LOCAL_KEY = 'railwright:wizard-draft';
+
+// Figures checked against each other (lowest ≤ nominal ≤ highest): a change to one re-checks the
+// others, so an order error shows beside the fields while they are being typed.
+const INPUT_RANGE = ['spec.input.vMin', 'spec.input.vNom', 'spec.input.vMax', 'spec.input.rippleVpp'] as const;
+const LOAD_RANGE = ['spec.output.iMin', 'spec.output.iTyp', 'spec.output.iMax'] as const;
+function relatedFields(name: FieldPath<WizardInput>): FieldPath<WizardInput>[] {
+  const group = [INPUT_RANGE, LOAD_RANGE].find((g) => (g as readonly string[]).includes(name)) ?? [];
+  return group.filter((other) => other !== name);
+}
 const SAVE_DEBOUNCE_MS = 1200;
 
 function initialValues(draft: Props['draft']): WizardInput {
@@ -260,6 +269,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     <Controller
       control={control}
       name={name}
+      rules={{ deps: relatedFields(name) }}
       render={({ field }) => (
         <SiNumberField
           id={`f-${name.replaceAll('.', '-')}`}

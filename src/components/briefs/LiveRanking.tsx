@@ -1,6 +1,6 @@
 import type { Evaluation } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
-import { feasibilityOf, headlineReason, percent, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { clientBlocker, clientCautions, feasibilityOf, nothingBuildable, percent, TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { FEASIBILITY_LOOK } from '~/components/ui/state-look';
 import { StateBadge } from '../ui/StateBadge';
 
@@ -13,7 +13,7 @@ export type RankingState =
 /** The indicative ranking beside the wizard; an engineer confirms it later. */
 export function LiveRanking({ state }: { state: RankingState }) {
   const result = state.kind === 'ready' ? state.result : state.kind === 'loading' ? state.previous : null;
-  const cautions = result ? [...new Map(result.options.flatMap((o) => o.cautions).map((c) => [c.code, c])).values()] : [];
+  const cautions = result ? clientCautions(result.options) : [];
   return (
     <section aria-labelledby="ranking-heading" className="rounded-lg border border-rule bg-card p-4">
       <div className="flex items-baseline justify-between gap-2">
@@ -31,11 +31,11 @@ export function LiveRanking({ state }: { state: RankingState }) {
           <p className="mt-1 text-sm text-ink-soft">
             {result.recommended
               ? `${result.options.filter((o) => o.feasible).length} of ${result.options.length} ways can meet this rail.`
-              : 'No way meets this rail as described; the reasons are below. An engineer can often find a way by relaxing one figure.'}
+              : `${nothingBuildable(result.options)} An engineer can often find a way by relaxing one figure.`}
           </p>
           <ol className="mt-3 flex flex-col gap-2" aria-label="Options, best first">
             {result.options.map((option, index) => {
-              const reason = headlineReason(option);
+              const blocker = clientBlocker(option);
               return (
                 <li key={option.topology} className="rounded-md border border-rule p-3" data-topology={option.topology}>
                   <div className="flex flex-wrap items-center justify-between gap-2">
@@ -60,7 +60,7 @@ export function LiveRanking({ state }: { state: RankingState }) {
                       </div>
                     </dl>
                   )}
-                  {reason && <p className="mt-1.5 text-xs text-ink-soft">{reason}</p>}
+                  {blocker && <p className="mt-1.5 text-xs text-ink-soft">Cannot be built: it {blocker}.</p>}
                 </li>
               );
             })}

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { formatSi, parseSi } from '~/lib/engine/units';
+import { formatSi, numberFormsHint, parseSi } from '~/lib/engine/units';
 import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
 
 interface Props {
@@ -26,7 +26,7 @@ function show(value: number | undefined, unit: string, percent: boolean): string
 }
 
 /**
- * A number field that accepts SI-prefixed input ("4k7", "220m", "3.3"). The
+ * A number field that accepts SI-prefixed input ("4k7", "220m", "3.3", "3V3", "3,3"). The
  * typed text is kept while focused; the parsed number goes to the form.
  */
 export function SiNumberField({ id, label, unit, value, onChange, onBlur, error, hint, percent = false, optional = false }: Props) {
@@ -36,23 +36,28 @@ export function SiNumberField({ id, label, unit, value, onChange, onBlur, error,
     // What was typed and does not read stays in the box beside its error, so it can be corrected.
     if (!focused && !Number.isNaN(value)) setText(show(value, unit, percent));
   }, [value, unit, percent, focused]);
+  const fieldUnit = percent ? '%' : unit;
+  // Text that does not read says which forms do, once the field is left (or the form checked).
+  const unreadable = text.trim() !== '' && parseSi(text, fieldUnit) === null;
+  const shownError =
+    unreadable && (error || !focused) ? `“${text.trim()}” does not read as a number. ${numberFormsHint(fieldUnit)}` : error;
 
   return (
-    <FieldShell id={id} label={label} unit={percent ? '%' : unit} error={error} hint={hint}>
+    <FieldShell id={id} label={label} unit={fieldUnit} error={shownError} hint={hint}>
       <input
         id={id}
         inputMode="decimal"
         autoComplete="off"
         spellCheck={false}
-        className={`${inputClass(error)} tabular-nums`}
+        className={`${inputClass(shownError)} tabular-nums`}
         value={text}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(id, hint, error)}
+        aria-invalid={shownError ? true : undefined}
+        aria-describedby={describedBy(id, hint, shownError)}
         onFocus={() => setFocused(true)}
         onChange={(event) => {
           setText(event.target.value);
           if (optional && event.target.value.trim() === '') return onChange(undefined);
-          const parsed = parseSi(event.target.value.replace(new RegExp(`${unit}$`), '').trim());
+          const parsed = parseSi(event.target.value, fieldUnit);
           onChange(parsed === null ? Number.NaN : percent ? parsed / 100 : parsed);
         }}
         onBlur={() => {

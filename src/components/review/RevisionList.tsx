@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
-import { formatDate } from '~/lib/platform/format';
+import { LocalTime } from '../ui/LocalTime';
 import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 
 export interface RevisionSummary {
@@ -39,7 +39,7 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
               <div>
                 <p className="font-semibold">{TOPOLOGY_NAMES[r.topology as TopologyId] ?? r.topology}</p>
                 <p className="text-ink-soft">
-                  {formatDate(Date.parse(r.createdAt))}
+                  <LocalTime at={r.createdAt} />
                   {r.author ? ` · ${r.author}` : ''}
                 </p>
                 {r.note && <p className="mt-1 whitespace-pre-line">“{r.note}”</p>}

@@ -11,7 +11,7 @@ import type { Trace } from './trace.ts';
 import { analyseTolerance, monteCarlo, toleranceVerdict } from './tolerance.ts';
 import type { Caution, Component, Fix, Issue, Junction, Option, PartDissipation, TopologyId } from './types.ts';
 import type { NoiseClass } from './rail-spec.ts';
-import { formatSi } from './units.ts';
+import { formatKPerW, formatSi } from './units.ts';
 
 const ZENER_ROLES = new Set(['zener', 'standoff-zener']);
 /** Monte Carlo draws for an option that can be built, and for one that is blocked (its histogram is a sketch). */
@@ -319,7 +319,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
           'heatsink',
           t.maxThetaSaCW === null
             ? `${p.ref} dissipates ${at}: no heatsink is good enough (needs < 0 K/W: its own θJC and the interface θCS already take it past ${limitC - catalog.thermal.tjMarginK} °C).`
-            : `${p.ref} dissipates ${at} and needs θSA ≤ ${t.maxThetaSaCW.toFixed(2)} K/W, beyond any heatsink in the catalog.`,
+            : `${p.ref} dissipates ${at} and needs θSA ≤ ${formatKPerW(t.maxThetaSaCW)}, beyond any heatsink in the catalog.`,
         ),
       );
       const fan = t.maxThetaSaCW === null ? null : forcedAirSink(t.maxThetaSaCW * airflow, ctx);
@@ -337,7 +337,7 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
       issues.push(
         caution(
           'heatsink-impractical',
-          `${p.ref} needs a heatsink of θSA ≤ ${(t.maxThetaSaCW ?? 0).toFixed(2)} K/W: impractical heatsink (large, costly or fan-cooled).`,
+          `${p.ref} needs a heatsink of θSA ≤ ${formatKPerW(t.maxThetaSaCW ?? 0)}: impractical heatsink (large, costly or fan-cooled).`,
         ),
       );
     }

@@ -6,7 +6,7 @@ import type { ComponentRole, Issue } from './types.ts';
 import { makePart, blocker, caution, type DesignPart } from './design.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from './ratings.ts';
 import { snap } from './eseries.ts';
-import { formatSi } from './units.ts';
+import { formatSi, lowerFirst } from './units.ts';
 
 /** Common practice: a capacitor works at no more than 80 % of its rated voltage (MLCC bias loss is counted separately). */
 export const CAPACITOR_VOLTAGE_FACTOR = SEMICONDUCTOR_VOLTAGE_FACTOR;
@@ -198,7 +198,7 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
   } else if (chosen.lifeHours !== null && chosen.lifeHours < LIFE_TARGET_H) {
     issue = caution(
       'capacitor-life',
-      `${ref} (${chosen.family.label}) lasts about ${Math.round(chosen.lifeHours).toLocaleString('en-GB')} h at ${need.ambientC} °C with ${need.rmsA.toFixed(2)} A RMS, short of ${LIFE_TARGET_H.toLocaleString('en-GB')} h; plan its replacement or choose a longer-life series.`,
+      `${ref} (${lowerFirst(chosen.family.label)}) lasts about ${Math.round(chosen.lifeHours).toLocaleString('en-GB')} h at ${need.ambientC} °C with ${need.rmsA.toFixed(2)} A RMS, short of ${LIFE_TARGET_H.toLocaleString('en-GB')} h; plan its replacement or choose a longer-life series.`,
     );
   }
   return {

@@ -12,7 +12,8 @@ export {
   type NoiseClass,
 } from './rail-spec.ts';
 export { catalogSchema, defaultCatalog, type Catalog } from './catalog.ts';
-export { formatSi, parseSi } from './units.ts';
+export { formatSi, numberFormsHint, parseSi } from './units.ts';
+export { classPhrase, formatKPerW, lowerFirst, shortBy } from './units.ts';
 export { E_SERIES, snap, type SeriesName } from './eseries.ts';
 export { toSpiceNetlist, type SpiceCorner } from './spice/index.ts';
 export * from './types.ts';

@@ -15,6 +15,20 @@ export function formatDateTime(value: Date | number): string {
   return `${formatDate(at)}, ${timeFormat.format(at)}`;
 }
 
+const localFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+  timeZoneName: 'short',
+});
+
+/** A date and time of day in the time zone of whoever runs it: in a browser, the viewer's. */
+export function formatLocalDateTime(value: Date | number): string {
+  return localFormat.format(value instanceof Date ? value : new Date(value));
+}
+
 export function formatMoney(minor: number, currency: string): string {
   const digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
   return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 10 ** digits);

@@ -27,6 +27,8 @@ function heading(title: string): Node {
 
 /** Rows kept on one page with their heading; longer blocks may break (a page holds about this many). */
 const KEEP_TOGETHER_ROWS = 18;
+/** About how many characters of body text fill a line across the page. */
+const CHARACTERS_PER_LINE = 110;
 
 /** A heading with the block it introduces, kept together when short so no heading ends a page alone. */
 function section(title: Node, block: Node, rows: number): Node {
@@ -246,23 +248,14 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
     ],
   };
 
-  const terms: Node[] = quote.terms.trim()
-    ? [
-        heading('Terms'),
-        {
-          ol: quote.terms
-            .split('\n')
-            .map((t) => t.trim())
-            .filter(Boolean)
-            .map((t) => text(t)),
-          color: SOFT,
-        },
-      ]
-    : [];
+  const termLines = quote.terms
+    .split('\n')
+    .map((t) => t.trim())
+    .filter(Boolean);
+  const terms: Node[] = termLines.length ? [heading('Terms'), { ol: termLines.map((t) => text(t)), color: SOFT }] : [];
 
   const accept: Node = {
     margin: [0, 18, 0, 0],
-    unbreakable: true,
     stack: [
       { text: 'Accept and pay the deposit', style: 'h2', margin: [0, 0, 0, 4] },
       text(
@@ -271,6 +264,9 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       { text: options.quoteUrl, link: options.quoteUrl, color: COPPER, decoration: 'underline', margin: [0, 4, 0, 0] },
     ],
   };
+  // The terms and where to accept read as one closing block: moved whole to the next page rather
+  // than split so that a last page holds a stray line or two.
+  const closingRows = termLines.reduce((n, t) => n + Math.ceil(t.length / CHARACTERS_PER_LINE), 0) + 6;
 
   return {
     pageSize: 'A4',
@@ -299,10 +295,8 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       section(heading('The rail you asked for'), pairs(view.requirements), view.requirements.length),
       ...designPart,
       safety,
-      section(heading('Price'), lines, view.lines.length),
-      totals,
-      ...terms,
-      accept,
+      section(heading('Price'), { stack: [lines, totals] }, view.lines.length + 4),
+      { stack: [...terms, accept], unbreakable: closingRows <= KEEP_TOGETHER_ROWS },
     ],
   };
 }

@@ -217,7 +217,7 @@ export async function quoteMailDelivery(quoteId: string): Promise<{ delivered: b
   const entry = await latestOutboxEntry(db, quoteId);
   if (!entry) return null;
   if (entry.state === 'sent')
-    return { delivered: true, message: `E-mailed to ${entry.toAddress} on ${formatDate(entry.sentAt ?? entry.createdAt)}.` };
+    return { delivered: true, message: `E-mailed to ${entry.toAddress} on ${formatDateTime(entry.sentAt ?? entry.createdAt)}.` };
   const reason = entry.lastError ? ` (${entry.lastError})` : '';
   if (entry.state === 'failed')
     return {

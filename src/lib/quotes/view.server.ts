@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import { agreedRequirementOf } from '~/lib/review';
 import type { Evaluation, Option } from '../engine/types';
-import { formatSi } from '../engine/units';
+import { formatKPerW, formatSi } from '../engine/units';
 import { chosenOption, TOPOLOGY_NAMES, percent } from '~/lib/review';
 import { ES1_DC_LIMIT_V } from '../engine/cautions';
 import { brief, clientProfile, designRevision, quote, user, type QuoteState } from '../platform/db/schema';
@@ -112,7 +112,7 @@ export function designSummary(option: Option): DesignSummary {
     {
       label: 'Heatsink',
       value: option.heatsink.required
-        ? `needed${option.heatsink.maxThetaSaCW !== null ? `, at most ${option.heatsink.maxThetaSaCW.toFixed(1)} °C/W` : ''}`
+        ? `needed${option.heatsink.maxThetaSaCW !== null ? `, at most ${formatKPerW(option.heatsink.maxThetaSaCW)}` : ''}`
         : 'not needed',
     },
     ...(hottest

@@ -92,24 +92,34 @@ export async function revisionNetlist(found: RevisionWithBrief): Promise<Netlist
   return { ok: true, text: `${header.join('\n')}\n${body}` };
 }
 
+/** A figure for a spreadsheet cell: four significant figures, so no binary float noise; '' when absent. */
+function cell(value: number | null | undefined): number | '' {
+  return value === null || value === undefined ? '' : Number(value.toPrecision(4));
+}
+
+/**
+ * The chosen parts as CSV for a spreadsheet: numeric columns in SI units (four significant
+ * figures) beside a readable value with its prefix and unit ("64 µF"). A UTF-8 byte-order mark
+ * leads, so spreadsheet programs read Ω and µ as UTF-8.
+ */
 export function partListCsv(option: Option, currency: string): string {
   const dissipation = new Map(option.dissipation.parts.map((p) => [p.ref, p]));
   const rows = option.components.map((c) => ({
     ref: c.ref,
     role: ROLE_NAMES[c.role],
     part: c.part,
-    value: c.value ?? '',
+    value: cell(c.value),
     unit: c.unit ?? '',
     value_text: componentValue(c),
     quantity: c.quantity,
-    rating_w: c.ratingW ?? '',
-    rating_v: c.ratingV ?? '',
-    tolerance: c.tolerance ?? '',
-    worst_w: dissipation.get(c.ref)?.maxW ?? '',
-    fault_w: dissipation.get(c.ref)?.faultW ?? '',
+    rating_w: cell(c.ratingW),
+    rating_v: cell(c.ratingV),
+    tolerance: cell(c.tolerance),
+    worst_w: cell(dissipation.get(c.ref)?.maxW),
+    fault_w: cell(dissipation.get(c.ref)?.faultW),
     cost_minor: c.costCents,
     currency,
   }));
   // Part labels come from the editable catalog: a cell that looks like a formula is neutralised.
-  return Papa.unparse(rows, { escapeFormulae: true, newline: '\r\n' }) + '\r\n';
+  return Papa.BYTE_ORDER_MARK + Papa.unparse(rows, { escapeFormulae: true, newline: '\r\n' }) + '\r\n';
 }

@@ -3,7 +3,7 @@
  * the revision comparison and the calculation sheet (browser-safe, pure).
  */
 import type { Component, Fix, Option } from '../engine/types';
-import { formatSi } from '../engine/units';
+import { formatKPerW, formatSi } from '../engine/units';
 import { formatMoney } from '../platform/format';
 import { percent } from './option-words';
 
@@ -27,7 +27,7 @@ export function heatsinkText(option: Pick<Option, 'heatsink'>): string {
   const theta = option.heatsink.maxThetaSaCW;
   if (theta === null) return 'Needed';
   if (theta <= 0) return 'Needed, not achievable (θSA ≤ 0)';
-  return `θSA ≤ ${formatSi(theta, 'K/W')}`;
+  return `θSA ≤ ${formatKPerW(theta)}`;
 }
 
 /** Whether the output band is met, and by which view of the spread. */

@@ -106,7 +106,14 @@ describe('part list export', () => {
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');
     expect(response.headers.get('content-disposition')).toContain(`-rev${revision.number}.csv"`);
-    const parsed = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true });
+    const bytes = new Uint8Array(await response.arrayBuffer());
+    // A UTF-8 byte-order mark first, so spreadsheet programs read Ω and µ right.
+    expect([...bytes.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+    const text = new TextDecoder('utf-8', { ignoreBOM: true }).decode(bytes).slice(1);
+    // No binary float noise (0.00006400000000000001): at most four significant figures.
+    for (const figure of text.match(/\d+\.\d+(?:e[+-]?\d+)?/g) ?? [])
+      expect(figure.replace(/^0\.0*|\.|e.*$/g, '').replace(/^0+/, '').length).toBeLessThanOrEqual(4);
+    const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     expect(parsed.meta.fields).toEqual([
       'ref',
@@ -125,10 +132,13 @@ describe('part list export', () => {
       'currency',
     ]);
     expect(parsed.data.map((r) => r.ref)).toEqual(chosen.components.map((c) => c.ref));
+    // Beside the numeric column, the value as a person reads it, prefix and unit included.
+    expect(parsed.data.filter((r) => /^\d+(?:\.\d+)? [kMmµnp]?Ω/.test(r.value_text ?? '')).length).toBeGreaterThan(0);
     for (const [k, row] of parsed.data.entries()) {
       const part = chosen.components[k]!;
       expect(row.part).toBe(part.part);
-      expect(row.value === '' ? null : Number(row.value)).toBe(part.value);
+      if (part.value === null) expect(row.value).toBe('');
+      else expect(Number(row.value)).toBeCloseTo(part.value, -Math.floor(Math.log10(Math.abs(part.value))) + 2);
       expect(row.currency).toBe('EUR');
     }
   });

@@ -68,6 +68,12 @@ function highVoltageView(): QuoteView {
   };
 }
 
+/** The view with `extra` more price lines, which moves the blocks after the price down the pages. */
+function withExtraLines(view: QuoteView, extra: number): QuoteView {
+  const more = Array.from({ length: extra }, (_, k) => ({ ...view.lines[0]!, id: `x${k}`, position: view.lines.length + k }));
+  return { ...view, lines: [...view.lines, ...more] };
+}
+
 function poppler(tool: 'pdftotext' | 'pdffonts', pdf: Buffer): string {
   const file = path.join(mkdtempSync(path.join(tmpdir(), 'railwright-pdf-')), 'quote.pdf');
   writeFileSync(file, pdf);
@@ -104,6 +110,34 @@ describe('the quote PDF', () => {
       expect(row).toMatch(/Manrope/);
       expect(row).toMatch(/\byes\s+yes\s+yes\b/); // embedded, subset, with a Unicode map
     }
+  });
+
+  test('the terms and the acceptance block stay together on one page, wherever the price ends', async () => {
+    const terms = DEFAULT_TERMS.split('\n').map((t) => t.slice(0, 40));
+    for (let extra = 0; extra <= 24; extra += 3) {
+      const pdf = await renderQuotePdf(withExtraLines(highVoltageView(), extra), { quoteUrl: 'https://railwright.test/quotes/q' });
+      const pages = poppler('pdftotext', pdf)
+        .split('\f')
+        .map((page) => page.replace(/\s+/g, ' '));
+      const at = pages.findIndex((page) => page.includes('Terms'));
+      expect(at, `${extra} extra lines`).toBeGreaterThanOrEqual(0);
+      for (const term of terms) expect(pages[at], `${extra} extra lines: ${term}`).toContain(term);
+      expect(pages[at], `${extra} extra lines`).toContain('Accept and pay the deposit');
+    }
+  }, 60_000);
+
+  test('a heatsink figure reads in K/W with two significant figures', () => {
+    const option = evaluate(
+      railSpecSchema.parse({
+        input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
+        output: { v: 150, tolerance: 0.02, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
+        noise: { class: 'sensor', maxRippleVpp: 0.01 },
+        thermal: { ambientMaxC: 35, airflow: 'still-air' },
+      }),
+      defaultCatalog,
+    ).options[0]!;
+    const summary = designSummary({ ...option, heatsink: { required: true, maxThetaSaCW: 0.36 } });
+    expect(summary.figures.find((r) => r.label === 'Heatsink')?.value).toBe('needed, at most 0.36 K/W');
   });
 
   test('characters go to the font subset that draws them', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { fixText, toleranceText } from '~/lib/review/figures';
+import { fixText, heatsinkText, toleranceText } from '~/lib/review/figures';
 
 const spread = { worstCase: { min: 3.2, max: 3.4 }, statistical: { sigma: 0.01, yield: 0.999 } };
 
@@ -19,5 +19,10 @@ describe('how an option’s fixes and tolerance read', () => {
     expect(toleranceText(blocked)).toBe('not met');
     expect(toleranceText({ issues: [], tolerance: { ...spread, rule: 'worst-case' } })).toBe('met in the worst case');
     expect(toleranceText({ issues: [], tolerance: { ...spread, rule: 'statistical' } })).toBe('met statistically (±3σ) only');
+  });
+
+  test('a heatsink figure is in K/W, never with a milli prefix', () => {
+    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 0.36 } })).toBe('θSA ≤ 0.36 K/W');
+    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 14.26 } })).toBe('θSA ≤ 14.3 K/W');
   });
 });

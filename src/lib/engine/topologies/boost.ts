@@ -31,6 +31,7 @@ import {
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
+import { classPhrase } from '../units.ts';
 
 export interface BoostPoint {
   mode: ConductionMode;
@@ -195,7 +196,7 @@ function sizeBoost(
     findings.push(
       finding(
         'duty',
-        `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz.`,
+        `The duty cycle at the lowest input would be ${(low.d * 100).toFixed(0)} %; ${classPhrase(stage.label)} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz.`,
         `input ≥ ${need.toFixed(2)} V`,
       ),
     );

@@ -34,6 +34,7 @@ import {
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
+import { classPhrase } from '../units.ts';
 
 export type BuckBoostRegion = 'buck' | 'transition' | 'boost';
 
@@ -207,7 +208,7 @@ function sizeBuckBoost(
     findings.push(
       finding(
         'duty',
-        `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(low.dBoost * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} %.`,
+        `At the input trough ${vLow.toFixed(2)} V the boost duty cycle would be ${(low.dBoost * 100).toFixed(0)} %; ${classPhrase(stage.label)} reaches ${(window.dMax * 100).toFixed(0)} %.`,
         `input ≥ ${((vOut * (1 - window.dMax) * low.pInW) / Math.max(low.pOutW, 1e-9)).toFixed(2)} V`,
       ),
     );

@@ -34,6 +34,7 @@ import {
   type SizingBase,
   type StageRefs,
 } from './switcher.ts';
+import { classPhrase } from '../units.ts';
 
 export interface BuckPoint {
   mode: ConductionMode;
@@ -194,7 +195,7 @@ export function sizeBuck(
     findings.push(
       finding(
         'headroom',
-        `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(low.d * 100).toFixed(0)} %; ${stage.label} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz (Dmax and the ${(stage.tOffMinS * 1e9).toFixed(0)} ns minimum off-time).`,
+        `At the input trough ${input.vTrough.toFixed(2)} V the duty cycle would be ${(low.d * 100).toFixed(0)} %; ${classPhrase(stage.label)} reaches ${(window.dMax * 100).toFixed(0)} % at ${(fsw / 1e3).toFixed(0)} kHz (Dmax and the ${(stage.tOffMinS * 1e9).toFixed(0)} ns minimum off-time).`,
         `input ≥ ${need.toFixed(2)} V`,
       ),
     );
@@ -252,7 +253,12 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   const { stage, fsw, inductor, cout, cin, high } = s;
   const sync = stage.rectification === 'sync';
   if (spec.overrides.fswHz !== undefined && spec.overrides.fswHz !== fsw) {
-    issues.push(info('fsw-clamped', `${stage.label} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`));
+    issues.push(
+      info(
+        'fsw-clamped',
+        `${classPhrase(stage.label, true)} runs between ${stage.fswMinHz} and ${stage.fswMaxHz} Hz; the engine used ${fsw} Hz.`,
+      ),
+    );
   }
 
   trace.add(
@@ -372,7 +378,7 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     issues.push(
       info(
         'fault-protected',
-        `${stage.label} limits its switch current to about ${lim} A and shuts down when overheated; ${inductor.part.ref} (Isat ${inductor.isatA} A) stays out of saturation, so a shorted output is survived.`,
+        `${classPhrase(stage.label, true)} limits its switch current to about ${lim} A and shuts down when overheated; ${inductor.part.ref} (Isat ${inductor.isatA} A) stays out of saturation, so a shorted output is survived.`,
       ),
     );
   } else {

@@ -26,7 +26,7 @@ import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { airflowFactor, assessThermal, type ThermalPart } from '../thermal.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { formatSi, shortBy } from '../units.ts';
 import { dynamicImpedance, seriesFor, seriesForPower, zenerModel, zenerVoltage, zenerVoltageUp } from '../zeners.ts';
 import { COLD_AMBIENT_C } from '../tolerance.ts';
 import {
@@ -627,7 +627,9 @@ function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass 
     issues.push(
       blocker(
         'standoff',
-        `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}); it needs ${cls.dropoutV} V.`,
+        regHeadroom < 0
+          ? `The standoff leaves no headroom across the regulator at full load: it is ${shortBy(regHeadroom - cls.dropoutV)} of the ${cls.dropoutV} V the regulator needs (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}).`
+          : `The standoff leaves ${regHeadroom.toFixed(2)} V across the regulator at full load (the Zener at ${formatSi(izMin, 'A', 2)} holds ${formatSi(vzWork, 'V', 3)}); it needs ${cls.dropoutV} V.`,
       ),
     );
   }

@@ -30,7 +30,7 @@ import {
 } from '../tolerance.ts';
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { classPhrase, formatSi } from '../units.ts';
 import { dividerOutputModel, searchDivider, type DividerDesign } from './feedback.ts';
 import { LOSS_CENTS_PER_W } from './switcher.ts';
 import { MAINS_RIPPLE_HZ, NOISE_BAND_HZ, NOISE_CREST_FACTOR, outputNoiseRms, rippleRejectionDb } from './regulator-noise.ts';
@@ -100,7 +100,7 @@ export function checkClass(
     out.push(
       blocker(
         'current',
-        `${cls.label} is rated ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`,
+        `${classPhrase(cls.label, true)} delivers at most ${cls.iOutMaxA} A; the load and divider need ${formatSi(iMax + iDiv, 'A', 3)}, more than the ${CURRENT_DERATING * 100} % of rating used in practice.`,
       ),
     );
   }
@@ -109,7 +109,7 @@ export function checkClass(
     out.push(
       blocker(
         'headroom',
-        `${cls.label} needs ${formatSi(dropout, 'V', 3)} of headroom at ${formatSi(iMax + iDiv, 'A', 3)} above its highest output ${vOutHigh.toFixed(3)} V, so at least ${(vOutHigh + dropout).toFixed(2)} V in; the input trough is ${input.vTrough.toFixed(2)} V.`,
+        `${classPhrase(cls.label, true)} needs ${formatSi(dropout, 'V', 3)} of headroom at ${formatSi(iMax + iDiv, 'A', 3)} above its highest output ${vOutHigh.toFixed(3)} V, so at least ${(vOutHigh + dropout).toFixed(2)} V in; the input trough is ${input.vTrough.toFixed(2)} V.`,
       ),
     );
   }
@@ -117,7 +117,7 @@ export function checkClass(
     out.push(
       blocker(
         'differential',
-        `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${cls.label} allows ${cls.vDiffMaxV} V.`,
+        `The input-output differential reaches ${(input.vMax - vOut).toFixed(1)} V; ${classPhrase(cls.label)} allows ${cls.vDiffMaxV} V.`,
       ),
     );
   } else if (cls.vDiffMaxV !== null && !input.tracksOutput && input.vMax > cls.vDiffMaxV) {
@@ -126,15 +126,15 @@ export function checkClass(
     out.push(
       blocker(
         'differential-short',
-        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${formatSi(input.vMax, 'V', 3)} input stands across ${cls.label}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
+        `With the output shorted, or while a discharged output capacitor charges at switch-on, the whole ${formatSi(input.vMax, 'V', 3)} input stands across ${classPhrase(cls.label)}, which allows ${cls.vDiffMaxV} V: a pre-drop stage must take the rest.`,
       ),
     );
   }
   if (cls.vInMaxV !== null && input.vMax > cls.vInMaxV) {
-    out.push(blocker('input-max', `The input reaches ${input.vMax} V; ${cls.label} allows ${cls.vInMaxV} V.`));
+    out.push(blocker('input-max', `The input reaches ${input.vMax} V; ${classPhrase(cls.label)} allows ${cls.vInMaxV} V.`));
   }
   if (cls.kind !== 'fixed' && vOut < cls.vRefV) {
-    out.push(blocker('below-reference', `${cls.label} cannot regulate below its ${cls.vRefV} V reference.`));
+    out.push(blocker('below-reference', `${classPhrase(cls.label, true)} cannot regulate below its ${cls.vRefV} V reference.`));
   }
   if (!cls.heatsinkable) {
     const p = (input.vMax - vOut) * (iMax + Math.max(cls.minLoadA, iDiv)) + input.vMax * cls.iqA;
@@ -143,7 +143,7 @@ export function checkClass(
       out.push(
         blocker(
           'thermal',
-          `${cls.label} cannot take a heatsink and would pass its ${cls.tjMaxC - ctx.catalog.thermal.tjMarginK} °C design limit at ${p.toFixed(2)} W.`,
+          `${classPhrase(cls.label, true)} cannot take a heatsink and would pass its ${cls.tjMaxC - ctx.catalog.thermal.tjMarginK} °C design limit at ${p.toFixed(2)} W.`,
         ),
       );
     }
@@ -393,7 +393,7 @@ function inputFilterFix(ctx: Context, chosen: ClassDesign, input: StageInput, iM
     code: 'ripple',
     change: `input RC filter ${formatSi(rOhm, 'Ω', 2)} + ${formatSi(cap.farads, 'F', 2)}`,
     costCents: cap.part.costCents + resistorCents(ctx.catalog, rW),
-    message: `${chosen.cls.label} rejects ${chosen.psrrDb.toFixed(0)} dB of the input ripple, leaving ${formatSi(chosen.rippleOutVpp, 'V', 2)} p-p against the ${formatSi(ctx.spec.noise.maxRippleVpp, 'V', 2)} limit. A ${formatSi(rOhm, 'Ω', 2)} resistor (${rW} W, dropping ${formatSi(rOhm * iIn, 'V', 2)} at full load) and ${formatSi(cap.farads, 'F', 2)} ahead of it take a further ${(20 * Math.log10(k)).toFixed(0)} dB off the ${fHz} Hz ripple.`,
+    message: `${classPhrase(chosen.cls.label, true)} rejects ${chosen.psrrDb.toFixed(0)} dB of the input ripple, leaving ${formatSi(chosen.rippleOutVpp, 'V', 2)} p-p against the ${formatSi(ctx.spec.noise.maxRippleVpp, 'V', 2)} limit. A ${formatSi(rOhm, 'Ω', 2)} resistor (${rW} W, dropping ${formatSi(rOhm * iIn, 'V', 2)} at full load) and ${formatSi(cap.farads, 'F', 2)} ahead of it take a further ${(20 * Math.log10(k)).toFixed(0)} dB off the ${fHz} Hz ripple.`,
   };
 }
 
@@ -414,7 +414,7 @@ function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: 
       code: 'headroom',
       change: `input trough at least ${need.toFixed(2)} V`,
       costCents: best.costCents - chosen.costCents,
-      message: `Needs ≥ ${need.toFixed(2)} V input at the trough with ${best.cls.label} (highest output ${(need - best.dropoutV).toFixed(3)} V + ${formatSi(best.dropoutV, 'V', 3)} dropout at full load); the trough is ${input.vTrough.toFixed(2)} V.`,
+      message: `Needs ≥ ${need.toFixed(2)} V input at the trough with ${classPhrase(best.cls.label)} (highest output ${(need - best.dropoutV).toFixed(3)} V + ${formatSi(best.dropoutV, 'V', 3)} dropout at full load); the trough is ${input.vTrough.toFixed(2)} V.`,
     });
   }
   if (chosen.verdict === 'fails') {
@@ -429,7 +429,7 @@ function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: 
       code: 'tolerance',
       change: `tolerance ${pct(Math.ceil(reach(tightest) * 1000) / 1000)}`,
       costCents: tightest.costCents - chosen.costCents,
-      message: `The tightest output reachable is ${pct(reach(tightest))} (${tightest.cls.label}, the ${pct(tightest.refTolerance)} reference${grade}); relax the tolerance to that, or fit a reference outside the catalog.`,
+      message: `The tightest output reachable is ${pct(reach(tightest))} (${classPhrase(tightest.cls.label)}, the ${pct(tightest.refTolerance)} reference${grade}); relax the tolerance to that, or fit a reference outside the catalog.`,
     });
   }
   if (clean.length > 0 && blockerCount(chosen) > 0) {
@@ -438,7 +438,7 @@ function fixesFor(ctx: Context, chosen: ClassDesign, all: ClassDesign[], input: 
       code: 'class',
       change: `regulator class ${alt.cls.id}`,
       costCents: alt.costCents - chosen.costCents,
-      message: `${alt.cls.label} meets the rail${alt.extraCents > 0 ? ' with its dearer grades' : ''}.`,
+      message: `${classPhrase(alt.cls.label, true)} meets the rail${alt.extraCents > 0 ? ' with its dearer grades' : ''}.`,
     });
   }
   return fixes;
@@ -502,7 +502,9 @@ export function regulatorStage(
   const issues: Issue[] = [...d.failures];
   const fixes = fixesFor(ctx, d, designs, input, iMax);
   if (forcedClassId !== undefined && !wanted) {
-    issues.push(info('class-unknown', `The catalog has no regulator class "${forcedClassId}"; the engine chose ${cls.label}.`));
+    issues.push(
+      info('class-unknown', `The catalog has no regulator class "${forcedClassId}"; the engine chose ${classPhrase(cls.label)}.`),
+    );
   }
   const refCents = d.extraCents - (d.divider ? 2 * d.divider.grade.extraCents : 0);
   const parts: DesignPart[] = [
@@ -546,10 +548,12 @@ export function regulatorStage(
     );
     issues.push(info('divider-search', divider.why));
   } else if (r1Ref) {
-    issues.push(info('divider-unused', `${cls.label} presets the output; ${r1Ref} and ${r2Ref} are not fitted.`));
+    issues.push(info('divider-unused', `${classPhrase(cls.label, true)} presets the output; ${r1Ref} and ${r2Ref} are not fitted.`));
   }
   if ((forcedR.r1 !== undefined || forcedR.r2 !== undefined) && !divider) {
-    issues.push(info('forced-unused', `The forced divider value is not used: ${cls.label} presets its output and has no divider.`));
+    issues.push(
+      info('forced-unused', `The forced divider value is not used: ${classPhrase(cls.label)} presets its output and has no divider.`),
+    );
   }
   trace.select(
     `${regRef}.sigma`,
@@ -628,7 +632,7 @@ export function regulatorStage(
     issues.push(
       caution(
         'cout-min',
-        `${cls.label} needs at least ${formatSi(cls.coutMinF, 'F', 2)} on its output for stability; the forced ${formatSi(cout.farads, 'F', 2)} is below it.`,
+        `${classPhrase(cls.label, true)} needs at least ${formatSi(cls.coutMinF, 'F', 2)} on its output for stability; the forced ${formatSi(cout.farads, 'F', 2)} is below it.`,
       ),
     );
   }
@@ -641,14 +645,14 @@ export function regulatorStage(
     issues.push(
       info(
         'esr-resistor',
-        `${cls.label} is stable only with ${cls.esrMinOhm}–${cls.esrMaxOhm ?? '∞'} Ω of output ESR; ${cout.part.ref} has about ${cout.esrOhm.toFixed(3)} Ω, so ${esrRef} (${rEsr} Ω) is placed in series with it. It carries only the capacitor's AC current: its DC loss is nil.`,
+        `${classPhrase(cls.label, true)} is stable only with ${cls.esrMinOhm}–${cls.esrMaxOhm ?? '∞'} Ω of output ESR; ${cout.part.ref} has about ${cout.esrOhm.toFixed(3)} Ω, so ${esrRef} (${rEsr} Ω) is placed in series with it. It carries only the capacitor's AC current: its DC loss is nil.`,
       ),
     );
   } else if (cls.esrMaxOhm !== null && cout.esrOhm > cls.esrMaxOhm) {
     issues.push(
       caution(
         'esr-high',
-        `${cout.part.ref}'s ESR of about ${cout.esrOhm.toFixed(2)} Ω exceeds the ${cls.esrMaxOhm} Ω ${cls.label} stays stable with; use a lower-ESR capacitor.`,
+        `${cout.part.ref}'s ESR of about ${cout.esrOhm.toFixed(2)} Ω exceeds the ${cls.esrMaxOhm} Ω that ${classPhrase(cls.label)} stays stable with; use a lower-ESR capacitor.`,
       ),
     );
   }

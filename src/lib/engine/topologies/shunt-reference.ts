@@ -10,7 +10,7 @@ import { RATING_FACTOR } from '../ratings.ts';
 import { temperatureSwingK } from '../tolerance.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
-import { formatSi } from '../units.ts';
+import { classPhrase, formatSi } from '../units.ts';
 import { searchDivider } from './feedback.ts';
 
 /** Divider current: a hundred times the reference-input current keeps its error near 1 % of R2's (common practice). */
@@ -31,12 +31,13 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   const r1Ref = refs.next('R');
   const r2Ref = refs.next('R');
 
-  if (vTarget < ref.vRefV) issues.push(blocker('below-reference', `${ref.label} cannot hold a rail below its ${ref.vRefV} V reference.`));
+  if (vTarget < ref.vRefV)
+    issues.push(blocker('below-reference', `${classPhrase(ref.label, true)} cannot hold a rail below its ${ref.vRefV} V reference.`));
   if (vTarget > ref.vKaMaxV / 1.25)
     issues.push(
       blocker(
         'input-max',
-        `${ref.label} allows ${ref.vKaMaxV} V on its cathode; a ${vTarget} V rail needs ${(1.25 * vTarget).toFixed(0)} V with margin.`,
+        `${classPhrase(ref.label, true)} allows ${ref.vKaMaxV} V on its cathode; a ${vTarget} V rail needs ${(1.25 * vTarget).toFixed(0)} V with margin.`,
       ),
     );
 
@@ -129,7 +130,7 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
     issues.push(
       blocker(
         'reference-current',
-        `${ref.label} would sink ${formatSi(ikWorst, 'A', 3)} at the highest input and lightest load; it allows ${formatSi(ref.iKMaxA, 'A', 3)}.`,
+        `${classPhrase(ref.label, true)} would sink ${formatSi(ikWorst, 'A', 3)} at the highest input and lightest load; it allows ${formatSi(ref.iKMaxA, 'A', 3)}.`,
       ),
     );
   if (pRef * RATING_FACTOR > ref.powerW)

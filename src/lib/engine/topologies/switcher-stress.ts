@@ -29,6 +29,7 @@ import {
   type StageRefs,
   type StageRequest,
 } from './switcher.ts';
+import { classPhrase } from '../units.ts';
 
 /** Losses of a corner that load the converter IC and the inductor. */
 interface CornerLosses {
@@ -112,7 +113,7 @@ export function rectifierFinding(ctx: Context, stage: SwitcherClass, rectifierW:
   if (tjC <= limit) return null;
   return finding(
     'thermal',
-    `The ${stage.label}'s diode would reach ${tjC > diode.tjMaxC ? `beyond its ${diode.tjMaxC} °C limit` : `about ${tjC.toFixed(0)} °C`} at its ${rectifierW.toFixed(2)} W full-load loss, above the ${limit} °C design limit.`,
+    `The diode of ${classPhrase(stage.label)} would reach ${tjC > diode.tjMaxC ? `beyond its ${diode.tjMaxC} °C limit` : `about ${tjC.toFixed(0)} °C`} at its ${rectifierW.toFixed(2)} W full-load loss, above the ${limit} °C design limit.`,
     'a synchronous class (no diode to heat), a lower load, or more airflow',
   );
 }

@@ -22,6 +22,7 @@ import { temperatureSwingK, type ToleranceModel, type ToleranceParam, type Toler
 import type { Trace } from '../trace.ts';
 import type { Issue, Quantity } from '../types.ts';
 import { searchDivider, type DividerDesign } from './feedback.ts';
+import { classPhrase } from '../units.ts';
 
 /** Inductor ripple current as a fraction of the reference current (common practice 0.2–0.4). */
 export const RIPPLE_RATIO = 0.3;
@@ -108,7 +109,7 @@ export function classVoltageFindings(
     out.push(
       finding(
         'input-max',
-        `The input reaches ${vInMax} V; ${stage.label} is rated ${stage.vInMaxV} V, so with the ${f}× voltage derating it takes at most ${deratedLimit(stage.vInMaxV).toFixed(1)} V.`,
+        `The input reaches ${vInMax} V; ${classPhrase(stage.label)} has a ${stage.vInMaxV} V input rating, so with the ${f}× voltage derating it takes at most ${deratedLimit(stage.vInMaxV).toFixed(1)} V.`,
         `a ${stage.converter} class rated ≥ ${Math.ceil(f * vInMax)} V input`,
       ),
     );
@@ -117,7 +118,7 @@ export function classVoltageFindings(
     out.push(
       finding(
         'switch-voltage',
-        `The switch sees ${switchNodeV.toFixed(1)} V; ${stage.label}'s ${switchRatingV} V switch takes at most ${deratedLimit(switchRatingV).toFixed(1)} V with the ${f}× derating.`,
+        `The switch sees ${switchNodeV.toFixed(1)} V; the ${switchRatingV} V switch of ${classPhrase(stage.label)} takes at most ${deratedLimit(switchRatingV).toFixed(1)} V with the ${f}× derating.`,
         `a ${stage.converter} class with a switch rated ≥ ${Math.ceil(f * switchNodeV)} V`,
       ),
     );
@@ -126,7 +127,7 @@ export function classVoltageFindings(
     out.push(
       finding(
         'input-min',
-        `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V ${stage.label} needs.`,
+        `The input trough ${vTrough.toFixed(2)} V is below the ${stage.vInMinV} V that ${classPhrase(stage.label)} needs.`,
         `input ≥ ${stage.vInMinV} V`,
       ),
     );
@@ -134,7 +135,7 @@ export function classVoltageFindings(
     out.push(
       finding(
         'output-max',
-        `${stage.label} regulates up to ${stage.vOutMaxV} V.`,
+        `${classPhrase(stage.label, true)} regulates up to ${stage.vOutMaxV} V.`,
         `a ${stage.converter} class regulating ${vOut.toFixed(2)} V`,
       ),
     );
@@ -142,7 +143,7 @@ export function classVoltageFindings(
     out.push(
       finding(
         'output-min',
-        `${stage.label} cannot regulate below its ${stage.vFbV} V feedback reference.`,
+        `${classPhrase(stage.label, true)} cannot regulate below its ${stage.vFbV} V feedback reference.`,
         `a ${stage.converter} class with a feedback reference ≤ ${vOut.toFixed(2)} V`,
       ),
     );
@@ -158,7 +159,7 @@ export function peakFinding(stage: SwitcherClass, peakA: number): Finding | null
   if (peakA <= LIMIT_HEADROOM * stage.iSwitchMaxA) return null;
   return finding(
     'current',
-    `The peak current ${peakA.toFixed(2)} A exceeds ${LIMIT_HEADROOM * 100} % of the ${stage.iSwitchMaxA} A current limit of ${stage.label}.`,
+    `The peak current ${peakA.toFixed(2)} A exceeds ${LIMIT_HEADROOM * 100} % of the ${stage.iSwitchMaxA} A current limit of ${classPhrase(stage.label)}.`,
     `a class with a current limit ≥ ${(peakA / LIMIT_HEADROOM).toFixed(1)} A`,
   );
 }
@@ -169,7 +170,7 @@ export function onTimeFinding(stage: SwitcherClass, fsw: number, d: number, wher
   const can = fMax >= stage.fswMinHz;
   return finding(
     'min-on-time',
-    `${where} the on-time D/fsw = ${((d / fsw) * 1e9).toFixed(0)} ns is below the ${(stage.tOnMinS * 1e9).toFixed(0)} ns minimum of ${stage.label}; the converter would skip pulses.`,
+    `${where} the on-time D/fsw = ${((d / fsw) * 1e9).toFixed(0)} ns is below the ${(stage.tOnMinS * 1e9).toFixed(0)} ns minimum of ${classPhrase(stage.label)}; the converter would skip pulses.`,
     can ? `fsw ≤ ${(fMax / 1e3).toFixed(0)} kHz` : 'a class with a shorter minimum on-time, or a two-stage design',
   );
 }
@@ -192,7 +193,7 @@ export function thermalFinding(ctx: Context, stage: SwitcherClass, tjC: number):
   if (tjC <= limit) return null;
   return finding(
     'thermal',
-    `${stage.label} would reach about ${tjC >= stage.tjMaxC ? `its ${stage.tjMaxC} °C limit` : `${tjC.toFixed(0)} °C`} at full load, above the ${limit} °C design limit.`,
+    `${classPhrase(stage.label, true)} would reach about ${tjC >= stage.tjMaxC ? `its ${stage.tjMaxC} °C limit` : `${tjC.toFixed(0)} °C`} at full load, above the ${limit} °C design limit.`,
     'a larger class (lower θJA), a lower switching frequency, or more airflow',
   );
 }
@@ -836,7 +837,7 @@ export function sizingIssues(s: SizingBase): { issues: Issue[]; fixes: Fix[] } {
   issues.push(
     info(
       'switcher-class',
-      `${s.stage.label} at ${(s.fsw / 1e3).toFixed(0)} kHz: the cheapest class and frequency meeting the requirements (parts plus ${LOSS_CENTS_PER_W} ¢ per watt lost). Figures ${s.stage.source}.`,
+      `${classPhrase(s.stage.label, true)}, at ${(s.fsw / 1e3).toFixed(0)} kHz: the cheapest class and frequency meeting the requirements (parts plus ${LOSS_CENTS_PER_W} ¢ per watt lost). Figures ${s.stage.source}.`,
     ),
   );
   return { issues, fixes: s.findings.flatMap((f) => (f.fix ? [f.fix] : [])) };
