@@ -3,7 +3,7 @@
  * colleague or client, deactivate and reactivate an account, send a reset link.
  * Every e-mail is queued in the transaction of the change it tells of.
  */
-import { count, eq, or, sql } from 'drizzle-orm';
+import { count, desc, eq, or, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { changeRole } from './accounts.server';
 import { INVITE_LINK_SECONDS, inviteMail } from './mail.server';
@@ -50,7 +50,7 @@ export const peopleSearchSchema = z.object({
   page: z.coerce.number().int().min(1).catch(1),
 });
 
-/** People whose name or e-mail contains the words typed, oldest account first, a page at a time. */
+/** People whose name or e-mail contains the words typed, newest account first, a page at a time. */
 export async function searchPeople(query: z.infer<typeof peopleSearchSchema>) {
   const pattern = `%${query.q.toLowerCase().replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
   const match = query.q
@@ -73,7 +73,7 @@ export async function searchPeople(query: z.infer<typeof peopleSearchSchema>) {
     .from(user)
     .leftJoin(clientProfile, eq(clientProfile.userId, user.id))
     .where(match)
-    .orderBy(user.createdAt, user.id)
+    .orderBy(desc(user.createdAt), desc(user.id))
     .limit(PEOPLE_PAGE_SIZE)
     .offset((page - 1) * PEOPLE_PAGE_SIZE);
   return { people, total, page, pages };

@@ -1,7 +1,7 @@
 import { eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
-import { FIELD_PREFIX, readableIssue, readClassForm } from './class-form';
+import { classFields, FIELD_PREFIX, readableIssue, readClassForm } from './class-form';
 import { kindName, lookOf } from './field-look';
 import { CLASS_LISTS, catalogSchema, defaultCatalog, type Catalog, type ClassList } from '../engine/catalog';
 import { catalogToRows, draftFromRows, rowsToCatalog, upgradedRows, type DeviceClassRow } from './rows';
@@ -119,7 +119,14 @@ function changeOf(action: CatalogAction, target: Row | undefined, rows: readonly
   switch (action.intent) {
     case 'edit': {
       const read = readClassForm(kind, target.params, formFields(action));
-      if (read.issues.length > 0) return invalidInput('invalid_device_class', read.issues);
+      const [first] = read.issues;
+      if (first) {
+        const label = classFields(kind, target.params).find((field) => field.name === first.path)?.label ?? 'a figure';
+        return refuse('invalid', `Not saved: ${target.name} — ${label}: ${lowerFirst(first.message)}`, {
+          code: 'invalid_device_class',
+          issues: read.issues,
+        });
+      }
       return succeed({ id, kind, params: read.params });
     }
     case 'json':
@@ -139,6 +146,8 @@ function changeOf(action: CatalogAction, target: Row | undefined, rows: readonly
     }
   }
 }
+
+const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1);
 
 const isClassList = (kind: string): kind is ClassList => (CLASS_LISTS as readonly string[]).includes(kind);
 

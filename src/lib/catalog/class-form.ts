@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { CLASS_LISTS, catalogSchema } from '../engine/catalog';
+import { formatSi, parseSi } from '../engine/units';
 import type { FieldIssue } from '../platform/outcome';
 import { GROUP_LOOK, lookOf } from './field-look';
 
@@ -113,12 +114,21 @@ export function classFields(kind: string, params: unknown, typed: Readonly<Recor
   return fields;
 }
 
-/** A figure as typed: plain or exponent notation, a decimal comma allowed ("0,47", "4.7e-5"). */
+/** A figure as typed: plain, exponent or SI-prefix notation, a decimal comma allowed ("0,47", "4.7e-5", "47µ", "4k7", "1 M"). */
 export function readNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/\s/g, '').replace(',', '.');
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned)) return null;
-  const value = Number(cleaned);
-  return Number.isFinite(value) ? value : null;
+  return parseSi(text.replace(/\s/g, '').replace(',', '.'));
+}
+
+/** Units an SI prefix reads well with; a figure in one of them also shows as "= 2.2 MHz". */
+const PREFIXED_UNITS = new Set(['V', 'A', 'W', 'F', 'H', 'Hz', 's', 'Ω', 'C', 'T']);
+
+/** The stored figure with an SI prefix, when that reads differently from the plain number. */
+export function prefixedReading(field: Pick<ClassField, 'type' | 'unit' | 'value'>): string | null {
+  if (field.type !== 'number' || !field.unit || !PREFIXED_UNITS.has(field.unit)) return null;
+  const value = readNumber(field.value);
+  if (value === null || value === 0) return null;
+  const reading = formatSi(value, field.unit, 4);
+  return reading === `${value} ${field.unit}` ? null : `= ${reading}`;
 }
 
 const sentence = (message: string) => message.charAt(0).toUpperCase() + message.slice(1);
@@ -148,7 +158,7 @@ export function readClassForm(
       } else {
         next = readNumber(typed);
         if (next === null)
-          issues.push({ path: field.name, message: `“${typed.trim()}” is not a number; write it like 0.47, 0,47 or 4.7e-5 (SI units).` });
+          issues.push({ path: field.name, message: `“${typed.trim()}” is not a number; write it like 0.47, 0,47, 4.7e-5 or 47µ.` });
       }
     } else next = typed.trim();
     if (field.name === ROOT_FIELD) params = next;

@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { catalogToRows } from '../../../src/lib/catalog/rows';
-import { classFields, readClassForm, readNumber } from '../../../src/lib/catalog/class-form';
+import { classFields, prefixedReading, readClassForm, readNumber } from '../../../src/lib/catalog/class-form';
 import { FIELD_LOOK } from '../../../src/lib/catalog/field-look';
 import { defaultCatalog } from '../../../src/lib/engine/catalog';
 
@@ -17,7 +17,13 @@ describe('a device class as a form', () => {
       const fields = classFields(row.kind, row.params);
       expect(fields.length, row.id).toBeGreaterThan(0);
       for (const field of fields) {
-        const key = field.name === 'f.value' ? row.kind : field.name.split('.').filter((p) => !/^\d+$/.test(p)).at(-1);
+        const key =
+          field.name === 'f.value'
+            ? row.kind
+            : field.name
+                .split('.')
+                .filter((p) => !/^\d+$/.test(p))
+                .at(-1);
         expect(FIELD_LOOK[key ?? ''], field.name).toBeDefined();
       }
       const read = readClassForm(row.kind, row.params, asPosted(row.kind, row.params));
@@ -62,11 +68,21 @@ describe('a device class as a form', () => {
     expect(fraction.issues).toEqual([{ path: 'f.costCents', message: 'Enter a whole number.' }]);
   });
 
+  test('a figure in an SI unit also shows with its prefix', () => {
+    expect(prefixedReading({ type: 'number', unit: 'Hz', value: '2200000' })).toBe('= 2.2 MHz');
+    expect(prefixedReading({ type: 'number', unit: 'F', value: '1.5e-10' })).toBe('= 150 pF');
+    expect(prefixedReading({ type: 'number', unit: 'V', value: '5.5' })).toBeNull();
+    expect(prefixedReading({ type: 'number', unit: 'K/W', value: '0.5' })).toBeNull();
+  });
+
   test('numbers are read as a practitioner writes them', () => {
     expect(readNumber('4.7e-5')).toBe(4.7e-5);
     expect(readNumber(' 0,47 ')).toBe(0.47);
     expect(readNumber('1 000')).toBe(1000);
-    expect(readNumber('3v3')).toBeNull();
+    expect(readNumber('47µ')).toBe(4.7e-5);
+    expect(readNumber('2.2M')).toBe(2.2e6);
+    expect(readNumber('4k7')).toBe(4700);
+    expect(readNumber('lots')).toBeNull();
     expect(readNumber('')).toBeNull();
   });
 });
