@@ -14,7 +14,7 @@ import { issuePasswordToken, RESET_LINK_SECONDS } from '../platform/auth/passwor
 import { passwordResetMail } from '../platform/auth/reset-mail';
 import { ROLES, type Role } from '../platform/auth/roles';
 import { db } from '../platform/db';
-import { clientProfile, session, user } from '../platform/db/schema';
+import { account, clientProfile, session, user } from '../platform/db/schema';
 import { deliverQueuedMail } from '../platform/mail/mailer';
 import { enqueueMail } from '../platform/mail/outbox';
 import { refuse, succeed, type Outcome } from '../platform/outcome';
@@ -68,6 +68,11 @@ export async function searchPeople(query: z.infer<typeof peopleSearchSchema>) {
       role: user.role,
       createdAt: user.createdAt,
       deactivated: user.banned,
+      // An invited person has no password until the invitation's link is used.
+      invited:
+        sql<boolean>`not exists (select 1 from ${account} where ${account.userId} = ${user.id} and ${account.providerId} = 'credential')`.mapWith(
+          Boolean,
+        ),
       company: clientProfile.company,
     })
     .from(user)

@@ -101,6 +101,7 @@ describe('people (admin)', () => {
     const token = tokenIn(mail.text);
     expect(token).not.toBe('');
     expect(await signInStatus(email, 'invited-password-1')).toBe(401);
+    expect(await (await admin.request(`/admin/users?q=${encodeURIComponent(email)}`)).text()).toContain('Invited, no password yet');
 
     const set = await new Visitor(baseUrl).form('/reset-password', { token, password: 'invited-password-1' });
     expect(set.status).toBe(303);
@@ -108,6 +109,7 @@ describe('people (admin)', () => {
     expect(reused.status).toBe(400);
     expect(await reused.text()).toContain('expired or was already used');
 
+    expect(await (await admin.request(`/admin/users?q=${encodeURIComponent(email)}`)).text()).not.toContain('Invited, no password yet');
     const person = await new Visitor(baseUrl).signIn(email, 'invited-password-1');
     const me = await (await person.request('/api/auth/get-session')).json();
     expect(me.user.role).toBe('engineer');

@@ -153,7 +153,11 @@ describe('device catalog as forms', () => {
     expect(copied.status).toBe(303);
     expect(copied.headers.get('location')).toBe('/admin/catalog?class=linearRegulators%3Abench-regulator-second-source&done=copied');
     const copy = await classRow('linearRegulators:bench-regulator-second-source');
-    expect(copy?.params).toMatchObject({ ...chosen?.params, id: 'bench-regulator-second-source', label: 'Bench regulator, second source' });
+    expect(copy?.params).toMatchObject({
+      ...(chosen?.params as object),
+      id: 'bench-regulator-second-source',
+      label: 'Bench regulator, second source',
+    });
 
     const added = await admin.form('/admin/catalog', { intent: 'add', kind: 'zenerSeries', label: 'Glass Zener, 0.4 W' });
     expect(added.status).toBe(303);
