@@ -18,7 +18,7 @@ describe('the admin pages in the browser', () => {
       await signInThroughForm(page, baseUrl, DEMO.admin);
       await page.goto(`${baseUrl}/admin/catalog`);
       await screenshot(page, `admin-catalog-list-${name}`);
-      await page.getByRole('link', { name: 'Thermal assumptions' }).click();
+      await page.getByRole('region', { name: 'Thermal assumptions' }).getByRole('link', { name: 'Thermal assumptions' }).click();
       const margin = page.getByLabel('Margin kept below the junction limit');
       const before = await margin.inputValue();
 
