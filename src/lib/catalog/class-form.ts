@@ -158,7 +158,7 @@ export function readClassForm(
       } else {
         next = readNumber(typed);
         if (next === null)
-          issues.push({ path: field.name, message: `“${typed.trim()}” is not a number; write it like 0.47, 0,47, 4.7e-5 or 47µ.` });
+          issues.push({ path: field.name, message: `“${typed.trim()}” is not a number; write it like 0.47 (or 0,47), 4.7e-5 or 47µ.` });
       }
     } else next = typed.trim();
     if (field.name === ROOT_FIELD) params = next;
