@@ -33,6 +33,7 @@ export const peopleActionSchema = z.discriminatedUnion(
       intent: z.literal('invite'),
       name: signUpSchema.shape.name,
       email: signUpSchema.shape.email.max(254, { error: 'Use at most 254 characters.' }),
+      company: z.string().trim().max(160, { error: 'Use at most 160 characters.' }).optional(),
       role,
     }),
     z.object({ intent: z.literal('deactivate'), userId: personId }),
@@ -99,13 +100,17 @@ export async function actOnPerson(admin: { id: string; name: string }, action: P
 }
 
 /** A new account with the role chosen and no password; the e-mail's link chooses one (once, within three days). */
-async function invitePerson(admin: { name: string }, invite: { name: string; email: string; role: Role }): Promise<Outcome<PeopleDone>> {
+async function invitePerson(
+  admin: { name: string },
+  invite: { name: string; email: string; company?: string | undefined; role: Role },
+): Promise<Outcome<PeopleDone>> {
   const email = invite.email.toLowerCase();
   const queued = await db.transaction(async (tx) => {
     const [taken] = await tx.select({ id: user.id }).from(user).where(eq(user.email, email));
     if (taken) return null;
     const userId = crypto.randomUUID();
     await tx.insert(user).values({ id: userId, name: invite.name, email, role: invite.role, emailVerified: false });
+    if (invite.company) await tx.insert(clientProfile).values({ userId, company: invite.company });
     const token = await issuePasswordToken(tx, userId, INVITE_LINK_SECONDS);
     return enqueueMail(tx, [inviteMail({ email, name: invite.name }, invite.role, admin.name, passwordLink(token))]);
   });

@@ -83,7 +83,13 @@ describe('people (admin)', () => {
   test('the invite link sets a password once, and the account signs in with the role it was given', async () => {
     const email = `invited-${Date.now()}@example.test`;
     const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
-    const invited = await admin.form('/admin/users', { intent: 'invite', name: 'Odile Marchetti', email, role: 'engineer' });
+    const invited = await admin.form('/admin/users', {
+      intent: 'invite',
+      name: 'Odile Marchetti',
+      email,
+      company: 'Marchetti Audio',
+      role: 'engineer',
+    });
     expect(invited.status).toBe(303);
     expect(await (await admin.follow(invited)).text()).toContain('Invitation sent.');
     const again = await admin.form('/admin/users', {
@@ -101,7 +107,9 @@ describe('people (admin)', () => {
     const token = tokenIn(mail.text);
     expect(token).not.toBe('');
     expect(await signInStatus(email, 'invited-password-1')).toBe(401);
-    expect(await (await admin.request(`/admin/users?q=${encodeURIComponent(email)}`)).text()).toContain('Invited, no password yet');
+    const listed = await (await admin.request(`/admin/users?q=${encodeURIComponent(email)}`)).text();
+    expect(listed).toContain('Invited, no password yet');
+    expect(listed).toContain('Marchetti Audio');
 
     const set = await new Visitor(baseUrl).form('/reset-password', { token, password: 'invited-password-1' });
     expect(set.status).toBe(303);
