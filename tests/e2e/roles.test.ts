@@ -71,9 +71,9 @@ describe('the admin’s device catalog', () => {
     await signInThroughForm(page, baseUrl, 'admin@demo.railwright.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Catalog' }).click();
     await page.getByRole('heading', { name: 'Device catalog' }).waitFor();
-    const thermal = page.locator('details', { hasText: 'Thermal assumptions' });
-    await thermal.getByText('Thermal assumptions', { exact: true }).click();
-    expect(await thermal.getByLabel('Parameters (JSON, SI units)').inputValue()).toContain('tjMarginK');
+    await page.getByRole('region', { name: 'Thermal assumptions' }).getByRole('link', { name: 'Thermal assumptions' }).click();
+    await page.getByText('Advanced: the figures as JSON (export or import)').click();
+    expect(await page.getByLabel('Parameters (JSON, SI units)').inputValue()).toContain('tjMarginK');
     await screenshot(page, 'admin-catalog');
     await context.close();
   });

@@ -4,7 +4,8 @@ import type { resetPasswordSchema, signInSchema, signUpSchema } from './schemas'
 import { limitPasswordReset, limitSignUp } from '../platform/rate-limit/account-limits';
 import { countSignInAttempt } from '../platform/rate-limit/sign-in-limit';
 import { auth } from '../platform/auth';
-import { ROLE_LABELS, ROLES, type Role } from '../platform/auth/roles';
+import { ACCOUNT_DEACTIVATED } from '../platform/auth/create-auth';
+import { ROLE_LABELS, type Role } from '../platform/auth/roles';
 import { refuse, succeed, type Outcome, type Refusal } from '../platform/outcome';
 import { log } from '../platform/log';
 import { z } from 'zod';
@@ -44,25 +45,12 @@ export async function registerClient(
   }
 }
 
-export async function listPeople() {
-  return db
-    .select({ id: user.id, name: user.name, email: user.email, role: user.role, createdAt: user.createdAt, company: clientProfile.company })
-    .from(user)
-    .leftJoin(clientProfile, eq(clientProfile.userId, user.id))
-    .orderBy(user.createdAt);
-}
-
-export const roleChangeSchema = z.object({
-  userId: z.string({ error: 'Choose a person.' }).min(1, { error: 'Choose a person.' }),
-  role: z.enum(ROLES, { error: 'Choose one of the roles.' }),
-});
-
 /**
  * The role is written only if the product keeps an admin afterwards: the
  * count is taken inside the same UPDATE, so two admins demoting each other at
  * once cannot both succeed. The caller's own admin role is checked by the page's guard.
  */
-export async function changeRole(admin: { id: string }, change: z.infer<typeof roleChangeSchema>): Promise<Outcome<Role>> {
+export async function changeRole(admin: { id: string }, change: { userId: string; role: Role }): Promise<Outcome<Role>> {
   if (change.userId === admin.id) return refuse('wrong-state', 'You cannot change your own role; ask another admin.');
   const keepsAnAdmin = or(
     sql`coalesce(${user.role}, '') <> 'admin'`,
@@ -97,7 +85,10 @@ export async function signInWithPassword(
     const result = await auth.api.signInEmail({ body: credentials, headers, returnHeaders: true });
     await attempt.forgive();
     return succeed({ headers: result.headers, role: (result.response.user as { role?: string }).role });
-  } catch {
+  } catch (err) {
+    // better-auth checks the password before it refuses a deactivated account, so only its holder learns of it.
+    if (err instanceof APIError && (err.body as { code?: string } | undefined)?.code === 'BANNED_USER')
+      return refuse('forbidden', ACCOUNT_DEACTIVATED, { code: 'account_deactivated' });
     return refuse('unauthenticated', 'That e-mail and password do not match an account.');
   }
 }

@@ -3,7 +3,7 @@
  * series, pass devices, switchers, capacitor families) become one row per
  * class; the single-valued sections become one row each.
  */
-import { catalogSchema, type Catalog } from '../engine/catalog';
+import { CLASS_LISTS, catalogSchema, type Catalog } from '../engine/catalog';
 
 export interface DeviceClassRow {
   id: string;
@@ -12,15 +12,7 @@ export interface DeviceClassRow {
   params: unknown;
 }
 
-const LIST_KINDS = [
-  'linearRegulators',
-  'zenerSeries',
-  'shuntReferences',
-  'resistorGrades',
-  'passDevices',
-  'switchers',
-  'capacitors',
-] as const;
+const LIST_KINDS = CLASS_LISTS;
 const SINGLE_KINDS = {
   version: 'Catalog version',
   inductors: 'Inductor family',

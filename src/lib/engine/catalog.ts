@@ -7,11 +7,14 @@ const num = z.number().refine(Number.isFinite, 'must be a finite number');
 const pos = num.refine((v) => v > 0, 'must be greater than zero');
 const nonNeg = num.refine((v) => v >= 0, 'must not be negative');
 const cents = z.number().int().min(0);
+/** A retired class stays in the catalog for the revisions designed with it, but new evaluations do not choose it. */
+const retired = z.boolean().optional();
 
 const linearRegulatorSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     /** adjustable: floating 1.25 V reference between OUT and ADJ; ldo: ground-referenced feedback; fixed: preset output. */
     kind: z.enum(['adjustable', 'ldo', 'fixed']),
     vRefV: pos,
@@ -68,6 +71,7 @@ const resistorGradeSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     tolerance: pos,
     /** Temperature coefficient, ppm/K. */
     tcrPpmK: nonNeg,
@@ -83,6 +87,7 @@ const shuntReferenceSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     vRefV: pos,
     vRefTolerance: pos,
     refGrades: z.array(z.object({ tolerance: pos, extraCents: cents }).strict()),
@@ -108,6 +113,7 @@ const zenerSeriesSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     powerW: pos,
     tolerance: pos,
     vMinV: pos,
@@ -125,6 +131,7 @@ const passDeviceSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     /** `nmos-depletion`: a normally-on MOSFET, used as the standoff Zener's current source, never as the pass device. */
     kind: z.enum(['npn', 'nmos', 'nmos-depletion']),
     vMaxV: pos,
@@ -151,6 +158,7 @@ const switcherSchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     converter: z.enum(['buck', 'boost', 'buck-boost']),
     rectification: z.enum(['sync', 'diode']),
     vInMinV: pos,
@@ -207,6 +215,7 @@ const capacitorFamilySchema = z
   .object({
     id: z.string().min(1),
     label: z.string().min(1),
+    retired,
     kind: z.enum(['mlcc', 'electrolytic', 'polymer', 'film']),
     tolerance: pos,
     /** Fraction of capacitance lost at the full rated DC bias (MLCC; 0 for the others), linear in V/Vrated. */
@@ -219,6 +228,18 @@ const capacitorFamilySchema = z
     source: z.string().min(1),
   })
   .strict();
+
+/** The catalog sections that hold a list of classes, each of which may be retired. */
+export const CLASS_LISTS = [
+  'linearRegulators',
+  'zenerSeries',
+  'shuntReferences',
+  'resistorGrades',
+  'passDevices',
+  'switchers',
+  'capacitors',
+] as const;
+export type ClassList = (typeof CLASS_LISTS)[number];
 
 export const catalogSchema = z
   .object({
@@ -269,9 +290,33 @@ export const catalogSchema = z
       })
       .strict(),
   })
-  .strict();
+  .strict()
+  .superRefine((catalog, ctx) => {
+    for (const list of CLASS_LISTS) {
+      const classes: readonly { id: string; retired?: boolean | undefined }[] = catalog[list];
+      const seen = new Set<string>();
+      classes.forEach((item, index) => {
+        if (seen.has(item.id))
+          ctx.addIssue({
+            code: 'custom',
+            path: [list, index, 'id'],
+            message: `another class of this kind already has the id “${item.id}”`,
+          });
+        seen.add(item.id);
+      });
+      if (classes.every((item) => item.retired))
+        ctx.addIssue({ code: 'custom', path: [list], message: 'keep at least one class of this kind in use' });
+    }
+  });
 
 export type Catalog = z.infer<typeof catalogSchema>;
+
+/** The classes a new design may choose from: every list without its retired classes. */
+export function offeredCatalog(catalog: Catalog): Catalog {
+  const offered = { ...catalog };
+  for (const list of CLASS_LISTS) Object.assign(offered, { [list]: catalog[list].filter((item) => !item.retired) });
+  return offered;
+}
 export type LinearRegulatorClass = Catalog['linearRegulators'][number];
 export type ZenerSeries = Catalog['zenerSeries'][number];
 export type PassDeviceClass = Catalog['passDevices'][number];

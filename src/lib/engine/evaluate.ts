@@ -1,6 +1,6 @@
 // Entry point: design every topology for a spec and rank the options.
 import type { RailSpec } from './rail-spec.ts';
-import { defaultCatalog, type Catalog } from './catalog.ts';
+import { defaultCatalog, offeredCatalog, type Catalog } from './catalog.ts';
 import { makeContext, type Context } from './context.ts';
 import { assemble } from './assemble.ts';
 import type { Design } from './design.ts';
@@ -39,7 +39,7 @@ export function topologySeed(seed: number, index: number): number {
 }
 
 export function evaluate(spec: RailSpec, catalog: Catalog = defaultCatalog): Evaluation {
-  const ctx = makeContext(spec, catalog);
+  const ctx = makeContext(spec, offeredCatalog(catalog));
   const seed = spec.overrides.seed ?? DEFAULT_SEED;
   const options = topologyIds.map((id, index) => assemble(designers[id](ctx), ctx, topologySeed(seed, index)));
   const ranked = rankOptions(options, spec);

@@ -11,7 +11,7 @@ export {
   type RailSpecIssue,
   type NoiseClass,
 } from './rail-spec.ts';
-export { catalogSchema, defaultCatalog, type Catalog } from './catalog.ts';
+export { catalogSchema, CLASS_LISTS, defaultCatalog, offeredCatalog, type Catalog, type ClassList } from './catalog.ts';
 export { formatSi, numberFormsHint, parseSi } from './units.ts';
 export { classPhrase, formatKPerW, lowerFirst, shortBy } from './units.ts';
 export { E_SERIES, snap, type SeriesName } from './eseries.ts';

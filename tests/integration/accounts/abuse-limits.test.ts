@@ -147,12 +147,12 @@ describe('behind one trusted proxy', () => {
     const admin = await new Visitor(proxied.baseUrl).signIn(DEMO.admin);
     const adminId = ((await (await admin.request('/api/auth/get-session')).json()) as { user: { id: string } }).user.id;
     const second = await newClient(proxied, newAddress());
-    const promoted = await admin.form('/admin/users', { userId: second.id, role: 'admin' });
+    const promoted = await admin.form('/admin/users', { intent: 'role', userId: second.id, role: 'admin' });
     expect(promoted.status).toBe(303);
     const other = await new Visitor(proxied.baseUrl).signIn(second.email, second.password);
     const [a, b] = await Promise.all([
-      admin.form('/admin/users', { userId: second.id, role: 'client' }),
-      other.form('/admin/users', { userId: adminId, role: 'engineer' }),
+      admin.form('/admin/users', { intent: 'role', userId: second.id, role: 'client' }),
+      other.form('/admin/users', { intent: 'role', userId: adminId, role: 'engineer' }),
     ]);
     // The loser is refused by the guard (already demoted, 403) or, when both passed it, by the count (409).
     const statuses = [a.status, b.status].sort();

@@ -98,11 +98,11 @@ describe('accounts', () => {
     expect((await person.request('/desk')).status).toBe(403);
 
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
-    const refused = await engineer.form('/admin/users', { userId: user.id, role: 'engineer' });
+    const refused = await engineer.form('/admin/users', { intent: 'role', userId: user.id, role: 'engineer' });
     expect(refused.status).toBe(403);
 
     const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
-    const changed = await admin.form('/admin/users', { userId: user.id, role: 'engineer' });
+    const changed = await admin.form('/admin/users', { intent: 'role', userId: user.id, role: 'engineer' });
     expect(changed.status).toBe(303);
     expect(await (await admin.follow(changed)).text()).toContain('Role changed to Engineer.');
     expect((await person.request('/desk')).status).toBe(200);

@@ -3,7 +3,11 @@ import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import { admin } from 'better-auth/plugins';
 import type { Database } from '../db/connect';
 import * as schema from '../db/schema';
+import { RESET_LINK_SECONDS } from './password-token';
 import { authRoles, DEFAULT_ROLE } from './roles';
+
+/** What a deactivated account hears when it signs in with the right password. */
+export const ACCOUNT_DEACTIVATED = 'This account is deactivated. Ask an admin of the consultancy to reactivate it.';
 
 /** In development the same server answers on localhost and 127.0.0.1. */
 function trustedOrigins(baseURL: string): string[] {
@@ -33,7 +37,7 @@ export function createAuth(options: AuthOptions) {
       enabled: true,
       minPasswordLength: 10,
       autoSignIn: true,
-      resetPasswordTokenExpiresIn: 60 * 60,
+      resetPasswordTokenExpiresIn: RESET_LINK_SECONDS,
       revokeSessionsOnPasswordReset: true,
       sendResetPassword: async ({ user, token }) => {
         await options.sendResetPassword({ email: user.email, name: user.name }, token);
@@ -47,7 +51,7 @@ export function createAuth(options: AuthOptions) {
       useSecureCookies: options.production,
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure: options.production },
     },
-    plugins: [admin({ defaultRole: DEFAULT_ROLE, adminRoles: ['admin'], roles: authRoles })],
+    plugins: [admin({ defaultRole: DEFAULT_ROLE, adminRoles: ['admin'], roles: authRoles, bannedUserMessage: ACCOUNT_DEACTIVATED })],
   });
 }
 

@@ -12,8 +12,13 @@ export const auth = createAuth({
   baseURL,
   production: config.production,
   sendResetPassword: async (to, token) => {
-    const link = new URL('/reset-password', baseURL);
-    link.searchParams.set('token', token);
-    await mailer.send(passwordResetMail(to, link.toString()));
+    await mailer.send(passwordResetMail(to, passwordLink(token)));
   },
 });
+
+/** The page where a reset or invitation token chooses a password. */
+export function passwordLink(token: string): string {
+  const link = new URL('/reset-password', baseURL);
+  link.searchParams.set('token', token);
+  return link.toString();
+}
