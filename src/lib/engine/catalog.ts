@@ -311,10 +311,19 @@ export const catalogSchema = z
 
 export type Catalog = z.infer<typeof catalogSchema>;
 
+// One offered view per catalog object, so what the engine keeps per catalog (capacitor cases by
+// price) is worked out once rather than for every evaluation.
+const offeredViews = new WeakMap<Catalog, Catalog>();
+
 /** The classes a new design may choose from: every list without its retired classes. */
 export function offeredCatalog(catalog: Catalog): Catalog {
-  const offered = { ...catalog };
-  for (const list of CLASS_LISTS) Object.assign(offered, { [list]: catalog[list].filter((item) => !item.retired) });
+  let offered = offeredViews.get(catalog);
+  if (!offered) {
+    const anyRetired = CLASS_LISTS.some((list) => catalog[list].some((item) => item.retired));
+    offered = anyRetired ? { ...catalog } : catalog;
+    if (anyRetired) for (const list of CLASS_LISTS) Object.assign(offered, { [list]: catalog[list].filter((item) => !item.retired) });
+    offeredViews.set(catalog, offered);
+  }
   return offered;
 }
 export type LinearRegulatorClass = Catalog['linearRegulators'][number];
