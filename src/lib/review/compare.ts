@@ -5,6 +5,7 @@
 import type { Evaluation, Option } from '../engine/types';
 import { keyFigures } from './figures';
 import { TOPOLOGY_NAMES } from './option-words';
+import { describeField } from './words';
 
 export interface ComparableRevision {
   number: number;
@@ -15,6 +16,8 @@ export interface ComparableRevision {
 
 export interface InputChange {
   path: string;
+  /** The field as a person names it, and each side's value with its unit. */
+  label: string;
   a: string;
   b: string;
 }
@@ -39,8 +42,6 @@ export function flatten(value: unknown, prefix = '', out: Record<string, Leaf> =
   return out;
 }
 
-const show = (v: Leaf | undefined) => (v === undefined ? '—' : String(v));
-
 /** The option a revision settled on: the one of its chosen topology. */
 export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 'result'>): Option | null {
   return revision.result.options.find((o) => o.topology === revision.topology) ?? null;
@@ -51,6 +52,7 @@ export function inputChanges(a: ComparableRevision, b: ComparableRevision): Inpu
   if (a.topology !== b.topology) {
     changes.push({
       path: 'chosen topology',
+      label: 'Chosen option',
       a: TOPOLOGY_NAMES[a.topology as Option['topology']] ?? a.topology,
       b: TOPOLOGY_NAMES[b.topology as Option['topology']] ?? b.topology,
     });
@@ -58,7 +60,11 @@ export function inputChanges(a: ComparableRevision, b: ComparableRevision): Inpu
   const fa = flatten(a.input);
   const fb = flatten(b.input);
   const paths = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
-  for (const path of paths) if (fa[path] !== fb[path]) changes.push({ path, a: show(fa[path]), b: show(fb[path]) });
+  for (const path of paths) {
+    if (fa[path] === fb[path]) continue;
+    const a = describeField(path, fa[path]);
+    changes.push({ path, label: a.label, a: a.text, b: describeField(path, fb[path]).text });
+  }
   return changes;
 }
 
