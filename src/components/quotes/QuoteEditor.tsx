@@ -50,6 +50,14 @@ function draftsOf(quote: QuoteJson, digits: number): LineDraft[] {
 }
 
 const isoDay = (iso: string) => iso.slice(0, 10);
+type TextField = 'description' | 'quantity' | 'unit' | 'unitPrice';
+/** Where the server reports a problem with each box (its field in the request). */
+const ERROR_KEYS: Record<TextField, string> = {
+  description: 'description',
+  quantity: 'quantityMilli',
+  unit: 'unit',
+  unitPrice: 'unitPriceMinor',
+};
 /** One line's columns on a wide screen; on narrower ones a line stacks its labelled boxes two to a row. */
 const LINE_GRID = 'lg:gap-x-2 lg:grid-cols-[9rem_minmax(9rem,1fr)_4rem_4.5rem_6.5rem_6rem_2rem]';
 const percentText = (bp: number) => formatDecimal(bp, 2).replace(/\.00$/, '');
@@ -210,16 +218,36 @@ export function QuoteEditor({ initial }: Props) {
             const label = (what: string, name: string, shown = '') => (
               <label htmlFor={id(name)} className="text-xs font-semibold text-ink-soft lg:sr-only">
                 {what}
-                {shown && <span aria-hidden="true">{shown}</span>}
-                <span className="sr-only">, line {i + 1}</span>
+                {shown}
               </label>
             );
+            // The box's own name carries its line, so a screen reader and a test can tell the lines apart.
+            const named = (what: string) => `${what}, line ${i + 1}`;
+            const box = (field: TextField, what: string, look: { numeric?: boolean; wide?: boolean; shown?: string }) => {
+              const error = cell(i, ERROR_KEYS[field]);
+              return (
+                <div className={`flex flex-col gap-1 ${look.wide ? 'col-span-2 lg:col-span-1' : ''}`}>
+                  {label(what, field, look.shown)}
+                  <input
+                    id={id(field)}
+                    aria-label={named(what)}
+                    inputMode={look.numeric ? 'decimal' : undefined}
+                    aria-invalid={error ? true : undefined}
+                    className={`${small(error)} ${look.numeric ? 'text-right tabular-nums' : ''}`}
+                    value={l[field]}
+                    onChange={(e) => setLine(l.key, { [field]: e.target.value })}
+                  />
+                  {error && <p className="text-xs text-stop-700">{error}</p>}
+                </div>
+              );
+            };
             return (
               <li key={l.key} className={`grid grid-cols-2 gap-x-3 gap-y-2 p-3 lg:items-start ${LINE_GRID}`}>
                 <div className="col-span-2 flex flex-col gap-1 lg:col-span-1">
                   {label('Kind', 'kind')}
                   <select
                     id={id('kind')}
+                    aria-label={named('Kind')}
                     className={small()}
                     value={l.kind}
                     onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}
@@ -231,51 +259,10 @@ export function QuoteEditor({ initial }: Props) {
                     ))}
                   </select>
                 </div>
-                <div className="col-span-2 flex flex-col gap-1 lg:col-span-1">
-                  {label('Description', 'description')}
-                  <input
-                    id={id('description')}
-                    aria-invalid={cell(i, 'description') ? true : undefined}
-                    className={small(cell(i, 'description'))}
-                    value={l.description}
-                    onChange={(e) => setLine(l.key, { description: e.target.value })}
-                  />
-                  {cell(i, 'description') && <p className="text-xs text-stop-700">{cell(i, 'description')}</p>}
-                </div>
-                <div className="flex flex-col gap-1">
-                  {label('Quantity', 'quantity')}
-                  <input
-                    id={id('quantity')}
-                    inputMode="decimal"
-                    aria-invalid={cell(i, 'quantityMilli') ? true : undefined}
-                    className={`${small(cell(i, 'quantityMilli'))} text-right tabular-nums`}
-                    value={l.quantity}
-                    onChange={(e) => setLine(l.key, { quantity: e.target.value })}
-                  />
-                  {cell(i, 'quantityMilli') && <p className="text-xs text-stop-700">{cell(i, 'quantityMilli')}</p>}
-                </div>
-                <div className="flex flex-col gap-1">
-                  {label('Unit', 'unit')}
-                  <input
-                    id={id('unit')}
-                    className={small(cell(i, 'unit'))}
-                    value={l.unit}
-                    onChange={(e) => setLine(l.key, { unit: e.target.value })}
-                  />
-                  {cell(i, 'unit') && <p className="text-xs text-stop-700">{cell(i, 'unit')}</p>}
-                </div>
-                <div className="flex flex-col gap-1">
-                  {label('Unit price', 'price', ` (${saved.currency})`)}
-                  <input
-                    id={id('price')}
-                    inputMode="decimal"
-                    aria-invalid={cell(i, 'unitPriceMinor') ? true : undefined}
-                    className={`${small(cell(i, 'unitPriceMinor'))} text-right tabular-nums`}
-                    value={l.unitPrice}
-                    onChange={(e) => setLine(l.key, { unitPrice: e.target.value })}
-                  />
-                  {cell(i, 'unitPriceMinor') && <p className="text-xs text-stop-700">{cell(i, 'unitPriceMinor')}</p>}
-                </div>
+                {box('description', 'Description', { wide: true })}
+                {box('quantity', 'Quantity', { numeric: true })}
+                {box('unit', 'Unit', {})}
+                {box('unitPrice', 'Unit price', { numeric: true, shown: ` (${saved.currency})` })}
                 <p className="flex flex-col gap-1 text-right text-sm tabular-nums lg:py-1">
                   <span className="text-xs font-semibold text-ink-soft lg:sr-only">Amount</span>
                   <span className="whitespace-nowrap">{row ? money(lineTotal(row)) : '—'}</span>
