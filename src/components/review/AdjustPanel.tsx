@@ -1,6 +1,6 @@
 import type { SyntheticEvent } from 'react';
 import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
-import { CHOICE_OVERRIDES, describeField, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
+import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
 import { REQUIREMENT_FIELDS, REQUIREMENT_KEYS, type ChoicesForm, type FormIssue, type RequirementField } from '~/lib/review/choices';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
@@ -221,7 +221,6 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
           {other.map((i) => (
             <li key={`${i.path}-${i.message}`}>
               <span aria-hidden="true">✕ </span>
-              {i.path ? `${describeField(i.path, undefined).label}: ` : ''}
               {i.message}
             </li>
           ))}

@@ -5,7 +5,7 @@
 import type { Evaluation, Option } from '../engine/types';
 import { keyFigures } from './figures';
 import { TOPOLOGY_NAMES } from './option-words';
-import { describeField } from './words';
+import { describeField } from './field-words';
 
 export interface ComparableRevision {
   number: number;

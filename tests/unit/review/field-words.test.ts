@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { choicesFrom, formFrom } from '~/lib/review/choices';
-import { describeField, fieldText } from '~/lib/review/words';
+import { describeField } from '~/lib/review/field-words';
+import { fieldText } from '~/lib/review/words';
 
 const weights = { efficiency: 0, heat: 2, partCount: 1, noise: 2, cost: 2 };
 
