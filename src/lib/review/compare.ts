@@ -4,8 +4,6 @@
  */
 import type { Evaluation, Option } from '../engine/types';
 import { keyFigures } from './figures';
-import { TOPOLOGY_NAMES } from './option-words';
-import { describeField } from './field-words';
 
 export interface ComparableRevision {
   number: number;
@@ -14,12 +12,11 @@ export interface ComparableRevision {
   result: Evaluation;
 }
 
+/** One stored field that differs, by its path, with each side's stored value (undefined: not set). */
 export interface InputChange {
   path: string;
-  /** The field as a person names it, and each side's value with its unit. */
-  label: string;
-  a: string;
-  b: string;
+  a: Leaf | undefined;
+  b: Leaf | undefined;
 }
 
 export interface FigureRow {
@@ -49,22 +46,11 @@ export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 're
 
 export function inputChanges(a: ComparableRevision, b: ComparableRevision): InputChange[] {
   const changes: InputChange[] = [];
-  if (a.topology !== b.topology) {
-    changes.push({
-      path: 'chosen topology',
-      label: 'Chosen option',
-      a: TOPOLOGY_NAMES[a.topology as Option['topology']] ?? a.topology,
-      b: TOPOLOGY_NAMES[b.topology as Option['topology']] ?? b.topology,
-    });
-  }
+  if (a.topology !== b.topology) changes.push({ path: 'chosen topology', a: a.topology, b: b.topology });
   const fa = flatten(a.input);
   const fb = flatten(b.input);
   const paths = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
-  for (const path of paths) {
-    if (fa[path] === fb[path]) continue;
-    const a = describeField(path, fa[path]);
-    changes.push({ path, label: a.label, a: a.text, b: describeField(path, fb[path]).text });
-  }
+  for (const path of paths) if (fa[path] !== fb[path]) changes.push({ path, a: fa[path], b: fb[path] });
   return changes;
 }
 

@@ -1,10 +1,12 @@
 /**
  * Every stored brief and choice field by its path, with its label and unit, so a change or a
  * saved choice reads as a person would say it. Apart from words.ts because it reaches into the
- * briefs' words, which the review's island does not need to ship.
+ * briefs' words: the review's island need not ship them, and the review's public face stays
+ * free of the briefs (whose tables lead back to it), so only pages and *.server.ts import this.
  */
 import { formatSi } from '../engine/units';
 import { AIRFLOW_WORDS, NOISE_CLASS_WORDS } from '~/lib/briefs';
+import { TOPOLOGY_NAMES } from './option-words';
 import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS, WEIGHT_NAMES } from './words';
 
 interface FieldWords {
@@ -20,6 +22,7 @@ interface FieldWords {
 const wordsOf = (table: Record<string, { label: string }>) => Object.fromEntries(Object.entries(table).map(([k, v]) => [k, v.label]));
 
 const FIELDS: Readonly<Record<string, FieldWords>> = {
+  'chosen topology': { label: 'Chosen option', unit: '', words: TOPOLOGY_NAMES },
   'input.vMin': { label: 'Lowest input', unit: 'V' },
   'input.vNom': { label: 'Nominal input', unit: 'V' },
   'input.vMax': { label: 'Highest input', unit: 'V' },

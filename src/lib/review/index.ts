@@ -5,5 +5,4 @@ export * from './figures';
 export * from './option-words';
 export * from './requests';
 export * from './words';
-export * from './field-words';
 export * from './agreed-requirement';
