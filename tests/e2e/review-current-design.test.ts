@@ -3,6 +3,8 @@ import type { Page } from 'playwright-core';
 import { islandsReady, screenshot, signInThroughForm, useBrowser } from './browser';
 import { DEMO } from '../support/client';
 import { railUnderReview, type QuotedRail } from '../integration/quotes/helpers';
+import { TOPOLOGY_NAMES } from '../../src/lib/review/option-words';
+import type { TopologyId } from '../../src/lib/engine/types';
 
 const baseUrl = inject('baseUrl');
 const browser = useBrowser();
@@ -51,15 +53,18 @@ describe('the review and the desk follow the current design', () => {
   test('after a quote is accepted the review opens on its revision, says so, and links to the newer blocked one and back', async () => {
     const rail = await railUnderReview(baseUrl);
     const number = await quoteAccepted(rail);
-    const newer = await saveRevision(rail, { ...IMPOSSIBLE, note: 'Tighter ripple, to discuss' });
+    const newer = await saveRevision(rail, { ...IMPOSSIBLE, topology: 'linear', note: 'Tighter ripple, to discuss' });
+    const listed = await rail.engineer.request(`/api/v1/briefs/${rail.briefId}/revisions`);
+    const first = ((await listed.json()) as { items: { number: number; topology: TopologyId }[] }).items.find((r) => r.number === 1)!;
+    expect(first.topology).not.toBe('linear');
     const page = await engineerPage();
 
     await openReview(page, `/desk/briefs/${rail.briefId}`);
     const opened = page.locator('[data-opened-on]');
     await expect.poll(() => opened.textContent()).toContain(`Showing revision 1, which the accepted quote ${number} was built from.`);
     expect(await opened.textContent()).toContain(`Revision ${newer.number} is newer`);
-    // The chosen design is the quoted one, which can be built, not the newer blocked one.
-    expect(await page.locator('#chosen-heading').textContent()).not.toContain('cannot');
+    // The chosen design is the quoted one, not the newer blocked linear one.
+    expect(await page.locator('#chosen-heading').textContent()).toContain(TOPOLOGY_NAMES[first.topology]);
     expect(await page.getByText('Choices of revision 1.').count()).toBe(1);
     await screenshot(page, 'review-opened-on-quoted-1366');
 
