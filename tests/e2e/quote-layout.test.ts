@@ -25,15 +25,13 @@ describe('the quote builder fits the screen it is on', () => {
       await page.getByRole('textbox', { name: 'Quantity, line 1' }).fill('12.5');
       await page.getByRole('textbox', { name: 'Unit, line 1' }).fill('hours');
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
-      const boxes = await page
-        .locator('input[aria-label*=", line "], select[aria-label*=", line "]')
-        .evaluateAll((els) =>
-          els.map((e) => ({
-            name: e.getAttribute('aria-label') ?? '',
-            width: e.getBoundingClientRect().width,
-            clipped: e.scrollWidth > e.clientWidth,
-          })),
-        );
+      const boxes = await page.locator('input[aria-label*=", line "], select[aria-label*=", line "]').evaluateAll((els) =>
+        els.map((e) => ({
+          name: e.getAttribute('aria-label') ?? '',
+          width: e.getBoundingClientRect().width,
+          clipped: e.scrollWidth > e.clientWidth,
+        })),
+      );
       expect(boxes.length).toBeGreaterThan(0);
       for (const box of boxes) expect(box.width, `${box.name} at ${width} px`).toBeGreaterThanOrEqual(LEAST_BOX_PX);
       // What was typed shows whole.
