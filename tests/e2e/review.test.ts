@@ -108,8 +108,8 @@ describe('an engineer reviews a brief', () => {
     await page.getByRole('button', { name: 'Compare side by side' }).click();
     await page.getByRole('heading', { name: 'Compare revisions' }).waitFor();
     const inputs = page.locator('table[data-compare="inputs"]');
-    expect(await inputs.textContent()).toContain('overrides.standoffV');
-    expect(await inputs.textContent()).not.toContain('weights.cost');
+    expect(await inputs.textContent()).toContain('Standoff voltage');
+    expect(await inputs.textContent()).not.toContain('Parts cost weight');
     await screenshot(page, 'review-compare');
 
     await page.getByRole('link', { name: 'Calculation sheet 2' }).click();

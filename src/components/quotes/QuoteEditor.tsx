@@ -50,6 +50,16 @@ function draftsOf(quote: QuoteJson, digits: number): LineDraft[] {
 }
 
 const isoDay = (iso: string) => iso.slice(0, 10);
+type TextField = 'description' | 'quantity' | 'unit' | 'unitPrice';
+/** Where the server reports a problem with each box (its field in the request). */
+const ERROR_KEYS: Record<TextField, string> = {
+  description: 'description',
+  quantity: 'quantityMilli',
+  unit: 'unit',
+  unitPrice: 'unitPriceMinor',
+};
+/** One line's columns on a wide screen; on narrower ones a line stacks its labelled boxes two to a row. */
+const LINE_GRID = 'lg:gap-x-2 lg:grid-cols-[9rem_minmax(9rem,1fr)_4rem_4.5rem_6.5rem_6rem_2rem]';
 const percentText = (bp: number) => formatDecimal(bp, 2).replace(/\.00$/, '');
 
 /** The engineer's editor for a draft quote: lines, units, rates, validity, terms; save, preview, send. */
@@ -184,101 +194,99 @@ export function QuoteEditor({ initial }: Props) {
           {status.text}
         </div>
       )}
-      <div className="overflow-x-auto rounded-lg border border-rule bg-card">
-        <table className="notebook">
-          <caption className="sr-only">Lines of quote {saved.number}</caption>
-          <thead>
-            <tr>
-              <th>Kind</th>
-              <th>Description</th>
-              <th className="num">Qty</th>
-              <th>Unit</th>
-              <th className="num">Unit price ({saved.currency})</th>
-              <th className="num">Amount</th>
-              <th>
-                <span className="sr-only">Remove</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {lines.map((l, i) => {
-              const row = read.body.lines[i];
-              const label = (what: string) => `${what}, line ${i + 1}`;
+      <div>
+        <div
+          aria-hidden="true"
+          className={`hidden gap-x-3 border-b-2 border-ink px-3 pb-2 text-sm font-bold text-ink-soft lg:grid ${LINE_GRID}`}
+        >
+          <span>Kind</span>
+          <span>Description</span>
+          <span className="text-right">Qty</span>
+          <span>Unit</span>
+          <span className="text-right">Unit price ({saved.currency})</span>
+          <span className="text-right">Amount</span>
+          <span />
+        </div>
+        <ol
+          aria-label={`Lines of quote ${saved.number}`}
+          className="flex flex-col divide-y divide-rule rounded-lg border border-rule bg-card lg:rounded-t-none lg:border-t-0"
+        >
+          {lines.map((l, i) => {
+            const row = read.body.lines[i];
+            const id = (what: string) => `line-${l.key}-${what}`;
+            // Each box is labelled on a phone, where lines stack; on a wide screen the header row names the columns.
+            const label = (what: string, name: string, shown = '') => (
+              <label htmlFor={id(name)} className="text-xs font-semibold text-ink-soft lg:sr-only">
+                {what}
+                {shown}
+              </label>
+            );
+            // The box's own name carries its line, so a screen reader and a test can tell the lines apart.
+            const named = (what: string) => `${what}, line ${i + 1}`;
+            const box = (field: TextField, what: string, look: { numeric?: boolean; wide?: boolean; shown?: string }) => {
+              const error = cell(i, ERROR_KEYS[field]);
               return (
-                <tr key={l.key}>
-                  <td>
-                    <select
-                      aria-label={label('Kind')}
-                      className={`${small()} min-w-36`}
-                      value={l.kind}
-                      onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}
-                    >
-                      {QUOTE_LINE_KINDS.map((k) => (
-                        <option key={k} value={k}>
-                          {KIND_WORDS[k]}
-                        </option>
-                      ))}
-                    </select>
-                  </td>
-                  <td className="min-w-64">
-                    <input
-                      aria-label={label('Description')}
-                      aria-invalid={cell(i, 'description') ? true : undefined}
-                      className={small(cell(i, 'description'))}
-                      value={l.description}
-                      onChange={(e) => setLine(l.key, { description: e.target.value })}
-                    />
-                    {cell(i, 'description') && <p className="text-xs text-stop-700">{cell(i, 'description')}</p>}
-                  </td>
-                  <td className="w-24">
-                    <input
-                      aria-label={label('Quantity')}
-                      inputMode="decimal"
-                      aria-invalid={cell(i, 'quantityMilli') ? true : undefined}
-                      className={`${small(cell(i, 'quantityMilli'))} text-right`}
-                      value={l.quantity}
-                      onChange={(e) => setLine(l.key, { quantity: e.target.value })}
-                    />
-                    {cell(i, 'quantityMilli') && <p className="text-xs text-stop-700">{cell(i, 'quantityMilli')}</p>}
-                  </td>
-                  <td className="w-20">
-                    <input
-                      aria-label={label('Unit')}
-                      className={small(cell(i, 'unit'))}
-                      value={l.unit}
-                      onChange={(e) => setLine(l.key, { unit: e.target.value })}
-                    />
-                  </td>
-                  <td className="w-32">
-                    <input
-                      aria-label={label('Unit price')}
-                      inputMode="decimal"
-                      aria-invalid={cell(i, 'unitPriceMinor') ? true : undefined}
-                      className={`${small(cell(i, 'unitPriceMinor'))} text-right`}
-                      value={l.unitPrice}
-                      onChange={(e) => setLine(l.key, { unitPrice: e.target.value })}
-                    />
-                    {cell(i, 'unitPriceMinor') && <p className="text-xs text-stop-700">{cell(i, 'unitPriceMinor')}</p>}
-                  </td>
-                  <td className="num whitespace-nowrap">{row ? money(lineTotal(row)) : '—'}</td>
-                  <td>
-                    <button
-                      type="button"
-                      className="rounded px-2 py-1 text-sm font-semibold text-stop-700 hover:bg-stop-50 disabled:opacity-40"
-                      disabled={lines.length === 1}
-                      onClick={() => {
-                        setLines((all) => all.filter((x) => x.key !== l.key));
-                        setDirty(true);
-                      }}
-                    >
-                      Remove<span className="sr-only"> line {i + 1}</span>
-                    </button>
-                  </td>
-                </tr>
+                <div className={`flex flex-col gap-1 ${look.wide ? 'col-span-2 lg:col-span-1' : ''}`}>
+                  {label(what, field, look.shown)}
+                  <input
+                    id={id(field)}
+                    aria-label={named(what)}
+                    inputMode={look.numeric ? 'decimal' : undefined}
+                    aria-invalid={error ? true : undefined}
+                    className={`${small(error)} ${look.numeric ? 'text-right tabular-nums' : ''}`}
+                    value={l[field]}
+                    onChange={(e) => setLine(l.key, { [field]: e.target.value })}
+                  />
+                  {error && <p className="text-xs text-stop-700">{error}</p>}
+                </div>
               );
-            })}
-          </tbody>
-        </table>
+            };
+            return (
+              <li key={l.key} className={`grid grid-cols-2 gap-x-3 gap-y-2 p-3 lg:items-start ${LINE_GRID}`}>
+                <div className="col-span-2 flex flex-col gap-1 lg:col-span-1">
+                  {label('Kind', 'kind')}
+                  <select
+                    id={id('kind')}
+                    aria-label={named('Kind')}
+                    className={small()}
+                    value={l.kind}
+                    onChange={(e) => setLine(l.key, { kind: e.target.value as LineDraft['kind'] })}
+                  >
+                    {QUOTE_LINE_KINDS.map((k) => (
+                      <option key={k} value={k}>
+                        {KIND_WORDS[k]}
+                      </option>
+                    ))}
+                  </select>
+                </div>
+                {box('description', 'Description', { wide: true })}
+                {box('quantity', 'Quantity', { numeric: true })}
+                {box('unit', 'Unit', {})}
+                {box('unitPrice', 'Unit price', { numeric: true, shown: ` (${saved.currency})` })}
+                <p className="flex flex-col gap-1 text-right text-sm tabular-nums lg:py-1">
+                  <span className="text-xs font-semibold text-ink-soft lg:sr-only">Amount</span>
+                  <span className="whitespace-nowrap">{row ? money(lineTotal(row)) : '—'}</span>
+                </p>
+                <button
+                  type="button"
+                  className="col-span-2 justify-self-end rounded px-2 py-1 text-sm font-semibold text-stop-700 hover:bg-stop-50 disabled:opacity-40 lg:col-span-1"
+                  disabled={lines.length === 1}
+                  title={`Remove line ${i + 1}`}
+                  onClick={() => {
+                    setLines((all) => all.filter((x) => x.key !== l.key));
+                    setDirty(true);
+                  }}
+                >
+                  <span className="lg:sr-only">Remove</span>
+                  <span aria-hidden="true" className="hidden lg:inline">
+                    ✕
+                  </span>
+                  <span className="sr-only"> line {i + 1}</span>
+                </button>
+              </li>
+            );
+          })}
+        </ol>
       </div>
       {errors.lines && <p className="text-sm text-stop-700">{errors.lines}</p>}
       <p>

@@ -1,16 +1,7 @@
 import type { SyntheticEvent } from 'react';
 import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
-import { WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
-import {
-  CHOICE_OVERRIDES,
-  NUMBER_OVERRIDE_KEYS,
-  NUMBER_OVERRIDES,
-  REQUIREMENT_FIELDS,
-  REQUIREMENT_KEYS,
-  type ChoicesForm,
-  type FormIssue,
-  type RequirementField,
-} from '~/lib/review/choices';
+import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
+import { REQUIREMENT_FIELDS, REQUIREMENT_KEYS, type ChoicesForm, type FormIssue, type RequirementField } from '~/lib/review/choices';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
 
@@ -103,7 +94,7 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
               ))}
             </select>
           </FieldShell>
-          {(['passDevice', 'resistorSeries'] as const).map((key) => (
+          {(['passDevice', 'resistorSeries', 'toleranceRule'] as const).map((key) => (
             <FieldShell key={key} id={`override-${key}`} label={CHOICE_OVERRIDES[key].label} error={errorAt(`overrides.${key}`)}>
               <select
                 id={`override-${key}`}
@@ -230,7 +221,6 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
           {other.map((i) => (
             <li key={`${i.path}-${i.message}`}>
               <span aria-hidden="true">✕ </span>
-              {i.path ? `${i.path}: ` : ''}
               {i.message}
             </li>
           ))}

@@ -1,18 +1,43 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import type { briefListJson } from '~/lib/briefs/briefs.server';
+import type { DeskPage } from '~/lib/review/current-design.server';
 import { BRIEF_STATES } from '~/lib/briefs/states';
 import { ES1_DC_LIMIT_V } from '~/lib/engine/cautions';
 import { formatSi } from '~/lib/engine/units';
 import { formatDate, formatMoney } from '~/lib/platform/format';
 import { percent, TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { BRIEF_STATE_LOOK, lookOf } from '~/components/ui/state-look';
-import type { TopologyId } from '~/lib/engine/types';
 import { StateBadge } from '../ui/StateBadge';
 import { PAGE_SIZES, viewToParams, type DeskSortKey, type DeskView } from './desk-query';
 
-type Page = ReturnType<typeof briefListJson>;
+type Page = DeskPage;
 type Row = Page['items'][number];
+
+/** The current design's figures, only where it can be built: a blocked design has no efficiency or cost to compare. */
+const buildable = (row: Row) => (row.summary?.feasible ? row.summary : null);
+
+/** What the brief's figures are of: the quoted or newest revision's chosen option, else the engine's pick at submission. */
+function DesignCell({ row }: { row: Row }) {
+  const s = row.summary;
+  if (!s) return <span className="text-ink-faint">{row.state === 'draft' ? 'Not yet ranked' : '—'}</span>;
+  const source = row.design ? `Rev. ${row.design.revision}${row.design.quoted ? ', quoted' : ''}` : 'At submission';
+  return (
+    <div className="max-w-72" data-design={s.feasible ? 'feasible' : 'blocked'}>
+      {s.feasible ? (
+        TOPOLOGY_NAMES[s.topology]
+      ) : (
+        <span className="font-semibold text-stop-700">
+          <span aria-hidden="true">✕ </span>
+          {s.feasibleCount === 0 ? 'No design meets the brief' : `${TOPOLOGY_NAMES[s.topology]} cannot be built`}
+        </span>
+      )}
+      {!s.feasible && s.reason && <p className="text-xs text-ink-soft">{s.reason}</p>}
+      <p className="text-xs text-ink-faint">
+        {source} · {s.feasibleCount} feasible
+      </p>
+    </div>
+  );
+}
 
 interface Props {
   initial: Page;
@@ -110,46 +135,30 @@ export default function DeskTable({ initial, initialView, clients, currency }: P
         header: 'Last change',
         cell: (c) => <span className="whitespace-nowrap">{formatDate(Date.parse(c.getValue()))}</span>,
       }),
-      column.accessor('recommendedTopology', {
-        header: 'Recommended',
-        enableSorting: false,
-        cell: (c) => {
-          const s = c.row.original.summary;
-          if (!s) return <span className="text-ink-faint">{c.row.original.state === 'draft' ? 'Not yet ranked' : '—'}</span>;
-          return (
-            <>
-              {c.getValue() ? (
-                TOPOLOGY_NAMES[c.getValue() as TopologyId]
-              ) : (
-                <span className="text-stop-700">
-                  <span aria-hidden="true">✕ </span>None feasible
-                </span>
-              )}
-              <br />
-              <span className="text-xs text-ink-faint">{s.feasibleCount} feasible</span>
-            </>
-          );
-        },
+      column.display({
+        id: 'design',
+        header: 'Current design',
+        cell: (c) => <DesignCell row={c.row.original} />,
       }),
-      column.accessor((r) => r.summary?.efficiencyNominal ?? null, {
+      column.accessor((r) => buildable(r)?.efficiencyNominal ?? null, {
         id: 'efficiency',
         header: 'Efficiency',
         enableSorting: false,
         cell: (c) => (c.getValue() === null ? '—' : percent(c.getValue()!)),
       }),
-      column.accessor((r) => r.summary?.dissipationMaxW ?? null, {
+      column.accessor((r) => buildable(r)?.dissipationMaxW ?? null, {
         id: 'heat',
         header: 'Worst heat',
         enableSorting: false,
         cell: (c) => (c.getValue() === null ? '—' : formatSi(c.getValue()!, 'W')),
       }),
-      column.accessor((r) => r.summary?.partCount ?? null, {
+      column.accessor((r) => buildable(r)?.partCount ?? null, {
         id: 'parts',
         header: 'Parts',
         enableSorting: false,
         cell: (c) => c.getValue() ?? '—',
       }),
-      column.accessor((r) => r.summary?.costCents ?? null, {
+      column.accessor((r) => buildable(r)?.costCents ?? null, {
         id: 'cost',
         header: 'Parts cost',
         enableSorting: false,

@@ -12,6 +12,8 @@ import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';
 import { RevisionList, type RevisionSummary } from './RevisionList';
 import { SpreadChart } from './SpreadChart';
+import { useKeptChoices } from './kept-choices';
+import { UnsavedChoices } from './UnsavedChoices';
 
 interface Props {
   briefId: string;
@@ -38,6 +40,7 @@ async function readIssues(response: Response, fallback: string): Promise<FormIss
 export default function ReviewDesk(props: Props) {
   const { briefId, spec, linearClasses, currency } = props;
   const [form, setForm] = useState(props.initialForm);
+  const kept = useKeptChoices(briefId, { form: props.initialForm, revision: props.startedFrom }, form, setForm);
   const [ran, setRan] = useState(props.initialForm);
   const [result, setResult] = useState(props.initialResult);
   const [chosen, setChosen] = useState<TopologyId | null>(
@@ -106,6 +109,7 @@ export default function ReviewDesk(props: Props) {
         return;
       }
       const saved = (await response.json()) as { number: number };
+      kept.saved(ran, saved.number);
       const list = await fetch(`/api/v1/briefs/${briefId}/revisions`);
       if (list.ok) setRevisions(((await list.json()) as { items: RevisionSummary[] }).items);
       setNote('');
@@ -121,6 +125,7 @@ export default function ReviewDesk(props: Props) {
     <div className="flex flex-col gap-8">
       {option && <CautionPanel cautions={option.cautions} heading={`Cautions for the ${TOPOLOGY_NAMES[option.topology].toLowerCase()}`} />}
 
+      <UnsavedChoices kept={kept} />
       <AdjustPanel
         form={form}
         onChange={setForm}

@@ -1,9 +1,14 @@
 import type { Evaluation } from '../engine/types';
 
-/** The headline figures the desk shows for a brief, from the engine's recommendation. */
-export function summarise(result: Evaluation) {
-  const best = result.options.find((o) => o.topology === result.recommended) ?? result.options[0];
+/**
+ * The headline figures the desk shows for a brief: of the engine's recommendation, or of the
+ * option an engineer chose (`topology`). A design that cannot be built carries the reason why.
+ */
+export function summarise(result: Evaluation, topology: string | null = result.recommended) {
+  const best = result.options.find((o) => o.topology === topology) ?? result.options[0];
   if (!best) return null;
+  const feasibleCount = result.options.filter((o) => o.feasible).length;
+  const blocker = best.issues.find((i) => i.severity === 'blocker')?.message;
   return {
     topology: best.topology,
     feasible: best.feasible,
@@ -12,7 +17,9 @@ export function summarise(result: Evaluation) {
     dissipationMaxW: best.dissipation.totalMaxW,
     partCount: best.partCount,
     costCents: best.costCents,
-    feasibleCount: result.options.filter((o) => o.feasible).length,
+    feasibleCount,
+    /** Why the design cannot be built; absent from summaries stored before it existed. */
+    reason: best.feasible ? null : (blocker ?? result.reason ?? null),
   };
 }
 

@@ -3,38 +3,16 @@
  * API takes them (numbers in SI units). Browser-safe; the server checks again.
  */
 import { parseSi } from '../engine/units';
-import { WEIGHT_KEYS, type WeightKey } from './words';
+import {
+  CHOICE_OVERRIDES,
+  fieldText,
+  NUMBER_OVERRIDE_KEYS,
+  WEIGHT_KEYS,
+  type ChoiceOverride,
+  type NumberOverride,
+  type WeightKey,
+} from './words';
 import type { AgreedRequirement } from './agreed-requirement';
-
-export const NUMBER_OVERRIDES = {
-  r1Ohm: { label: 'R1 (feedback, lower)', unit: 'Ω', hint: 'Linear designs; the upper resistor is solved from it.' },
-  fswHz: { label: 'Switching frequency', unit: 'Hz', hint: 'Switchers; e.g. 400k or 1M.' },
-  heatsinkThetaSaCW: { label: 'Heatsink θSA', unit: 'K/W', hint: 'Fit this heatsink instead of the one the engine picks.' },
-  ambientC: { label: 'Ambient temperature', unit: '°C', hint: 'Design at this ambient instead of the brief’s.' },
-  standoffV: { label: 'Standoff voltage', unit: 'V', hint: 'Pre-drop designs: the Zener the regulator stands on.' },
-  mcDraws: { label: 'Monte Carlo draws', unit: '', hint: '100 to 100 000.' },
-} as const;
-export type NumberOverride = keyof typeof NUMBER_OVERRIDES;
-export const NUMBER_OVERRIDE_KEYS = Object.keys(NUMBER_OVERRIDES) as NumberOverride[];
-
-export const CHOICE_OVERRIDES = {
-  linearClass: { label: 'Regulator class' },
-  passDevice: {
-    label: 'Pass device',
-    options: [
-      ['npn', 'NPN transistor'],
-      ['nmos', 'N-MOSFET'],
-    ],
-  },
-  resistorSeries: {
-    label: 'Resistor series',
-    options: [
-      ['E96', 'E96 (1 %)'],
-      ['E24', 'E24 (5 %)'],
-    ],
-  },
-} as const;
-export type ChoiceOverride = keyof typeof CHOICE_OVERRIDES;
 
 /** The requirement as agreed with the client, where it departs from the brief (empty = as briefed). */
 export const REQUIREMENT_FIELDS = {
@@ -80,14 +58,14 @@ export function formFrom(
   const parts = overrides.parts && typeof overrides.parts === 'object' ? Object.entries(overrides.parts as Record<string, unknown>) : [];
   return {
     weights: Object.fromEntries(WEIGHT_KEYS.map((k) => [k, text(weights[k])])) as ChoicesForm['weights'],
-    numbers: Object.fromEntries(Object.keys(NUMBER_OVERRIDES).map((k) => [k, text(overrides[k])])) as ChoicesForm['numbers'],
+    numbers: Object.fromEntries(NUMBER_OVERRIDE_KEYS.map((k) => [k, fieldText(overrides[k])])) as ChoicesForm['numbers'],
     picks: Object.fromEntries(Object.keys(CHOICE_OVERRIDES).map((k) => [k, text(overrides[k])])) as ChoicesForm['picks'],
-    parts: parts.map(([ref, value]) => ({ ref, value: text(value) })),
+    parts: parts.map(([ref, value]) => ({ ref, value: fieldText(value) })),
     requirement: {
-      outputV: text(agreed.outputV),
+      outputV: fieldText(agreed.outputV),
       // Four significant figures: 0.02 shows as 2, not 2.0000000000000004.
       tolerancePct: agreed.tolerance === undefined ? '' : String(Number((agreed.tolerance * 100).toPrecision(4))),
-      maxRippleVpp: text(agreed.maxRippleVpp),
+      maxRippleVpp: fieldText(agreed.maxRippleVpp),
     },
   };
 }

@@ -4,7 +4,6 @@
  */
 import type { Evaluation, Option } from '../engine/types';
 import { keyFigures } from './figures';
-import { TOPOLOGY_NAMES } from './option-words';
 
 export interface ComparableRevision {
   number: number;
@@ -13,10 +12,11 @@ export interface ComparableRevision {
   result: Evaluation;
 }
 
+/** One stored field that differs, by its path, with each side's stored value (undefined: not set). */
 export interface InputChange {
   path: string;
-  a: string;
-  b: string;
+  a: Leaf | undefined;
+  b: Leaf | undefined;
 }
 
 export interface FigureRow {
@@ -39,8 +39,6 @@ export function flatten(value: unknown, prefix = '', out: Record<string, Leaf> =
   return out;
 }
 
-const show = (v: Leaf | undefined) => (v === undefined ? '—' : String(v));
-
 /** The option a revision settled on: the one of its chosen topology. */
 export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 'result'>): Option | null {
   return revision.result.options.find((o) => o.topology === revision.topology) ?? null;
@@ -48,17 +46,11 @@ export function chosenOption(revision: Pick<ComparableRevision, 'topology' | 're
 
 export function inputChanges(a: ComparableRevision, b: ComparableRevision): InputChange[] {
   const changes: InputChange[] = [];
-  if (a.topology !== b.topology) {
-    changes.push({
-      path: 'chosen topology',
-      a: TOPOLOGY_NAMES[a.topology as Option['topology']] ?? a.topology,
-      b: TOPOLOGY_NAMES[b.topology as Option['topology']] ?? b.topology,
-    });
-  }
+  if (a.topology !== b.topology) changes.push({ path: 'chosen topology', a: a.topology, b: b.topology });
   const fa = flatten(a.input);
   const fb = flatten(b.input);
   const paths = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
-  for (const path of paths) if (fa[path] !== fb[path]) changes.push({ path, a: show(fa[path]), b: show(fb[path]) });
+  for (const path of paths) if (fa[path] !== fb[path]) changes.push({ path, a: fa[path], b: fb[path] });
   return changes;
 }
 

@@ -8,18 +8,22 @@ import { currentCatalog } from '~/lib/catalog/index.server';
 import { partsCurrency } from './exports.server';
 import { listNotes } from '~/lib/briefs/index.server';
 import { listRevisions } from './revisions.server';
+import { currentRevisions } from './current-design.server';
 
 /** `fromRevisionId` starts the form from that revision's choices instead of the latest one's. */
 export async function reviewPageData(row: BriefRow, fromRevisionId: string | null = null) {
-  const [detail, revisions, notes, catalog, currency] = await Promise.all([
+  const [detail, revisions, notes, catalog, currency, current] = await Promise.all([
     briefDetail(row),
     listRevisions(row),
     listNotes(row.id),
     currentCatalog(),
     partsCurrency(),
+    currentRevisions([row.id]).then((found) => found.get(row.id) ?? null),
   ]);
   const spec = railSpecSchema.safeParse(row.spec);
-  const base = revisions.find((r) => r.id === fromRevisionId) ?? revisions[0] ?? null;
+  // A link may name a revision; otherwise the review opens on the one the client was quoted, else the newest.
+  const named = revisions.find((r) => r.id === fromRevisionId) ?? null;
+  const base = named ?? revisions.find((r) => r.id === current?.id) ?? revisions[0] ?? null;
   const weights = (base?.weights ?? (spec.success ? spec.data.weights : {})) as Record<string, unknown>;
   const overrides = (base?.overrides ?? {}) as Record<string, unknown>;
   const requirement = base?.requirement ?? {};
@@ -34,6 +38,7 @@ export async function reviewPageData(row: BriefRow, fromRevisionId: string | nul
     form: formFrom(weights, overrides, requirement),
     topology: (base?.topology as TopologyId | undefined) ?? null,
     startedFrom: base?.number ?? null,
+    current: current && { ...current, opened: base?.id === current.id },
     revisions: revisions.map((r) => ({
       id: r.id,
       number: r.number,

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import type { Evaluation } from '../engine';
 import { chosenOption, figureRows, inputChanges } from './compare';
+import { describeField } from './field-words';
 import { findRevisionWithBrief, partsCurrency } from './exports.server';
 import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 
@@ -30,7 +31,11 @@ async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevi
     briefTitle: a.briefTitle,
     a: { id: left.id, number: left.number, topology: left.topology, note: left.note, createdAt: left.createdAt },
     b: { id: right.id, number: right.number, topology: right.topology, note: right.note, createdAt: right.createdAt },
-    inputs: inputChanges(left, right),
+    // Each field by its label, each value with its unit: never a stored path or a bare number.
+    inputs: inputChanges(left, right).map(({ path, a, b }) => {
+      const before = describeField(path, a);
+      return { path, label: before.label, a: before.text, b: describeField(path, b).text };
+    }),
     figures: figureRows(left, right, currency),
     /** Both designs' safety cautions: a comparison shows designs too. */
     cautions: [...(chosenOption(left)?.cautions ?? []), ...(chosenOption(right)?.cautions ?? [])],

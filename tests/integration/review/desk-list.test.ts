@@ -1,5 +1,6 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
+import { railUnderReview } from '../quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 
@@ -10,8 +11,9 @@ interface Item {
   client: { id: string; name: string; company: string | null };
   submittedAt: string | null;
   updatedAt: string;
-  summary: { topology: string; feasibleCount: number } | null;
+  summary: { topology: string; feasible: boolean; feasibleCount: number; reason?: string | null } | null;
   highestV: number | null;
+  design?: { revision: number; quoted: boolean } | null;
 }
 
 async function list(visitor: Visitor, query: string): Promise<{ items: Item[]; total: number; page: number; pageSize: number }> {
@@ -79,5 +81,35 @@ describe('the desk list', () => {
     const html = await page.text();
     expect(html).toContain(`href="/desk/briefs/${items[0]!.id}"`);
     expect(html).not.toContain('PLC I/O card');
+  });
+
+  test('staff see the figures of the quoted revision, else the newest; a client sees those of the submission', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const drafted = await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } });
+    const quote = (await drafted.json()) as { id: string };
+    expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
+    // A newer revision no design can meet: the quoted one stays the current design.
+    const blocked = await rail.engineer.request(`/api/v1/briefs/${rail.briefId}/revisions`, {
+      method: 'POST',
+      json: { topology: 'linear', requirement: { maxRippleVpp: 1e-9 }, note: 'Quieter' },
+    });
+    expect(blocked.status).toBe(201);
+    const quoted = (await list(rail.engineer, `q=${encodeURIComponent(rail.name)}`)).items.find((b) => b.id === rail.briefId)!;
+    expect(quoted.design).toEqual({ revision: 1, quoted: true });
+    expect(quoted.summary).toMatchObject({ feasible: true, reason: null });
+
+    // Without a quote, the newest revision is the current design, and it says why it cannot be built.
+    const unquoted = await railUnderReview(baseUrl);
+    await unquoted.engineer.request(`/api/v1/briefs/${unquoted.briefId}/revisions`, {
+      method: 'POST',
+      json: { requirement: { maxRippleVpp: 1e-9 }, note: 'Quieter' },
+    });
+    const stuck = (await list(unquoted.engineer, `q=${encodeURIComponent(unquoted.name)}`)).items.find((b) => b.id === unquoted.briefId)!;
+    expect(stuck.design).toEqual({ revision: 2, quoted: false });
+    expect(stuck.summary).toMatchObject({ feasible: false, feasibleCount: 0 });
+    expect(stuck.summary!.reason).toMatch(/\S/);
+
+    const client = await list(rail.client, '');
+    expect(client.items.find((b) => b.id === rail.briefId)!.design).toBeUndefined();
   });
 });

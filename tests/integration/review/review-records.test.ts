@@ -31,9 +31,10 @@ describe('revisions compared side by side', () => {
     expect(compared.b).toMatchObject({ number: two.number, topology: 'buck-boost' });
     expect(compared.inputs).toEqual(
       expect.arrayContaining([
-        { path: 'chosen topology', a: 'Buck (step-down) switcher', b: 'Buck-boost switcher' },
-        { path: 'overrides.fswHz', a: '—', b: '1000000' },
-        { path: 'weights.cost', a: '2', b: '9' },
+        { path: 'chosen topology', label: 'Chosen option', a: 'Buck (step-down) switcher', b: 'Buck-boost switcher' },
+        // Each field by its label, each value with its unit and SI prefix.
+        { path: 'overrides.fswHz', label: 'Switching frequency', a: '—', b: '1 MHz' },
+        { path: 'weights.cost', label: 'Parts cost weight', a: '2', b: '9' },
       ]),
     );
     // The brief itself did not change between the two.

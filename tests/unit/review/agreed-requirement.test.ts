@@ -18,7 +18,7 @@ describe('the requirement agreed with the client', () => {
     expect(choices.ok).toBe(true);
     if (!choices.ok) return;
     expect(choices.value.requirement).toEqual({ tolerance: 0.02, maxRippleVpp: 0.02 });
-    expect(formFrom({}, {}, choices.value.requirement).requirement).toEqual({ outputV: '', tolerancePct: '2', maxRippleVpp: '0.02' });
+    expect(formFrom({}, {}, choices.value.requirement).requirement).toEqual({ outputV: '', tolerancePct: '2', maxRippleVpp: '20m' });
   });
 
   test('text that is not a number names its field', () => {

@@ -3,7 +3,8 @@ import { briefListQuerySchema, createBriefSchema } from '~/lib/briefs/requests';
 import { createBrief } from '~/lib/briefs/actions.server';
 import { briefJson } from '~/lib/briefs/json';
 import { briefListJson, listBriefs } from '~/lib/briefs/briefs.server';
-import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
+import { ANY_ROLE, guardApi, isStaff } from '~/lib/platform/http/guard';
+import { withCurrentDesigns } from '~/lib/review/current-design.server';
 import { apiMutation } from '~/lib/platform/http/mutation';
 import { invalid, json } from '~/lib/platform/http/responses';
 import { zodIssues } from '~/lib/platform/http/validation';
@@ -15,7 +16,8 @@ export const GET: APIRoute = async (context) => {
   if (!gate.ok) return gate.response;
   const { state, q, client, page, pageSize, sort } = query.data;
   const list = await listBriefs(gate.user, { state, q, ownerId: client, page, pageSize, sort });
-  return json(briefListJson(list));
+  // Staff see each brief's current design; a client's list keeps the figures of what they submitted.
+  return json(isStaff(gate.user) ? await withCurrentDesigns(briefListJson(list)) : briefListJson(list));
 };
 
 export const POST = apiMutation({
