@@ -108,6 +108,18 @@ function countFor(family: CapacitorFamily, row: Case, need: CapacitorNeed): numb
   return count > MAX_PARALLEL ? 0 : count;
 }
 
+/** A need this many times the largest bank is reported as beyond any bank, not as a part value. */
+const FAR_BEYOND = 100;
+
+/** Effective capacitance of the largest bank the catalog builds for a working voltage (MAX_PARALLEL of its largest case). */
+function largestBankF(catalog: Catalog, workingV: number): number {
+  let most = 0;
+  for (const { family, row } of casesByPrice(catalog))
+    if (row.vRatedV >= CAPACITOR_VOLTAGE_FACTOR * workingV)
+      most = Math.max(most, MAX_PARALLEL * row.cMaxF * retained(family, row, workingV));
+  return most;
+}
+
 /** Every family's cases by ascending unit price (stable), so a search can stop at the first too dear. */
 const byPrice = new WeakMap<Catalog, { family: CapacitorFamily; row: Case }[]>();
 function casesByPrice(catalog: Catalog): { family: CapacitorFamily; row: Case }[] {
@@ -190,11 +202,19 @@ export function chooseCapacitorBank(ref: string, role: ComponentRole, need: Capa
   part.quantity = chosen.count;
   let issue: Issue | null = null;
   if (fit === null) {
+    const largest = largestBankF(catalog, need.workingV);
     const what = need.forcedF !== undefined ? `the forced ${formatSi(need.forcedF, 'F')}` : `${formatSi(need.effectiveF, 'F')} effective`;
-    issue = blocker(
-      'capacitor',
-      `${ref} needs ${what} at ${need.workingV.toFixed(1)} V working (rating ≥ ${(CAPACITOR_VOLTAGE_FACTOR * need.workingV).toFixed(0)} V) carrying ${need.rmsA.toFixed(2)} A RMS; no family and case in the catalog offers that in ${MAX_PARALLEL} parts or fewer.`,
-    );
+    // A need far past every bank the catalog can build is no part value: say what sets it instead.
+    if (need.forcedF === undefined && largest > 0 && need.effectiveF > FAR_BEYOND * largest)
+      issue = blocker(
+        'capacitor',
+        `No capacitor bank can do this: the requirements would ask ${ref} for about ${formatSi(need.effectiveF, 'F', 3)}, more than ${FAR_BEYOND} times the largest bank the catalog builds at ${need.workingV.toFixed(1)} V working (${formatSi(largest, 'F', 2)} in ${MAX_PARALLEL} parts). Loosen the ripple limit, the load step or the hold-up that sets it.`,
+      );
+    else
+      issue = blocker(
+        'capacitor',
+        `${ref} needs ${what} at ${need.workingV.toFixed(1)} V working (rating ≥ ${(CAPACITOR_VOLTAGE_FACTOR * need.workingV).toFixed(0)} V) carrying ${need.rmsA.toFixed(2)} A RMS${Number.isFinite(need.esrMaxOhm) && need.esrMaxOhm > 0 ? ` with an ESR of at most ${formatSi(need.esrMaxOhm, 'Ω', 2)}` : ''}; no family and case in the catalog offers that in ${MAX_PARALLEL} parts or fewer.`,
+      );
   } else if (chosen.lifeHours !== null && chosen.lifeHours < LIFE_TARGET_H) {
     issue = caution(
       'capacitor-life',

@@ -81,6 +81,24 @@ describe('what can be bought', () => {
     expect(bank.issue?.severity).toBe('blocker');
     expect(bank.issue?.message).toMatch(/C7 needs .* at 3000\.0 V working/);
   });
+
+  test('a need far past every bank the catalog builds is not printed as a part value to buy', () => {
+    const bank = chooseCapacitorBank('C1', 'output-capacitor', { ...need, effectiveF: 771, workingV: 5 }, defaultCatalog);
+    expect(bank.issue?.severity).toBe('blocker');
+    expect(bank.issue?.message).toMatch(/^No capacitor bank can do this: .* ask C1 for about 771 F, more than 100 times the largest bank/);
+    expect(bank.issue?.message).not.toMatch(/C1 needs 771/);
+  });
+
+  test('an ESR no case reaches is named as the reason', () => {
+    const bank = chooseCapacitorBank(
+      'C1',
+      'output-capacitor',
+      { ...need, effectiveF: 4.7e-6, workingV: 5, esrMaxOhm: 1e-9 },
+      defaultCatalog,
+    );
+    expect(bank.issue?.severity).toBe('blocker');
+    expect(bank.issue?.message).toMatch(/with an ESR of at most 1 nΩ; no family and case/);
+  });
 });
 
 describe('electrolytic life: halving per 10 K (common practice, Arrhenius rule of thumb)', () => {
