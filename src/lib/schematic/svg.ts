@@ -16,7 +16,7 @@ export const escapeXml = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '
 function text(l: Label): string {
   const size = l.small ? 10 : LABEL_SIZE;
   const colour = l.weight === 'bold' ? COPPER : l.small ? SOFT : INK;
-  return `<text x="${l.x}" y="${l.y}" font-size="${size}"${l.weight ? ' font-weight="700"' : ''} text-anchor="${l.anchor}" fill="${colour}" stroke="none">${escapeXml(l.text)}</text>`;
+  return `<text x="${l.x}" y="${l.y}" font-size="${size}"${l.weight ? ' font-weight="bold"' : ''} text-anchor="${l.anchor}" fill="${colour}" stroke="none">${escapeXml(l.text)}</text>`;
 }
 
 /** A net tag: a pointed flag with the net's name, its point at the wire's end. */
@@ -32,7 +32,7 @@ function tag(t: Tag): string {
         : t.side === 'down'
           ? [`M${x} ${y} l${w / 2} 6 v${h} h${-w} v${-h} Z`, x, y + 6 + h / 2 + 3.5]
           : [`M${x} ${y} l${w / 2} -6 v${-h} h${-w} v${h} Z`, x, y - 6 - h / 2 + 3.5];
-  return `<path d="${path}" fill="#fbf1ea" stroke="${COPPER}" stroke-width="1.2"/><text x="${tx}" y="${ty}" font-size="10" font-weight="700" text-anchor="middle" fill="${COPPER}" stroke="none">${escapeXml(t.name)}</text>`;
+  return `<path d="${path}" fill="#fbf1ea" stroke="${COPPER}" stroke-width="1.2"/><text x="${tx}" y="${ty}" font-size="10" font-weight="bold" text-anchor="middle" fill="${COPPER}" stroke="none">${escapeXml(t.name)}</text>`;
 }
 
 export interface SvgText {
