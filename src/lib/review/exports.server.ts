@@ -3,7 +3,7 @@
  * list as CSV and its schematic as SVG. All read the revision's stored result,
  * never a re-run.
  */
-import { and, eq, isNotNull } from 'drizzle-orm';
+import { and, desc, eq, isNotNull } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '../engine';
 import { chosenOption } from './compare';
@@ -39,6 +39,26 @@ export async function drawingVisibleTo(viewer: SignedInUser, found: RevisionWith
     .where(and(eq(quote.revisionId, found.revision.id), isNotNull(quote.sentAt)))
     .limit(1);
   return sent !== undefined;
+}
+
+/** The design last quoted to the brief's owner, drawn: the revision of the newest sent quote. */
+export async function quotedDrawing(
+  briefId: string,
+): Promise<{ svg: string; revisionNumber: number; parts: { ref: string; part: string; value: string }[] } | null> {
+  const [row] = await db
+    .select({ revision: designRevision })
+    .from(quote)
+    .innerJoin(designRevision, eq(designRevision.id, quote.revisionId))
+    .where(and(eq(quote.briefId, briefId), isNotNull(quote.sentAt)))
+    .orderBy(desc(quote.sentAt))
+    .limit(1);
+  const option = row ? chosenOption({ topology: row.revision.topology, result: row.revision.result as Evaluation }) : null;
+  if (!row || !option) return null;
+  return {
+    svg: drawSchematic(option, railFiguresOf(row.revision.input as RailSpec), 'quoted-drawing').svg,
+    revisionNumber: row.revision.number,
+    parts: option.components.map((c) => ({ ref: c.ref, part: c.part, value: componentValue(c) })),
+  };
 }
 
 export type SchematicOutcome = { ok: true; svg: string } | { ok: false; message: string };

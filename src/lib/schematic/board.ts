@@ -124,10 +124,43 @@ export class Board {
     this.volts = volts;
   }
 
-  /** One dangerous-voltage mark per rail net, above the first stretch of rail long enough to hold it. */
+  /** One dangerous-voltage mark per rail net, placed once the drawing is complete (placeHazards). */
   private mark(from: Point, to: Point): void {
-    if (from.y !== 0 || to.y !== 0 || to.x - from.x < 30) return;
-    this.hazard(this.net, this.volts, { x: from.x + 15, y: -16 });
+    if (from.y !== 0 || to.y !== 0 || to.x - from.x < 30 || this.volts <= HAZARD_V || this.marked.has(this.net)) return;
+    this.marked.add(this.net);
+    this.hazardNets.push(this.net);
+    this.pendingMarks.push({ from, to });
+  }
+  private readonly pendingMarks: { from: Point; to: Point }[] = [];
+
+  /** Each rail net's mark above the first free spot of its stretch of rail: no wire, pin or label there. */
+  placeHazards(): void {
+    const half = 13;
+    const busy = (x: number, y: number) => {
+      const [x0, x1, y0, y1] = [x - half, x + half, y - half, y + half];
+      const hitsWire = this.sheet.wires.some((w) =>
+        w.slice(1).some((b, i) => {
+          const a = w[i]!;
+          return Math.max(a.x, b.x) >= x0 && Math.min(a.x, b.x) <= x1 && Math.max(a.y, b.y) >= y0 && Math.min(a.y, b.y) <= y1;
+        }),
+      );
+      const hitsLabel = this.sheet.parts.some((p) =>
+        p.labels.some((l) => {
+          const w = textWidth(l.text);
+          const left = l.anchor === 'start' ? l.x : l.anchor === 'middle' ? l.x - w / 2 : l.x - w;
+          return left <= x1 && left + w >= x0 && l.y - 10 <= y1 && l.y + 3 >= y0;
+        }),
+      );
+      return hitsWire || hitsLabel || this.sheet.pins.some((p) => p.x >= x0 && p.x <= x1 && p.y >= y0 && p.y <= y1);
+    };
+    for (const { from, to } of this.pendingMarks) {
+      const y = -18;
+      let x = from.x + 16;
+      while (x <= to.x - 16 && busy(x, y)) x += 4;
+      const at = { x: x <= to.x - 16 ? x : from.x + 16, y };
+      this.sheet.hazards.push(at);
+      this.reach(at.x - 12, at.y - 12);
+    }
   }
 
   /** The dangerous-voltage mark at `at` when net `net` may exceed HAZARD_V (once a net). */

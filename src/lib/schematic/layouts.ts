@@ -412,6 +412,7 @@ export function layoutOption(option: Option, rail: RailFigures): Board {
   b.sheet.wire({ x: 0, y: GROUND_Y }, { x: out.x, y: GROUND_Y });
   // The 0 V rail is the circuit's earth: one symbol on it joins it to every local earth symbol.
   b.ground({ x: GAP / 2, y: GROUND_Y });
+  b.placeHazards();
   for (const hs of byRole(parts, 'heatsink')) b.heatsink(hs, /for (\S+)$/.exec(hs.part)?.[1] ?? '');
   return b;
 }

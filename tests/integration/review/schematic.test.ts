@@ -32,11 +32,22 @@ describe('schematic download', () => {
 
     const drafted = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: saved.id } })).json();
     expect((await rail.client.request(path)).status).toBe(404);
+    expect(await (await rail.client.request(`/briefs/${rail.briefId}`)).text()).not.toContain('data-testid="brief-drawing"');
     expect((await rail.engineer.request(`/api/v1/quotes/${drafted.id}/send`, { method: 'POST' })).status).toBe(200);
     const owned = await rail.client.request(path);
     expect(owned.status).toBe(200);
     expect(await owned.text()).toBe(svg);
     expect((await other.request(path)).status).toBe(404);
+    // The client's brief page and quote page draw the quoted design, each part with its reference.
+    for (const [page, figure] of [
+      [`/briefs/${rail.briefId}`, 'brief-drawing'],
+      [`/quotes/${drafted.id}`, 'design-drawing'],
+    ]) {
+      const html = await (await rail.client.request(page!)).text();
+      expect(html).toContain(`data-testid="${figure}"`);
+      for (const c of chosen.components as { ref: string }[]) expect(html).toContain(`data-ref="${c.ref}"`);
+      expect(html).toMatch(/<svg [^>]*role="img"/);
+    }
     // The brief's first revision has no quote of its own: still closed to the client.
     expect((await rail.client.request(`/api/v1/revisions/${rail.revisionId}/schematic.svg`)).status).toBe(404);
   });
