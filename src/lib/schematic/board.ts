@@ -287,7 +287,8 @@ export class Board {
     w: number,
     h: number,
     pins: { name: string; side: 'left' | 'right' | 'top' | 'bottom'; at: number; signal?: boolean }[],
-    aboveGap = 0,
+    /** Where the name starts, left-aligned, when a wire rises from the block's top; centred otherwise. */
+    headFrom?: number,
   ): Record<string, Point> {
     const points: Record<string, Point> = {};
     const markup = [`<path d="M${topLeft.x} ${topLeft.y} h${w} v${h} h${-w} Z" fill="#ffffff"/>`];
@@ -315,8 +316,11 @@ export class Board {
       pinLabels.push({ x: inset.x, y: inset.y, text: p.name, anchor: inset.anchor, small: true });
     }
     const names = [c.ref, ...deviceName(c)];
-    const headTop = topLeft.y - 8 - aboveGap - (names.length - 1) * LINE;
-    const head = this.lines(names, { x: topLeft.x + w / 2, y: headTop }, 'middle');
+    const headTop = topLeft.y - 8 - (names.length - 1) * LINE;
+    const head =
+      headFrom === undefined
+        ? this.lines(names, { x: topLeft.x + w / 2, y: headTop }, 'middle')
+        : this.lines(names, { x: headFrom, y: headTop }, 'start');
     // A heatsink goes above the name, so the pins and their wires below stay clear.
     this.heatsinkAt.set(c.ref, { x: topLeft.x + w / 2 - 40, y: headTop - 30 });
     this.reach(topLeft.x, topLeft.y);

@@ -196,17 +196,24 @@ function switcherSection(b: Board, sw: Component, parts: Component[], net: strin
   } else if (kind === 'boost' && rectifier) {
     if (l1) b.series(twoPinEntry(l1), vStage, 'SW');
     const bx = b.x + GAP + 40;
-    const p = b.ic(sw, { x: bx, y: 60 }, w, 70, [
-      { name: 'SW', side: 'top', at: 30 },
-      { name: 'VIN', side: 'left', at: 35, signal: true },
-      { name: 'FB', side: 'right', at: 35, signal: true },
-      { name: 'GND', side: 'bottom', at: 30 },
-    ]);
+    const p = b.ic(
+      sw,
+      { x: bx, y: 60 },
+      w,
+      70,
+      [
+        { name: 'SW', side: 'top', at: 30 },
+        { name: 'VIN', side: 'left', at: 35, signal: true },
+        { name: 'FB', side: 'right', at: 35, signal: true },
+        { name: 'GND', side: 'bottom', at: 30 },
+      ],
+      bx + 30 + 8,
+    );
     b.sheet.wire(p.SW!, { x: p.SW!.x, y: 0 });
     b.tagged(p.VIN!, 'IN', 'left');
     b.tagged(p.FB!, 'FB', 'right');
     groundPin(b, p.GND!);
-    b.x = bx + w + 20;
+    b.x = Math.max(bx + w + 50, bx + 38 + widest([sw.ref, ...deviceName(sw)]));
     b.series(twoPinEntry(rectifier), vStage, net);
   } else {
     // Synchronous boost and four-switch buck-boost: the switches are inside, from input (or the
