@@ -34,7 +34,7 @@ describe.each([
   ['laptop', { width: 1366, height: 900 }],
   ['phone', { width: 390, height: 844 }],
 ])('the review drawing on a %s', (name, viewport) => {
-  test('is drawn, marks a part picked in it in the part list and the trace, and a part picked in the list in it', async () => {
+  test('is drawn, marks a part picked in it in the part list and the trace and back, and draws a chosen thumbnail large', async () => {
     const context = await browser().newContext({ viewport });
     const page = await context.newPage();
     const errors: string[] = [];
@@ -69,6 +69,17 @@ describe.each([
     await expect.poll(() => drawing.locator(`[data-ref="${other}"][data-selected]`).count()).toBe(1);
     expect(await drawing.locator(`[data-ref="${withTrace}"][data-selected]`).count()).toBe(0);
     expect(await row.getAttribute('data-selected')).toBeNull();
+
+    // Each candidate is drawn small; choosing one draws it large.
+    const thumbs = page.getByRole('list', { name: 'Candidate drawings' }).getByRole('button');
+    expect(await thumbs.count()).toBe(7);
+    const pressed = await thumbs.evaluateAll((buttons) => buttons.map((b) => b.getAttribute('aria-pressed')));
+    const candidate = thumbs.nth(pressed.indexOf('false'));
+    const name = (await candidate.locator('span.font-semibold').textContent())!.trim();
+    expect(await candidate.locator('svg[role="img"]').count()).toBe(1);
+    await candidate.click();
+    await expect.poll(() => page.getByRole('heading', { name: `The chosen design: ${name}` }).count()).toBe(1);
+    expect(await candidate.getAttribute('aria-pressed')).toBe('true');
 
     expect(await noSideways(page)).toBe(true);
     await drawing.scrollIntoViewIfNeeded();
