@@ -150,7 +150,7 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
         }),
         ...(view.revision.note ? [text(`Engineer’s note: ${view.revision.note}`, { color: SOFT, margin: [0, 0, 0, 6] })] : []),
         pairs(design.figures),
-        text('The schematic and the part list are on the last page.', { color: SOFT, margin: [0, 6, 0, 0] }),
+        text('The schematic and the part list are at the end of this quote.', { color: SOFT, margin: [0, 6, 0, 0] }),
       ]
     : [
         heading('The design we propose'),
