@@ -75,10 +75,10 @@ describe.each([
     expect(await thumbs.count()).toBe(7);
     const pressed = await thumbs.evaluateAll((buttons) => buttons.map((b) => b.getAttribute('aria-pressed')));
     const candidate = thumbs.nth(pressed.indexOf('false'));
-    const name = (await candidate.locator('span.font-semibold').textContent())!.trim();
+    const candidateName = (await candidate.locator('span.font-semibold').textContent())!.trim();
     expect(await candidate.locator('svg[role="img"]').count()).toBe(1);
     await candidate.click();
-    await expect.poll(() => page.getByRole('heading', { name: `The chosen design: ${name}` }).count()).toBe(1);
+    await expect.poll(() => page.getByRole('heading', { name: `The chosen design: ${candidateName}` }).count()).toBe(1);
     expect(await candidate.getAttribute('aria-pressed')).toBe('true');
 
     expect(await noSideways(page)).toBe(true);
