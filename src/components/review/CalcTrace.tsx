@@ -1,5 +1,5 @@
 import { Fragment } from 'react';
-import type { Option, Quantity } from '~/lib/engine/types';
+import type { Option, Quantity, TraceEntry } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
 import { TYPICAL_NOTE } from '~/lib/review/words';
 
@@ -8,11 +8,18 @@ function quantity(q: Quantity): string {
   return q.unit ? formatSi(q.value, q.unit, 4) : String(Number(q.value.toPrecision(4)));
 }
 
+/** A trace line concerns a part when it is the part's own figure, takes the part as an input, or names it. */
+function concerns(entry: TraceEntry, ref: string): boolean {
+  const own = (name: string) => name === ref || name.startsWith(`${ref}.`);
+  return own(entry.id) || Object.keys(entry.inputs).some(own) || new RegExp(`\\b${ref}\\b`).test(entry.label);
+}
+
 /**
  * The chosen option's calculation trace as a calculation sheet: each line
  * names the figure, states the equation, substitutes the inputs and gives the result.
+ * The lines that concern the `selected` part are marked.
  */
-export function CalcTrace({ option }: { option: Option }) {
+export function CalcTrace({ option, selected = null }: { option: Option; selected?: string | null }) {
   const assumptions = Object.entries(option.assumptions);
   return (
     <div className="calc-sheet">
@@ -20,8 +27,9 @@ export function CalcTrace({ option }: { option: Option }) {
         {option.trace.map((entry, index) => (
           <li
             key={entry.id}
-            className="grid grid-cols-1 gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_minmax(0,1fr)_auto]"
+            className={`grid grid-cols-1 gap-1 px-4 py-3 text-sm sm:grid-cols-[2.5rem_minmax(0,1fr)_auto] ${selected && concerns(entry, selected) ? 'border-l-[6px] border-l-copper-500 bg-copper-50' : ''}`}
             data-trace={entry.id}
+            data-selected={(selected !== null && concerns(entry, selected)) || undefined}
           >
             <span className="font-mono text-ink-faint">{index + 1}.</span>
             <div>

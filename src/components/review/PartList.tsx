@@ -7,11 +7,20 @@ import { ROLE_NAMES, TYPICAL_NOTE } from '~/lib/review/words';
 const dash = (value: number | null, unit: string) => (value === null ? '—' : formatSi(value, unit));
 const pct = (value: number | null) => (value === null ? '—' : `±${Number((value * 100).toPrecision(3))} %`);
 
+interface Props {
+  option: Option;
+  currency: string;
+  id?: string;
+  /** The part marked here and in the drawing; with `onSelect`, each reference is a button that marks its part. */
+  selected?: string | null;
+  onSelect?: (ref: string | null) => void;
+}
+
 /** The chosen option's parts with values, ratings and tolerances, and what each dissipates. */
-export function PartList({ option, currency }: { option: Option; currency: string }) {
+export function PartList({ option, currency, id, selected = null, onSelect }: Props) {
   const heat = new Map(option.dissipation.parts.map((p) => [p.ref, p]));
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-card">
+    <div id={id} className="overflow-x-auto rounded-lg border border-rule bg-card">
       <table className="notebook">
         <caption className="px-3 py-2 text-left text-sm text-ink-soft">
           Part list. Worst and fault dissipation are {TYPICAL_NOTE}. Ratings follow the twice-the-stress rule (common practice).
@@ -47,10 +56,23 @@ export function PartList({ option, currency }: { option: Option; currency: strin
             const rating = [c.ratingW !== null ? formatSi(c.ratingW, 'W') : null, c.ratingV !== null ? formatSi(c.ratingV, 'V') : null]
               .filter(Boolean)
               .join(', ');
+            const marked = selected === c.ref;
             return (
-              <tr key={c.ref}>
-                <th scope="row" className="border-b border-rule font-mono text-ink">
-                  {c.ref}
+              <tr key={c.ref} data-ref={c.ref} data-selected={marked || undefined} className={marked ? 'bg-copper-50' : undefined}>
+                <th scope="row" className={`border-b border-rule font-mono text-ink ${marked ? 'border-l-[6px] border-l-copper-500' : ''}`}>
+                  {onSelect ? (
+                    <button
+                      type="button"
+                      aria-pressed={marked}
+                      title={`Mark ${c.ref} in the drawing and the trace`}
+                      onClick={() => onSelect(marked ? null : c.ref)}
+                      className="font-mono underline decoration-dotted underline-offset-4"
+                    >
+                      {c.ref}
+                    </button>
+                  ) : (
+                    c.ref
+                  )}
                 </th>
                 <td>{ROLE_NAMES[c.role]}</td>
                 <td>{c.part}</td>

@@ -11,6 +11,7 @@ import { CurvesChart } from './CurvesChart';
 import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';
 import { RevisionList, type RevisionSummary } from './RevisionList';
+import { SchematicPanel } from './SchematicPanel';
 import { SpreadChart } from './SpreadChart';
 import { useKeptChoices } from './kept-choices';
 import { UnsavedChoices } from './UnsavedChoices';
@@ -52,6 +53,8 @@ export default function ReviewDesk(props: Props) {
   const [saving, setSaving] = useState(false);
   const [notice, setNotice] = useState<Notice>(null);
   const [revisions, setRevisions] = useState(props.revisions);
+  /** The part marked in the drawing, the part list and the trace. */
+  const [selectedRef, setSelectedRef] = useState<string | null>(null);
 
   const option = result.options.find((o) => o.topology === chosen) ?? result.options[0] ?? null;
   const dirty = JSON.stringify(form) !== JSON.stringify(ran);
@@ -231,16 +234,28 @@ export default function ReviewDesk(props: Props) {
           <h2 id="chosen-heading" className="text-xl font-bold">
             The chosen design: {TOPOLOGY_NAMES[option.topology]}
           </h2>
-          <h3 className="mt-4 text-base font-bold">Part list</h3>
+          <h3 className="mt-4 text-base font-bold">Schematic</h3>
           <div className="mt-2">
-            <PartList option={option} currency={currency} />
+            <SchematicPanel
+              options={result.options}
+              chosen={option}
+              spec={spec}
+              selected={selectedRef}
+              onSelect={setSelectedRef}
+              onChoose={setChosen}
+              describedBy="chosen-part-list"
+            />
+          </div>
+          <h3 className="mt-6 text-base font-bold">Part list</h3>
+          <div className="mt-2">
+            <PartList option={option} currency={currency} id="chosen-part-list" selected={selectedRef} onSelect={setSelectedRef} />
           </div>
           <h3 className="mt-6 text-base font-bold">Calculation trace</h3>
           <p className="text-sm text-ink-soft">
             Every figure with its equation and inputs. Save a revision to print it as a calculation sheet.
           </p>
           <div className="mt-2">
-            <CalcTrace option={option} />
+            <CalcTrace option={option} selected={selectedRef} />
           </div>
         </section>
       )}

@@ -60,6 +60,26 @@ const ledger = {
   paddingBottom: () => 4,
 };
 
+/** The drawing's box on its landscape A4 page, pt: the width between the margins, and room left for the part list. */
+const DRAWING_WIDTH = 746;
+const DRAWING_HEIGHT = 270;
+
+/**
+ * The drawing as the PDF's SVG renderer needs it: each label's characters set in the Manrope
+ * subset that has them (the SVG names one family for all its text).
+ */
+function pdfSvg(svg: string): string {
+  return svg.replace(
+    /(<text [^>]*>)([^<]*)(<\/text>)/g,
+    (_, open: string, body: string, close: string) =>
+      open +
+      runs(body)
+        .map((r) => (typeof r === 'string' ? r : `<tspan font-family="${r.font}">${r.text}</tspan>`))
+        .join('') +
+      close,
+  );
+}
+
 export interface QuoteDocumentOptions {
   /** The client's quote page, where it is accepted and the deposit paid. */
   quoteUrl: string;
@@ -132,38 +152,51 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
         }),
         ...(view.revision.note ? [text(`Engineer’s note: ${view.revision.note}`, { color: SOFT, margin: [0, 0, 0, 6] })] : []),
         pairs(design.figures),
-        section(
-          { text: 'Part list', style: 'h3', margin: [0, 12, 0, 4] },
-          {
-            table: {
-              headerRows: 1,
-              widths: [32, '*', 60, 90, 24],
-              body: [
-                ['Ref', 'Part', 'Value', 'Rating', 'Qty'].map((h, i) => ({
-                  text: h,
-                  bold: true,
-                  color: SOFT,
-                  alignment: i === 4 ? 'right' : 'left',
-                })),
-                ...design.parts.map((p) => [
-                  text(p.ref, { bold: true }),
-                  text(p.part),
-                  text(p.value),
-                  text(p.rating),
-                  { text: String(p.quantity), alignment: 'right' },
-                ]),
-              ],
-            },
-            layout: ledger,
-            fontSize: 8.5,
-          },
-          design.parts.length,
-        ),
+        text('The schematic and the part list are at the end of this quote.', { color: SOFT, margin: [0, 6, 0, 0] }),
       ]
     : [
         heading('The design we propose'),
         text('The design of this revision could not be read; ask the consultancy for the design summary.'),
       ];
+
+  // The drawing on a landscape page of its own, with the part list under it.
+  const drawingPart: Node[] = design
+    ? [
+        {
+          text: runs('Schematic'),
+          style: 'h2',
+          margin: [0, 0, 0, 6],
+          pageBreak: 'before',
+          pageOrientation: 'landscape',
+        },
+        { svg: pdfSvg(design.schematic), fit: [DRAWING_WIDTH, DRAWING_HEIGHT], margin: [0, 0, 0, 8] },
+        // The list may run onto the next page: the drawing and the start of the list stay together.
+        { text: 'Part list', style: 'h3', margin: [0, 4, 0, 4] },
+        {
+          table: {
+            headerRows: 1,
+            widths: [32, '*', 80, 150, 24],
+            body: [
+              ['Ref', 'Part', 'Value', 'Rating', 'Qty'].map((h, i) => ({
+                text: h,
+                bold: true,
+                color: SOFT,
+                alignment: i === 4 ? 'right' : 'left',
+              })),
+              ...design.parts.map((p) => [
+                text(p.ref, { bold: true }),
+                text(p.part),
+                text(p.value),
+                text(p.rating),
+                { text: String(p.quantity), alignment: 'right' },
+              ]),
+            ],
+          },
+          layout: ledger,
+          fontSize: 8,
+        },
+      ]
+    : [];
 
   const safety: Node = {
     margin: [0, 16, 0, 0],
@@ -297,6 +330,7 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       safety,
       section(heading('Price'), { stack: [lines, totals] }, view.lines.length + 4),
       { stack: [...terms, accept], unbreakable: closingRows <= KEEP_TOGETHER_ROWS },
+      ...drawingPart,
     ],
   };
 }

@@ -9,6 +9,7 @@ import type { Evaluation, Option } from '../engine/types';
 import { formatKPerW, formatSi } from '../engine/units';
 import { chosenOption, TOPOLOGY_NAMES, percent } from '~/lib/review';
 import { ES1_DC_LIMIT_V } from '../engine/cautions';
+import { drawSchematic, railFiguresOf, type RailFigures } from '~/lib/schematic';
 import { brief, clientProfile, designRevision, quote, user, type QuoteState } from '../platform/db/schema';
 import { quoteLines, type QuoteLineRow, type QuoteRow } from './core.server';
 import type { DbOrTx } from '../platform/db/connect';
@@ -38,6 +39,8 @@ export interface DesignSummary {
   figures: Row[];
   parts: PartRow[];
   cautions: string[];
+  /** The design drawn (SVG): the quote page and the PDF show it. */
+  schematic: string;
 }
 
 /** A sent quote past its validity reads as expired, whether or not anyone has marked it. */
@@ -102,7 +105,7 @@ function partRating(c: Option['components'][number]): string {
   return parts.filter(Boolean).join(', ') || '—';
 }
 
-export function designSummary(option: Option): DesignSummary {
+export function designSummary(option: Option, rail: RailFigures): DesignSummary {
   const hottest = [...option.junctions].sort((a, b) => b.tjC - a.tjC)[0];
   const figures: Row[] = [
     { label: 'Efficiency', value: `${percent(option.efficiency.nominal)} nominal, ${percent(option.efficiency.worst)} worst case` },
@@ -137,6 +140,7 @@ export function designSummary(option: Option): DesignSummary {
     figures,
     parts: option.components.map((c) => ({ ref: c.ref, part: c.part, value: partValue(c), rating: partRating(c), quantity: c.quantity })),
     cautions: option.cautions.map((c) => c.message),
+    schematic: drawSchematic(option, rail, 'design-schematic').svg,
   };
 }
 
@@ -172,6 +176,6 @@ export async function loadQuoteView(db: DbOrTx, quoteId: string, now = new Date(
     client: found.client,
     revision: { id: found.revision.id, number: found.revision.number, topology: found.revision.topology, note: found.revision.note },
     requirements: requirementRows(found.revision.input as RailSpec, found.brief.spec),
-    design: option ? designSummary(option) : null,
+    design: option ? designSummary(option, railFiguresOf(found.revision.input as RailSpec)) : null,
   };
 }

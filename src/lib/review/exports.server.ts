@@ -1,8 +1,9 @@
 /**
- * Exports of a saved revision: the chosen design as a SPICE netlist and its
- * part list as CSV. Both read the revision's stored result, never a re-run.
+ * Exports of a saved revision: the chosen design as a SPICE netlist, its part
+ * list as CSV and its schematic as SVG. All read the revision's stored result,
+ * never a re-run.
  */
-import { eq } from 'drizzle-orm';
+import { and, desc, eq, isNotNull } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { toSpiceNetlist, type Evaluation, type Option, type SpiceCorner } from '../engine';
 import { chosenOption } from './compare';
@@ -11,11 +12,14 @@ import { ROLE_NAMES, TYPICAL_NOTE } from './words';
 import { TOPOLOGY_NAMES } from './option-words';
 import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
-import { brief, designRevision, rateCard } from '../platform/db/schema';
+import { brief, designRevision, quote, rateCard } from '../platform/db/schema';
+import { isStaff, type SignedInUser } from '../platform/http/guard';
+import { drawSchematic, railFiguresOf } from '~/lib/schematic';
+import type { RailSpec } from '../engine/rail-spec';
 
 export async function findRevisionWithBrief(id: string) {
   const [row] = await db
-    .select({ revision: designRevision, briefTitle: brief.title })
+    .select({ revision: designRevision, briefTitle: brief.title, ownerId: brief.ownerId })
     .from(designRevision)
     .innerJoin(brief, eq(brief.id, designRevision.briefId))
     .where(eq(designRevision.id, id))
@@ -24,6 +28,48 @@ export async function findRevisionWithBrief(id: string) {
 }
 
 export type RevisionWithBrief = NonNullable<Awaited<ReturnType<typeof findRevisionWithBrief>>>;
+
+/** Staff see every revision's drawing; a client sees one of their own brief's once a quote for that revision has been sent. */
+export async function drawingVisibleTo(viewer: SignedInUser, found: RevisionWithBrief): Promise<boolean> {
+  if (isStaff(viewer)) return true;
+  if (found.ownerId !== viewer.id) return false;
+  const [sent] = await db
+    .select({ id: quote.id })
+    .from(quote)
+    .where(and(eq(quote.revisionId, found.revision.id), isNotNull(quote.sentAt)))
+    .limit(1);
+  return sent !== undefined;
+}
+
+/** The design last quoted to the brief's owner, drawn: the revision of the newest sent quote. */
+export async function quotedDrawing(
+  briefId: string,
+): Promise<{ svg: string; revisionNumber: number; parts: { ref: string; part: string; value: string }[] } | null> {
+  const [row] = await db
+    .select({ revision: designRevision })
+    .from(quote)
+    .innerJoin(designRevision, eq(designRevision.id, quote.revisionId))
+    .where(and(eq(quote.briefId, briefId), isNotNull(quote.sentAt)))
+    .orderBy(desc(quote.sentAt))
+    .limit(1);
+  const option = row ? chosenOption({ topology: row.revision.topology, result: row.revision.result as Evaluation }) : null;
+  if (!row || !option) return null;
+  return {
+    svg: drawSchematic(option, railFiguresOf(row.revision.input as RailSpec), 'quoted-drawing').svg,
+    revisionNumber: row.revision.number,
+    parts: option.components.map((c) => ({ ref: c.ref, part: c.part, value: componentValue(c) })),
+  };
+}
+
+export type SchematicOutcome = { ok: true; svg: string } | { ok: false; message: string };
+
+/** The revision's chosen design drawn as a standalone SVG document. */
+export function revisionSchematic(found: RevisionWithBrief): SchematicOutcome {
+  const option = chosenOf(found);
+  if (!option) return { ok: false, message: 'This revision holds no design for its chosen topology.' };
+  const { svg } = drawSchematic(option, railFiguresOf(found.revision.input as RailSpec));
+  return { ok: true, svg: `<?xml version="1.0" encoding="UTF-8"?>\n${svg}\n` };
+}
 
 /** The currency parts costs are kept in: the rate card's. */
 export async function partsCurrency(): Promise<string> {

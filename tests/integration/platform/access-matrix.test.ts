@@ -157,6 +157,12 @@ const ROWS: Row[] = [
   },
   {
     method: 'GET',
+    file: 'api/v1/revisions/[id]/schematic.svg.ts',
+    path: () => `/api/v1/revisions/${ids.revision}/schematic.svg`,
+    expect: [401, 200, 404, 200, 200],
+  },
+  {
+    method: 'GET',
     file: 'api/v1/revisions/compare.ts',
     path: () => `/api/v1/revisions/compare?a=${ids.revision}&b=${ids.revision}`,
     expect: [401, 403, 403, 200, 200],

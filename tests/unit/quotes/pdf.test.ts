@@ -11,6 +11,7 @@ import { renderQuotePdf } from '../../../src/lib/quotes/render.server';
 import { runs } from '../../../src/lib/platform/pdf/fonts';
 import { DEFAULT_TERMS, validUntilFrom, type QuoteRow } from '../../../src/lib/quotes/core.server';
 import { designSummary, requirementRows, type QuoteView } from '../../../src/lib/quotes/view.server';
+import { railFiguresOf } from '../../../src/lib/schematic';
 
 const card = rateCardSchema.parse(DEMO_RATE_CARD);
 
@@ -64,7 +65,7 @@ function highVoltageView(): QuoteView {
     client: { name: 'Łukasz Żak', email: 'lz@detector.test', company: 'Żak Instruments' },
     revision: { id: 'r', number: 1, topology: option.topology, note: '' },
     requirements: requirementRows(input),
-    design: designSummary(option),
+    design: designSummary(option, railFiguresOf(input)),
   };
 }
 
@@ -127,17 +128,45 @@ describe('the quote PDF', () => {
   }, 60_000);
 
   test('a heatsink figure reads in K/W with two significant figures', () => {
-    const option = evaluate(
-      railSpecSchema.parse({
-        input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
-        output: { v: 150, tolerance: 0.02, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
-        noise: { class: 'sensor', maxRippleVpp: 0.01 },
-        thermal: { ambientMaxC: 35, airflow: 'still-air' },
-      }),
-      defaultCatalog,
-    ).options[0]!;
-    const summary = designSummary({ ...option, heatsink: { required: true, maxThetaSaCW: 0.36 } });
+    const spec = railSpecSchema.parse({
+      input: { vMin: 300, vNom: 325, vMax: 350, rippleVpp: 4, source: 'rectified' },
+      output: { v: 150, tolerance: 0.02, iMin: 0.002, iTyp: 0.01, iMax: 0.02 },
+      noise: { class: 'sensor', maxRippleVpp: 0.01 },
+      thermal: { ambientMaxC: 35, airflow: 'still-air' },
+    });
+    const option = evaluate(spec, defaultCatalog).options[0]!;
+    const summary = designSummary({ ...option, heatsink: { required: true, maxThetaSaCW: 0.36 } }, railFiguresOf(spec));
     expect(summary.figures.find((r) => r.label === 'Heatsink')?.value).toBe('needed, at most 0.36 K/W');
+  });
+
+  test('draws the design on a landscape page of its own, labels in embedded Manrope, with the part list', async () => {
+    const view = highVoltageView();
+    const pdf = await renderQuotePdf(view, { quoteUrl: 'https://railwright.test/quotes/q' });
+    const file = path.join(mkdtempSync(path.join(tmpdir(), 'railwright-pdf-')), 'quote.pdf');
+    writeFileSync(file, pdf);
+    const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))?.[1]);
+    const pageText = (n: number) =>
+      execFileSync('pdftotext', ['-layout', '-f', String(n), '-l', String(n), file, '-'], { encoding: 'utf8' });
+    // The drawing's page: the first that starts with its heading; nothing of it is on the page before.
+    const at = Array.from({ length: pages }, (_, i) => i + 1).find((n) => pageText(n).trimStart().startsWith('Schematic'))!;
+    expect(at).toBeGreaterThan(1);
+    expect(pageText(at - 1)).not.toContain('Marked nets');
+    const drawingPage = Array.from({ length: pages - at + 1 }, (_, i) => pageText(at + i))
+      .join(' ')
+      .replace(/\s+/g, ' ');
+    expect(drawingPage).toContain('Schematic');
+    expect(drawingPage).toContain('Part list');
+    expect(drawingPage).toContain('Marked nets may exceed 60 V DC: dangerous voltage');
+    const option = view.design!;
+    for (const p of option.parts) expect(drawingPage).toContain(p.ref);
+    // The drawing's own labels: its terminals' ranges and the values with SI prefixes, Ω set from the Greek subset.
+    expect(drawingPage).toContain('300 V – 350 V');
+    expect(drawingPage).toMatch(/150 V \(147 V – 153 V\)/);
+    expect(drawingPage).toMatch(/301 k ?Ω/);
+    const size = execFileSync('pdfinfo', ['-f', String(at), '-l', String(at), file], { encoding: 'utf8' });
+    expect(size).toMatch(/Page\s+\d+ size:\s+841\.89 x 595\.28/);
+    const fonts = poppler('pdffonts', pdf).split('\n').slice(2).filter(Boolean);
+    for (const row of fonts) expect(row).toMatch(/Manrope/);
   });
 
   test('characters go to the font subset that draws them', () => {

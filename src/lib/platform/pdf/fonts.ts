@@ -1,7 +1,7 @@
 /**
  * Manrope for the PDF, from @fontsource/manrope's `.woff` files (pdfmake's
- * font reader breaks on `.woff2`). The files are read once per process into
- * pdfmake's in-memory file system. Fontsource splits the face into
+ * font reader breaks on `.woff2`). The files are read once per process and
+ * written, unwrapped, to a private temporary folder. Fontsource splits the face into
  * per-script subsets, so each character is set in the subset that has it
  * (Ω for resistor values is Greek, Ł in a client's name is Latin Extended).
  */
@@ -47,8 +47,10 @@ export function woffToSfnt(woff: Buffer): Buffer {
   });
   return out;
 }
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { inflateSync } from 'node:zlib';
 import pdfmake from 'pdfmake';
 
@@ -111,19 +113,24 @@ export const BASE_FAMILY = 'Manrope';
 
 const require = createRequire(import.meta.url);
 const fonts: Record<string, { normal: string; bold: string; italics: string; bolditalics: string }> = {};
+// The faces go to files in a private folder rather than pdfmake's in-memory file system: the SVG
+// renderer (schematic drawings) hands the font's path straight to PDFKit, which reads from disk.
+const fontFolder = mkdtempSync(path.join(tmpdir(), 'railwright-fonts-'));
+const fontFiles = new Set<string>();
 for (const subset of SUBSETS) {
-  const name = (weight: number) => `manrope-${subset.file}-${weight}.ttf`;
+  const name = (weight: number) => path.join(fontFolder, `manrope-${subset.file}-${weight}.ttf`);
   for (const weight of [400, 700]) {
     const woff = readFileSync(require.resolve(`@fontsource/manrope/files/manrope-${subset.file}-${weight}-normal.woff`));
-    pdfmake.virtualfs.writeFileSync(name(weight), woffToSfnt(woff));
+    writeFileSync(name(weight), woffToSfnt(woff));
+    fontFiles.add(name(weight));
   }
   // Manrope has no italic; emphasis in the quote is by weight, so italics map to upright.
   fonts[subset.family] = { normal: name(400), bold: name(700), italics: name(400), bolditalics: name(700) };
 }
 pdfmake.setFonts(fonts);
-// Documents are built from our own data only: no URLs or local paths are ever fetched.
+// Documents are built from our own data only: no URLs are fetched, and no local path but the fonts'.
 pdfmake.setUrlAccessPolicy(() => false);
-pdfmake.setLocalAccessPolicy(() => false);
+pdfmake.setLocalAccessPolicy((file) => fontFiles.has(file));
 
 export { pdfmake };
 
