@@ -39,7 +39,7 @@ function Compared({ ranked }: { ranked: Ranked }) {
     <>
       {shown.length > 0 && (
         <div
-          className="mt-3 max-w-full overflow-x-auto [contain:inline-size]"
+          className="relative mt-3 max-w-full overflow-x-auto [contain:inline-size]"
           role="region"
           aria-label="Ways that work, compared"
           tabIndex={0}

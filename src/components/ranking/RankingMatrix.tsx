@@ -96,7 +96,7 @@ export function RankingMatrix({ matrix, choice, busy }: Props) {
   const pickEdge = (k: number) => (columns[k]?.pick ? 'border-x-2 border-copper-600' : '');
   return (
     <div
-      className="max-w-full overflow-x-auto [contain:inline-size] rounded-lg border border-rule bg-card"
+      className="relative max-w-full overflow-x-auto [contain:inline-size] rounded-lg border border-rule bg-card"
       role="region"
       aria-label="Ways compared, scrolls sideways"
       tabIndex={0}
@@ -154,7 +154,15 @@ export function RankingMatrix({ matrix, choice, busy }: Props) {
             {columns.map((c, k) => (
               <td key={c.topology} className={`align-top text-xs ${pickEdge(k)} ${c.pick ? 'border-b-2' : ''}`} data-reasons={c.topology}>
                 {c.reasons.length === 0 && <span className="text-ink-faint">Nothing</span>}
-                {c.feasibility === 'blocked' && <Reasons reasons={c.reasons} blocked />}
+                {c.feasibility === 'blocked' && <Reasons reasons={c.reasons.slice(0, 1)} blocked />}
+                {c.feasibility === 'blocked' && c.reasons.length > 1 && (
+                  <details className="mt-1">
+                    <summary className="cursor-pointer font-semibold text-stop-700">
+                      {c.reasons.length === 2 ? '1 more blocker' : `${c.reasons.length - 1} more blockers`}
+                    </summary>
+                    <Reasons reasons={c.reasons.slice(1)} blocked />
+                  </details>
+                )}
                 {c.feasibility !== 'blocked' && c.reasons.length > 0 && (
                   <details>
                     <summary className="cursor-pointer font-semibold text-warn-700">

@@ -27,6 +27,8 @@ const HEIGHT = 300;
 /** Average width of a 12 px Manrope character, for placing labels before they are drawn. */
 const LABEL_CHAR_PX = 6.8;
 
+const clampTo = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
+
 function Marker({ kind, x, y }: { kind: PointKind; x: number; y: number }) {
   if (kind === 'blocked') return <rect x={x - 5} y={y - 5} width={10} height={10} fill="#ffffff" stroke={FAINT} strokeWidth={1.5} />;
   return (
@@ -126,6 +128,17 @@ export function TradeoffPlot({
           <text x={MARGIN.left + 6} y={MARGIN.top + plotH - 6} fontSize={11} fill={FAINT}>
             ↙ less loss, less cost
           </text>
+          {ordered.map((p, k) => (
+            <line
+              key={`lead-${p.topology}`}
+              x1={px(p.costCents)}
+              y1={py(p.lossW)}
+              x2={clampTo(px(p.costCents), boxes[k]!.left, boxes[k]!.right)}
+              y2={clampTo(py(p.lossW), boxes[k]!.top, boxes[k]!.bottom)}
+              stroke={FAINT}
+              strokeWidth={0.75}
+            />
+          ))}
           {points.map((p) => (
             <Marker key={p.topology} kind={p.kind} x={px(p.costCents)} y={py(p.lossW)} />
           ))}

@@ -44,7 +44,7 @@ export function WeightsControl({ weights, onChange, errorAt, rail }: Props) {
                 {[...WEIGHT_STEPS, ...(custom === null ? [] : [{ value: custom, word: `As saved (${custom})` }])].map((step) => (
                   <label
                     key={step.value}
-                    className="cursor-pointer border-r border-ink/15 px-2.5 py-1 text-sm last:border-r-0 has-[:checked]:bg-copper-700 has-[:checked]:font-semibold has-[:checked]:text-white has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-copper-500"
+                    className="relative cursor-pointer border-r border-ink/15 px-2.5 py-1 text-sm last:border-r-0 has-[:checked]:bg-copper-700 has-[:checked]:font-semibold has-[:checked]:text-white has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-copper-500"
                   >
                     <input
                       type="radio"

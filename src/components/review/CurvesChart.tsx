@@ -13,12 +13,15 @@ const KIND = {
   efficiency: {
     title: 'Efficiency across the input range (typical load)',
     axis: 'Efficiency, %',
+    distr: 1,
     value: (o: Option) => o.curves.efficiency.map((v) => (v === null ? null : v * 100)),
     text: (v: number) => `${v.toFixed(1)} %`,
   },
   dissipation: {
     title: 'Power lost across the input range (highest load)',
-    axis: 'Power lost, W',
+    axis: 'Power lost, W (log)',
+    // Losses of the ways to build one rail differ by decades: a log axis keeps the small ones readable.
+    distr: 3,
     value: (o: Option) => o.curves.dissipationW,
     text: (v: number) => formatSi(v, 'W'),
   },
@@ -56,13 +59,14 @@ export function CurvesChart({ options, kind, pick, nominalV }: Props) {
   const spec = KIND[kind];
   const build = useMemo<ChartBuilder>(
     () => (lib, width) => {
-      const data = lib.join(options.map((o) => [o.curves.vIn, spec.value(o)] as uPlot.AlignedData));
+      const plotted = (o: Option) => spec.value(o).map((v) => (spec.distr === 3 && v !== null && v <= 0 ? null : v));
+      const data = lib.join(options.map((o) => [o.curves.vIn, plotted(o)] as uPlot.AlignedData));
       return {
         data,
         options: {
           width,
           height: 260,
-          scales: { x: { time: false } },
+          scales: { x: { time: false }, y: { distr: spec.distr } },
           axes: [
             { ...AXIS_STYLE, label: 'Input voltage, V' },
             {
