@@ -176,10 +176,20 @@ export function RankingMatrix({ matrix, choice, busy }: Props) {
                   <div className="mt-2" data-fixes>
                     <p className="font-semibold">What would clear it</p>
                     <ul className="mt-0.5 list-disc pl-4">
-                      {c.fixes.map((f) => (
-                        <li key={f}>{f}</li>
-                      ))}
+                      <li>{c.fixes[0]}</li>
                     </ul>
+                    {c.fixes.length > 1 && (
+                      <details className="mt-0.5">
+                        <summary className="cursor-pointer font-semibold">
+                          {c.fixes.length === 2 ? '1 more way' : `${c.fixes.length - 1} more ways`}
+                        </summary>
+                        <ul className="mt-0.5 list-disc pl-4">
+                          {c.fixes.slice(1).map((f) => (
+                            <li key={f}>{f}</li>
+                          ))}
+                        </ul>
+                      </details>
+                    )}
                   </div>
                 )}
               </td>

@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import type { Option, TopologyId } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
+import { logTicks } from '~/lib/ranking/tradeoff';
 import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { TYPICAL_NOTE } from '~/lib/review/words';
 import { AXIS_STYLE, drawNominal, FADED, SERIES_LOOK } from './chart-styles';
@@ -74,6 +75,7 @@ export function CurvesChart({ options, kind, pick, nominalV }: Props) {
               label: spec.axis,
               size: 60,
               values: (_u, ticks) => ticks.map((t) => (kind === 'efficiency' ? `${t}` : formatSi(t, ''))),
+              ...(spec.distr === 3 ? { splits: (_u: uPlot, _axis: number, min: number, max: number) => logTicks(min, max) } : {}),
             },
           ],
           legend: { show: false },

@@ -114,6 +114,8 @@ function hottestCell(o: Option) {
 
 function noiseCell(o: Option, ctx: MatrixContext) {
   const ripple = `${formatSi(o.outputRippleVpp, 'Vpp')} of ${formatSi(ctx.rippleLimitVpp, 'Vpp')}`;
+  // A blocked design stops before its ripple is worked out; zero then is no figure at all.
+  if (o.outputRippleVpp === 0 && !o.feasible) return { text: 'Not worked out', note: 'the design stops before this figure' };
   if (o.outputRippleVpp === 0) return { text: 'No ripple of its own', note: `limit ${formatSi(ctx.rippleLimitVpp, 'Vpp')}` };
   const db = noiseMarginDb(o.outputRippleVpp, ctx.rippleLimitVpp);
   if (db >= 0) return { text: `${db.toFixed(0)} dB under`, note: ripple };

@@ -35,13 +35,18 @@ export function logAxis(values: readonly number[]): LogAxis {
   const hi = positive.length ? Math.max(...positive) : 1;
   const min = lo / 1.6;
   const max = hi * 1.6;
+  return { min, max, ticks: logTicks(min, max) };
+}
+
+/** 1-2-5 values from min to max (both > 0), for the ticks of any log axis. */
+export function logTicks(min: number, max: number): number[] {
   const ticks: number[] = [];
   for (let decade = Math.floor(Math.log10(min)); decade <= Math.ceil(Math.log10(max)); decade++)
     for (const m of [1, 2, 5]) {
-      const t = m * 10 ** decade;
-      if (t >= min && t <= max) ticks.push(Number(t.toPrecision(1)));
+      const t = Number((m * 10 ** decade).toPrecision(1));
+      if (t >= min && t <= max) ticks.push(t);
     }
-  return { min, max, ticks };
+  return ticks;
 }
 
 /** Where a value falls on the axis, 0 at its minimum to 1 at its maximum; a value ≤ 0 sits at the minimum. */

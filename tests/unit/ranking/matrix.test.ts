@@ -144,6 +144,14 @@ describe('the ranking matrix', () => {
     expect(noiseMarginDb(0, 0.05)).toBeCloseTo(60, 10);
   });
 
+  test('a blocked design’s zero ripple is not worked out, not “no ripple”', () => {
+    const result: Evaluation = {
+      recommended: 'buck',
+      options: [way('linear', { outputRippleVpp: 0 }), way('boost', { outputRippleVpp: 0, feasible: false, score: null })],
+    };
+    expect(rowOf(result, 'noise').cells.map((c) => c.text)).toEqual(['No ripple of its own', 'Not worked out']);
+  });
+
   test('without a currency (the client’s wizard) the cost row is left out', () => {
     const result: Evaluation = { recommended: 'buck', options: [way('buck', {})] };
     expect(rankingMatrix(result, { ...ctx, currency: null }).rows.map((r) => r.key)).not.toContain('cost');
