@@ -4,7 +4,7 @@
  * the steps are those values, so a saved revision and the API keep one meaning for a number.
  */
 import type { RailSpec } from '../engine/rail-spec';
-import { effectiveWeights } from '../engine/scoring';
+import { effectiveWeights } from '../engine/scoring/weights';
 import type { WeightKey } from '../review/words';
 
 export const WEIGHT_STEPS = [
