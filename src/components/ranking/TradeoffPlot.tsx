@@ -70,6 +70,8 @@ export function TradeoffPlot({
   const yAxis = logAxis(points.map((p) => p.lossW));
   const plotW = Math.max(120, width - MARGIN.left - MARGIN.right);
   const plotH = HEIGHT - MARGIN.top - MARGIN.bottom;
+  // On a narrow plot the money labels would run together: keep the 1s and 5s.
+  const xTicks = plotW < 400 ? xAxis.ticks.filter((t) => Math.abs(t / 10 ** Math.floor(Math.log10(t)) - 2) > 0.01) : xAxis.ticks;
   const px = (cents: number) => MARGIN.left + logPosition(xAxis, cents) * plotW;
   const py = (w: number) => MARGIN.top + (1 - logPosition(yAxis, w)) * plotH;
   // The pick's label is placed first so it keeps the best spot; the others, top to bottom.
@@ -94,7 +96,7 @@ export function TradeoffPlot({
           className="block h-auto max-w-full font-sans"
           data-tradeoff-plot
         >
-          {xAxis.ticks.map((t) => (
+          {xTicks.map((t) => (
             <g key={`x${t}`}>
               <line x1={px(t)} x2={px(t)} y1={MARGIN.top} y2={MARGIN.top + plotH} stroke={RULE} />
               <text x={px(t)} y={MARGIN.top + plotH + 16} textAnchor="middle" fontSize={11} fill={FAINT}>

@@ -126,7 +126,7 @@ const QUALITIES: Quality[] = [
   {
     key: 'meets',
     label: 'Meets the brief',
-    better: 'yes, with caution or no',
+    better: 'can it be built as briefed',
     value: (o) => MEETS_ORDER[feasibilityOf(o)],
     cell: (o) => ({ text: MEETS_TEXT[feasibilityOf(o)], note: null }),
   },
