@@ -10,16 +10,27 @@ const browser = useBrowser();
 
 const LAPTOP = { width: 1440, height: 900 };
 
-/** The options in the order the page shows them, best first. */
-/** Each card's topology and score, best first: a re-run with new weights changes the scores even where the order stays. */
+/** Each column's topology and score, in the order the matrix shows them: a re-run with new weights changes the scores even where the order stays. */
 async function standing(page: Page): Promise<string[]> {
-  return page
-    .getByRole('list', { name: 'Options, best first' })
-    .locator('article[data-topology]')
-    .evaluateAll((cards) =>
-      cards.map((c) => `${c.getAttribute('data-topology') ?? ''} ${c.querySelector('[data-figure="score"] dd')?.textContent ?? ''}`),
+  return page.locator('table[data-ranking-matrix]').evaluate((table) => {
+    const scores = [...table.querySelectorAll('tr[data-row="score"] td')].map((td) => td.textContent ?? '');
+    return [...table.querySelectorAll('thead th[data-column]')].map(
+      (th, k) => `${th.getAttribute('data-column') ?? ''} ${scores[k] ?? ''}`,
     );
+  });
 }
+
+/** One quality's step in the "what matters most" control. */
+const weightStep = (page: Page, quality: string, step: string) =>
+  page.getByRole('radiogroup', { name: quality, exact: true }).getByLabel(step, { exact: true });
+
+/** Sets a quality's step the way a person does: by clicking its word. */
+const chooseWeight = (page: Page, quality: string, step: string) =>
+  page
+    .getByRole('radiogroup', { name: quality, exact: true })
+    .locator('label')
+    .filter({ hasText: new RegExp(`^${step}$`) })
+    .click();
 
 async function chartsDrawn(page: Page): Promise<void> {
   // uPlot is loaded on demand; three canvases appear once it has drawn.
@@ -69,10 +80,32 @@ describe('an engineer reviews a brief', () => {
     await chartsDrawn(page);
     const before = await standing(page);
     expect(before).toHaveLength(7);
+    // The pick stands first and marked; the ways that cannot be built carry no score and say what stops them.
+    const pick = page.locator('thead th[data-column]').first();
+    expect(await pick.textContent()).toContain('Our pick');
+    expect(await page.locator('thead th[data-column]', { hasText: 'Our pick' }).count()).toBe(1);
+    const blocked = page.locator('td[data-standing="blocked"]');
+    expect(await blocked.count()).toBeGreaterThan(0);
+    for (const column of await page.locator('td[data-reasons]').all()) {
+      const topology = await column.getAttribute('data-reasons');
+      const index = await page.locator(`thead th[data-column="${topology}"]`).evaluate((th) => (th as HTMLTableCellElement).cellIndex - 1);
+      const state = await page.locator('tr[data-row="meets"] td').nth(index).getAttribute('data-standing');
+      const score = await page.locator('tr[data-row="score"] td').nth(index).textContent();
+      if (state === 'blocked') {
+        expect(score).toContain('Not scored');
+        expect(await column.textContent()).toMatch(/✕ \S/);
+      } else expect(score).toMatch(/\d+\.\d/);
+    }
+    // The weights say their real scale in words, not 0–100.
+    const weights = page.getByRole('group', { name: 'What matters most for this rail' });
+    expect(await weights.textContent()).toContain('ignore = 0, a little = 1, matters = 2, matters most = 3');
+    expect(await weights.textContent()).not.toContain('0–100');
+    expect(await weightStep(page, 'Efficiency', 'Matters most').isChecked()).toBe(true);
     await screenshot(page, 'review-high-voltage');
 
-    // A much heavier cost weight and a forced pass device: re-run, and the standing changes.
-    await page.getByLabel('Parts cost weight').fill('10');
+    // Cost counts most, efficiency not at all, and a forced pass device: re-run, and the standing changes.
+    await chooseWeight(page, 'Parts cost', 'Matters most');
+    await chooseWeight(page, 'Efficiency', 'Ignore');
     await page.getByLabel('Pass device').selectOption('nmos');
     await expect.poll(() => page.getByText('Changed since the last run').count()).toBe(1);
     await page.getByRole('button', { name: 'Re-run the engine' }).click();
@@ -101,7 +134,8 @@ describe('an engineer reviews a brief', () => {
     await page.getByText('Choices of revision 1.', { exact: false }).waitFor();
     expect(await page.getByLabel('Standoff voltage').inputValue()).toBe('');
     expect(await page.getByLabel('Pass device').inputValue()).toBe('nmos');
-    expect(await page.getByLabel('Parts cost weight').inputValue()).toBe('10');
+    expect(await weightStep(page, 'Parts cost', 'Matters most').isChecked()).toBe(true);
+    expect(await weightStep(page, 'Efficiency', 'Ignore').isChecked()).toBe(true);
 
     await page.getByLabel('Compare', { exact: true }).selectOption({ label: 'Revision 1' });
     await page.getByLabel('with', { exact: true }).selectOption({ label: 'Revision 2' });
@@ -137,7 +171,7 @@ describe('an engineer reviews a brief', () => {
     await signInThroughForm(page, baseUrl, DEMO.engineer);
     await page.goto(`${baseUrl}/desk?q=Bench`);
     await page.getByRole('link', { name: 'Bench meter analog front-end, quiet 12 V' }).click();
-    await page.getByRole('heading', { name: 'Ways to build it, best first' }).waitFor();
+    await page.getByRole('heading', { name: 'Ways to build it, side by side' }).waitFor();
     await islandsReady(page);
     await chartsDrawn(page);
     const spread = page.getByRole('figure', { name: /Output-voltage spread/ });
@@ -149,11 +183,11 @@ describe('an engineer reviews a brief', () => {
     );
     await screenshot(page, 'review-quiet');
 
-    // Keyboard: the weight fields are reachable and a typed value re-runs on Enter.
-    await page.getByLabel('Quietness weight').focus();
-    await page.keyboard.press('Control+A');
-    await page.keyboard.type('9');
-    await page.keyboard.press('Enter');
+    // Keyboard: a quality's steps are one stop, the arrows move between them, and the run button re-ranks.
+    await weightStep(page, 'Quietness', 'Matters').focus();
+    await page.keyboard.press('ArrowRight');
+    expect(await weightStep(page, 'Quietness', 'Matters most').isChecked()).toBe(true);
+    await page.getByRole('button', { name: 'Re-run the engine' }).press('Enter');
     await page.getByText('The options below reflect these choices.').waitFor();
     expect(errors).toEqual([]);
     await context.close();
@@ -167,12 +201,21 @@ describe('an engineer reviews a brief', () => {
     await signInThroughForm(page, baseUrl, DEMO.engineer);
     await page.goto(`${baseUrl}/desk?q=Aster`);
     await page.getByRole('link', { name: 'Detector bias, 150 V from a 300–350 V supply' }).click();
-    await page.getByRole('heading', { name: 'Ways to build it, best first' }).waitFor();
+    await page.getByRole('heading', { name: 'Ways to build it, side by side' }).waitFor();
     // Long equations and figure lists wrap instead of widening the page.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-    await page.getByRole('heading', { name: 'Ways to build it, best first' }).scrollIntoViewIfNeeded();
+    await page.getByRole('heading', { name: 'Ways to build it, side by side' }).scrollIntoViewIfNeeded();
     await islandsReady(page);
     await chartsDrawn(page);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    // The matrix scrolls sideways inside its own box, its first column staying in view.
+    const matrix = page.getByRole('region', { name: 'Ways compared, scrolls sideways' });
+    const box = await matrix.evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth }));
+    expect(box.scroll).toBeGreaterThan(box.client);
+    await matrix.evaluate((el) => el.scrollBy({ left: 400 }));
+    const firstColumn = await page.locator('tr[data-row="loss"] th').boundingBox();
+    expect(firstColumn?.x).toBeGreaterThanOrEqual(0);
+    expect(firstColumn?.x).toBeLessThan(40);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await screenshot(page, 'review-phone');
     expect(errors).toEqual([]);

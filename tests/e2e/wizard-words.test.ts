@@ -98,14 +98,15 @@ describe('the wizard reads as a client expects', () => {
     await fill(page, 'Highest load current', '20m');
     await fill(page, 'Typical load current', '10m');
     await fill(page, 'Lowest load current', '2m');
-    await expect.poll(() => settledPanel(page), { timeout: 20_000 }).toMatch(/\d of \d ways can meet this rail/);
+    await expect.poll(() => settledPanel(page), { timeout: 20_000 }).toMatch(/\d of \d ways work for this rail/);
     const panel = await settledPanel(page);
     expect(panel).not.toMatch(/θ|K\/W|mK/);
     const cautions = (await page.getByRole('note').textContent()) ?? '';
     expect(cautions).toContain('ES1 limit');
     // No part references or figures of a particular design: those belong to the engineer's review.
     expect(cautions).not.toMatch(/\((?:about|beyond)|½·C·V²|[QDRCU]\d/);
-    for (const line of await page.locator('[data-topology] p').allTextContents()) expect(line).toMatch(/^Cannot be built: it /);
+    for (const line of await page.getByRole('list', { name: 'Ways that can’t be built' }).locator('li').allTextContents())
+      expect(line).toMatch(/^[^:]+: it [a-z].*\.$/);
     await screenshot(page, `wizard-words-${label}-panel`);
 
     // Nothing can be built: the panel says so and why, in one plain sentence.

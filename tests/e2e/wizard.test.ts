@@ -40,6 +40,11 @@ describe('a new client describes a rail', () => {
       // 18–30 V in, 5 V out: a step-down switcher should head the list.
       await expect.poll(() => rankingText(page), { timeout: 15_000 }).toContain('Buck (step-down) switcher');
       const before = await rankingText(page);
+      // The ways that work side by side, the pick first; the others said in a client's words, no device figures.
+      const panel = page.getByRole('region', { name: 'Ways to build it' });
+      expect(await panel.locator('thead th[data-column]').first().textContent()).toContain('Our pick');
+      expect(await panel.getByRole('list', { name: 'Ways that can’t be built' }).textContent()).not.toMatch(/θ|SOA|K\/W/);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewport.width);
       await page.getByRole('button', { name: 'Next' }).click();
 
       await fill(page, 'Name of the rail', `Valve driver 5 V (${label})`);

@@ -1,14 +1,14 @@
 import { useEffect, useRef, useState } from 'react';
 import { railSpecSchema } from '~/lib/engine/rail-spec';
 import type { Evaluation } from '~/lib/engine/types';
-import type { RankingState } from './LiveRanking';
+import type { Ranked, RankingState } from './LiveRanking';
 
 const DEBOUNCE_MS = 350;
 
 /** Re-ranks the brief shortly after the client stops typing; stale answers are dropped. */
 export function useLiveRanking(spec: unknown): RankingState {
   const [state, setState] = useState<RankingState>({ kind: 'incomplete', message: 'Fill in the source and the rail to see the options.' });
-  const last = useRef<Evaluation | null>(null);
+  const last = useRef<Ranked | null>(null);
   const key = JSON.stringify(spec);
 
   useEffect(() => {
@@ -36,9 +36,9 @@ export function useLiveRanking(spec: unknown): RankingState {
           setState({ kind: 'failed', message: 'The ranking could not be computed for these figures.' });
           return;
         }
-        const result = (await response.json()) as Evaluation;
-        last.current = result;
-        setState({ kind: 'ready', result });
+        const ranked = { result: (await response.json()) as Evaluation, spec: parsed.data };
+        last.current = ranked;
+        setState({ kind: 'ready', ranked });
       } catch (error) {
         if ((error as Error).name !== 'AbortError')
           setState({ kind: 'failed', message: 'The ranking is not reachable right now; your brief is not affected.' });

@@ -1,6 +1,7 @@
 import type { SyntheticEvent } from 'react';
 import { describedBy, FieldShell, inputClass } from '../ui/FieldShell';
-import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS, WEIGHT_NAMES } from '~/lib/review/words';
+import { CHOICE_OVERRIDES, NUMBER_OVERRIDE_KEYS, NUMBER_OVERRIDES, WEIGHT_KEYS } from '~/lib/review/words';
+import { WeightsControl } from '../ranking/WeightsControl';
 import { REQUIREMENT_FIELDS, REQUIREMENT_KEYS, type ChoicesForm, type FormIssue, type RequirementField } from '~/lib/review/choices';
 import type { RailSpec } from '~/lib/engine/rail-spec';
 import { formatSi } from '~/lib/engine/units';
@@ -25,7 +26,7 @@ function briefedValue(spec: RailSpec, key: RequirementField): string {
 
 const selectClass = 'w-full rounded-md border border-ink/25 bg-card px-3 py-2 text-base';
 
-/** Weights and overrides; re-running ranks the options again without saving anything. */
+/** What matters most, and overrides; re-running ranks the options again without saving anything. */
 export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, linearClasses, briefed }: Props) {
   const errorAt = (path: string) => issues.find((i) => i.path === path)?.message;
   const known = new Set([
@@ -49,32 +50,7 @@ export function AdjustPanel({ form, onChange, onRun, running, dirty, issues, lin
       <h2 id="adjust-heading" className="text-xl font-bold">
         Adjust and re-run
       </h2>
-      <fieldset className="mt-3">
-        <legend className="text-sm font-bold text-ink-soft">Weights (how much each quality counts, 0–100)</legend>
-        <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-5">
-          {WEIGHT_KEYS.map((key) => {
-            const id = `weight-${key}`;
-            const error = errorAt(`weights.${key}`);
-            return (
-              <FieldShell key={key} id={id} label={`${WEIGHT_NAMES[key]} weight`} error={error}>
-                <input
-                  id={id}
-                  type="number"
-                  min={0}
-                  max={100}
-                  step={1}
-                  inputMode="numeric"
-                  value={form.weights[key]}
-                  aria-invalid={error ? true : undefined}
-                  aria-describedby={describedBy(id, undefined, error)}
-                  onChange={(e) => onChange({ ...form, weights: { ...form.weights, [key]: e.target.value } })}
-                  className={`${inputClass(error)} tabular-nums`}
-                />
-              </FieldShell>
-            );
-          })}
-        </div>
-      </fieldset>
+      <WeightsControl weights={form.weights} onChange={(weights) => onChange({ ...form, weights })} errorAt={errorAt} rail={briefed} />
 
       <fieldset className="mt-5">
         <legend className="text-sm font-bold text-ink-soft">Overrides (leave empty to let the engine choose)</legend>

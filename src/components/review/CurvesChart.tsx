@@ -1,10 +1,11 @@
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
-import type { Option } from '~/lib/engine/types';
+import type { Option, TopologyId } from '~/lib/engine/types';
 import { formatSi } from '~/lib/engine/units';
+import { logTicks } from '~/lib/ranking/tradeoff';
 import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { TYPICAL_NOTE } from '~/lib/review/words';
-import { AXIS_STYLE, SERIES_LOOK } from './chart-styles';
+import { AXIS_STYLE, drawNominal, FADED, SERIES_LOOK } from './chart-styles';
 import { UPlotChart, type ChartBuilder } from './UPlotChart';
 
 type Kind = 'efficiency' | 'dissipation';
@@ -13,29 +14,60 @@ const KIND = {
   efficiency: {
     title: 'Efficiency across the input range (typical load)',
     axis: 'Efficiency, %',
+    distr: 1,
     value: (o: Option) => o.curves.efficiency.map((v) => (v === null ? null : v * 100)),
     text: (v: number) => `${v.toFixed(1)} %`,
   },
   dissipation: {
-    title: 'Total dissipation across the input range (highest load)',
-    axis: 'Dissipation, W',
+    title: 'Power lost across the input range (highest load)',
+    axis: 'Power lost, W (log)',
+    // Losses of the ways to build one rail differ by decades: a log axis keeps the small ones readable.
+    distr: 3,
     value: (o: Option) => o.curves.dissipationW,
     text: (v: number) => formatSi(v, 'W'),
   },
 } as const;
 
+interface Props {
+  /** In the order the ranking shows them, the pick first. */
+  options: readonly Option[];
+  kind: Kind;
+  pick: TopologyId | null;
+  /** The brief's nominal input, marked across the plot. */
+  nominalV: number;
+}
+
+/** A line's pattern and colour as a small sample, for the legend under the chart. */
+function LineSample({ option }: { option: Option }) {
+  const look = SERIES_LOOK[option.topology];
+  return (
+    <svg width="28" height="10" aria-hidden="true" className="shrink-0">
+      <line
+        x1="1"
+        x2="27"
+        y1="5"
+        y2="5"
+        stroke={option.feasible ? look.stroke : FADED}
+        strokeWidth={option.feasible ? 2.5 : 1.5}
+        strokeDasharray={look.dash.join(' ')}
+      />
+    </svg>
+  );
+}
+
 /** One line per option over the brief's input range; an option that cannot run at an input leaves a gap. */
-export function CurvesChart({ options, kind }: { options: readonly Option[]; kind: Kind }) {
+export function CurvesChart({ options, kind, pick, nominalV }: Props) {
   const spec = KIND[kind];
   const build = useMemo<ChartBuilder>(
     () => (lib, width) => {
-      const data = lib.join(options.map((o) => [o.curves.vIn, spec.value(o)] as uPlot.AlignedData));
+      const plotted = (o: Option) => spec.value(o).map((v) => (spec.distr === 3 && v !== null && v <= 0 ? null : v));
+      const data = lib.join(options.map((o) => [o.curves.vIn, plotted(o)] as uPlot.AlignedData));
       return {
         data,
         options: {
           width,
           height: 260,
-          scales: { x: { time: false } },
+          scales: { x: { time: false }, y: { distr: spec.distr } },
           axes: [
             { ...AXIS_STYLE, label: 'Input voltage, V' },
             {
@@ -43,18 +75,21 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
               label: spec.axis,
               size: 60,
               values: (_u, ticks) => ticks.map((t) => (kind === 'efficiency' ? `${t}` : formatSi(t, ''))),
+              ...(spec.distr === 3 ? { splits: (_u: uPlot, _axis: number, min: number, max: number) => logTicks(min, max) } : {}),
             },
           ],
-          legend: { markers: { dash: (_u, i) => (i === 0 ? 'solid' : SERIES_LOOK[options[i - 1]!.topology].css), width: 3 } },
+          legend: { show: false },
+          hooks: { drawClear: [(u: uPlot) => drawNominal(u, nominalV)] },
           series: [
             { label: 'Input', value: (_u, v) => (v === null ? '—' : formatSi(v, 'V')) },
             ...options.map((o) => {
               const look = SERIES_LOOK[o.topology];
               return {
                 label: TOPOLOGY_NAMES[o.topology],
-                stroke: look.stroke,
+                // A way that cannot be built stays visible for reference, faded and thin.
+                stroke: o.feasible ? look.stroke : FADED,
                 dash: look.dash,
-                width: o.feasible ? 2.5 : 1.5,
+                width: o.topology === pick ? 3.5 : o.feasible ? 2 : 1.25,
                 spanGaps: false,
                 points: { show: false },
                 value: (_u: uPlot, v: number | null) => (v === null ? '—' : spec.text(v)),
@@ -64,7 +99,7 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
         },
       };
     },
-    [options, kind, spec],
+    [options, kind, spec, pick, nominalV],
   );
   const heading = `${kind}-chart-heading`;
   return (
@@ -73,8 +108,19 @@ export function CurvesChart({ options, kind }: { options: readonly Option[]; kin
         {spec.title}
       </h3>
       <UPlotChart build={build} label={`${spec.title}, one line per option; the figures are in the table below.`} />
-      <figcaption className="mt-1 text-xs text-ink-faint">
-        Click a name in the legend to hide or show its line. Figures are {TYPICAL_NOTE}.
+      <figcaption className="mt-1 text-xs text-ink-soft">
+        <ul className="flex flex-wrap gap-x-4 gap-y-1" aria-label="Lines">
+          {options.map((o) => (
+            <li key={o.topology} className={`flex items-center gap-1.5 ${o.feasible ? '' : 'text-ink-faint'}`}>
+              <LineSample option={o} />
+              {TOPOLOGY_NAMES[o.topology]}
+              {o.topology === pick ? ' (our pick)' : o.feasible ? '' : ' (can’t be built)'}
+            </li>
+          ))}
+        </ul>
+        <p className="mt-1 text-ink-faint">
+          Dotted upright: the brief’s nominal input, {formatSi(nominalV, 'V')}. Figures are {TYPICAL_NOTE}.
+        </p>
       </figcaption>
       <details className="mt-2 text-xs">
         <summary className="cursor-pointer font-semibold text-copper-700">Figures behind the chart</summary>

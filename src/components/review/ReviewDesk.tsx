@@ -8,8 +8,11 @@ import { CautionPanel } from './CautionPanel';
 import { choicesFrom, type ChoicesForm, type FormIssue } from '~/lib/review/choices';
 import { AGREED_FIELD_PATHS, withAgreedRequirement } from '~/lib/review/agreed-requirement';
 import { CurvesChart } from './CurvesChart';
-import { OptionCard } from './OptionCard';
 import { PartList } from './PartList';
+import { MatrixKey, RankingMatrix } from '../ranking/RankingMatrix';
+import { TradeoffPlot } from '../ranking/TradeoffPlot';
+import { columnOrder, rankingMatrix } from '~/lib/ranking/matrix';
+import { TYPICAL_NOTE } from '~/lib/review/words';
 import { RevisionList, type RevisionSummary } from './RevisionList';
 import { SchematicPanel } from './SchematicPanel';
 import { SpreadChart } from './SpreadChart';
@@ -143,31 +146,34 @@ export default function ReviewDesk(props: Props) {
       <section aria-labelledby="options-heading">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 id="options-heading" className="text-xl font-bold">
-            Ways to build it, best first
+            Ways to build it, side by side
           </h2>
           <p className="text-sm text-ink-soft">
             {result.recommended
-              ? `Engine’s pick: ${TOPOLOGY_NAMES[result.recommended]}. ${result.options.filter((o) => o.feasible).length} of ${result.options.length} feasible.`
-              : 'No option is feasible as briefed; the reasons are on each card.'}
+              ? `Our pick: ${TOPOLOGY_NAMES[result.recommended]}. ${result.options.filter((o) => o.feasible).length} of ${result.options.length} can be built.`
+              : 'No way can be built as briefed; what stops each one is in its column.'}
             {props.startedFrom !== null && !dirty && JSON.stringify(ran) === JSON.stringify(props.initialForm)
               ? ` Choices of revision ${props.startedFrom}.`
               : ''}
           </p>
         </div>
-        <ol className="mt-3 grid gap-3 md:grid-cols-2" aria-label="Options, best first" aria-busy={running}>
-          {result.options.map((o, k) => (
-            <li key={o.topology}>
-              <OptionCard
-                option={o}
-                rank={k + 1}
-                rippleLimitVpp={spec.noise.maxRippleVpp}
-                currency={currency}
-                chosen={o.topology === chosen}
-                onChoose={() => setChosen(o.topology)}
-              />
-            </li>
-          ))}
-        </ol>
+        {result.reason && <p className="mt-1 text-sm text-ink">{result.reason}</p>}
+        <div className="mt-3">
+          <RankingMatrix
+            matrix={rankingMatrix(result, {
+              railPowerW: spec.output.v * spec.output.iMax,
+              rippleLimitVpp: spec.noise.maxRippleVpp,
+              currency,
+            })}
+            choice={{ chosen, onChoose: setChosen }}
+            busy={running}
+          />
+          <MatrixKey />
+          <p className="mt-1 text-xs text-ink-faint">Figures other than the part count are {TYPICAL_NOTE}.</p>
+        </div>
+        <div className="mt-4">
+          <TradeoffPlot options={result.options} recommended={result.recommended} currency={currency} />
+        </div>
       </section>
 
       <section aria-labelledby="charts-heading">
@@ -175,8 +181,8 @@ export default function ReviewDesk(props: Props) {
           Across the input range
         </h2>
         <div className="mt-3 grid gap-3 lg:grid-cols-2">
-          <CurvesChart options={result.options} kind="efficiency" />
-          <CurvesChart options={result.options} kind="dissipation" />
+          <CurvesChart options={columnOrder(result)} kind="efficiency" pick={result.recommended} nominalV={spec.input.vNom} />
+          <CurvesChart options={columnOrder(result)} kind="dissipation" pick={result.recommended} nominalV={spec.input.vNom} />
         </div>
         {option && (
           <div className="mt-3">

@@ -2,7 +2,6 @@ import { useEffect, useRef, useState } from 'react';
 import type uPlot from 'uplot';
 // The stylesheet is small and goes with the page's CSS; only the library's script waits for a chart.
 import 'uplot/dist/uPlot.min.css';
-import './charts.css';
 
 export type ChartBuilder = (lib: typeof uPlot, width: number) => { options: uPlot.Options; data: uPlot.AlignedData };
 

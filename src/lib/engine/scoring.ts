@@ -3,6 +3,8 @@
 import { noiseClassDefaults, type RailSpec } from './rail-spec.ts';
 import { topologyIds, type Option, type SubScores, type TopologyId } from './types.ts';
 
+export { effectiveWeights } from './scoring/weights.ts';
+
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
 
 /**
@@ -62,18 +64,6 @@ export function subScores(s: ScoreInputs): SubScores {
     noise: Math.min(clamp(50 + 25 * Math.log10(ratio)), s.switchingOutputOnQuietRail ? QUIET_SWITCHING_NOISE_CAP : 100),
     cost: clamp(100 / (1 + s.costCents / 300)),
   };
-}
-
-/**
- * The brief's weights with part count and cost weighing more on a small rail: ×1 at 1 W and above,
- * up to ×3 at 10 mW and below (a small rail is judged by its size and price more than its loss).
- * On a battery, where the loss is the battery's life however small the rail, half as much: up to ×2.
- */
-export function effectiveWeights(weights: RailSpec['weights'], spec: Pick<RailSpec, 'input' | 'output'>): RailSpec['weights'] {
-  const pOutMaxW = spec.output.v * spec.output.iMax;
-  const strength = spec.input.source === 'battery' ? 0.5 : 1;
-  const small = 1 + strength * Math.min(2, Math.max(0, Math.log10(1 / Math.max(pOutMaxW, 1e-12))));
-  return { ...weights, partCount: weights.partCount * small, cost: weights.cost * small };
 }
 
 export function weightedScore(sub: SubScores, weights: RailSpec['weights']): number {

@@ -15,19 +15,38 @@ export interface Figure {
   typical: boolean;
 }
 
+/**
+ * The part that dissipates most, or null when there is none or its figure is larger than the
+ * option's whole dissipation: one part cannot lose more than all of them, so such a figure is not shown.
+ */
 export function hottestPart(option: Pick<Option, 'dissipation'>): { ref: string; maxW: number } | null {
   let best: { ref: string; maxW: number } | null = null;
   for (const p of option.dissipation.parts) if (!best || p.maxW > best.maxW) best = { ref: p.ref, maxW: p.maxW };
-  return best;
+  return best && best.maxW <= option.dissipation.totalMaxW ? best : null;
 }
 
-/** θSA the engine asks for: none, a figure, or not achievable when the budget is already spent. */
-export function heatsinkText(option: Pick<Option, 'heatsink'>): string {
-  if (!option.heatsink.required) return 'Not needed';
+export type HeatsinkNeed = { kind: 'none' } | { kind: 'needed' } | { kind: 'theta'; thetaSaCW: number } | { kind: 'impossible' };
+
+/**
+ * What the option asks of a heatsink. A part past its junction limit, or a θSA budget already
+ * spent (≤ 0 K/W), means no heatsink is good enough — never "not needed".
+ */
+export function heatsinkNeed(option: Pick<Option, 'heatsink' | 'junctions'>): HeatsinkNeed {
   const theta = option.heatsink.maxThetaSaCW;
-  if (theta === null) return 'Needed';
-  if (theta <= 0) return 'Needed, not achievable (θSA ≤ 0)';
-  return `θSA ≤ ${formatKPerW(theta)}`;
+  if (option.junctions.some((j) => j.beyondLimit)) return { kind: 'impossible' };
+  if (!option.heatsink.required) return { kind: 'none' };
+  if (theta === null) return { kind: 'needed' };
+  return theta <= 0 ? { kind: 'impossible' } : { kind: 'theta', thetaSaCW: theta };
+}
+
+/** θSA in plain kelvin per watt (a heatsink's datasheet figure is never given in mK/W). */
+export const thetaText = (thetaSaCW: number) => `θSA ≤ ${formatKPerW(thetaSaCW)}`;
+
+export function heatsinkText(option: Pick<Option, 'heatsink' | 'junctions'>): string {
+  const need = heatsinkNeed(option);
+  if (need.kind === 'none') return 'Not needed';
+  if (need.kind === 'needed') return 'Needed';
+  return need.kind === 'impossible' ? 'No heatsink is good enough' : thetaText(need.thetaSaCW);
 }
 
 /** Whether the output band is met, and by which view of the spread. */

@@ -22,7 +22,7 @@ describe('how an option’s fixes and tolerance read', () => {
   });
 
   test('a heatsink figure is in K/W, never with a milli prefix', () => {
-    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 0.36 } })).toBe('θSA ≤ 0.36 K/W');
-    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 14.26 } })).toBe('θSA ≤ 14.3 K/W');
+    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 0.36 }, junctions: [] })).toBe('θSA ≤ 0.36 K/W');
+    expect(heatsinkText({ heatsink: { required: true, maxThetaSaCW: 14.26 }, junctions: [] })).toBe('θSA ≤ 14.3 K/W');
   });
 });
