@@ -121,14 +121,16 @@ export function assemble(design: Design, ctx: Context, seed: number): Option {
   const points = corners.map((c) => operate(c.vIn, c.iOut));
   const parts = design.parts.map((p) => ({ ...p }));
 
-  // Worst normal and fault stress of every part.
+  // Worst normal and fault stress of every part. Power comes only from corners where the design
+  // regulates: where it does not, the output has collapsed and the currents its model assumes do
+  // not flow (such a corner blocks the option below). Voltages are those of every corner.
   const stressOf = (ref: string) => {
     let w = 0;
     let v = 0;
     for (const p of points) {
       const s = p.stress[ref];
       if (s) {
-        w = Math.max(w, s.w);
+        if (p.regulates) w = Math.max(w, s.w);
         v = Math.max(v, s.v);
       }
     }

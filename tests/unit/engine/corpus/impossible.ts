@@ -1,6 +1,7 @@
 // Figures no physical supply can show, found anywhere in an evaluation: non-finite numbers,
 // negative powers, ratings, thermal resistances or temperature rises, junctions past their limit,
-// negative voltages on a positive rail, efficiencies outside 0–1, and the same in message text.
+// negative voltages on a positive rail, efficiencies outside 0–1, a part dissipating more than its
+// whole option, and the same in message text.
 import type { Evaluation, Option } from '~/lib/engine/types.ts';
 import type { RailSpec } from '~/lib/engine/rail-spec.ts';
 
@@ -88,6 +89,11 @@ function optionFigures(o: Option, spec: RailSpec): string[] {
   for (const j of o.junctions) {
     if (j.tjC > j.tjMaxC + 1e-9) out.push(`${at(`junction ${j.ref}`)}: ${j.tjC} °C beyond its ${j.tjMaxC} °C limit`);
     if (j.tjC < ambient - 1e-9) out.push(`${at(`junction ${j.ref}`)}: ${j.tjC} °C below the ${ambient} °C ambient (negative rise)`);
+  }
+  // One part cannot turn more power into heat than the whole option does (energy balance).
+  for (const d of o.dissipation.parts) {
+    if (d.maxW > o.dissipation.totalMaxW * (1 + 1e-6) + 1e-9)
+      out.push(`${at(`dissipation ${d.ref}`)}: ${d.maxW} W, more than the option's whole ${o.dissipation.totalMaxW} W`);
   }
   for (const c of o.components) {
     if (c.value !== null && !(c.value > 0)) out.push(`${at(`component ${c.ref}`)}: value ${c.value} ${c.unit ?? ''}`);
