@@ -144,6 +144,21 @@ export function lowerFirst(label: string): string {
  * of the label without a figure ("high-voltage variant") and a "from 1.5 V" stay with the noun.
  */
 export function classPhrase(label: string, start = false): string {
+  // Every candidate of a search words its findings with a class label: each label is worded once.
+  const key = `${start ? 'T' : 't'}${label}`;
+  let phrase = phrases.get(key);
+  if (phrase === undefined) {
+    if (phrases.size >= PHRASES_KEPT) phrases.clear();
+    phrase = wordClass(label, start);
+    phrases.set(key, phrase);
+  }
+  return phrase;
+}
+
+const PHRASES_KEPT = 256;
+const phrases = new Map<string, string>();
+
+function wordClass(label: string, start: boolean): string {
   const [first = '', ...rest] = label.split(', ');
   let noun = lowerFirst(first);
   while (rest.length > 0 && (rest[0]?.startsWith('from ') || !/\d/.test(rest[0] ?? ''))) {

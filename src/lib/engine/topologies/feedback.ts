@@ -237,24 +237,39 @@ const pairs = new Map<string, Readonly<Divider>>();
 const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
 /** Resistor grade × reference grade, each with its best pair; a handful of candidates, each analysed analytically. */
+/** A grade no cheaper, no tighter and no steadier than another is never the better choice. */
+function dominated(g: ResistorGrade, grades: readonly ResistorGrade[]): boolean {
+  return grades.some(
+    (h) =>
+      h !== g &&
+      h.extraCents <= g.extraCents &&
+      h.tolerance <= g.tolerance &&
+      h.tcrPpmK <= g.tcrPpmK &&
+      (h.tolerance < g.tolerance || h.tcrPpmK < g.tcrPpmK || h.extraCents < g.extraCents),
+  );
+}
+
+/** The grades worth trying, cheapest first (loosest first at equal cost); worked out once per catalog list and series. */
+const gradePools = new WeakMap<readonly ResistorGrade[], Map<SeriesName | undefined, readonly ResistorGrade[]>>();
+function gradePool(all: readonly ResistorGrade[], series: SeriesName | undefined): readonly ResistorGrade[] {
+  let bySeries = gradePools.get(all);
+  if (!bySeries) {
+    bySeries = new Map();
+    gradePools.set(all, bySeries);
+  }
+  let pool = bySeries.get(series);
+  if (!pool) {
+    const grades = all
+      .filter((g) => (series === undefined ? !dominated(g, all) : g.series === series || (series === 'E96' && g.series === 'E192')))
+      .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
+    pool = grades.length > 0 ? grades : all.slice(0, 1);
+    bySeries.set(series, pool);
+  }
+  return pool;
+}
+
 export function searchDivider(input: DividerSearchInput): DividerSearchResult {
-  // A grade no cheaper, no tighter and no steadier than another is never the better choice.
-  const dominated = (g: ResistorGrade) =>
-    input.grades.some(
-      (h) =>
-        h !== g &&
-        h.extraCents <= g.extraCents &&
-        h.tolerance <= g.tolerance &&
-        h.tcrPpmK <= g.tcrPpmK &&
-        (h.tolerance < g.tolerance || h.tcrPpmK < g.tcrPpmK || h.extraCents < g.extraCents),
-    );
-  const grades = input.grades
-    .filter((g) =>
-      input.series === undefined ? !dominated(g) : g.series === input.series || (input.series === 'E96' && g.series === 'E192'),
-    )
-    .slice()
-    .sort((a, b) => a.extraCents - b.extraCents || b.tolerance - a.tolerance);
-  const pool = grades.length > 0 ? grades : input.grades.slice(0, 1);
+  const pool = gradePool(input.grades, input.series);
   const pairFor = (series: SeriesName) => {
     // Several classes and topologies ask for the same divider: each distinct question is searched once.
     const key = `${input.vTarget}|${input.vRef}|${input.iAdjTyp}|${input.iDividerMin}|${input.iDividerMax}|${series}|${input.r1Forced}|${input.r2Forced}`;
@@ -308,9 +323,9 @@ export function searchDivider(input: DividerSearchInput): DividerSearchResult {
     return { ...d, why };
   };
   // Combinations cheapest first; the search stops at the first cost level that passes (worst case preferred there).
-  const combos = pool
-    .flatMap((grade) => input.refGrades.map((ref) => ({ grade, ref, cents: 2 * grade.extraCents + ref.extraCents })))
-    .sort((a, b) => a.cents - b.cents);
+  const combos = pool.flatMap((grade) => input.refGrades.map((ref) => ({ grade, ref, cents: 2 * grade.extraCents + ref.extraCents })));
+  // The pool is cheapest first already: with one reference grade the combinations are in order.
+  if (input.refGrades.length > 1) combos.sort((a, b) => a.cents - b.cents);
   const candidates: DividerDesign[] = [];
   let passedAt: number | null = null;
   for (const c of combos) {
