@@ -58,3 +58,15 @@ export async function signInThroughForm(page: Page, baseUrl: string, email: stri
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
+
+/** One step of a quality's weight on the review's "what matters most" control. */
+export const weightStep = (page: Page, quality: string, step: string) =>
+  page.getByRole('radiogroup', { name: quality, exact: true }).getByLabel(step, { exact: true });
+
+/** Sets a quality's step the way a person does: by clicking its word. */
+export const chooseWeight = (page: Page, quality: string, step: string) =>
+  page
+    .getByRole('radiogroup', { name: quality, exact: true })
+    .locator('label')
+    .filter({ hasText: new RegExp(`^${step}$`) })
+    .click();

@@ -1,6 +1,6 @@
 import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
-import { islandsReady, screenshot, signInThroughForm, useBrowser } from './browser';
+import { chooseWeight, islandsReady, screenshot, signInThroughForm, useBrowser, weightStep } from './browser';
 import { DEMO } from '../support/client';
 import { railUnderReview, type QuotedRail } from '../integration/quotes/helpers';
 import { TOPOLOGY_NAMES } from '../../src/lib/review/option-words';
@@ -129,14 +129,14 @@ describe('the review and the desk follow the current design', () => {
     const page = await engineerPage();
     await openReview(page, `/desk/briefs/${rail.briefId}`);
     await page.getByLabel('Switching frequency').fill('750k');
-    await page.getByLabel('Efficiency weight').fill('7');
+    await chooseWeight(page, 'Efficiency', 'Ignore');
     await page.getByText('Unsaved settings.').waitFor();
 
     await page.reload();
     await page.locator('#adjust-heading').scrollIntoViewIfNeeded();
     await islandsReady(page);
     await expect.poll(() => page.getByLabel('Switching frequency').inputValue()).toBe('750k');
-    expect(await page.getByLabel('Efficiency weight').inputValue()).toBe('7');
+    expect(await weightStep(page, 'Efficiency', 'Ignore').isChecked()).toBe(true);
     await page.getByText('Unsaved settings from your last visit.').waitFor();
     await screenshot(page, 'review-unsaved-1366');
 

@@ -2,7 +2,7 @@ import { readFile } from 'node:fs/promises';
 import { gzipSync } from 'node:zlib';
 import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
-import { islandsReady, useBrowser, screenshot, signInThroughForm } from './browser';
+import { chooseWeight, islandsReady, useBrowser, screenshot, signInThroughForm, weightStep } from './browser';
 import { DEMO } from '../support/client';
 
 const baseUrl = inject('baseUrl');
@@ -21,17 +21,6 @@ async function standing(page: Page): Promise<string[]> {
 }
 
 /** One quality's step in the "what matters most" control. */
-const weightStep = (page: Page, quality: string, step: string) =>
-  page.getByRole('radiogroup', { name: quality, exact: true }).getByLabel(step, { exact: true });
-
-/** Sets a quality's step the way a person does: by clicking its word. */
-const chooseWeight = (page: Page, quality: string, step: string) =>
-  page
-    .getByRole('radiogroup', { name: quality, exact: true })
-    .locator('label')
-    .filter({ hasText: new RegExp(`^${step}$`) })
-    .click();
-
 async function chartsDrawn(page: Page): Promise<void> {
   // uPlot is loaded on demand; three canvases appear once it has drawn.
   await expect.poll(() => page.locator('figure canvas').count(), { timeout: 15_000 }).toBeGreaterThanOrEqual(3);
@@ -73,6 +62,13 @@ describe('an engineer reviews a brief', () => {
     await row.click();
 
     await page.getByRole('heading', { name: 'Detector bias, 150 V from a 300–350 V supply', level: 1 }).waitFor();
+    // Declining asks for a second, deliberate tick, shown only once Declined is chosen.
+    const confirmDecline = page.getByText('Yes, decline this brief.');
+    expect(await confirmDecline.isVisible()).toBe(false);
+    await page.getByLabel('Move this brief to').selectOption('declined');
+    await confirmDecline.waitFor();
+    await page.getByLabel('Move this brief to').selectOption('in-review');
+    expect(await confirmDecline.isVisible()).toBe(false);
     await islandsReady(page);
     const cautions = page.getByRole('note', { name: /Cautions/ }).first();
     await expect.poll(() => cautions.textContent()).toContain('above the 60 V ES1 limit');

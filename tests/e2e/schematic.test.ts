@@ -16,7 +16,8 @@ async function openReview(page: Page): Promise<void> {
   );
   expect(review).toBeTruthy();
   await page.goto(`${baseUrl}${review}`);
-  // The desk wakes when scrolled to (below the brief on a phone).
+  // The desk wakes when scrolled to (below the brief on a phone), and the drawing loads as it comes near.
+  await page.getByRole('heading', { name: 'Schematic', exact: true }).scrollIntoViewIfNeeded();
   await page.getByTestId('schematic-chosen').scrollIntoViewIfNeeded();
   await page.waitForFunction(
     () => {

@@ -14,7 +14,7 @@ import { TradeoffPlot } from '../ranking/TradeoffPlot';
 import { columnOrder, rankingMatrix } from '~/lib/ranking/matrix';
 import { TYPICAL_NOTE } from '~/lib/review/words';
 import { RevisionList, type RevisionSummary } from './RevisionList';
-import { SchematicPanel } from './SchematicPanel';
+import { LazySchematic } from './LazySchematic';
 import { SpreadChart } from './SpreadChart';
 import { useKeptChoices } from './kept-choices';
 import { UnsavedChoices } from './UnsavedChoices';
@@ -242,7 +242,7 @@ export default function ReviewDesk(props: Props) {
           </h2>
           <h3 className="mt-4 text-base font-bold">Schematic</h3>
           <div className="mt-2">
-            <SchematicPanel
+            <LazySchematic
               options={result.options}
               chosen={option}
               spec={spec}

@@ -9,13 +9,19 @@ import { moveAsStaff } from '~/lib/briefs/index.server';
 import type { BriefRow } from '~/lib/briefs/index.server';
 import type { SignedInUser } from '../platform/http/guard';
 import { addNote, noteRequestSchema } from '~/lib/briefs/index.server';
-import { refuse, succeed, type Outcome } from '../platform/outcome';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 
 export const reviewFormSchema = z.discriminatedUnion(
   'intent',
-  [staffBriefPatchSchema.extend({ intent: z.literal('move') }), noteRequestSchema.extend({ intent: z.literal('note') })],
+  [
+    staffBriefPatchSchema.extend({ intent: z.literal('move'), confirm: z.literal('yes').optional() }),
+    noteRequestSchema.extend({ intent: z.literal('note') }),
+  ],
   { error: 'This form is not one the page knows; reload the page and try again.' },
 );
+
+export const DECLINE_CONFIRMATION =
+  'Declining closes the brief and the client is told: tick “Yes, decline this brief” to confirm. Nothing was changed.';
 
 export const DONE_MESSAGES = {
   moved: 'State changed; the history below records it.',
@@ -31,6 +37,9 @@ export async function handleReviewForm(
     await addNote(row.id, staff.id, fields.body);
     return succeed('noted');
   }
+  // Declining ends the client's brief: it takes a second, deliberate tick, so a slip of the list cannot do it.
+  if (fields.state === 'declined' && fields.confirm !== 'yes')
+    return invalidInput('confirm-decline', [{ path: 'confirm', message: DECLINE_CONFIRMATION }]);
   const moved = await moveAsStaff(staff, row, fields.state, fields.note);
   if (moved.ok) return succeed('moved');
   return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.state).label.toLowerCase()}.`);

@@ -94,6 +94,25 @@ describe('state moves and internal notes on the review page', () => {
     expect(await wrong.text()).toContain('cannot move to delivered');
   });
 
+  test('declining through the page takes the confirming tick; without it nothing changes', async () => {
+    const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
+    const briefId = movingId;
+    const html = await (await engineer.request(`/desk/briefs/${briefId}`)).text();
+    expect(html).toContain('Yes, decline this brief.');
+    const unconfirmed = await engineer.form(`/desk/briefs/${briefId}`, { intent: 'move', state: 'declined', note: 'Out of scope' });
+    expect(unconfirmed.status).toBe(400);
+    expect(await unconfirmed.text()).toContain('tick “Yes, decline this brief” to confirm');
+    expect((await (await engineer.request(`/api/v1/briefs/${briefId}`)).json()).state).toBe('in-review');
+    const confirmed = await engineer.form(`/desk/briefs/${briefId}`, {
+      intent: 'move',
+      state: 'declined',
+      note: 'Out of scope',
+      confirm: 'yes',
+    });
+    expect(confirmed.status).toBe(303);
+    expect((await (await engineer.request(`/api/v1/briefs/${briefId}`)).json()).state).toBe('declined');
+  });
+
   test('notes are kept for staff through the API and the page, and never reach the client', async () => {
     const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
     const briefId = plcId;
