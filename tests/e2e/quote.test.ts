@@ -62,6 +62,8 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     expect(await client.getByText('confirm against the chosen part’s data').count()).toBeGreaterThan(0);
     expect(await client.getByRole('link', { name: /Download the PDF/ }).getAttribute('href')).toMatch(/\/pdf\?download$/);
     await screenshot(client, 'quote-client-phone');
+    // The price table scrolls inside its own box: the page itself never scrolls sideways on a phone.
+    expect(await client.evaluate(() => document.scrollingElement!.scrollWidth)).toBeLessThanOrEqual(390);
 
     await client.getByRole('button', { name: `Accept quote ${number}` }).click();
     await client.getByText(`quote ${number} is accepted`).waitFor();
