@@ -26,7 +26,8 @@ describe('the deposit', () => {
     await page.getByLabel('Password').fill(CLIENT_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(new RegExp(`/quotes/${quote.id}$`));
-    await page.getByRole('button', { name: /^Accept/ }).click();
+    await page.getByRole('link', { name: 'Accept…' }).click();
+    await page.getByRole('button', { name: /^Accept quote/ }).click();
     await page.getByRole('button', { name: 'Pay the deposit' }).waitFor();
     await screenshot(page, 'deposit-accepted');
 

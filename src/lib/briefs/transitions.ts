@@ -21,7 +21,8 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
   // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit, a lapsed acceptance.
   system: {
     'in-review': ['quoted'],
-    quoted: ['accepted', 'expired'],
+    // A declined quote sends the brief back to review: the engineer revises and quotes again, or declines the brief.
+    quoted: ['accepted', 'expired', 'in-review'],
     // Back to review when the accepted quote lapses unpaid: the engineer sends a fresh quote.
     accepted: ['deposit-paid', 'in-review'],
   },

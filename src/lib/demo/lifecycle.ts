@@ -24,3 +24,8 @@ export function lifecycleTo(state: BriefState): Step[] {
   if (end < 0) throw new Error(`The demo scenario only uses main-line states, not ${state}`);
   return MAIN_LINE.slice(0, end + 1);
 }
+
+/** The recorded history of a demo brief whose quote the client declined: quoted, then back in review. */
+export function declinedLifecycle(): Step[] {
+  return [...lifecycleTo('quoted'), { from: 'quoted', to: 'in-review', by: 'client' }];
+}

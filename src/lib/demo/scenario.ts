@@ -47,8 +47,10 @@ export interface DemoBrief {
   submittedDaysAgo?: number;
   /** The engineer's note on revision 1, for briefs that have been reviewed. */
   revisionNote?: string;
-  /** How far the quote of revision 1 has gone: sent to the client, or accepted and its deposit paid. */
-  quote?: 'sent' | 'deposit-paid';
+  /** How far the quote of revision 1 has gone: sent to the client, accepted and its deposit paid, or declined by the client. */
+  quote?: 'sent' | 'deposit-paid' | 'declined';
+  /** The client's reason, for a declined quote. */
+  declineReason?: string;
   spec: RailSpecInput;
 }
 
@@ -105,6 +107,8 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     state: 'in-review',
     submittedDaysAgo: 3,
     revisionNote: 'First pass as briefed; check the load-dump clamp level with the client before quoting.',
+    quote: 'declined',
+    declineReason: 'Our bus clamps load dumps at 36 V, not 30 V — the quote is for the wrong input range. Please quote again for 18–36 V.',
     notes: 'Cabinet reaches 55 °C in summer. The 24 V bus sags to 18 V during motor starts and reaches 30 V on load dump clamps.',
     spec: {
       input: { vMin: 18, vNom: 24, vMax: 30, rippleVpp: 0.5, source: 'bus' },

@@ -35,6 +35,7 @@ export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<strin
         `Amount paid:   ${amount}`,
         `Date:          ${formatDate(row.payment.paidAt ?? new Date())}`,
         `Reference:     ${row.payment.paymentIntentId ?? row.payment.checkoutSessionId}`,
+        ...(row.quote.purchaseOrder ? [`Your PO:       ${row.quote.purchaseOrder}`] : []),
         `Quote total:   ${formatMoney(row.quote.totalMinor, row.quote.currency)}`,
         `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
         '',

@@ -68,3 +68,23 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
     relatedId: quote.id,
   };
 }
+
+/** Tells the engineer who drafted a quote that the client declined it, with the client's reason and the brief's link. */
+export function declinedMail(view: QuoteView, engineer: { name: string; email: string }, reason: string, briefUrl: string): OutgoingMail {
+  const who = view.client.company ? `${view.client.name} (${view.client.company})` : view.client.name;
+  return {
+    kind: 'quote-declined',
+    to: engineer.email,
+    subject: `Quote ${view.quote.number} declined: ${view.brief.title}`,
+    text: [
+      `${who} declined quote ${view.quote.number} for “${view.brief.title}”.`,
+      '',
+      'Their reason:',
+      ...reason.split('\n').map((line) => `  ${line}`),
+      '',
+      'The brief is back in review: revise the design and send a fresh quote, or decline the brief.',
+      `Open it: ${briefUrl}`,
+    ].join('\n'),
+    relatedId: view.quote.id,
+  };
+}

@@ -137,6 +137,13 @@ const ROWS: Row[] = [
   },
   {
     method: 'POST',
+    file: 'api/v1/quotes/[id]/decline.ts',
+    path: () => `/api/v1/quotes/${ids.quote}/decline`,
+    body: () => ({ reason: 'Over budget' }),
+    expect: [401, 409, 404, 403, 403],
+  },
+  {
+    method: 'POST',
     file: 'api/v1/quotes/[id]/checkout.ts',
     path: () => `/api/v1/quotes/${ids.quote}/checkout`,
     expect: [401, 409, 404, 403, 403],
@@ -200,8 +207,14 @@ const ROWS: Row[] = [
     fields: { intent: 'note', body: ' ' },
     expect: [303, 403, 403, 400, 400],
   },
-  // Client A's quote is paid already (409); client B may not see it (404); staff do not accept for clients (403).
-  { method: 'POST', file: 'quotes/[id].astro', path: () => `/quotes/${ids.quote}`, fields: {}, expect: [303, 409, 404, 403, 403] },
+  // Client A's quote is paid already (409); client B may not see it (404); staff do not accept or decline for clients (403).
+  {
+    method: 'POST',
+    file: 'quotes/[id].astro',
+    path: () => `/quotes/${ids.quote}`,
+    fields: { decision: 'decline', reason: 'Over budget' },
+    expect: [303, 409, 404, 403, 403],
+  },
   { method: 'POST', file: 'sign-in.astro', path: () => '/sign-in', fields: { email: 'not an address' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'sign-up.astro', path: () => '/sign-up', fields: { email: 'x' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'forgot-password.astro', path: () => '/forgot-password', fields: {}, expect: [400, 400, 400, 400, 400] },

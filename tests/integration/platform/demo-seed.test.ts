@@ -37,3 +37,25 @@ test('the demo’s paid quote went draft → sent → accepted → deposit-paid,
     client.close();
   }
 });
+
+test('the demo has a quote the client declined with a reason, and its brief back in review', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [plc] = await db.select().from(brief).where(eq(brief.title, 'PLC I/O card, 5 V at 1.5 A from the 24 V bus'));
+    expect(plc?.state).toBe('in-review');
+    const [declined] = await db
+      .select()
+      .from(quote)
+      .where(eq(quote.briefId, plc?.id ?? ''));
+    expect(declined?.state).toBe('declined');
+    expect(declined?.declineReason).toContain('36 V');
+    const briefHistory = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, plc?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(briefHistory.map((h) => h.toState).slice(-2)).toEqual(['quoted', 'in-review']);
+  } finally {
+    client.close();
+  }
+});

@@ -255,8 +255,10 @@ describe('editing, sending and accepting', () => {
     expect(page).toContain('Hot surfaces');
     expect(page).toContain('confirm against the chosen part’s data');
     expect(page).toContain('Payment opens once the quote is accepted.');
-    expect(page).toContain(`Accept quote ${quote.number}`);
-    const posted = await rail.client.form(`/quotes/${quote.id}`, {});
+    // Accepting is a confirming step on the page (a plain link), then its form.
+    expect(page).toContain(`/quotes/${quote.id}?confirm=accept`);
+    expect(await (await rail.client.request(`/quotes/${quote.id}?confirm=accept`)).text()).toContain(`Accept quote ${quote.number}`);
+    const posted = await rail.client.form(`/quotes/${quote.id}`, { decision: 'accept' });
     expect(posted.status).toBe(303);
     expect(await (await rail.client.follow(posted)).text()).toContain(`quote ${quote.number} is accepted`);
     expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).state).toBe('accepted');

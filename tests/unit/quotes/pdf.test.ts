@@ -53,6 +53,8 @@ function highVoltageView(): QuoteView {
     createdBy: 'e',
     sentAt: now,
     acceptedAt: null,
+    purchaseOrder: null,
+    declineReason: null,
     createdAt: now,
     updatedAt: now,
   };

@@ -26,7 +26,7 @@ const updatedAt = () =>
 
 export { BRIEF_STATES, type BriefState };
 
-export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit-paid', 'expired', 'withdrawn'] as const;
+export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit-paid', 'declined', 'expired', 'withdrawn'] as const;
 export type QuoteState = (typeof QUOTE_STATES)[number];
 
 export const clientProfile = sqliteTable('client_profile', {
@@ -156,6 +156,10 @@ export const quote = sqliteTable(
       .references(() => user.id),
     sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
     acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
+    /** The client's purchase-order number, given on acceptance; printed on the receipt. */
+    purchaseOrder: text('purchase_order'),
+    /** Why the client declined, in their words. */
+    declineReason: text('decline_reason'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

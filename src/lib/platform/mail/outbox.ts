@@ -118,9 +118,14 @@ async function deliverOne(db: Database, mailer: Mailer, row: OutboxRow): Promise
   return false;
 }
 
-/** Where a thing's latest mail stands, for the pages that show it (the quote builder). */
-export async function latestOutboxEntry(db: DbOrTx, relatedId: string): Promise<OutboxRow | null> {
-  const [row] = await db.select().from(mailOutbox).where(eq(mailOutbox.relatedId, relatedId)).orderBy(desc(mailOutbox.createdAt)).limit(1);
+/** Where a thing's latest mail of one kind stands, for the pages that show it (the quote builder). */
+export async function latestOutboxEntry(db: DbOrTx, relatedId: string, kind: string): Promise<OutboxRow | null> {
+  const [row] = await db
+    .select()
+    .from(mailOutbox)
+    .where(and(eq(mailOutbox.relatedId, relatedId), eq(mailOutbox.kind, kind)))
+    .orderBy(desc(mailOutbox.createdAt))
+    .limit(1);
   return row ?? null;
 }
 
