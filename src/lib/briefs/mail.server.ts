@@ -36,3 +36,28 @@ export async function submittedMails(tx: DbOrTx, row: BriefRow): Promise<Outgoin
     relatedId: row.id,
   }));
 }
+
+/** A message in a brief's thread, e-mailed to each reader on the other side with the link to answer it. */
+export function messageMails(
+  row: BriefRow,
+  authorName: string,
+  body: string,
+  readers: readonly { name: string; email: string }[],
+  link: string,
+): OutgoingMail[] {
+  return readers.map((reader) => ({
+    kind: 'brief-message',
+    to: reader.email,
+    subject: `Message on “${row.title}” from ${authorName}`,
+    text: [
+      `Dear ${reader.name},`,
+      '',
+      `${authorName} wrote on the brief “${row.title}”:`,
+      '',
+      ...body.split('\n').map((line) => `  ${line}`),
+      '',
+      `Read and answer it here: ${link}`,
+    ].join('\n'),
+    relatedId: row.id,
+  }));
+}

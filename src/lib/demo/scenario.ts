@@ -51,6 +51,8 @@ export interface DemoBrief {
   quote?: 'sent' | 'deposit-paid' | 'declined';
   /** The client's reason, for a declined quote. */
   declineReason?: string;
+  /** The thread with the client, oldest first, starting two days after submission. */
+  messages?: { by: 'client' | 'engineer'; body: string }[];
   spec: RailSpecInput;
 }
 
@@ -92,6 +94,16 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     submittedDaysAgo: 6,
     revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
     quote: 'sent',
+    messages: [
+      {
+        by: 'client',
+        body: 'Before we accept: will the switcher’s frequency land inside our 1–10 kHz measurement band, or alias into it?',
+      },
+      {
+        by: 'engineer',
+        body: 'No — it runs at several hundred kHz, and the LC post-filter takes its ripple below the 0.5 mV budget. The quote’s design section lists the figures; the test report will include a spectrum of the rail.',
+      },
+    ],
     notes: 'Feeds a 24-bit ADC reference buffer and op-amps; the ripple budget is tight.',
     spec: {
       input: { vMin: 16, vNom: 18, vMax: 20, rippleVpp: 1.2, source: 'rectified' },

@@ -9,6 +9,7 @@ import { catalogToRows } from '~/lib/catalog';
 import {
   account,
   brief,
+  briefMessage,
   clientProfile,
   designRevision,
   deviceClass,
@@ -174,6 +175,13 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
             at: new Date(revisedAt.getTime() + DAY_MS),
           });
       }
+      for (const [index, message] of (item.messages ?? []).entries())
+        await tx.insert(briefMessage).values({
+          briefId,
+          authorId: message.by === 'client' ? ownerId : engineerId,
+          body: message.body,
+          createdAt: new Date((submittedAt?.getTime() ?? now) + 2 * DAY_MS + index * 3 * 3_600_000),
+        });
       const steps = item.quote === 'declined' ? declinedLifecycle() : lifecycleTo(item.state);
       let at = submittedAt?.getTime() ?? createdAt.getTime();
       for (const [index, step] of steps.entries()) {

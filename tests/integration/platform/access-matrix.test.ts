@@ -74,6 +74,19 @@ const ROWS: Row[] = [
     expect: [401, 200, 404, 400, 400],
   },
   {
+    method: 'GET',
+    file: 'api/v1/briefs/[id]/messages.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/messages`,
+    expect: [401, 200, 404, 200, 200],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/[id]/messages.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/messages`,
+    body: () => ({ body: 'When does the design work start?' }),
+    expect: [401, 201, 404, 201, 201],
+  },
+  {
     method: 'POST',
     file: 'api/v1/briefs/[id]/files.ts',
     path: () => `/api/v1/briefs/${ids.paidBrief}/files`,

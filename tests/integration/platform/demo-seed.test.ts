@@ -2,7 +2,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
-import { brief, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
+import { brief, briefMessage, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
 
 test('the demo’s paid quote went draft → sent → accepted → deposit-paid, in time order, with a paid deposit', async () => {
   const { db, client } = connect(inject('databaseUrl'));
@@ -55,6 +55,21 @@ test('the demo has a quote the client declined with a reason, and its brief back
       .where(eq(stateChange.subjectId, plc?.id ?? ''))
       .orderBy(asc(stateChange.createdAt));
     expect(briefHistory.map((h) => h.toState).slice(-2)).toEqual(['quoted', 'in-review']);
+  } finally {
+    client.close();
+  }
+});
+
+test('the demo’s quoted brief has a question from its client and the engineer’s answer', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [bench] = await db.select().from(brief).where(eq(brief.title, 'Bench meter analog front-end, quiet 12 V'));
+    const thread = await db
+      .select()
+      .from(briefMessage)
+      .where(eq(briefMessage.briefId, bench?.id ?? ''))
+      .orderBy(asc(briefMessage.createdAt));
+    expect(thread.map((m) => m.authorId === bench?.ownerId)).toEqual([true, false]);
   } finally {
     client.close();
   }

@@ -7,16 +7,11 @@ import { describe, expect, inject, test } from 'vitest';
 import { SUCCESS_CARD } from '../../../stripe-fake/index';
 import { DEMO, Visitor } from '../../support/client';
 import { openCheckout, pay, quoteState, until } from '../payments/helpers';
-import { execSql, railUnderReview } from './helpers';
+import { execSql, mailsTo, mailText, railUnderReview } from './helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
 const databaseUrl = inject('databaseUrl');
-
-interface Mail {
-  id: string;
-  subject: string;
-}
 
 async function sentQuote() {
   const rail = await railUnderReview(baseUrl);
@@ -29,8 +24,6 @@ async function sentQuote() {
     send: async () => expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200),
   };
 }
-
-const mailsTo = async (to: string): Promise<Mail[]> => (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(to)}`)).json();
 
 const formPost = (visitor: Visitor, path: string, fields: Record<string, string>) =>
   visitor.request(path, {
@@ -63,12 +56,11 @@ describe('accepting with a purchase-order number', () => {
     const { url } = await openCheckout(rail.client, rail.quote.id);
     expect((await pay(url, SUCCESS_CARD)).status).toBe(303);
     const receipt = await until(
-      async () => (await mailsTo(rail.email)).find((m) => m.subject.startsWith('Receipt: deposit')),
+      async () => (await mailsTo(mailApiUrl, rail.email)).find((m) => m.subject.startsWith('Receipt: deposit')),
       Boolean,
       'the deposit receipt',
     );
-    const full = await (await fetch(`${mailApiUrl}/messages/${receipt?.id}`)).json();
-    expect(full.text).toMatch(/Your PO:\s+4500-0192/);
+    expect(await mailText(mailApiUrl, receipt?.id)).toMatch(/Your PO:\s+4500-0192/);
   });
 
   test('without a number the acceptance works as before and the receipt has no PO line', async () => {
@@ -80,11 +72,11 @@ describe('accepting with a purchase-order number', () => {
     const { url } = await openCheckout(rail.client, rail.quote.id);
     await pay(url, SUCCESS_CARD);
     const receipt = await until(
-      async () => (await mailsTo(rail.email)).find((m) => m.subject.startsWith('Receipt: deposit')),
+      async () => (await mailsTo(mailApiUrl, rail.email)).find((m) => m.subject.startsWith('Receipt: deposit')),
       Boolean,
       'the deposit receipt',
     );
-    expect((await (await fetch(`${mailApiUrl}/messages/${receipt?.id}`)).json()).text).not.toContain('Your PO');
+    expect(await mailText(mailApiUrl, receipt?.id)).not.toContain('Your PO');
   });
 
   test('the page takes the number in its confirming step', async () => {
@@ -144,20 +136,20 @@ describe('declining with a reason', () => {
 
     const subject = `Quote ${rail.quote.number} declined: ${rail.quote.briefTitle}`;
     const mail = await until(
-      async () => (await mailsTo(DEMO.engineer)).filter((m) => m.subject === subject),
+      async () => (await mailsTo(mailApiUrl, DEMO.engineer)).filter((m) => m.subject === subject),
       (found) => found.length > 0,
       'the decline e-mail',
     );
-    const full = await (await fetch(`${mailApiUrl}/messages/${mail[0]?.id}`)).json();
-    expect(full.text).toContain('A cheaper linear option would do.');
-    expect(full.text).toContain(`/desk/briefs/${rail.briefId}`);
+    const full = await mailText(mailApiUrl, mail[0]?.id);
+    expect(full).toContain('A cheaper linear option would do.');
+    expect(full).toContain(`/desk/briefs/${rail.briefId}`);
     const outbox = await execSql(databaseUrl, "SELECT state FROM mail_outbox WHERE related_id = ? AND kind = 'quote-declined'", [
       rail.quote.id,
     ]);
     expect(outbox).toEqual([{ state: 'sent' }]);
     // The outbox poller runs every few seconds: the mail must not go out a second time.
     await new Promise((r) => setTimeout(r, 6_000));
-    expect((await mailsTo(DEMO.engineer)).filter((m) => m.subject === subject)).toHaveLength(1);
+    expect((await mailsTo(mailApiUrl, DEMO.engineer)).filter((m) => m.subject === subject)).toHaveLength(1);
 
     // The record says who declined and why.
     const moves = await execSql(databaseUrl, "SELECT to_state, note FROM state_change WHERE subject_id = ? AND to_state = 'declined'", [

@@ -102,6 +102,23 @@ export const briefNote = sqliteTable(
   (t) => [index('brief_note_brief_idx').on(t.briefId)],
 );
 
+/** The thread between a brief's client and the consultancy: seen by both sides, unlike the internal notes. */
+export const briefMessage = sqliteTable(
+  'brief_message',
+  {
+    id: id(),
+    briefId: text('brief_id')
+      .notNull()
+      .references(() => brief.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => user.id),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('brief_message_brief_idx').on(t.briefId, t.createdAt)],
+);
+
 export const designRevision = sqliteTable(
   'design_revision',
   {
