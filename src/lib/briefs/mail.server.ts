@@ -5,8 +5,8 @@ import type { BriefRow } from './briefs.server';
 import { appUrl } from '../platform/links';
 import type { OutgoingMail } from '../platform/mail/transport';
 
-/** The mail telling every engineer that a brief arrived, read inside the submitting transaction. */
-export async function submittedMails(tx: DbOrTx, row: BriefRow): Promise<OutgoingMail[]> {
+/** The mail telling every engineer that a brief arrived (or came back with changes), read inside the submitting transaction. */
+export async function submittedMails(tx: DbOrTx, row: BriefRow, resubmitted = false): Promise<OutgoingMail[]> {
   const [staff, owner] = await Promise.all([
     tx
       .select({ email: user.email })
@@ -24,9 +24,11 @@ export async function submittedMails(tx: DbOrTx, row: BriefRow): Promise<Outgoin
   return staff.map(({ email }) => ({
     kind: 'brief-submitted',
     to: email,
-    subject: `New brief: ${row.title}`,
+    subject: `${resubmitted ? 'Brief resubmitted' : 'New brief'}: ${row.title}`,
     text: [
-      `${who} submitted a supply brief: ${row.title}.`,
+      resubmitted
+        ? `${who} changed the supply brief “${row.title}” as asked and submitted it again; the review shows what changed.`
+        : `${who} submitted a supply brief: ${row.title}.`,
       summary?.topology
         ? `The engine's first pick is ${summary.topology}; review it before anything is promised.`
         : 'No option is feasible as briefed; it needs an engineer’s look.',
@@ -60,4 +62,29 @@ export function messageMails(
     ].join('\n'),
     relatedId: row.id,
   }));
+}
+
+/** Tells the client that an engineer sent their brief back, with what should change and the link to edit it. */
+export function changesRequestedMail(
+  row: BriefRow,
+  owner: { name: string; email: string },
+  engineerName: string,
+  request: string,
+): OutgoingMail {
+  return {
+    kind: 'brief-changes-requested',
+    to: owner.email,
+    subject: `Changes requested: ${row.title}`,
+    text: [
+      `Dear ${owner.name},`,
+      '',
+      `${engineerName} looked at your brief “${row.title}” and asks for a change before it can be quoted:`,
+      '',
+      ...request.split('\n').map((line) => `  ${line}`),
+      '',
+      `Edit the brief and submit it again here: ${appUrl(`/briefs/new?draft=${row.id}`)}`,
+      `Or answer on the brief's page: ${appUrl(`/briefs/${row.id}#messages`)}`,
+    ].join('\n'),
+    relatedId: row.id,
+  };
 }

@@ -10,10 +10,12 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
   owner: {
     draft: ['submitted', 'cancelled'],
     submitted: ['cancelled'],
+    // Sent back by an engineer: the owner edits it in the wizard and submits it again.
+    'changes-requested': ['submitted', 'cancelled'],
   },
   staff: {
-    submitted: ['in-review', 'declined', 'cancelled'],
-    'in-review': ['declined', 'cancelled'],
+    submitted: ['in-review', 'changes-requested', 'declined', 'cancelled'],
+    'in-review': ['changes-requested', 'declined', 'cancelled'],
     quoted: ['in-review', 'expired', 'cancelled'],
     'deposit-paid': ['in-design'],
     'in-design': ['delivered'],

@@ -51,6 +51,8 @@ export interface DemoBrief {
   quote?: 'sent' | 'deposit-paid' | 'declined';
   /** The client's reason, for a declined quote. */
   declineReason?: string;
+  /** What the engineer asked the client to change, for a brief sent back (state `changes-requested`). */
+  changeRequest?: string;
   /** The thread with the client, oldest first, starting two days after submission. */
   messages?: { by: 'client' | 'engineer'; body: string }[];
   spec: RailSpecInput;
@@ -127,6 +129,22 @@ export const DEMO_BRIEFS: DemoBrief[] = [
       output: { v: 5, tolerance: 0.05, iMin: 0.1, iTyp: 0.9, iMax: 1.5 },
       noise: { class: 'digital' },
       thermal: { ambientMaxC: 55, airflow: 'enclosed' },
+    },
+  },
+  {
+    key: 'motor-logic',
+    owner: 'harrow',
+    title: 'Drive controller logic, 3.3 V from the 48 V bus',
+    state: 'changes-requested',
+    submittedDaysAgo: 2,
+    changeRequest:
+      'Before we can quote: does the 60 V maximum include the spikes from regenerative braking? And please give the load step of the gate-driver logic — the brief has only the 0.5 A maximum.',
+    notes: 'Logic and gate-driver supply for a 48 V motor drive; the bus also feeds the motor.',
+    spec: {
+      input: { vMin: 36, vNom: 48, vMax: 60, rippleVpp: 0.5, source: 'bus' },
+      output: { v: 3.3, tolerance: 0.03, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 50, airflow: 'enclosed' },
     },
   },
   {

@@ -10,6 +10,7 @@ import {
   account,
   brief,
   briefMessage,
+  briefSpecVersion,
   clientProfile,
   designRevision,
   deviceClass,
@@ -23,7 +24,7 @@ import {
 import { draftQuote, moveQuote } from '~/lib/quotes/index.server';
 import { movePayment } from '~/lib/payments/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
-import { declinedLifecycle, lifecycleTo } from './lifecycle';
+import { changesRequestedLifecycle, declinedLifecycle, lifecycleTo } from './lifecycle';
 import { DAY_MS } from '../platform/time';
 
 /**
@@ -182,7 +183,19 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           body: message.body,
           createdAt: new Date((submittedAt?.getTime() ?? now) + 2 * DAY_MS + index * 3 * 3_600_000),
         });
-      const steps = item.quote === 'declined' ? declinedLifecycle() : lifecycleTo(item.state);
+      if (submittedAt) await tx.insert(briefSpecVersion).values({ briefId, number: 1, spec, createdAt: submittedAt });
+      if (item.changeRequest)
+        await tx.insert(briefMessage).values({
+          briefId,
+          authorId: engineerId,
+          body: item.changeRequest,
+          createdAt: new Date((submittedAt?.getTime() ?? now) + 5 * 3_600_000),
+        });
+      const steps = item.changeRequest
+        ? changesRequestedLifecycle(item.changeRequest)
+        : item.quote === 'declined'
+          ? declinedLifecycle()
+          : lifecycleTo(item.state);
       let at = submittedAt?.getTime() ?? createdAt.getTime();
       for (const [index, step] of steps.entries()) {
         await tx.insert(stateChange).values({
@@ -191,6 +204,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           fromState: step.from,
           toState: step.to,
           actorId: step.by === 'client' ? ownerId : engineerId,
+          note: step.note ?? '',
           createdAt: new Date(at),
         });
         at += (index + 1) * 3_600_000 * 5;

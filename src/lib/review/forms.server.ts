@@ -33,5 +33,6 @@ export async function handleReviewForm(
   }
   const moved = await moveAsStaff(staff, row, fields.state, fields.note);
   if (moved.ok) return succeed('moved');
+  if (moved.kind === 'invalid') return moved;
   return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.state).label.toLowerCase()}.`);
 }

@@ -74,3 +74,25 @@ test('the demoâ€™s quoted brief has a question from its client and the engineerâ
     client.close();
   }
 });
+
+test('the demo has a brief sent back to its client, with the request in the history and the thread', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [sent] = await db.select().from(brief).where(eq(brief.title, 'Drive controller logic, 3.3 V from the 48 V bus'));
+    expect(sent?.state).toBe('changes-requested');
+    const history = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, sent?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(history.at(-1)).toMatchObject({ fromState: 'submitted', toState: 'changes-requested' });
+    expect(history.at(-1)?.note).toContain('regenerative braking');
+    const thread = await db
+      .select()
+      .from(briefMessage)
+      .where(eq(briefMessage.briefId, sent?.id ?? ''));
+    expect(thread.map((m) => m.body)).toEqual([history.at(-1)?.note]);
+  } finally {
+    client.close();
+  }
+});

@@ -102,6 +102,21 @@ export const briefNote = sqliteTable(
   (t) => [index('brief_note_brief_idx').on(t.briefId)],
 );
 
+/** Each submitted version of a brief's spec, numbered from 1, so a resubmission after requested changes keeps the one before. */
+export const briefSpecVersion = sqliteTable(
+  'brief_spec_version',
+  {
+    id: id(),
+    briefId: text('brief_id')
+      .notNull()
+      .references(() => brief.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    spec: text('spec', { mode: 'json' }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('brief_spec_version_number_idx').on(t.briefId, t.number)],
+);
+
 /** The thread between a brief's client and the consultancy: seen by both sides, unlike the internal notes. */
 export const briefMessage = sqliteTable(
   'brief_message',
