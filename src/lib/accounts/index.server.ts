@@ -1,2 +1,3 @@
 /** People and their accounts: the server-only services other domains may call. */
 export * from './accounts.server';
+export * from './notifications.server';

@@ -5,7 +5,7 @@ import type { BriefRow } from './briefs.server';
 import { appUrl } from '../platform/links';
 import type { OutgoingMail } from '../platform/mail/transport';
 
-/** The mail telling every engineer that a brief arrived (or came back with changes), read inside the submitting transaction. */
+/** The mail telling every engineer that a brief arrived (or came back with changes), and the client that it reached us; read inside the submitting transaction. */
 export async function submittedMails(tx: DbOrTx, row: BriefRow, resubmitted = false): Promise<OutgoingMail[]> {
   const [staff, owner] = await Promise.all([
     tx
@@ -13,7 +13,7 @@ export async function submittedMails(tx: DbOrTx, row: BriefRow, resubmitted = fa
       .from(user)
       .where(inArray(user.role, ['engineer'])),
     tx
-      .select({ name: user.name, company: clientProfile.company })
+      .select({ name: user.name, email: user.email, company: clientProfile.company })
       .from(user)
       .leftJoin(clientProfile, eq(clientProfile.userId, user.id))
       .where(eq(user.id, row.ownerId))
@@ -21,7 +21,7 @@ export async function submittedMails(tx: DbOrTx, row: BriefRow, resubmitted = fa
   ]);
   const who = owner[0] ? `${owner[0].name}${owner[0].company ? ` (${owner[0].company})` : ''}` : 'A client';
   const summary = row.summary as { topology?: string } | null;
-  return staff.map(({ email }) => ({
+  const notices: OutgoingMail[] = staff.map(({ email }) => ({
     kind: 'brief-submitted',
     to: email,
     subject: `${resubmitted ? 'Brief resubmitted' : 'New brief'}: ${row.title}`,
@@ -37,6 +37,24 @@ export async function submittedMails(tx: DbOrTx, row: BriefRow, resubmitted = fa
     ].join('\n'),
     relatedId: row.id,
   }));
+  const client = owner[0];
+  if (!client) return notices;
+  const received: OutgoingMail = {
+    kind: 'brief-received',
+    to: client.email,
+    subject: `We received your brief: ${row.title}`,
+    text: [
+      `Dear ${client.name},`,
+      '',
+      resubmitted
+        ? `Thank you for the changes to “${row.title}”. An engineer looks at the brief again and writes to you.`
+        : `Thank you for your brief “${row.title}”. An engineer reviews it and writes to you with a quote or a question.`,
+      '',
+      `Its page, with any messages: ${appUrl(`/briefs/${row.id}`)}`,
+    ].join('\n'),
+    relatedId: row.id,
+  };
+  return [...notices, received];
 }
 
 /** A message in a brief's thread, e-mailed to each reader on the other side with the link to answer it. */

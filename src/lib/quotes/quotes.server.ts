@@ -15,7 +15,8 @@ import { deliverQueuedMail } from '../platform/mail/mailer';
 import { enqueueMail, latestOutboxEntry } from '../platform/mail/outbox';
 import { renderQuotePdf } from './render.server';
 import { draftQuote, moveQuote, validUntilFrom, writeLines, type QuoteRow } from './core.server';
-import { declinedMail, quoteMail } from './mail.server';
+import { acceptedMail, declinedMail, quoteMail } from './mail.server';
+import type { DbOrTx } from '../platform/db/connect';
 import type { AcceptQuoteRequest, DeclineQuoteRequest } from './decisions';
 import { loadQuoteView, type QuoteView } from './view.server';
 import { DAY_MS } from '../platform/time';
@@ -235,6 +236,12 @@ export async function quoteMailDelivery(quoteId: string): Promise<{ delivered: b
 
 class Refused extends Error {}
 
+/** The engineer who drafted the quote: the one told of the client's decision. */
+async function quoteAuthor(tx: DbOrTx, view: QuoteView) {
+  const [engineer] = await tx.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, view.quote.createdBy)).limit(1);
+  return engineer ?? null;
+}
+
 /** Why a client cannot decide on this quote now (accept or decline), or null when they can. */
 function undecidable(view: QuoteView, client: SignedInUser, verb: 'accepted' | 'declined', now: Date): Refusal | null {
   const { quote: q } = view;
@@ -258,19 +265,23 @@ export async function acceptQuote(
   const refused = undecidable(view, client, 'accepted', now);
   if (refused) return refused;
   const purchaseOrder = request.purchaseOrder?.trim() || null;
+  let queued: string[];
   try {
-    await db.transaction(async (tx) => {
+    queued = await db.transaction(async (tx) => {
       const accepted = await moveQuote(tx, view.quote, 'accepted', client.id, { acceptedAt: now, purchaseOrder });
       if (!accepted) throw new Refused(`Quote ${view.quote.number} was accepted meanwhile.`);
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
       const moved = briefRow ? await moveBrief(tx, briefRow, 'accepted', 'system', client.id, `Quote ${view.quote.number} accepted`) : null;
       if (!moved?.ok)
         throw new Refused('This quote no longer stands: the brief has moved on. Reply to the quote e-mail and we will sort it out.');
+      const engineer = await quoteAuthor(tx, view);
+      return engineer ? enqueueMail(tx, [acceptedMail(view, engineer, purchaseOrder, quotePageUrl(view.quote.id))], now) : [];
     });
   } catch (err) {
     if (err instanceof Refused) return wrong(err.message);
     throw err;
   }
+  await deliverQueuedMail(queued);
   return reload(view.quote.id);
 }
 
@@ -298,11 +309,7 @@ export async function declineQuote(
         ? await moveBrief(tx, briefRow, 'in-review', 'system', client.id, `Quote ${view.quote.number} declined: ${reason}`)
         : null;
       if (!moved?.ok) throw new Refused('The brief has moved on meanwhile; reload the quote.');
-      const [engineer] = await tx
-        .select({ name: user.name, email: user.email })
-        .from(user)
-        .where(eq(user.id, view.quote.createdBy))
-        .limit(1);
+      const engineer = await quoteAuthor(tx, view);
       return engineer ? enqueueMail(tx, [declinedMail(view, engineer, reason, appUrl(`/desk/briefs/${view.brief.id}`))], now) : [];
     });
   } catch (err) {

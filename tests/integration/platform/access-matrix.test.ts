@@ -10,6 +10,7 @@ import { beforeAll, describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
 import { brief, designRevision, quote } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
+import { NOTIFICATION_KINDS } from '../../../src/lib/accounts/notifications';
 
 const baseUrl = inject('baseUrl');
 const databaseUrl = inject('databaseUrl');
@@ -227,6 +228,14 @@ const ROWS: Row[] = [
     path: () => `/quotes/${ids.quote}`,
     fields: { decision: 'decline', reason: 'Over budget' },
     expect: [303, 409, 404, 403, 403],
+  },
+  // Anyone signed in keeps their own notice choices (all ticked here, so the demo people keep every notice).
+  {
+    method: 'POST',
+    file: 'account.astro',
+    path: () => '/account',
+    fields: Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k.kind, 'on'])),
+    expect: [303, 303, 303, 303, 303],
   },
   { method: 'POST', file: 'sign-in.astro', path: () => '/sign-in', fields: { email: 'not an address' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'sign-up.astro', path: () => '/sign-up', fields: { email: 'x' }, expect: [400, 400, 400, 400, 400] },

@@ -102,6 +102,19 @@ export const briefNote = sqliteTable(
   (t) => [index('brief_note_brief_idx').on(t.briefId)],
 );
 
+/** The kinds of notice e-mail a person turned off on their account page (receipts and account mail cannot be). */
+export const mailOptOut = sqliteTable(
+  'mail_opt_out',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    kind: text('kind').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('mail_opt_out_user_kind_idx').on(t.userId, t.kind)],
+);
+
 /** Each submitted version of a brief's spec, numbered from 1, so a resubmission after requested changes keeps the one before. */
 export const briefSpecVersion = sqliteTable(
   'brief_spec_version',
