@@ -1,7 +1,7 @@
 import { describe, expect, inject, test } from 'vitest';
 import { useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
-import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
+import { CLIENT_PASSWORD, mailsTo, railUnderReview } from '../integration/quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
@@ -12,8 +12,8 @@ describe('the deposit', () => {
     const rail = await railUnderReview(baseUrl);
     const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
-    const [message] = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
-    const full = await (await fetch(`${mailApiUrl}/messages/${message.id}`)).json();
+    const message = (await mailsTo(mailApiUrl, rail.email)).find((m) => m.subject.startsWith('Quote '));
+    const full = await (await fetch(`${mailApiUrl}/messages/${message?.id}`)).json();
     const link = /https?:\/\/\S+\/quotes\/[0-9a-f-]{36}/.exec(full.text)?.[0] ?? '';
 
     const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
@@ -26,7 +26,8 @@ describe('the deposit', () => {
     await page.getByLabel('Password').fill(CLIENT_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(new RegExp(`/quotes/${quote.id}$`));
-    await page.getByRole('button', { name: /^Accept/ }).click();
+    await page.getByRole('link', { name: 'Accept…' }).click();
+    await page.getByRole('button', { name: /^Accept quote/ }).click();
     await page.getByRole('button', { name: 'Pay the deposit' }).waitFor();
     await screenshot(page, 'deposit-accepted');
 

@@ -1,14 +1,14 @@
 import { describe, expect, inject, test } from 'vitest';
 import { islandsReady, useBrowser, screenshot, signInThroughForm } from './browser';
 import { DEMO } from '../support/client';
-import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
+import { CLIENT_PASSWORD, mailsTo, railUnderReview } from '../integration/quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
 const browser = useBrowser();
 
 describe('a quote from the engineer’s desk to the client’s acceptance', () => {
-  test('the engineer drafts, edits and sends; the client opens the e-mailed link and accepts', async () => {
+  test('the engineer drafts, edits and sends after confirming; the client opens the e-mailed link and accepts with a PO number', async () => {
     const rail = await railUnderReview(baseUrl);
     const errors: string[] = [];
 
@@ -34,15 +34,22 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     await engineer.getByText('Saved. The totals below are the stored ones.').waitFor();
     await screenshot(engineer, 'quote-builder');
 
-    await engineer.getByRole('button', { name: `Send to ${rail.email}` }).click();
+    // Sending takes a confirming click; backing out sends nothing.
+    await engineer.getByRole('button', { name: `Send to ${rail.email}…` }).click();
+    await engineer.getByRole('button', { name: 'Not yet' }).click();
+    expect(await engineer.getByRole('button', { name: `Send quote ${number}` }).count()).toBe(0);
+    await engineer.getByRole('button', { name: `Send to ${rail.email}…` }).click();
+    await engineer.getByText(`Send quote ${number} to ${rail.email}?`).waitFor();
+    await screenshot(engineer, 'quote-builder-confirm-send');
+    await engineer.getByRole('button', { name: `Send quote ${number}` }).click();
     await engineer.waitForURL(/\?sent=1$/);
     await engineer.getByText(`Quote ${number} was e-mailed to ${rail.email}`).waitFor();
     await desk.close();
 
     // The e-mail as received, and its link.
-    const [message] = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
-    expect(message.subject).toContain(number);
-    const full = await (await fetch(`${mailApiUrl}/messages/${message.id}`)).json();
+    const message = (await mailsTo(mailApiUrl, rail.email)).find((m) => m.subject.startsWith('Quote '));
+    expect(message?.subject).toContain(number);
+    const full = await (await fetch(`${mailApiUrl}/messages/${message?.id}`)).json();
     const link = /https?:\/\/\S+\/quotes\/[0-9a-f-]{36}/.exec(full.text)?.[0];
     expect(link).toBeTruthy();
 
@@ -65,15 +72,51 @@ describe('a quote from the engineer’s desk to the client’s acceptance', () =
     // The price table scrolls inside its own box: the page itself never scrolls sideways on a phone.
     expect(await client.evaluate(() => document.scrollingElement!.scrollWidth)).toBeLessThanOrEqual(390);
 
+    // Accepting takes a confirming step on the page, where the purchase-order number is given.
+    expect(await client.getByRole('button', { name: `Accept quote ${number}` }).count()).toBe(0);
+    await client.getByRole('link', { name: 'Accept…' }).click();
+    await client.getByRole('heading', { name: 'Confirm your acceptance' }).waitFor();
+    await client.getByLabel('Your purchase-order number (optional)').fill('PO-77120');
+    await screenshot(client, 'quote-client-confirm-accept');
     await client.getByRole('button', { name: `Accept quote ${number}` }).click();
     await client.getByText(`quote ${number} is accepted`).waitFor();
-    await expect(client.getByRole('region', { name: 'Acceptance' }).textContent()).resolves.toContain('Accepted on');
+    const acceptance = await client.getByRole('region', { name: 'Acceptance' }).textContent();
+    expect(acceptance).toContain('Accepted on');
+    expect(acceptance).toContain('Purchase order PO-77120');
     expect(await client.getByRole('button', { name: /Accept quote/ }).count()).toBe(0);
     await screenshot(client, 'quote-client-accepted');
     await phone.close();
 
     expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('accepted');
     expect(errors).toEqual([]);
+  });
+});
+
+describe('a client declines a quote', () => {
+  test('the decline asks for a reason on the page, then shows it; the engineer is e-mailed with the brief’s link', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
+    expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
+
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
+    const page = await context.newPage();
+    await signInThroughForm(page, baseUrl, rail.email, CLIENT_PASSWORD);
+    await page.goto(`${baseUrl}/quotes/${quote.id}`);
+    await page.getByRole('link', { name: 'Decline…' }).click();
+    await page.getByRole('heading', { name: `Decline quote ${quote.number}?` }).waitFor();
+    await page.getByLabel('Why are you declining?').fill('We chose to build the rail from a module instead.');
+    await screenshot(page, 'quote-client-confirm-decline');
+    await page.getByRole('button', { name: `Decline quote ${quote.number}` }).click();
+    await page.getByText(`Quote ${quote.number} is declined.`).waitFor();
+    const acceptance = await page.getByRole('region', { name: 'Acceptance' }).textContent();
+    expect(acceptance).toContain('We chose to build the rail from a module instead.');
+    expect(await page.getByRole('link', { name: 'Accept…' }).count()).toBe(0);
+    await screenshot(page, 'quote-client-declined');
+    await context.close();
+
+    const mails = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(DEMO.engineer)}`)).json();
+    const declined = mails.find((m: { subject: string }) => m.subject === `Quote ${quote.number} declined: ${quote.briefTitle}`);
+    expect(declined).toBeTruthy();
   });
 });
 

@@ -76,6 +76,8 @@ export function QuoteEditor({ initial }: Props) {
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(null);
   const [busy, setBusy] = useState<'save' | 'send' | null>(null);
+  // Sending cannot be undone (the client gets the e-mail), so it takes a second, confirming click.
+  const [confirmingSend, setConfirmingSend] = useState(false);
 
   const edit =
     <T,>(setter: (v: T) => void) =>
@@ -163,6 +165,7 @@ export function QuoteEditor({ initial }: Props) {
   }
 
   async function send() {
+    setConfirmingSend(false);
     if (dirty && !(await save())) return;
     setBusy('send');
     setStatus(null);
@@ -387,15 +390,44 @@ export function QuoteEditor({ initial }: Props) {
         >
           Preview the PDF{dirty ? ' (save first)' : ''}
         </a>
-        <button
-          type="button"
-          onClick={() => void send()}
-          disabled={busy !== null}
-          className="ml-auto rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
-        >
-          {busy === 'send' ? 'Sending…' : `Send to ${saved.client.email}`}
-        </button>
+        {!confirmingSend && (
+          <button
+            type="button"
+            onClick={() => setConfirmingSend(true)}
+            disabled={busy !== null}
+            className="ml-auto rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600 disabled:opacity-50"
+          >
+            {busy === 'send' ? 'Sending…' : `Send to ${saved.client.email}…`}
+          </button>
+        )}
       </div>
+      {confirmingSend && (
+        <div role="group" aria-labelledby="confirm-send-heading" className="rounded-lg border-2 border-copper-500 bg-copper-50 p-4">
+          <p id="confirm-send-heading" className="font-bold">
+            Send quote {saved.number} to {saved.client.email}?
+          </p>
+          <p className="mt-1 text-sm">
+            The client receives the PDF by e-mail{dirty ? ' (your changes are saved first)' : ''}; the quote can no longer be edited, and
+            any earlier quote still open for this brief is withdrawn.
+          </p>
+          <div className="mt-3 flex flex-wrap gap-3">
+            <button
+              type="button"
+              onClick={() => void send()}
+              className="rounded-md border border-copper-700 bg-copper-700 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-600"
+            >
+              Send quote {saved.number}
+            </button>
+            <button
+              type="button"
+              onClick={() => setConfirmingSend(false)}
+              className="rounded-md border border-ink/25 bg-card px-4 py-2 text-sm font-semibold hover:border-ink/60"
+            >
+              Not yet
+            </button>
+          </div>
+        </div>
+      )}
     </div>
   );
 }

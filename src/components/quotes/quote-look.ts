@@ -6,6 +6,7 @@ export const QUOTE_STATE_LOOK: Record<string, StateLook> = {
   sent: { label: 'Sent', tone: 'accent', glyph: '→' },
   accepted: { label: 'Accepted', tone: 'ok', glyph: '✓' },
   'deposit-paid': { label: 'Deposit paid', tone: 'ok', glyph: '✓✓' },
+  declined: { label: 'Declined', tone: 'stop', glyph: '⊘' },
   expired: { label: 'Expired', tone: 'idle', glyph: '⌛' },
   withdrawn: { label: 'Withdrawn', tone: 'stop', glyph: '✕' },
 };

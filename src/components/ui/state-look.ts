@@ -13,6 +13,7 @@ export interface StateLook {
 export const BRIEF_STATE_LOOK: Record<string, StateLook> = {
   draft: { label: 'Draft', tone: 'idle', glyph: '✎' },
   submitted: { label: 'Submitted', tone: 'accent', glyph: '→' },
+  'changes-requested': { label: 'Changes requested', tone: 'warn', glyph: '↩' },
   'in-review': { label: 'In review', tone: 'accent', glyph: '◔' },
   quoted: { label: 'Quoted', tone: 'warn', glyph: '¤' },
   accepted: { label: 'Accepted', tone: 'ok', glyph: '✓' },

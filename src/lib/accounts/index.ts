@@ -2,3 +2,4 @@
 export * from './form-actions';
 export * from './navigation';
 export * from './schemas';
+export * from './notifications';

@@ -6,3 +6,4 @@ export * from './files.server';
 export * from './mail.server';
 export * from './moves.server';
 export * from './notes.server';
+export * from './messages.server';

@@ -8,3 +8,4 @@ export * from './summary';
 export * from './transitions';
 export * from './wizard-defaults';
 export * from './wizard-form';
+export * from './spec-diff';

@@ -107,3 +107,15 @@ export const briefListQuerySchema = z.object({
 });
 
 export type CreateBrief = z.infer<typeof createBriefSchema>;
+
+/** A message in a brief's thread with the client (either side writes it). */
+export const messageRequestSchema = z
+  .object({
+    body: z
+      .string({ error: 'Write your message.' })
+      .trim()
+      .min(1, { error: 'Write your message.' })
+      .max(4_000, { error: 'Keep the message under 4 000 characters.' }),
+  })
+  .strict();
+export type MessageRequest = z.infer<typeof messageRequestSchema>;

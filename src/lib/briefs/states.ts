@@ -2,6 +2,7 @@
 export const BRIEF_STATES = [
   'draft',
   'submitted',
+  'changes-requested',
   'in-review',
   'quoted',
   'accepted',

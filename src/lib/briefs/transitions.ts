@@ -10,10 +10,12 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
   owner: {
     draft: ['submitted', 'cancelled'],
     submitted: ['cancelled'],
+    // Sent back by an engineer: the owner edits it in the wizard and submits it again.
+    'changes-requested': ['submitted', 'cancelled'],
   },
   staff: {
-    submitted: ['in-review', 'declined', 'cancelled'],
-    'in-review': ['declined', 'cancelled'],
+    submitted: ['in-review', 'changes-requested', 'declined', 'cancelled'],
+    'in-review': ['changes-requested', 'declined', 'cancelled'],
     quoted: ['in-review', 'expired', 'cancelled'],
     'deposit-paid': ['in-design'],
     'in-design': ['delivered'],
@@ -21,7 +23,8 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
   // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit, a lapsed acceptance.
   system: {
     'in-review': ['quoted'],
-    quoted: ['accepted', 'expired'],
+    // A declined quote sends the brief back to review: the engineer revises and quotes again, or declines the brief.
+    quoted: ['accepted', 'expired', 'in-review'],
     // Back to review when the accepted quote lapses unpaid: the engineer sends a fresh quote.
     accepted: ['deposit-paid', 'in-review'],
   },

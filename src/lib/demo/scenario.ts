@@ -47,8 +47,14 @@ export interface DemoBrief {
   submittedDaysAgo?: number;
   /** The engineer's note on revision 1, for briefs that have been reviewed. */
   revisionNote?: string;
-  /** How far the quote of revision 1 has gone: sent to the client, or accepted and its deposit paid. */
-  quote?: 'sent' | 'deposit-paid';
+  /** How far the quote of revision 1 has gone: sent to the client, accepted and its deposit paid, or declined by the client. */
+  quote?: 'sent' | 'deposit-paid' | 'declined';
+  /** The client's reason, for a declined quote. */
+  declineReason?: string;
+  /** What the engineer asked the client to change, for a brief sent back (state `changes-requested`). */
+  changeRequest?: string;
+  /** The thread with the client, oldest first, starting two days after submission. */
+  messages?: { by: 'client' | 'engineer'; body: string }[];
   spec: RailSpecInput;
 }
 
@@ -90,6 +96,16 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     submittedDaysAgo: 6,
     revisionNote: 'Switcher with an LC post-filter meets the 0.5 mV budget at far less heat than a linear from the rectified input.',
     quote: 'sent',
+    messages: [
+      {
+        by: 'client',
+        body: 'Before we accept: will the switcher’s frequency land inside our 1–10 kHz measurement band, or alias into it?',
+      },
+      {
+        by: 'engineer',
+        body: 'No — it runs at several hundred kHz, and the LC post-filter takes its ripple below the 0.5 mV budget. The quote’s design section lists the figures; the test report will include a spectrum of the rail.',
+      },
+    ],
     notes: 'Feeds a 24-bit ADC reference buffer and op-amps; the ripple budget is tight.',
     spec: {
       input: { vMin: 16, vNom: 18, vMax: 20, rippleVpp: 1.2, source: 'rectified' },
@@ -105,12 +121,30 @@ export const DEMO_BRIEFS: DemoBrief[] = [
     state: 'in-review',
     submittedDaysAgo: 3,
     revisionNote: 'First pass as briefed; check the load-dump clamp level with the client before quoting.',
+    quote: 'declined',
+    declineReason: 'Our bus clamps load dumps at 36 V, not 30 V — the quote is for the wrong input range. Please quote again for 18–36 V.',
     notes: 'Cabinet reaches 55 °C in summer. The 24 V bus sags to 18 V during motor starts and reaches 30 V on load dump clamps.',
     spec: {
       input: { vMin: 18, vNom: 24, vMax: 30, rippleVpp: 0.5, source: 'bus' },
       output: { v: 5, tolerance: 0.05, iMin: 0.1, iTyp: 0.9, iMax: 1.5 },
       noise: { class: 'digital' },
       thermal: { ambientMaxC: 55, airflow: 'enclosed' },
+    },
+  },
+  {
+    key: 'motor-logic',
+    owner: 'harrow',
+    title: 'Drive controller logic, 3.3 V from the 48 V bus',
+    state: 'changes-requested',
+    submittedDaysAgo: 2,
+    changeRequest:
+      'Before we can quote: does the 60 V maximum include the spikes from regenerative braking? And please give the load step of the gate-driver logic — the brief has only the 0.5 A maximum.',
+    notes: 'Logic and gate-driver supply for a 48 V motor drive; the bus also feeds the motor.',
+    spec: {
+      input: { vMin: 36, vNom: 48, vMax: 60, rippleVpp: 0.5, source: 'bus' },
+      output: { v: 3.3, tolerance: 0.03, iMin: 0.01, iTyp: 0.2, iMax: 0.5 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 50, airflow: 'enclosed' },
     },
   },
   {

@@ -9,6 +9,8 @@ import { catalogToRows } from '~/lib/catalog';
 import {
   account,
   brief,
+  briefMessage,
+  briefSpecVersion,
   clientProfile,
   designRevision,
   deviceClass,
@@ -22,12 +24,12 @@ import {
 import { draftQuote, moveQuote } from '~/lib/quotes/index.server';
 import { movePayment } from '~/lib/payments/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
-import { lifecycleTo } from './lifecycle';
+import { changesRequestedLifecycle, declinedLifecycle, lifecycleTo } from './lifecycle';
 import { DAY_MS } from '../platform/time';
 
 /**
  * The quote of a demo brief, drafted the way the quote builder drafts one, then
- * taken as far as the scenario says: sent, or accepted with its deposit paid.
+ * taken as far as the scenario says: sent, accepted with its deposit paid, or declined.
  */
 async function seedQuote(
   tx: Transaction,
@@ -37,7 +39,8 @@ async function seedQuote(
     revisionId: string;
     engineerId: string;
     ownerId: string;
-    plan: 'sent' | 'deposit-paid';
+    plan: NonNullable<DemoBrief['quote']>;
+    declineReason: string;
     at: Date;
   },
 ) {
@@ -48,14 +51,18 @@ async function seedQuote(
   await tx.update(brief).set({ state: p.finalState }).where(eq(brief.id, p.briefId));
   // Every later step goes through the quote's and the payment's transition tables, as in use.
   let row = drafted.value;
-  const move = async (to: QuoteState, actorId: string | null, at: Date, extra: Partial<QuoteRow> = {}) => {
-    const moved = await moveQuote(tx, row, to, actorId, extra, '', at);
+  const move = async (to: QuoteState, actorId: string | null, at: Date, extra: Partial<QuoteRow> = {}, note = '') => {
+    const moved = await moveQuote(tx, row, to, actorId, extra, note, at);
     if (!moved) throw new Error(`Demo quote ${row.number} cannot move from ${row.state} to ${to}`);
     row = moved;
   };
   const sentAt = new Date(p.at.getTime() + 3_600_000);
   await move('sent', p.engineerId, sentAt, { sentAt });
   if (p.plan === 'sent') return;
+  if (p.plan === 'declined') {
+    await move('declined', p.ownerId, new Date(sentAt.getTime() + DAY_MS), { declineReason: p.declineReason }, p.declineReason);
+    return;
+  }
   const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
   const paidAt = new Date(acceptedAt.getTime() + 600_000);
   await move('accepted', p.ownerId, acceptedAt, { acceptedAt });
@@ -165,10 +172,30 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
             engineerId,
             ownerId,
             plan: item.quote,
+            declineReason: item.declineReason ?? '',
             at: new Date(revisedAt.getTime() + DAY_MS),
           });
       }
-      const steps = lifecycleTo(item.state);
+      for (const [index, message] of (item.messages ?? []).entries())
+        await tx.insert(briefMessage).values({
+          briefId,
+          authorId: message.by === 'client' ? ownerId : engineerId,
+          body: message.body,
+          createdAt: new Date((submittedAt?.getTime() ?? now) + 2 * DAY_MS + index * 3 * 3_600_000),
+        });
+      if (submittedAt) await tx.insert(briefSpecVersion).values({ briefId, number: 1, spec, createdAt: submittedAt });
+      if (item.changeRequest)
+        await tx.insert(briefMessage).values({
+          briefId,
+          authorId: engineerId,
+          body: item.changeRequest,
+          createdAt: new Date((submittedAt?.getTime() ?? now) + 5 * 3_600_000),
+        });
+      const steps = item.changeRequest
+        ? changesRequestedLifecycle(item.changeRequest)
+        : item.quote === 'declined'
+          ? declinedLifecycle()
+          : lifecycleTo(item.state);
       let at = submittedAt?.getTime() ?? createdAt.getTime();
       for (const [index, step] of steps.entries()) {
         await tx.insert(stateChange).values({
@@ -177,6 +204,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
           fromState: step.from,
           toState: step.to,
           actorId: step.by === 'client' ? ownerId : engineerId,
+          note: step.note ?? '',
           createdAt: new Date(at),
         });
         at += (index + 1) * 3_600_000 * 5;

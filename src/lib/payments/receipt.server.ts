@@ -17,12 +17,34 @@ async function paymentWithQuote(db: DbOrTx, paymentId: string) {
   return row ?? null;
 }
 
-/** Queues the client's receipt for a paid deposit in the transaction that records it; returns the queued ids. */
+/** Tells the engineer who drafted the quote that its deposit arrived, so the design work can be scheduled. */
+async function depositPaidMail(tx: DbOrTx, row: NonNullable<Awaited<ReturnType<typeof paymentWithQuote>>>, amount: string) {
+  const [engineer] = await tx.select({ email: user.email }).from(user).where(eq(user.id, row.quote.createdBy)).limit(1);
+  if (!engineer) return [];
+  return [
+    {
+      kind: 'deposit-paid',
+      to: engineer.email,
+      subject: `Deposit paid: quote ${row.quote.number}, ${row.brief.title}`,
+      text: [
+        `${row.client.name} paid the deposit of ${amount} for quote ${row.quote.number} (${row.brief.title}).`,
+        ...(row.quote.purchaseOrder ? [`Their purchase order: ${row.quote.purchaseOrder}`] : []),
+        'The design work can be scheduled: move the brief into design on its review page.',
+        '',
+        `The brief: ${appUrl(`/desk/briefs/${row.brief.id}`)}`,
+      ].join('\n'),
+      relatedId: row.quote.id,
+    },
+  ];
+}
+
+/** Queues the client's receipt for a paid deposit, and the engineer's notice, in the transaction that records it; returns the queued ids. */
 export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<string[]> {
   const row = await paymentWithQuote(tx, paymentId);
   if (!row) return [];
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
   return enqueueMail(tx, [
+    ...(await depositPaidMail(tx, row, amount)),
     {
       kind: 'deposit-receipt',
       to: row.client.email,
@@ -35,6 +57,7 @@ export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<strin
         `Amount paid:   ${amount}`,
         `Date:          ${formatDate(row.payment.paidAt ?? new Date())}`,
         `Reference:     ${row.payment.paymentIntentId ?? row.payment.checkoutSessionId}`,
+        ...(row.quote.purchaseOrder ? [`Your PO:       ${row.quote.purchaseOrder}`] : []),
         `Quote total:   ${formatMoney(row.quote.totalMinor, row.quote.currency)}`,
         `Balance due:   ${formatMoney(row.quote.totalMinor - row.payment.amountMinor, row.quote.currency)} on delivery`,
         '',

@@ -2,3 +2,4 @@
 export * from './firm';
 export * from './pricing';
 export * from './transitions';
+export * from './decisions';

@@ -68,3 +68,44 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
     relatedId: quote.id,
   };
 }
+
+/** The client as an engineer knows them: name, and company where there is one. */
+const clientLabel = (view: QuoteView) => (view.client.company ? `${view.client.name} (${view.client.company})` : view.client.name);
+
+/** Tells the engineer who drafted a quote that the client declined it, with the client's reason and the brief's link. */
+export function declinedMail(view: QuoteView, engineer: { name: string; email: string }, reason: string, briefUrl: string): OutgoingMail {
+  const who = clientLabel(view);
+  return {
+    kind: 'quote-declined',
+    to: engineer.email,
+    subject: `Quote ${view.quote.number} declined: ${view.brief.title}`,
+    text: [
+      `${who} declined quote ${view.quote.number} for “${view.brief.title}”.`,
+      '',
+      'Their reason:',
+      ...reason.split('\n').map((line) => `  ${line}`),
+      '',
+      'The brief is back in review: revise the design and send a fresh quote, or decline the brief.',
+      `Open it: ${briefUrl}`,
+    ].join('\n'),
+    relatedId: view.quote.id,
+  };
+}
+
+/** Tells the engineer who drafted a quote that the client accepted it (with their purchase order, if given). */
+export function acceptedMail(view: QuoteView, engineer: { email: string }, purchaseOrder: string | null, quoteUrl: string): OutgoingMail {
+  const who = clientLabel(view);
+  return {
+    kind: 'quote-accepted',
+    to: engineer.email,
+    subject: `Quote ${view.quote.number} accepted: ${view.brief.title}`,
+    text: [
+      `${who} accepted quote ${view.quote.number} for “${view.brief.title}”.`,
+      ...(purchaseOrder ? [`Their purchase order: ${purchaseOrder}`] : []),
+      'The deposit is paid next, on the quote page; you are e-mailed when it arrives.',
+      '',
+      `The quote: ${quoteUrl}`,
+    ].join('\n'),
+    relatedId: view.quote.id,
+  };
+}

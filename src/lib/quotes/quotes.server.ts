@@ -7,15 +7,17 @@ import { formatDate, formatDateTime } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
 import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
-import { brief, quote } from '../platform/db/schema';
+import { brief, quote, user } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
-import { invalidInput, notYours, refuse, succeed, type Outcome } from '../platform/outcome';
+import { invalidInput, notYours, refuse, succeed, type Outcome, type Refusal } from '../platform/outcome';
 import { appUrl } from '../platform/links';
 import { deliverQueuedMail } from '../platform/mail/mailer';
 import { enqueueMail, latestOutboxEntry } from '../platform/mail/outbox';
 import { renderQuotePdf } from './render.server';
 import { draftQuote, moveQuote, validUntilFrom, writeLines, type QuoteRow } from './core.server';
-import { quoteMail } from './mail.server';
+import { acceptedMail, declinedMail, quoteMail } from './mail.server';
+import type { DbOrTx } from '../platform/db/connect';
+import type { AcceptQuoteRequest, DeclineQuoteRequest } from './decisions';
 import { loadQuoteView, type QuoteView } from './view.server';
 import { DAY_MS } from '../platform/time';
 
@@ -87,6 +89,8 @@ export function quoteJson(view: QuoteView) {
     validUntil: q.validUntil.toISOString(),
     sentAt: q.sentAt?.toISOString() ?? null,
     acceptedAt: q.acceptedAt?.toISOString() ?? null,
+    purchaseOrder: q.purchaseOrder,
+    declineReason: q.declineReason,
     createdAt: q.createdAt.toISOString(),
     client: view.client,
     lines: view.lines.map(({ kind, description, quantityMilli, unit, unitPriceMinor, totalMinor }) => ({
@@ -214,7 +218,7 @@ export async function sendQuote(view: QuoteView, staff: SignedInUser, now = new 
 
 /** Whether a sent quote's e-mail reached the mail server, in words for the builder. */
 export async function quoteMailDelivery(quoteId: string): Promise<{ delivered: boolean; message: string } | null> {
-  const entry = await latestOutboxEntry(db, quoteId);
+  const entry = await latestOutboxEntry(db, quoteId, 'quote');
   if (!entry) return null;
   if (entry.state === 'sent')
     return { delivered: true, message: `E-mailed to ${entry.toAddress} on ${formatDateTime(entry.sentAt ?? entry.createdAt)}.` };
@@ -232,31 +236,87 @@ export async function quoteMailDelivery(quoteId: string): Promise<{ delivered: b
 
 class Refused extends Error {}
 
-/** The client accepts a sent quote that is still valid; the brief moves to accepted with it. */
-export async function acceptQuote(view: QuoteView, client: SignedInUser, now = new Date()): Promise<Outcome<QuoteView>> {
-  if (view.brief.ownerId !== client.id) return refuse('not-found', 'Nothing here, or it is not yours.');
-  if (view.quote.state === 'accepted' || view.quote.state === 'deposit-paid')
-    return wrong(`Quote ${view.quote.number} is accepted already.`);
-  if (view.quote.state === 'draft') return wrong('This quote has not been sent yet; it can be accepted once it reaches you.');
-  if (view.quote.state !== 'sent') return wrong(`Quote ${view.quote.number} is ${view.state} and cannot be accepted.`);
-  if (view.quote.validUntil.getTime() < now.getTime()) {
-    return wrong(
-      `Quote ${view.quote.number} expired on ${formatDate(view.quote.validUntil)}. Reply to the quote e-mail and we will send a fresh one.`,
-    );
-  }
+/** The engineer who drafted the quote: the one told of the client's decision. */
+async function quoteAuthor(tx: DbOrTx, view: QuoteView) {
+  const [engineer] = await tx.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, view.quote.createdBy)).limit(1);
+  return engineer ?? null;
+}
+
+/** Why a client cannot decide on this quote now (accept or decline), or null when they can. */
+function undecidable(view: QuoteView, client: SignedInUser, verb: 'accepted' | 'declined', now: Date): Refusal | null {
+  const { quote: q } = view;
+  if (view.brief.ownerId !== client.id) return notYours();
+  if (q.state === 'accepted' || q.state === 'deposit-paid') return wrong(`Quote ${q.number} is accepted already.`);
+  if (q.state === 'declined') return wrong(`Quote ${q.number} is declined already.`);
+  if (q.state === 'draft') return wrong(`This quote has not been sent yet; it can be ${verb} once it reaches you.`);
+  if (q.state !== 'sent') return wrong(`Quote ${q.number} is ${view.state} and cannot be ${verb}.`);
+  if (q.validUntil.getTime() < now.getTime())
+    return wrong(`Quote ${q.number} expired on ${formatDate(q.validUntil)}. Reply to the quote e-mail and we will send a fresh one.`);
+  return null;
+}
+
+/** The client accepts a sent quote that is still valid, with their purchase-order number if they give one; the brief moves to accepted with it. */
+export async function acceptQuote(
+  view: QuoteView,
+  client: SignedInUser,
+  request: AcceptQuoteRequest = {},
+  now = new Date(),
+): Promise<Outcome<QuoteView>> {
+  const refused = undecidable(view, client, 'accepted', now);
+  if (refused) return refused;
+  const purchaseOrder = request.purchaseOrder?.trim() || null;
+  let queued: string[];
   try {
-    await db.transaction(async (tx) => {
-      const accepted = await moveQuote(tx, view.quote, 'accepted', client.id, { acceptedAt: now });
+    queued = await db.transaction(async (tx) => {
+      const accepted = await moveQuote(tx, view.quote, 'accepted', client.id, { acceptedAt: now, purchaseOrder });
       if (!accepted) throw new Refused(`Quote ${view.quote.number} was accepted meanwhile.`);
       const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
       const moved = briefRow ? await moveBrief(tx, briefRow, 'accepted', 'system', client.id, `Quote ${view.quote.number} accepted`) : null;
       if (!moved?.ok)
         throw new Refused('This quote no longer stands: the brief has moved on. Reply to the quote e-mail and we will sort it out.');
+      const engineer = await quoteAuthor(tx, view);
+      return engineer ? enqueueMail(tx, [acceptedMail(view, engineer, purchaseOrder, quotePageUrl(view.quote.id))], now) : [];
     });
   } catch (err) {
     if (err instanceof Refused) return wrong(err.message);
     throw err;
   }
+  await deliverQueuedMail(queued);
+  return reload(view.quote.id);
+}
+
+/**
+ * The client declines a sent quote with their reason: the quote ends declined, the brief goes back
+ * to review (the engineer revises and quotes again, or declines the brief), and the engineer who
+ * drafted the quote is told in the same transaction through the outbox.
+ */
+export async function declineQuote(
+  view: QuoteView,
+  client: SignedInUser,
+  request: DeclineQuoteRequest,
+  now = new Date(),
+): Promise<Outcome<QuoteView>> {
+  const refused = undecidable(view, client, 'declined', now);
+  if (refused) return refused;
+  const reason = request.reason.trim();
+  let queued: string[];
+  try {
+    queued = await db.transaction(async (tx) => {
+      const declined = await moveQuote(tx, view.quote, 'declined', client.id, { declineReason: reason }, reason, now);
+      if (!declined) throw new Refused(`Quote ${view.quote.number} changed meanwhile; reload it.`);
+      const [briefRow] = await tx.select().from(brief).where(eq(brief.id, view.brief.id)).limit(1);
+      const moved = briefRow
+        ? await moveBrief(tx, briefRow, 'in-review', 'system', client.id, `Quote ${view.quote.number} declined: ${reason}`)
+        : null;
+      if (!moved?.ok) throw new Refused('The brief has moved on meanwhile; reload the quote.');
+      const engineer = await quoteAuthor(tx, view);
+      return engineer ? enqueueMail(tx, [declinedMail(view, engineer, reason, appUrl(`/desk/briefs/${view.brief.id}`))], now) : [];
+    });
+  } catch (err) {
+    if (err instanceof Refused) return wrong(err.message);
+    throw err;
+  }
+  await deliverQueuedMail(queued);
   return reload(view.quote.id);
 }
 

@@ -42,5 +42,6 @@ export async function handleReviewForm(
     return invalidInput('confirm-decline', [{ path: 'confirm', message: DECLINE_CONFIRMATION }]);
   const moved = await moveAsStaff(staff, row, fields.state, fields.note);
   if (moved.ok) return succeed('moved');
+  if (moved.kind === 'invalid') return moved;
   return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.state).label.toLowerCase()}.`);
 }

@@ -10,6 +10,7 @@ import { beforeAll, describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
 import { brief, designRevision, quote } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
+import { NOTIFICATION_KINDS } from '../../../src/lib/accounts/notifications';
 
 const baseUrl = inject('baseUrl');
 const databaseUrl = inject('databaseUrl');
@@ -74,6 +75,19 @@ const ROWS: Row[] = [
     expect: [401, 200, 404, 400, 400],
   },
   {
+    method: 'GET',
+    file: 'api/v1/briefs/[id]/messages.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/messages`,
+    expect: [401, 200, 404, 200, 200],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/briefs/[id]/messages.ts',
+    path: () => `/api/v1/briefs/${ids.paidBrief}/messages`,
+    body: () => ({ body: 'When does the design work start?' }),
+    expect: [401, 201, 404, 201, 201],
+  },
+  {
     method: 'POST',
     file: 'api/v1/briefs/[id]/files.ts',
     path: () => `/api/v1/briefs/${ids.paidBrief}/files`,
@@ -133,6 +147,13 @@ const ROWS: Row[] = [
     method: 'POST',
     file: 'api/v1/quotes/[id]/accept.ts',
     path: () => `/api/v1/quotes/${ids.quote}/accept`,
+    expect: [401, 409, 404, 403, 403],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/quotes/[id]/decline.ts',
+    path: () => `/api/v1/quotes/${ids.quote}/decline`,
+    body: () => ({ reason: 'Over budget' }),
     expect: [401, 409, 404, 403, 403],
   },
   {
@@ -262,8 +283,22 @@ const ROWS: Row[] = [
     fields: { intent: 'note', body: ' ' },
     expect: [303, 403, 403, 400, 400],
   },
-  // Client A's quote is paid already (409); client B may not see it (404); staff do not accept for clients (403).
-  { method: 'POST', file: 'quotes/[id].astro', path: () => `/quotes/${ids.quote}`, fields: {}, expect: [303, 409, 404, 403, 403] },
+  // Client A's quote is paid already (409); client B may not see it (404); staff do not accept or decline for clients (403).
+  {
+    method: 'POST',
+    file: 'quotes/[id].astro',
+    path: () => `/quotes/${ids.quote}`,
+    fields: { decision: 'decline', reason: 'Over budget' },
+    expect: [303, 409, 404, 403, 403],
+  },
+  // Anyone signed in keeps their own notice choices (all ticked here, so the demo people keep every notice).
+  {
+    method: 'POST',
+    file: 'account.astro',
+    path: () => '/account',
+    fields: Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k.kind, 'on'])),
+    expect: [303, 303, 303, 303, 303],
+  },
   { method: 'POST', file: 'sign-in.astro', path: () => '/sign-in', fields: { email: 'not an address' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'sign-up.astro', path: () => '/sign-up', fields: { email: 'x' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'forgot-password.astro', path: () => '/forgot-password', fields: {}, expect: [400, 400, 400, 400, 400] },

@@ -2,7 +2,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
-import { brief, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
+import { brief, briefMessage, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
 
 test('the demo’s paid quote went draft → sent → accepted → deposit-paid, in time order, with a paid deposit', async () => {
   const { db, client } = connect(inject('databaseUrl'));
@@ -33,6 +33,65 @@ test('the demo’s paid quote went draft → sent → accepted → deposit-paid,
     expect(deposits).toHaveLength(1);
     expect(deposits[0]).toMatchObject({ kind: 'deposit', state: 'paid', amountMinor: row?.depositMinor });
     expect(deposits[0]?.paidAt?.getTime()).toBe(history[3]?.createdAt.getTime());
+  } finally {
+    client.close();
+  }
+});
+
+test('the demo has a quote the client declined with a reason, and its brief back in review', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [plc] = await db.select().from(brief).where(eq(brief.title, 'PLC I/O card, 5 V at 1.5 A from the 24 V bus'));
+    expect(plc?.state).toBe('in-review');
+    const [declined] = await db
+      .select()
+      .from(quote)
+      .where(eq(quote.briefId, plc?.id ?? ''));
+    expect(declined?.state).toBe('declined');
+    expect(declined?.declineReason).toContain('36 V');
+    const briefHistory = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, plc?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(briefHistory.map((h) => h.toState).slice(-2)).toEqual(['quoted', 'in-review']);
+  } finally {
+    client.close();
+  }
+});
+
+test('the demo’s quoted brief has a question from its client and the engineer’s answer', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [bench] = await db.select().from(brief).where(eq(brief.title, 'Bench meter analog front-end, quiet 12 V'));
+    const thread = await db
+      .select()
+      .from(briefMessage)
+      .where(eq(briefMessage.briefId, bench?.id ?? ''))
+      .orderBy(asc(briefMessage.createdAt));
+    expect(thread.map((m) => m.authorId === bench?.ownerId)).toEqual([true, false]);
+  } finally {
+    client.close();
+  }
+});
+
+test('the demo has a brief sent back to its client, with the request in the history and the thread', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [sent] = await db.select().from(brief).where(eq(brief.title, 'Drive controller logic, 3.3 V from the 48 V bus'));
+    expect(sent?.state).toBe('changes-requested');
+    const history = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, sent?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(history.at(-1)).toMatchObject({ fromState: 'submitted', toState: 'changes-requested' });
+    expect(history.at(-1)?.note).toContain('regenerative braking');
+    const thread = await db
+      .select()
+      .from(briefMessage)
+      .where(eq(briefMessage.briefId, sent?.id ?? ''));
+    expect(thread.map((m) => m.body)).toEqual([history.at(-1)?.note]);
   } finally {
     client.close();
   }

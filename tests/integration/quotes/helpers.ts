@@ -68,3 +68,13 @@ export async function execSql(databaseUrl: string, statement: string, args: (str
     db.close();
   }
 }
+
+/** What the mail catcher received for one address, newest first. */
+export async function mailsTo(mailApiUrl: string, to: string): Promise<{ id: string; subject: string }[]> {
+  return (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(to)}`)).json();
+}
+
+/** One received message's plain text. */
+export async function mailText(mailApiUrl: string, id: string | undefined): Promise<string> {
+  return (await (await fetch(`${mailApiUrl}/messages/${id}`)).json()).text;
+}

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, test } from 'vitest';
 import { startAppServer, type AppServer } from '../../support/app-server';
 import { freePort } from '../../support/ports';
 import { DEMO, Visitor } from '../../support/client';
-import { railUnderReview } from './helpers';
+import { mailsTo, railUnderReview } from './helpers';
 
 const mailApiUrl = inject('mailApiUrl');
 const baseUrl = inject('baseUrl');
@@ -46,13 +46,13 @@ describe('when the mail server refuses', () => {
     const rail = await railUnderReview(baseUrl);
     const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
-    const [message] = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
+    const message = (await mailsTo(mailApiUrl, rail.email)).find((m) => m.subject.startsWith('Quote '));
 
     const admin = await new Visitor(broken.baseUrl).signIn(DEMO.admin);
     const page = await (await admin.request('/admin/mail')).text();
     expect(page).toContain('Received by the local mail catcher');
     expect(page).toContain(`Quote ${quote.number}:`);
-    const link = `/admin/mail?message=${encodeURIComponent(message.id)}&attachment=0`;
+    const link = `/admin/mail?message=${encodeURIComponent(message?.id ?? '')}&attachment=0`;
     expect(page).toContain(`href="${link.replace('&', '&#38;')}"`);
     const download = await admin.request(link);
     expect(download.status).toBe(200);

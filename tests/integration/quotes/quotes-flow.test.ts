@@ -1,7 +1,7 @@
 import { describe, expect, inject, test } from 'vitest';
 import { DEMO, Visitor } from '../../support/client';
 import { DEMO_RATE_CARD } from '../../../src/lib/demo/scenario';
-import { execSql, pdfText, railUnderReview } from './helpers';
+import { execSql, mailsTo, pdfText, railUnderReview } from './helpers';
 
 const baseUrl = inject('baseUrl');
 const mailApiUrl = inject('mailApiUrl');
@@ -122,7 +122,9 @@ describe('editing, sending and accepting', () => {
     expect(sentQuote.sentAt).not.toBeNull();
     expect((await (await rail.client.request(`/api/v1/briefs/${rail.briefId}`)).json()).state).toBe('quoted');
 
-    const messages = await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json();
+    const messages = (await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()).filter(
+      (m: { subject: string }) => m.subject.startsWith('Quote '),
+    );
     expect(messages).toHaveLength(1);
     const [message] = messages;
     expect(message.subject).toBe(`Quote ${quote.number}: Valve manifold, 12 V at 2 A from the 24 V bus`);
@@ -163,7 +165,7 @@ describe('editing, sending and accepting', () => {
     // Sent is final: no more edits, no second send.
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}`, { method: 'PATCH', json: { taxRateBp: 0 } })).status).toBe(409);
     expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(409);
-    expect(await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()).toHaveLength(1);
+    expect((await mailsTo(mailApiUrl, rail.email)).filter((m) => m.subject.startsWith('Quote '))).toHaveLength(1);
 
     // The admin's mail log lists it with its attachment.
     const admin = await new Visitor(baseUrl).signIn(DEMO.admin);
@@ -181,7 +183,7 @@ describe('editing, sending and accepting', () => {
       other.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' }),
     ]);
     expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
-    expect(await (await fetch(`${mailApiUrl}/messages?to=${encodeURIComponent(rail.email)}`)).json()).toHaveLength(1);
+    expect((await mailsTo(mailApiUrl, rail.email)).filter((m) => m.subject.startsWith('Quote '))).toHaveLength(1);
   });
 
   test('accept: not before it is sent, only by its client, not twice → 409s; the brief moves to accepted', async () => {
@@ -255,8 +257,10 @@ describe('editing, sending and accepting', () => {
     expect(page).toContain('Hot surfaces');
     expect(page).toContain('confirm against the chosen part’s data');
     expect(page).toContain('Payment opens once the quote is accepted.');
-    expect(page).toContain(`Accept quote ${quote.number}`);
-    const posted = await rail.client.form(`/quotes/${quote.id}`, {});
+    // Accepting is a confirming step on the page (a plain link), then its form.
+    expect(page).toContain(`/quotes/${quote.id}?confirm=accept`);
+    expect(await (await rail.client.request(`/quotes/${quote.id}?confirm=accept`)).text()).toContain(`Accept quote ${quote.number}`);
+    const posted = await rail.client.form(`/quotes/${quote.id}`, { decision: 'accept' });
     expect(posted.status).toBe(303);
     expect(await (await rail.client.follow(posted)).text()).toContain(`quote ${quote.number} is accepted`);
     expect((await (await rail.client.request(`/api/v1/quotes/${quote.id}`)).json()).state).toBe('accepted');

@@ -54,6 +54,8 @@ function highVoltageView(): QuoteView {
     createdBy: 'e',
     sentAt: now,
     acceptedAt: null,
+    purchaseOrder: null,
+    declineReason: null,
     createdAt: now,
     updatedAt: now,
   };

@@ -26,7 +26,7 @@ const updatedAt = () =>
 
 export { BRIEF_STATES, type BriefState };
 
-export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit-paid', 'expired', 'withdrawn'] as const;
+export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit-paid', 'declined', 'expired', 'withdrawn'] as const;
 export type QuoteState = (typeof QUOTE_STATES)[number];
 
 export const clientProfile = sqliteTable('client_profile', {
@@ -102,6 +102,51 @@ export const briefNote = sqliteTable(
   (t) => [index('brief_note_brief_idx').on(t.briefId)],
 );
 
+/** The kinds of notice e-mail a person turned off on their account page (receipts and account mail cannot be). */
+export const mailOptOut = sqliteTable(
+  'mail_opt_out',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    kind: text('kind').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('mail_opt_out_user_kind_idx').on(t.userId, t.kind)],
+);
+
+/** Each submitted version of a brief's spec, numbered from 1, so a resubmission after requested changes keeps the one before. */
+export const briefSpecVersion = sqliteTable(
+  'brief_spec_version',
+  {
+    id: id(),
+    briefId: text('brief_id')
+      .notNull()
+      .references(() => brief.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    spec: text('spec', { mode: 'json' }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('brief_spec_version_number_idx').on(t.briefId, t.number)],
+);
+
+/** The thread between a brief's client and the consultancy: seen by both sides, unlike the internal notes. */
+export const briefMessage = sqliteTable(
+  'brief_message',
+  {
+    id: id(),
+    briefId: text('brief_id')
+      .notNull()
+      .references(() => brief.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => user.id),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('brief_message_brief_idx').on(t.briefId, t.createdAt)],
+);
+
 export const designRevision = sqliteTable(
   'design_revision',
   {
@@ -156,6 +201,10 @@ export const quote = sqliteTable(
       .references(() => user.id),
     sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
     acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
+    /** The client's purchase-order number, given on acceptance; printed on the receipt. */
+    purchaseOrder: text('purchase_order'),
+    /** Why the client declined, in their words. */
+    declineReason: text('decline_reason'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

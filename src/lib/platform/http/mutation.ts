@@ -7,7 +7,7 @@
  */
 import type { APIContext, APIRoute, AstroGlobal } from 'astro';
 import type { z } from 'zod';
-import { invalidInput, type Outcome, type Refusal } from '../outcome';
+import { invalidInput, succeed, type Outcome, type Refusal } from '../outcome';
 import type { Role } from '../auth/roles';
 import { JSON_BODY_LIMIT, readFormFields, readJsonBody } from './body';
 import { guardApi, type SignedInUser } from './guard';
@@ -22,6 +22,8 @@ interface ApiMutationSpec<A extends Access, S extends z.ZodType, T> {
   access: A;
   /** The JSON body's schema; omit for actions that take no body. */
   body?: S;
+  /** A request with no body at all reads as `{}` (for a body whose every field is optional). */
+  bodyOptional?: true;
   /** The error code of a body that fails the schema (e.g. `invalid_quote`). */
   invalidCode?: string;
   maxBytes?: number;
@@ -34,6 +36,9 @@ function checked<S extends z.ZodType>(schema: S, value: unknown, code: string): 
   const parsed = schema.safeParse(value);
   return parsed.success ? { ok: true, value: parsed.data } : invalidInput(code, zodIssues(parsed.error));
 }
+
+const hasNoBody = (request: Request) =>
+  request.body === null || (request.headers.get('content-length') === '0' && !request.headers.has('transfer-encoding'));
 
 /**
  * The role is checked before the body is read, so an anonymous caller cannot
@@ -49,7 +54,10 @@ export function apiMutation<A extends Access, S extends z.ZodType, T>(spec: ApiM
     }
     let body: z.infer<S> = undefined as z.infer<S>;
     if (spec.body) {
-      const raw = await readJsonBody(context.request, spec.maxBytes ?? JSON_BODY_LIMIT);
+      const raw =
+        spec.bodyOptional && hasNoBody(context.request)
+          ? succeed<unknown>({})
+          : await readJsonBody(context.request, spec.maxBytes ?? JSON_BODY_LIMIT);
       if (!raw.ok) return refusalResponse(raw);
       const valid = checked(spec.body, raw.value, spec.invalidCode ?? 'invalid_body');
       if (!valid.ok) return refusalResponse(valid);

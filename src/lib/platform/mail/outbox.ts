@@ -7,7 +7,7 @@
  */
 import { and, asc, desc, eq, inArray, isNull, lte, or } from 'drizzle-orm';
 import type { Database, DbOrTx } from '../db/connect';
-import { mailOutbox, type OutboxRow } from '../db/schema';
+import { mailOptOut, mailOutbox, user, type OutboxRow } from '../db/schema';
 import type { Mailer, OutgoingMail } from './transport';
 
 /** Tries before a mail is given up on: about a day with the waits below. */
@@ -20,8 +20,31 @@ const CLAIM_MS = 60_000;
 /** The wait before try `attempts + 1`: 30 s, 1 min, 2 min … at most 4 h. */
 export const retryWaitMs = (attempts: number) => Math.min(FIRST_WAIT_MS * 2 ** Math.max(0, attempts - 1), LONGEST_WAIT_MS);
 
-/** Queues mail inside the caller's transaction; returns the queued ids. */
-export async function enqueueMail(tx: DbOrTx, mails: readonly OutgoingMail[], now = new Date()): Promise<string[]> {
+/** The mails whose recipient has turned their kind off (on the account page) are left out. */
+async function wantedMails(tx: DbOrTx, mails: readonly OutgoingMail[]): Promise<OutgoingMail[]> {
+  const refused = await tx
+    .select({ email: user.email, kind: mailOptOut.kind })
+    .from(mailOptOut)
+    .innerJoin(user, eq(user.id, mailOptOut.userId))
+    .where(
+      and(
+        inArray(
+          user.email,
+          mails.map((m) => m.to),
+        ),
+        inArray(
+          mailOptOut.kind,
+          mails.map((m) => m.kind),
+        ),
+      ),
+    );
+  const off = new Set(refused.map((r) => `${r.kind} ${r.email}`));
+  return mails.filter((m) => !off.has(`${m.kind} ${m.to}`));
+}
+
+/** Queues mail inside the caller's transaction, except kinds the recipient turned off; returns the queued ids. */
+export async function enqueueMail(tx: DbOrTx, all: readonly OutgoingMail[], now = new Date()): Promise<string[]> {
+  const mails = all.length ? await wantedMails(tx, all) : [];
   if (mails.length === 0) return [];
   const rows = await tx
     .insert(mailOutbox)
@@ -118,9 +141,14 @@ async function deliverOne(db: Database, mailer: Mailer, row: OutboxRow): Promise
   return false;
 }
 
-/** Where a thing's latest mail stands, for the pages that show it (the quote builder). */
-export async function latestOutboxEntry(db: DbOrTx, relatedId: string): Promise<OutboxRow | null> {
-  const [row] = await db.select().from(mailOutbox).where(eq(mailOutbox.relatedId, relatedId)).orderBy(desc(mailOutbox.createdAt)).limit(1);
+/** Where a thing's latest mail of one kind stands, for the pages that show it (the quote builder). */
+export async function latestOutboxEntry(db: DbOrTx, relatedId: string, kind: string): Promise<OutboxRow | null> {
+  const [row] = await db
+    .select()
+    .from(mailOutbox)
+    .where(and(eq(mailOutbox.relatedId, relatedId), eq(mailOutbox.kind, kind)))
+    .orderBy(desc(mailOutbox.createdAt))
+    .limit(1);
   return row ?? null;
 }
 
