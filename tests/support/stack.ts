@@ -32,6 +32,9 @@ export async function startStack() {
       STRIPE_API_BASE: fakes.stripeUrl,
       STRIPE_SECRET_KEY: TEST_STRIPE_KEY,
       STRIPE_WEBHOOK_SECRET: TEST_WEBHOOK_SECRET,
+      // As behind one proxy: a test may speak for a client machine of its own with X-Forwarded-For
+      // (each new client account does, so the suite's sign-ups do not share one address's limit).
+      TRUSTED_PROXY_HOPS: '1',
     },
     dataDir,
   );

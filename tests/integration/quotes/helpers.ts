@@ -38,6 +38,8 @@ export async function railUnderReview(
   const client = new Visitor(baseUrl);
   const signUp = await client.request('/api/v1/account', {
     method: 'POST',
+    // Each buyer signs up from a machine of its own, as clients do.
+    headers: { 'x-forwarded-for': `10.${(counter >> 16) & 255}.${(counter >> 8) & 255}.${counter & 255}` },
     json: { name, company: 'Lindqvist Telemetry', email, password: CLIENT_PASSWORD },
   });
   if (signUp.status !== 201) throw new Error(`Sign-up answered ${signUp.status}: ${await signUp.text()}`);
