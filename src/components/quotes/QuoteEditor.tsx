@@ -62,7 +62,7 @@ const ERROR_KEYS: Record<TextField, string> = {
 const LINE_GRID = 'lg:gap-x-2 lg:grid-cols-[9rem_minmax(9rem,1fr)_4rem_4.5rem_6.5rem_6rem_2rem]';
 const percentText = (bp: number) => formatDecimal(bp, 2).replace(/\.00$/, '');
 
-/** The engineer's editor for a draft quote: lines, units, rates, validity, terms; save, preview, send. */
+/** The engineer's editor for a draft quote: lines, units, rates, validity, terms, the note to the client; save, preview, send. */
 export function QuoteEditor({ initial }: Props) {
   const digits = minorDigits(initial.currency);
   const [saved, setSaved] = useState(initial);
@@ -72,6 +72,7 @@ export function QuoteEditor({ initial }: Props) {
   const [deposit, setDeposit] = useState(percentText(initial.depositBp));
   const [validUntil, setValidUntil] = useState(isoDay(initial.validUntil));
   const [terms, setTerms] = useState(initial.terms);
+  const [clientNote, setClientNote] = useState(initial.clientNote);
   const [dirty, setDirty] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ tone: 'ok' | 'stop'; text: string } | null>(null);
@@ -114,9 +115,9 @@ export function QuoteEditor({ initial }: Props) {
     if (depositBp === null) issues.depositBp = 'A percentage, up to 2 decimals.';
     return {
       issues,
-      body: { lines: parsed, quantity: units ?? 0, taxRateBp: taxRateBp ?? 0, depositBp: depositBp ?? 0, validUntil, terms },
+      body: { lines: parsed, quantity: units ?? 0, taxRateBp: taxRateBp ?? 0, depositBp: depositBp ?? 0, validUntil, terms, clientNote },
     };
-  }, [lines, quantity, tax, deposit, validUntil, terms, digits]);
+  }, [lines, quantity, tax, deposit, validUntil, terms, clientNote, digits]);
 
   // A preview with the server's own arithmetic; what is stored comes back from the save.
   const preview = quoteTotals(read.body.lines, read.body.taxRateBp, read.body.depositBp);
@@ -354,6 +355,23 @@ export function QuoteEditor({ initial }: Props) {
           className={inputClass(errors.terms)}
           value={terms}
           onChange={(e) => edit(setTerms)(e.target.value)}
+        />
+      </FieldShell>
+      <FieldShell
+        id="quote-clientNote"
+        label="Note to the client"
+        error={errors.clientNote}
+        hint="Printed on the quote page, the PDF and the e-mail. The revision's note stays internal and never reaches the client."
+      >
+        <textarea
+          id="quote-clientNote"
+          rows={3}
+          maxLength={2000}
+          aria-describedby={describedBy('quote-clientNote', 'hint', errors.clientNote)}
+          aria-invalid={errors.clientNote ? true : undefined}
+          className={inputClass(errors.clientNote)}
+          value={clientNote}
+          onChange={(e) => edit(setClientNote)(e.target.value)}
         />
       </FieldShell>
 

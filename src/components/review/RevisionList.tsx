@@ -1,12 +1,15 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
 import { LocalTime } from '../ui/LocalTime';
-import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { feasibilityWords, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { FeasibilityMark } from './FeasibilityMark';
 
 export interface RevisionSummary {
   id: string;
   number: number;
   topology: string;
+  /** Whether the chosen design meets the brief; a quote from one that does not needs a reason. */
+  feasible: boolean;
   note: string;
   createdAt: string;
   author: string | null;
@@ -14,7 +17,7 @@ export interface RevisionSummary {
 
 const selectClass = 'rounded-md border border-ink/25 bg-card px-3 py-2 text-sm';
 
-/** Saved revisions, newest first, each with its sheet and exports; any two can be compared. */
+/** Saved revisions, newest first, each with its feasibility, sheet, exports and a way to quote it; any two can be compared. */
 export function RevisionList({ briefId, revisions }: { briefId: string; revisions: RevisionSummary[] }) {
   const [a, setA] = useState(revisions[1]?.id ?? '');
   const [b, setB] = useState(revisions[0]?.id ?? '');
@@ -23,9 +26,16 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
   const right = known(b) ? b : (revisions[0]?.id ?? '');
   return (
     <section aria-labelledby="revisions-heading">
-      <h2 id="revisions-heading" className="text-xl font-bold">
-        Revisions
-      </h2>
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id="revisions-heading" className="text-xl font-bold">
+          Revisions
+        </h2>
+        {revisions.length > 0 && (
+          <a href={`/desk/quotes/new?briefId=${briefId}`} className="text-sm font-semibold" data-testid="draft-quote">
+            Draft a quote
+          </a>
+        )}
+      </div>
       {revisions.length === 0 ? (
         <p className="mt-2 text-sm text-ink-soft">No revision saved yet. Adjust, re-run, choose an option and save it with a note.</p>
       ) : (
@@ -38,6 +48,9 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
               <span className="font-bold">Rev. {r.number}</span>
               <div>
                 <p className="font-semibold">{TOPOLOGY_NAMES[r.topology as TopologyId] ?? r.topology}</p>
+                <p data-feasible={String(r.feasible)}>
+                  <FeasibilityMark feasible={r.feasible} />
+                </p>
                 <p className="text-ink-soft">
                   <LocalTime at={r.createdAt} />
                   {r.author ? ` · ${r.author}` : ''}
@@ -51,6 +64,9 @@ export function RevisionList({ briefId, revisions }: { briefId: string; revision
                 </a>
                 <a href={`/api/v1/revisions/${r.id}/parts.csv`} download>
                   Part list (CSV)<span className="sr-only"> of revision {r.number}</span>
+                </a>
+                <a href={`/desk/quotes/new?revisionId=${r.id}`}>
+                  Draft a quote from it<span className="sr-only"> (revision {r.number})</span>
                 </a>
                 <a href={`/desk/briefs/${briefId}?from=${r.id}#adjust-heading`}>
                   Start from its choices<span className="sr-only"> (revision {r.number})</span>
@@ -85,7 +101,7 @@ function RevisionSelect(props: {
   label: string;
   value: string;
   onChange: (id: string) => void;
-  revisions: readonly { id: string; number: number }[];
+  revisions: readonly { id: string; number: number; feasible: boolean }[];
 }) {
   return (
     <div className="flex flex-col gap-1">
@@ -95,7 +111,7 @@ function RevisionSelect(props: {
       <select id={props.id} name={props.name} value={props.value} onChange={(e) => props.onChange(e.target.value)} className={selectClass}>
         {props.revisions.map((r) => (
           <option key={r.id} value={r.id}>
-            Revision {r.number}
+            Revision {r.number} ({feasibilityWords(r.feasible).text.toLowerCase()})
           </option>
         ))}
       </select>

@@ -4,11 +4,13 @@
  * argument (free of the app's settings) so the demo seed drafts quotes the
  * same way the quote builder does.
  */
-import { refuse, succeed, type Outcome } from '../platform/outcome';
+import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
 import { and, eq, sql } from 'drizzle-orm';
 import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation } from '../engine/types';
 import { designFacts, draftLines, lineTotal, quoteTotals, type QuoteLineInput } from './pricing';
+import { infeasibleDraftNote, infeasibleReasonFor } from './drafting';
+import { chosenOption } from '~/lib/review';
 import {
   brief,
   designRevision,
@@ -58,6 +60,8 @@ export interface DraftRequest {
   revisionId: string;
   createdBy: string;
   quantity?: number;
+  /** Required when the revision's design does not meet the brief. */
+  infeasibleReason?: string | undefined;
   now?: Date;
 }
 
@@ -87,6 +91,9 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Out
     result: revision.result as Evaluation,
   });
   if (!facts) return refuse('wrong-state', `Revision ${revision.number} holds no design for ${revision.topology}.`);
+  const feasible = chosenOption({ topology: revision.topology, result: revision.result as Evaluation })?.feasible ?? false;
+  const reasoned = infeasibleReasonFor({ number: revision.number, feasible }, request.infeasibleReason);
+  if (!reasoned.ok) return invalidInput('invalid_quote', [reasoned.issue]);
   const lines = draftLines(card, facts, quantity);
   const year = now.getUTCFullYear();
 
@@ -109,6 +116,7 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Out
         taxRateBp: card.taxRateBp,
         depositBp: card.depositBp,
         terms: DEFAULT_TERMS,
+        infeasibleReason: reasoned.reason,
         validUntil: validUntilFrom(now, card.validityDays),
         createdBy: request.createdBy,
         createdAt: now,
@@ -124,6 +132,7 @@ export async function draftQuote(db: DbOrTx, request: DraftRequest): Promise<Out
       fromState: null,
       toState: 'draft',
       actorId: request.createdBy,
+      note: reasoned.reason ? infeasibleDraftNote(revision.number, reasoned.reason) : '',
       createdAt: now,
     });
     return priced ?? inserted;

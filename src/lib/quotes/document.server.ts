@@ -150,7 +150,6 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
           fontSize: 11,
           margin: [0, 0, 0, 4],
         }),
-        ...(view.revision.note ? [text(`Engineer’s note: ${view.revision.note}`, { color: SOFT, margin: [0, 0, 0, 6] })] : []),
         pairs(design.figures),
         text('The schematic and the part list are at the end of this quote.', { color: SOFT, margin: [0, 6, 0, 0] }),
       ]
@@ -325,6 +324,9 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       { canvas: [{ type: 'line', x1: 0, y1: 8, x2: 499, y2: 8, lineWidth: 1.5, lineColor: COPPER }] },
       title,
       client,
+      ...(quote.clientNote
+        ? [section(heading('A note from us'), text(quote.clientNote), Math.ceil(quote.clientNote.length / CHARACTERS_PER_LINE) + 1)]
+        : []),
       section(heading('The rail you asked for'), pairs(view.requirements), view.requirements.length),
       ...designPart,
       safety,

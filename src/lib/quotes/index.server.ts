@@ -2,6 +2,7 @@
 export * from './core.server';
 export * from './document.server';
 export * from './expiry.server';
+export * from './list.server';
 export * from './mail.server';
 export * from './quotes.server';
 export * from './rate-card.server';

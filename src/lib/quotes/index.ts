@@ -3,3 +3,4 @@ export * from './firm';
 export * from './pricing';
 export * from './transitions';
 export * from './decisions';
+export * from './drafting';

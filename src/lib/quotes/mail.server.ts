@@ -27,6 +27,7 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
     '',
     `Thank you for your brief “${view.brief.title}”. Our quote ${quote.number} is attached as a PDF.`,
     '',
+    ...(quote.clientNote ? [quote.clientNote, ''] : []),
     ...figures.map(([label, value]) => `${label}: ${value}`),
     '',
     cautionLine,
@@ -46,6 +47,7 @@ export function quoteMail(view: QuoteView, pdf: Buffer, quoteUrl: string): Outgo
 <p style="margin:0 0 18px;font-size:20px;font-weight:800;color:#86421b">${escape(FIRM.name)}</p>
 <p>Dear ${escape(view.client.name)},</p>
 <p>Thank you for your brief “${escape(view.brief.title)}”. Our quote <strong>${escape(quote.number)}</strong> is attached as a PDF.</p>
+${quote.clientNote ? `<p style="white-space:pre-line;border-left:3px solid #e4dfd6;padding-left:12px">${escape(quote.clientNote)}</p>` : ''}
 <table style="border-collapse:collapse;width:100%;margin:12px 0 18px">${figures
     .map(
       ([label, value]) =>

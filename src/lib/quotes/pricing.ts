@@ -9,6 +9,7 @@ import type { RailSpec } from '../engine/rail-spec';
 import type { Evaluation, TopologyId } from '../engine/types';
 import { topologyIds } from '../engine/types';
 import { ES1_DC_LIMIT_V } from '../engine/cautions';
+import { infeasibleReasonField } from './drafting';
 import { chosenOption, TOPOLOGY_NAMES } from '~/lib/review';
 
 /** A ripple budget of 1 mV or less (precision and RF loads) takes extra layout and filtering work. */
@@ -92,6 +93,7 @@ export const createQuoteSchema = z
   .object({
     revisionId: z.string({ error: 'Name the revision to quote.' }).min(1, 'Name the revision to quote.'),
     quantity: units.default(1),
+    infeasibleReason: infeasibleReasonField,
   })
   .strict();
 
@@ -99,6 +101,7 @@ export const createQuoteSchema = z
 export const createQuoteFormSchema = z.object({
   revisionId: createQuoteSchema.shape.revisionId,
   quantity: z.coerce.number({ error: 'Enter a whole number of units.' }).pipe(units),
+  infeasibleReason: infeasibleReasonField,
 });
 
 const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Give the date as YYYY-MM-DD.');
@@ -111,6 +114,7 @@ export const patchQuoteSchema = z
     depositBp: basisPoints('The deposit').optional(),
     validUntil: isoDay.optional(),
     terms: z.string().max(4_000, 'Keep the terms under 4 000 characters.').optional(),
+    clientNote: z.string().max(2_000, 'Keep the note to the client under 2 000 characters.').optional(),
   })
   .strict();
 export type QuotePatch = z.infer<typeof patchQuoteSchema>;

@@ -7,7 +7,7 @@ import { formatDate, formatDateTime } from '../platform/format';
 import { quoteTotals, withQuantity, type QuotePatch } from './pricing';
 import { moveBrief } from '~/lib/briefs/index.server';
 import { db } from '../platform/db';
-import { brief, quote, user } from '../platform/db/schema';
+import { brief, quote, stateChange, user } from '../platform/db/schema';
 import { isStaff, type SignedInUser } from '../platform/http/guard';
 import { invalidInput, notYours, refuse, succeed, type Outcome, type Refusal } from '../platform/outcome';
 import { appUrl } from '../platform/links';
@@ -50,6 +50,16 @@ export async function quoteOf(
   return view ? succeed(view) : notYours();
 }
 
+/** A quote's moves, oldest first, with who made them and why: for the consultancy's quote page. */
+export async function quoteHistory(quoteId: string) {
+  return db
+    .select({ from: stateChange.fromState, to: stateChange.toState, at: stateChange.createdAt, by: user.name, note: stateChange.note })
+    .from(stateChange)
+    .leftJoin(user, eq(user.id, stateChange.actorId))
+    .where(and(eq(stateChange.subjectType, 'quote'), eq(stateChange.subjectId, quoteId)))
+    .orderBy(stateChange.createdAt);
+}
+
 export async function quotesOfBrief(briefId: string): Promise<QuoteRow[]> {
   return db.select().from(quote).where(eq(quote.briefId, briefId)).orderBy(quote.createdAt);
 }
@@ -67,7 +77,8 @@ export async function latestQuotes(briefIds: readonly string[], includeDrafts = 
   return latest;
 }
 
-export function quoteJson(view: QuoteView) {
+/** A quote as JSON; `internal` (staff only) adds what the client never sees: why an infeasible design was quoted. */
+export function quoteJson(view: QuoteView, { internal = false } = {}) {
   const { quote: q } = view;
   return {
     id: q.id,
@@ -86,6 +97,8 @@ export function quoteJson(view: QuoteView) {
     totalMinor: q.totalMinor,
     depositMinor: q.depositMinor,
     terms: q.terms,
+    clientNote: q.clientNote,
+    ...(internal ? { infeasibleReason: q.infeasibleReason } : {}),
     validUntil: q.validUntil.toISOString(),
     sentAt: q.sentAt?.toISOString() ?? null,
     acceptedAt: q.acceptedAt?.toISOString() ?? null,
@@ -106,14 +119,19 @@ export function quoteJson(view: QuoteView) {
   };
 }
 
-export async function createQuote(staff: SignedInUser, revisionId: string, quantity: number): Promise<Outcome<QuoteView>> {
-  const drafted = await draftQuote(db, { revisionId, createdBy: staff.id, quantity });
+export async function createQuote(
+  staff: SignedInUser,
+  revisionId: string,
+  quantity: number,
+  infeasibleReason?: string,
+): Promise<Outcome<QuoteView>> {
+  const drafted = await draftQuote(db, { revisionId, createdBy: staff.id, quantity, infeasibleReason });
   if (!drafted.ok) return drafted;
   const view = await loadQuoteView(db, drafted.value.id);
   return view ? succeed(view) : refuse('not-found', 'The quote vanished after drafting; try again.');
 }
 
-/** Edits a draft: lines, units, rates, validity, terms. Totals are recomputed here, never taken from the caller. */
+/** Edits a draft: lines, units, rates, validity, terms, the note to the client. Totals are recomputed here, never taken from the caller. */
 export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new Date()): Promise<Outcome<QuoteView>> {
   if (view.quote.state !== 'draft')
     return wrong(`Only a draft can be edited; this quote is ${view.state}. Draft a new quote to change it.`);
@@ -149,6 +167,7 @@ export async function updateDraft(view: QuoteView, patch: QuotePatch, now = new 
         depositBp,
         ...quoteTotals(lines, taxRateBp, depositBp),
         ...(patch.terms !== undefined ? { terms: patch.terms.trim() } : {}),
+        ...(patch.clientNote !== undefined ? { clientNote: patch.clientNote.trim() } : {}),
         ...(validUntil ? { validUntil } : {}),
         updatedAt: now,
       })

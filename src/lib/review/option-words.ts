@@ -22,6 +22,11 @@ export function feasibilityOf(option: Pick<Option, 'feasible' | 'issues'>): Feas
   return option.issues.some((i) => i.severity === 'caution') ? 'caution' : 'feasible';
 }
 
+/** Whether a saved revision's chosen design meets the brief, as a mark and words (never colour alone). */
+export function feasibilityWords(feasible: boolean): { mark: string; text: string } {
+  return feasible ? { mark: '✓', text: 'Feasible' } : { mark: '✕', text: 'Not feasible' };
+}
+
 /** The first blocker, or else the first caution: the sentence a client should read. */
 export function headlineReason(option: Pick<Option, 'issues'>): string | null {
   const blocker = option.issues.find((i) => i.severity === 'blocker');

@@ -43,6 +43,7 @@ export async function reviewPageData(row: BriefRow, fromRevisionId: string | nul
       id: r.id,
       number: r.number,
       topology: r.topology,
+      feasible: r.feasible,
       note: r.note,
       createdAt: r.createdAt.toISOString(),
       author: r.author,

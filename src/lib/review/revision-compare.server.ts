@@ -26,11 +26,19 @@ async function buildComparison(a: NonNullable<Awaited<ReturnType<typeof findRevi
   });
   const left = side(a.revision);
   const right = side(b.revision);
+  const feasible = (r: typeof left) => chosenOption(r)?.feasible ?? false;
   return {
     briefId: a.revision.briefId,
     briefTitle: a.briefTitle,
-    a: { id: left.id, number: left.number, topology: left.topology, note: left.note, createdAt: left.createdAt },
-    b: { id: right.id, number: right.number, topology: right.topology, note: right.note, createdAt: right.createdAt },
+    a: { id: left.id, number: left.number, topology: left.topology, feasible: feasible(left), note: left.note, createdAt: left.createdAt },
+    b: {
+      id: right.id,
+      number: right.number,
+      topology: right.topology,
+      feasible: feasible(right),
+      note: right.note,
+      createdAt: right.createdAt,
+    },
     // Each field by its label, each value with its unit: never a stored path or a bare number.
     inputs: inputChanges(left, right).map(({ path, a, b }) => {
       const before = describeField(path, a);

@@ -50,7 +50,7 @@ export async function saveRevision(row: BriefRow, authorId: string, request: Rev
   return succeed(saved);
 }
 
-/** A brief's revisions, newest first, each with the requirement it was designed to where that departs from the brief. */
+/** A brief's revisions, newest first, each with whether its chosen design is feasible and the requirement it was designed to where that departs from the brief. */
 export async function listRevisions(row: Pick<BriefRow, 'id' | 'spec'>) {
   const rows = await db
     .select({
@@ -63,12 +63,16 @@ export async function listRevisions(row: Pick<BriefRow, 'id' | 'spec'>) {
       weights: designRevision.weights,
       overrides: designRevision.overrides,
       input: designRevision.input,
+      // The chosen option's feasibility, read inside the stored result so the whole result is not loaded.
+      feasible: sql<
+        number | null
+      >`(select json_extract(o.value, '$.feasible') from json_each(${designRevision.result}, '$.options') o where json_extract(o.value, '$.topology') = ${designRevision.topology})`,
     })
     .from(designRevision)
     .leftJoin(user, eq(user.id, designRevision.authorId))
     .where(eq(designRevision.briefId, row.id))
     .orderBy(desc(designRevision.number));
-  return rows.map(({ input, ...r }) => ({ ...r, requirement: agreedRequirementOf(row.spec, input) }));
+  return rows.map(({ input, feasible, ...r }) => ({ ...r, feasible: feasible === 1, requirement: agreedRequirementOf(row.spec, input) }));
 }
 
 export async function findRevision(briefId: string, revisionId: string): Promise<RevisionRow | null> {

@@ -56,6 +56,8 @@ function highVoltageView(): QuoteView {
     acceptedAt: null,
     purchaseOrder: null,
     declineReason: null,
+    clientNote: '',
+    infeasibleReason: null,
     createdAt: now,
     updatedAt: now,
   };

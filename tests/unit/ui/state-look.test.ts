@@ -30,8 +30,8 @@ describe('formatting', () => {
 
 describe('navigation by role', () => {
   test('clients see their briefs, staff the desk, admins also people', () => {
-    expect(navigationFor('client').map((n) => n.href)).toEqual(['/briefs']);
-    expect(navigationFor('engineer').map((n) => n.href)).toEqual(['/desk']);
+    expect(navigationFor('client').map((n) => n.href)).toEqual(['/briefs', '/quotes']);
+    expect(navigationFor('engineer').map((n) => n.href)).toEqual(['/desk', '/desk/quotes']);
     expect(navigationFor('admin').map((n) => n.href)).toContain('/admin/users');
     expect(navigationFor(null)).toEqual([]);
   });

@@ -205,6 +205,10 @@ export const quote = sqliteTable(
     purchaseOrder: text('purchase_order'),
     /** Why the client declined, in their words. */
     declineReason: text('decline_reason'),
+    /** Words for the client: the only free text of the engineer's that reaches the quote page, the PDF and the e-mail. */
+    clientNote: text('client_note').notNull().default(''),
+    /** Internal: why a design that does not meet the brief was quoted all the same. */
+    infeasibleReason: text('infeasible_reason'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

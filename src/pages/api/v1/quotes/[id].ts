@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { patchQuoteSchema } from '~/lib/quotes/pricing';
-import { ANY_ROLE, guardApi, STAFF } from '~/lib/platform/http/guard';
+import { ANY_ROLE, guardApi, isStaff, STAFF } from '~/lib/platform/http/guard';
 import { json, notFound } from '~/lib/platform/http/responses';
 import { findQuoteFor, quoteJson, quoteOf, updateDraft } from '~/lib/quotes/quotes.server';
 import { apiMutation } from '~/lib/platform/http/mutation';
@@ -9,10 +9,10 @@ export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
   if (!gate.ok) return gate.response;
   const view = await findQuoteFor(gate.user, context.params.id ?? '');
-  return view ? json(quoteJson(view)) : notFound();
+  return view ? json(quoteJson(view, { internal: isStaff(gate.user) })) : notFound();
 };
 
-/** Edits a draft's lines, units, rates, validity and terms; the server prices it. */
+/** Edits a draft's lines, units, rates, validity, terms and note to the client; the server prices it. */
 export const PATCH = apiMutation({
   access: STAFF,
   body: patchQuoteSchema,
@@ -21,5 +21,5 @@ export const PATCH = apiMutation({
     const found = await quoteOf(user, context.params.id);
     return found.ok ? updateDraft(found.value, body) : found;
   },
-  answer: (view) => json(quoteJson(view)),
+  answer: (view) => json(quoteJson(view, { internal: true })),
 });

@@ -10,5 +10,5 @@ export const POST = apiMutation({
     const found = await quoteOf(user, context.params.id);
     return found.ok ? sendQuote(found.value, user) : found;
   },
-  answer: (view) => json(quoteJson(view)),
+  answer: (view) => json(quoteJson(view, { internal: true })),
 });
