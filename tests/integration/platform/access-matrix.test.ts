@@ -128,6 +128,7 @@ const ROWS: Row[] = [
     body: () => ({}),
     expect: [400, 400, 400, 400, 400],
   },
+  { method: 'GET', file: 'api/v1/quotes/index.ts', path: () => '/api/v1/quotes', expect: [401, 200, 200, 200, 200] },
   {
     method: 'POST',
     file: 'api/v1/quotes/index.ts',
@@ -394,6 +395,9 @@ describe('access matrix', () => {
     expect(list.items.every((b: { client: { name: string } }) => b.client.name === 'Jonas Brekke')).toBe(true);
     const search = await (await visitors.clientB.request('/api/v1/briefs?q=Soil')).json();
     expect(search.total).toBe(0);
+    const quotes = await (await visitors.clientB.request('/api/v1/quotes?pageSize=100')).json();
+    expect(quotes.items.every((q: { client: { name: string } }) => q.client.name === 'Jonas Brekke')).toBe(true);
+    expect((await (await visitors.clientB.request('/api/v1/quotes?q=Soil')).json()).total).toBe(0);
   });
 
   test('pages: the quote page and the brief page of client A are 404 for client B', async () => {

@@ -3,7 +3,7 @@ import { BRIEF_STATES } from '../../../src/lib/platform/db/schema';
 import { lifecycleTo } from '../../../src/lib/demo/lifecycle';
 import { BRIEF_STATE_LOOK, lookOf } from '../../../src/components/ui/state-look';
 import { formatMoney } from '../../../src/lib/platform/format';
-import { navigationFor } from '../../../src/lib/accounts/navigation';
+import { currentNavHref, navigationFor } from '../../../src/lib/accounts/navigation';
 
 describe('state vocabulary', () => {
   test('every brief state has a word and a glyph, so none is told by colour alone', () => {
@@ -34,5 +34,14 @@ describe('navigation by role', () => {
     expect(navigationFor('engineer').map((n) => n.href)).toEqual(['/desk', '/desk/quotes']);
     expect(navigationFor('admin').map((n) => n.href)).toContain('/admin/users');
     expect(navigationFor(null)).toEqual([]);
+  });
+  test('a page marks the item it belongs to: the longest address its path starts with', () => {
+    const staff = navigationFor('engineer');
+    expect(currentNavHref(staff, '/desk')).toBe('/desk');
+    expect(currentNavHref(staff, '/desk/briefs/b1')).toBe('/desk');
+    expect(currentNavHref(staff, '/desk/quotes')).toBe('/desk/quotes');
+    expect(currentNavHref(staff, '/desk/quotes/q1')).toBe('/desk/quotes');
+    expect(currentNavHref(staff, '/desktop')).toBeNull();
+    expect(currentNavHref(navigationFor('client'), '/quotes/q1')).toBe('/quotes');
   });
 });
