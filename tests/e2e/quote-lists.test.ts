@@ -2,7 +2,7 @@ import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
 import { islandsReady, screenshot, signInThroughForm, useBrowser } from './browser';
 import { DEMO } from '../support/client';
-import { railUnderReview } from '../integration/quotes/helpers';
+import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
 
 const baseUrl = inject('baseUrl');
 const browser = useBrowser();
@@ -114,6 +114,24 @@ describe('from the review to a quote', () => {
     }
     await page.reload();
     expect(await page.getByLabel('Note to the client').inputValue()).toBe('Both options are priced; we recommend the buck.');
+    const quoteId = new URL(page.url()).pathname.split('/').at(-1);
     await context.close();
+
+    // The client reads the note, and neither the revision's note nor the reason.
+    expect((await rail.engineer.request(`/api/v1/quotes/${quoteId}/send`, { method: 'POST' })).status).toBe(200);
+    const clientContext = await browser().newContext({ viewport: { width: 1366, height: 900 } });
+    const client = await clientContext.newPage();
+    await signInThroughForm(client, baseUrl, rail.email, CLIENT_PASSWORD);
+    await client.goto(`${baseUrl}/quotes/${quoteId}`);
+    expect(await client.getByTestId('client-note').textContent()).toContain('we recommend the buck');
+    const text = (await client.locator('main').textContent()) ?? '';
+    expect(text).not.toContain('For comparison');
+    expect(text).not.toContain('decision on cost');
+    for (const width of [1366, 390]) {
+      await client.setViewportSize({ width, height: 900 });
+      expect(await sidewaysScroll(client), `client quote page at ${width} px`).toBeLessThanOrEqual(0);
+      await screenshot(client, `quote-client-note-${width}`);
+    }
+    await clientContext.close();
   });
 });

@@ -68,17 +68,18 @@ export async function listQuotes(viewer: SignedInUser, query: QuoteListQuery, no
     items: rows.map((row) => {
       const q = row.quote;
       const depositPaidMinor = Number(row.depositPaid);
+      const state = stateAt(q, now);
       return {
         id: q.id,
         number: q.number,
-        state: stateAt(q, now),
+        state,
         brief: { id: q.briefId, title: row.briefTitle },
         client: { id: row.ownerId, name: row.clientName, company: row.company },
         currency: q.currency,
         totalMinor: q.totalMinor,
         depositMinor: q.depositMinor,
         depositPaid: depositPaidMinor > 0,
-        balanceMinor: balanceDue({ totalMinor: q.totalMinor, depositPaidMinor }),
+        balanceMinor: balanceDue({ state, totalMinor: q.totalMinor, depositPaidMinor }),
         validUntil: q.validUntil.toISOString(),
         sentAt: q.sentAt?.toISOString() ?? null,
         createdAt: q.createdAt.toISOString(),

@@ -15,7 +15,7 @@ interface Item {
   totalMinor: number;
   depositMinor: number;
   depositPaid: boolean;
-  balanceMinor: number;
+  balanceMinor: number | null;
 }
 interface List {
   items: Item[];
@@ -102,14 +102,18 @@ describe('the quote lists', () => {
     expect((await list(rail.engineer, `client=${ownerId}&state=sent`)).total).toBe(0);
   });
 
-  test('deposit and balance: until the deposit is paid the balance is the whole total, then the total less the deposit', async () => {
+  test('deposit and balance: the total less the deposit paid once accepted; no balance on an offer not taken', async () => {
     const client = await new Visitor(baseUrl).signIn(DEMO.client);
     const paid = (await list(client, 'state=deposit-paid')).items[0];
     expect(paid).toBeDefined();
     expect(paid!.depositPaid).toBe(true);
     expect(paid!.balanceMinor).toBe(paid!.totalMinor - paid!.depositMinor);
-    const { rail } = await threeQuotes();
-    for (const q of (await list(rail.client, '')).items) expect(q).toMatchObject({ depositPaid: false, balanceMinor: q.totalMinor });
+    const { rail, second } = await threeQuotes();
+    for (const q of (await list(rail.client, '')).items) expect(q).toMatchObject({ depositPaid: false, balanceMinor: null });
+    expect((await rail.client.request(`/api/v1/quotes/${second.id}/accept`, { method: 'POST', json: {} })).status).toBe(200);
+    const accepted = (await list(rail.client, 'state=accepted')).items;
+    expect(accepted.map((q) => q.number)).toEqual([second.number]);
+    expect(accepted[0]).toMatchObject({ depositPaid: false, balanceMinor: accepted[0]!.totalMinor });
   });
 
   test('a query that does not read is a 400 naming the field; the pages fall back to the whole list', async () => {

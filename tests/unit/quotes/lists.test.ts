@@ -5,12 +5,16 @@ import { infeasibleDraftNote, infeasibleReasonFor } from '../../../src/lib/quote
 import { feasibilityWords } from '../../../src/lib/review/option-words';
 
 describe('the balance of a quote', () => {
-  test('is the total until a deposit is received, then the total less what was received', () => {
-    expect(balanceDue({ totalMinor: 120_000, depositPaidMinor: 0 })).toBe(120_000);
-    expect(balanceDue({ totalMinor: 120_000, depositPaidMinor: 36_000 })).toBe(84_000);
+  test('once accepted it is the total until a deposit is received, then the total less what was received', () => {
+    expect(balanceDue({ state: 'accepted', totalMinor: 120_000, depositPaidMinor: 0 })).toBe(120_000);
+    expect(balanceDue({ state: 'deposit-paid', totalMinor: 120_000, depositPaidMinor: 36_000 })).toBe(84_000);
   });
   test('never reads below nothing, even if more was received than the total', () => {
-    expect(balanceDue({ totalMinor: 10_000, depositPaidMinor: 12_000 })).toBe(0);
+    expect(balanceDue({ state: 'deposit-paid', totalMinor: 10_000, depositPaidMinor: 12_000 })).toBe(0);
+  });
+  test('a quote nobody is bound by has no balance', () => {
+    for (const state of ['draft', 'sent', 'declined', 'expired', 'withdrawn'] as const)
+      expect(balanceDue({ state, totalMinor: 10_000, depositPaidMinor: 0 }), state).toBeNull();
   });
 });
 
