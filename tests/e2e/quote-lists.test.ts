@@ -81,6 +81,20 @@ describe('from the review to a quote', () => {
     expect(await revisions.locator('[data-revision="2"] [data-feasible]').textContent()).toBe('✕ Not feasible');
     expect(await revisions.locator('[data-revision="1"] [data-feasible]').textContent()).toBe('✓ Feasible');
 
+    // The compare page says the same of both sides.
+    await page.getByRole('button', { name: 'Compare side by side' }).click();
+    await page.waitForURL(/\/compare\?/);
+    expect((await page.locator('td[data-feasible]').allTextContents()).map((t) => t.trim())).toEqual(['✓ Feasible', '✕ Not feasible']);
+    for (const width of [1366, 390]) {
+      await page.setViewportSize({ width, height: 900 });
+      expect(await sidewaysScroll(page), `compare at ${width} px`).toBeLessThanOrEqual(0);
+      await screenshot(page, `revision-compare-${width}`);
+    }
+    await page.setViewportSize({ width: 1366, height: 900 });
+    await page.goBack();
+    await islandsReady(page);
+    await revisions.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: await screenshot(page, 'review-revisions-1366'), clip: (await revisions.boundingBox()) ?? undefined });
     await page.getByTestId('draft-quote').click();
     await page.waitForURL(/\/desk\/quotes\/new\?briefId=/);
     // The newest feasible revision is chosen, and no reason is asked for it.
