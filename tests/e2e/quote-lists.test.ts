@@ -1,6 +1,7 @@
 import { describe, expect, inject, test } from 'vitest';
 import type { Page } from 'playwright-core';
-import { islandsReady, screenshot, signInThroughForm, useBrowser } from './browser';
+import path from 'node:path';
+import { islandsReady, screenshot, SCREENSHOT_DIR, signInThroughForm, useBrowser } from './browser';
 import { DEMO } from '../support/client';
 import { CLIENT_PASSWORD, railUnderReview } from '../integration/quotes/helpers';
 
@@ -94,7 +95,7 @@ describe('from the review to a quote', () => {
     await page.goBack();
     await islandsReady(page);
     await revisions.scrollIntoViewIfNeeded();
-    await page.screenshot({ path: await screenshot(page, 'review-revisions-1366'), clip: (await revisions.boundingBox()) ?? undefined });
+    await revisions.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-revisions-1366.png') });
     await page.getByTestId('draft-quote').click();
     await page.waitForURL(/\/desk\/quotes\/new\?briefId=/);
     // The newest feasible revision is chosen, and no reason is asked for it.

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { TopologyId } from '~/lib/engine/types';
 import { LocalTime } from '../ui/LocalTime';
-import { feasibilityWords, TOPOLOGY_NAMES } from '~/lib/review/option-words';
+import { TOPOLOGY_NAMES } from '~/lib/review/option-words';
 import { FeasibilityMark } from './FeasibilityMark';
 
 export interface RevisionSummary {
@@ -101,7 +101,7 @@ function RevisionSelect(props: {
   label: string;
   value: string;
   onChange: (id: string) => void;
-  revisions: readonly { id: string; number: number; feasible: boolean }[];
+  revisions: readonly { id: string; number: number }[];
 }) {
   return (
     <div className="flex flex-col gap-1">
@@ -111,7 +111,7 @@ function RevisionSelect(props: {
       <select id={props.id} name={props.name} value={props.value} onChange={(e) => props.onChange(e.target.value)} className={selectClass}>
         {props.revisions.map((r) => (
           <option key={r.id} value={r.id}>
-            Revision {r.number} ({feasibilityWords(r.feasible).text.toLowerCase()})
+            Revision {r.number}
           </option>
         ))}
       </select>
