@@ -112,10 +112,9 @@ export default function MessageThread({ briefId, initial, viewer, closedReason, 
               >
                 <p className="whitespace-pre-line break-words">{m.body}</p>
                 {m.attachments.length > 0 && (
-                  <ul className="mt-2 flex flex-col gap-1" aria-label="Attached files">
+                  <ul className="mt-2 flex flex-col gap-1 border-t border-rule pt-2" aria-label="Attached files">
                     {m.attachments.map((a) => (
                       <li key={a.id} className="break-all">
-                        <span aria-hidden="true">📎 </span>
                         <a href={`/api/v1/files/${a.id}`} className="font-semibold">
                           {a.name}
                         </a>
