@@ -6,10 +6,9 @@ import { eq } from 'drizzle-orm';
 import { describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
 import { payment } from '../../../src/lib/platform/db/schema';
-import { SUCCESS_CARD } from '../../../stripe-fake/index';
 import { DEMO, Visitor } from '../../support/client';
 import { execSql, mailsTo, mailText } from '../quotes/helpers';
-import { acceptedQuote, openCheckout, pay, quoteState, stripe, until } from './helpers';
+import { paidDepositQuote, quoteState, stripe, until } from './helpers';
 
 const databaseUrl = inject('databaseUrl');
 const mailApiUrl = inject('mailApiUrl');
@@ -25,14 +24,7 @@ async function paymentsOf(quoteId: string) {
 
 describe('a staff refund of a paid deposit', () => {
   test('staff only, with a reason, once; recorded with who and why; the client told once; nothing else moves', async () => {
-    const rail = await acceptedQuote();
-    const { url } = await openCheckout(rail.client, rail.quote.id);
-    expect((await pay(url, SUCCESS_CARD)).status).toBe(303);
-    await until(
-      () => quoteState(rail.client, rail.quote.id),
-      (s) => s === 'deposit-paid',
-      'the deposit',
-    );
+    const rail = await paidDepositQuote();
     const [deposit] = await paymentsOf(rail.quote.id);
     const path = `/api/v1/payments/${deposit?.id}/refund`;
 
@@ -96,14 +88,7 @@ describe('a staff refund of a paid deposit', () => {
   });
 
   test('the desk form refunds only with the tick, and only this quote’s payments', async () => {
-    const rail = await acceptedQuote();
-    const { url } = await openCheckout(rail.client, rail.quote.id);
-    await pay(url, SUCCESS_CARD);
-    await until(
-      () => quoteState(rail.client, rail.quote.id),
-      (s) => s === 'deposit-paid',
-      'the deposit',
-    );
+    const rail = await paidDepositQuote();
     const [deposit] = await paymentsOf(rail.quote.id);
     const page = `/desk/quotes/${rail.quote.id}`;
     const form = (fields: Record<string, string>) =>
