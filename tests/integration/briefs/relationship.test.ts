@@ -55,6 +55,9 @@ describe('files sent with a message', () => {
       'the message e-mail',
     );
     expect(await mailText(mailApiUrl, mail[0]?.id)).toContain('Attached (open them on the page): bus-sag.pdf');
+    // Delivered once, even after the outbox poller's turn.
+    await new Promise((r) => setTimeout(r, 6_000));
+    expect((await mailsTo(mailApiUrl, DEMO.engineer)).filter((m) => m.subject.includes(rail.name))).toHaveLength(1);
 
     // The review and the client's page show it with its download link.
     for (const [visitor, page] of [
