@@ -79,6 +79,13 @@ describe('a staff refund of a paid deposit', () => {
     await new Promise((r) => setTimeout(r, 6_000));
     expect((await mailsTo(mailApiUrl, rail.email)).filter((m) => m.subject.startsWith('Refund:'))).toHaveLength(1);
 
+    // The client's quote page says the deposit went back and why, and offers no payment.
+    const clientPage = await (await rail.client.request(`/quotes/${rail.quote.id}`)).text();
+    expect(clientPage).toContain('Your deposit was refunded in full; nothing is due on this quote now.');
+    expect(clientPage).toContain('refunded to you in full');
+    expect(clientPage).toContain('“The project was stopped by the client’s board.”');
+    expect(clientPage).not.toContain('Pay the deposit');
+
     // The desk's payment list shows both, with kind, state, who and why.
     const desk = await (await rail.engineer.request(`/desk/quotes/${rail.quote.id}`)).text();
     expect(desk).toContain('Refunded');
