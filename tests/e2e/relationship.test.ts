@@ -172,3 +172,26 @@ describe('the wizard stores nothing until the client types', () => {
     expect(client.errors).toEqual([]);
   });
 });
+
+describe.each(SIZES)('a declined quote on the desk at $viewport.width px', ({ name, viewport }) => {
+  test('the engineer reads the client’s reason on the quote page and the review', async () => {
+    const rail = await railUnderReview(baseUrl);
+    const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
+    expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
+    const reason = 'Over our budget for this batch; a cheaper linear would do.';
+    expect((await rail.client.request(`/api/v1/quotes/${quote.id}/decline`, { method: 'POST', json: { reason } })).status).toBe(200);
+
+    const engineer = await signedInPage(browser(), viewport, DEMO.engineer);
+    await engineer.page.goto(`${baseUrl}/desk/quotes/${quote.id}`);
+    await engineer.page.getByRole('heading', { name: 'Declined by the client' }).waitFor();
+    await engineer.page.getByText(`“${reason}”`).waitFor();
+    expect(await noSidewaysScroll(engineer.page)).toBe(true);
+    await screenshot(engineer.page, `relationship-declined-quote-${name}`);
+    await engineer.page.goto(`${baseUrl}/desk/briefs/${rail.briefId}`);
+    const declined = engineer.page.getByRole('region', { name: 'Declined quotes' });
+    await declined.getByText(`“${reason}”`).waitFor();
+    await declined.scrollIntoViewIfNeeded();
+    await engineer.context.close();
+    expect(engineer.errors).toEqual([]);
+  });
+});
