@@ -26,6 +26,8 @@ const LoadLogPlot = lazy(() => import('./LoadLogPlot').then((m) => ({ default: m
 interface Props {
   signedIn: boolean;
   draft: { id: string; title: string; notes: string; spec: Record<string, unknown> } | null;
+  /** The brief came back from the consultancy with a request for changes (shown above the wizard). */
+  changesRequested?: boolean;
 }
 
 interface QueuedFile {
@@ -72,11 +74,17 @@ function initialValues(draft: Props['draft']): WizardInput {
 }
 
 /** The client's brief, step by step, with the live ranking beside it. */
-export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props) {
+export default function BriefWizard({ signedIn: signedInAtStart, draft, changesRequested = false }: Props) {
   const [step, setStep] = useState(0);
   const [signedIn, setSignedIn] = useState(signedInAtStart);
   const [draftId, setDraftId] = useState<string | null>(draft?.id ?? null);
-  const [saveNote, setSaveNote] = useState<string>(draft ? 'Draft restored.' : '');
+  const [saveNote, setSaveNote] = useState<string>(
+    changesRequested
+      ? 'The consultancy asked for changes (their message is above): edit the brief and submit it again.'
+      : draft
+        ? 'Draft restored.'
+        : '',
+  );
   const [askAccount, setAskAccount] = useState(false);
   const [submitting, setSubmitting] = useState(false);
   const [submitError, setSubmitError] = useState<string | null>(null);
@@ -89,6 +97,8 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
     mode: 'onTouched',
   });
   const { control, register, formState, trigger, getValues, setValue, reset } = form;
+  // Read while rendering so the form tracks it: no draft is stored until the client has typed something.
+  const { isDirty } = formState;
   const values = useWatch({ control });
   const ranking = useLiveRanking(values.spec);
 
@@ -131,6 +141,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
   // Autosave: to the server when signed in, to this browser otherwise.
   const serialized = JSON.stringify(values);
   useEffect(() => {
+    if (!draftId && !isDirty) return;
     const timer = setTimeout(async () => {
       if (!signedIn) {
         window.localStorage.setItem(LOCAL_KEY, serialized);
@@ -159,7 +170,7 @@ export default function BriefWizard({ signedIn: signedInAtStart, draft }: Props)
       }
     }, SAVE_DEBOUNCE_MS);
     return () => clearTimeout(timer);
-  }, [serialized, signedIn, draftId, ensureDraft, getValues]);
+  }, [serialized, signedIn, draftId, isDirty, ensureDraft, getValues]);
 
   const uploadQueued = useCallback(async (briefId: string, queue: QueuedFile[]) => {
     for (const item of queue) {

@@ -37,3 +37,13 @@ export function currentNavHref(items: readonly NavItem[], path: string): string 
   const matches = items.filter((item) => path === item.href || path.startsWith(`${item.href}/`));
   return matches.sort((a, b) => b.href.length - a.href.length)[0]?.href ?? null;
 }
+
+/** The header's words for unread messages: text, so the count never rests on a coloured dot. */
+export function unreadLabel(count: number): string {
+  return count === 1 ? '1 unread message' : `${count} unread messages`;
+}
+
+/** Where the header's unread count leads: the thread of the brief with the newest unread message, on the viewer's side. */
+export function unreadHref(role: Role, briefId: string): string {
+  return role === 'client' ? `/briefs/${briefId}#messages` : `/desk/briefs/${briefId}#messages`;
+}

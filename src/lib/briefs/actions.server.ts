@@ -11,9 +11,10 @@ import { moveBrief } from './moves.server';
 import type { BriefRow } from './briefs.server';
 import { currentCatalog } from '~/lib/catalog/index.server';
 import { db } from '../platform/db';
-import { brief, briefMessage, briefSpecVersion, stateChange, user } from '../platform/db/schema';
+import { brief, briefFile, briefMessage, briefSpecVersion, stateChange, user } from '../platform/db/schema';
+import { uploadStore } from './file-store.server';
 import type { DbOrTx } from '../platform/db/connect';
-import { invalidInput, refuse, succeed, type Outcome } from '../platform/outcome';
+import { invalidInput, notYours, refuse, succeed, type Outcome } from '../platform/outcome';
 import type { SignedInUser } from '../platform/http/guard';
 import { changesRequestedMail, submittedMails } from './mail.server';
 import { deliverQueuedMail } from '../platform/mail/mailer';
@@ -120,6 +121,30 @@ export async function editOwnBrief(owner: SignedInUser, row: BriefRow, edit: Dra
   if (!result.ok) return refuse('wrong-state', result.message);
   await deliverQueuedMail(result.queued);
   return succeed(result.row);
+}
+
+/**
+ * The owner deletes a draft for good: the row, its history and its files (rows and bytes). Nobody
+ * else has seen a draft, so nothing is kept; a submitted brief is withdrawn instead.
+ */
+export async function deleteDraft(owner: SignedInUser, row: BriefRow): Promise<Outcome<{ id: string }>> {
+  if (row.ownerId !== owner.id) return notYours();
+  if (row.state !== 'draft') return refuse('wrong-state', 'Only a draft can be deleted; withdraw a submitted brief on its page instead.');
+  const storageKeys = await db.transaction(async (tx) => {
+    const files = await tx.select({ key: briefFile.storageKey }).from(briefFile).where(eq(briefFile.briefId, row.id));
+    // Conditional on the state read: a draft submitted meanwhile is not deleted.
+    const [gone] = await tx
+      .delete(brief)
+      .where(and(eq(brief.id, row.id), eq(brief.state, 'draft')))
+      .returning({ id: brief.id });
+    if (!gone) return null;
+    await tx.delete(stateChange).where(and(eq(stateChange.subjectType, 'brief'), eq(stateChange.subjectId, row.id)));
+    return files.map((f) => f.key);
+  });
+  if (!storageKeys)
+    return refuse('wrong-state', 'This draft was submitted meanwhile, so it was not deleted; withdraw it on its page instead.');
+  await Promise.all(storageKeys.map((key) => uploadStore.remove(key)));
+  return succeed({ id: row.id });
 }
 
 /** An engineer or admin moves a brief along (into review, declined, in design…). */

@@ -64,6 +64,7 @@ export function messageMails(
   body: string,
   readers: readonly { name: string; email: string }[],
   link: string,
+  attachmentNames: readonly string[] = [],
 ): OutgoingMail[] {
   return readers.map((reader) => ({
     kind: 'brief-message',
@@ -76,6 +77,7 @@ export function messageMails(
       '',
       ...body.split('\n').map((line) => `  ${line}`),
       '',
+      ...(attachmentNames.length ? [`Attached (open them on the page): ${attachmentNames.join(', ')}`, ''] : []),
       `Read and answer it here: ${link}`,
     ].join('\n'),
     relatedId: row.id,

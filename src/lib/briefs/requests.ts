@@ -108,6 +108,8 @@ export const briefListQuerySchema = z.object({
 
 export type CreateBrief = z.infer<typeof createBriefSchema>;
 
+export const MAX_MESSAGE_ATTACHMENTS = 5;
+
 /** A message in a brief's thread with the client (either side writes it). */
 export const messageRequestSchema = z
   .object({
@@ -116,6 +118,21 @@ export const messageRequestSchema = z
       .trim()
       .min(1, { error: 'Write your message.' })
       .max(4_000, { error: 'Keep the message under 4 000 characters.' }),
+    /** Files uploaded to the brief (`POST /api/v1/briefs/:id/files`) by the writer, sent with this message. */
+    attachmentIds: z
+      .array(z.string().min(1).max(64))
+      .max(MAX_MESSAGE_ATTACHMENTS, { error: `Attach at most ${MAX_MESSAGE_ATTACHMENTS} files to one message.` })
+      .default([]),
   })
   .strict();
 export type MessageRequest = z.infer<typeof messageRequestSchema>;
+
+/** The client's page forms: withdrawing a brief and deleting a draft each take a deliberate confirmation. */
+export const withdrawFormSchema = z.object({
+  intent: z.literal('withdraw'),
+  confirm: z.literal('yes', { error: 'Tick “Yes, withdraw” to confirm; the brief was not withdrawn.' }),
+});
+export const deleteDraftFormSchema = z.object({
+  intent: z.literal('delete'),
+  briefId: z.string().min(1).max(64),
+});

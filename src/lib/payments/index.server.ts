@@ -1,6 +1,7 @@
 /** Deposits paid through the payment provider: the server-only services other domains may call. */
 export * from './checkout.server';
 export * from './deposit-state.server';
+export * from './history.server';
 export * from './moves.server';
 export * from './provider.server';
 export * from './receipt.server';

@@ -71,7 +71,7 @@ export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<strin
   ]);
 }
 
-/** Queues the notice that a second payment for the same deposit was given back, with the refund's record. */
+/** Queues the client's notice that a payment was given back (staff's reason, or a second payment for a paid deposit), with the refund's record. */
 export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string): Promise<string[]> {
   const row = await paymentWithQuote(tx, refundPaymentId);
   if (!row) return [];
@@ -84,8 +84,12 @@ export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string): Pr
       text: [
         `Dear ${row.client.name},`,
         '',
-        `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
-        'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+        ...(row.payment.refundReason
+          ? [`We have refunded ${amount} for quote ${row.quote.number} (${row.brief.title}) in full.`, `Why: ${row.payment.refundReason}`]
+          : [
+              `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
+              'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+            ]),
         '',
         `Refund reference:  ${row.payment.checkoutSessionId}`,
         `Payment refunded:  ${row.payment.paymentIntentId ?? 'see the reference above'}`,

@@ -4,6 +4,7 @@ import { expect, inject } from 'vitest';
 import { Visitor } from '../../support/client';
 import { TEST_STRIPE_KEY, TEST_WEBHOOK_SECRET } from '../../support/stack';
 import { execSql, railUnderReview } from '../quotes/helpers';
+import { SUCCESS_CARD } from '../../../stripe-fake/index';
 
 const baseUrl = inject('baseUrl');
 const stripeUrl = inject('stripeUrl');
@@ -20,6 +21,19 @@ export async function acceptedQuote() {
   expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
   expect((await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, { method: 'POST' })).status).toBe(200);
   return { ...rail, quote: quote as { id: string; number: string; depositMinor: number; currency: string } };
+}
+
+/** An accepted quote whose deposit the client has paid with the test card, once the app has recorded it. */
+export async function paidDepositQuote() {
+  const rail = await acceptedQuote();
+  const { url } = await openCheckout(rail.client, rail.quote.id);
+  expect((await pay(url, SUCCESS_CARD)).status).toBe(303);
+  await until(
+    () => quoteState(rail.client, rail.quote.id),
+    (s) => s === 'deposit-paid',
+    'the deposit',
+  );
+  return rail;
 }
 
 /** Opens the deposit checkout as the client: the hosted page's address and its session id. */

@@ -8,7 +8,7 @@ import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
-import { brief, designRevision, quote } from '../../../src/lib/platform/db/schema';
+import { brief, designRevision, payment, quote } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
 import { NOTIFICATION_KINDS } from '../../../src/lib/accounts/notifications';
 
@@ -18,7 +18,7 @@ const ACTORS = ['anonymous', 'clientA', 'clientB', 'engineer', 'admin'] as const
 type Actor = (typeof ACTORS)[number];
 type Statuses = [number, number, number, number, number];
 
-const ids = { paidBrief: '', draftBrief: '', revision: '', quote: '', file: '' };
+const ids = { paidBrief: '', draftBrief: '', revision: '', quote: '', payment: '', file: '' };
 const visitors = {} as Record<Actor, Visitor>;
 
 const SPEC = {
@@ -46,8 +46,8 @@ interface Row {
   path: () => string;
   body?: () => unknown;
   form?: () => FormData;
-  /** A page form's fields, posted URL-encoded as a browser does. */
-  fields?: Record<string, string>;
+  /** A page form's fields, posted URL-encoded as a browser does (a function when they name an id found at start). */
+  fields?: Record<string, string> | (() => Record<string, string>);
   /** Signed in afresh for this row, because the row ends the session. */
   fresh?: true;
   expect: Statuses;
@@ -74,6 +74,8 @@ const ROWS: Row[] = [
     body: () => ({ notes: 'edited' }),
     expect: [401, 200, 404, 400, 400],
   },
+  // Only a draft is deleted, by its owner: client A's brief is paid (409).
+  { method: 'DELETE', file: 'api/v1/briefs/[id].ts', path: () => `/api/v1/briefs/${ids.paidBrief}`, expect: [401, 409, 404, 403, 403] },
   {
     method: 'GET',
     file: 'api/v1/briefs/[id]/messages.ts',
@@ -129,6 +131,14 @@ const ROWS: Row[] = [
     expect: [400, 400, 400, 400, 400],
   },
   { method: 'GET', file: 'api/v1/quotes/index.ts', path: () => '/api/v1/quotes', expect: [401, 200, 200, 200, 200] },
+  // Staff refund; a refund without a reason is refused before anything moves.
+  {
+    method: 'POST',
+    file: 'api/v1/payments/[id]/refund.ts',
+    path: () => `/api/v1/payments/${ids.payment}/refund`,
+    body: () => ({ reason: ' ' }),
+    expect: [401, 403, 403, 400, 400],
+  },
   {
     method: 'POST',
     file: 'api/v1/quotes/index.ts',
@@ -284,6 +294,36 @@ const ROWS: Row[] = [
     fields: { intent: 'note', body: ' ' },
     expect: [303, 403, 403, 400, 400],
   },
+  {
+    method: 'POST',
+    file: 'desk/quotes/[id].astro',
+    path: () => `/desk/quotes/${ids.quote}`,
+    fields: { intent: 'refund', paymentId: 'no-such-payment', reason: '' },
+    expect: [303, 403, 403, 400, 400],
+  },
+  // Client A's brief is paid, so not a draft (409); client B's own list does not hold it (404); the list is the client's.
+  {
+    method: 'POST',
+    file: 'briefs/index.astro',
+    path: () => '/briefs',
+    fields: { intent: 'delete', briefId: '' },
+    expect: [303, 400, 400, 403, 403],
+  },
+  {
+    method: 'POST',
+    file: 'briefs/index.astro',
+    path: () => '/briefs',
+    fields: () => ({ intent: 'delete', briefId: ids.paidBrief }),
+    expect: [303, 409, 404, 403, 403],
+  },
+  // Withdrawing takes the tick; without it nothing moves (400); client B cannot see the brief (404).
+  {
+    method: 'POST',
+    file: 'briefs/[id].astro',
+    path: () => `/briefs/${ids.paidBrief}`,
+    fields: { intent: 'withdraw' },
+    expect: [303, 400, 404, 400, 400],
+  },
   // Client A's quote is paid already (409); client B may not see it (404); staff do not accept or decline for clients (403).
   {
     method: 'POST',
@@ -346,8 +386,12 @@ beforeAll(async () => {
     .select()
     .from(quote)
     .where(eq(quote.briefId, paid?.id ?? ''));
+  const [deposit] = await db
+    .select()
+    .from(payment)
+    .where(eq(payment.quoteId, paidQuote?.id ?? ''));
   client.close();
-  Object.assign(ids, { paidBrief: paid?.id, draftBrief: draft?.id, revision: revision?.id, quote: paidQuote?.id });
+  Object.assign(ids, { paidBrief: paid?.id, draftBrief: draft?.id, revision: revision?.id, quote: paidQuote?.id, payment: deposit?.id });
   const uploaded = await visitors.clientA.request(`/api/v1/briefs/${ids.paidBrief}/files`, { method: 'POST', body: upload() });
   ids.file = (await uploaded.json()).id;
   for (const [key, value] of Object.entries(ids)) expect(value, key).toBeTruthy();
@@ -375,7 +419,7 @@ describe('access matrix', () => {
       if (row.form) init.body = row.form();
       if (row.fields) {
         init.headers = { 'content-type': 'application/x-www-form-urlencoded' };
-        init.body = new URLSearchParams(row.fields).toString();
+        init.body = new URLSearchParams(typeof row.fields === 'function' ? row.fields() : row.fields).toString();
       }
       const response = await who[actor].request(row.path(), init);
       got.push(response.status);

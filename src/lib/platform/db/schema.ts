@@ -3,7 +3,7 @@
  * epoch milliseconds; JSON columns hold the engine's own typed documents.
  */
 import { sql } from 'drizzle-orm';
-import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import { BRIEF_STATES, type BriefState } from '../../briefs/states';
 import { QUOTE_LINE_KINDS } from '../../quotes/pricing';
 import { user } from './auth-schema';
@@ -81,9 +81,11 @@ export const briefFile = sqliteTable(
     sizeBytes: integer('size_bytes').notNull(),
     /** For load logs: the reduced figures (iMin, iTyp, iRms, iMax, samples). */
     loadSummary: text('load_summary', { mode: 'json' }),
+    /** The thread message this file was sent with, if any. */
+    messageId: text('message_id').references((): AnySQLiteColumn => briefMessage.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
   },
-  (t) => [index('brief_file_brief_idx').on(t.briefId)],
+  (t) => [index('brief_file_brief_idx').on(t.briefId), index('brief_file_message_idx').on(t.messageId)],
 );
 
 export const briefNote = sqliteTable(
@@ -145,6 +147,21 @@ export const briefMessage = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('brief_message_brief_idx').on(t.briefId, t.createdAt)],
+);
+
+/** Up to when a person has read a brief's thread: messages from the other side after it count as unread. */
+export const briefRead = sqliteTable(
+  'brief_read',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    briefId: text('brief_id')
+      .notNull()
+      .references(() => brief.id, { onDelete: 'cascade' }),
+    readAt: integer('read_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [uniqueIndex('brief_read_user_brief_idx').on(t.userId, t.briefId)],
 );
 
 export const designRevision = sqliteTable(
@@ -262,6 +279,10 @@ export const payment = sqliteTable(
     currency: text('currency').notNull(),
     state: text('state', { enum: PAYMENT_STATES }).notNull().default('pending'),
     paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
+    /** A refund's payment given back, the staff member who gave it (none when the product refunded it itself) and why. */
+    refundOf: text('refund_of').references((): AnySQLiteColumn => payment.id),
+    refundedBy: text('refunded_by').references(() => user.id),
+    refundReason: text('refund_reason'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

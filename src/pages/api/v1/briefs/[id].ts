@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/briefs/requests';
-import { editOwnBrief, moveAsStaff } from '~/lib/briefs/actions.server';
+import { deleteDraft, editOwnBrief, moveAsStaff } from '~/lib/briefs/actions.server';
 import { briefDetailJson, briefJson } from '~/lib/briefs/json';
 import { briefDetail, briefOf, findBriefFor } from '~/lib/briefs/briefs.server';
 import { ANY_ROLE, guardApi, isStaff, STAFF } from '~/lib/platform/http/guard';
@@ -71,3 +71,13 @@ const ownerEdit = apiMutation({
 
 /** Owners edit their drafts (or submit / cancel); staff move the state. */
 export const PATCH: APIRoute = (context) => (isStaff(context.locals.user) ? staffMove(context) : ownerEdit(context));
+
+/** The owner deletes a draft (204); a submitted brief is refused (409) and is withdrawn instead. */
+export const DELETE = apiMutation({
+  access: ['client'],
+  run: async ({ user, context }) => {
+    const found = await briefOf(user, context.params.id);
+    return found.ok ? deleteDraft(user, found.value) : found;
+  },
+  answer: () => new Response(null, { status: 204 }),
+});
