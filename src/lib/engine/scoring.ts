@@ -3,7 +3,7 @@
 import { noiseClassDefaults, type RailSpec } from './rail-spec.ts';
 import { topologyIds, type Option, type SubScores, type TopologyId } from './types.ts';
 
-export { effectiveWeights } from './scoring/weights.ts';
+export { effectiveWeights, railSizeW } from './scoring/weights.ts';
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
 
