@@ -183,6 +183,17 @@ describe('ranking', () => {
     ).toMatch(/a single linear stage meets this rail/);
   });
 
+  test('against a single stage far behind, the hybrid carries no margin: it stands on its own score', () => {
+    // 24 V → 15 V at 0.5 A on a precision rail: a linear regulator burning 5 W scores far below.
+    // Hybrid 66.0, filtered buck 71.6 − 10 (quiet rail), linear 54.8: the hybrid is the pick.
+    const precision = { noise: { class: 'precision' as const, maxRippleVpp: 0.001 } };
+    expect(
+      rankOptions([option('buck', true, 71.6), option('buck+linear', true, 66), option('linear', true, 54.8)], precision).map(
+        (o) => o.topology,
+      ),
+    ).toEqual(['buck+linear', 'buck', 'linear']);
+  });
+
   test('the reason names the tie, the lead or the blockers', () => {
     expect(pickReason(rankOptions([option('buck-boost', true, 70.5), option('boost', true, 70)]), defaultWeights)).toMatch(
       /tie, which the simpler topology wins/,

@@ -1085,4 +1085,25 @@ export const CORPUS: readonly CorpusBrief[] = [
     accept: ['linear'],
     why: 'common practice: a µA-quiescent LDO rated for 16 V; a shunt or a 1 A regulator with milliamps of quiescent current would drain the battery dozens of times faster than the load',
   },
+  {
+    id: 'up-12-48v-500ma',
+    family: 'step-up',
+    spec: rail({ vin: [11, 12, 13], ripple: 0.1, source: 'bus', vout: 48, load: [0.01, 0.3, 0.5] }),
+    accept: ['boost'],
+    why: 'common practice: a boost controller with a 100 V MOSFET; the output capacitors and the heat leave a window of switching frequencies (about 0.5–0.65 MHz here) that the design must find',
+  },
+  {
+    id: 'bus-veh24-12v-3a',
+    family: 'bus',
+    spec: rail({ vin: VEHICLE_24, ripple: 0.3, source: 'bus', vout: 12, load: [0.1, 2, 3] }),
+    accept: ['buck'],
+    why: 'common practice: a 60 V synchronous buck rated 5 A (a 36 V part has no margin over 32 V with derating); a linear stage would burn 60 W',
+  },
+  {
+    id: 'quiet-24-15v-precision-500ma',
+    family: 'quiet',
+    spec: rail({ vin: [22, 24, 26], ripple: 0.2, source: 'bus', vout: 15, tol: 0.02, load: [0.01, 0.3, 0.5], noise: 'precision' }),
+    accept: ['buck+linear'],
+    why: 'common practice: a linear regulator alone would burn 5.5 W; a buck to just above the rail and a low-noise LDO keep switching spurs off a precision-analog load',
+  },
 ];
