@@ -3,7 +3,7 @@
 import { noiseClassDefaults, type RailSpec } from './rail-spec.ts';
 import { topologyIds, type Option, type SubScores, type TopologyId } from './types.ts';
 
-export { effectiveWeights } from './scoring/weights.ts';
+export { effectiveWeights, railSizeW } from './scoring/weights.ts';
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
 
@@ -104,7 +104,7 @@ export const QUIET_RAIL_MARGIN_POINTS = 10;
  * A switcher followed by a linear post-regulator is the answer where one stage alone falls short:
  * a plain linear regulator whose loss is bearable, or on a rail that is not quiet a bare switcher
  * that meets the limit, is the usual answer — fewer parts, and on a quiet load no switcher on the
- * board (common practice). The hybrid must win by this much.
+ * board (common practice). The hybrid must win by this much over such a single stage.
  */
 export const HYBRID_MARGIN_POINTS = 5;
 
@@ -135,7 +135,10 @@ export function rankingHandicap(
   if (option.topology === 'buck+linear' && spec) {
     const quiet = quietRail(spec);
     const single: readonly TopologyId[] = quiet ? ['linear', 'linear-predrop'] : ['linear', 'linear-predrop', ...BARE_SWITCHER];
-    const plain = single.find(has);
+    // Only a single stage within the margin is one the hybrid must beat by it; against one far
+    // behind (a linear regulator burning watts) the hybrid stands on its own score.
+    const near = (t: TopologyId) => feasible.some((o) => o.topology === t && (o.score ?? 0) + HYBRID_MARGIN_POINTS >= (option.score ?? 0));
+    const plain = single.find(near);
     if (plain) {
       return {
         points: HYBRID_MARGIN_POINTS,

@@ -9,6 +9,7 @@ import {
   STRADDLE_MARGIN_POINTS,
   TIE_POINTS,
   effectiveWeights,
+  railSizeW,
   pickReason,
   rankOptions,
   subScores,
@@ -61,8 +62,13 @@ describe('efficiency counts the power lost against the rail’s power budget', (
 
   test('part count and cost weigh ×1 at 1 W and above, ×2 at 100 mW, ×3 at 10 mW and below — half that on a battery', () => {
     const w = { ...defaultWeights };
+    // 1 V in and out: the rail's size is its output power.
     const rail = (watts: number, source: ScoreInputs['source'] = 'adapter') =>
-      railSpecSchema.parse({ ...usb, input: { ...usb.input, source }, output: { ...usb.output, v: 1, iTyp: watts, iMax: watts } });
+      railSpecSchema.parse({
+        ...usb,
+        input: { ...usb.input, vMin: 1, vNom: 1, vMax: 1, source },
+        output: { ...usb.output, v: 1, iTyp: watts, iMax: watts },
+      });
     expect(effectiveWeights(w, rail(5))).toEqual(w);
     expect(effectiveWeights(w, rail(0.1))).toMatchObject({ partCount: 2 * w.partCount, cost: 2 * w.cost, efficiency: w.efficiency });
     expect(effectiveWeights(w, rail(0.001))).toMatchObject({ partCount: 3 * w.partCount, cost: 3 * w.cost });
@@ -72,6 +78,18 @@ describe('efficiency counts the power lost against the rail’s power budget', (
       efficiency: w.efficiency,
     });
     expect(effectiveWeights(w, rail(5, 'battery'))).toEqual(w);
+  });
+
+  test('a rail delivering milliwatts from a high input is not judged as small as its output says', () => {
+    // 36–60 V to 3.3 V at 5 mA: 16.5 mW out, yet a shunt or linear stage of it draws up to 0.3 W.
+    const spec = railSpecSchema.parse({
+      ...usb,
+      input: { ...usb.input, vMin: 36, vNom: 48, vMax: 60 },
+      output: { ...usb.output, v: 3.3, iTyp: 0.002, iMax: 0.005 },
+    });
+    // Hand calculation: 5 mA · √(3.3 V · 60 V) = 70.4 mW, so ×(1 + log10(1/0.0704)) = ×2.15, not ×2.78.
+    expect(railSizeW(spec)).toBeCloseTo(0.005 * Math.sqrt(3.3 * 60), 12);
+    expect(effectiveWeights(defaultWeights, spec).cost / defaultWeights.cost).toBeCloseTo(1 + Math.log10(1 / 0.0704), 2);
   });
 
   test('a switching output claims no noise margin on an RF or precision rail', () => {
@@ -163,6 +181,17 @@ describe('ranking', () => {
     expect(
       pickReason(rankOptions([option('buck+linear', true, near), option('linear', true, 70)], sensor), defaultWeights, sensor),
     ).toMatch(/a single linear stage meets this rail/);
+  });
+
+  test('against a single stage far behind, the hybrid carries no margin: it stands on its own score', () => {
+    // 24 V → 15 V at 0.5 A on a precision rail: a linear regulator burning 5 W scores far below.
+    // Hybrid 66.0, filtered buck 71.6 − 10 (quiet rail), linear 54.8: the hybrid is the pick.
+    const precision = { noise: { class: 'precision' as const, maxRippleVpp: 0.001 } };
+    expect(
+      rankOptions([option('buck', true, 71.6), option('buck+linear', true, 66), option('linear', true, 54.8)], precision).map(
+        (o) => o.topology,
+      ),
+    ).toEqual(['buck+linear', 'buck', 'linear']);
   });
 
   test('the reason names the tie, the lead or the blockers', () => {

@@ -12,7 +12,15 @@ import { designBoost } from '~/lib/engine/topologies/boost.ts';
 import { buckBoostPoint, designBuckBoost } from '~/lib/engine/topologies/buck-boost.ts';
 import { designBuck } from '~/lib/engine/topologies/buck.ts';
 import { designSwitcherLinear } from '~/lib/engine/topologies/switcher-linear.ts';
-import { boostSegments, buckSegments, classVoltageFindings, dutyWindow, ripplePeakToPeak } from '~/lib/engine/topologies/switcher.ts';
+import {
+  boostSegments,
+  buckSegments,
+  classVoltageFindings,
+  dutyWindow,
+  fswBetween,
+  fswCandidates,
+  ripplePeakToPeak,
+} from '~/lib/engine/topologies/switcher.ts';
 
 const thermal = { ambientMaxC: 40, airflow: 'still-air' as const };
 const ctxOf = (brief: RailSpecInput) => makeContext(railSpecSchema.parse(brief), defaultCatalog);
@@ -54,6 +62,28 @@ describe('minimum on-time: D·Ts ≥ tON,min (regression: 20–30 V → 0.9 V at
     // 1 − 60 ns · 3 MHz = 0.82, below the class's 100 %.
     expect(dutyWindow(s, 3e6).dMax).toBeCloseTo(0.82, 12);
     expect(dutyWindow(s, 3e6).dMin).toBeCloseTo(0.15, 12);
+  });
+});
+
+describe('frequency between the coarse steps', () => {
+  // 11–13 V → 48 V at 0.5 A, 50 mV ripple: the boost controller's output capacitor needs
+  // C = Iout·D/(fsw·ΔV) (common practice), about 100 µF with an ESR of a few mΩ at 300 kHz, past
+  // any six-part bank; at 1 MHz its MOSFET and driver run past the design limit. The window lies
+  // between two of the class's steps (100 k, 300 k, 320 k, 1 MHz).
+  const upTo48 = brief(11, 12, 13, 48, 0.5, { output: { v: 48, tolerance: 0.05, iMin: 0.01, iTyp: 0.3, iMax: 0.5 } });
+  test('midpoints are geometric and rounded to two figures like the steps', () => {
+    expect(fswBetween([100e3, 300e3, 320e3, 1e6])).toEqual([170e3, 310e3, 570e3]);
+  });
+  test('none of the steps holds a clean design, a midpoint does, and the search finds it', () => {
+    const ctx = ctxOf(upTo48);
+    const cls = defaultCatalog.switchers.find((s) => s.id === 'boost-ctrl-100v')!;
+    for (const fsw of fswCandidates(ctx, cls)) {
+      expect(blockers(designBoost(ctxOf({ ...upTo48, overrides: { fswHz: fsw } }))).length).toBeGreaterThan(0);
+    }
+    const d = designBoost(ctx);
+    expect(blockers(d)).toEqual([]);
+    const fsw = d.assumptions[`${part(d, 'switch').ref}.fsw`]?.value ?? traced(d, 'boost.ton').inputs.fsw!.value;
+    expect(fswBetween(fswCandidates(ctx, cls))).toContain(fsw);
   });
 });
 

@@ -19,11 +19,11 @@ describe('what matters most', () => {
     expect(stepWord(10)).toBeNull();
   });
 
-  test('each quality’s share of the score is its weight over the sum, with part count and cost tripled on a 10 mW rail', () => {
+  test('each quality’s share of the score is its weight over the sum, with part count and cost tripled on a rail of a few milliwatts', () => {
     const shares = scoreShares({ ...defaultWeights }, rail(5, 1))!;
     expect(shares.efficiency).toBeCloseTo(3 / 10, 10);
     expect(Object.values(shares).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 10);
-    const small = scoreShares({ ...defaultWeights }, rail(1, 0.01))!;
+    const small = scoreShares({ ...defaultWeights }, rail(1, 0.001))!;
     expect(small.partCount).toBeCloseTo(3 / (3 + 2 + 3 + 2 + 6), 10);
     expect(scoreShares({ efficiency: 0, heat: 0, partCount: 0, noise: 0, cost: 0 }, rail(5, 1))).toBeNull();
   });

@@ -204,8 +204,11 @@ interface ClassDesign {
   standingA: number;
   /** Parts plus LOSS_CENTS_PER_W per watt of standing loss at the highest input: what classes are ranked on. */
   rankCents: number;
-  /** On a battery, the stage's own draw is more than DIVIDER_LOAD_SHARE of the typical load. */
-  drainsBattery: boolean;
+  /**
+   * The stage's own draw outweighs its load: on a battery more than DIVIDER_LOAD_SHARE of the
+   * typical load, elsewhere more than the typical load itself.
+   */
+  outweighsLoad: boolean;
 }
 
 function regulationSpread(cls: LinearRegulatorClass, input: StageInput, iMin: number, iMax: number): ToleranceParam[] {
@@ -330,7 +333,7 @@ function designClass(
     extraCents,
     standingA,
     rankCents: costCents + LOSS_CENTS_PER_W * input.vMax * standingA,
-    drainsBattery: spec.input.source === 'battery' && standingA > DIVIDER_LOAD_SHARE * spec.output.iTyp,
+    outweighsLoad: standingA > (spec.input.source === 'battery' ? DIVIDER_LOAD_SHARE : 1) * spec.output.iTyp,
   };
 }
 
@@ -349,8 +352,9 @@ const kindRank = (c: LinearRegulatorClass) => (c.kind === 'fixed' ? 0 : c.kind =
 const blockerCount = (d: ClassDesign) => d.failures.length + (d.verdict === 'fails' ? 1 : 0) + (d.rippleFails ? 1 : 0);
 
 /**
- * The cheapest class design with no blocker, its standing loss priced in (on a battery, one that
- * does not drain it first); otherwise the one with the fewest blockers, cheapest first.
+ * The cheapest class design with no blocker, its standing loss priced in, and first one whose own
+ * draw does not outweigh its load (a regulator's quiescent current is kept small beside its load,
+ * common practice); otherwise the one with the fewest blockers, cheapest first.
  */
 function pickDesign(designs: ClassDesign[]): ClassDesign {
   return designs
@@ -358,7 +362,9 @@ function pickDesign(designs: ClassDesign[]): ClassDesign {
     .sort(
       (a, b) =>
         blockerCount(a.d) - blockerCount(b.d) ||
-        Number(a.d.drainsBattery) - Number(b.d.drainsBattery) ||
+        Number(a.d.outweighsLoad) - Number(b.d.outweighsLoad) ||
+        // Among stages that all outweigh their load, the one that draws least wastes least.
+        (a.d.outweighsLoad ? a.d.standingA - b.d.standingA : 0) ||
         a.d.rankCents - b.d.rankCents ||
         kindRank(a.d.cls) - kindRank(b.d.cls) ||
         a.d.cls.iOutMaxA - b.d.cls.iOutMaxA ||
@@ -479,7 +485,7 @@ export function regulatorStage(
   const wanted = forcedClassId === undefined ? undefined : catalog.linearRegulators.find((c) => c.id === forcedClassId);
   const pool = wanted ? [wanted] : eligible(ctx, vTarget);
   // Cheapest class first: once a clean design exists, a class whose bare price is no lower than its
-  // ranked cost cannot beat it (one that drains a battery does not end the search).
+  // ranked cost cannot beat it (one whose own draw outweighs its load does not end the search).
   const designs: ClassDesign[] = [];
   let cleanCents = Number.POSITIVE_INFINITY;
   for (const cls of (pool.length > 0 ? pool : catalog.linearRegulators.slice(0, 1)).slice().sort((a, b) => a.costCents - b.costCents)) {
@@ -495,7 +501,7 @@ export function regulatorStage(
         : { ...(forcedR.r1 !== undefined ? { r1: forcedR.r1 } : {}), ...(forcedR.r2 !== undefined ? { r2: forcedR.r2 } : {}) },
     );
     designs.push(d);
-    if (blockerCount(d) === 0 && !d.drainsBattery) cleanCents = Math.min(cleanCents, d.rankCents);
+    if (blockerCount(d) === 0 && !d.outweighsLoad) cleanCents = Math.min(cleanCents, d.rankCents);
   }
   const d = pickDesign(designs);
   const cls = d.cls;

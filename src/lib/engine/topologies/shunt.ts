@@ -39,7 +39,8 @@ export function solveShunt(vIn: number, iOut: number, rs: number, vKnee: number,
 
 /**
  * The Zener shunt and each precision shunt reference are designed; the one with fewest blockers
- * (a tolerance the output cannot hold counts as one) wins, then the cheaper.
+ * (a tolerance the output cannot hold counts as one, and so does ripple past the rail's limit,
+ * which the assembly raises on the finished design) wins, then the cheaper.
  */
 export function designShunt(ctx: Context): Design {
   const { spec } = ctx;
@@ -53,7 +54,7 @@ export function designShunt(ctx: Context): Design {
     return {
       d,
       index,
-      rank: d.issues.filter((i) => i.severity === 'blocker').length + (fails ? 1 : 0),
+      rank: d.issues.filter((i) => i.severity === 'blocker').length + (fails ? 1 : 0) + (d.rippleVpp > spec.noise.maxRippleVpp ? 1 : 0),
       // How far the output leaves the band: between two failing designs, the nearer is the better start.
       excess: Math.max(0, band.lo - r.min, r.max - band.hi),
       cost: d.parts.reduce((n, p) => n + p.costCents, 0),

@@ -44,6 +44,18 @@ function busSpread(ctx: Context, vTarget: number): number {
 /** The post-regulator's dropout at the rail's full load (a resistive pass device drops less than its rated figure). */
 const postDropout = (cls: LinearRegulatorClass, iMax: number) => dropoutAt(cls, iMax);
 
+/**
+ * Price of each watt a post-regulator's dropout burns at full load, ¢/W: the larger package,
+ * copper and heat it brings (our weighting). Its dropout sets how far above the rail the bus sits.
+ */
+const POST_LOSS_CENTS_PER_W = 500;
+
+/**
+ * What a post-regulator class costs the design, ¢: its price and its dropout's loss at full load.
+ * A fixed order, so relaxing the rail can only move the choice to a class that costs less.
+ */
+const postRank = (cls: LinearRegulatorClass, iMax: number) => cls.costCents + POST_LOSS_CENTS_PER_W * postDropout(cls, iMax) * iMax;
+
 /** Headroom kept above the shortest on-time's lowest output (common practice: 20 %). */
 const ON_TIME_MARGIN = 1.2;
 
@@ -76,24 +88,17 @@ function busTarget(ctx: Context, aboveV: number, cls: LinearRegulatorClass, iMax
 const LOOSEST_TOLERANCE = 0.5;
 
 /**
- * The post-regulator class: of the classes that fit a nearby intermediate rail, the lowest dropout
+ * The post-regulator classes to try, best first: of the classes that fit a nearby intermediate rail, the lowest dropout
  * at full load (it wastes least) whose searched reference grade and divider hold the rail's
  * tolerance from that bus; the lowest dropout when none does. Also the highest output the class gives with its
  * cheapest grades, which the bus must clear by the dropout: a bound that tighter grades only
  * lower, so the bus does not get dearer when the rail's tolerance is relaxed.
  */
-function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: LinearRegulatorClass; vOutHigh: number } {
+function postRegulators(ctx: Context, vTarget: number, iMax: number): PostChoice[] {
   const { spec, catalog } = ctx;
-  const probe: StageInput = { vTrough: vTarget + 2.5, vMax: vTarget + 2.5, rippleVpp: 0, rippleIsHf: true };
-  const forcedCls = catalog.linearRegulators.find((c) => c.id === spec.overrides.linearClass);
-  const fitting = forcedCls
-    ? [forcedCls]
-    : catalog.linearRegulators
-        .filter(
-          (c) =>
-            checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget),
-        )
-        .sort((a, b) => postDropout(a, iMax) - postDropout(b, iMax));
+  // A nearby bus, never below the floor a buck's shortest on-time sets (off rectified mains it is well above the rail).
+  const vNear = Math.max(vTarget + 2.5, busFloor(ctx));
+  const probe: StageInput = { vTrough: vNear, vMax: vNear, rippleVpp: 0, rippleIsHf: true };
   const band = railBand(spec);
   const rule = spec.overrides.toleranceRule ?? 'statistical';
   const spread = busSpread(ctx, vTarget);
@@ -102,25 +107,69 @@ function postRegulator(ctx: Context, vTarget: number, iMax: number): { cls: Line
     const vBus = busTarget(ctx, band.hi - vTarget, cls, iMax);
     return { ...probe, vTrough: vBus * (1 - spread), vMax: vBus * (1 + spread) };
   };
+  const forcedCls = catalog.linearRegulators.find((c) => c.id === spec.overrides.linearClass);
+  const fitting = forcedCls
+    ? [forcedCls]
+    : catalog.linearRegulators
+        .filter(
+          (c) =>
+            checkClass(ctx, c, probe, vTarget, iMax).length === 0 && (c.kind !== 'fixed' || Math.abs(c.vRefV - vTarget) <= 0.005 * vTarget),
+        )
+        .sort((a, b) => postRank(a, iMax) - postRank(b, iMax));
   const loose = { ...ctx, spec: { ...spec, output: { ...spec.output, tolerance: LOOSEST_TOLERANCE } } };
   const holds = (output: ToleranceModel) => toleranceVerdict(analyseTolerance(output), band, rule, 0) !== 'fails';
-  let first: { cls: LinearRegulatorClass; vOutHigh: number } | null = null;
+  let first: PostChoice | null = null;
+  const held: { choice: PostChoice; rank: number }[] = [];
+  let bound = Number.POSITIVE_INFINITY;
   for (const cls of fitting) {
+    // In rank order a class's bare price and dropout bound what its finished stage can rank at.
+    if (postRank(cls, iMax) >= bound) break;
     // The cheapest grades often hold the rail already; only then is the graded search skipped.
-    const cheapest = regulatorStage(loose, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id).output;
-    const found = { cls, vOutHigh: extremeValues(cheapest).max };
-    if (holds(cheapest) || holds(regulatorStage(ctx, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id).output)) return found;
+    const cheapest = regulatorStage(loose, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id);
+    const found = { cls, vOutHigh: extremeValues(cheapest.output).max };
     first ??= found;
+    const graded = holds(cheapest.output) ? cheapest : regulatorStage(ctx, new Refs(), new Trace(), busRange(cls), vTarget, iMax, cls.id);
+    if (graded !== cheapest && !holds(graded.output)) continue;
+    const cents = graded.parts.reduce((sum, p) => sum + p.costCents, 0);
+    const rank = postRank({ ...cls, costCents: cents }, iMax);
+    held.push({ choice: found, rank });
+    bound = Math.min(bound, rank);
   }
-  return first ?? { cls: chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls, vOutHigh: band.hi };
+  if (held.length === 0) return [first ?? { cls: chooseRegulatorClass(ctx, probe, vTarget, iMax, undefined).cls, vOutHigh: band.hi }];
+  return held.sort((a, b) => a.rank - b.rank).map((h) => h.choice);
 }
 
+interface PostChoice {
+  cls: LinearRegulatorClass;
+  vOutHigh: number;
+}
+
+/**
+ * Post-regulator classes tried in turn: a class is chosen on an estimate of the bus, and the bus
+ * the switcher then makes (its ripple, its spread) can still push the rail past its band.
+ */
+const POST_REGULATOR_TRIES = 3;
+
 export function designSwitcherLinear(ctx: Context): Design {
+  const { spec } = ctx;
+  let first: Design | null = null;
+  let tries = 0;
+  for (const choice of postRegulators(ctx, spec.output.v, spec.output.iMax)) {
+    const built = buildHybrid(ctx, choice);
+    if (built.holds) return built.design;
+    first ??= built.design;
+    tries += 1;
+    if (tries >= POST_REGULATOR_TRIES) break;
+  }
+  return first!;
+}
+
+/** The whole design around one post-regulator class, and whether its output holds the rail's band. */
+function buildHybrid(ctx: Context, { cls, vOutHigh }: PostChoice): { design: Design; holds: boolean } {
   const { spec } = ctx;
   const trace = new Trace();
   const refs = new Refs();
   const { iMin, iTyp, iMax, v: vTarget } = spec.output;
-  const { cls, vOutHigh } = postRegulator(ctx, vTarget, iMax);
   const spread = busSpread(ctx, vTarget);
   const aboveV = Math.max(0, vOutHigh - vTarget);
   const vBusTarget = trace.add(
@@ -198,7 +247,7 @@ export function designSwitcherLinear(ctx: Context): Design {
     boost: 'Boost converter',
     'buck-boost': 'Four-switch buck-boost converter',
   };
-  return {
+  const design: Design = {
     topology: 'buck+linear',
     label: `${names[kind]} with linear post-regulator (${reg.cls.label})`,
     parts: [...pre.parts, ...reg.parts],
@@ -216,4 +265,8 @@ export function designSwitcherLinear(ctx: Context): Design {
       [`${reg.regRef}.psrrHf`]: { value: reg.cls.psrrHfDb, unit: 'dB' },
     },
   };
+  const band = railBand(spec);
+  const holds =
+    toleranceVerdict(analyseTolerance(reg.output), band, spec.overrides.toleranceRule ?? 'statistical', reg.rippleOutVpp / 2) !== 'fails';
+  return { design, holds };
 }

@@ -702,7 +702,7 @@ export function classesOf(catalog: Catalog, converter: SwitcherClass['converter'
 
 /** Fewest blockers first, then parts cost plus LOSS_CENTS_PER_W per watt lost at the nominal corner. */
 function searchKey(s: SizingBase): number[] {
-  return [s.findings.length, s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
+  return [s.findings.length + (s.missesBand ? 1 : 0), s.costCents + LOSS_CENTS_PER_W * s.nominalLossW];
 }
 
 /** What sizing one class at one frequency yields, common to every converter. */
@@ -720,6 +720,8 @@ export interface SizingBase {
   costCents: number;
   /** Loss at the nominal corner, W. */
   nominalLossW: number;
+  /** Once priced: no resistor grade holds the band beside this candidate's own ripple (a blocker the search counts). */
+  missesBand?: boolean;
 }
 
 /**
@@ -743,26 +745,55 @@ export function searchClasses<T extends SizingBase>(
   const rated = all.filter(fits);
   const pool = (rated.length > 0 ? rated : all).slice().sort((a, b) => a.costCents - b.costCents);
   const better = (key: number[]) => key[0]! < bestKey[0]! || (key[0] === bestKey[0] && key[1]! < bestKey[1]!);
+  // Classes where only the frequency stood in the way: too low for the capacitors, too high for the heat.
+  const retry: SwitcherClass[] = [];
+  const consider = (stage: SwitcherClass, fsw: number, extra: { value: number | null }): T => {
+    const raw = size(stage, fsw);
+    // What settling adds (the feedback grade, a tighter capacitor) never undercuts the raw sizing's figure.
+    if (!better(searchKey(raw))) return raw;
+    const s = settle(raw, stage, fsw);
+    const key = searchKey(s);
+    if (!better(key)) return s;
+    extra.value ??= penalty(stage);
+    key[0] = key[0]! + extra.value;
+    if (better(key)) {
+      best = s;
+      bestKey = key;
+    }
+    return s;
+  };
   for (const stage of pool) {
     if (bestKey[0] === 0 && stage.costCents >= bestKey[1]!) break;
     // The feedback check is worked out only for a candidate that would otherwise win.
-    let extra: number | null = null;
+    const extra = { value: null as number | null };
+    let frequencyBound = true;
     for (const fsw of fswCandidates(ctx, stage)) {
-      const raw = size(stage, fsw);
-      // What settling adds (the feedback grade, a tighter capacitor) never undercuts the raw sizing's figure.
-      if (!better(searchKey(raw))) continue;
-      const s = settle(raw, stage, fsw);
-      const key = searchKey(s);
-      if (!better(key)) continue;
-      extra ??= penalty(stage);
-      key[0] = key[0]! + extra;
-      if (better(key)) {
-        best = s;
-        bestKey = key;
-      }
+      const s = consider(stage, fsw, extra);
+      frequencyBound &&= s.findings.length > 0 && s.findings.every((f) => FREQUENCY_BOUND.has(f.issue.code));
+    }
+    if (frequencyBound) retry.push(stage);
+  }
+  // No clean design on the coarse steps: a window between two of them may still hold one.
+  if (bestKey[0]! > 0 && ctx.spec.overrides.fswHz === undefined) {
+    for (const stage of retry) {
+      const extra = { value: null as number | null };
+      for (const fsw of fswBetween(fswCandidates(ctx, stage))) consider(stage, fsw, extra);
     }
   }
   return best!;
+}
+
+/** Findings a different switching frequency can clear: capacitor size, heat, on- and off-times, duty, ripple current. */
+const FREQUENCY_BOUND = new Set(['capacitor', 'thermal', 'min-on-time', 'duty', 'headroom', 'load-step', 'current']);
+
+/** Geometric midpoints of neighbouring frequencies, rounded to two figures like the steps. */
+export function fswBetween(steps: readonly number[]): number[] {
+  const out: number[] = [];
+  for (let k = 1; k < steps.length; k += 1) {
+    const f = Number(Math.sqrt(steps[k - 1]! * steps[k]!).toPrecision(2));
+    if (!steps.includes(f) && !out.includes(f)) out.push(f);
+  }
+  return out;
 }
 
 /**
@@ -805,7 +836,7 @@ export function searchStage<T extends SizingBase>(
   const limitAt = (fsw: number) => stageRippleLimit(ctx, req.rippleLimit(fsw), req.allowPostFilter, req.vTarget);
   const priced = (s: T): T => {
     const grade = feedbackSearch(ctx, s.stage, stageFeedback(ctx, req, s.fsw, estimateOf(s)).need, {});
-    return { ...s, costCents: s.costCents + grade.extraCents };
+    return { ...s, costCents: s.costCents + grade.extraCents, missesBand: grade.verdict === 'fails' };
   };
   const settle = (raw: T, stage: SwitcherClass, fsw: number): T => {
     const first = priced(raw);

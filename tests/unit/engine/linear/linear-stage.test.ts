@@ -261,6 +261,25 @@ describe('the class search prices what a class draws for itself', () => {
     expect(standing).toBeLessThanOrEqual(0.05 * 0.0005);
   });
 
+  test('24 V → 3.3 V at 0.3 mA typical: a class whose own draw stays below its load, not the cheaper fixed regulator drawing 5 mA', () => {
+    const { option } = linearOption({
+      input: { vMin: 20, vNom: 24, vMax: 28, source: 'bus' },
+      output: { v: 3.3, tolerance: 0.05, iMin: 0.00001, iTyp: 0.0003, iMax: 0.001 },
+      noise: { class: 'digital' },
+      thermal,
+    });
+    expect(option.feasible).toBe(true);
+    const cls = classOf(option.components.find((c) => c.role === 'regulator')!.part);
+    const fixed = defaultCatalog.linearRegulators.find((c) => c.id === 'fixed-3v3')!;
+    expect(fixed.costCents).toBeLessThan(cls.costCents);
+    // Common practice: a regulator's quiescent current is small beside its load. The fixed class's
+    // 5 mA would be 17× the 0.3 mA load; at 28 V that is 140 mW for a 1 mW rail.
+    expect(fixed.iqA).toBeGreaterThan(0.0003);
+    const r1 = option.components.find((c) => c.role === 'feedback-lower');
+    const standing = cls.iqA + (r1 ? cls.vRefV / r1.value! : 0);
+    expect(standing).toBeLessThanOrEqual(0.0003);
+  });
+
   test('5 V → 2.048 V ±0.5 % at 1 mA: the 2.048 V series reference, one of the standard reference voltages (common practice)', () => {
     const { option } = linearOption({
       input: { vMin: 4.6, vNom: 5, vMax: 5.4, source: 'adapter' },
