@@ -2,7 +2,7 @@
 // searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { Refs, caution, type Design, type DesignPart, type PartStress } from '../design.ts';
+import { Refs, caution, operatingPoint, type Design, type DesignPart, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
@@ -408,7 +408,7 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
     assumptions: shared.stageAssumptions(uRef, stage, fsw, inductor, cout, false),
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
-      return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+      return operatingPoint(vIn < vOut && p.d <= window.dMax, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
     },
     faultStress,
   };

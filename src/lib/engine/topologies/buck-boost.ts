@@ -3,7 +3,7 @@
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, type Design, type PartStress } from '../design.ts';
+import { Refs, info, operatingPoint, type Design, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { cycleLosses, sumCycle } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
@@ -379,12 +379,7 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     point,
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
-      return {
-        regulates: p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax,
-        pInW: p.pInW,
-        pOutW: p.pOutW,
-        stress: stress(vIn, iOut, p),
-      };
+      return operatingPoint(p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
     },
     stress,
     faultStress,

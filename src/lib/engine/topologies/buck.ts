@@ -3,7 +3,7 @@
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, caution, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { Refs, info, caution, operatingPoint, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
@@ -421,7 +421,7 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   const window = dutyWindow(stage, fsw);
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = point(vIn, iOut);
-    return { regulates: p.d <= window.dMax && vIn > vOut, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+    return operatingPoint(p.d <= window.dMax && vIn > vOut, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
   };
   return {
     stage,
