@@ -103,7 +103,7 @@ function chooseFloatingClass(ctx: Context, iMax: number): LinearRegulatorClass {
   const forcedCls = adjustable.find((c) => c.id === ctx.spec.overrides.linearClass);
   return (
     forcedCls ??
-    adjustable.find((c) => iMax + dividerCurrent(c, iMax) <= CURRENT_DERATING * c.iOutMaxA) ??
+    adjustable.find((c) => iMax + dividerCurrent(ctx, c, ctx.spec.output.v, iMax, true) <= CURRENT_DERATING * c.iOutMaxA) ??
     adjustable.slice().sort((a, b) => b.iOutMaxA - a.iOutMaxA)[0] ??
     ctx.catalog.linearRegulators[0]!
   );
@@ -316,7 +316,7 @@ function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass 
   };
 
   const cls = chooseFloatingClass(ctx, iMax);
-  const iDiv = dividerCurrent(cls, iMax) * 1.5;
+  const iDiv = dividerCurrent(ctx, cls, vTarget, iMax, true) * 1.5;
   const iPathMax = iMax + iDiv + cls.iAdjMaxA;
 
   const qRef = refs.next('Q');
