@@ -5,6 +5,7 @@ import type { SeriesName } from '../eseries.ts';
 import { seriesRange, snap } from '../eseries.ts';
 import { formatSi } from '../units.ts';
 import { atLeast } from '../design.ts';
+import { TupleMemo } from '../tuple-memo.ts';
 import {
   analyseTolerance,
   relativeParam,
@@ -244,7 +245,7 @@ export interface DividerSearchResult {
 
 /** bestPair is pure, so its answers are kept across searches; the memo is emptied when it grows past this. */
 const PAIR_MEMO_SIZE = 512;
-const pairs = new Map<string, Readonly<Divider>>();
+const pairs = new TupleMemo<Readonly<Divider>>(PAIR_MEMO_SIZE);
 
 const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
@@ -282,21 +283,16 @@ function gradePool(all: readonly ResistorGrade[], series: SeriesName | undefined
 
 export function searchDivider(input: DividerSearchInput): DividerSearchResult {
   const pool = gradePool(input.grades, input.series);
-  // This search's pairs by series: its grades share a few series, and the shared memo's key is text.
+  // This search's pairs by series: its grades share a few series.
   const found = new Map<SeriesName, Readonly<Divider>>();
   const pairFor = (series: SeriesName) => {
     let pair = found.get(series);
     if (pair) return pair;
     // Several classes and topologies ask for the same divider: each distinct question is searched once.
-    const key = `${input.vTarget}|${input.vRef}|${input.iAdjTyp}|${input.iDividerMin}|${input.iDividerMax}|${series}|${input.r1Forced}|${input.r2Forced}`;
-    pair = pairs.get(key);
-    if (!pair) {
-      if (pairs.size >= PAIR_MEMO_SIZE) pairs.clear();
-      pair = Object.freeze(
-        bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced),
-      );
-      pairs.set(key, pair);
-    }
+    const { vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, r1Forced, r2Forced } = input;
+    pair = pairs.get([vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, series, r1Forced, r2Forced], () =>
+      Object.freeze(bestPair(vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, series, r1Forced, r2Forced)),
+    );
     found.set(series, pair);
     return pair;
   };

@@ -491,13 +491,24 @@ export function switcherRegulation(stage: SwitcherClass, need: FeedbackNeed): To
 function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, forcedR: { r1?: number; r2?: number }): DividerDesign {
   const { vTarget, band, load, input, dcrAfterFb, marginV } = need;
   const rule = need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical';
-  const key = `${stage.id}|${vTarget}|${band.lo}|${band.hi}|${load.iMin}|${load.iTyp}|${load.iMax}|${input.vTrough}|${input.vMax}|${dcrAfterFb}|${marginV}|${rule}|${ctx.ambientC}|${forcedR.r1}|${forcedR.r2}`;
-  let pick = ctx.dividerSearches.get(key);
-  if (!pick) {
-    pick = searchFeedback(ctx, stage, need, rule, forcedR);
-    ctx.dividerSearches.set(key, pick);
-  }
-  return pick;
+  const key = [
+    stage.id,
+    vTarget,
+    band.lo,
+    band.hi,
+    load.iMin,
+    load.iTyp,
+    load.iMax,
+    input.vTrough,
+    input.vMax,
+    dcrAfterFb,
+    marginV,
+    rule,
+    ctx.ambientC,
+    forcedR.r1,
+    forcedR.r2,
+  ];
+  return ctx.dividerSearches.get(key, () => searchFeedback(ctx, stage, need, rule, forcedR));
 }
 
 function searchFeedback(
