@@ -3,6 +3,7 @@ import type { RailSpec } from './rail-spec.ts';
 import type { Catalog } from './catalog.ts';
 import { enclosureRise } from './thermal.ts';
 import type { DividerDesign } from './topologies/feedback.ts';
+import { TupleMemo } from './tuple-memo.ts';
 
 export interface Context {
   spec: RailSpec;
@@ -20,7 +21,7 @@ export interface Context {
    * Divider searches already done in this evaluation, by question: a converter's class search asks
    * the same one for every frequency and again when pricing and settling a candidate.
    */
-  dividerSearches: Map<string, DividerDesign>;
+  dividerSearches: TupleMemo<DividerDesign>;
 }
 
 export function makeContext(spec: RailSpec, catalog: Catalog): Context {
@@ -31,7 +32,7 @@ export function makeContext(spec: RailSpec, catalog: Catalog): Context {
     vInTrough: spec.input.vMin - spec.input.rippleVpp / 2,
     roomC,
     ambientC: roomC + (enclosureRise(spec, 0)?.riseK ?? 0),
-    dividerSearches: new Map(),
+    dividerSearches: new TupleMemo(),
   };
 }
 

@@ -13,10 +13,32 @@ export interface PartStress {
 
 export interface OperatingPoint {
   /** False where the circuit cannot regulate at this input and load (dropout, duty limit). */
-  regulates: boolean;
-  pInW: number;
-  pOutW: number;
-  stress: Record<string, PartStress>;
+  readonly regulates: boolean;
+  readonly pInW: number;
+  readonly pOutW: number;
+  readonly stress: Record<string, PartStress>;
+}
+
+/**
+ * An operating point whose part stresses are worked out on first reading: the charts' many points
+ * need only the powers, the corners need the stresses too.
+ */
+class PointWithLazyStress implements OperatingPoint {
+  private worked: Record<string, PartStress> | null = null;
+  constructor(
+    readonly regulates: boolean,
+    readonly pInW: number,
+    readonly pOutW: number,
+    private readonly work: () => Record<string, PartStress>,
+  ) {}
+  get stress(): Record<string, PartStress> {
+    this.worked ??= this.work();
+    return this.worked;
+  }
+}
+
+export function operatingPoint(regulates: boolean, pInW: number, pOutW: number, stress: () => Record<string, PartStress>): OperatingPoint {
+  return new PointWithLazyStress(regulates, pInW, pOutW, stress);
 }
 
 export interface DesignPart extends Component {

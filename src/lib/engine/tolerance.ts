@@ -132,7 +132,25 @@ export interface ToleranceSummary {
   /** mean ± 3σ, never wider than the worst case. */
   statistical: { min: number; max: number };
   /** Each parameter's half-swing of the output, largest first: what to tighten. */
-  contributions: { name: string; halfSwing: number }[];
+  readonly contributions: { name: string; halfSwing: number }[];
+}
+
+/** A summary whose ranked contributions are listed on first reading: a search reads them only for the design it keeps. */
+class Summary implements ToleranceSummary {
+  private ranked: { name: string; halfSwing: number }[] | null = null;
+  constructor(
+    readonly nominal: number,
+    readonly worstCase: { min: number; max: number },
+    readonly mean: number,
+    readonly sigma: number,
+    readonly statistical: { min: number; max: number },
+    private readonly params: readonly ToleranceParam[],
+    private readonly halfSwings: Float64Array,
+  ) {}
+  get contributions(): { name: string; halfSwing: number }[] {
+    this.ranked ??= this.params.map((p, j) => ({ name: p.name, halfSwing: this.halfSwings[j]! })).sort((a, b) => b.halfSwing - a.halfSwing);
+    return this.ranked;
+  }
 }
 
 /**
@@ -146,7 +164,7 @@ export function analyseTolerance(model: ToleranceModel): ToleranceSummary {
   const x = new Float64Array(n);
   for (let j = 0; j < n; j += 1) x[j] = (model.params[j]!.lo + model.params[j]!.hi) / 2;
   const mean = model.f(x);
-  const contributions: { name: string; halfSwing: number }[] = [];
+  const halfSwings = new Float64Array(n);
   let variance = 0;
   for (let j = 0; j < n; j += 1) {
     const p = model.params[j]!;
@@ -156,20 +174,20 @@ export function analyseTolerance(model: ToleranceModel): ToleranceSummary {
     x[j] = p.lo;
     const half = Math.abs(up - model.f(x)) / 2;
     x[j] = centre;
-    contributions.push({ name: p.name, halfSwing: half });
+    halfSwings[j] = half;
     // A uniform band of half-width a has σ = a/√3.
     variance += (half * half) / 3;
   }
-  contributions.sort((a, b) => b.halfSwing - a.halfSwing);
   const sigma = Math.sqrt(variance);
-  return {
-    nominal: nominalValue(model),
+  return new Summary(
+    nominalValue(model),
     worstCase,
     mean,
     sigma,
-    statistical: { min: Math.max(worstCase.min, mean - SIGMA_LIMIT * sigma), max: Math.min(worstCase.max, mean + SIGMA_LIMIT * sigma) },
-    contributions,
-  };
+    { min: Math.max(worstCase.min, mean - SIGMA_LIMIT * sigma), max: Math.min(worstCase.max, mean + SIGMA_LIMIT * sigma) },
+    model.params,
+    halfSwings,
+  );
 }
 
 /** Which view puts the output inside the band: the worst case, only the 3σ interval (when the rule allows it), or neither. */

@@ -2,7 +2,7 @@
 // searched; inductor and capacitors are sized for each.
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { Refs, caution, type Design, type DesignPart, type PartStress } from '../design.ts';
+import { Refs, caution, operatingPoint, type Design, type DesignPart, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { boostDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
@@ -27,6 +27,7 @@ import {
   railRequest,
   voltageFits,
   type ConverterStage,
+  type Finding,
   type StageRequest,
   type SizingBase,
   type StageRefs,
@@ -146,6 +147,21 @@ interface BoostSizing extends SizingBase {
   point(vIn: number, iOut: number): BoostPoint;
 }
 
+/** The class's ratings and ranges against the rail, and whether it can step up at all: the same at every frequency. */
+function boostClassFindings(stage: SwitcherClass, input: { vTrough: number; vMax: number }, vOut: number): Finding[] {
+  // The switch node sits at the regulated output plus the rectifier's drop.
+  const findings = classVoltageFindings(stage, input.vMax, input.vTrough, vOut, vOut + stage.diodeVfV, stage.vOutMaxV);
+  if (input.vMax >= vOut)
+    findings.push(
+      finding(
+        'step-up-only',
+        `A boost stage cannot regulate when the input (up to ${input.vMax} V) reaches the output ${vOut.toFixed(2)} V.`,
+        'a buck-boost stage, or an input that stays below the output',
+      ),
+    );
+  return findings;
+}
+
 function sizeBoost(
   ctx: Context,
   r: StageRefs,
@@ -169,17 +185,7 @@ function sizeBoost(
   const low = point(vLow, iMax);
   const high = point(vMax, iMax);
 
-  // The switch node sits at the regulated output plus the rectifier's drop.
-  const switchNodeV = vOut + stage.diodeVfV;
-  const findings = classVoltageFindings(stage, vMax, vLow, vOut, switchNodeV, stage.vOutMaxV);
-  if (vMax >= vOut)
-    findings.push(
-      finding(
-        'step-up-only',
-        `A boost stage cannot regulate when the input (up to ${vMax} V) reaches the output ${vOut.toFixed(2)} V.`,
-        'a buck-boost stage, or an input that stays below the output',
-      ),
-    );
+  const findings = boostClassFindings(stage, input, vOut);
   findings.push(
     ...shared.commonFindings(
       ctx,
@@ -256,7 +262,10 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
     req,
     'boost',
     (r, stage, fsw, limit) => sizeBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
-    (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV),
+    {
+      fits: (stage) => voltageFits(stage, vMax, vTarget + stage.diodeVfV),
+      fixedFindings: (stage) => boostClassFindings(stage, input, vTarget).length,
+    },
     (sized) => boostRipple(iMax, sized.low.d, sized.low.peakA, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
   );
   const { stage, fsw, inductor, cout, cin, low } = s;
@@ -408,7 +417,7 @@ export function boostStage(ctx: Context, refs: Refs, trace: Trace, req: StageReq
     assumptions: shared.stageAssumptions(uRef, stage, fsw, inductor, cout, false),
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
-      return { regulates: vIn < vOut && p.d <= window.dMax, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+      return operatingPoint(vIn < vOut && p.d <= window.dMax, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
     },
     faultStress,
   };

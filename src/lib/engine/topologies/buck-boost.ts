@@ -3,7 +3,7 @@
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, type Design, type PartStress } from '../design.ts';
+import { Refs, info, operatingPoint, type Design, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { cycleLosses, sumCycle } from './switcher-losses.ts';
 import { Trace } from '../trace.ts';
@@ -30,6 +30,7 @@ import {
   railRequest,
   voltageFits,
   type ConverterStage,
+  type Finding,
   type StageRequest,
   type SizingBase,
   type StageRefs,
@@ -165,6 +166,14 @@ interface BuckBoostSizing extends SizingBase {
   point(vIn: number, iOut: number): BuckBoostPoint;
 }
 
+/** The switch nodes swing to the higher of the input and the output (with 5 % for overshoot). */
+const switchNodeV = (vMax: number, vOut: number) => Math.max(vMax, vOut * 1.05);
+
+/** The class's ratings and ranges against the rail: the same at every frequency. */
+function buckBoostClassFindings(stage: SwitcherClass, input: { vTrough: number; vMax: number }, vOut: number): Finding[] {
+  return classVoltageFindings(stage, input.vMax, input.vTrough, vOut, switchNodeV(input.vMax, vOut), stage.vOutMaxV);
+}
+
 function sizeBuckBoost(
   ctx: Context,
   r: StageRefs,
@@ -192,7 +201,7 @@ function sizeBuckBoost(
   const high = point(vMax, iMax);
 
   const findings = [
-    ...classVoltageFindings(stage, vMax, vLow, vOut, Math.max(vMax, vOut * 1.05), stage.vOutMaxV),
+    ...buckBoostClassFindings(stage, input, vOut),
     ...shared.commonFindings(
       ctx,
       base,
@@ -267,7 +276,10 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     req,
     'buck-boost',
     (r, stage, fsw, limit) => sizeBuckBoost(ctx, r, stage, fsw, input, vTarget, load, limit),
-    (stage) => voltageFits(stage, input.vMax, Math.max(input.vMax, vTarget * 1.05)),
+    {
+      fits: (stage) => voltageFits(stage, input.vMax, switchNodeV(input.vMax, vTarget)),
+      fixedFindings: (stage) => buckBoostClassFindings(stage, input, vTarget).length,
+    },
     (sized) =>
       Math.max(
         buckBoostRipple(sized.low, load.iMax, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
@@ -379,12 +391,7 @@ export function buckBoostStage(ctx: Context, refs: Refs, trace: Trace, req: Stag
     point,
     operate: (vIn, iOut) => {
       const p = point(vIn, iOut);
-      return {
-        regulates: p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax,
-        pInW: p.pInW,
-        pOutW: p.pOutW,
-        stress: stress(vIn, iOut, p),
-      };
+      return operatingPoint(p.boost ? p.dBoost <= window.dMax : p.dBuck <= window.dMax, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
     },
     stress,
     faultStress,

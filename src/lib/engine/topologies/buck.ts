@@ -3,7 +3,7 @@
 import type { SwitcherClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import type { ChosenCapacitor } from '../capacitors.ts';
-import { Refs, info, caution, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
+import { Refs, info, caution, operatingPoint, type Design, type DesignPart, type OperatingPoint, type PartStress } from '../design.ts';
 import { coreLossW, type ChosenInductor } from '../inductors.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR, TRANSISTOR_V, pickFromLadder } from '../ratings.ts';
 import { buckDcmDuty, burstShare, conductionMode, cycleLosses, sumCycle, type ConductionMode } from './switcher-losses.ts';
@@ -153,6 +153,11 @@ export interface BuckSizing extends SizingBase {
   point(vIn: number, iOut: number): BuckPoint;
 }
 
+/** The class's ratings and ranges against the rail: the same at every frequency. */
+function buckClassFindings(stage: SwitcherClass, input: { vTrough: number; vMax: number }, vOut: number): Finding[] {
+  return classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV);
+}
+
 /** Sizes one class at one frequency: inductor for the ripple, capacitors, and every limit check. */
 export function sizeBuck(
   ctx: Context,
@@ -175,7 +180,7 @@ export function sizeBuck(
   const low = point(input.vTrough, load.iMax);
 
   const findings: Finding[] = [
-    ...classVoltageFindings(stage, input.vMax, input.vTrough, vOut, input.vMax, stage.vInMaxV),
+    ...buckClassFindings(stage, input, vOut),
     ...shared.commonFindings(
       ctx,
       base,
@@ -247,7 +252,10 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
     req,
     'buck',
     (r, stage, fsw, limit) => sizeBuck(ctx, r, stage, fsw, input, vTarget, load, limit),
-    (stage) => voltageFits(stage, input.vMax, input.vMax),
+    {
+      fits: (stage) => voltageFits(stage, input.vMax, input.vMax),
+      fixedFindings: (stage) => buckClassFindings(stage, input, vTarget).length,
+    },
     (sized) => buckRipple(sized.high.rippleA, sized.fsw, sized.cout.effectiveF, sized.cout.esrOhm),
   );
   const { stage, fsw, inductor, cout, cin, high } = s;
@@ -421,7 +429,7 @@ export function buckStage(ctx: Context, refs: Refs, trace: Trace, req: StageRequ
   const window = dutyWindow(stage, fsw);
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = point(vIn, iOut);
-    return { regulates: p.d <= window.dMax && vIn > vOut, pInW: p.pInW, pOutW: p.pOutW, stress: stress(vIn, iOut, p) };
+    return operatingPoint(p.d <= window.dMax && vIn > vOut, p.pInW, p.pOutW, () => stress(vIn, iOut, p));
   };
   return {
     stage,

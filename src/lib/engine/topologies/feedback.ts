@@ -5,6 +5,7 @@ import type { SeriesName } from '../eseries.ts';
 import { seriesRange, snap } from '../eseries.ts';
 import { formatSi } from '../units.ts';
 import { atLeast } from '../design.ts';
+import { TupleMemo } from '../tuple-memo.ts';
 import {
   analyseTolerance,
   relativeParam,
@@ -87,11 +88,23 @@ export function dividerOutputModel(vRef: number, divider: Divider, spread: Divid
       const [u0, u1, u2, u3, u4] = u as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
       const [l0, l1, l2, l3, l4] = lo as unknown as [number, number, number, number, number];
       const [s0, s1, s2, s3, s4] = span as unknown as [number, number, number, number, number];
-      for (let i = 0; i < out.length; i += 1) {
-        const r2 = l3 + s3 * u3[i]!;
-        out[i] = (l0 + s0 * u0[i]!) * (l1 + s1 * u1[i]!) * (1 + r2 / (l2 + s2 * u2[i]!)) + (l4 + s4 * u4[i]!) * r2;
+      // Line and load regulation, the usual two further factors, ride in the same pass.
+      const fused = n >= 7 ? 7 : 5;
+      if (fused === 7) {
+        const [u5, u6] = [u[5]!, u[6]!];
+        const [l5, l6, s5, s6] = [lo[5]!, lo[6]!, span[5]!, span[6]!];
+        for (let i = 0; i < out.length; i += 1) {
+          const r2 = l3 + s3 * u3[i]!;
+          const v = (l0 + s0 * u0[i]!) * (l1 + s1 * u1[i]!) * (1 + r2 / (l2 + s2 * u2[i]!)) + (l4 + s4 * u4[i]!) * r2;
+          out[i] = v * (l5 + s5 * u5[i]!) * (l6 + s6 * u6[i]!);
+        }
+      } else {
+        for (let i = 0; i < out.length; i += 1) {
+          const r2 = l3 + s3 * u3[i]!;
+          out[i] = (l0 + s0 * u0[i]!) * (l1 + s1 * u1[i]!) * (1 + r2 / (l2 + s2 * u2[i]!)) + (l4 + s4 * u4[i]!) * r2;
+        }
       }
-      for (let j = 5; j < n; j += 1) {
+      for (let j = fused; j < n; j += 1) {
         const column = u[j]!;
         const l = lo[j]!;
         const s = span[j]!;
@@ -232,7 +245,7 @@ export interface DividerSearchResult {
 
 /** bestPair is pure, so its answers are kept across searches; the memo is emptied when it grows past this. */
 const PAIR_MEMO_SIZE = 512;
-const pairs = new Map<string, Readonly<Divider>>();
+const pairs = new TupleMemo<Readonly<Divider>>(PAIR_MEMO_SIZE);
 
 const pct = (x: number) => `±${Number((x * 100).toPrecision(2))} %`;
 
@@ -270,17 +283,17 @@ function gradePool(all: readonly ResistorGrade[], series: SeriesName | undefined
 
 export function searchDivider(input: DividerSearchInput): DividerSearchResult {
   const pool = gradePool(input.grades, input.series);
+  // This search's pairs by series: its grades share a few series.
+  const found = new Map<SeriesName, Readonly<Divider>>();
   const pairFor = (series: SeriesName) => {
+    let pair = found.get(series);
+    if (pair) return pair;
     // Several classes and topologies ask for the same divider: each distinct question is searched once.
-    const key = `${input.vTarget}|${input.vRef}|${input.iAdjTyp}|${input.iDividerMin}|${input.iDividerMax}|${series}|${input.r1Forced}|${input.r2Forced}`;
-    let pair = pairs.get(key);
-    if (!pair) {
-      if (pairs.size >= PAIR_MEMO_SIZE) pairs.clear();
-      pair = Object.freeze(
-        bestPair(input.vTarget, input.vRef, input.iAdjTyp, input.iDividerMin, input.iDividerMax, series, input.r1Forced, input.r2Forced),
-      );
-      pairs.set(key, pair);
-    }
+    const { vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, r1Forced, r2Forced } = input;
+    pair = pairs.get([vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, series, r1Forced, r2Forced], () =>
+      Object.freeze(bestPair(vTarget, vRef, iAdjTyp, iDividerMin, iDividerMax, series, r1Forced, r2Forced)),
+    );
+    found.set(series, pair);
     return pair;
   };
   const design = (grade: ResistorGrade, ref: ReferenceGrade): DividerDesign => {

@@ -15,6 +15,7 @@ import {
   caution,
   info,
   makePart,
+  operatingPoint,
   resistorPart,
   type Design,
   type Fix,
@@ -102,7 +103,7 @@ function chooseFloatingClass(ctx: Context, iMax: number): LinearRegulatorClass {
   const forcedCls = adjustable.find((c) => c.id === ctx.spec.overrides.linearClass);
   return (
     forcedCls ??
-    adjustable.find((c) => iMax + dividerCurrent(c, iMax) <= CURRENT_DERATING * c.iOutMaxA) ??
+    adjustable.find((c) => iMax + dividerCurrent(ctx, c, ctx.spec.output.v, iMax, true) <= CURRENT_DERATING * c.iOutMaxA) ??
     adjustable.slice().sort((a, b) => b.iOutMaxA - a.iOutMaxA)[0] ??
     ctx.catalog.linearRegulators[0]!
   );
@@ -315,7 +316,7 @@ function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass 
   };
 
   const cls = chooseFloatingClass(ctx, iMax);
-  const iDiv = dividerCurrent(cls, iMax) * 1.5;
+  const iDiv = dividerCurrent(ctx, cls, vTarget, iMax, true) * 1.5;
   const iPathMax = iMax + iDiv + cls.iAdjMaxA;
 
   const qRef = refs.next('Q');
@@ -756,26 +757,29 @@ function designWith(ctx: Context, dev: PassDeviceClass, source: PassDeviceClass 
   };
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = pathCurrent(vIn, iOut);
-    const s: Record<string, PartStress> = stage.stress(regInMax - p.i * rs, iOut);
     const vReg = Math.max(0, vs - p.i * rs);
-    const vce = Math.max(0, vIn - regInMax);
     const vRb = Math.max(0, vIn - vOut - vz);
     const iFb = folds ? regInMax / (ra + rbf) : 0;
-    s[regRef] = { w: vReg * p.i, v: vReg };
-    s[qRef] = { w: vce * (p.i + iFb), v: vIn - vOut };
-    s[rsRef] = { w: p.i * p.i * rs, v: p.i * rs };
-    s[rbRef] = { w: feed.resistorW(vRb), v: Math.min(vRb, feed.most(vRb) * rb) };
-    if (source) s[srcRef] = { w: feed.sourceW(vRb), v: vRb };
-    s[dzRef] = { w: vz * p.iz, v: vz };
-    divide(s, regInMax);
-    s[q2Ref] = { w: 0, v: vz };
-    s[cinHv.part.ref] = { w: 0, v: vIn };
-    return {
-      regulates: feed.least(vRb) >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDivActual,
-      pInW: vIn * (p.i - p.ib + p.iRb + iFb),
-      pOutW: vOut * iOut,
-      stress: s,
+    const stress = () => {
+      const s: Record<string, PartStress> = stage.stress(regInMax - p.i * rs, iOut);
+      const vce = Math.max(0, vIn - regInMax);
+      s[regRef] = { w: vReg * p.i, v: vReg };
+      s[qRef] = { w: vce * (p.i + iFb), v: vIn - vOut };
+      s[rsRef] = { w: p.i * p.i * rs, v: p.i * rs };
+      s[rbRef] = { w: feed.resistorW(vRb), v: Math.min(vRb, feed.most(vRb) * rb) };
+      if (source) s[srcRef] = { w: feed.sourceW(vRb), v: vRb };
+      s[dzRef] = { w: vz * p.iz, v: vz };
+      divide(s, regInMax);
+      s[q2Ref] = { w: 0, v: vz };
+      s[cinHv.part.ref] = { w: 0, v: vIn };
+      return s;
     };
+    return operatingPoint(
+      feed.least(vRb) >= p.ib + zener.kneeCurrentA && vReg >= cls.dropoutV && p.iz <= iOut + iDivActual,
+      vIn * (p.i - p.ib + p.iRb + iFb),
+      vOut * iOut,
+      stress,
+    );
   };
   const faultStress: Record<string, PartStress> = stage.faultStress(vs);
   const vRegFault = Math.max(0, vs - iFault * rs);

@@ -1,6 +1,6 @@
 // Three-terminal linear regulator straight from the input.
 import type { Context } from '../context.ts';
-import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
+import { Refs, info, operatingPoint, type Design, type OperatingPoint } from '../design.ts';
 import { Trace } from '../trace.ts';
 import { inputRippleHz } from './regulator-noise.ts';
 import { dropoutAt, regulatorStage } from './regulator-stage.ts';
@@ -53,12 +53,9 @@ export function designLinear(ctx: Context): Design {
 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const iIn = stage.inputCurrent(iOut);
-    return {
-      regulates: vIn >= stage.vOut + dropoutAt(stage.cls, iIn - stage.cls.iqA),
-      pInW: vIn * iIn,
-      pOutW: stage.vOut * iOut,
-      stress: stage.stress(vIn, iOut),
-    };
+    return operatingPoint(vIn >= stage.vOut + dropoutAt(stage.cls, iIn - stage.cls.iqA), vIn * iIn, stage.vOut * iOut, () =>
+      stage.stress(vIn, iOut),
+    );
   };
   const fault: OperatingPoint = {
     regulates: false,

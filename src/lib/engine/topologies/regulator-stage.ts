@@ -41,6 +41,14 @@ export const DIVIDER_MIN_A = 100e-6;
 const DIVIDER_BIAS_RATIO = 1000;
 /** On a light load the divider takes no more than this share of the load current (battery practice). */
 const DIVIDER_LOAD_SHARE = 0.05;
+/**
+ * A divider that would dissipate more than this carrying the class's whole minimum load is a
+ * high-voltage divider, sized by its power and the adjust-pin error instead (common practice: a
+ * quarter-watt is what a divider of ordinary resistors carries without a power rating of its own).
+ */
+export const DIVIDER_POWER_W = 0.25;
+/** Share of the output band the adjust-pin current's spread may take in a high-voltage divider (common practice: error budget). */
+export const ADJUST_ERROR_SHARE = 0.25;
 /** The divider's current is searched up to this multiple of its minimum (more would only waste power). */
 const DIVIDER_SPAN = 1.5;
 /** A regulator is loaded to at most 90 % of its rated current, leaving room for the current limit's spread (common practice). */
@@ -77,9 +85,24 @@ export function dropoutAt(cls: LinearRegulatorClass, iPass: number): number {
   return Math.min(cls.dropoutV, Math.max(scaling.floorV, (cls.dropoutV * iPass) / cls.iOutMaxA));
 }
 
-/** Divider current: enough to swamp the feedback-pin current, never much of a light load, at least the class's minimum load. */
-export function dividerCurrent(cls: LinearRegulatorClass, iLoadMax: number): number {
-  return Math.max(cls.minLoadA, Math.min(DIVIDER_MIN_A, DIVIDER_BIAS_RATIO * cls.iAdjMaxA, Math.max(1e-6, DIVIDER_LOAD_SHARE * iLoadMax)));
+/**
+ * Least divider current for an output of vOut: enough to swamp the feedback-pin current, never
+ * much of a light load, and the class's minimum load, so the regulator holds its output with the
+ * load disconnected (common practice). Where carrying that minimum load would dissipate more than
+ * DIVIDER_POWER_W (a high-voltage output), the rail's own least load counts towards it and the
+ * divider carries only the rest, but enough that the adjust pin's current spread moves the output
+ * by no more than ADJUST_ERROR_SHARE of the band: with Vout ≈ Vref·R2/R1 + Iadj·R2 and R2 ≈ Vout/I,
+ * a spread ΔIadj moves it by ±(ΔIadj/2)/I of itself (the adjust-pin term of the regulator's
+ * output equation, as in the classic adjustable regulator's application notes — from memory).
+ * A floating stage (a pre-drop's) keeps the whole minimum load in its divider: its standoff
+ * Zener's feed also flows into the output and must be absorbed there.
+ */
+export function dividerCurrent(ctx: Context, cls: LinearRegulatorClass, vOut: number, iLoadMax: number, floating = false): number {
+  const bias = Math.min(DIVIDER_MIN_A, DIVIDER_BIAS_RATIO * cls.iAdjMaxA, Math.max(1e-6, DIVIDER_LOAD_SHARE * iLoadMax));
+  if (floating || vOut * cls.minLoadA <= DIVIDER_POWER_W) return Math.max(cls.minLoadA, bias);
+  const { iMin, tolerance } = ctx.spec.output;
+  const adjust = cls.iAdjMaxA / (2 * ADJUST_ERROR_SHARE * Math.max(tolerance, 1e-6));
+  return Math.max(bias, cls.minLoadA - iMin, adjust);
 }
 
 /**
@@ -95,7 +118,7 @@ export function checkClass(
   vOutHigh = vOut,
 ): Issue[] {
   const out: Issue[] = [];
-  const iDiv = cls.kind === 'fixed' ? 0 : dividerCurrent(cls, iMax);
+  const iDiv = cls.kind === 'fixed' ? 0 : dividerCurrent(ctx, cls, vOut, iMax, input.tracksOutput);
   if (iMax + iDiv > CURRENT_DERATING * cls.iOutMaxA) {
     out.push(
       blocker(
@@ -282,7 +305,7 @@ function designClass(
     refTolerance = chosen!.tol;
     extraCents = chosen!.cents;
   } else {
-    const iDivMin = dividerCurrent(cls, iMax);
+    const iDivMin = dividerCurrent(ctx, cls, vTarget, iMax, input.tracksOutput);
     const series = spec.overrides.resistorSeries;
     const search = searchDivider({
       vTarget,

@@ -4,7 +4,18 @@
 import type { ShuntReference } from '../catalog.ts';
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { Refs, atLeast, blocker, info, makePart, resistorPart, type Design, type Fix, type OperatingPoint } from '../design.ts';
+import {
+  Refs,
+  atLeast,
+  blocker,
+  info,
+  makePart,
+  operatingPoint,
+  resistorPart,
+  type Design,
+  type Fix,
+  type OperatingPoint,
+} from '../design.ts';
 import { snap } from '../eseries.ts';
 import { RATING_FACTOR } from '../ratings.ts';
 import { temperatureSwingK } from '../tolerance.ts';
@@ -180,17 +191,12 @@ export function designShuntReference(ctx: Context, ref: ShuntReference): Design 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const s = solve(vIn, iOut);
     const vRs = Math.max(0, vIn - s.vOut);
-    return {
-      regulates: s.ik >= ref.iKMinA * 0.999,
-      pInW: vIn * s.iSeries,
-      pOutW: s.vOut * iOut,
-      stress: {
-        [rsRef]: { w: vRs * s.iSeries, v: vRs },
-        [uRef]: { w: Math.max(0, s.ik) * s.vOut, v: s.vOut },
-        [r1Ref]: { w: (ref.vRefV * ref.vRefV) / d.r1, v: ref.vRefV },
-        [r2Ref]: { w: Math.max(0, d.vOut - ref.vRefV) ** 2 / d.r2, v: Math.max(0, d.vOut - ref.vRefV) },
-      },
-    };
+    return operatingPoint(s.ik >= ref.iKMinA * 0.999, vIn * s.iSeries, s.vOut * iOut, () => ({
+      [rsRef]: { w: vRs * s.iSeries, v: vRs },
+      [uRef]: { w: Math.max(0, s.ik) * s.vOut, v: s.vOut },
+      [r1Ref]: { w: (ref.vRefV * ref.vRefV) / d.r1, v: ref.vRefV },
+      [r2Ref]: { w: Math.max(0, d.vOut - ref.vRefV) ** 2 / d.r2, v: Math.max(0, d.vOut - ref.vRefV) },
+    }));
   };
   const fault: OperatingPoint = {
     regulates: false,

@@ -1,7 +1,7 @@
 // Series resistor feeding a Zener that holds the rail.
 import type { Context } from '../context.ts';
 import { forced } from '../context.ts';
-import { Refs, atLeast, blocker, info, makePart, resistorPart, type Design, type OperatingPoint } from '../design.ts';
+import { Refs, atLeast, blocker, info, makePart, operatingPoint, resistorPart, type Design, type OperatingPoint } from '../design.ts';
 import { snap } from '../eseries.ts';
 import { Trace } from '../trace.ts';
 import type { Issue } from '../types.ts';
@@ -184,12 +184,10 @@ function designZenerShunt(ctx: Context): Design {
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const s = solveShunt(vIn, iOut, rs, vKnee, rz);
     const vRs = vIn - s.vOut;
-    return {
-      regulates: s.iZener > 0,
-      pInW: vIn * s.iSeries,
-      pOutW: s.vOut * iOut,
-      stress: { [rsRef]: { w: vRs * s.iSeries, v: vRs }, [dzRef]: { w: s.vOut * s.iZener, v: s.vOut } },
-    };
+    return operatingPoint(s.iZener > 0, vIn * s.iSeries, s.vOut * iOut, () => ({
+      [rsRef]: { w: vRs * s.iSeries, v: vRs },
+      [dzRef]: { w: s.vOut * s.iZener, v: s.vOut },
+    }));
   };
   const fault: OperatingPoint = {
     regulates: false,

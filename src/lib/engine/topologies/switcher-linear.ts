@@ -5,7 +5,7 @@
 // four-switch buck-boost where it straddles it (a quiet rail from one Li-ion cell).
 import type { LinearRegulatorClass } from '../catalog.ts';
 import type { Context } from '../context.ts';
-import { Refs, info, type Design, type OperatingPoint } from '../design.ts';
+import { Refs, info, operatingPoint, type Design, type OperatingPoint } from '../design.ts';
 import { analyseTolerance, extremeValues, toleranceVerdict, type ToleranceModel } from '../tolerance.ts';
 import { SEMICONDUCTOR_VOLTAGE_FACTOR } from '../ratings.ts';
 import { Trace } from '../trace.ts';
@@ -239,7 +239,7 @@ function buildHybrid(ctx: Context, { cls, vOutHigh }: PostChoice): { design: Des
 
   const operate = (vIn: number, iOut: number): OperatingPoint => {
     const p = pre.operate(vIn, reg.inputCurrent(iOut));
-    return { regulates: p.regulates, pInW: p.pInW, pOutW: reg.vOut * iOut, stress: Object.assign(p.stress, reg.stress(pre.vOut, iOut)) };
+    return operatingPoint(p.regulates, p.pInW, reg.vOut * iOut, () => Object.assign(p.stress, reg.stress(pre.vOut, iOut)));
   };
   const shorted = pre.operate(spec.input.vMax, reg.cls.iLimitA);
   const names: Record<PreRegulatorKind, string> = {

@@ -22,6 +22,7 @@ import {
   traceRds,
   traceStep,
   stageRefs,
+  type ClassScreen,
   type FeedbackParts,
   type Finding,
   type PostFilter,
@@ -59,11 +60,11 @@ export function setupStage<T extends SizingBase>(
   req: StageRequest,
   converter: SwitcherClass['converter'],
   size: (r: StageRefs, stage: SwitcherClass, fsw: number, rippleLimit: number) => T,
-  fits: (stage: SwitcherClass) => boolean,
+  screen: ClassScreen,
   estimateOf: (s: T) => number,
 ): StageSetup<T> {
   const r = stageRefs(refs);
-  const s = searchStage(ctx, req, converter, (stage, fsw, limit) => size(r, stage, fsw, limit), fits, estimateOf);
+  const s = searchStage(ctx, req, converter, (stage, fsw, limit) => size(r, stage, fsw, limit), screen, estimateOf);
   const { filtered, need } = stageFeedback(ctx, req, s.fsw, estimateOf(s));
   const fb = switcherFeedback(ctx, r, trace, s.stage, need, req.idPrefix);
   const { issues, fixes } = sizingIssues(s);

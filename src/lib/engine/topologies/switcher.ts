@@ -491,13 +491,24 @@ export function switcherRegulation(stage: SwitcherClass, need: FeedbackNeed): To
 function feedbackSearch(ctx: Context, stage: SwitcherClass, need: FeedbackNeed, forcedR: { r1?: number; r2?: number }): DividerDesign {
   const { vTarget, band, load, input, dcrAfterFb, marginV } = need;
   const rule = need.rule ?? ctx.spec.overrides.toleranceRule ?? 'statistical';
-  const key = `${stage.id}|${vTarget}|${band.lo}|${band.hi}|${load.iMin}|${load.iTyp}|${load.iMax}|${input.vTrough}|${input.vMax}|${dcrAfterFb}|${marginV}|${rule}|${ctx.ambientC}|${forcedR.r1}|${forcedR.r2}`;
-  let pick = ctx.dividerSearches.get(key);
-  if (!pick) {
-    pick = searchFeedback(ctx, stage, need, rule, forcedR);
-    ctx.dividerSearches.set(key, pick);
-  }
-  return pick;
+  const key = [
+    stage.id,
+    vTarget,
+    band.lo,
+    band.hi,
+    load.iMin,
+    load.iTyp,
+    load.iMax,
+    input.vTrough,
+    input.vMax,
+    dcrAfterFb,
+    marginV,
+    rule,
+    ctx.ambientC,
+    forcedR.r1,
+    forcedR.r2,
+  ];
+  return ctx.dividerSearches.get(key, () => searchFeedback(ctx, stage, need, rule, forcedR));
 }
 
 function searchFeedback(
@@ -724,17 +735,26 @@ export interface SizingBase {
   missesBand?: boolean;
 }
 
+/** What the search knows of a class before sizing it. */
+export interface ClassScreen {
+  /** Whether its derated voltage ratings take the rail. */
+  fits(stage: SwitcherClass): boolean;
+  /** Findings it has at every frequency (its ratings and ranges against the rail): the least any of its candidates has. */
+  fixedFindings(stage: SwitcherClass): number;
+}
+
 /**
  * Every class of the converter kind at every frequency it allows: the candidate with the fewest
  * blockers (a class whose feedback cannot hold the band counts one more), then the lowest parts
  * cost plus LOSS_CENTS_PER_W per watt lost; ties keep the first. Classes are tried cheapest
- * first, and once a clean candidate exists a class whose own price reaches its figure is skipped.
+ * first; a class is not sized when its fixed findings and its own price already lose to the best
+ * so far (no candidate has fewer findings, none costs less than the class, losses are never negative).
  */
 export function searchClasses<T extends SizingBase>(
   ctx: Context,
   converter: SwitcherClass['converter'],
   size: (stage: SwitcherClass, fsw: number) => T,
-  fits: (stage: SwitcherClass) => boolean,
+  screen: ClassScreen,
   penalty: (stage: SwitcherClass) => number = () => 0,
   settle: (raw: T, stage: SwitcherClass, fsw: number) => T = (raw) => raw,
 ): T {
@@ -742,7 +762,7 @@ export function searchClasses<T extends SizingBase>(
   let bestKey = [Infinity, Infinity];
   // Classes whose voltage ratings already fail are sized only when no class passes them.
   const all = classesOf(ctx.catalog, converter);
-  const rated = all.filter(fits);
+  const rated = all.filter((stage) => screen.fits(stage));
   const pool = (rated.length > 0 ? rated : all).slice().sort((a, b) => a.costCents - b.costCents);
   const better = (key: number[]) => key[0]! < bestKey[0]! || (key[0] === bestKey[0] && key[1]! < bestKey[1]!);
   // Classes where only the frequency stood in the way: too low for the capacitors, too high for the heat.
@@ -764,6 +784,7 @@ export function searchClasses<T extends SizingBase>(
   };
   for (const stage of pool) {
     if (bestKey[0] === 0 && stage.costCents >= bestKey[1]!) break;
+    if (best !== null && !better([screen.fixedFindings(stage), stage.costCents])) continue;
     // The feedback check is worked out only for a candidate that would otherwise win.
     const extra = { value: null as number | null };
     let frequencyBound = true;
@@ -829,7 +850,7 @@ export function searchStage<T extends SizingBase>(
   req: StageRequest,
   converter: SwitcherClass['converter'],
   size: (stage: SwitcherClass, fsw: number, rippleLimit: number) => T,
-  fits: (stage: SwitcherClass) => boolean,
+  screen: ClassScreen,
   estimateOf: (s: T) => number,
 ): T {
   const need = feedbackNeed(ctx, req)(req.allowPostFilter && quietRail(ctx), 0);
@@ -855,7 +876,7 @@ export function searchStage<T extends SizingBase>(
     ctx,
     converter,
     (stage, fsw) => size(stage, fsw, limitAt(fsw)),
-    fits,
+    screen,
     (stage) => feedbackPenalty(ctx, stage, need),
     settle,
   );
