@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { formatDate, formatMoney } from '../platform/format';
 import type { DbOrTx } from '../platform/db/connect';
-import { brief, payment, quote, user } from '../platform/db/schema';
+import { brief, invoice, payment, quote, user, type PaymentKind } from '../platform/db/schema';
 import { appUrl } from '../platform/links';
 import { enqueueMail } from '../platform/mail/outbox';
 
@@ -71,8 +71,51 @@ export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<strin
   ]);
 }
 
-/** Queues the notice that a second payment for the same deposit was given back, with the refund's record. */
-export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string): Promise<string[]> {
+/** Why a payment of this kind could not count, in the refund notice's words. */
+const REFUND_REASON: Record<PaymentKind, readonly [string, string]> = {
+  deposit: [
+    'could not count as its deposit —',
+    'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+  ],
+  balance: ['could not count as its balance —', 'the invoice had been paid already — so we have refunded it in full.'],
+  refund: ['could not be applied,', 'so we have refunded it in full.'],
+};
+
+/** Queues the client's receipt for the paid balance of an invoice, with their PO, in the transaction that records it. */
+export async function queueBalanceReceipt(tx: DbOrTx, paymentId: string): Promise<string[]> {
+  const row = await paymentWithQuote(tx, paymentId);
+  if (!row) return [];
+  const [invoiceRow] = await tx.select().from(invoice).where(eq(invoice.quoteId, row.quote.id)).limit(1);
+  if (!invoiceRow) return [];
+  const money = (minor: number) => formatMoney(minor, row.payment.currency);
+  return enqueueMail(tx, [
+    {
+      kind: 'balance-receipt',
+      to: row.client.email,
+      subject: `Receipt: balance of ${money(row.payment.amountMinor)} for invoice ${invoiceRow.number}`,
+      text: [
+        `Dear ${row.client.name},`,
+        '',
+        `Thank you. We received the balance of invoice ${invoiceRow.number} for quote ${row.quote.number} (${row.brief.title}).`,
+        '',
+        `Amount paid:   ${money(row.payment.amountMinor)}`,
+        `Date:          ${formatDate(row.payment.paidAt ?? new Date())}`,
+        `Reference:     ${row.payment.paymentIntentId ?? row.payment.checkoutSessionId}`,
+        ...(invoiceRow.purchaseOrder ? [`Your PO:       ${invoiceRow.purchaseOrder}`] : []),
+        `Invoice total: ${money(invoiceRow.grossMinor)}, of which ${money(invoiceRow.depositPaidMinor)} was paid as the deposit`,
+        'Nothing more is due: the work is paid in full.',
+        '',
+        `The quote and its invoice: ${appUrl(`/quotes/${row.quote.id}`)}`,
+        '',
+        '— Railwright',
+      ].join('\n'),
+      relatedId: row.quote.id,
+    },
+  ]);
+}
+
+/** Queues the notice that a payment that could not count (a second deposit or balance) was given back, with the refund's record. */
+export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string, refundedKind: PaymentKind): Promise<string[]> {
   const row = await paymentWithQuote(tx, refundPaymentId);
   if (!row) return [];
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
@@ -84,8 +127,8 @@ export async function queueRefundNotice(tx: DbOrTx, refundPaymentId: string): Pr
       text: [
         `Dear ${row.client.name},`,
         '',
-        `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) could not count as its deposit —`,
-        'the deposit had been paid already, or the acceptance had lapsed — so we have refunded it in full.',
+        `A payment of ${amount} for quote ${row.quote.number} (${row.brief.title}) ${REFUND_REASON[refundedKind][0]}`,
+        REFUND_REASON[refundedKind][1],
         '',
         `Refund reference:  ${row.payment.checkoutSessionId}`,
         `Payment refunded:  ${row.payment.paymentIntentId ?? 'see the reference above'}`,

@@ -1,6 +1,7 @@
 /**
  * Money taken on a checkout that cannot count as its quote's deposit (the
- * deposit is paid already, or the acceptance lapsed) goes straight back through
+ * deposit is paid already, or the acceptance lapsed) or as its balance (the
+ * invoice is paid already) goes straight back through
  * the provider, and is recorded as a payment of kind `refund`.
  */
 import { db } from '../platform/db';
@@ -44,7 +45,7 @@ export async function refundUnappliedPayment(row: PaymentRow, paymentIntentId: s
       .onConflictDoNothing()
       .returning();
     // The client's notice is queued with the refund's record: both are kept, or neither.
-    return inserted ? { row: inserted, queued: await queueRefundNotice(tx, inserted.id) } : null;
+    return inserted ? { row: inserted, queued: await queueRefundNotice(tx, inserted.id, row.kind) } : null;
   });
   if (!recorded) return null;
   await deliverQueuedMail(recorded.queued);

@@ -18,6 +18,8 @@ function form(overrides: Record<string, string> = {}): Record<string, string> {
     taxRate: String(card.taxRateBp / 100),
     deposit: String(card.depositBp / 100),
     validityDays: String(card.validityDays),
+    registrationNumber: card.registrationNumber,
+    taxId: card.taxId,
     ...Object.fromEntries(Object.entries(card.designHoursByTopology).map(([t, h]) => [`hours.${t}`, String(h)])),
     ...Object.fromEntries(Object.entries(card.complexityHours).map(([d, h]) => [`complexity.${d}`, String(h)])),
     ...overrides,
