@@ -38,6 +38,8 @@ async function jobInDesign() {
   const rail = await railUnderReview(baseUrl);
   const saved = await rail.client.form('/account/billing', { billingAddress: 'Lindqvist Telemetry\nKanalgatan 9\nVästerholm' });
   expect(saved.status).toBe(303);
+  expect(await (await rail.client.follow(saved)).text()).toContain('Billing address saved');
+  expect(await (await rail.client.request('/account')).text()).toContain('Kanalgatan 9');
   const quote = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
   expect((await rail.engineer.request(`/api/v1/quotes/${quote.id}/send`, { method: 'POST' })).status).toBe(200);
   const accepted = await rail.client.request(`/api/v1/quotes/${quote.id}/accept`, {
