@@ -116,6 +116,7 @@ describe('the working relationship, from a brief sent back to a job paid in full
     await screenshot(client, 'balance-client-paid');
     await client.goto(`${baseUrl}/briefs/${rail.briefId}`);
     expect(await client.locator('h1 + span').textContent()).toContain('Paid in full');
+    expect(await client.getByText(/Invoice INV-\d{4}-\d{4}: balance paid on .*, paid in full/).count()).toBe(1);
 
     // Both receipts reached the client, each once, the balance's with the PO.
     const subjects = (await mailsTo(mailApiUrl, rail.email)).map((m) => m.subject);

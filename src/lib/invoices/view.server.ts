@@ -1,5 +1,5 @@
 /** An invoice read once for every place that shows it: the PDF, the e-mail, the quote pages and the API. */
-import { and, eq, type SQL } from 'drizzle-orm';
+import { and, eq, inArray, type SQL } from 'drizzle-orm';
 import { quoteLines } from '~/lib/quotes/index.server';
 import { db } from '../platform/db';
 import type { DbOrTx } from '../platform/db/connect';
@@ -81,4 +81,14 @@ export function invoiceJson({ invoice, quote }: InvoiceView) {
     paidAt: invoice.paidAt?.toISOString() ?? null,
     pdf: `/api/v1/invoices/${invoice.id}/pdf`,
   };
+}
+
+/** The invoices of several quotes at once, by quote id (for lists). */
+export async function invoicesOfQuotes(quoteIds: readonly string[]): Promise<Map<string, InvoiceRow>> {
+  if (quoteIds.length === 0) return new Map();
+  const rows = await db
+    .select()
+    .from(invoice)
+    .where(inArray(invoice.quoteId, [...quoteIds]));
+  return new Map(rows.map((row) => [row.quoteId, row]));
 }

@@ -77,6 +77,10 @@ describe('the balance invoice', () => {
     expect(invoice?.grossMinor).toBe(job.quote.totalMinor);
     expect(invoice?.balanceMinor).toBe(job.quote.totalMinor - job.quote.depositMinor);
     expect((invoice?.netMinor ?? 0) + (invoice?.taxMinor ?? 0)).toBe(invoice?.grossMinor);
+    // The client's brief page names the invoice and where to pay it.
+    const briefPage = await (await job.client.request(`/briefs/${job.briefId}`)).text();
+    expect(briefPage).toContain(`Invoice ${invoice?.number}: balance of`);
+    expect(briefPage).toContain('pay it on the quote page');
 
     // A second "delivered" changes nothing: the brief has moved on, and no second invoice or mail follows.
     expect((await job.move('delivered')).status).toBe(409);
