@@ -11,7 +11,7 @@ import { paymentProvider } from './provider.server';
 import { sessionReport } from './event-checks';
 import { afterSettle, settlePaidSession } from './settle.server';
 
-export type PendingDeposit =
+export type PendingPayment =
   | { kind: 'none' }
   /** The client can still pay on this hosted page. */
   | { kind: 'open'; url: string }
@@ -21,7 +21,7 @@ export type PendingDeposit =
   | { kind: 'stale'; payment: PaymentRow };
 
 /** Asks the provider about the quote's pending checkout of this kind and applies it if paid (the webhook's own path). */
-export async function checkPendingPayment(quoteId: string, kind: 'deposit' | 'balance'): Promise<PendingDeposit> {
+export async function checkPendingPayment(quoteId: string, kind: 'deposit' | 'balance'): Promise<PendingPayment> {
   const [pending] = await db
     .select()
     .from(payment)
@@ -44,7 +44,7 @@ export async function checkPendingPayment(quoteId: string, kind: 'deposit' | 'ba
 }
 
 /** The same check for a page: a provider that does not answer leaves the page as it was. */
-export async function checkPendingDepositQuietly(quoteId: string, kind: 'deposit' | 'balance' = 'deposit'): Promise<PendingDeposit | null> {
+export async function checkPendingPaymentQuietly(quoteId: string, kind: 'deposit' | 'balance'): Promise<PendingPayment | null> {
   try {
     return await checkPendingPayment(quoteId, kind);
   } catch (error) {
