@@ -241,5 +241,9 @@ describe('the balance invoice', () => {
       'the refund notice',
     );
     expect(refundNotice.filter((s) => s.startsWith('Receipt: balance'))).toHaveLength(1);
+    // The quote page tells of it beside the invoice, not under the deposit.
+    const page = await (await job.client.request(`/quotes/${job.quote.id}`)).text();
+    expect(page).toContain('could not count as the balance was refunded in full');
+    expect(page).not.toContain('could not count as the deposit');
   });
 });
