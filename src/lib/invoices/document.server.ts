@@ -89,6 +89,7 @@ export function invoiceDocument(view: InvoiceView): object {
     title: `Invoice ${invoice.number} — ${view.brief.title}`,
     subject: 'Invoice for the balance of a DC supply rail design',
     footer: `Invoice ${invoice.number}`,
+    date: invoice.issuedAt,
     content: [
       ...letterhead(firmIdentifiers(invoice)),
       title,

@@ -140,6 +140,8 @@ export interface PageFrame {
   subject: string;
   /** What the footer names beside the page number, e.g. "Quote RW-2026-0007". */
   footer: string;
+  /** The document's date in its properties, so the same document renders to the same bytes. */
+  date: Date;
   content: Node[];
 }
 
@@ -148,7 +150,7 @@ export function printedDocument(frame: PageFrame): object {
   return {
     pageSize: 'A4',
     pageMargins: [48, 44, 48, 56],
-    info: { title: frame.title, author: FIRM.name, subject: frame.subject, creator: FIRM.name },
+    info: { title: frame.title, author: FIRM.name, subject: frame.subject, creator: FIRM.name, creationDate: frame.date },
     // Contextual alternates change nothing in the text but double the time to set it.
     defaultStyle: { font: BASE_FAMILY, fontFeatures: { calt: false }, fontSize: 9.5, lineHeight: 1.25, color: INK },
     styles: { h2: { fontSize: 13, bold: true, color: INK }, h3: { fontSize: 10.5, bold: true, color: INK } },

@@ -222,6 +222,7 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
     title: `Quote ${quote.number} — ${view.brief.title}`,
     subject: 'Quote for a DC supply rail design',
     footer: `Quote ${quote.number}`,
+    date: issued,
     content: [
       ...letterhead(),
       title,

@@ -177,4 +177,12 @@ describe('the invoice PDF', () => {
     expect(text).toContain('Balance (paid) €1,610.70');
     for (const absent of ['Your PO', 'Company registration', 'VAT / tax id', 'Pay the balance of']) expect(text).not.toContain(absent);
   });
+
+  test('the same invoice renders to the same bytes', async () => {
+    const first = await renderInvoicePdf(view());
+    // Later by more than a clock tick: nothing of the time of rendering may reach the bytes.
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    const second = await renderInvoicePdf(view());
+    expect(first.equals(second)).toBe(true);
+  });
 });
