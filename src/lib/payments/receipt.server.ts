@@ -17,19 +17,30 @@ async function paymentWithQuote(db: DbOrTx, paymentId: string) {
   return row ?? null;
 }
 
-/** Tells the engineer who drafted the quote that its deposit arrived, so the design work can be scheduled. */
-async function depositPaidMail(tx: DbOrTx, row: NonNullable<Awaited<ReturnType<typeof paymentWithQuote>>>, amount: string) {
+/** What the engineer's notice of a paid deposit or balance says next. */
+const PAID_NEXT = {
+  deposit: 'The design work can be scheduled: move the brief into design on its review page.',
+  balance: 'The invoice is settled and the job is paid in full.',
+} as const;
+
+/** Tells the engineer who drafted the quote that its deposit arrived (the design work can be scheduled) or its balance (the job is paid in full). */
+async function paidNotice(
+  tx: DbOrTx,
+  row: NonNullable<Awaited<ReturnType<typeof paymentWithQuote>>>,
+  amount: string,
+  what: 'deposit' | 'balance',
+) {
   const [engineer] = await tx.select({ email: user.email }).from(user).where(eq(user.id, row.quote.createdBy)).limit(1);
   if (!engineer) return [];
   return [
     {
-      kind: 'deposit-paid',
+      kind: `${what}-paid`,
       to: engineer.email,
-      subject: `Deposit paid: quote ${row.quote.number}, ${row.brief.title}`,
+      subject: `${what === 'deposit' ? 'Deposit' : 'Balance'} paid: quote ${row.quote.number}, ${row.brief.title}`,
       text: [
-        `${row.client.name} paid the deposit of ${amount} for quote ${row.quote.number} (${row.brief.title}).`,
+        `${row.client.name} paid the ${what} of ${amount} for quote ${row.quote.number} (${row.brief.title}).`,
         ...(row.quote.purchaseOrder ? [`Their purchase order: ${row.quote.purchaseOrder}`] : []),
-        'The design work can be scheduled: move the brief into design on its review page.',
+        PAID_NEXT[what],
         '',
         `The brief: ${appUrl(`/desk/briefs/${row.brief.id}`)}`,
       ].join('\n'),
@@ -44,7 +55,7 @@ export async function queueReceipt(tx: DbOrTx, paymentId: string): Promise<strin
   if (!row) return [];
   const amount = formatMoney(row.payment.amountMinor, row.payment.currency);
   return enqueueMail(tx, [
-    ...(await depositPaidMail(tx, row, amount)),
+    ...(await paidNotice(tx, row, amount, 'deposit')),
     {
       kind: 'deposit-receipt',
       to: row.client.email,
@@ -81,7 +92,7 @@ const REFUND_REASON: Record<PaymentKind, readonly [string, string]> = {
   refund: ['could not be applied,', 'so we have refunded it in full.'],
 };
 
-/** Queues the client's receipt for the paid balance of an invoice, with their PO, in the transaction that records it. */
+/** Queues the client's receipt for the paid balance of an invoice, with their PO, and the engineer's notice, in the transaction that records it. */
 export async function queueBalanceReceipt(tx: DbOrTx, paymentId: string): Promise<string[]> {
   const row = await paymentWithQuote(tx, paymentId);
   if (!row) return [];
@@ -89,6 +100,7 @@ export async function queueBalanceReceipt(tx: DbOrTx, paymentId: string): Promis
   if (!invoiceRow) return [];
   const money = (minor: number) => formatMoney(minor, row.payment.currency);
   return enqueueMail(tx, [
+    ...(await paidNotice(tx, row, money(row.payment.amountMinor), 'balance')),
     {
       kind: 'balance-receipt',
       to: row.client.email,

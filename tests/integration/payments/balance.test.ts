@@ -173,6 +173,13 @@ describe('the balance invoice', () => {
     const receipt = listed.find((m) => m.subject.startsWith('Receipt: balance'));
     const body = (await (await fetch(`${mailApiUrl}/messages/${receipt?.id}`)).json()) as { text: string };
     expect(body.text).toContain('Your PO:       LT-PO-4471');
+    // The engineer who drafted the quote hears of it too.
+    const notices = await until(
+      () => mailSubjects(DEMO.engineer),
+      (list) => list.some((s) => s.startsWith(`Balance paid: quote ${job.quote.number}`)),
+      'the engineer’s notice',
+    );
+    expect(notices.filter((s) => s.startsWith(`Balance paid: quote ${job.quote.number}`))).toHaveLength(1);
 
     // The provider's event delivered again records nothing twice and mails nothing more.
     const delivery = await completedEvent(sessionId);
