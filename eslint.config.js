@@ -12,7 +12,7 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
 
-const DOMAIN_NAMES = ['briefs', 'review', 'quotes', 'payments', 'catalog', 'accounts', 'demo'];
+const DOMAIN_NAMES = ['briefs', 'review', 'quotes', 'payments', 'invoices', 'catalog', 'accounts', 'demo'];
 const DOMAINS = `(${DOMAIN_NAMES.join('|')})`;
 
 /**

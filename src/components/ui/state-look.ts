@@ -20,6 +20,7 @@ export const BRIEF_STATE_LOOK: Record<string, StateLook> = {
   'deposit-paid': { label: 'Deposit paid', tone: 'ok', glyph: '✓✓' },
   'in-design': { label: 'In design', tone: 'accent', glyph: '◑' },
   delivered: { label: 'Delivered', tone: 'ok', glyph: '■' },
+  'paid-in-full': { label: 'Paid in full', tone: 'ok', glyph: '✓■' },
   declined: { label: 'Declined', tone: 'stop', glyph: '✕' },
   expired: { label: 'Expired', tone: 'idle', glyph: '⌛' },
   cancelled: { label: 'Cancelled', tone: 'idle', glyph: '✕' },

@@ -2,3 +2,4 @@
 export * from './accounts.server';
 export * from './people.server';
 export * from './notifications.server';
+export * from './billing.server';

@@ -19,6 +19,7 @@ export const NOTIFICATION_KINDS: readonly NotificationKind[] = [
   { kind: 'quote-accepted', label: 'A client accepted your quote', roles: ['engineer', 'admin'] },
   { kind: 'quote-declined', label: 'A client declined your quote', roles: ['engineer', 'admin'] },
   { kind: 'deposit-paid', label: 'A deposit on your quote was paid', roles: ['engineer', 'admin'] },
+  { kind: 'balance-paid', label: 'The balance of your invoice was paid', roles: ['engineer', 'admin'] },
 ];
 
 export const notificationKindsFor = (role: Role) => NOTIFICATION_KINDS.filter((k) => k.roles.includes(role));

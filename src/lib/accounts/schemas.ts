@@ -36,3 +36,12 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
   }
   return out;
 }
+
+/** The client's billing address, as lines; printed on their balance invoices. */
+export const billingAddressSchema = z.object({
+  billingAddress: z
+    .string()
+    .trim()
+    .max(400, { error: 'Keep the address within 400 characters.' })
+    .refine((text) => text.split('\n').length <= 8, { error: 'Keep the address within eight lines.' }),
+});

@@ -19,7 +19,7 @@ export interface BriefFileDeps {
 }
 
 /** A brief in one of these states is closed: nothing more is attached to it. */
-export const CLOSED_BRIEF_STATES: readonly BriefState[] = ['declined', 'cancelled', 'delivered', 'expired'];
+export const CLOSED_BRIEF_STATES: readonly BriefState[] = ['declined', 'cancelled', 'delivered', 'paid-in-full', 'expired'];
 
 export const isClosedBrief = (state: BriefState) => CLOSED_BRIEF_STATES.includes(state);
 

@@ -9,6 +9,7 @@ export const BRIEF_STATES = [
   'deposit-paid',
   'in-design',
   'delivered',
+  'paid-in-full',
   'declined',
   'expired',
   'cancelled',

@@ -20,13 +20,15 @@ const MOVES: Record<Actor, Partial<Record<BriefState, readonly BriefState[]>>> =
     'deposit-paid': ['in-design'],
     'in-design': ['delivered'],
   },
-  // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit, a lapsed acceptance.
+  // Moves made by the product itself: sending a quote, a client's acceptance, a paid deposit, a lapsed acceptance, a paid balance.
   system: {
     'in-review': ['quoted'],
     // A declined quote sends the brief back to review: the engineer revises and quotes again, or declines the brief.
     quoted: ['accepted', 'expired', 'in-review'],
     // Back to review when the accepted quote lapses unpaid: the engineer sends a fresh quote.
     accepted: ['deposit-paid', 'in-review'],
+    // The balance invoiced on delivery is paid.
+    delivered: ['paid-in-full'],
   },
 };
 

@@ -18,6 +18,7 @@ const MAIN_LINE: Step[] = [
   { from: 'accepted', to: 'deposit-paid', by: 'client' },
   { from: 'deposit-paid', to: 'in-design', by: 'staff' },
   { from: 'in-design', to: 'delivered', by: 'staff' },
+  { from: 'delivered', to: 'paid-in-full', by: 'client' },
 ];
 
 /** The recorded history of a demo brief that has reached `state` along the main line. */

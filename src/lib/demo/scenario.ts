@@ -14,12 +14,21 @@ export interface DemoPerson {
   email: string;
   role: Role;
   company?: string;
+  /** Lines of the address the balance invoice is billed to. */
+  billingAddress?: string;
 }
 
 export const DEMO_PEOPLE: DemoPerson[] = [
   { key: 'admin', name: 'Maren Holt', email: 'admin@demo.railwright.test', role: 'admin' },
   { key: 'engineer', name: 'Idris Valcourt', email: 'engineer@demo.railwright.test', role: 'engineer' },
-  { key: 'client', name: 'Priya Anand', email: 'client@demo.railwright.test', role: 'client', company: 'Fernhill Sensing Ltd' },
+  {
+    key: 'client',
+    name: 'Priya Anand',
+    email: 'client@demo.railwright.test',
+    role: 'client',
+    company: 'Fernhill Sensing Ltd',
+    billingAddress: 'Fernhill Sensing Ltd\nAccounts payable\n12 Orchard Row\nLinwick LW4 9TD',
+  },
   {
     key: 'quillon',
     name: 'Jonas Brekke',
@@ -47,8 +56,13 @@ export interface DemoBrief {
   submittedDaysAgo?: number;
   /** The engineer's note on revision 1, for briefs that have been reviewed. */
   revisionNote?: string;
-  /** How far the quote of revision 1 has gone: sent to the client, accepted and its deposit paid, or declined by the client. */
-  quote?: 'sent' | 'deposit-paid' | 'declined';
+  /**
+   * How far the quote of revision 1 has gone: sent to the client, accepted and its deposit paid,
+   * the design delivered and its balance paid, or declined by the client.
+   */
+  quote?: 'sent' | 'deposit-paid' | 'paid-in-full' | 'declined';
+  /** The client's purchase-order number given on acceptance. */
+  purchaseOrder?: string;
   /** The client's reason, for a declined quote. */
   declineReason?: string;
   /** What the engineer asked the client to change, for a brief sent back (state `changes-requested`). */
@@ -59,6 +73,23 @@ export interface DemoBrief {
 }
 
 export const DEMO_BRIEFS: DemoBrief[] = [
+  {
+    key: 'logger-battery',
+    owner: 'client',
+    title: 'Field logger, 5 V from a 12 V lead-acid battery',
+    state: 'paid-in-full',
+    submittedDaysAgo: 34,
+    revisionNote: 'Buck from the battery; efficient across the whole charge range, no heatsink needed.',
+    quote: 'paid-in-full',
+    purchaseOrder: 'FS-PO-2231',
+    notes: 'Logger and modem in a roadside cabinet; the battery is kept on float by a solar charger.',
+    spec: {
+      input: { vMin: 11.5, vNom: 12.6, vMax: 14.4, rippleVpp: 0.05, source: 'battery' },
+      output: { v: 5, tolerance: 0.05, iMin: 0.02, iTyp: 0.15, iMax: 0.4 },
+      noise: { class: 'digital' },
+      thermal: { ambientMaxC: 55, airflow: 'enclosed' },
+    },
+  },
   {
     key: 'sensor-node',
     owner: 'client',
@@ -184,4 +215,6 @@ export const DEMO_RATE_CARD = {
   taxRateBp: 2_000,
   depositBp: 3_000,
   validityDays: 30,
+  registrationNumber: '08812734',
+  taxId: 'EU372918455',
 };

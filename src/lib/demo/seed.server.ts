@@ -23,13 +23,26 @@ import {
 } from '../platform/db/schema';
 import { draftQuote, moveQuote } from '~/lib/quotes/index.server';
 import { movePayment } from '~/lib/payments/index.server';
+import { markInvoicePaid, recordInvoice } from '~/lib/invoices/index.server';
 import { DEMO_BRIEFS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RATE_CARD, type DemoBrief } from './scenario';
 import { changesRequestedLifecycle, declinedLifecycle, lifecycleTo } from './lifecycle';
 import { DAY_MS } from '../platform/time';
 
+/** A paid demo payment of the quote, recorded through the payment's transition table as in use. */
+async function seedPaidPayment(tx: Transaction, row: QuoteRow, kind: 'deposit' | 'balance', amountMinor: number, paidAt: Date) {
+  const reference = `${kind === 'deposit' ? '' : 'b'}${row.id.slice(0, 8)}`;
+  const [pending] = await tx
+    .insert(payment)
+    .values({ quoteId: row.id, kind, checkoutSessionId: `cs_demo_${reference}`, amountMinor, currency: row.currency, createdAt: paidAt })
+    .returning();
+  if (!pending || !(await movePayment(tx, pending, 'paid', { paidAt, paymentIntentId: `pi_demo_${reference}` })))
+    throw new Error(`Demo ${kind} for quote ${row.number} could not be recorded`);
+}
+
 /**
  * The quote of a demo brief, drafted the way the quote builder drafts one, then
- * taken as far as the scenario says: sent, accepted with its deposit paid, or declined.
+ * taken as far as the scenario says: sent, accepted with its deposit paid (and
+ * on to its balance invoiced and paid), or declined.
  */
 async function seedQuote(
   tx: Transaction,
@@ -41,6 +54,7 @@ async function seedQuote(
     ownerId: string;
     plan: NonNullable<DemoBrief['quote']>;
     declineReason: string;
+    purchaseOrder: string | null;
     at: Date;
   },
 ) {
@@ -65,21 +79,16 @@ async function seedQuote(
   }
   const acceptedAt = new Date(sentAt.getTime() + DAY_MS);
   const paidAt = new Date(acceptedAt.getTime() + 600_000);
-  await move('accepted', p.ownerId, acceptedAt, { acceptedAt });
-  const [pending] = await tx
-    .insert(payment)
-    .values({
-      quoteId: row.id,
-      kind: 'deposit',
-      checkoutSessionId: `cs_demo_${row.id.slice(0, 8)}`,
-      amountMinor: row.depositMinor,
-      currency: row.currency,
-      createdAt: paidAt,
-    })
-    .returning();
-  if (!pending || !(await movePayment(tx, pending, 'paid', { paidAt, paymentIntentId: `pi_demo_${row.id.slice(0, 8)}` })))
-    throw new Error(`Demo deposit for quote ${row.number} could not be recorded`);
+  await move('accepted', p.ownerId, acceptedAt, { acceptedAt, purchaseOrder: p.purchaseOrder });
+  await seedPaidPayment(tx, row, 'deposit', row.depositMinor, paidAt);
   await move('deposit-paid', null, paidAt);
+  if (p.plan !== 'paid-in-full') return;
+  // Delivered two weeks after the deposit, the balance paid three days later.
+  const deliveredAt = new Date(paidAt.getTime() + 14 * DAY_MS);
+  const balancePaidAt = new Date(deliveredAt.getTime() + 3 * DAY_MS);
+  const issued = await recordInvoice(tx, row, p.ownerId, deliveredAt);
+  await seedPaidPayment(tx, row, 'balance', issued.balanceMinor, balancePaidAt);
+  if (!(await markInvoicePaid(tx, issued, balancePaidAt))) throw new Error(`Demo invoice ${issued.number} could not be marked paid`);
 }
 
 /**
@@ -122,7 +131,8 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
         createdAt: joined,
         updatedAt: joined,
       });
-      if (person.company) await tx.insert(clientProfile).values({ userId: id, company: person.company });
+      if (person.company)
+        await tx.insert(clientProfile).values({ userId: id, company: person.company, billingAddress: person.billingAddress ?? '' });
     }
     await tx.insert(rateCard).values({ ...DEMO_RATE_CARD, updatedBy: idOf('admin') });
     await tx.insert(deviceClass).values(catalogToRows(defaultCatalog));
@@ -173,6 +183,7 @@ export async function seedDemo(db: Database, auth: Auth, now = Date.now()): Prom
             ownerId,
             plan: item.quote,
             declineReason: item.declineReason ?? '',
+            purchaseOrder: item.purchaseOrder ?? null,
             at: new Date(revisedAt.getTime() + DAY_MS),
           });
       }

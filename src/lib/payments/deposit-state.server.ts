@@ -19,12 +19,14 @@ export async function depositState(
     .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit')))
     .orderBy(desc(payment.createdAt))
     .limit(1);
-  const refunds = await db
-    .select()
-    .from(payment)
-    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'refund')))
-    .orderBy(payment.createdAt);
-  return { paid: paid ?? null, latest: latest ?? null, refunds };
+  return { paid: paid ?? null, latest: latest ?? null, refunds: await refundsOf(quoteId, 'deposit') };
+}
+
+/** Money given back on the quote's payments of one kind: a refund carries the payment intent of the payment it returned. */
+export async function refundsOf(quoteId: string, kind: 'deposit' | 'balance'): Promise<PaymentRow[]> {
+  const rows = await db.select().from(payment).where(eq(payment.quoteId, quoteId)).orderBy(payment.createdAt);
+  const intents = new Set(rows.filter((r) => r.kind === kind && r.paymentIntentId).map((r) => r.paymentIntentId));
+  return rows.filter((r) => r.kind === 'refund' && intents.has(r.paymentIntentId));
 }
 
 /** Paid deposits of several quotes at once, by quote id (for lists). */

@@ -9,3 +9,4 @@ export * from './reconcile.server';
 export * from './refund.server';
 export * from './settle.server';
 export * from './webhook.server';
+export * from './balance.server';

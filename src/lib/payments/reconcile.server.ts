@@ -1,5 +1,5 @@
 /**
- * While a deposit checkout is pending, the provider knows more than we do: the
+ * While a checkout (deposit or balance) is pending, the provider knows more than we do: the
  * client may have paid while the webhook was delayed or the app was down. The
  * quote page and checkout ask the provider before offering to pay again.
  */
@@ -11,7 +11,7 @@ import { paymentProvider } from './provider.server';
 import { sessionReport } from './event-checks';
 import { afterSettle, settlePaidSession } from './settle.server';
 
-export type PendingDeposit =
+export type PendingPayment =
   | { kind: 'none' }
   /** The client can still pay on this hosted page. */
   | { kind: 'open'; url: string }
@@ -20,12 +20,12 @@ export type PendingDeposit =
   /** The provider will not take money on it any more; a new checkout may replace it. */
   | { kind: 'stale'; payment: PaymentRow };
 
-/** Asks the provider about the quote's pending deposit checkout and applies it if paid (the webhook's own path). */
-export async function checkPendingDeposit(quoteId: string): Promise<PendingDeposit> {
+/** Asks the provider about the quote's pending checkout of this kind and applies it if paid (the webhook's own path). */
+export async function checkPendingPayment(quoteId: string, kind: 'deposit' | 'balance'): Promise<PendingPayment> {
   const [pending] = await db
     .select()
     .from(payment)
-    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, 'deposit'), eq(payment.state, 'pending')))
+    .where(and(eq(payment.quoteId, quoteId), eq(payment.kind, kind), eq(payment.state, 'pending')))
     .orderBy(desc(payment.createdAt))
     .limit(1);
   if (!pending) return { kind: 'none' };
@@ -34,7 +34,8 @@ export async function checkPendingDeposit(quoteId: string): Promise<PendingDepos
   if (report.paid) {
     const settled = await db.transaction((tx) => settlePaidSession(tx, report));
     await afterSettle(settled);
-    return { kind: 'received', applied: settled.result === 'deposit-paid' || settled.result === 'already-paid' };
+    const applied = settled.result === 'deposit-paid' || settled.result === 'balance-paid' || settled.result === 'already-paid';
+    return { kind: 'received', applied };
   }
   if (session.status === 'expired') return { kind: 'stale', payment: pending };
   if (session.status === 'open' && session.url) return { kind: 'open', url: session.url };
@@ -43,11 +44,11 @@ export async function checkPendingDeposit(quoteId: string): Promise<PendingDepos
 }
 
 /** The same check for a page: a provider that does not answer leaves the page as it was. */
-export async function checkPendingDepositQuietly(quoteId: string): Promise<PendingDeposit | null> {
+export async function checkPendingPaymentQuietly(quoteId: string, kind: 'deposit' | 'balance'): Promise<PendingPayment | null> {
   try {
-    return await checkPendingDeposit(quoteId);
+    return await checkPendingPayment(quoteId, kind);
   } catch (error) {
-    log.warn({ err: error, quoteId }, 'the payment provider did not answer the pending-deposit check');
+    log.warn({ err: error, quoteId }, 'the payment provider did not answer the pending-payment check');
     return null;
   }
 }

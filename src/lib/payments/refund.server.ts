@@ -1,10 +1,10 @@
 /**
  * Giving money back through the provider, recorded as a payment of kind
  * `refund` beside the payment it returns. Two ways in: money taken on a checkout
- * that cannot count as its quote's deposit (the deposit is paid already, or the
- * acceptance lapsed) goes straight back on its own; and staff refund a paid
- * payment with a reason. Neither moves the quote or the brief: what the work
- * does next is a person's decision, and the refund's row keeps who and why.
+ * that cannot count (the deposit is paid already or the acceptance lapsed; the
+ * invoice's balance is paid already) goes straight back on its own; and staff
+ * refund a paid payment with a reason. Neither moves the quote or the brief: what
+ * the work does next is a person's decision, and the refund's row keeps who and why.
  */
 import { eq } from 'drizzle-orm';
 import { db } from '../platform/db';
@@ -57,7 +57,7 @@ async function refundWhole(row: PaymentRow, paymentIntentId: string, terms: Refu
       .onConflictDoNothing()
       .returning();
     // The client's notice is queued with the refund's record: both are kept, or neither.
-    return inserted ? { row: inserted, queued: await queueRefundNotice(tx, inserted.id) } : null;
+    return inserted ? { row: inserted, queued: await queueRefundNotice(tx, inserted.id, row.kind) } : null;
   });
   if (!recorded) return null;
   await deliverQueuedMail(recorded.queued);

@@ -35,7 +35,7 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<WebhookOut
     // A late "expired" never undoes a payment that completed: the table has no move from paid to expired.
     return finish({ result: (await movePayment(tx, found, 'expired')) ? ('expired' as const) : ('ignored' as const) });
   });
-  if (outcome.result === 'deposit-paid' || outcome.result === 'refund-due') {
+  if (outcome.result === 'deposit-paid' || outcome.result === 'balance-paid' || outcome.result === 'refund-due') {
     try {
       await afterSettle(outcome);
     } catch (error) {

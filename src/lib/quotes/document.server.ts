@@ -4,26 +4,26 @@
  * accept. A pdfmake document description built from the quote view alone.
  */
 import { formatDate, formatMoney } from '../platform/format';
-import { formatBp, formatQuantity } from './pricing';
-import { FIRM } from './firm';
-import { SAFETY_NOTE, type QuoteView, type Row } from './view.server';
-import { BASE_FAMILY, runs } from '../platform/pdf/fonts';
+import { formatBp } from './pricing';
+import { SAFETY_NOTE, type QuoteView } from './view.server';
+import { runs } from '../platform/pdf/fonts';
+import {
+  COPPER,
+  heading,
+  INK,
+  ledger,
+  letterhead,
+  pairs,
+  priceLines,
+  printedDocument,
+  SOFT,
+  text,
+  totalsColumn,
+  type Node,
+} from './document-parts.server';
 
-const INK = '#1e2329';
-const SOFT = '#4a525c';
-const FAINT = '#6b7380';
-const COPPER = '#86421b';
-const RULE = '#e4dfd6';
 const WARN = '#8a5a00';
 const WARN_BG = '#fcf4e2';
-
-type Node = Record<string, unknown> | string;
-
-const text = (value: string, style: Record<string, unknown> = {}): Node => ({ text: runs(value), ...style });
-
-function heading(title: string): Node {
-  return { text: runs(title), style: 'h2', margin: [0, 18, 0, 6] };
-}
 
 /** Rows kept on one page with their heading; longer blocks may break (a page holds about this many). */
 const KEEP_TOGETHER_ROWS = 18;
@@ -34,31 +34,6 @@ const CHARACTERS_PER_LINE = 110;
 function section(title: Node, block: Node, rows: number): Node {
   return { stack: [title, block], unbreakable: rows <= KEEP_TOGETHER_ROWS };
 }
-
-/** Label–value pairs as a ruled two-column table. */
-function pairs(rows: Row[]): Node {
-  return {
-    table: { widths: [150, '*'], body: rows.map((r) => [text(r.label, { color: SOFT, bold: true }), text(r.value)]) },
-    layout: {
-      hLineWidth: (i: number) => (i === 0 ? 0 : 0.5),
-      vLineWidth: () => 0,
-      hLineColor: () => RULE,
-      paddingLeft: () => 0,
-      paddingTop: () => 4,
-      paddingBottom: () => 4,
-    },
-  };
-}
-
-const ledger = {
-  hLineWidth: (i: number, node: { table: { body: unknown[] } }) => (i === 1 ? 1.2 : i === 0 || i === node.table.body.length ? 0 : 0.5),
-  vLineWidth: () => 0,
-  hLineColor: (i: number) => (i === 1 ? INK : RULE),
-  paddingLeft: (i: number) => (i === 0 ? 0 : 6),
-  paddingRight: () => 0,
-  paddingTop: () => 4,
-  paddingBottom: () => 4,
-};
 
 /** The drawing's box on its landscape A4 page, pt: the width between the margins, and room left for the part list. */
 const DRAWING_WIDTH = 746;
@@ -91,19 +66,6 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
   const money = (minor: number) => formatMoney(minor, quote.currency);
   const issued = quote.sentAt ?? options.now ?? new Date();
   const draft = quote.state === 'draft';
-
-  const header: Node = {
-    columns: [
-      {
-        width: '*',
-        stack: [
-          { text: FIRM.name, fontSize: 22, bold: true, color: COPPER, characterSpacing: 0.3 },
-          { text: FIRM.line, color: SOFT, margin: [0, 2, 0, 0] },
-        ],
-      },
-      { width: 'auto', stack: [...FIRM.address, FIRM.email].map((line) => text(line, { color: SOFT, fontSize: 8.5, alignment: 'right' })) },
-    ],
-  };
 
   const title: Node = {
     margin: [0, 22, 0, 0],
@@ -227,58 +189,13 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
     },
   };
 
-  const lines: Node = {
-    table: {
-      headerRows: 1,
-      widths: ['*', 44, 34, 70, 74],
-      body: [
-        ['Description', 'Qty', 'Unit', 'Unit price', 'Amount'].map((h, i) => ({
-          text: h,
-          bold: true,
-          color: SOFT,
-          alignment: i === 0 || i === 2 ? 'left' : 'right',
-        })),
-        ...view.lines.map((l) => [
-          text(l.description),
-          { text: formatQuantity(l.quantityMilli), alignment: 'right' },
-          text(l.unit),
-          { text: money(l.unitPriceMinor), alignment: 'right' },
-          { text: money(l.totalMinor), alignment: 'right' },
-        ]),
-      ],
-    },
-    layout: ledger,
-  };
-
-  const totalsRow = (label: string, value: string, strong = false) => [
-    { text: label, alignment: 'right', bold: strong, color: strong ? INK : SOFT },
-    { text: value, alignment: 'right', bold: strong, fontSize: strong ? 11 : 9.5 },
-  ];
-  const totals: Node = {
-    margin: [0, 8, 0, 0],
-    columns: [
-      { width: '*', text: '' },
-      {
-        width: 250,
-        table: {
-          widths: ['*', 90],
-          body: [
-            totalsRow('Subtotal', money(quote.subtotalMinor)),
-            totalsRow(`Tax (${formatBp(quote.taxRateBp)})`, money(quote.taxMinor)),
-            totalsRow('Total', money(quote.totalMinor), true),
-            totalsRow(`Deposit on acceptance (${formatBp(quote.depositBp)})`, money(quote.depositMinor), true),
-          ],
-        },
-        layout: {
-          hLineWidth: (i: number) => (i === 2 ? 1.2 : 0),
-          vLineWidth: () => 0,
-          hLineColor: () => INK,
-          paddingTop: () => 3,
-          paddingBottom: () => 3,
-        },
-      },
-    ],
-  };
+  const lines = priceLines(view.lines, quote.currency);
+  const totals = totalsColumn([
+    { label: 'Subtotal', value: money(quote.subtotalMinor) },
+    { label: `Tax (${formatBp(quote.taxRateBp)})`, value: money(quote.taxMinor) },
+    { label: 'Total', value: money(quote.totalMinor), strong: true, ruled: true },
+    { label: `Deposit on acceptance (${formatBp(quote.depositBp)})`, value: money(quote.depositMinor), strong: true },
+  ]);
 
   const termLines = quote.terms
     .split('\n')
@@ -300,28 +217,13 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
   // than split so that a last page holds a stray line or two.
   const closingRows = termLines.reduce((n, t) => n + Math.ceil(t.length / CHARACTERS_PER_LINE), 0) + 6;
 
-  return {
-    pageSize: 'A4',
-    pageMargins: [48, 44, 48, 56],
-    info: {
-      title: `Quote ${quote.number} — ${view.brief.title}`,
-      author: FIRM.name,
-      subject: 'Quote for a DC supply rail design',
-      creator: FIRM.name,
-    },
-    // Contextual alternates change nothing in a quote's text but double the time to set it.
-    defaultStyle: { font: BASE_FAMILY, fontFeatures: { calt: false }, fontSize: 9.5, lineHeight: 1.25, color: INK },
-    styles: { h2: { fontSize: 13, bold: true, color: INK }, h3: { fontSize: 10.5, bold: true, color: INK } },
-    footer: (page: number, pages: number) => ({
-      margin: [48, 18, 48, 0],
-      columns: [
-        { text: `${FIRM.name} · Quote ${quote.number}`, color: FAINT, fontSize: 8 },
-        { text: `Page ${page} of ${pages}`, color: FAINT, fontSize: 8, alignment: 'right' },
-      ],
-    }),
+  return printedDocument({
+    title: `Quote ${quote.number} — ${view.brief.title}`,
+    subject: 'Quote for a DC supply rail design',
+    footer: `Quote ${quote.number}`,
+    date: issued,
     content: [
-      header,
-      { canvas: [{ type: 'line', x1: 0, y1: 8, x2: 499, y2: 8, lineWidth: 1.5, lineColor: COPPER }] },
+      ...letterhead(),
       title,
       client,
       ...(quote.clientNote
@@ -334,5 +236,5 @@ export function quoteDocument(view: QuoteView, options: QuoteDocumentOptions): o
       { stack: [...terms, accept], unbreakable: closingRows <= KEEP_TOGETHER_ROWS },
       ...drawingPart,
     ],
-  };
+  });
 }

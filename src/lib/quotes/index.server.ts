@@ -8,3 +8,4 @@ export * from './quotes.server';
 export * from './rate-card.server';
 export * from './render.server';
 export * from './view.server';
+export * from './document-parts.server';

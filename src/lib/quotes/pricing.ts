@@ -38,6 +38,14 @@ const basisPoints = (label: string) =>
 export const COMPLEXITY_DRIVERS = ['highVoltage', 'tightNoise', 'heatsink', 'perRevision'] as const;
 export type ComplexityDriver = (typeof COMPLEXITY_DRIVERS)[number];
 
+const firmIdentifier = (what: string) =>
+  z
+    .string()
+    .trim()
+    .max(40, `${what} is at most 40 characters.`)
+    .regex(/^[A-Za-z0-9 ./-]*$/, `${what} holds letters, digits, spaces, dots, slashes and dashes only.`)
+    .default('');
+
 export const rateCardSchema = z.object({
   currency: z.string().regex(/^[A-Z]{3}$/, 'The currency is a three-letter ISO 4217 code such as EUR.'),
   hourlyRateMinor: minor('The hourly rate'),
@@ -62,6 +70,9 @@ export const rateCardSchema = z.object({
     .int({ error: 'The validity must be a whole number of days.' })
     .min(1, 'A quote is valid for at least one day.')
     .max(365, 'Keep the validity within a year.'),
+  /** Printed on the balance invoice under the letterhead; blank until the admin fills them in. */
+  registrationNumber: firmIdentifier('The company registration number'),
+  taxId: firmIdentifier('The VAT or tax id'),
 });
 export type RateCard = z.infer<typeof rateCardSchema>;
 

@@ -83,6 +83,8 @@ export function rateCardFromForm(form: Record<string, string>): Outcome<RateCard
     taxRateBp: percent('taxRate'),
     depositBp: percent('deposit'),
     validityDays: read('validityDays', 0, 'a number of days'),
+    registrationNumber: form.registrationNumber ?? '',
+    taxId: form.taxId ?? '',
   };
   if (issues.length) return refused(issues);
   const parsed = rateCardSchema.safeParse(draft);

@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { staffBriefPatchSchema } from '~/lib/briefs';
 import { BRIEF_STATE_LOOK, lookOf } from '../../components/ui/state-look';
-import { moveAsStaff } from '~/lib/briefs/index.server';
+import type { moveAsStaff } from '~/lib/briefs/index.server';
 import type { BriefRow } from '~/lib/briefs/index.server';
 import type { SignedInUser } from '../platform/http/guard';
 import { addNote, noteRequestSchema } from '~/lib/briefs/index.server';
@@ -28,10 +28,15 @@ export const DONE_MESSAGES = {
   noted: 'Note added. Notes stay inside the consultancy.',
 } as const;
 
+/**
+ * `move` is the staff move with its consequences: the page passes the one that also
+ * invoices the balance when the design is delivered (a domain this one cannot import).
+ */
 export async function handleReviewForm(
   staff: SignedInUser,
   row: BriefRow,
   fields: z.infer<typeof reviewFormSchema>,
+  move: typeof moveAsStaff,
 ): Promise<Outcome<keyof typeof DONE_MESSAGES>> {
   if (fields.intent === 'note') {
     await addNote(row.id, staff.id, fields.body);
@@ -40,7 +45,7 @@ export async function handleReviewForm(
   // Declining ends the client's brief: it takes a second, deliberate tick, so a slip of the list cannot do it.
   if (fields.state === 'declined' && fields.confirm !== 'yes')
     return invalidInput('confirm-decline', [{ path: 'confirm', message: DECLINE_CONFIRMATION }]);
-  const moved = await moveAsStaff(staff, row, fields.state, fields.note);
+  const moved = await move(staff, row, fields.state, fields.note);
   if (moved.ok) return succeed('moved');
   if (moved.kind === 'invalid') return moved;
   return refuse('wrong-state', `${moved.message} It is now ${lookOf(BRIEF_STATE_LOOK, row.state).label.toLowerCase()}.`);

@@ -8,7 +8,7 @@ import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
-import { brief, designRevision, payment, quote } from '../../../src/lib/platform/db/schema';
+import { brief, designRevision, invoice, payment, quote } from '../../../src/lib/platform/db/schema';
 import { DEMO, Visitor } from '../../support/client';
 import { NOTIFICATION_KINDS } from '../../../src/lib/accounts/notifications';
 
@@ -18,7 +18,7 @@ const ACTORS = ['anonymous', 'clientA', 'clientB', 'engineer', 'admin'] as const
 type Actor = (typeof ACTORS)[number];
 type Statuses = [number, number, number, number, number];
 
-const ids = { paidBrief: '', draftBrief: '', revision: '', quote: '', payment: '', file: '' };
+const ids = { paidBrief: '', draftBrief: '', revision: '', quote: '', payment: '', file: '', invoice: '', invoicedQuote: '' };
 const visitors = {} as Record<Actor, Visitor>;
 
 const SPEC = {
@@ -200,6 +200,26 @@ const ROWS: Row[] = [
     expect: [401, 403, 403, 200, 200],
   },
   { method: 'POST', file: 'quotes/[id]/pay.ts', path: () => `/quotes/${ids.quote}/pay`, expect: [303, 303, 404, 404, 404] },
+  // Client A's balance invoice (the demo's paid-in-full job) is paid already: back to the quote page with the reason (303), 409 on the API.
+  { method: 'GET', file: 'api/v1/invoices/[id].ts', path: () => `/api/v1/invoices/${ids.invoice}`, expect: [401, 200, 404, 200, 200] },
+  {
+    method: 'GET',
+    file: 'api/v1/invoices/[id]/pdf.ts',
+    path: () => `/api/v1/invoices/${ids.invoice}/pdf`,
+    expect: [401, 200, 404, 200, 200],
+  },
+  {
+    method: 'POST',
+    file: 'api/v1/invoices/[id]/checkout.ts',
+    path: () => `/api/v1/invoices/${ids.invoice}/checkout`,
+    expect: [401, 409, 404, 403, 403],
+  },
+  {
+    method: 'POST',
+    file: 'quotes/[id]/pay-balance.ts',
+    path: () => `/quotes/${ids.invoicedQuote}/pay-balance`,
+    expect: [303, 303, 404, 404, 404],
+  },
   { method: 'POST', file: 'sign-out.ts', path: () => '/sign-out', fresh: true, expect: [303, 303, 303, 303, 303] },
   // Page form posts: anonymous visitors are sent to sign in (303), other roles get the 403 page,
   // and fields that do not read come back with the page and a 400.
@@ -340,6 +360,14 @@ const ROWS: Row[] = [
     fields: Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k.kind, 'on'])),
     expect: [303, 303, 303, 303, 303],
   },
+  // Only clients keep a billing address; an address too long comes back with the page.
+  {
+    method: 'POST',
+    file: 'account/billing.astro',
+    path: () => '/account/billing',
+    fields: { billingAddress: 'x'.repeat(401) },
+    expect: [303, 400, 400, 403, 403],
+  },
   { method: 'POST', file: 'sign-in.astro', path: () => '/sign-in', fields: { email: 'not an address' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'sign-up.astro', path: () => '/sign-up', fields: { email: 'x' }, expect: [400, 400, 400, 400, 400] },
   { method: 'POST', file: 'forgot-password.astro', path: () => '/forgot-password', fields: {}, expect: [400, 400, 400, 400, 400] },
@@ -390,8 +418,22 @@ beforeAll(async () => {
     .select()
     .from(payment)
     .where(eq(payment.quoteId, paidQuote?.id ?? ''));
+  const [invoiced] = await db
+    .select({ id: invoice.id, quoteId: invoice.quoteId })
+    .from(invoice)
+    .innerJoin(quote, eq(quote.id, invoice.quoteId))
+    .innerJoin(brief, eq(brief.id, quote.briefId))
+    .where(eq(brief.title, 'Field logger, 5 V from a 12 V lead-acid battery'));
   client.close();
-  Object.assign(ids, { paidBrief: paid?.id, draftBrief: draft?.id, revision: revision?.id, quote: paidQuote?.id, payment: deposit?.id });
+  Object.assign(ids, {
+    paidBrief: paid?.id,
+    draftBrief: draft?.id,
+    revision: revision?.id,
+    quote: paidQuote?.id,
+    payment: deposit?.id,
+    invoice: invoiced?.id,
+    invoicedQuote: invoiced?.quoteId,
+  });
   const uploaded = await visitors.clientA.request(`/api/v1/briefs/${ids.paidBrief}/files`, { method: 'POST', body: upload() });
   ids.file = (await uploaded.json()).id;
   for (const [key, value] of Object.entries(ids)) expect(value, key).toBeTruthy();

@@ -2,7 +2,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { expect, inject, test } from 'vitest';
 import { connect } from '../../../src/lib/platform/db/connect';
-import { brief, briefMessage, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
+import { brief, briefMessage, invoice, payment, quote, stateChange } from '../../../src/lib/platform/db/schema';
 
 test('the demo’s paid quote went draft → sent → accepted → deposit-paid, in time order, with a paid deposit', async () => {
   const { db, client } = connect(inject('databaseUrl'));
@@ -92,6 +92,46 @@ test('the demo has a brief sent back to its client, with the request in the hist
       .from(briefMessage)
       .where(eq(briefMessage.briefId, sent?.id ?? ''));
     expect(thread.map((m) => m.body)).toEqual([history.at(-1)?.note]);
+  } finally {
+    client.close();
+  }
+});
+
+test('the demo has a job paid in full: delivered, its balance invoiced with the PO and billing address, and paid', async () => {
+  const { db, client } = connect(inject('databaseUrl'));
+  try {
+    const [job] = await db.select().from(brief).where(eq(brief.title, 'Field logger, 5 V from a 12 V lead-acid battery'));
+    expect(job?.state).toBe('paid-in-full');
+    const moves = await db
+      .select()
+      .from(stateChange)
+      .where(eq(stateChange.subjectId, job?.id ?? ''))
+      .orderBy(asc(stateChange.createdAt));
+    expect(moves.slice(-2).map((m) => `${m.fromState}→${m.toState}`)).toEqual(['in-design→delivered', 'delivered→paid-in-full']);
+    const [row] = await db
+      .select()
+      .from(quote)
+      .where(eq(quote.briefId, job?.id ?? ''));
+    const [issued] = await db
+      .select()
+      .from(invoice)
+      .where(eq(invoice.quoteId, row?.id ?? ''));
+    expect(issued).toMatchObject({
+      state: 'paid',
+      purchaseOrder: 'FS-PO-2231',
+      grossMinor: row?.totalMinor,
+      depositPaidMinor: row?.depositMinor,
+    });
+    expect(issued?.number).toMatch(/^INV-\d{4}-\d{4}$/);
+    expect(issued?.billingAddress).toContain('12 Orchard Row');
+    const paid = await db
+      .select()
+      .from(payment)
+      .where(eq(payment.quoteId, row?.id ?? ''));
+    expect(paid.map((p) => [p.kind, p.state, p.amountMinor])).toEqual([
+      ['deposit', 'paid', row?.depositMinor],
+      ['balance', 'paid', issued?.balanceMinor],
+    ]);
   } finally {
     client.close();
   }

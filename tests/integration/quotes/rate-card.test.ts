@@ -18,6 +18,8 @@ function form(overrides: Record<string, string> = {}): Record<string, string> {
     taxRate: String(card.taxRateBp / 100),
     deposit: String(card.depositBp / 100),
     validityDays: String(card.validityDays),
+    registrationNumber: card.registrationNumber,
+    taxId: card.taxId,
     ...Object.fromEntries(Object.entries(card.designHoursByTopology).map(([t, h]) => [`hours.${t}`, String(h)])),
     ...Object.fromEntries(Object.entries(card.complexityHours).map(([d, h]) => [`complexity.${d}`, String(h)])),
     ...overrides,
@@ -34,10 +36,14 @@ describe('the rate card', () => {
     try {
       const saved = await admin.form(
         '/admin/rate-card',
-        form({ hourlyRate: '120.50', 'hours.buck': '10.25', 'complexity.perRevision': '2', taxRate: '7.5' }),
+        form({ hourlyRate: '120.50', 'hours.buck': '10.25', 'complexity.perRevision': '2', taxRate: '7.5', taxId: ' EU 111 222 333 ' }),
       );
       expect(saved.status).toBe(303);
-      expect(await (await admin.follow(saved)).text()).toContain('Rate card saved');
+      const shown = await (await admin.follow(saved)).text();
+      expect(shown).toContain('Rate card saved');
+      // The identifiers printed on invoices are kept with the card, trimmed.
+      expect(shown).toContain('value="EU 111 222 333"');
+      expect(shown).toContain('value="08812734"');
 
       const after = await (await rail.engineer.request('/api/v1/quotes', { method: 'POST', json: { revisionId: rail.revisionId } })).json();
       expect(after.lines[0]).toMatchObject({ quantityMilli: 10_250, unitPriceMinor: 12_050, totalMinor: 123_513 }); // 10.25 h × €120.50 = €1 235.125 → €1 235.13
@@ -60,6 +66,9 @@ describe('the rate card', () => {
     const html = await refused.text();
     expect(html).toContain('Enter an amount with at most 2 decimals.');
     expect(html).toContain('The currency is a three-letter ISO 4217 code such as EUR.');
+    const badId = await admin.form('/admin/rate-card', form({ taxId: 'EU<372>' }));
+    expect(badId.status).toBe(400);
+    expect(await badId.text()).toContain('The VAT or tax id holds letters, digits, spaces, dots, slashes and dashes only.');
     const fixedCurrency = await admin.form('/admin/rate-card', form({ deposit: '120', 'hours.linear': '-1' }));
     expect(fixedCurrency.status).toBe(400);
     const text = await fixedCurrency.text();

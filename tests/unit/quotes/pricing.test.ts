@@ -27,6 +27,8 @@ const card: RateCard = {
   taxRateBp: 2_000,
   depositBp: 3_000,
   validityDays: 30,
+  registrationNumber: '',
+  taxId: '',
 };
 
 const hardBuck: DesignFacts = {

@@ -35,6 +35,8 @@ export const clientProfile = sqliteTable('client_profile', {
     .references(() => user.id, { onDelete: 'cascade' }),
   company: text('company').notNull(),
   phone: text('phone'),
+  /** Where the balance invoice is addressed, as the client wrote it (lines). */
+  billingAddress: text('billing_address').notNull().default(''),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });
@@ -292,8 +294,54 @@ export const payment = sqliteTable(
     uniqueIndex('payment_one_paid_deposit_idx')
       .on(t.quoteId)
       .where(sql`kind = 'deposit' and state = 'paid'`),
+    // A quote has one invoice, so this is one paid balance per invoice, however its payment is confirmed.
+    uniqueIndex('payment_one_paid_balance_idx')
+      .on(t.quoteId)
+      .where(sql`kind = 'balance' and state = 'paid'`),
   ],
 );
+
+export const INVOICE_STATES = ['issued', 'paid'] as const;
+export type InvoiceState = (typeof INVOICE_STATES)[number];
+
+/**
+ * The balance invoice issued when a design is delivered: one per quote,
+ * numbered in a sequence of its own per year. The figures, the client's billing
+ * address and PO and our identifiers are kept as issued, so the PDF read later
+ * is the one that was sent.
+ */
+export const invoice = sqliteTable(
+  'invoice',
+  {
+    id: id(),
+    quoteId: text('quote_id')
+      .notNull()
+      .unique()
+      .references(() => quote.id),
+    /** Sequential per year, e.g. INV-2026-0003. */
+    number: text('number').notNull().unique(),
+    year: integer('year').notNull(),
+    sequence: integer('sequence').notNull(),
+    state: text('state', { enum: INVOICE_STATES }).notNull().default('issued'),
+    currency: text('currency').notNull(),
+    taxRateBp: integer('tax_rate_bp').notNull(),
+    netMinor: integer('net_minor').notNull(),
+    taxMinor: integer('tax_minor').notNull(),
+    grossMinor: integer('gross_minor').notNull(),
+    depositPaidMinor: integer('deposit_paid_minor').notNull(),
+    balanceMinor: integer('balance_minor').notNull(),
+    purchaseOrder: text('purchase_order'),
+    billingAddress: text('billing_address').notNull().default(''),
+    registrationNumber: text('registration_number').notNull().default(''),
+    taxId: text('tax_id').notNull().default(''),
+    issuedAt: integer('issued_at', { mode: 'timestamp_ms' }).notNull(),
+    paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('invoice_year_sequence_idx').on(t.year, t.sequence)],
+);
+export type InvoiceRow = typeof invoice.$inferSelect;
 
 /** Each provider event id is processed once; a replay finds its row and changes nothing. */
 export const webhookEvent = sqliteTable('webhook_event', {
@@ -369,6 +417,9 @@ export const rateCard = sqliteTable('rate_card', {
   taxRateBp: integer('tax_rate_bp').notNull(),
   depositBp: integer('deposit_bp').notNull(),
   validityDays: integer('validity_days').notNull(),
+  /** The consultancy's company registration number and tax (VAT) id, printed on its invoices. */
+  registrationNumber: text('registration_number').notNull().default(''),
+  taxId: text('tax_id').notNull().default(''),
   updatedBy: text('updated_by').references(() => user.id),
   updatedAt: updatedAt(),
 });

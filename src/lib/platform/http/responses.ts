@@ -76,3 +76,14 @@ export const tooMany = (retryAfterSeconds: number) =>
     { message: `Too many attempts. Try again in ${retryAfterSeconds} s.` },
     { 'retry-after': String(retryAfterSeconds) },
   );
+
+/** A generated PDF: shown in the browser, or saved under its name when `download` is asked for. */
+export function pdfResponse(bytes: Uint8Array, filename: string, download: boolean): Response {
+  return new Response(new Uint8Array(bytes), {
+    headers: {
+      'content-type': 'application/pdf',
+      'content-disposition': `${download ? 'attachment' : 'inline'}; filename="${filename}"`,
+      'cache-control': 'private, no-store',
+    },
+  });
+}

@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { clientBriefPatchSchema, staffBriefPatchSchema } from '~/lib/briefs/requests';
-import { deleteDraft, editOwnBrief, moveAsStaff } from '~/lib/briefs/actions.server';
+import { deleteDraft, editOwnBrief } from '~/lib/briefs/actions.server';
+import { moveBriefAsStaff } from '~/lib/invoices/issue.server';
 import { briefDetailJson, briefJson } from '~/lib/briefs/json';
 import { briefDetail, briefOf, findBriefFor } from '~/lib/briefs/briefs.server';
 import { ANY_ROLE, guardApi, isStaff, STAFF } from '~/lib/platform/http/guard';
@@ -54,7 +55,7 @@ const staffMove = apiMutation({
   body: staffBriefPatchSchema,
   run: async ({ user, body, context }) => {
     const found = await briefOf(user, context.params.id);
-    return found.ok ? moveAsStaff(user, found.value, body.state, body.note) : found;
+    return found.ok ? moveBriefAsStaff(user, found.value, body.state, body.note) : found;
   },
   answer: (row) => json(briefJson(row)),
 });

@@ -4,12 +4,17 @@ import { ANY_ROLE, guardApi, isStaff, STAFF } from '~/lib/platform/http/guard';
 import { json, notFound } from '~/lib/platform/http/responses';
 import { findQuoteFor, quoteJson, quoteOf, updateDraft } from '~/lib/quotes/quotes.server';
 import { apiMutation } from '~/lib/platform/http/mutation';
+import { invoiceJson, invoiceOfQuote } from '~/lib/invoices/index.server';
+import { db } from '~/lib/platform/db';
 
 export const GET: APIRoute = async (context) => {
   const gate = guardApi(context, ANY_ROLE);
   if (!gate.ok) return gate.response;
   const view = await findQuoteFor(gate.user, context.params.id ?? '');
-  return view ? json(quoteJson(view, { internal: isStaff(gate.user) })) : notFound();
+  if (!view) return notFound();
+  // The balance invoice, once the design is delivered.
+  const invoiced = await invoiceOfQuote(db, view.quote.id);
+  return json({ ...quoteJson(view, { internal: isStaff(gate.user) }), invoice: invoiced ? invoiceJson(invoiced) : null });
 };
 
 /** Edits a draft's lines, units, rates, validity, terms and note to the client; the server prices it. */

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { ANY_ROLE, guardApi } from '~/lib/platform/http/guard';
-import { notFound } from '~/lib/platform/http/responses';
+import { notFound, pdfResponse } from '~/lib/platform/http/responses';
 import { quotePdfName } from '~/lib/quotes/render.server';
 import { findQuoteFor, quotePdf } from '~/lib/quotes/quotes.server';
 
@@ -10,11 +10,5 @@ export const GET: APIRoute = async (context) => {
   const view = await findQuoteFor(gate.user, context.params.id ?? '');
   if (!view) return notFound();
   const pdf = await quotePdf(view);
-  return new Response(new Uint8Array(pdf), {
-    headers: {
-      'content-type': 'application/pdf',
-      'content-disposition': `${context.url.searchParams.has('download') ? 'attachment' : 'inline'}; filename="${quotePdfName(view.quote.number)}"`,
-      'cache-control': 'private, no-store',
-    },
-  });
+  return pdfResponse(pdf, quotePdfName(view.quote.number), context.url.searchParams.has('download'));
 };
