@@ -3,7 +3,7 @@ import type { RailSpec } from './rail-spec.ts';
 import type { Catalog } from './catalog.ts';
 import { enclosureRise } from './thermal.ts';
 import type { DividerDesign } from './topologies/feedback.ts';
-import { TupleMemo } from './tuple-memo.ts';
+import { TupleMemo } from './topologies/tuple-memo.ts';
 
 export interface Context {
   spec: RailSpec;

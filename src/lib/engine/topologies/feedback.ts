@@ -5,7 +5,7 @@ import type { SeriesName } from '../eseries.ts';
 import { seriesRange, snap } from '../eseries.ts';
 import { formatSi } from '../units.ts';
 import { atLeast } from '../design.ts';
-import { TupleMemo } from '../tuple-memo.ts';
+import { TupleMemo } from './tuple-memo.ts';
 import {
   analyseTolerance,
   relativeParam,
