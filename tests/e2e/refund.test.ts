@@ -42,7 +42,7 @@ describe.each([
       .getByRole('status')
       .getByText(/Refunded in full/)
       .waitFor();
-    await payments.getByText('Given back').waitFor();
+    await payments.getByRole('cell', { name: /^Given back by / }).waitFor();
     await payments.getByText('“The client’s project was stopped before the design began.”').waitFor();
     expect(await payments.getByText(/Refund the deposit of/).count()).toBe(0);
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);

@@ -183,8 +183,8 @@ describe.each(SIZES)('a declined quote on the desk at $viewport.width px', ({ na
 
     const engineer = await signedInPage(browser(), viewport, DEMO.engineer);
     await engineer.page.goto(`${baseUrl}/desk/quotes/${quote.id}`);
-    await engineer.page.getByRole('heading', { name: 'Declined by the client' }).waitFor();
-    await engineer.page.getByText(`“${reason}”`).waitFor();
+    // The reason stands in its own box (the quote's history below repeats it).
+    await engineer.page.getByRole('region', { name: 'Declined by the client' }).getByText(`“${reason}”`).waitFor();
     expect(await noSidewaysScroll(engineer.page)).toBe(true);
     await screenshot(engineer.page, `relationship-declined-quote-${name}`);
     await engineer.page.goto(`${baseUrl}/desk/briefs/${rail.briefId}`);

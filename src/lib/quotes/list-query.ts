@@ -4,12 +4,15 @@ import { QUOTE_STATES } from '../platform/db/schema';
 
 export const QUOTE_LIST_PAGE_SIZES = [10, 25, 50] as const;
 
+/** A filter the list form sends empty ("any") is no filter, not a bad one. */
+const unlessBlank = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === '' ? undefined : v), schema.optional());
+
 export const quoteListQuerySchema = z.object({
-  state: z.enum(QUOTE_STATES, { error: 'Unknown state.' }).optional(),
+  state: unlessBlank(z.enum(QUOTE_STATES, { error: 'Unknown state.' })),
   /** Matches the quote number, the brief's title, the client's name or company. */
-  q: z.string().trim().max(100).optional(),
+  q: unlessBlank(z.string().trim().max(100)),
   /** A client's id (staff only; a client's list is always their own). */
-  client: z.string().max(64).optional(),
+  client: unlessBlank(z.string().max(64)),
   page: z.coerce.number().int().min(1).max(10_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
 });

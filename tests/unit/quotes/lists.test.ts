@@ -31,6 +31,9 @@ describe('the quote list address', () => {
     const search = new URL(quoteListHref('/quotes', view), 'http://x').searchParams;
     expect(quoteListQuerySchema.parse(Object.fromEntries(search))).toEqual(view);
   });
+  test('the list form’s empty filters mean “any” and keep the chosen page size', () => {
+    expect(quoteListQuerySchema.parse({ q: '', state: '', client: '', pageSize: '10' })).toEqual({ page: 1, pageSize: 10 });
+  });
   test('refuses an unknown state and pages past the limits', () => {
     expect(quoteListQuerySchema.safeParse({ state: 'paid-twice' }).success).toBe(false);
     expect(quoteListQuerySchema.safeParse({ pageSize: '101' }).success).toBe(false);
