@@ -37,7 +37,10 @@ export async function listQuotes(viewer: SignedInUser, query: QuoteListQuery, no
     );
   }
   const condition = and(...where);
-  const depositPaid = sql<number>`coalesce((select sum(${payment.amountMinor}) from ${payment} where ${payment.quoteId} = ${quote.id} and ${payment.kind} = 'deposit' and ${payment.state} = 'paid'), 0)`;
+  const paidOfKind = (kind: 'deposit' | 'balance') =>
+    sql<number>`coalesce((select sum(${payment.amountMinor}) from ${payment} where ${payment.quoteId} = ${quote.id} and ${payment.kind} = ${kind} and ${payment.state} = 'paid'), 0)`;
+  const depositPaid = paidOfKind('deposit');
+  const balancePaid = paidOfKind('balance');
   const [rows, totals] = await Promise.all([
     db
       .select({
@@ -47,6 +50,7 @@ export async function listQuotes(viewer: SignedInUser, query: QuoteListQuery, no
         clientName: user.name,
         company: clientProfile.company,
         depositPaid,
+        balancePaid,
       })
       .from(quote)
       .innerJoin(brief, eq(brief.id, quote.briefId))
@@ -68,6 +72,7 @@ export async function listQuotes(viewer: SignedInUser, query: QuoteListQuery, no
     items: rows.map((row) => {
       const q = row.quote;
       const depositPaidMinor = Number(row.depositPaid);
+      const balancePaidMinor = Number(row.balancePaid);
       const state = stateAt(q, now);
       return {
         id: q.id,
@@ -79,7 +84,8 @@ export async function listQuotes(viewer: SignedInUser, query: QuoteListQuery, no
         totalMinor: q.totalMinor,
         depositMinor: q.depositMinor,
         depositPaid: depositPaidMinor > 0,
-        balanceMinor: balanceDue({ state, totalMinor: q.totalMinor, depositPaidMinor }),
+        balanceMinor: balanceDue({ state, totalMinor: q.totalMinor, depositPaidMinor, balancePaidMinor }),
+        paidInFull: balancePaidMinor > 0,
         validUntil: q.validUntil.toISOString(),
         sentAt: q.sentAt?.toISOString() ?? null,
         createdAt: q.createdAt.toISOString(),

@@ -16,6 +16,7 @@ interface Item {
   depositMinor: number;
   depositPaid: boolean;
   balanceMinor: number | null;
+  paidInFull: boolean;
 }
 interface List {
   items: Item[];
@@ -57,6 +58,14 @@ async function threeQuotes() {
 }
 
 describe('the quote lists', () => {
+  test('a job paid in full owes nothing: the balance paid against its invoice counts as well as the deposit', async () => {
+    const engineer = await new Visitor(baseUrl).signIn(DEMO.engineer);
+    const [job] = (await list(engineer, `q=${encodeURIComponent('Field logger')}`)).items;
+    expect(job).toMatchObject({ depositPaid: true, balanceMinor: 0, paidInFull: true });
+    const page = await (await engineer.request('/desk/quotes?q=Field+logger')).text();
+    expect(page).toContain('paid in full');
+  });
+
   test('a client sees their sent quotes across briefs, never a draft; staff see every quote of that client', async () => {
     const { rail, first, second, third, ownerId } = await threeQuotes();
     const own = await list(rail.client, '');

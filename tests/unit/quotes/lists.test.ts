@@ -9,6 +9,10 @@ describe('the balance of a quote', () => {
     expect(balanceDue({ state: 'accepted', totalMinor: 120_000, depositPaidMinor: 0 })).toBe(120_000);
     expect(balanceDue({ state: 'deposit-paid', totalMinor: 120_000, depositPaidMinor: 36_000 })).toBe(84_000);
   });
+  test('once the balance invoice is paid nothing is left to pay', () => {
+    expect(balanceDue({ state: 'deposit-paid', totalMinor: 241054, depositPaidMinor: 72316, balancePaidMinor: 168738 })).toBe(0);
+    expect(balanceDue({ state: 'deposit-paid', totalMinor: 241054, depositPaidMinor: 72316 })).toBe(168738);
+  });
   test('never reads below nothing, even if more was received than the total', () => {
     expect(balanceDue({ state: 'deposit-paid', totalMinor: 10_000, depositPaidMinor: 12_000 })).toBe(0);
   });
