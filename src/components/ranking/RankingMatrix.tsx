@@ -8,7 +8,7 @@ const STANDING_LOOK: Record<Standing, { className: string; glyph: string; words:
   between: { className: '', glyph: '', words: '' },
   worst: { className: 'bg-copper-50', glyph: '▼', words: 'least good of the buildable ways' },
   alone: { className: '', glyph: '', words: '' },
-  apart: { className: 'bg-idle-50 text-ink-faint', glyph: '', words: 'not compared: cannot be built' },
+  apart: { className: 'bg-idle-50 text-idle-700', glyph: '', words: 'not compared: cannot be built' },
 };
 
 const MEETS_LOOK: Record<Feasibility, { className: string; glyph: string }> = {
